@@ -1,0 +1,240 @@
+package model
+
+// This file fixes the model's entry point and its value types, the contract the
+// assessment code (report/assess) is written against. Fields may be added;
+// existing names and meanings stay. Every quantity is SI; NaN means "not given"
+// on input and "not defined for this object" on output.
+
+// Kind is the kind of surveyed object; the recipe of each is in Evaluate.
+type Kind uint8
+
+// Object kinds, as in the survey's Kind column.
+const (
+	KindUnknown Kind = iota
+	Sheet
+	Belt
+	Roller
+	Container
+	Part
+	Person
+	Powder
+	Liquid
+	Bag
+)
+
+// Group is a gas or dust group (IEC 60079-0).
+type Group uint8
+
+// Groups; GroupNone when the atmosphere has none.
+const (
+	GroupNone Group = iota
+	IIA
+	IIB
+	IIC
+	IIIA
+	IIIB
+	IIIC
+	numGroups
+)
+
+// Zone is a hazardous-area zone (IEC 60079-10-1 / -10-2).
+type Zone uint8
+
+// Zones; ZoneNone for an unclassified or non-hazardous area.
+const (
+	ZoneNone Zone = iota
+	Zone0
+	Zone1
+	Zone2
+	Zone20
+	Zone21
+	Zone22
+)
+
+// AtmosphereKind is what burns: gas, vapour, mist, dust or a hybrid of dust and gas.
+type AtmosphereKind uint8
+
+// Atmosphere kinds; NoAtmosphere where the station has none.
+const (
+	NoAtmosphere AtmosphereKind = iota
+	Gas
+	Vapour
+	Mist
+	Dust
+	Hybrid
+)
+
+// Material holds the electrical properties the model needs of a material.
+type Material struct {
+	Name               string
+	Conductive         bool    // class conductive (metals, conductive rubber)
+	Dissipative        bool    // class dissipative at 50 % RH
+	Permittivity       float64 // relative; NaN unknown
+	SurfaceResistivity float64 // ohm per square at 50 % RH; NaN unknown
+	HumiditySlope      float64 // decades per 10 %RH, >= 0
+	VolumeResistivity  float64 // ohm m; NaN unknown
+	BreakdownStrength  float64 // V/m; NaN unknown
+}
+
+// Input is one surveyed object in SI units; NaN fields were not measured.
+type Input struct {
+	Kind     Kind
+	Material Material
+
+	Length, Width, Diameter float64 // m
+	Thickness               float64 // m, insulating layer
+	EarthedBacking          bool    // the layer lies on earthed metal
+	DoubleLayer             bool    // the survey says double-layer charge (propagating brush without backing)
+	DistanceToEarth         float64 // m
+
+	Field            float64 // V/m, field-meter reading
+	FieldDistance    float64 // m
+	SurfacePotential float64 // V
+
+	Speed           float64 // m/s (belt, web; liquid: flow velocity in the line)
+	MassFlow        float64 // kg/s
+	ChargeToMass    float64 // C/kg
+	ChargingCurrent float64 // A
+	ChargingTime    float64 // s
+	ParticleSize    float64 // m, median
+
+	Resistance  float64 // ohm to earth; NaN unknown (treated as not earthed)
+	Capacitance float64 // F; NaN: estimated
+
+	Conductivity float64 // S/m (liquid)
+	Permittivity float64 // relative permittivity of a liquid; NaN: from the material or 2
+	BagType      BagType
+	Filling      Filling
+}
+
+// BagType is the flexible bulk container type of IEC 61340-4-4.
+type BagType uint8
+
+// Bag types; BagUnknown is assessed as the most restrictive case.
+const (
+	BagUnknown BagType = iota
+	BagA
+	BagB
+	BagC
+	BagD
+)
+
+// Filling is how a liquid enters its receiving container.
+type Filling uint8
+
+// Filling modes.
+const (
+	FillUnknown Filling = iota
+	FillTop
+	FillBottom
+	FillDipPipe
+)
+
+// Environment is the object's surroundings: the station's humidity and atmosphere.
+type Environment struct {
+	RelativeHumidity float64 // percent, 0-100
+	Temperature      float64 // K
+	Atmosphere       AtmosphereKind
+	Group            Group
+	Zone             Zone
+	MIE              float64 // J; NaN where there is no atmosphere
+}
+
+// DischargeType names a discharge; the strings are the JSON contract.
+type DischargeType uint8
+
+// Discharge types in the fixed order of Evaluation.Discharges.
+const (
+	Spark DischargeType = iota
+	Brush
+	PropagatingBrush
+	Corona
+	Cone
+	NumDischargeTypes
+)
+
+// String returns the contract name: spark, brush, propagating_brush, corona, cone.
+func (d DischargeType) String() string {
+	switch d {
+	case Spark:
+		return "spark"
+	case Brush:
+		return "brush"
+	case PropagatingBrush:
+		return "propagating_brush"
+	case Corona:
+		return "corona"
+	case Cone:
+		return "cone"
+	}
+	return "unknown"
+}
+
+// Discharge is the screening result for one discharge type.
+// Evaluate fills it without allocating; Reason() formats the one-sentence reason.
+type Discharge struct {
+	Type     DischargeType
+	Possible bool
+	Energy   float64 // J, effective or equivalent energy; NaN where not defined
+	Charge   float64 // C transferred in one discharge; NaN where not defined
+	// Code says why (one of the Reason* codes); A and B are the numbers the reason quotes.
+	Code Reason
+	A, B float64
+}
+
+// Reason is a code for the one-sentence reason of a discharge screening result.
+type Reason uint16
+
+// Evaluation is what the model computed for one object. NaN: not defined for the kind.
+type Evaluation struct {
+	Kind Kind
+
+	Capacitance       float64 // F
+	CapacitanceModel  CapModel
+	Potential         float64 // V (conductor potential, or a surface's potential)
+	PotentialSource   PotentialSource
+	ChargeDensity     float64 // C/m^2
+	SurfaceField      float64 // V/m
+	ChargingCurrent   float64 // A
+	StoredEnergy      float64 // J, C V^2 / 2 for conductors
+	TransferredCharge float64 // C, the largest charge one possible discharge transfers
+
+	Discharges      [NumDischargeTypes]Discharge
+	EffectiveEnergy float64 // J, largest energy among the possible discharges; 0 when none
+	Effective       DischargeType
+
+	InsulatingArea     float64 // m^2 of insulating surface (sheets, belts, bags), NaN otherwise
+	SurfaceResistivity float64 // ohm per square at the environment's RH, NaN when unknown
+	Dissipative        bool    // the surface is dissipative at this RH and can leak its charge
+	DecayTime          float64 // s, tau = R C, or strip or liquid relaxation time
+	TimeTo100V         float64 // s after charging stops, conductors; NaN otherwise
+
+	// Liquids.
+	RelaxationTime   float64 // s, eps0 epsr / kappa
+	StreamingCurrent float64 // A
+	VelocityDiameter float64 // m^2/s, v d
+
+	// Assumed lists the defaults the model applied (estimated capacitance, unknown
+	// resistance taken as not earthed...); Flags what it noticed (suspect reading,
+	// potential capped at corona onset, formula outside its range).
+	Assumed Assumption
+	Flags   Flag
+
+	// NotAssessed is non-zero when the model cannot judge the object (missing inputs).
+	NotAssessed Missing
+}
+
+// CapModel says which model gave a capacitance.
+type CapModel uint8
+
+// PotentialSource says where a potential came from.
+type PotentialSource uint8
+
+// Assumption is a bit set of defaults the model applied.
+type Assumption uint32
+
+// Flag is a bit set of things the model noticed about the inputs or results.
+type Flag uint32
+
+// Missing is a bit set of inputs the kind needed and did not have.
+type Missing uint32

@@ -1,0 +1,51 @@
+package model
+
+// Limits are the published limits and screening choices the model and the
+// assessment apply. DefaultLimits returns them with their sources; a survey may
+// override any of them (Site sheet). Per-group arrays are indexed by Group.
+type Limits struct {
+	// Brush discharge: charge-density screen per gas group (C/m^2), the
+	// equivalent energy (J) and the area one brush drains (m^2).
+	BrushChargeDensity [numGroups]float64
+	BrushEnergy        float64
+	BrushArea          float64
+
+	// Transferred charge per group (C), EPL Gb/Gc (zones 1, 2); zone 0 uses ZoneZeroChargeFactor x these.
+	TransferredCharge    [numGroups]float64
+	ZoneZeroChargeFactor float64
+
+	// Insulating surface area per group (m^2), EPL Ga (zone 0) and Gb/Gc (zones 1, 2).
+	AreaGa [numGroups]float64
+	AreaGb [numGroups]float64
+
+	// Propagating brush: density it needs (C/m^2), the layer breakdown below which
+	// it is prevented (V), the thickness above which it is not expected (m).
+	PropagatingDensity   float64
+	PropagatingBreakdown float64
+	PropagatingThickness float64
+
+	ConductorEarthing  float64 // ohm, conductors to earth
+	PersonEarthing     float64 // ohm, person to earth
+	PersonEarthingMIE  float64 // J, the person limit applies when MIE <= this
+	ShockEnergy        float64 // J
+	SafePotential      float64 // V, a conductor below it is safe (100 V)
+	SparkMinPotential  float64 // V, Paschen floor (about 300 V)
+	AirBreakdown       float64 // V/m
+	NotEarthed         float64 // ohm, taken for an unknown resistance to earth
+	PersonMaxPotential float64 // V, cap on an estimated body potential
+
+	// Liquids (IEC 60079-32-1 filling limits).
+	LowConductivity   float64 // S/m, at or below: low conductivity
+	HighConductivity  float64 // S/m, above: high conductivity
+	VDHigh            float64 // m^2/s, v d limit above VDKappa
+	VDLow             float64 // m^2/s, v d limit at or below VDKappa or unknown
+	VDKappa           float64 // S/m
+	MaxVelocity       float64 // m/s
+	SlowStartVelocity float64 // m/s until the inlet is submerged
+
+	// Bags (IEC 61340-4-4).
+	BagCToTab     float64 // ohm, any point to the earthing tab (type C)
+	BagTabToEarth float64 // ohm, tab to plant earth (type C)
+	BagMinMIE     float64 // J, ignition qualification of types C and D
+	BagMaxCurrent float64 // A, charging current the qualification assumes
+}

@@ -1,0 +1,130 @@
+package assess
+
+// This file fixes the assessment's result types, the contract the audit workbook,
+// JSON and terminal writers (package report) are written against. Fields may be
+// added; existing names and meanings stay.
+
+import (
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+)
+
+// Verdict is the judgement on an object or station.
+type Verdict uint8
+
+// Verdicts, ordered from least to most severe except NotAssessed, which sorts by Severity.
+const (
+	NonIncendive Verdict = iota
+	Marginal
+	Incendive
+	NotAssessed
+)
+
+// String returns the contract spelling: "non-incendive", "marginal", "incendive", "not assessed".
+func (v Verdict) String() string {
+	switch v {
+	case NonIncendive:
+		return "non-incendive"
+	case Marginal:
+		return "marginal"
+	case Incendive:
+		return "incendive"
+	}
+	return "not assessed"
+}
+
+// Severity orders verdicts for ranking: incendive 3, marginal 2, not assessed 1, non-incendive 0.
+func (v Verdict) Severity() int {
+	switch v {
+	case Incendive:
+		return 3
+	case Marginal:
+		return 2
+	case NotAssessed:
+		return 1
+	}
+	return 0
+}
+
+// Finding is one failed check on one object.
+type Finding struct {
+	ObjectID   string
+	StationID  string
+	Check      string  // stable check name, e.g. "energy-vs-mie", "conductor-earthing"
+	Severity   Verdict // the verdict this check alone implies (Incendive or Marginal); shock findings are Marginal
+	Message    string  // one line with the numbers
+	Mitigation string  // in words of the trade, from templates
+}
+
+// Default is one assumed value that fed an object's result, shown beside the value.
+type Default struct {
+	Field  string // the quantity it stands for, e.g. "Capacitance"
+	Value  string // the value with its unit, e.g. "200 pF"
+	Reason string // why and from where, e.g. "typical human body (Saito 1963)"
+}
+
+// ObjectResult is the assessment of one accepted object.
+type ObjectResult struct {
+	Object      inventory.Object
+	Material    *inventory.Material // nil when none given
+	Station     inventory.Station
+	Atmosphere  *inventory.Atmosphere // nil: no flammable atmosphere at the station
+	Environment model.Environment
+	Input       model.Input
+	Eval        model.Evaluation
+
+	Verdict Verdict
+	// Ratio is EffectiveEnergy / MIE; nil where there is no atmosphere.
+	Ratio    *float64
+	Reason   string // one sentence: why this verdict (or why not assessed)
+	Findings []Finding
+	Defaults []Default
+
+	// Uncertainty, filled only when Options.Samples > 0.
+	Probability *Probability
+}
+
+// Probability is the Monte Carlo outcome for one object.
+type Probability struct {
+	Samples      int
+	Incendive    float64
+	Marginal     float64
+	NonIncendive float64
+	NotAssessed  float64
+	EnergyP05    float64 // J
+	EnergyP50    float64 // J
+	EnergyP95    float64 // J
+}
+
+// StationResult is one station's ranked result.
+type StationResult struct {
+	Station    inventory.Station
+	Atmosphere *inventory.Atmosphere
+	Rank       int     // 1 = worst
+	Verdict    Verdict // the worst object's
+	WorstRatio *float64
+	Objects    []string // object IDs at the station, in survey order
+	Counts     map[Verdict]int
+	// ProbabilityAnyIncendive, filled only when Options.Samples > 0.
+	ProbabilityAnyIncendive *float64
+}
+
+// Options control an assessment.
+type Options struct {
+	Limits  model.Limits // the limits applied (survey overrides already merged)
+	Samples int          // Monte Carlo samples per object; 0 = point estimate only
+	Seed    uint64       // Monte Carlo seed
+	Workers int          // 0 = all cores
+}
+
+// Audit is the whole assessment of one survey.
+type Audit struct {
+	Survey   *inventory.Survey
+	Options  Options
+	Objects  []ObjectResult  // every accepted object, survey order
+	Stations []StationResult // ranked, worst first
+	Findings []Finding       // all findings, ordered by severity, then station rank, then object
+	Counts   map[Verdict]int // objects by verdict
+	// MethodDefaults lists, once each, every default the assessment applied across objects.
+	MethodDefaults []Default
+}
