@@ -1,0 +1,11 @@
+// Package report writes the outputs of an assessment: the audit workbook
+// (WriteWorkbook), the JSON file of the output contract (WriteJSON) and the
+// short ranked table for the terminal (WriteSummary). Files are written through
+// WriteFileAtomic, so a killed run never leaves a half-written audit in place.
+//
+// Every quantity arrives in SI units (report/assess.Audit); this package alone
+// converts them to the engineering units people read (kV, pF, mJ, µC/m², kV/m,
+// nC), using the unit table of format.go for both the workbook and the terminal.
+// A quantity that is not defined for an object (NaN in the model) is an empty
+// cell in the workbook and null in the JSON, never 0 and never "NaN".
+package report
