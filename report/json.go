@@ -1,0 +1,296 @@
+package report
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
+)
+
+// The JSON document of the output contract (architecture.md). Structs, not
+// maps, keep the key order fixed; every quantity is SI; a pointer that is nil
+// is null: not defined for the kind, not measured, or no atmosphere.
+type jsonAudit struct {
+	Tool     jsonTool      `json:"tool"`
+	Survey   jsonSurvey    `json:"survey"`
+	Site     jsonSite      `json:"site"`
+	Counts   jsonCounts    `json:"counts"`
+	Stations []jsonStation `json:"stations"`
+	Objects  []jsonObject  `json:"objects"`
+	Rejected []jsonProblem `json:"rejected"`
+	Warnings []jsonProblem `json:"warnings"`
+	Cautions []string      `json:"cautions"`
+}
+
+type jsonTool struct {
+	Name    string `json:"name"`
+	Version string `json:"version"`
+}
+
+type jsonSurvey struct {
+	File   string `json:"file"`
+	SHA256 string `json:"sha256"`
+}
+
+type jsonSite struct {
+	Name                string   `json:"name"`
+	SurveyDate          string   `json:"survey_date"`
+	SurveyedBy          string   `json:"surveyed_by"`
+	RelativeHumidityPct *float64 `json:"relative_humidity_pct"`
+	AirTemperatureK     *float64 `json:"air_temperature_K"`
+	RequiredMargin      *float64 `json:"required_margin"`
+	Defaults            []string `json:"defaults"`
+}
+
+// jsonVerdictCounts holds counts or probabilities keyed by the verdict spelling.
+type jsonVerdictCounts struct {
+	Incendive    int `json:"incendive"`
+	Marginal     int `json:"marginal"`
+	NonIncendive int `json:"non-incendive"`
+	NotAssessed  int `json:"not assessed"`
+}
+
+func verdictCounts(m map[assess.Verdict]int) jsonVerdictCounts {
+	return jsonVerdictCounts{m[assess.Incendive], m[assess.Marginal], m[assess.NonIncendive], m[assess.NotAssessed]}
+}
+
+type jsonRows struct {
+	Sheet    string `json:"sheet"`
+	Read     int    `json:"read"`
+	Accepted int    `json:"accepted"`
+	Rejected int    `json:"rejected"`
+}
+
+type jsonCounts struct {
+	Objects  jsonVerdictCounts `json:"objects"`
+	Findings int               `json:"findings"`
+	Rows     []jsonRows        `json:"rows"`
+}
+
+type jsonStation struct {
+	ID                      string            `json:"id"`
+	Name                    string            `json:"name"`
+	Line                    string            `json:"line"`
+	Atmosphere              *string           `json:"atmosphere"`
+	MIEJ                    *float64          `json:"mie_J"`
+	Zone                    *string           `json:"zone"`
+	Group                   *string           `json:"group"`
+	Rank                    int               `json:"rank"`
+	Verdict                 string            `json:"verdict"`
+	WorstRatio              *float64          `json:"worst_ratio"`
+	Objects                 []string          `json:"objects"`
+	Counts                  jsonVerdictCounts `json:"counts"`
+	ProbabilityAnyIncendive *float64          `json:"probability_any_incendive,omitempty"`
+}
+
+type jsonDischarge struct {
+	Type     string   `json:"type"`
+	Possible bool     `json:"possible"`
+	EnergyJ  *float64 `json:"energy_J"`
+	ChargeC  *float64 `json:"charge_C"`
+	Reason   string   `json:"reason"`
+}
+
+type jsonFinding struct {
+	Check      string `json:"check"`
+	Severity   string `json:"severity"`
+	Message    string `json:"message"`
+	Mitigation string `json:"mitigation"`
+}
+
+type jsonDefault struct {
+	Field  string `json:"field"`
+	Value  string `json:"value"`
+	Reason string `json:"reason"`
+}
+
+type jsonProbability struct {
+	Incendive    float64 `json:"incendive"`
+	Marginal     float64 `json:"marginal"`
+	NonIncendive float64 `json:"non-incendive"`
+	NotAssessed  float64 `json:"not assessed"`
+}
+
+type jsonObject struct {
+	ID                     string           `json:"id"`
+	Station                string           `json:"station"`
+	Kind                   string           `json:"kind"`
+	Verdict                string           `json:"verdict"`
+	Reason                 string           `json:"reason"`
+	Ratio                  *float64         `json:"ratio"`
+	EnergyJ                *float64         `json:"energy_J"`
+	EffectiveDischarge     *string          `json:"effective_discharge"`
+	PotentialV             *float64         `json:"potential_V"`
+	CapacitanceF           *float64         `json:"capacitance_F"`
+	CapacitanceMeasured    bool             `json:"capacitance_measured"`
+	ChargeDensityCPerM2    *float64         `json:"charge_density_C_per_m2"`
+	SurfaceFieldVPerM      *float64         `json:"surface_field_V_per_m"`
+	ChargingCurrentA       *float64         `json:"charging_current_A"`
+	StoredEnergyJ          *float64         `json:"stored_energy_J"`
+	TransferredChargeC     *float64         `json:"transferred_charge_C"`
+	InsulatingAreaM2       *float64         `json:"insulating_area_m2"`
+	SurfaceResistivityOhm  *float64         `json:"surface_resistivity_ohm"`
+	DecayTimeS             *float64         `json:"decay_time_s"`
+	TimeTo100VS            *float64         `json:"time_to_100V_s"`
+	RelaxationTimeS        *float64         `json:"relaxation_time_s"`
+	StreamingCurrentA      *float64         `json:"streaming_current_A"`
+	VelocityDiameterM2PerS *float64         `json:"velocity_diameter_m2_per_s"`
+	Discharges             []jsonDischarge  `json:"discharges"`
+	Findings               []jsonFinding    `json:"findings"`
+	Defaults               []jsonDefault    `json:"defaults"`
+	Probability            *jsonProbability `json:"probability,omitempty"`
+	EnergyJP05             *float64         `json:"energy_J_p05,omitempty"`
+	EnergyJP50             *float64         `json:"energy_J_p50,omitempty"`
+	EnergyJP95             *float64         `json:"energy_J_p95,omitempty"`
+}
+
+type jsonProblem struct {
+	Sheet   string `json:"sheet"`
+	Row     int    `json:"row"`
+	Column  string `json:"column"`
+	Field   string `json:"field"`
+	ID      string `json:"id"`
+	Message string `json:"message"`
+	Fix     string `json:"fix"`
+}
+
+func problemJSON(p inventory.Problem) jsonProblem {
+	return jsonProblem{p.Sheet, p.Row, p.Column, p.Field, p.ID, p.Message, p.Fix}
+}
+
+func strPtr(s string) *string { return &s }
+
+// WriteJSON writes the audit as the JSON document of the output contract: the
+// stable keys of architecture.md with SI values, null where a kind has no such
+// quantity or there is no atmosphere (NaN is never written), plus the counts,
+// the cautions and, when the assessment sampled, the probabilities. Output is
+// indented and its key order fixed, so the same audit gives the same bytes.
+func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
+	if a == nil || a.Survey == nil {
+		return errors.New("write JSON: no audit or no survey")
+	}
+	s := a.Survey
+	doc := jsonAudit{
+		Tool:   jsonTool{info.tool(), info.ToolVersion},
+		Survey: jsonSurvey{info.file(a), info.sha(a)},
+		Site: jsonSite{
+			Name:                s.Site.Name,
+			SurveyedBy:          s.Site.SurveyedBy,
+			RelativeHumidityPct: finite(s.Site.RelativeHumidity.OrNaN()),
+			AirTemperatureK:     finite(s.Site.AirTemperature.OrNaN()),
+			RequiredMargin:      finite(s.Site.RequiredMargin.OrNaN()),
+			Defaults:            append([]string{}, s.Site.Defaults...),
+		},
+		Counts: jsonCounts{
+			Objects:  verdictCounts(a.Counts),
+			Findings: len(a.Findings),
+			Rows:     []jsonRows{},
+		},
+		Stations: []jsonStation{},
+		Objects:  []jsonObject{},
+		Rejected: []jsonProblem{},
+		Warnings: []jsonProblem{},
+		Cautions: templates.Cautions(),
+	}
+	if !s.Site.SurveyDate.IsZero() {
+		doc.Site.SurveyDate = s.Site.SurveyDate.UTC().Format("2006-01-02")
+	}
+	for _, c := range s.Counts {
+		doc.Counts.Rows = append(doc.Counts.Rows, jsonRows{c.Sheet, c.Read, c.Accepted, c.Rejected})
+	}
+	for i := range a.Stations {
+		st := &a.Stations[i]
+		js := jsonStation{
+			ID: st.Station.ID, Name: st.Station.Name, Line: st.Station.Line,
+			Rank: st.Rank, Verdict: st.Verdict.String(), WorstRatio: finitePtr(st.WorstRatio),
+			Objects: append([]string{}, st.Objects...), Counts: verdictCounts(st.Counts),
+			ProbabilityAnyIncendive: finitePtr(st.ProbabilityAnyIncendive),
+		}
+		if at := st.Atmosphere; at != nil {
+			js.Atmosphere = strPtr(at.ID)
+			js.MIEJ = finite(at.MIE.OrNaN())
+			if at.Zone != "" {
+				js.Zone = strPtr(at.Zone)
+			}
+			if at.Group != "" {
+				js.Group = strPtr(at.Group)
+			}
+		}
+		doc.Stations = append(doc.Stations, js)
+	}
+	for i := range a.Objects {
+		doc.Objects = append(doc.Objects, objectJSON(&a.Objects[i]))
+	}
+	for _, r := range problemRows(s) {
+		if r.p.Severity == inventory.Warning {
+			doc.Warnings = append(doc.Warnings, problemJSON(r.p))
+		} else {
+			doc.Rejected = append(doc.Rejected, problemJSON(r.p))
+		}
+	}
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(doc); err != nil {
+		return fmt.Errorf("write JSON: %w", err)
+	}
+	return nil
+}
+
+func objectJSON(o *assess.ObjectResult) jsonObject {
+	e := &o.Eval
+	jo := jsonObject{
+		ID: o.Object.ID, Station: o.Object.Station, Kind: o.Object.Kind,
+		Verdict: o.Verdict.String(), Reason: o.Reason,
+		Ratio:                  finitePtr(o.Ratio),
+		PotentialV:             finite(e.Potential),
+		CapacitanceF:           finite(e.Capacitance),
+		CapacitanceMeasured:    o.Object.Capacitance.Known,
+		ChargeDensityCPerM2:    finite(e.ChargeDensity),
+		SurfaceFieldVPerM:      finite(e.SurfaceField),
+		ChargingCurrentA:       finite(e.ChargingCurrent),
+		StoredEnergyJ:          finite(e.StoredEnergy),
+		TransferredChargeC:     finite(e.TransferredCharge),
+		InsulatingAreaM2:       finite(e.InsulatingArea),
+		SurfaceResistivityOhm:  finite(e.SurfaceResistivity),
+		DecayTimeS:             finite(e.DecayTime),
+		TimeTo100VS:            finite(e.TimeTo100V),
+		RelaxationTimeS:        finite(e.RelaxationTime),
+		StreamingCurrentA:      finite(e.StreamingCurrent),
+		VelocityDiameterM2PerS: finite(e.VelocityDiameter),
+		Discharges:             []jsonDischarge{},
+		Findings:               []jsonFinding{},
+		Defaults:               []jsonDefault{},
+	}
+	if e.NotAssessed == 0 {
+		jo.EnergyJ = finite(e.EffectiveEnergy)
+		if jo.EnergyJ != nil && *jo.EnergyJ > 0 {
+			jo.EffectiveDischarge = strPtr(e.Effective.String())
+		}
+	}
+	for i, d := range e.Discharges {
+		// The array index is the type (fixed order of model.Evaluation.Discharges).
+		jo.Discharges = append(jo.Discharges, jsonDischarge{
+			Type: model.DischargeType(i).String(), Possible: d.Possible,
+			EnergyJ: finite(d.Energy), ChargeC: finite(d.Charge), Reason: dischargeReason(d),
+		})
+	}
+	for _, f := range o.Findings {
+		jo.Findings = append(jo.Findings, jsonFinding{f.Check, f.Severity.String(), f.Message, f.Mitigation})
+	}
+	for _, d := range o.Defaults {
+		jo.Defaults = append(jo.Defaults, jsonDefault{d.Field, d.Value, d.Reason})
+	}
+	if p := o.Probability; p != nil {
+		jo.Probability = &jsonProbability{p.Incendive, p.Marginal, p.NonIncendive, p.NotAssessed}
+		jo.EnergyJP05 = finite(p.EnergyP05)
+		jo.EnergyJP50 = finite(p.EnergyP50)
+		jo.EnergyJP95 = finite(p.EnergyP95)
+	}
+	return jo
+}

@@ -1,0 +1,250 @@
+package report
+
+import (
+	"fmt"
+
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
+	"github.com/xuri/excelize/v2"
+)
+
+// summaryWidths are the Summary column widths: A labels, A-J the ranked stations table.
+func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10, 11, 10} }
+
+// summary writes the Summary sheet: identity, counts by verdict, rows read,
+// the ranked stations, the chart of worst ratios and the cautions in short.
+func (wb *workbook) summary() error {
+	f, s, a := wb.f, SheetSummary, wb.a
+	site := a.Survey.Site
+	if err := setWidths(f, s, summaryWidths()); err != nil {
+		return err
+	}
+	sink := normalSink{f: f, sheet: s, st: wb.st}
+	r := 1
+	if err := f.SetCellValue(s, "A1", "Electrostatic ignition screening audit"); err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(s, "A1", "A1", wb.st.title()); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, 1, 24); err != nil {
+		return err
+	}
+	// The cautions line right under the title, in a caution box.
+	r = 2
+	if err := f.MergeCell(s, "A2", "J2"); err != nil {
+		return err
+	}
+	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(s, "A2", "J2", wb.st.caution()); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, 2, 30); err != nil {
+		return err
+	}
+
+	section := func(row int, title string) error {
+		ref := fmt.Sprintf("A%d", row)
+		if err := f.SetCellValue(s, ref, title); err != nil {
+			return err
+		}
+		return f.SetCellStyle(s, ref, fmt.Sprintf("J%d", row), wb.st.section())
+	}
+
+	r = 4
+	if err := section(r, "Survey"); err != nil {
+		return err
+	}
+	r++
+	ident := [][2]cell{
+		{text("Site"), text(siteName(a))},
+		{text("Survey date"), text(dateText(a))},
+		{text("Surveyed by"), optText(site.SurveyedBy)},
+		{text(UnitPercentRH.Header("Relative humidity")), est(inQ(UnitPercentRH, site.RelativeHumidity), siteDefaulted(site.Defaults, "humidity"))},
+		{text(UnitCelsius.Header("Air temperature")), est(inQ(UnitCelsius, site.AirTemperature), siteDefaulted(site.Defaults, "temperature"))},
+		{text(UnitDimless.Header("Required margin")), est(inQ(UnitDimless, site.RequiredMargin), siteDefaulted(site.Defaults, "margin"))},
+		{text("Survey file"), optText(wb.info.file(a))},
+		{text("Survey SHA-256"), optText(wb.info.sha(a))},
+		{text("Tool"), text(wb.info.tool() + " " + wb.info.ToolVersion)},
+	}
+	for _, kv := range ident {
+		kv[0].bold = true
+		if err := sink.row(r, []cell{kv[0], kv[1]}); err != nil {
+			return err
+		}
+		r++
+	}
+
+	// Counts by verdict.
+	r++
+	if err := section(r, "Objects by verdict"); err != nil {
+		return err
+	}
+	r++
+	if err := sink.header(r, []string{"Verdict", "Objects [count]", "Findings [count]"}); err != nil {
+		return err
+	}
+	r++
+	findingsBy := map[assess.Verdict]int{}
+	for _, fd := range a.Findings {
+		findingsBy[fd.Severity]++
+	}
+	total := 0
+	for _, v := range verdictOrder() {
+		n := a.Counts[v]
+		total += n
+		if err := sink.row(r, []cell{verdictCell(v), integer(n), integer(findingsBy[v])}); err != nil {
+			return err
+		}
+		r++
+	}
+	if err := sink.row(r, []cell{boldText("All objects"), integer(total), integer(len(a.Findings))}); err != nil {
+		return err
+	}
+	r += 2
+
+	// Rows read, accepted, rejected.
+	if err := section(r, "Survey rows"); err != nil {
+		return err
+	}
+	r++
+	if err := sink.header(r, []string{"Survey sheet", "Read [rows]", "Accepted [rows]", "Rejected [rows]"}); err != nil {
+		return err
+	}
+	r++
+	for _, c := range a.Survey.Counts {
+		if err := sink.row(r, []cell{text(c.Sheet), integer(c.Read), integer(c.Accepted), integer(c.Rejected)}); err != nil {
+			return err
+		}
+		r++
+	}
+	if n := len(a.Survey.Warnings()); n > 0 {
+		if err := sink.row(r, []cell{text(fmt.Sprintf("%d warning(s) on accepted rows: see the Rejected sheet", n))}); err != nil {
+			return err
+		}
+		r++
+	}
+	r++
+
+	// Ranked stations.
+	if err := section(r, "Stations, worst first"); err != nil {
+		return err
+	}
+	r++
+	if err := sink.header(r, []string{"Station", "Rank", "Name", "Verdict", UnitRatio.Header("Worst ratio E/MIE"),
+		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, r, 30); err != nil {
+		return err
+	}
+	r++
+	for i := range a.Stations {
+		st := &a.Stations[i]
+		if err := sink.row(r, []cell{
+			boldText(st.Station.ID), integer(st.Rank), wrapText(st.Station.Name), verdictCell(st.Verdict),
+			ratioCell(finitePtr(st.WorstRatio)), integer(len(st.Objects)),
+			integer(st.Counts[assess.Incendive]), integer(st.Counts[assess.Marginal]),
+			integer(st.Counts[assess.NonIncendive]), integer(st.Counts[assess.NotAssessed]),
+		}); err != nil {
+			return err
+		}
+		r++
+	}
+	r++
+
+	// Chart of worst ratio per station, pointing at the Stations sheet.
+	if len(a.Stations) > 0 {
+		if err := section(r, "Worst ratio per station"); err != nil {
+			return err
+		}
+		r++
+		if err := wb.chart(fmt.Sprintf("A%d", r)); err != nil {
+			return err
+		}
+		r += chartRows
+		if err := sink.row(r, []cell{wrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
+			"Stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}); err != nil {
+			return err
+		}
+		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
+			return err
+		}
+		if err := f.SetRowHeight(s, r, 30); err != nil {
+			return err
+		}
+		r += 2
+	}
+
+	// Cautions in short.
+	if err := section(r, "Cautions"); err != nil {
+		return err
+	}
+	r++
+	for i, c := range templates.Cautions() {
+		ref := fmt.Sprintf("A%d", r)
+		if err := f.SetCellValue(s, ref, fmt.Sprintf("%d. %s", i+1, c)); err != nil {
+			return err
+		}
+		if err := f.MergeCell(s, ref, fmt.Sprintf("J%d", r)); err != nil {
+			return err
+		}
+		if err := f.SetCellStyle(s, ref, ref, wb.st.of(wrapText(""))); err != nil {
+			return err
+		}
+		if err := f.SetRowHeight(s, r, wrappedHeight(c, 130)); err != nil {
+			return err
+		}
+		r++
+	}
+	return wb.printSetup(s, 1, "", "")
+}
+
+// chartRows is the height of the Summary chart in sheet rows (20 px each).
+const chartRows = 18
+
+// chart adds the native bar chart of the stations' worst ratios, on a log
+// value axis, with each bar coloured by the station's verdict.
+func (wb *workbook) chart(at string) error {
+	n := wb.stationRows
+	sheet := "'" + SheetStations + "'"
+	var points []excelize.ChartDataPoint
+	for i := range wb.a.Stations {
+		fill, _ := verdictColours(wb.a.Stations[i].Verdict)
+		points = append(points, excelize.ChartDataPoint{Index: i, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fill}}})
+	}
+	gap := uint(60)
+	return wb.f.AddChart(SheetSummary, at, &excelize.Chart{
+		Type: excelize.Bar,
+		Series: []excelize.ChartSeries{{
+			Name:       sheet + "!$" + stationsRatioCol + "$1",
+			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsIDCol, stationsIDCol, n),
+			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsRatioCol, stationsRatioCol, n),
+			DataPoint:  points,
+		}},
+		Format:    excelize.GraphicOptions{OffsetX: 4, OffsetY: 4},
+		Dimension: excelize.ChartDimension{Width: 900, Height: chartRows*20 - 8},
+		Legend:    excelize.ChartLegend{Position: "none"},
+		Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "Worst ratio E/MIE per station (log scale)", Font: &excelize.Font{Size: 11, Bold: true}}}},
+		XAxis:     excelize.ChartAxis{ReverseOrder: true, Font: excelize.Font{Size: 9}},
+		YAxis: excelize.ChartAxis{
+			LogBase: 10, MajorGridLines: true, Font: excelize.Font{Size: 9},
+			Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "effective energy / MIE [–]"}}},
+		},
+		GapWidth:     &gap,
+		ShowBlanksAs: "gap",
+	})
+}
+
+// siteDefaulted reports whether the site value was defaulted (Site.Defaults
+// lists the defaulted items in words).
+func siteDefaulted(defaults []string, word string) bool {
+	for _, d := range defaults {
+		if containsFold(d, word) {
+			return true
+		}
+	}
+	return false
+}

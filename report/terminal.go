@@ -1,0 +1,63 @@
+package report
+
+import (
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
+)
+
+// WriteSummary writes the short plain-text summary of an audit for the
+// terminal: the ranked stations (rank, station, verdict, worst ratio, counts),
+// the objects by verdict, the survey rows accepted and rejected, and the
+// cautions line. Columns are aligned with text/tabwriter; no colours.
+func WriteSummary(w io.Writer, a *assess.Audit) error {
+	if a == nil {
+		return fmt.Errorf("write summary: no audit")
+	}
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "Rank\tStation\tVerdict\tWorst ratio E/MIE\tObjects\tIncendive\tMarginal\tNon-incendive\tNot assessed")
+	for i := range a.Stations {
+		s := &a.Stations[i]
+		name := s.Station.ID
+		if s.Station.Name != "" {
+			name += " " + s.Station.Name
+		}
+		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d\n", s.Rank, name, s.Verdict, FormatRatio(finitePtr(s.WorstRatio)),
+			len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed])
+	}
+	if err := tw.Flush(); err != nil {
+		return fmt.Errorf("write summary: %w", err)
+	}
+	var parts []string
+	total := 0
+	for _, v := range verdictOrder() {
+		parts = append(parts, fmt.Sprintf("%d %s", a.Counts[v], v))
+		total += a.Counts[v]
+	}
+	fmt.Fprintf(w, "\nObjects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
+	if a.Survey != nil {
+		read, acc, rej := 0, 0, 0
+		for _, c := range a.Survey.Counts {
+			read += c.Read
+			acc += c.Accepted
+			rej += c.Rejected
+		}
+		line := fmt.Sprintf("Survey rows: %d read, %d accepted, %d rejected", read, acc, rej)
+		if n := len(a.Survey.Warnings()); n > 0 {
+			line += fmt.Sprintf("; %d warning(s)", n)
+		}
+		if rej > 0 || len(a.Survey.Warnings()) > 0 {
+			line += " (see the Rejected sheet)"
+		}
+		fmt.Fprintln(w, line)
+	}
+	_, err := fmt.Fprintf(w, "\n%s\n", templates.CautionLine)
+	if err != nil {
+		return fmt.Errorf("write summary: %w", err)
+	}
+	return nil
+}

@@ -1,0 +1,489 @@
+package report
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+	"time"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
+	"github.com/xuri/excelize/v2"
+)
+
+// Sheet names of the audit workbook, in order.
+const (
+	SheetSummary  = "Summary"
+	SheetStations = "Stations"
+	SheetObjects  = "Objects"
+	SheetFindings = "Findings"
+	SheetMethod   = "Method"
+	SheetCautions = "Cautions"
+	SheetRejected = "Rejected"
+)
+
+// Sheets returns the audit workbook's sheet names in order.
+func Sheets() []string {
+	return []string{SheetSummary, SheetStations, SheetObjects, SheetFindings, SheetMethod, SheetCautions, SheetRejected}
+}
+
+// RunInfo identifies the run that produced an audit, so an auditor can tie the
+// audit to its input and to the tool that made it.
+type RunInfo struct {
+	ToolName     string // "sparkmargin" when empty
+	ToolVersion  string // e.g. "0.4.0" or a VCS revision
+	SurveyFile   string // the survey's file name as given on the command line
+	SurveySHA256 string // hex SHA-256 of the survey file; "" takes Survey.SHA256
+	CommandLine  string // the command as run, for the Method sheet
+}
+
+func (ri RunInfo) tool() string {
+	if ri.ToolName == "" {
+		return "sparkmargin"
+	}
+	return ri.ToolName
+}
+
+func (ri RunInfo) sha(a *assess.Audit) string {
+	if ri.SurveySHA256 != "" {
+		return ri.SurveySHA256
+	}
+	if a.Survey != nil {
+		return a.Survey.SHA256
+	}
+	return ""
+}
+
+func (ri RunInfo) file(a *assess.Audit) string {
+	if ri.SurveyFile != "" {
+		return ri.SurveyFile
+	}
+	if a.Survey != nil {
+		return a.Survey.Path
+	}
+	return ""
+}
+
+// surveyDate returns the survey date, or a fixed date when the survey has
+// none, so that the document properties never depend on the clock.
+func surveyDate(a *assess.Audit) time.Time {
+	if a.Survey != nil && !a.Survey.Site.SurveyDate.IsZero() {
+		return a.Survey.Site.SurveyDate.UTC()
+	}
+	return time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC)
+}
+
+func dateText(a *assess.Audit) string {
+	if a.Survey == nil || a.Survey.Site.SurveyDate.IsZero() {
+		return "not given"
+	}
+	return a.Survey.Site.SurveyDate.UTC().Format("2006-01-02")
+}
+
+func siteName(a *assess.Audit) string {
+	if a.Survey == nil || a.Survey.Site.Name == "" {
+		return "site not named"
+	}
+	return a.Survey.Site.Name
+}
+
+// verdictOrder is the order verdicts are listed in: most severe first.
+func verdictOrder() []assess.Verdict {
+	return []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed}
+}
+
+// WriteWorkbook writes the audit workbook of a to w: the sheets Summary,
+// Stations, Objects, Findings, Method, Cautions and Rejected, in that order.
+// Values are in engineering units with the unit in every header, stored as
+// numbers with number formats; a quantity that is not defined is an empty
+// cell; a value fed by an assumed default reads "est." in its cell and the
+// default is listed in the object's "Defaults applied" column. Every sheet is
+// set up to print: landscape, fitted to the page width (the wide Objects sheet
+// to a few pages across, with its ID column repeated), header rows repeated,
+// and a footer with site, survey date and page number. The document
+// properties come from the survey date, so the same audit gives the same cells.
+func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
+	if a == nil || a.Survey == nil {
+		return errors.New("write workbook: no audit or no survey")
+	}
+	f := excelize.NewFile()
+	defer func() { _ = f.Close() }()
+	st := newStyles(f)
+	wb := &workbook{f: f, st: st, a: a, info: info}
+
+	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	for _, s := range Sheets()[1:] {
+		if _, err := f.NewSheet(s); err != nil {
+			return fmt.Errorf("write workbook: sheet %s: %w", s, err)
+		}
+	}
+	steps := []struct {
+		name string
+		fn   func() error
+	}{
+		{SheetStations, wb.stations},
+		{SheetObjects, wb.objects},
+		{SheetFindings, wb.findings},
+		{SheetMethod, wb.method},
+		{SheetCautions, wb.cautions},
+		{SheetRejected, wb.rejected},
+		{SheetSummary, wb.summary},
+	}
+	for _, s := range steps {
+		if err := s.fn(); err != nil {
+			return fmt.Errorf("write workbook: sheet %s: %w", s.name, err)
+		}
+	}
+	if st.err != nil {
+		return fmt.Errorf("write workbook: %w", st.err)
+	}
+	f.SetActiveSheet(0)
+	d := surveyDate(a).Format("2006-01-02T15:04:05Z")
+	if err := f.SetDocProps(&excelize.DocProperties{
+		Creator:        info.tool() + " " + info.ToolVersion,
+		LastModifiedBy: info.tool(),
+		Created:        d,
+		Modified:       d,
+		Title:          "Electrostatic ignition screening audit: " + siteName(a),
+		Subject:        "Screening estimates; see the Cautions sheet",
+		Description:    "Survey " + info.file(a) + ", SHA-256 " + info.sha(a),
+		Language:       "en",
+	}); err != nil {
+		return fmt.Errorf("write workbook: document properties: %w", err)
+	}
+	if _, err := f.WriteTo(w); err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	return nil
+}
+
+type workbook struct {
+	f    *excelize.File
+	st   *styles
+	a    *assess.Audit
+	info RunInfo
+	// stationRows is the last data row of the Stations sheet, for the chart.
+	stationRows int
+}
+
+// footerEscape doubles '&', the header/footer control character.
+func footerEscape(s string) string { return strings.ReplaceAll(s, "&", "&&") }
+
+// printSetup makes a sheet print-ready: landscape A4, fitted to pagesWide
+// pages across (1 = the page width), the given rows (and columns) repeated on
+// every page, and a footer with site, survey date and page number.
+func (wb *workbook) printSetup(sheet string, pagesWide int, titleRows, titleCols string) error {
+	f := wb.f
+	landscape := "landscape"
+	a4 := 9
+	tall := 0
+	if err := f.SetPageLayout(sheet, &excelize.PageLayoutOptions{
+		Size: &a4, Orientation: &landscape, FitToWidth: &pagesWide, FitToHeight: &tall,
+	}); err != nil {
+		return err
+	}
+	fit := true
+	if err := f.SetSheetProps(sheet, &excelize.SheetPropsOptions{FitToPage: &fit}); err != nil {
+		return err
+	}
+	m := 0.5
+	if err := f.SetPageMargins(sheet, &excelize.PageLayoutMarginsOptions{Left: &m, Right: &m, Top: &m, Bottom: &m}); err != nil {
+		return err
+	}
+	site := footerEscape(siteName(wb.a))
+	if len([]rune(site)) > 80 {
+		site = string([]rune(site)[:80]) + "…"
+	}
+	if err := f.SetHeaderFooter(sheet, &excelize.HeaderFooterOptions{
+		OddHeader: "&L&8Electrostatic screening audit: &A&R&8" + footerEscape(wb.info.tool()+" "+wb.info.ToolVersion),
+		OddFooter: "&L&8" + site + "&C&8Survey date " + dateText(wb.a) + "&R&8Page &P of &N",
+	}); err != nil {
+		return err
+	}
+	var refs []string
+	q := "'" + strings.ReplaceAll(sheet, "'", "''") + "'"
+	if titleCols != "" {
+		refs = append(refs, q+"!"+titleCols)
+	}
+	if titleRows != "" {
+		refs = append(refs, q+"!"+titleRows)
+	}
+	if len(refs) > 0 {
+		if err := f.SetDefinedName(&excelize.DefinedName{
+			Name: "_xlnm.Print_Titles", RefersTo: strings.Join(refs, ","), Scope: sheet,
+		}); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// tableSheetNormal writes a whole normal-mode table: header row 1, rows from 2,
+// frozen header, autofilter and print setup.
+func tableSheetNormal[T any](wb *workbook, sheet string, cols []column[T], rows []T) error {
+	sink := normalSink{f: wb.f, sheet: sheet, st: wb.st}
+	if err := setWidths(wb.f, sheet, widthsOf(cols)); err != nil {
+		return err
+	}
+	if err := sink.header(1, headers(cols)); err != nil {
+		return err
+	}
+	if err := wb.f.SetRowHeight(sheet, 1, 42); err != nil {
+		return err
+	}
+	for i, r := range rows {
+		if err := sink.row(i+2, rowCells(cols, r)); err != nil {
+			return err
+		}
+	}
+	if err := wb.f.SetPanes(sheet, &excelize.Panes{Freeze: true, YSplit: 1, TopLeftCell: "A2", ActivePane: "bottomLeft"}); err != nil {
+		return err
+	}
+	last := len(rows) + 1
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(cols)), last), nil); err != nil {
+		return err
+	}
+	return wb.printSetup(sheet, 1, "$1:$1", "")
+}
+
+// tableSheetStream writes a table through a StreamWriter; the autofilter and
+// print setup are made on the empty sheet first, which the stream keeps.
+func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int, row func(i int) T, pagesWide int, titleCols string, freezeCols int) error {
+	last := n + 1
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(cols)), last), nil); err != nil {
+		return err
+	}
+	if err := wb.printSetup(sheet, pagesWide, "$1:$1", titleCols); err != nil {
+		return err
+	}
+	sw, err := wb.f.NewStreamWriter(sheet)
+	if err != nil {
+		return err
+	}
+	for i, c := range cols {
+		if err := sw.SetColWidth(i+1, i+1, c.width); err != nil {
+			return err
+		}
+	}
+	top, _ := excelize.CoordinatesToCellName(freezeCols+1, 2)
+	pane := "bottomLeft"
+	if freezeCols > 0 {
+		pane = "bottomRight"
+	}
+	if err := sw.SetPanes(&excelize.Panes{Freeze: true, XSplit: freezeCols, YSplit: 1, TopLeftCell: top, ActivePane: pane}); err != nil {
+		return err
+	}
+	sink := streamSink{sw: sw, st: wb.st}
+	if err := sink.header(1, headers(cols)); err != nil {
+		return err
+	}
+	for i := 0; i < n; i++ {
+		if err := sink.row(i+2, rowCells(cols, row(i))); err != nil {
+			return err
+		}
+	}
+	return sw.Flush()
+}
+
+// ---- Stations ----
+
+type stationRow = *assess.StationResult
+
+func stationColumns(withProbability bool) []column[stationRow] {
+	count := func(v assess.Verdict) func(stationRow) cell {
+		return func(s stationRow) cell { return integer(s.Counts[v]) }
+	}
+	cols := []column[stationRow]{
+		{"Rank", 6, func(s stationRow) cell { return integer(s.Rank) }},
+		{"Station", 10, func(s stationRow) cell { return text(s.Station.ID) }},
+		{"Name", 24, func(s stationRow) cell { return wrapText(s.Station.Name) }},
+		{"Line", 10, func(s stationRow) cell { return optText(s.Station.Line) }},
+		{"Atmosphere", 24, func(s stationRow) cell { return wrapText(atmosphereText(s.Atmosphere)) }},
+		{UnitMJ.Header("MIE"), 9, func(s stationRow) cell {
+			return est(quantity(UnitMJ, atmosphereMIE(s.Atmosphere)), s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance)
+		}},
+		{"Zone", 7, func(s stationRow) cell {
+			if s.Atmosphere == nil {
+				return cell{}
+			}
+			return optText(s.Atmosphere.Zone)
+		}},
+		{"Group", 7, func(s stationRow) cell {
+			if s.Atmosphere == nil {
+				return cell{}
+			}
+			return optText(s.Atmosphere.Group)
+		}},
+		{UnitPercentRH.Header("RH at station"), 9, func(s stationRow) cell { return inQ(UnitPercentRH, s.Station.RelativeHumidity) }},
+		{"Verdict", 14, func(s stationRow) cell { return verdictCell(s.Verdict) }},
+		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s stationRow) cell { return ratioCell(finitePtr(s.WorstRatio)) }},
+		{"Objects [count]", 9, func(s stationRow) cell { return integer(len(s.Objects)) }},
+		{"Incendive [count]", 10, count(assess.Incendive)},
+		{"Marginal [count]", 10, count(assess.Marginal)},
+		{"Non-incendive [count]", 11, count(assess.NonIncendive)},
+		{"Not assessed [count]", 10, count(assess.NotAssessed)},
+	}
+	if withProbability {
+		cols = append(cols, column[stationRow]{UnitProbability.Header("P(any incendive)"), 11, func(s stationRow) cell {
+			if s.ProbabilityAnyIncendive == nil {
+				return cell{numFmt: UnitProbability.NumFmt()}
+			}
+			return quantity(UnitProbability, *s.ProbabilityAnyIncendive)
+		}})
+	}
+	return cols
+}
+
+// Column positions on the Stations sheet the Summary chart points at.
+const (
+	stationsIDCol    = "B"
+	stationsRatioCol = "K"
+)
+
+func (wb *workbook) stations() error {
+	rows := make([]stationRow, len(wb.a.Stations))
+	for i := range wb.a.Stations {
+		rows[i] = &wb.a.Stations[i]
+	}
+	wb.stationRows = len(rows) + 1
+	return tableSheetNormal(wb, SheetStations, stationColumns(anyProbability(wb.a)), rows)
+}
+
+// ---- Objects ----
+
+func (wb *workbook) objects() error {
+	cols := objectColumns(anyProbability(wb.a))
+	pagesWide := (len(cols) + 13) / 14 // about 14 columns a landscape page stays readable
+	return tableSheetStream(wb, SheetObjects, cols, len(wb.a.Objects),
+		func(i int) objRow { return &wb.a.Objects[i] }, pagesWide, "$A:$A", 1)
+}
+
+// ---- Findings ----
+
+type findingRow struct {
+	n int
+	f *assess.Finding
+}
+
+func findingColumns() []column[findingRow] {
+	return []column[findingRow]{
+		{"#", 5, func(r findingRow) cell { return integer(r.n) }},
+		{"Severity", 12, func(r findingRow) cell { return verdictCell(r.f.Severity) }},
+		{"Station", 10, func(r findingRow) cell { return text(r.f.StationID) }},
+		{"Object", 12, func(r findingRow) cell { return text(r.f.ObjectID) }},
+		{"Check", 18, func(r findingRow) cell { return text(r.f.Check) }},
+		{"Finding", 50, func(r findingRow) cell { return wrapText(r.f.Message) }},
+		{"Mitigation", 50, func(r findingRow) cell { return wrapText(r.f.Mitigation) }},
+		{"Action owner", 14, func(findingRow) cell { return cell{} }},
+		{"Due", 10, func(findingRow) cell { return cell{} }},
+		{"Status", 10, func(findingRow) cell { return cell{} }},
+	}
+}
+
+func (wb *workbook) findings() error {
+	return tableSheetStream(wb, SheetFindings, findingColumns(), len(wb.a.Findings),
+		func(i int) findingRow { return findingRow{i + 1, &wb.a.Findings[i]} }, 1, "", 0)
+}
+
+// ---- Cautions ----
+
+func (wb *workbook) cautions() error {
+	f, s := wb.f, SheetCautions
+	if err := setWidths(f, s, []float64{5, 120}); err != nil {
+		return err
+	}
+	sink := normalSink{f: f, sheet: s, st: wb.st}
+	if err := sink.header(1, []string{"#", "Caution"}); err != nil {
+		return err
+	}
+	for i, c := range templates.Cautions() {
+		r := i + 2
+		if err := sink.row(r, []cell{integer(i + 1), wrapText(c)}); err != nil {
+			return err
+		}
+		if err := f.SetRowHeight(s, r, wrappedHeight(c, 120)); err != nil {
+			return err
+		}
+	}
+	if err := f.SetPanes(s, &excelize.Panes{Freeze: true, YSplit: 1, TopLeftCell: "A2", ActivePane: "bottomLeft"}); err != nil {
+		return err
+	}
+	return wb.printSetup(s, 1, "$1:$1", "")
+}
+
+// wrappedHeight estimates the row height (points) of a wrapped text in a column
+// of the given width (characters), since workbooks store heights, not layouts.
+func wrappedHeight(s string, width float64) float64 {
+	lines := math.Ceil(float64(len([]rune(s))) / (width * 0.95))
+	if lines < 1 {
+		lines = 1
+	}
+	return 13.5*lines + 3
+}
+
+// ---- Rejected ----
+
+type problemRow struct {
+	p      inventory.Problem
+	status string
+}
+
+func problemColumns() []column[problemRow] {
+	return []column[problemRow]{
+		{"Severity", 9, func(r problemRow) cell { return text(r.p.Severity.String()) }},
+		{"Row status", 16, func(r problemRow) cell { return text(r.status) }},
+		{"Sheet", 12, func(r problemRow) cell { return text(r.p.Sheet) }},
+		{"Row", 6, func(r problemRow) cell {
+			if r.p.Row <= 0 {
+				return cell{}
+			}
+			return integer(r.p.Row)
+		}},
+		{"Cell", 14, func(r problemRow) cell { return text(r.p.Cell()) }},
+		{"Field", 16, func(r problemRow) cell { return optText(r.p.Field) }},
+		{"ID", 12, func(r problemRow) cell { return optText(r.p.ID) }},
+		{"Message", 50, func(r problemRow) cell { return wrapText(r.p.Message) }},
+		{"Fix", 40, func(r problemRow) cell { return wrapText(r.p.Fix) }},
+	}
+}
+
+func problemKey(p inventory.Problem) string {
+	return fmt.Sprintf("%s\x00%d\x00%s\x00%s\x00%s", p.Sheet, p.Row, p.Column, p.Field, p.Message)
+}
+
+// problemRows lists every problem of every rejected row, then the sheet-level
+// errors not tied to a rejected row, then the warnings (rows still accepted).
+func problemRows(s *inventory.Survey) []problemRow {
+	var out []problemRow
+	seen := map[string]bool{}
+	for _, r := range s.Rejected {
+		for _, p := range r.Problems {
+			out = append(out, problemRow{p, "row rejected"})
+			seen[problemKey(p)] = true
+		}
+	}
+	for _, p := range s.Problems {
+		if p.Severity == inventory.Error && !seen[problemKey(p)] {
+			status := "sheet not read"
+			if p.Row > 0 {
+				status = "row rejected"
+			}
+			out = append(out, problemRow{p, status})
+		}
+	}
+	for _, p := range s.Problems {
+		if p.Severity == inventory.Warning {
+			out = append(out, problemRow{p, "row accepted"})
+		}
+	}
+	return out
+}
+
+func (wb *workbook) rejected() error {
+	return tableSheetNormal(wb, SheetRejected, problemColumns(), problemRows(wb.a.Survey))
+}
