@@ -105,6 +105,10 @@ type Input struct {
 	Permittivity float64 // relative permittivity of a liquid; NaN: from the material or 2
 	BagType      BagType
 	Filling      Filling
+
+	// ProductMIE is the MIE (J) of the powder a bag holds; NaN: the station's
+	// dust MIE when its atmosphere is dust or hybrid, else the most sensitive band.
+	ProductMIE float64
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.
@@ -153,6 +157,9 @@ const (
 	NumDischargeTypes
 )
 
+// NoDischarge is Evaluation.Effective when no discharge is possible.
+const NoDischarge = NumDischargeTypes
+
 // String returns the contract name: spark, brush, propagating_brush, corona, cone.
 func (d DischargeType) String() string {
 	switch d {
@@ -166,6 +173,8 @@ func (d DischargeType) String() string {
 		return "corona"
 	case Cone:
 		return "cone"
+	case NoDischarge:
+		return "none"
 	}
 	return "unknown"
 }
@@ -199,9 +208,13 @@ type Evaluation struct {
 	StoredEnergy      float64 // J, C V^2 / 2 for conductors
 	TransferredCharge float64 // C, the largest charge one possible discharge transfers
 
-	Discharges      [NumDischargeTypes]Discharge
-	EffectiveEnergy float64 // J, largest energy among the possible discharges; 0 when none
-	Effective       DischargeType
+	Discharges [NumDischargeTypes]Discharge
+	// EffectiveEnergy is the largest energy (J) among the possible discharges that
+	// can ignite the environment's atmosphere kind: a brush discharge is left out
+	// for a pure dust cloud (it ignites gas, vapour, mist and hybrid mixtures only);
+	// corona has no defined energy and is never counted. 0 when none.
+	EffectiveEnergy float64
+	Effective       DischargeType // the discharge that gave EffectiveEnergy; NoDischarge when none
 
 	InsulatingArea     float64 // m^2 of insulating surface (sheets, belts, bags), NaN otherwise
 	SurfaceResistivity float64 // ohm per square at the environment's RH, NaN when unknown
@@ -222,6 +235,15 @@ type Evaluation struct {
 
 	// NotAssessed is non-zero when the model cannot judge the object (missing inputs).
 	NotAssessed Missing
+
+	// Added with the first implementation of Evaluate.
+	Resistance        float64           // ohm to earth used: measured, or Limits.NotEarthed when unknown; NaN for surfaces
+	CoronaOnset       float64           // V, corona-onset cap of the conductor's radius; NaN when not known
+	ConductivityClass ConductivityClass // liquids
+	ResidenceTime     float64           // s, residence a liquid needs to relax (3 tau)
+	VelocityLimit     float64           // m/s, filling velocity limit for the line (liquids)
+	BagAllowed        bool              // bags: the type may be used here (type C: if earthed)
+	BagCode           Reason            // bags: why (Reason text)
 }
 
 // CapModel says which model gave a capacitance.

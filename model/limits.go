@@ -48,4 +48,17 @@ type Limits struct {
 	BagTabToEarth float64 // ohm, tab to plant earth (type C)
 	BagMinMIE     float64 // J, ignition qualification of types C and D
 	BagMaxCurrent float64 // A, charging current the qualification assumes
+
+	// Added with the first implementation of Evaluate (fields only appended).
+
+	PropagatingMaxEnergy float64 // J, upper bound of a propagating brush's energy
+	MaxChargingCurrent   float64 // A, worst-case industrial charging current when none is known
+	DissipativeSurface   float64 // ohm, surface resistance below which a surface is dissipative
+	DissipativeEarthing  float64 // ohm, earthing a dissipative surface needs to leak its charge
+	ConeResistivity      float64 // ohm m, bulk resistivity at or above which a cone can form
+	ConeChargeToMass     float64 // C/kg, charge-to-mass at or above which a cone can form
+	ConeField            float64 // V/m, measured heap-surface field at or below which none is expected
+	ConeMinVolume        float64 // m^3, container volume below which none is expected
+	BagDustLow           float64 // J, product MIE band edge (at or below: most sensitive band)
+	BagDustHigh          float64 // J, product MIE band edge (above: least sensitive band)
 }

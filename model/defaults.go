@@ -1,0 +1,143 @@
+package model
+
+import "math"
+
+// DefaultLimits returns the built-in limits and screening choices; the sources and
+// editions are listed by LimitSources. A survey may override any of them.
+func DefaultLimits() Limits {
+	nan := math.NaN()
+	return Limits{
+		BrushChargeDensity: [numGroups]float64{GroupNone: 5e-6, IIA: 5e-6, IIB: 3e-6, IIC: 1e-6, IIIA: 5e-6, IIIB: 5e-6, IIIC: 5e-6},
+		BrushEnergy:        4e-3,
+		BrushArea:          100e-4,
+
+		TransferredCharge:    [numGroups]float64{GroupNone: nan, IIA: 60e-9, IIB: 25e-9, IIC: 10e-9, IIIA: nan, IIIB: nan, IIIC: nan},
+		ZoneZeroChargeFactor: 0.4,
+
+		AreaGa: [numGroups]float64{GroupNone: nan, IIA: 50e-4, IIB: 25e-4, IIC: 4e-4, IIIA: nan, IIIB: nan, IIIC: nan},
+		AreaGb: [numGroups]float64{GroupNone: nan, IIA: 100e-4, IIB: 100e-4, IIC: 20e-4, IIIA: nan, IIIB: nan, IIIC: nan},
+
+		PropagatingDensity:   2.5e-4,
+		PropagatingBreakdown: 4e3,
+		PropagatingThickness: 8e-3,
+
+		ConductorEarthing:  1e6,
+		PersonEarthing:     1e8,
+		PersonEarthingMIE:  10e-3,
+		ShockEnergy:        350e-3,
+		SafePotential:      100,
+		SparkMinPotential:  300,
+		AirBreakdown:       AirBreakdownField,
+		NotEarthed:         1e13,
+		PersonMaxPotential: 15e3,
+
+		LowConductivity:   50e-12,
+		HighConductivity:  1e4 * 1e-12,
+		VDHigh:            0.5,
+		VDLow:             0.38,
+		VDKappa:           10e-12,
+		MaxVelocity:       7,
+		SlowStartVelocity: 1,
+
+		BagCToTab:     1e8,
+		BagTabToEarth: 1e6,
+		BagMinMIE:     0.14e-3,
+		BagMaxCurrent: 3e-6,
+
+		PropagatingMaxEnergy: 1,
+		MaxChargingCurrent:   100e-6,
+		DissipativeSurface:   1e9,
+		DissipativeEarthing:  1e8,
+		ConeResistivity:      1e10,
+		ConeChargeToMass:     1e-6,
+		ConeField:            500e3,
+		ConeMinVolume:        0.25,
+		BagDustLow:           3e-3,
+		BagDustHigh:          1000e-3,
+	}
+}
+
+// Citation is one built-in limit with its value and where it comes from.
+type Citation struct {
+	Limit      string  // Limits field, with the group in brackets for per-group values
+	Value      float64 // SI
+	Unit       string  // SI unit of Value
+	Source     string  // document and edition (or the reason for a screening choice)
+	FromMemory bool    // recalled, not confirmed in a published source here ([M])
+}
+
+// Source documents, with editions.
+const (
+	srcTS32      = "IEC TS 60079-32-1:2013+A1:2017"
+	src0         = "IEC 60079-0:2017"
+	srcTRGS      = "TRGS 727:2016"
+	srcBags      = "IEC 61340-4-4:2018"
+	srcJNIOSH    = "JNIOSH-TR (secondary summary); documented, overridable screen"
+	srcChoice    = "screening choice of this model (documented in package model)"
+	srcCCPS      = "CCPS glossary; AMS Glossary of Meteorology"
+	srcPaschen   = "Paschen minimum of air, about 327 V"
+	srcWalking   = "ESD Association body-voltage table (vinyl floor 12 kV at low RH), rounded up"
+	srcBGRCI     = "BG RCI FAQ 5.10; " + srcTRGS + " 6.2.3"
+	srcPersonMIE = srcTRGS + " 7.2"
+)
+
+// LimitSources returns every default limit with its value, unit and source, in
+// the order of the Limits fields; per-group values are listed for the groups
+// that have one.
+func LimitSources() []Citation {
+	l := DefaultLimits()
+	var out []Citation
+	add := func(name string, v float64, unit, src string, mem bool) {
+		out = append(out, Citation{Limit: name, Value: v, Unit: unit, Source: src, FromMemory: mem})
+	}
+	for _, g := range []Group{IIA, IIB, IIC} {
+		add("BrushChargeDensity["+g.String()+"]", l.BrushChargeDensity[g], "C/m^2", srcJNIOSH, false)
+	}
+	add("BrushChargeDensity[other]", l.BrushChargeDensity[GroupNone], "C/m^2", srcChoice+": the IIA screen for no group and for dusts", false)
+	add("BrushEnergy", l.BrushEnergy, "J", "CLC/TR 50404 summaries (3-4 mJ); upper end taken", false)
+	add("BrushArea", l.BrushArea, "m^2", srcChoice+": area one brush drains", false)
+	for _, g := range []Group{IIA, IIB, IIC} {
+		add("TransferredCharge["+g.String()+"]", l.TransferredCharge[g], "C", src0+" 7.4.2 / "+srcTS32, true)
+	}
+	add("ZoneZeroChargeFactor", l.ZoneZeroChargeFactor, "1", srcChoice+": EPL Ga values not confirmed (about 25/10/4 nC recalled)", true)
+	for _, g := range []Group{IIA, IIB, IIC} {
+		add("AreaGa["+g.String()+"]", l.AreaGa[g], "m^2", src0, true)
+	}
+	for _, g := range []Group{IIA, IIB, IIC} {
+		add("AreaGb["+g.String()+"]", l.AreaGb[g], "m^2", src0, true)
+	}
+	add("PropagatingDensity", l.PropagatingDensity, "C/m^2", srcTRGS+" Annex C; JNIOSH-TR", false)
+	add("PropagatingBreakdown", l.PropagatingBreakdown, "V", srcTRGS+" Annex C; "+src0+" foreword", false)
+	add("PropagatingThickness", l.PropagatingThickness, "m", srcTS32, true)
+	add("ConductorEarthing", l.ConductorEarthing, "ohm", srcTRGS+" 8.3", false)
+	add("PersonEarthing", l.PersonEarthing, "ohm", srcPersonMIE, false)
+	add("PersonEarthingMIE", l.PersonEarthingMIE, "J", srcPersonMIE, false)
+	add("ShockEnergy", l.ShockEnergy, "J", srcTRGS+" Annex D", false)
+	add("SafePotential", l.SafePotential, "V", srcPaschen+"; 100 V counts as safe", false)
+	add("SparkMinPotential", l.SparkMinPotential, "V", srcPaschen, false)
+	add("AirBreakdown", l.AirBreakdown, "V/m", srcCCPS, false)
+	add("NotEarthed", l.NotEarthed, "ohm", srcChoice+": unknown resistance taken as not earthed", false)
+	add("PersonMaxPotential", l.PersonMaxPotential, "V", srcWalking, false)
+	add("LowConductivity", l.LowConductivity, "S/m", srcTS32, false)
+	add("HighConductivity", l.HighConductivity, "S/m", srcTS32, true)
+	add("VDHigh", l.VDHigh, "m^2/s", srcTS32+" (road-tanker filling)", false)
+	add("VDLow", l.VDLow, "m^2/s", srcTS32+" (road-tanker filling)", false)
+	add("VDKappa", l.VDKappa, "S/m", srcTS32, false)
+	add("MaxVelocity", l.MaxVelocity, "m/s", srcTS32, true)
+	add("SlowStartVelocity", l.SlowStartVelocity, "m/s", srcTS32, true)
+	add("BagCToTab", l.BagCToTab, "ohm", srcBags+" (1e7 ohm in the earlier edition and in "+srcTRGS+")", false)
+	add("BagTabToEarth", l.BagTabToEarth, "ohm", srcBags, false)
+	add("BagMinMIE", l.BagMinMIE, "J", srcBags, false)
+	add("BagMaxCurrent", l.BagMaxCurrent, "A", srcBags, false)
+	add("PropagatingMaxEnergy", l.PropagatingMaxEnergy, "J", "published range hundreds of mJ to J", true)
+	add("MaxChargingCurrent", l.MaxChargingCurrent, "A", "JNIOSH-TR: industrial charging currents rarely exceed 100 uA", false)
+	add("DissipativeSurface", l.DissipativeSurface, "ohm", src0+" cl. 26.13 (1e9 ohm at 50 %RH)", false)
+	add("DissipativeEarthing", l.DissipativeEarthing, "ohm", srcTRGS, true)
+	add("ConeResistivity", l.ConeResistivity, "ohm m", srcBGRCI, false)
+	add("ConeChargeToMass", l.ConeChargeToMass, "C/kg", "JNIOSH-TR", false)
+	add("ConeField", l.ConeField, "V/m", "JNIOSH-TR; BG RCI FAQ 5.10", false)
+	add("ConeMinVolume", l.ConeMinVolume, "m^3", "JNIOSH-TR", false)
+	add("BagDustLow", l.BagDustLow, "J", srcBags, false)
+	add("BagDustHigh", l.BagDustHigh, "J", srcBags, false)
+	return out
+}

@@ -1,0 +1,44 @@
+package model
+
+import "math"
+
+// SparkEnergy returns the energy of a spark from a conductor of capacitance C at
+// potential V: W = C V^2 / 2 (JNIOSH-TR; textbook).
+func SparkEnergy(c, v float64) float64 { return c * v * v / 2 }
+
+// SparkCharge returns the charge a spark from a conductor transfers: Q = C V (textbook).
+func SparkCharge(c, v float64) float64 { return c * math.Abs(v) }
+
+// MaxUnearthedCapacitance returns the largest capacitance that may stay unearthed
+// at potential V for an atmosphere of minimum ignition energy mie: C = 2 MIE / V^2 (derived).
+func MaxUnearthedCapacitance(mie, v float64) float64 { return 2 * mie / (v * v) }
+
+// PropagatingBrushEnergy returns the documented upper estimate of a propagating
+// brush discharge's energy: the field energy stored in the layer,
+// W = sigma^2 A t / (2 eps0 epsr), bounded above by maxEnergy (published range:
+// hundreds of mJ to J, from memory).
+func PropagatingBrushEnergy(sigma, area, t, epsr, maxEnergy float64) float64 {
+	w := sigma * sigma * area * t / (2 * Eps0 * epsr)
+	return math.Min(w, maxEnergy)
+}
+
+// Glor's cone discharge formula: validity range.
+const (
+	ConeMinDiameter     = 0.5    // m
+	ConeMaxDiameter     = 3.0    // m
+	ConeMinParticleSize = 0.1e-3 // m
+	ConeMaxParticleSize = 3e-3   // m
+)
+
+// ConeDischargeEnergy returns the energy of a cone (bulking brush) discharge on a
+// powder heap by Glor's formula W[mJ] = 5.22 D^3.36 d^1.462, with D the silo
+// diameter in m and d the median particle size in mm (valid D 0.5-3 m, d 0.1-3 mm;
+// D = 1 m, d = 1 mm gives 5.22 mJ; formula from memory). inRange reports whether
+// both lie in the validity range; outside it the value is an extrapolation.
+func ConeDischargeEnergy(diameter, particleSize float64) (energy float64, inRange bool) {
+	dmm := particleSize * 1e3
+	energy = 5.22e-3 * math.Pow(diameter, 3.36) * math.Pow(dmm, 1.462)
+	inRange = diameter >= ConeMinDiameter && diameter <= ConeMaxDiameter &&
+		particleSize >= ConeMinParticleSize && particleSize <= ConeMaxParticleSize
+	return energy, inRange
+}

@@ -1,0 +1,347 @@
+package model
+
+import (
+	"fmt"
+	"math"
+)
+
+// Reason codes of Discharge.Code and Evaluation.BagCode. Text formats each as one
+// sentence quoting the numbers A and B of the result.
+const (
+	ReasonNone Reason = iota
+	ReasonNotApplicable
+	ReasonNotEvaluated
+
+	ReasonSparkInsulator
+	ReasonSparkPossible     // A potential (V), B energy (J)
+	ReasonSparkBelowPaschen // A potential (V), B floor (V)
+	ReasonSparkNoContainer
+	ReasonSparkBagEarthed // A resistance (ohm), B limit (ohm)
+	ReasonSparkBagNoConductor
+	ReasonSparkBagD
+
+	ReasonBrushConductor
+	ReasonBrushLeaks         // A surface resistivity (ohm/sq)
+	ReasonBrushBelowScreen   // A density, B screen (C/m^2)
+	ReasonBrushPossible      // A density, B screen (C/m^2)
+	ReasonBrushLiquidSurface // A conductivity, B low limit (S/m)
+	ReasonBrushLiquidUnknown
+	ReasonBrushLiquidRelaxes // A conductivity, B low limit (S/m)
+	ReasonBrushBagFabric
+	ReasonBrushBagProtected
+
+	ReasonPropNoLayer
+	ReasonPropThick        // A thickness, B limit (m)
+	ReasonPropLowBreakdown // A breakdown voltage, B limit (V)
+	ReasonPropBelowDensity // A density, B needed (C/m^2)
+	ReasonPropPossible     // A density (C/m^2), B energy (J)
+	ReasonPropBagA         // A energy (J)
+	ReasonPropBagB         // A fabric breakdown (V)
+
+	ReasonCoronaOnset      // A onset potential (V), B radius (m)
+	ReasonCoronaBelowOnset // A potential, B onset (V)
+	ReasonCoronaBagD
+
+	ReasonConeLowResistivity // A resistivity, B limit (ohm m)
+	ReasonConeLowCharge      // A q/m, B limit (C/kg)
+	ReasonConeSmallVessel    // A volume, B limit (m^3)
+	ReasonConeLowField       // A field, B limit (V/m)
+	ReasonConePossible       // A silo diameter, B particle size (m)
+	ReasonConeOutsideRange   // A silo diameter, B particle size (m)
+	ReasonConeSizeUnknown
+
+	ReasonBagAllowed
+	ReasonBagCAllowedIfEarthed
+	ReasonBagUnknownAllowed
+	ReasonBagUnknownNotAllowed
+	ReasonBagNotForBand
+	ReasonBagNotForGas
+	ReasonBagNeverIIC
+	ReasonBagNeverZone0or20
+	ReasonBagBelowQualifiedMIE
+
+	numReasons
+)
+
+// BagFabricBreakdown is the fabric breakdown voltage below which a type B bag is
+// made (6 kV, IEC 61340-4-4:2018), which prevents propagating brush discharges.
+const BagFabricBreakdown = 6e3
+
+// Reason returns the one-sentence reason of the screening result.
+func (d Discharge) Reason() string { return d.Code.Text(d.A, d.B) }
+
+// Text formats the reason as one sentence quoting the numbers a and b (their
+// meaning per code is given beside the Reason constants).
+func (r Reason) Text(a, b float64) string {
+	switch r {
+	case ReasonNone:
+		return ""
+	case ReasonNotApplicable:
+		return "Does not arise for this kind of object."
+	case ReasonNotEvaluated:
+		return "Not evaluated: the inputs it needs are missing."
+	case ReasonSparkInsulator:
+		return "An insulating surface holds no free charge that could spark."
+	case ReasonSparkPossible:
+		return fmt.Sprintf("An isolated conductor at %s can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+	case ReasonSparkBelowPaschen:
+		return fmt.Sprintf("The potential %s is below the %s any air gap needs to break down.", Quantity(a, "V"), Quantity(b, "V"))
+	case ReasonSparkNoContainer:
+		return "The receiving container's Resistance to earth and Capacitance are not on this row: assess the container as its own row."
+	case ReasonSparkBagEarthed:
+		return fmt.Sprintf("The type C bag is earthed through %s (limit %s): no spark.", Quantity(a, "ohm"), Quantity(b, "ohm"))
+	case ReasonSparkBagNoConductor:
+		return "A type A or B bag has no conductive parts that could spark."
+	case ReasonSparkBagD:
+		return "A type D bag has no earthed parts and sheds its charge by corona: no spark."
+	case ReasonBrushConductor:
+		return "A conductor discharges by spark, not by brush."
+	case ReasonBrushLeaks:
+		return fmt.Sprintf("The surface is dissipative at this humidity (%s per square) and earthed, so it does not keep its charge.", Quantity(a, "ohm"))
+	case ReasonBrushBelowScreen:
+		return fmt.Sprintf("The charge density %s is at or below the brush screen %s of the group.", Quantity(a, "C/m^2"), Quantity(b, "C/m^2"))
+	case ReasonBrushPossible:
+		return fmt.Sprintf("The charge density %s exceeds the brush screen %s; the brush equivalent energy applies.", Quantity(a, "C/m^2"), Quantity(b, "C/m^2"))
+	case ReasonBrushLiquidSurface:
+		return fmt.Sprintf("A low-conductivity liquid (%s, class limit %s) keeps charge on its surface: brush discharges to the fittings are possible.", Quantity(a, "S/m"), Quantity(b, "S/m"))
+	case ReasonBrushLiquidUnknown:
+		return "The conductivity is not given, so the liquid is taken as low-conductivity: brush discharges from its surface are possible."
+	case ReasonBrushLiquidRelaxes:
+		return fmt.Sprintf("The conductivity %s is above %s: the liquid's charge relaxes to the container.", Quantity(a, "S/m"), Quantity(b, "S/m"))
+	case ReasonBrushBagFabric:
+		return "The insulating fabric of a type A or B bag can give brush discharges."
+	case ReasonBrushBagProtected:
+		return "Type C and D fabrics are made so that brush discharges are not expected."
+	case ReasonPropNoLayer:
+		return "No earthed backing and no double-layer charge: no propagating brush."
+	case ReasonPropThick:
+		return fmt.Sprintf("The layer thickness %s is at or above %s: no propagating brush expected.", Quantity(a, "m"), Quantity(b, "m"))
+	case ReasonPropLowBreakdown:
+		return fmt.Sprintf("The layer breakdown voltage %s is at or below %s: the layer breaks down before a propagating brush can build.", Quantity(a, "V"), Quantity(b, "V"))
+	case ReasonPropBelowDensity:
+		return fmt.Sprintf("The layer could support a propagating brush, but the charge density %s is below the %s it needs.", Quantity(a, "C/m^2"), Quantity(b, "C/m^2"))
+	case ReasonPropPossible:
+		return fmt.Sprintf("A charge density of %s on a thin backed or double-charged layer can discharge as a propagating brush (upper estimate %s).", Quantity(a, "C/m^2"), Quantity(b, "J"))
+	case ReasonPropBagA:
+		return fmt.Sprintf("Type A fabric has no breakdown-voltage limit: propagating brush discharges are possible at high charging rates (taken as %s).", Quantity(a, "J"))
+	case ReasonPropBagB:
+		return fmt.Sprintf("Type B fabric breaks down below %s: no propagating brush.", Quantity(a, "V"))
+	case ReasonCoronaOnset:
+		return fmt.Sprintf("The potential is capped at the corona onset %s for a radius of %s; corona, well below 1 mJ, ignites only the most sensitive gases.", Quantity(a, "V"), Quantity(b, "m"))
+	case ReasonCoronaBelowOnset:
+		return fmt.Sprintf("The potential %s stays below the corona onset %s.", Quantity(a, "V"), Quantity(b, "V"))
+	case ReasonCoronaBagD:
+		return "Type D bags discharge by corona, well below 1 mJ; keep the surface dry and clean and earthed conductors nearby."
+	case ReasonConeLowResistivity:
+		return fmt.Sprintf("The bulk resistivity %s is below %s: the heap leaks its charge.", Quantity(a, "ohm m"), Quantity(b, "ohm m"))
+	case ReasonConeLowCharge:
+		return fmt.Sprintf("The charge-to-mass ratio %s is below %s: no cone discharge expected.", Quantity(a, "C/kg"), Quantity(b, "C/kg"))
+	case ReasonConeSmallVessel:
+		return fmt.Sprintf("The container volume %s is below %s: no cone discharge expected.", Quantity(a, "m^3"), Quantity(b, "m^3"))
+	case ReasonConeLowField:
+		return fmt.Sprintf("The measured heap-surface field %s is at or below %s: no cone discharge expected.", Quantity(a, "V/m"), Quantity(b, "V/m"))
+	case ReasonConePossible:
+		return fmt.Sprintf("Cone discharge energy by Glor's formula W = 5.22 D^3.36 d^1.462 mJ with D = %s and d = %s.", Quantity(a, "m"), Quantity(b, "m"))
+	case ReasonConeOutsideRange:
+		return fmt.Sprintf("Glor's formula is outside its range (D 0.5-3 m, d 0.1-3 mm) for D = %s and d = %s: the energy is extrapolated, treat it with caution.", Quantity(a, "m"), Quantity(b, "m"))
+	case ReasonConeSizeUnknown:
+		return "A cone discharge is possible, but the silo diameter or the particle size is missing: its energy is unknown."
+	case ReasonBagAllowed:
+		return "This bag type may be used with this product in these surroundings."
+	case ReasonBagCAllowedIfEarthed:
+		return "Type C may be used here only while earthed: tab to earth below 1 Mohm, every point to the tab below 100 Mohm."
+	case ReasonBagUnknownAllowed:
+		return "The bag type is not given: assessed as type A, which may be used here (non-flammable surroundings, product above 1000 mJ)."
+	case ReasonBagUnknownNotAllowed:
+		return "The bag type is not given: assessed as type A, which may not be used here."
+	case ReasonBagNotForBand:
+		return "This bag type may not be used with a product of this MIE in these surroundings."
+	case ReasonBagNotForGas:
+		return "Only types C and D may be used with flammable gas or vapour (zones 1 and 2, groups IIA and IIB)."
+	case ReasonBagNeverIIC:
+		return "No bag type is qualified for group IIC gases."
+	case ReasonBagNeverZone0or20:
+		return "No bag type is qualified for zone 0 or zone 20."
+	case ReasonBagBelowQualifiedMIE:
+		return "Types C and D are qualified only for an MIE at or above 0.14 mJ."
+	}
+	return "Unknown reason."
+}
+
+// Quantity formats an SI value with an engineering prefix and its unit, three
+// significant figures: Quantity(4e-3, "J") is "4 mJ"; NaN is "unknown".
+func Quantity(v float64, unit string) string {
+	if math.IsNaN(v) {
+		return "unknown"
+	}
+	if v == 0 || math.IsInf(v, 0) {
+		return fmt.Sprintf("%g %s", v, unit)
+	}
+	prefixes := []struct {
+		f float64
+		p string
+	}{{1e12, "T"}, {1e9, "G"}, {1e6, "M"}, {1e3, "k"}, {1, ""}, {1e-3, "m"}, {1e-6, "u"}, {1e-9, "n"}, {1e-12, "p"}, {1e-15, "f"}}
+	if unit == "m" || unit == "m^3" || unit == "ohm m" {
+		// Lengths, volumes and resistivities read better without prefixes
+		// (mm is fine, but Mohm m and km are rare in the trade).
+		if unit == "m" && math.Abs(v) < 1 {
+			return fmt.Sprintf("%.3g mm", v*1e3)
+		}
+		return fmt.Sprintf("%.3g %s", v, unit)
+	}
+	a := math.Abs(v)
+	for _, p := range prefixes {
+		if a >= p.f*0.9995 {
+			return fmt.Sprintf("%.3g %s%s", v/p.f, p.p, unit)
+		}
+	}
+	return fmt.Sprintf("%.3g %s", v, unit)
+}
+
+// Potential sources, as recorded in Evaluation.PotentialSource.
+const (
+	PotentialNone      PotentialSource = iota // no potential
+	PotentialMeasured                         // Surface potential on the row
+	PotentialFromField                        // V = E z from the field reading
+	PotentialCharging                         // V(t) = I R (1 - exp(-t/RC))
+)
+
+// String says where the potential came from.
+func (p PotentialSource) String() string {
+	switch p {
+	case PotentialMeasured:
+		return "measured"
+	case PotentialFromField:
+		return "from the field reading (V = E z)"
+	case PotentialCharging:
+		return "from charging (V = I R (1 - exp(-t/RC)))"
+	}
+	return "none"
+}
+
+// Assumptions: the defaults the model applied.
+const (
+	AssumedCapacitance Assumption = 1 << iota
+	AssumedNotEarthed
+	AssumedSteadyState
+	AssumedWalkingCurrent
+	AssumedMaxCurrent
+	AssumedTemperature
+	AssumedNoCoronaCap
+	AssumedLayerPermittivity
+	AssumedPlatePermittivity
+	AssumedInfiniteSheet
+	AssumedDissipativeClass
+	AssumedBreakdownUnknown
+	AssumedPropagatingArea
+	AssumedThinLayer
+	AssumedHighResistivity
+	AssumedConeCharge
+	AssumedLowConductivity
+	AssumedLiquidPermittivity
+	AssumedBagTypeA
+	AssumedBagCurrent
+	AssumedProductMIE
+	AssumedProductMIEUnknown
+	numAssumptions = iota
+)
+
+var assumptionTexts = [numAssumptions]string{
+	"capacitance not measured: estimated (see the capacitance model)",
+	"resistance to earth not given: taken as not earthed",
+	"charging time not given: steady-state potential I R",
+	"charging current of a walking person taken as 1 uA (Jonassen)",
+	"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR)",
+	"air temperature not given: 20 °C",
+	"size not given: potential not capped at corona onset",
+	"layer permittivity not given: 3 (common polymers)",
+	"permittivity of the layer under the container not given: 2 (dry wood)",
+	"sheet size not given: taken as infinite (sigma = 2 eps0 E, a lower bound)",
+	"surface resistivity not given: the material's dissipative class taken (lost below 30 %RH)",
+	"layer breakdown strength not given: taken above 4 kV",
+	"insulating area not given: propagating brush energy taken at its upper bound",
+	"double-layer thickness not given: taken as thin",
+	"powder volume resistivity not given: taken as high (>= 1e10 ohm m)",
+	"powder charge not given: cone discharge taken as possible",
+	"liquid conductivity not given: taken as low",
+	"liquid permittivity not given: 2",
+	"bag type not given: assessed as type A, the most restrictive case",
+	"charging current not given: the 3 uA the bag qualification assumes",
+	"product MIE not given: the station's dust MIE",
+	"product MIE not given: the most sensitive band (<= 3 mJ)",
+}
+
+// Texts lists the assumptions in the set, in a fixed order (allocates; call on demand).
+func (a Assumption) Texts() []string { return bitTexts(uint32(a), assumptionTexts[:]) }
+
+// Flags: what the model noticed.
+const (
+	FlagSuspectReading Flag = 1 << iota
+	FlagCappedCorona
+	FlagCappedPerson
+	FlagConeOutsideRange
+	FlagPropagatingLayer
+	FlagSlowDecay
+	FlagShock
+	FlagVelocityAboveLimit
+	FlagSplashFilling
+	FlagBagNotEarthed
+	FlagBagCurrentAboveQualified
+	numFlags = iota
+)
+
+var flagTexts = [numFlags]string{
+	"reading beyond what air can hold: check the reading and its unit",
+	"potential capped at the corona onset of the conductor's radius",
+	"body potential capped at the documented walking-test maximum",
+	"Glor's formula used outside its validity range (D 0.5-3 m, d 0.1-3 mm): extrapolated",
+	"the layer can support a propagating brush if charged to 2.5e-4 C/m^2",
+	"the dissipative surface decays more slowly than it reaches the hazard",
+	"stored energy above the shock threshold",
+	"flow velocity above the filling limit",
+	"top (splash) filling of a low-conductivity liquid",
+	"type C bag not earthed (tab to earth unknown or above the limit)",
+	"charging current above the 3 uA the type C/D qualification assumes",
+}
+
+// Texts lists the flags in the set, in a fixed order (allocates; call on demand).
+func (f Flag) Texts() []string { return bitTexts(uint32(f), flagTexts[:]) }
+
+// Missing inputs.
+const (
+	MissingKind Missing = 1 << iota
+	MissingSurfaceReading
+	MissingFieldDistance
+	MissingThickness
+	MissingSurfaceGeometry
+	MissingConductorCharging
+	MissingPersonPotential
+	MissingConeSize
+	MissingLiquidFlow
+	numMissing = iota
+)
+
+var missingTexts = [numMissing]string{
+	"needs a known Kind",
+	"needs Field with Field distance, or Surface potential",
+	"needs Field distance for the Field reading",
+	"needs Thickness of the layer on its earthed backing",
+	"needs Backing earthed with Thickness, or Distance to earth, to use a Surface potential",
+	"needs Surface potential, Charging current (or Mass flow and Charge-to-mass) or Resistance to earth",
+	"needs Surface potential or Resistance to earth",
+	"needs Diameter and Particle size for the cone discharge energy",
+	"needs Speed and Diameter of the line, or Charging current",
+}
+
+// Texts lists what the object lacks, in a fixed order (allocates; call on demand).
+func (m Missing) Texts() []string { return bitTexts(uint32(m), missingTexts[:]) }
+
+func bitTexts(set uint32, texts []string) []string {
+	var out []string
+	for i, t := range texts {
+		if set&(1<<i) != 0 {
+			out = append(out, t)
+		}
+	}
+	return out
+}
