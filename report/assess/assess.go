@@ -1,0 +1,331 @@
+package assess
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+)
+
+// DefaultMargin is the required margin when the Site sheet gives none: energy must
+// stay below MIE / 10 to count as non-incendive (a site choice, not a standard value).
+const DefaultMargin = 10.0
+
+// DefaultTemperature is the air temperature (K) when the Site sheet gives none: 20 °C.
+const DefaultTemperature = 293.15
+
+// DryDayHumidity is the relative humidity (%) taken when neither the station nor
+// the site gives one: a dry-day screening value, lower (worse) than the 50 % at
+// which material data are quoted (a documented choice).
+const DryDayHumidity = 30.0
+
+// Assess judges every accepted object of the survey and ranks its stations.
+//
+// For each object (none is dropped) it maps the row, its material, its station
+// and the station's atmosphere to model.Input and model.Environment (the station's
+// RH, else the site's; NaN for every quantity not given), calls model.Evaluate,
+// classifies the result with Classify and writes a Finding for each failed check,
+// the one-sentence Reason and every Default that fed the result. Stations are
+// then ranked (see Rank) and the findings ordered by severity, station rank and
+// object order.
+//
+// opts.Limits are used as given; a zero Limits takes model.DefaultLimits with the
+// Site sheet's overrides (LimitsFromSite) merged, and Audit.Options records them.
+func Assess(s *inventory.Survey, opts Options) *Audit {
+	if opts.Limits == (model.Limits{}) {
+		opts.Limits, _ = LimitsFromSite(s.Site, model.DefaultLimits())
+	}
+	a := &Audit{Survey: s, Options: opts, Counts: map[Verdict]int{}}
+	for _, v := range []Verdict{Incendive, Marginal, NotAssessed, NonIncendive} {
+		a.Counts[v] = 0
+	}
+	var site []Default
+	margin := DefaultMargin
+	if m := s.Site.RequiredMargin; m.Known && m.Value > 0 {
+		margin = m.Value
+	} else {
+		site = append(site, Default{Field: "Required margin", Value: plain(DefaultMargin), Reason: "not given on the Site sheet: default site choice (energy must stay below MIE / 10)"})
+	}
+	temperature := DefaultTemperature
+	if t := s.Site.AirTemperature; t.Known && t.Value > 0 {
+		temperature = t.Value
+	} else {
+		site = append(site, Default{Field: "Air temperature", Value: celsius(DefaultTemperature), Reason: "not given on the Site sheet: default"})
+	}
+	ctx := objectContext{survey: s, lim: &opts.Limits, margin: margin, temperature: temperature, siteDefaults: site}
+	a.Objects = make([]ObjectResult, len(s.Objects))
+	for i := range s.Objects {
+		a.Objects[i] = ctx.assess(&s.Objects[i])
+		a.Counts[a.Objects[i].Verdict]++
+	}
+	a.Stations = Rank(s, a.Objects)
+	a.Findings = orderFindings(a.Objects, a.Stations)
+	a.MethodDefaults = methodDefaults(a.Objects)
+	return a
+}
+
+type objectContext struct {
+	survey       *inventory.Survey
+	lim          *model.Limits
+	margin       float64
+	temperature  float64
+	siteDefaults []Default
+}
+
+// assess judges one object.
+func (x *objectContext) assess(o *inventory.Object) ObjectResult {
+	r := ObjectResult{Object: *o}
+	var defs []Default
+	cause := CauseNone
+	causeText := ""
+
+	st, ok := x.survey.Station(o.Station)
+	if !ok {
+		st = inventory.Station{ID: o.Station}
+		cause, causeText = CauseUnknownStation, fmt.Sprintf("station %q is not on the Stations sheet", o.Station)
+	}
+	r.Station = st
+	env, atm, envDefs, envCause, envText := x.environment(&st)
+	defs = append(defs, envDefs...)
+	if cause == CauseNone && envCause != CauseNone {
+		cause, causeText = envCause, envText
+	}
+	r.Atmosphere = atm
+	r.Environment = env
+
+	in, mat, inDefs := x.input(o)
+	defs = append(defs, inDefs...)
+	r.Material = mat
+	r.Input = in
+	if in.Kind == model.KindUnknown && cause == CauseNone {
+		cause, causeText = CauseUnknownKind, fmt.Sprintf("kind %q is not one the model knows", o.Kind)
+	}
+
+	r.Eval = model.Evaluate(in, env, *x.lim)
+	c := Classify(&r.Input, &r.Environment, &r.Eval, x.lim, x.margin)
+	if cause != CauseNone {
+		// The station or kind is unusable: nothing is judged, whatever the model says.
+		c = Classification{Verdict: NotAssessed, Ratio: math.NaN(), Energy: math.NaN(), Cause: cause}
+	} else {
+		switch c.Cause {
+		case CauseMissingInputs:
+			causeText = "the model lacked inputs its kind needs: " + missingText(r.Eval.NotAssessed)
+		case CauseNoMIE:
+			causeText = "the MIE of the station's atmosphere is not given"
+			if atm != nil {
+				causeText = fmt.Sprintf("the MIE of atmosphere %s is not given", atm.ID)
+			}
+		case CauseNoEnergy:
+			causeText = "the model gave no discharge energy"
+		}
+	}
+	r.Verdict = c.Verdict
+	if !math.IsNaN(c.Ratio) {
+		ratio := c.Ratio
+		r.Ratio = &ratio
+	}
+	r.Findings = x.findings(&r, &c)
+	defs = append(defs, x.evalDefaults(&r, &c)...)
+	r.Defaults = dedupeDefaults(append(append([]Default(nil), x.siteDefaults...), defs...))
+	r.Reason = x.reason(&r, &c, causeText)
+	return r
+}
+
+// environment builds the model environment of a station.
+func (x *objectContext) environment(st *inventory.Station) (model.Environment, *inventory.Atmosphere, []Default, Cause, string) {
+	var defs []Default
+	env := model.Environment{Temperature: x.temperature, MIE: math.NaN()}
+	switch {
+	case st.RelativeHumidity.Known:
+		env.RelativeHumidity = st.RelativeHumidity.Value
+	case x.survey.Site.RelativeHumidity.Known:
+		env.RelativeHumidity = x.survey.Site.RelativeHumidity.Value
+		defs = append(defs, Default{Field: "Relative humidity", Value: percent(env.RelativeHumidity), Reason: "the station gives none: the site's RH is used"})
+	default:
+		env.RelativeHumidity = DryDayHumidity
+		defs = append(defs, Default{Field: "Relative humidity", Value: percent(DryDayHumidity), Reason: "neither the station nor the site gives one: dry-day screening value (documented choice)"})
+	}
+	if st.Atmosphere == "" {
+		return env, nil, defs, CauseNone, ""
+	}
+	a, ok := x.survey.Atmosphere(st.Atmosphere)
+	if !ok {
+		return env, nil, defs, CauseUnknownStation, fmt.Sprintf("atmosphere %q of station %s is not on the Atmospheres sheet", st.Atmosphere, st.ID)
+	}
+	kind, err := model.ParseAtmosphereKind(a.Kind)
+	if err != nil {
+		return env, &a, defs, CauseUnknownStation, fmt.Sprintf("atmosphere %s has an unknown kind %q", a.ID, a.Kind)
+	}
+	if kind == model.NoAtmosphere {
+		return env, nil, defs, CauseNone, ""
+	}
+	env.Atmosphere = kind
+	env.Group, _ = model.ParseGroup(a.Group)
+	env.MIE = a.MIE.OrNaN()
+	if a.MIEFromSubstance && a.MIE.Known {
+		defs = append(defs, Default{Field: "MIE", Value: mJ(a.MIE.Value), Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
+	}
+	if a.GroupFromSubstance && a.Group != "" {
+		defs = append(defs, Default{Field: "Group", Value: a.Group, Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
+	}
+	if strings.TrimSpace(a.Zone) == "" {
+		// An unclassified area may have to be treated as the strictest zone (TRGS 723, reference section 11).
+		env.Zone = model.Zone0
+		if kind == model.Dust {
+			env.Zone = model.Zone20
+		}
+		defs = append(defs, Default{Field: "Zone", Value: env.Zone.String(), Reason: fmt.Sprintf("atmosphere %s gives no zone: the strictest zone is assumed", a.ID)})
+	} else {
+		env.Zone, _ = model.ParseZone(a.Zone)
+	}
+	return env, &a, defs, CauseNone, ""
+}
+
+// input maps a survey row and its material to the model's input.
+func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Material, []Default) {
+	var defs []Default
+	kind, _ := model.ParseKind(o.Kind)
+	in := model.Input{
+		Kind:             kind,
+		Material:         unknownMaterial(),
+		Length:           o.Length.OrNaN(),
+		Width:            o.Width.OrNaN(),
+		Diameter:         o.Diameter.OrNaN(),
+		Thickness:        o.Thickness.OrNaN(),
+		EarthedBacking:   strings.EqualFold(strings.TrimSpace(o.Backing), "earthed"),
+		DistanceToEarth:  o.DistanceToEarth.OrNaN(),
+		Field:            o.Field.OrNaN(),
+		FieldDistance:    o.FieldDistance.OrNaN(),
+		SurfacePotential: o.SurfacePotential.OrNaN(),
+		Speed:            o.Speed.OrNaN(),
+		MassFlow:         o.MassFlow.OrNaN(),
+		ChargeToMass:     o.ChargeToMass.OrNaN(),
+		ChargingCurrent:  o.ChargingCurrent.OrNaN(),
+		ChargingTime:     o.ChargingTime.OrNaN(),
+		ParticleSize:     o.ParticleSize.OrNaN(),
+		Resistance:       o.Resistance.OrNaN(),
+		Capacitance:      o.Capacitance.OrNaN(),
+		Conductivity:     o.Conductivity.OrNaN(),
+		Permittivity:     o.Permittivity.OrNaN(),
+	}
+	in.BagType, _ = model.ParseBagType(o.BagType)
+	in.Filling, _ = model.ParseFilling(o.Filling)
+	// The survey has no column for double-layer charge: the Notes say it.
+	if n := strings.ToLower(o.Notes); strings.Contains(n, "double-layer") || strings.Contains(n, "double layer") {
+		in.DoubleLayer = true
+		defs = append(defs, Default{Field: "Double-layer charge", Value: "yes", Reason: "read from the row's Notes"})
+	}
+	var mat *inventory.Material
+	if o.Material != "" {
+		if m, ok := x.survey.Material(o.Material); ok {
+			mat = &m
+			in.Material = model.Material{
+				Name:               m.Name,
+				Conductive:         strings.EqualFold(m.Class, "conductive"),
+				Dissipative:        strings.EqualFold(m.Class, "dissipative"),
+				Permittivity:       m.Permittivity,
+				SurfaceResistivity: m.SurfaceResistivity,
+				HumiditySlope:      m.HumiditySlope,
+				VolumeResistivity:  m.VolumeResistivity,
+				BreakdownStrength:  m.BreakdownStrength,
+			}
+			if m.BuiltIn {
+				defs = append(defs, Default{Field: "Material", Value: m.Name, Reason: "properties from the built-in list (" + m.Source + ")"})
+			}
+		} else {
+			in.Material.Name = o.Material
+			defs = append(defs, Default{Field: "Material", Value: o.Material, Reason: "not in the built-in list nor the Materials sheet: its properties are unknown"})
+		}
+	}
+	switch kind {
+	case model.Bag:
+		if in.BagType == model.BagUnknown {
+			defs = append(defs, Default{Field: "Bag type", Value: "A", Reason: "not given: assessed as the most restrictive case (type A, usable only where every type is)"})
+		}
+	case model.Liquid:
+		if in.Filling == model.FillUnknown {
+			defs = append(defs, Default{Field: "Filling", Value: "top", Reason: "not given: assessed as top filling without a dip pipe (the most restrictive case)"})
+		}
+		if math.IsNaN(in.Conductivity) {
+			defs = append(defs, Default{Field: "Conductivity", Value: "low (≤ 50 pS/m)", Reason: "not given: assessed as a low-conductivity liquid, with the low-conductivity v d limit"})
+		}
+	}
+	return in, mat, defs
+}
+
+func unknownMaterial() model.Material {
+	nan := math.NaN()
+	return model.Material{Permittivity: nan, SurfaceResistivity: nan, VolumeResistivity: nan, BreakdownStrength: nan}
+}
+
+// evalDefaults lists the defaults the model's result rests on.
+func (x *objectContext) evalDefaults(r *ObjectResult, c *Classification) []Default {
+	var defs []Default
+	in, ev := &r.Input, &r.Eval
+	if math.IsNaN(in.Capacitance) && ev.Capacitance > 0 && ev.CapacitanceModel != model.CapNone && ev.CapacitanceModel != model.CapMeasured {
+		defs = append(defs, Default{Field: "Capacitance", Value: pF(ev.Capacitance), Reason: "not measured: estimated, " + ev.CapacitanceModel.String()})
+	}
+	earthingMatters := IsConductorRow(in, ev) || in.Kind == model.Person || (in.Kind == model.Bag && in.BagType == model.BagC)
+	if math.IsNaN(in.Resistance) && earthingMatters {
+		defs = append(defs, Default{Field: "Resistance to earth", Value: ohm(x.lim.NotEarthed), Reason: "not measured: taken as not earthed"})
+	}
+	if ev.Discharges[model.Brush].Possible {
+		defs = append(defs, Default{Field: "Brush discharge energy", Value: mJ(x.lim.BrushEnergy), Reason: "equivalent energy of a brush discharge: the upper end of the published 3-4 mJ (documented choice)"})
+	}
+	if ev.Discharges[model.PropagatingBrush].Possible {
+		defs = append(defs, Default{Field: "Propagating brush energy", Value: "upper estimate", Reason: fmt.Sprintf("stored field energy of the layer, bounded by %s (published range hundreds of mJ to J)", mJ(x.lim.PropagatingMaxEnergy))})
+	}
+	if in.Kind == model.Person && math.IsNaN(in.SurfacePotential) && !math.IsNaN(ev.Potential) {
+		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
+	}
+	defs = append(defs, modelAssumptions(ev)...)
+	_ = c
+	return defs
+}
+
+// dedupeDefaults keeps the first of each Field+Reason.
+func dedupeDefaults(ds []Default) []Default {
+	out := ds[:0]
+	for _, d := range ds {
+		dup := false
+		for _, o := range out {
+			if o.Field == d.Field && o.Reason == d.Reason {
+				dup = true
+				break
+			}
+		}
+		if !dup {
+			out = append(out, d)
+		}
+	}
+	if len(out) == 0 {
+		return nil
+	}
+	return out
+}
+
+// methodDefaults lists each default once across the objects: by Field and
+// Reason, with the value where every object had the same, else "per object".
+func methodDefaults(objs []ObjectResult) []Default {
+	var out []Default
+	for i := range objs {
+		for _, d := range objs[i].Defaults {
+			found := false
+			for j := range out {
+				if out[j].Field == d.Field && out[j].Reason == d.Reason {
+					if out[j].Value != d.Value {
+						out[j].Value = "per object (see Objects)"
+					}
+					found = true
+					break
+				}
+			}
+			if !found {
+				out = append(out, d)
+			}
+		}
+	}
+	return out
+}

@@ -1,0 +1,260 @@
+package assess
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/templates"
+)
+
+// HumidityResponds is the humidity slope (decades of surface resistivity per
+// 10 %RH) from which raising humidity is worth recommending (paper falls about
+// 0.8 decade per 10 %RH; hydrophobic plastics about 0) (a documented choice).
+const HumidityResponds = 0.3
+
+// dischargeWords names a discharge in a sentence.
+func dischargeWords(t model.DischargeType) string {
+	switch t {
+	case model.Spark:
+		return "spark"
+	case model.Brush:
+		return "brush discharge"
+	case model.PropagatingBrush:
+		return "propagating brush discharge"
+	case model.Corona:
+		return "corona discharge"
+	case model.Cone:
+		return "cone discharge"
+	}
+	return "discharge"
+}
+
+// findings writes one Finding per failed check, in check order.
+func (x *objectContext) findings(r *ObjectResult, c *Classification) []Finding {
+	if c.Failed == 0 {
+		return nil
+	}
+	var out []Finding
+	for k := Check(0); k < NumChecks; k++ {
+		if !c.Failed.Has(k) {
+			continue
+		}
+		msg, mit := x.findingText(k, r, c)
+		out = append(out, Finding{
+			ObjectID:   r.Object.ID,
+			StationID:  r.Station.ID,
+			Check:      k.Name(),
+			Severity:   k.Severity(),
+			Message:    msg,
+			Mitigation: mit,
+		})
+	}
+	return out
+}
+
+// mitigationClass is the object class the energy mitigations are worded for.
+func mitigationClass(in *model.Input, d model.DischargeType) string {
+	switch {
+	case in.Kind == model.Bag:
+		return "bag"
+	case d == model.Spark && in.Kind == model.Person:
+		return "person"
+	case d == model.Spark:
+		return "conductor"
+	case in.Kind == model.Liquid:
+		return "liquid"
+	case d == model.Cone || in.Kind == model.Powder:
+		return "powder"
+	}
+	return "insulator"
+}
+
+// humiditySentence says whether raising humidity helps the object's material.
+func humiditySentence(in *model.Input) string {
+	m := in.Material
+	if m.Conductive || m.Name == "" || math.IsNaN(m.HumiditySlope) {
+		return ""
+	}
+	if m.HumiditySlope >= HumidityResponds {
+		return " " + templates.Mitigation("humidity.responds")
+	}
+	return " " + templates.Mitigation("humidity.no-effect")
+}
+
+func zoneWords(z model.Zone) string {
+	if z == model.ZoneNone {
+		return "an unzoned area"
+	}
+	return "zone " + z.String()
+}
+
+// findingText returns the one-line message with the numbers and the mitigation of a failed check.
+func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification) (msg, mit string) {
+	in, env, ev, lim := &r.Input, &r.Environment, &r.Eval, x.lim
+	mit = templates.Mitigation(k.Name())
+	switch k {
+	case CheckEnergyMIE:
+		msg = fmt.Sprintf("%s of %s reaches the MIE of %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), ratioText(c.Ratio))
+	case CheckEnergyMargin:
+		msg = fmt.Sprintf("%s of %s is below the MIE of %s but reaches MIE / %s = %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), plain(x.margin), mJ(env.MIE/x.margin), ratioText(c.Ratio))
+	case CheckTransferredCharge:
+		msg = fmt.Sprintf("transferred charge %s exceeds the %s limit of %s in %s", nC(ev.TransferredCharge), env.Group, nC(TransferredChargeLimit(env, lim)), zoneWords(env.Zone))
+		if in.Kind == model.Sheet || in.Kind == model.Belt || in.Kind == model.Roller || in.Kind == model.Bag {
+			mit += humiditySentence(in)
+		}
+	case CheckInsulatingArea:
+		msg = fmt.Sprintf("insulating surface of %s exceeds the %s limit of %s for %s", cm2(ev.InsulatingArea), zoneWords(env.Zone), cm2(InsulatingAreaLimit(env, lim)), env.Group)
+		mit += humiditySentence(in)
+	case CheckConductorEarthing:
+		what := "resistance to earth"
+		if in.Kind == model.Liquid {
+			what = "resistance to earth of the receiving container and line"
+		}
+		if math.IsNaN(in.Resistance) {
+			msg = fmt.Sprintf("%s not measured, so taken as not earthed (limit %s)", what, ohm(lim.ConductorEarthing))
+		} else {
+			msg = fmt.Sprintf("%s %s exceeds %s", what, ohm(in.Resistance), ohm(lim.ConductorEarthing))
+		}
+	case CheckPersonEarthing:
+		mie := "an unknown MIE"
+		if !math.IsNaN(env.MIE) {
+			mie = "MIE " + mJ(env.MIE)
+		}
+		if math.IsNaN(in.Resistance) {
+			msg = fmt.Sprintf("person-to-earth resistance not measured, so taken as not earthed; %s needs at most %s in %s with %s (≤ %s)", "the person", ohm(lim.PersonEarthing), zoneWords(env.Zone), mie, mJ(lim.PersonEarthingMIE))
+		} else {
+			msg = fmt.Sprintf("person-to-earth resistance %s exceeds %s required in %s with %s (≤ %s)", ohm(in.Resistance), ohm(lim.PersonEarthing), zoneWords(env.Zone), mie, mJ(lim.PersonEarthingMIE))
+		}
+	case CheckShockEnergy:
+		e := ShockEnergy(in, ev)
+		src := "stored energy"
+		if d := ev.Discharges[model.PropagatingBrush]; d.Possible && d.Energy == e {
+			src = "propagating brush discharge energy"
+		}
+		msg = fmt.Sprintf("%s %s exceeds the %s shock limit for people who touch it", src, mJ(e), mJ(lim.ShockEnergy))
+		if !math.IsNaN(ev.Potential) && !math.IsNaN(ev.Capacitance) && src == "stored energy" {
+			msg += fmt.Sprintf(" (%s at %s)", pF(ev.Capacitance), kV(ev.Potential))
+		}
+	case CheckFillingVelocity:
+		vd := VelocityDiameter(in, ev)
+		limVD := FillingVDLimit(in.Conductivity, lim)
+		cond := "unknown conductivity"
+		if !math.IsNaN(in.Conductivity) {
+			rel := "≤"
+			if in.Conductivity > lim.VDKappa {
+				rel = ">"
+			}
+			cond = fmt.Sprintf("conductivity %s (%s %s)", pSm(in.Conductivity), rel, pSm(lim.VDKappa))
+		}
+		msg = fmt.Sprintf("v·d of %s (%s in %s mm) exceeds %s for %s; at most %s in this line", m2ps(vd), mps(in.Speed), plain(in.Diameter*1e3), m2ps(limVD), cond, mps(model.FillingVelocityLimit(in.Conductivity, in.Diameter, *lim)))
+	case CheckVelocityCeiling:
+		msg = fmt.Sprintf("flow velocity %s exceeds the %s ceiling for filling", mps(in.Speed), mps(lim.MaxVelocity))
+	case CheckSlowStart:
+		how := "top filling without a dip pipe"
+		if in.Filling == model.FillUnknown {
+			how = "filling mode not given, so taken as top filling without a dip pipe"
+		}
+		msg = fmt.Sprintf("%s: the inlet is never submerged, so the %s slow-start limit would hold for the whole fill and the free-falling jet splashes and makes mist", how, mps(lim.SlowStartVelocity))
+		if !math.IsNaN(in.Speed) {
+			msg += fmt.Sprintf(" (flow %s)", mps(in.Speed))
+		}
+	case CheckLowConductivity:
+		tau := ev.RelaxationTime
+		if math.IsNaN(in.Conductivity) {
+			msg = fmt.Sprintf("conductivity not given, so taken as low (≤ %s): the liquid keeps its charge", pSm(lim.LowConductivity))
+		} else {
+			msg = fmt.Sprintf("conductivity %s is low (≤ %s)", pSm(in.Conductivity), pSm(lim.LowConductivity))
+			if tau > 0 {
+				msg += fmt.Sprintf(": relaxation time %s, so about %s (3 τ) of residence is needed after filters and pumps", seconds(tau), seconds(model.ResidenceFactor*tau))
+			}
+		}
+	case CheckBagType:
+		t := AssessedBagType(in.BagType)
+		where := env.Atmosphere.String() + " atmosphere"
+		if env.Group != model.GroupNone {
+			where += " " + env.Group.String()
+		}
+		where += " in " + zoneWords(env.Zone)
+		if env.Atmosphere == model.Dust || env.Atmosphere == model.Hybrid {
+			where += ", product MIE " + mJ(env.MIE)
+		}
+		if in.BagType == model.BagUnknown {
+			msg = fmt.Sprintf("bag type not given, so assessed as type A (the most restrictive case), which is not allowed in a %s", where)
+			mit = templates.Mitigation("bag-type.unknown")
+		} else {
+			msg = fmt.Sprintf("type %s bag is not allowed in a %s (IEC 61340-4-4 usage table)", t, where)
+		}
+	case CheckBagEarthing:
+		if math.IsNaN(in.Resistance) {
+			msg = fmt.Sprintf("type C bag: earthing tab to plant earth not measured, so taken as not earthed (limit %s); an unearthed type C bag is worse than type A or B", ohm(lim.BagTabToEarth))
+		} else {
+			msg = fmt.Sprintf("type C bag: earthing tab to plant earth %s exceeds %s", ohm(in.Resistance), ohm(lim.BagTabToEarth))
+		}
+	case CheckBagQualification:
+		i := BagChargingCurrent(in, ev)
+		switch {
+		case env.MIE < lim.BagMinMIE:
+			msg = fmt.Sprintf("MIE %s is below the %s the type %s qualification assumes", mJ(env.MIE), mJ(lim.BagMinMIE), in.BagType)
+		default:
+			msg = fmt.Sprintf("charging current %s exceeds the %s the type %s qualification assumes", uA(i), uA(lim.BagMaxCurrent), in.BagType)
+		}
+	}
+	if k == CheckEnergyMIE || k == CheckEnergyMargin {
+		cls := mitigationClass(in, c.Discharge)
+		mit = templates.Mitigation("energy." + cls)
+		if cls == "insulator" {
+			mit += humiditySentence(in)
+		}
+	}
+	return msg, mit
+}
+
+// reason writes the one sentence that says why the object got its verdict.
+func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText string) string {
+	switch r.Verdict {
+	case NotAssessed:
+		return "Not assessed: " + causeText + "."
+	case Incendive, Marginal:
+		var first *Finding
+		for i := range r.Findings {
+			if r.Findings[i].Severity == r.Verdict {
+				first = &r.Findings[i]
+				break
+			}
+		}
+		s := capitalise(r.Verdict.String()) + ": " + first.Message
+		if n := len(r.Findings) - 1; n == 1 {
+			s += "; 1 further finding"
+		} else if n > 1 {
+			s += fmt.Sprintf("; %d further findings", n)
+		}
+		if c.Cause != CauseNone && causeText != "" {
+			s += "; the discharge energy was not assessed (" + causeText + ")"
+		}
+		if r.Atmosphere == nil {
+			s += " (no flammable atmosphere at the station)"
+		}
+		return s + "."
+	}
+	if r.Atmosphere == nil {
+		s := "Non-incendive: no flammable atmosphere at the station, so it is judged on shock alone"
+		if e := ShockEnergy(&r.Input, &r.Eval); !math.IsNaN(e) {
+			s += fmt.Sprintf(", and its %s stays below the %s shock limit", mJ(e), mJ(x.lim.ShockEnergy))
+		}
+		return s + "."
+	}
+	mie := r.Environment.MIE
+	if !(c.Energy > 0) {
+		return fmt.Sprintf("Non-incendive: no discharge is possible, and every requirement is met (MIE %s).", mJ(mie))
+	}
+	return fmt.Sprintf("Non-incendive: the largest possible discharge, a %s of %s, stays below MIE / %s = %s (ratio %s), and every requirement is met.",
+		dischargeWords(c.Discharge), mJ(c.Energy), plain(x.margin), mJ(mie/x.margin), ratioText(c.Ratio))
+}
+
+func capitalise(s string) string {
+	if s == "" {
+		return s
+	}
+	return string(s[0]-'a'+'A') + s[1:]
+}

@@ -1,0 +1,76 @@
+package assess
+
+import (
+	"math"
+	"strconv"
+	"strings"
+)
+
+// The formatters below write SI values in the engineering units people read in
+// findings and reasons: mJ, kV, pF, nC, cm², µA, pS/m, and ohms in scientific format.
+
+// sig formats v with three significant digits and no exponent for everyday
+// magnitudes (1e-4 to 1e7); outside that range it uses scientific format.
+func sig(v float64) string {
+	switch {
+	case math.IsNaN(v):
+		return "unknown"
+	case math.IsInf(v, 1):
+		return "∞"
+	case math.IsInf(v, -1):
+		return "-∞"
+	case v == 0:
+		return "0"
+	}
+	a := math.Abs(v)
+	if a < 1e-4 || a >= 1e7 {
+		return sci(v)
+	}
+	exp := math.Floor(math.Log10(a))
+	scale := math.Pow(10, 2-exp)
+	r := math.Round(v*scale) / scale
+	return strconv.FormatFloat(r, 'f', -1, 64)
+}
+
+// sci formats v as "1.0e6" (two significant digits, no plus sign, no leading zeros in the exponent).
+func sci(v float64) string {
+	if math.IsNaN(v) {
+		return "unknown"
+	}
+	if math.IsInf(v, 0) {
+		return sig(v)
+	}
+	s := strconv.FormatFloat(v, 'e', 1, 64) // "1.0e+06"
+	mant, exp, ok := strings.Cut(s, "e")
+	if !ok {
+		return s
+	}
+	neg := strings.HasPrefix(exp, "-")
+	exp = strings.TrimLeft(exp, "+-")
+	exp = strings.TrimLeft(exp, "0")
+	if exp == "" {
+		exp = "0"
+	}
+	if neg {
+		exp = "-" + exp
+	}
+	return mant + "e" + exp
+}
+
+func mJ(j float64) string        { return sig(j*1e3) + " mJ" }
+func kV(v float64) string        { return sig(v/1e3) + " kV" }
+func volts(v float64) string     { return sig(v) + " V" }
+func pF(f float64) string        { return sig(f*1e12) + " pF" }
+func nC(c float64) string        { return sig(c*1e9) + " nC" }
+func cm2(a float64) string       { return sig(a*1e4) + " cm²" }
+func ohm(r float64) string       { return sci(r) + " Ω" }
+func uA(a float64) string        { return sig(a*1e6) + " µA" }
+func pSm(k float64) string       { return sig(k*1e12) + " pS/m" }
+func mps(v float64) string       { return sig(v) + " m/s" }
+func m2ps(v float64) string      { return sig(v) + " m²/s" }
+func seconds(t float64) string   { return sig(t) + " s" }
+func percent(rh float64) string  { return sig(rh) + " %" }
+func celsius(k float64) string   { return sig(k-273.15) + " °C" }
+func uCm2(s float64) string      { return sig(s*1e6) + " µC/m²" }
+func plain(v float64) string     { return sig(v) }
+func ratioText(r float64) string { return sig(r) }
