@@ -136,7 +136,10 @@ func writeSheetRows(f *excelize.File, st sheetStyles, sh SheetRows) error {
 			}
 		}
 		if sh.Name == SheetSite {
-			w = 28
+			w = 26
+			if c == 1 {
+				w = 50
+			}
 		}
 		if err := f.SetColWidth(sh.Name, col, col, w); err != nil {
 			return err
