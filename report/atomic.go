@@ -25,10 +25,7 @@ func WriteFileAtomic(path string, write func(io.Writer) error) (err error) {
 	if fi, statErr := os.Stat(path); statErr == nil && fi.IsDir() {
 		return fmt.Errorf("write %s: the target is a folder, give a file name", path)
 	}
-	dir, base := filepath.Split(path)
-	if dir == "" {
-		dir = "."
-	}
+	dir, base := filepath.Dir(path), filepath.Base(path)
 	if fi, statErr := os.Stat(dir); statErr != nil {
 		return fmt.Errorf("write %s: folder %s: %w", path, dir, statErr)
 	} else if !fi.IsDir() {

@@ -206,15 +206,10 @@ func (wb *workbook) summary() error {
 const chartRows = 18
 
 // chart adds the native bar chart of the stations' worst ratios, on a log
-// value axis, with each bar coloured by the station's verdict.
+// value axis, in one neutral colour (the verdicts are coloured in the table).
 func (wb *workbook) chart(at string) error {
 	n := wb.stationRows
 	sheet := "'" + SheetStations + "'"
-	var points []excelize.ChartDataPoint
-	for i := range wb.a.Stations {
-		fill, _ := verdictColours(wb.a.Stations[i].Verdict)
-		points = append(points, excelize.ChartDataPoint{Index: i, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fill}}})
-	}
 	gap := uint(60)
 	return wb.f.AddChart(SheetSummary, at, &excelize.Chart{
 		Type: excelize.Bar,
@@ -222,7 +217,9 @@ func (wb *workbook) chart(at string) error {
 			Name:       sheet + "!$" + stationsRatioCol + "$1",
 			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsIDCol, stationsIDCol, n),
 			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsRatioCol, stationsRatioCol, n),
-			DataPoint:  points,
+			// One neutral colour: excelize colours single bars only in pie
+			// charts, and the verdict colours stay on the table above.
+			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"4D4D4D"}},
 		}},
 		Format:    excelize.GraphicOptions{OffsetX: 4, OffsetY: 4},
 		Dimension: excelize.ChartDimension{Width: 900, Height: chartRows*20 - 8},

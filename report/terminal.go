@@ -41,12 +41,19 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 	fmt.Fprintf(w, "\nObjects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
 	if a.Survey != nil {
 		read, acc, rej := 0, 0, 0
+		var where []string
 		for _, c := range a.Survey.Counts {
 			read += c.Read
 			acc += c.Accepted
 			rej += c.Rejected
+			if c.Rejected > 0 {
+				where = append(where, fmt.Sprintf("%s %d", c.Sheet, c.Rejected))
+			}
 		}
 		line := fmt.Sprintf("Survey rows: %d read, %d accepted, %d rejected", read, acc, rej)
+		if len(where) > 0 {
+			line += " (" + strings.Join(where, ", ") + ")"
+		}
 		if n := len(a.Survey.Warnings()); n > 0 {
 			line += fmt.Sprintf("; %d warning(s)", n)
 		}

@@ -209,6 +209,7 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 		Capacitance:      o.Capacitance.OrNaN(),
 		Conductivity:     o.Conductivity.OrNaN(),
 		Permittivity:     o.Permittivity.OrNaN(),
+		ProductMIE:       math.NaN(), // no survey column: the model takes the station's dust MIE
 	}
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)

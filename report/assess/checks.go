@@ -201,7 +201,9 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 			}
 		}
 		if in.Kind == model.Bag {
-			if !BagTypeOK(in.BagType, env, lim) {
+			// model.Evaluate applies the IEC 61340-4-4 usage table (model.BagTypeAllowed); a
+			// refusal only for an MIE below the C/D qualification is CheckBagQualification's.
+			if !ev.BagAllowed && ev.BagCode != model.ReasonBagBelowQualifiedMIE {
 				c.Failed = c.Failed.Add(CheckBagType)
 			}
 			if in.BagType == model.BagC && !(in.Resistance <= lim.BagTabToEarth) {
@@ -381,16 +383,3 @@ func BagChargingCurrent(in *model.Input, ev *model.Evaluation) float64 {
 	return math.Abs(in.MassFlow * in.ChargeToMass)
 }
 
-// BagTypeOK applies model.BagTypeAllowed (the IEC 61340-4-4 usage table) to a
-// bag at the station. The product MIE passed is the atmosphere's for dust and
-// hybrid atmospheres and unknown for gas, vapour and mist (their column does not
-// depend on it). A refusal only because the MIE is below the qualification of
-// types C and D is left to CheckBagQualification, so it is reported once.
-func BagTypeOK(t model.BagType, env *model.Environment, lim *model.Limits) bool {
-	product := math.NaN()
-	if env.Atmosphere == model.Dust || env.Atmosphere == model.Hybrid {
-		product = env.MIE
-	}
-	ok, code := model.BagTypeAllowed(t, *env, product, *lim)
-	return ok || code == model.ReasonBagBelowQualifiedMIE
-}

@@ -3,6 +3,7 @@ package assess
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/templates"
@@ -184,6 +185,9 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			mit = templates.Mitigation("bag-type.unknown")
 		} else {
 			msg = fmt.Sprintf("type %s bag is not allowed in a %s (IEC 61340-4-4 usage table)", t, where)
+			if why := strings.TrimSuffix(ev.BagCode.Text(math.NaN(), math.NaN()), "."); why != "" && ev.BagCode != model.ReasonNone {
+				msg += ": " + lowerFirst(why)
+			}
 		}
 	case CheckBagEarthing:
 		if math.IsNaN(in.Resistance) {
@@ -252,8 +256,15 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 		dischargeWords(c.Discharge), mJ(c.Energy), plain(x.margin), mJ(mie/x.margin), ratioText(c.Ratio))
 }
 
+func lowerFirst(s string) string {
+	if s == "" || s[0] < 'A' || s[0] > 'Z' {
+		return s
+	}
+	return string(s[0]-'A'+'a') + s[1:]
+}
+
 func capitalise(s string) string {
-	if s == "" {
+	if s == "" || s[0] < 'a' || s[0] > 'z' {
 		return s
 	}
 	return string(s[0]-'a'+'A') + s[1:]

@@ -1,0 +1,35 @@
+package report
+
+import (
+	"bytes"
+	"strings"
+	"testing"
+
+	"github.com/sparkmargin/sparkmargin/templates"
+)
+
+func TestWriteSummaryGolden(t *testing.T) {
+	var b bytes.Buffer
+	if err := WriteSummary(&b, testAudit()); err != nil {
+		t.Fatal(err)
+	}
+	golden(t, "summary.golden.txt", b.Bytes())
+	s := b.String()
+	// Rows: Site 6 + Atmospheres 2 + Stations 3 + Objects 10 = 21 read, one
+	// Objects row rejected (the fixture's counts, invented for the demo).
+	// Ranked order and the ratios worked by hand: 10 mJ / 0.24 mJ = 41.7,
+	// 113.3 mJ / 10 mJ = 11.3 (derived).
+	i1, i2, i3 := strings.Index(s, "S1 Coater"), strings.Index(s, "S2 Powder"), strings.Index(s, "S3 Warehouse")
+	if !(i1 >= 0 && i1 < i2 && i2 < i3) {
+		t.Errorf("stations not in rank order:\n%s", s)
+	}
+	for _, want := range []string{"41.7", "11.3", "9 (4 incendive, 1 marginal, 3 non-incendive, 1 not assessed)",
+		"21 read, 20 accepted, 1 rejected (Objects 1)", templates.CautionLine} {
+		if !strings.Contains(s, want) {
+			t.Errorf("summary lacks %q:\n%s", want, s)
+		}
+	}
+	if strings.Contains(s, "\x1b[") {
+		t.Error("summary holds terminal colour codes")
+	}
+}
