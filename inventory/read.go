@@ -1,0 +1,558 @@
+package inventory
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+	"unicode/utf8"
+
+	"github.com/xuri/excelize/v2"
+)
+
+// ErrUnreadable marks a file that is not a readable .xlsx survey at all (empty,
+// a CSV renamed, truncated, password-protected, too large, random bytes). The
+// command maps it to exit code 2. The error's text is one sentence.
+var ErrUnreadable = errors.New("unreadable survey")
+
+// UnreadableError says in one sentence why a file could not be read as a workbook.
+type UnreadableError struct {
+	Path   string
+	Reason string // e.g. "it is empty"
+	Err    error  // underlying cause, may be nil
+}
+
+// Error returns one sentence: `survey.xlsx cannot be read as a survey workbook: it is empty.`
+func (e *UnreadableError) Error() string {
+	name := e.Path
+	if name == "" {
+		name = "the survey"
+	}
+	return fmt.Sprintf("%s cannot be read as a survey workbook: %s.", name, e.Reason)
+}
+
+// Unwrap returns ErrUnreadable and the cause, for errors.Is.
+func (e *UnreadableError) Unwrap() []error {
+	if e.Err == nil {
+		return []error{ErrUnreadable}
+	}
+	return []error{ErrUnreadable, e.Err}
+}
+
+// ReadOptions bounds what the reader accepts from an untrusted file. Zero
+// values take the defaults.
+type ReadOptions struct {
+	// MaxFileSize refuses files larger than this many bytes before opening them
+	// (default 64 MiB; a survey is a few hundred kB).
+	MaxFileSize int64
+	// UnzipSizeLimit caps the unpacked size of the whole workbook (default 256 MiB).
+	UnzipSizeLimit int64
+	// UnzipXMLSizeLimit caps one unpacked part kept in memory; larger parts go
+	// to temporary files in a private folder (default 16 MiB).
+	UnzipXMLSizeLimit int64
+	// TmpDir is the folder in which a private temporary folder is made and
+	// removed again ("" for the system's).
+	TmpDir string
+	// MaxRows caps the rows read per sheet (default 100000); a sheet with more
+	// gets an error and the rest is not read.
+	MaxRows int
+}
+
+// Defaults of ReadOptions.
+const (
+	DefaultMaxFileSize       = 64 << 20
+	DefaultUnzipSizeLimit    = 256 << 20
+	DefaultUnzipXMLSizeLimit = 16 << 20
+	DefaultMaxRows           = 100000
+)
+
+func (o ReadOptions) withDefaults() ReadOptions {
+	if o.MaxFileSize <= 0 {
+		o.MaxFileSize = DefaultMaxFileSize
+	}
+	if o.UnzipSizeLimit <= 0 {
+		o.UnzipSizeLimit = DefaultUnzipSizeLimit
+	}
+	if o.UnzipXMLSizeLimit <= 0 {
+		o.UnzipXMLSizeLimit = DefaultUnzipXMLSizeLimit
+	}
+	if o.UnzipXMLSizeLimit > o.UnzipSizeLimit {
+		o.UnzipXMLSizeLimit = o.UnzipSizeLimit
+	}
+	if o.MaxRows <= 0 {
+		o.MaxRows = DefaultMaxRows
+	}
+	return o
+}
+
+// ReadFile reads and validates the survey workbook at path. It returns an
+// error wrapping ErrUnreadable when the file is not a readable workbook (the
+// file is refused before opening when larger than opts.MaxFileSize); every
+// problem inside a readable workbook is a Problem in the Survey instead, and
+// the error is nil. The file is never written to.
+func ReadFile(path string, opts ReadOptions) (*Survey, error) {
+	opts = opts.withDefaults()
+	fi, err := os.Stat(path)
+	if err != nil {
+		return nil, &UnreadableError{Path: path, Reason: "the file cannot be opened (" + plainOSError(err) + ")", Err: err}
+	}
+	if fi.IsDir() {
+		return nil, &UnreadableError{Path: path, Reason: "it is a folder, not a file"}
+	}
+	if fi.Size() > opts.MaxFileSize {
+		return nil, &UnreadableError{Path: path, Reason: fmt.Sprintf("it is %s, larger than the %s a survey may be", sizeText(fi.Size()), sizeText(opts.MaxFileSize))}
+	}
+	fh, err := os.Open(path)
+	if err != nil {
+		return nil, &UnreadableError{Path: path, Reason: "the file cannot be opened (" + plainOSError(err) + ")", Err: err}
+	}
+	h := sha256.New()
+	head := &headBuffer{max: 512}
+	n, err := io.Copy(io.MultiWriter(h, head), io.LimitReader(fh, opts.MaxFileSize+1))
+	fh.Close()
+	if err != nil {
+		return nil, &UnreadableError{Path: path, Reason: "reading it failed (" + plainOSError(err) + ")", Err: err}
+	}
+	if n > opts.MaxFileSize {
+		return nil, &UnreadableError{Path: path, Reason: fmt.Sprintf("it is larger than the %s a survey may be", sizeText(opts.MaxFileSize))}
+	}
+	if why := sniff(head.b, n); why != "" {
+		return nil, &UnreadableError{Path: path, Reason: why}
+	}
+	s, err := openAndRead(path, opts, func(o excelize.Options) (*excelize.File, error) {
+		return excelize.OpenFile(path, o)
+	})
+	if err != nil {
+		return nil, err
+	}
+	s.Path = path
+	s.SHA256 = hex.EncodeToString(h.Sum(nil))
+	return s, nil
+}
+
+// Read reads and validates a survey workbook held in memory (as ReadFile does;
+// name is used in messages only).
+func Read(data []byte, name string, opts ReadOptions) (*Survey, error) {
+	opts = opts.withDefaults()
+	if int64(len(data)) > opts.MaxFileSize {
+		return nil, &UnreadableError{Path: name, Reason: fmt.Sprintf("it is %s, larger than the %s a survey may be", sizeText(int64(len(data))), sizeText(opts.MaxFileSize))}
+	}
+	if why := sniff(data, int64(len(data))); why != "" {
+		return nil, &UnreadableError{Path: name, Reason: why}
+	}
+	s, err := openAndRead(name, opts, func(o excelize.Options) (*excelize.File, error) {
+		return excelize.OpenReader(bytes.NewReader(data), o)
+	})
+	if err != nil {
+		return nil, err
+	}
+	sum := sha256.Sum256(data)
+	s.SHA256 = hex.EncodeToString(sum[:])
+	return s, nil
+}
+
+// openAndRead opens the workbook in a private temporary folder, reads it and
+// turns a panic inside excelize or the reader into an UnreadableError.
+func openAndRead(name string, opts ReadOptions, open func(excelize.Options) (*excelize.File, error)) (s *Survey, err error) {
+	tmp, err := os.MkdirTemp(opts.TmpDir, "sparkmargin-read-")
+	if err != nil {
+		return nil, fmt.Errorf("making a temporary folder for reading %s: %w", name, err)
+	}
+	defer os.RemoveAll(tmp)
+	defer func() {
+		if r := recover(); r != nil {
+			s = nil
+			err = &UnreadableError{Path: name, Reason: fmt.Sprintf("the workbook is malformed and reading it failed (%v)", short(fmt.Sprint(r), 120))}
+		}
+	}()
+	f, err := open(excelize.Options{
+		UnzipSizeLimit:    opts.UnzipSizeLimit,
+		UnzipXMLSizeLimit: opts.UnzipXMLSizeLimit,
+		TmpDir:            tmp,
+	})
+	if err != nil {
+		if f != nil {
+			f.Close()
+		}
+		return nil, &UnreadableError{Path: name, Reason: openFailure(err, opts), Err: err}
+	}
+	defer f.Close()
+	r := &reader{f: f, opts: opts}
+	s = r.read()
+	return s, nil
+}
+
+// openFailure words an excelize open error for a surveyor.
+func openFailure(err error, opts ReadOptions) string {
+	msg := err.Error()
+	switch {
+	case errors.Is(err, excelize.ErrWorkbookFileFormat), errors.Is(err, excelize.ErrWorkbookPassword):
+		return "it is password-protected (encrypted) or an old-format .xls; save it as an unprotected .xlsx"
+	case strings.Contains(msg, "unzip size"):
+		return fmt.Sprintf("its contents unpack to more than the %s limit (a damaged or hostile file)", sizeText(opts.UnzipSizeLimit))
+	case strings.Contains(msg, "zip"):
+		return "it is a damaged or truncated .xlsx (the zip container cannot be read)"
+	default:
+		return "it is not a valid .xlsx workbook (" + short(msg, 100) + ")"
+	}
+}
+
+// sniff looks at the first bytes and returns a reason when the file is plainly no .xlsx.
+func sniff(head []byte, size int64) string {
+	switch {
+	case size == 0:
+		return "it is empty"
+	case bytes.HasPrefix(head, []byte("PK\x03\x04")):
+		return ""
+	case bytes.HasPrefix(head, []byte{0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1}):
+		return "it is password-protected (encrypted) or an old-format .xls; save it as an unprotected .xlsx"
+	case bytes.HasPrefix(head, []byte("PK")):
+		return "it is a damaged or truncated .xlsx (the zip container cannot be read)"
+	case looksText(head):
+		return "it is a text or CSV file, not an .xlsx workbook; open it in a spreadsheet program and save it as .xlsx"
+	default:
+		return "it is not an .xlsx workbook"
+	}
+}
+
+// looksText reports whether b is mostly printable UTF-8 text.
+func looksText(b []byte) bool {
+	if !utf8.Valid(b) && !utf8.Valid(b[:max(0, len(b)-4)]) {
+		return false
+	}
+	ctl := 0
+	for _, c := range b {
+		if c < 0x20 && c != '\n' && c != '\r' && c != '\t' {
+			ctl++
+		}
+	}
+	return ctl == 0
+}
+
+// headBuffer keeps the first max bytes written to it.
+type headBuffer struct {
+	b   []byte
+	max int
+}
+
+func (h *headBuffer) Write(p []byte) (int, error) {
+	if room := h.max - len(h.b); room > 0 {
+		h.b = append(h.b, p[:min(room, len(p))]...)
+	}
+	return len(p), nil
+}
+
+func sizeText(n int64) string {
+	switch {
+	case n >= 1<<20:
+		return fmt.Sprintf("%.1f MiB", float64(n)/(1<<20))
+	case n >= 1<<10:
+		return fmt.Sprintf("%.1f KiB", float64(n)/(1<<10))
+	}
+	return fmt.Sprintf("%d bytes", n)
+}
+
+func plainOSError(err error) string {
+	var pe *os.PathError
+	if errors.As(err, &pe) {
+		return pe.Err.Error()
+	}
+	return err.Error()
+}
+
+// short cuts s to at most n runes, marking the cut.
+func short(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	return string(r[:n]) + "…"
+}
+
+// rawRow is one non-blank data row of a table sheet.
+type rawRow struct {
+	Row    int
+	Cells  []string
+	Hidden bool
+}
+
+// table is one table sheet as read: its header and its non-blank data rows.
+type table struct {
+	Sheet     string // contract name
+	Actual    string // name in the workbook
+	Present   bool
+	HeaderRow int                 // 0 when no header was found
+	Cols      map[int]HeaderMatch // by 0-based column index
+	Index     map[string]int      // column name -> index (first occurrence)
+	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
+	Missing   []Problem           // missing required columns (reject every row)
+	Rows      []rawRow
+	Problems  []Problem // sheet and header problems
+}
+
+// reader holds one open workbook while it is read.
+type reader struct {
+	f        *excelize.File
+	opts     ReadOptions
+	date1904 bool
+	sheets   map[string]string // normalised name -> actual
+}
+
+// helperSheets are sheet names a template or a spreadsheet program may add that
+// are not survey data; they are ignored without a warning.
+func helperSheets() map[string]bool {
+	return map[string]bool{"lists": true, "help": true, "read me": true, "readme": true, "instructions": true, "about": true}
+}
+
+func (r *reader) read() *Survey {
+	s := &Survey{}
+	if p, err := r.f.GetWorkbookProps(); err == nil && p.Date1904 != nil {
+		r.date1904 = *p.Date1904
+	}
+	r.sheets = map[string]string{}
+	known := map[string]bool{}
+	for _, n := range append(Sheets(), SheetChanges) {
+		known[NormalizeName(n)] = true
+	}
+	for _, name := range r.f.GetSheetList() {
+		n := NormalizeName(name)
+		if _, dup := r.sheets[n]; dup {
+			continue
+		}
+		r.sheets[n] = name
+		if !known[n] && !helperSheets()[n] {
+			s.Problems = append(s.Problems, Problem{Sheet: name, Severity: Warning,
+				Message: fmt.Sprintf("sheet %q is not part of the survey and is not read", short(name, 60)),
+				Fix:     "rename it to one of Site, Atmospheres, Stations, Objects, Materials, Changes if it holds survey data"})
+		}
+		if known[n] {
+			if vis, err := r.f.GetSheetVisible(name); err == nil && !vis {
+				s.Problems = append(s.Problems, Problem{Sheet: contractSheetName(n), Severity: Warning,
+					Message: "the sheet is hidden; it is read like any other"})
+			}
+		}
+	}
+	site := r.readSite(s)
+	tables := map[string]*table{}
+	for _, sh := range []string{SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials, SheetChanges} {
+		tables[sh] = r.readTable(sh)
+	}
+	validate(s, site, tables)
+	return s
+}
+
+// contractSheetName returns the contract spelling of a normalised sheet name.
+func contractSheetName(n string) string {
+	for _, sh := range append(Sheets(), SheetChanges) {
+		if NormalizeName(sh) == n {
+			return sh
+		}
+	}
+	return n
+}
+
+// required columns per table sheet (their absence rejects every row).
+func requiredColumns(sheet string) []string {
+	switch sheet {
+	case SheetAtmospheres:
+		return []string{"ID", "Kind"}
+	case SheetStations:
+		return []string{"ID"}
+	case SheetObjects:
+		return []string{"ID", "Station", "Kind"}
+	case SheetMaterials:
+		return []string{"Name"}
+	case SheetChanges:
+		return []string{"Change", "Value"}
+	}
+	return nil
+}
+
+// headerScanRows is how many rows from the top may hold the header (a title
+// row or two above it are allowed).
+const headerScanRows = 10
+
+// streamRows calls fn for every row of a sheet with its 1-based number and its
+// raw cell values (numbers unformatted; formulas give their cached value).
+func (r *reader) streamRows(actual string, fn func(row int, cells []string, hidden bool) bool) error {
+	rows, err := r.f.Rows(actual)
+	if err != nil {
+		return err
+	}
+	defer rows.Close()
+	n := 0
+	for rows.Next() {
+		n++
+		cells, err := rows.Columns(excelize.Options{RawCellValue: true})
+		if err != nil {
+			return err
+		}
+		if !fn(n, cells, rows.GetRowOpts().Hidden) {
+			break
+		}
+	}
+	return rows.Error()
+}
+
+func blankRow(cells []string) bool {
+	for _, c := range cells {
+		if strings.TrimSpace(c) != "" {
+			return false
+		}
+	}
+	return true
+}
+
+// readTable reads a table sheet: finds the header row (the first row within
+// the first headerScanRows rows in which at least two cells, or every column
+// of a sheet with fewer, match the contract's columns), matches its headers,
+// and collects the non-blank rows below it.
+func (r *reader) readTable(sheet string) *table {
+	t := &table{Sheet: sheet, Cols: map[int]HeaderMatch{}, Index: map[string]int{}, BadUnit: map[string]Problem{}}
+	actual, ok := r.sheets[NormalizeName(sheet)]
+	if !ok {
+		return t
+	}
+	t.Present, t.Actual = true, actual
+	cols := SheetColumns(sheet)
+	need := min(2, len(cols))
+	var above []int
+	limited := false
+	err := r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+		if t.HeaderRow == 0 {
+			if blankRow(cells) {
+				return row < headerScanRows
+			}
+			hits := 0
+			for _, c := range cells {
+				if _, ok, _ := MatchHeader(c, cols); ok {
+					hits++
+				}
+			}
+			if hits >= need {
+				t.HeaderRow = row
+				r.matchHeaderRow(t, cols, cells)
+				return true
+			}
+			above = append(above, row)
+			return row < headerScanRows
+		}
+		if blankRow(cells) {
+			return true
+		}
+		if len(t.Rows) >= r.opts.MaxRows {
+			limited = true
+			return false
+		}
+		t.Rows = append(t.Rows, rawRow{Row: row, Cells: cells, Hidden: hidden})
+		return true
+	})
+	if err != nil {
+		t.Problems = append(t.Problems, Problem{Sheet: sheet, Severity: Error, Err: err,
+			Message: "the sheet cannot be read to its end (" + short(err.Error(), 100) + "); rows after the fault are not read",
+			Fix:     "open the workbook in a spreadsheet program and save it again"})
+	}
+	if limited {
+		t.Problems = append(t.Problems, Problem{Sheet: sheet, Severity: Error,
+			Message: fmt.Sprintf("the sheet has more than %d rows; rows after that are not read", r.opts.MaxRows),
+			Fix:     "split the survey into several workbooks"})
+	}
+	if t.HeaderRow == 0 {
+		if len(above) > 0 {
+			t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: above[0], Severity: Error, Err: ErrMissingColumn,
+				Message: fmt.Sprintf("no header row found in the first %d rows (a header names at least two columns such as %s)", headerScanRows, strings.Join(requiredColumns(sheet), ", ")),
+				Fix:     "put the header row of the template above the data"})
+			// Every non-blank row is read and rejected: nothing is lost.
+			_ = r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+				if !blankRow(cells) {
+					if len(t.Rows) >= r.opts.MaxRows {
+						return false
+					}
+					t.Rows = append(t.Rows, rawRow{Row: row, Cells: cells, Hidden: hidden})
+				}
+				return true
+			})
+			t.Missing = append(t.Missing, t.Problems[len(t.Problems)-1])
+		}
+		return t
+	}
+	if len(above) > 0 {
+		t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: above[0], Severity: Warning,
+			Message: fmt.Sprintf("rows above the header (row %d) are taken as a title and not read as data", t.HeaderRow)})
+	}
+	return t
+}
+
+// matchHeaderRow matches every header cell of a sheet.
+func (r *reader) matchHeaderRow(t *table, cols []Column, cells []string) {
+	row := t.HeaderRow
+	for i, c := range cells {
+		if strings.TrimSpace(c) == "" {
+			continue
+		}
+		letter := ColumnLetter(i)
+		m, ok, err := MatchHeader(c, cols)
+		if !ok {
+			fix := ""
+			if near := Nearest(splitName(c), columnNames(cols)); near != "" {
+				fix = fmt.Sprintf("did you mean %q?", near)
+			}
+			t.Problems = append(t.Problems, Problem{Sheet: t.Sheet, Row: row, Column: letter, Severity: Warning, Err: ErrUnknownColumn,
+				Message: fmt.Sprintf("column %q is not part of the survey and is not read", short(strings.TrimSpace(c), 60)), Fix: fix})
+			continue
+		}
+		if first, dup := t.Index[m.Column.Name]; dup {
+			t.Problems = append(t.Problems, Problem{Sheet: t.Sheet, Row: row, Column: letter, Field: m.Column.Name, Severity: Error, Err: ErrDuplicateColumn,
+				Message: fmt.Sprintf("column %s appears twice (%s and %s); only %s is read", m.Column.Name, ColumnLetter(first), letter, ColumnLetter(first)),
+				Fix:     "delete or rename one of the two columns"})
+			continue
+		}
+		if err != nil {
+			sev := Error
+			if m.Column.Dim == Text || m.Column.Dim == Date || m.Column.Dim == Dimensionless {
+				sev = Warning
+			}
+			p := Problem{Sheet: t.Sheet, Row: row, Column: letter, Field: m.Column.Name, Severity: sev, Err: err,
+				Message: strings.TrimPrefix(err.Error(), ErrHeaderUnit.Error()+": "),
+				Fix:     fmt.Sprintf("write the header as %q", m.Column.Header())}
+			t.Problems = append(t.Problems, p)
+			if sev == Error {
+				t.BadUnit[m.Column.Name] = p
+			}
+		}
+		t.Cols[i] = m
+		t.Index[m.Column.Name] = i
+	}
+	for _, name := range requiredColumns(t.Sheet) {
+		if _, ok := t.Index[name]; !ok {
+			p := Problem{Sheet: t.Sheet, Row: row, Field: name, Severity: Error, Err: ErrMissingColumn,
+				Message: fmt.Sprintf("the header has no %s column, so no row of the sheet can be read", name),
+				Fix:     fmt.Sprintf("add a column headed %q", name)}
+			t.Problems = append(t.Problems, p)
+			t.Missing = append(t.Missing, p)
+		}
+	}
+}
+
+// splitName returns the name part of a header ("Feild [kV/m]" -> "Feild").
+func splitName(h string) string {
+	n, _, _ := splitHeader(h)
+	return n
+}
+
+// cell returns the trimmed text of a row's cell in column name and its A1 reference.
+func (t *table) cell(rr rawRow, name string) (string, string, bool) {
+	i, ok := t.Index[name]
+	if !ok {
+		return "", "", false
+	}
+	ref := fmt.Sprintf("%s%d", ColumnLetter(i), rr.Row)
+	if i >= len(rr.Cells) {
+		return "", ref, true
+	}
+	return strings.TrimSpace(rr.Cells[i]), ref, true
+}

@@ -1,0 +1,565 @@
+package inventory
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"unicode"
+	"unicode/utf8"
+)
+
+// Sentinel errors of cell parsing, usable with errors.Is on a *QuantityError
+// or on a Problem that wraps one.
+var (
+	// ErrUnknownUnit: the unit written in a cell or header is not one the survey knows.
+	ErrUnknownUnit = errors.New("unknown unit")
+	// ErrWrongDimension: the unit is known but measures something else than the column.
+	ErrWrongDimension = errors.New("unit of the wrong dimension")
+	// ErrNotANumber: the cell holds text that is not a number.
+	ErrNotANumber = errors.New("not a number")
+	// ErrNotFinite: the cell holds NaN, Inf, or a number too large or too small to use.
+	ErrNotFinite = errors.New("not a finite number")
+	// ErrUncertainty: the ± part of a cell is not a usable relative uncertainty.
+	ErrUncertainty = errors.New("unusable uncertainty")
+)
+
+// String returns the dimension's name in words ("electric field").
+func (d Dimension) String() string {
+	switch d {
+	case Text:
+		return "text"
+	case Dimensionless:
+		return "plain number"
+	case Length:
+		return "length"
+	case ElectricField:
+		return "electric field"
+	case Potential:
+		return "potential"
+	case Speed:
+		return "speed"
+	case MassFlow:
+		return "mass flow"
+	case ChargeToMass:
+		return "charge-to-mass ratio"
+	case Current:
+		return "current"
+	case Time:
+		return "time"
+	case Resistance:
+		return "resistance"
+	case Resistivity:
+		return "resistivity"
+	case Capacitance:
+		return "capacitance"
+	case Energy:
+		return "energy"
+	case Percent:
+		return "percentage"
+	case Temperature:
+		return "temperature"
+	case Conductivity:
+		return "conductivity"
+	case Slope:
+		return "humidity slope"
+	case Date:
+		return "date"
+	}
+	return fmt.Sprintf("dimension(%d)", uint8(d))
+}
+
+// SIUnit returns the symbol of the SI unit values of dimension d are stored in
+// ("V/m", "Ω"); "" for plain numbers, text and dates. Percent stays "%" and
+// temperature is stored in kelvin.
+func SIUnit(d Dimension) string {
+	switch d {
+	case Length:
+		return "m"
+	case ElectricField:
+		return "V/m"
+	case Potential:
+		return "V"
+	case Speed:
+		return "m/s"
+	case MassFlow:
+		return "kg/s"
+	case ChargeToMass:
+		return "C/kg"
+	case Current:
+		return "A"
+	case Time:
+		return "s"
+	case Resistance:
+		return "Ω"
+	case Resistivity:
+		return "Ω·m"
+	case Capacitance:
+		return "F"
+	case Energy:
+		return "J"
+	case Percent:
+		return "%"
+	case Temperature:
+		return "K"
+	case Conductivity:
+		return "S/m"
+	}
+	return ""
+}
+
+// Unit is a parsed unit: SI value = number * Factor + Offset.
+type Unit struct {
+	Symbol string // as written (trimmed)
+	Dim    Dimension
+	Factor float64
+	Offset float64 // only temperature (°C to K) has one
+}
+
+// baseUnit is a unit symbol before an SI prefix is applied.
+type baseUnit struct {
+	dim      Dimension
+	factor   float64
+	offset   float64
+	prefixed bool // an SI prefix may stand before it
+}
+
+// baseUnits returns the unit symbols the survey knows, before prefixes.
+// A function rather than a package variable: no package-level mutable state.
+func baseUnits() map[string]baseUnit {
+	return map[string]baseUnit{
+		// length
+		"m": {Length, 1, 0, true},
+		// electric field
+		"V/m":  {ElectricField, 1, 0, true},
+		"V/cm": {ElectricField, 100, 0, true},
+		"V/mm": {ElectricField, 1000, 0, true},
+		// potential
+		"V": {Potential, 1, 0, true},
+		// speed
+		"m/s":   {Speed, 1, 0, true},
+		"m/min": {Speed, 1.0 / 60, 0, true},
+		"m/h":   {Speed, 1.0 / 3600, 0, true},
+		// mass flow
+		"g/s":   {MassFlow, 1e-3, 0, true},
+		"g/min": {MassFlow, 1e-3 / 60, 0, true},
+		"g/h":   {MassFlow, 1e-3 / 3600, 0, true},
+		"t/h":   {MassFlow, 1000.0 / 3600, 0, false},
+		"t/min": {MassFlow, 1000.0 / 60, 0, false},
+		// charge-to-mass
+		"C/kg": {ChargeToMass, 1, 0, true},
+		"C/g":  {ChargeToMass, 1e3, 0, true},
+		// current
+		"A": {Current, 1, 0, true},
+		// time
+		"s":   {Time, 1, 0, true},
+		"sec": {Time, 1, 0, false},
+		"min": {Time, 60, 0, false},
+		"h":   {Time, 3600, 0, false},
+		"hr":  {Time, 3600, 0, false},
+		// resistance and surface resistivity (ohm per square)
+		"Ω":              {Resistance, 1, 0, true},
+		"ohm":            {Resistance, 1, 0, true},
+		"ohms":           {Resistance, 1, 0, true},
+		"Ω/sq":           {Resistance, 1, 0, true},
+		"Ω/□":            {Resistance, 1, 0, true},
+		"ohm/sq":         {Resistance, 1, 0, true},
+		"ohms/sq":        {Resistance, 1, 0, true},
+		"ohm/square":     {Resistance, 1, 0, true},
+		"ohm per square": {Resistance, 1, 0, true},
+		// volume resistivity
+		"Ω·m":    {Resistivity, 1, 0, true},
+		"Ω m":    {Resistivity, 1, 0, true},
+		"Ωm":     {Resistivity, 1, 0, true},
+		"Ω.m":    {Resistivity, 1, 0, true},
+		"ohm m":  {Resistivity, 1, 0, true},
+		"ohm·m":  {Resistivity, 1, 0, true},
+		"ohm.m":  {Resistivity, 1, 0, true},
+		"ohm-m":  {Resistivity, 1, 0, true},
+		"Ω·cm":   {Resistivity, 0.01, 0, true},
+		"Ω cm":   {Resistivity, 0.01, 0, true},
+		"Ωcm":    {Resistivity, 0.01, 0, true},
+		"ohm cm": {Resistivity, 0.01, 0, true},
+		"ohm·cm": {Resistivity, 0.01, 0, true},
+		"ohm.cm": {Resistivity, 0.01, 0, true},
+		"ohm-cm": {Resistivity, 0.01, 0, true},
+		// capacitance
+		"F": {Capacitance, 1, 0, true},
+		// energy
+		"J": {Energy, 1, 0, true},
+		// percent
+		"%":    {Percent, 1, 0, false},
+		"%RH":  {Percent, 1, 0, false},
+		"% RH": {Percent, 1, 0, false},
+		// temperature
+		"°C":   {Temperature, 1, 273.15, false},
+		"℃":    {Temperature, 1, 273.15, false},
+		"C":    {Temperature, 1, 273.15, false},
+		"degC": {Temperature, 1, 273.15, false},
+		"K":    {Temperature, 1, 0, false},
+		// conductivity
+		"S/m":  {Conductivity, 1, 0, true},
+		"S/cm": {Conductivity, 100, 0, true},
+		// humidity slope: only the header's own wording
+		"decades per 10 %RH":  {Slope, 1, 0, false},
+		"decades per 10 % RH": {Slope, 1, 0, false},
+		"decades/10 %RH":      {Slope, 1, 0, false},
+		"dec/10%RH":           {Slope, 1, 0, false},
+	}
+}
+
+// siPrefixes maps an SI prefix to its factor (µ may be written u; K is taken as k).
+func siPrefix(p string) (float64, bool) {
+	switch p {
+	case "p":
+		return 1e-12, true
+	case "n":
+		return 1e-9, true
+	case "µ", "μ", "u":
+		return 1e-6, true
+	case "m":
+		return 1e-3, true
+	case "c":
+		return 1e-2, true
+	case "k", "K":
+		return 1e3, true
+	case "M":
+		return 1e6, true
+	case "G":
+		return 1e9, true
+	case "T":
+		return 1e12, true
+	}
+	return 0, false
+}
+
+// normUnitSpaces trims a unit and writes its inner spaces as single spaces.
+func normUnitSpaces(s string) string {
+	return strings.Join(strings.Fields(s), " ")
+}
+
+// lookupUnits returns every reading of the unit symbol (an exact base unit, or
+// an SI prefix before one), case-sensitive matches first, then case-insensitive
+// ones for the base ("kv/m", "OHM"). "c" (centi) is only accepted before m.
+func lookupUnits(symbol string) []Unit {
+	s := normUnitSpaces(symbol)
+	// "Ω·m" is also typed with a middle dot look-alike or a space; "ohm m" handled by the table.
+	s = strings.ReplaceAll(s, "⋅", "·")
+	s = strings.ReplaceAll(s, "Ω", "Ω") // ohm sign U+2126 to Greek omega
+	bases := baseUnits()
+	var out []Unit
+	add := func(base string, b baseUnit, pf float64) {
+		out = append(out, Unit{Symbol: strings.TrimSpace(symbol), Dim: b.dim, Factor: b.factor * pf, Offset: b.offset})
+	}
+	try := func(fold bool) {
+		for name, b := range bases {
+			if (fold && strings.EqualFold(name, s)) || (!fold && name == s) {
+				add(name, b, 1)
+			}
+		}
+		if s == "" {
+			return
+		}
+		_, size := utf8.DecodeRuneInString(s)
+		p, rest := s[:size], s[size:]
+		pf, ok := siPrefix(p)
+		if !ok || rest == "" {
+			return
+		}
+		for name, b := range bases {
+			if !b.prefixed {
+				continue
+			}
+			if p == "c" && !strings.HasPrefix(name, "m") {
+				continue
+			}
+			if (fold && strings.EqualFold(name, rest)) || (!fold && name == rest) {
+				add(name, b, pf)
+			}
+		}
+	}
+	try(false)
+	if len(out) == 0 {
+		try(true)
+	}
+	return out
+}
+
+// ParseUnit parses a unit symbol and checks it has dimension want. It returns
+// ErrUnknownUnit or ErrWrongDimension (wrapped in a *QuantityError) otherwise.
+func ParseUnit(symbol string, want Dimension) (Unit, error) {
+	us := lookupUnits(symbol)
+	if len(us) == 0 {
+		return Unit{}, &QuantityError{Text: symbol, Unit: symbol, Want: want, Err: ErrUnknownUnit}
+	}
+	for _, u := range us {
+		if u.Dim == want {
+			return u, nil
+		}
+	}
+	return Unit{}, &QuantityError{Text: symbol, Unit: symbol, UnitDim: us[0].Dim, Want: want, Err: ErrWrongDimension}
+}
+
+// QuantityError says why a cell could not be read as a quantity. It wraps one
+// of the sentinel errors (ErrUnknownUnit, ErrWrongDimension, ErrNotANumber,
+// ErrNotFinite, ErrUncertainty).
+type QuantityError struct {
+	Text    string    // the cell text
+	Unit    string    // the unit as written, when the problem is the unit
+	UnitDim Dimension // dimension of that unit (ErrWrongDimension)
+	Want    Dimension // dimension the column needs
+	Err     error
+}
+
+// Error describes the problem without the column's name.
+func (e *QuantityError) Error() string { return e.Describe("") }
+
+// Unwrap returns the sentinel.
+func (e *QuantityError) Unwrap() error { return e.Err }
+
+// Describe words the problem for a surveyor, naming the column when given:
+// `"150 pF" has the dimension of capacitance but column Resistance to earth
+// needs a resistance (Ω)`.
+func (e *QuantityError) Describe(column string) string {
+	col := "the column"
+	if column != "" {
+		col = "column " + column
+	}
+	want := e.Want.String()
+	if u := SIUnit(e.Want); u != "" {
+		want += " (" + u + ")"
+	}
+	switch {
+	case errors.Is(e.Err, ErrWrongDimension) && e.Want == Dimensionless:
+		return fmt.Sprintf("%q has a unit of %s but %s takes a plain number", e.Text, e.UnitDim, col)
+	case errors.Is(e.Err, ErrWrongDimension):
+		return fmt.Sprintf("%q has the dimension of %s but %s needs a %s", e.Text, e.UnitDim, col, want)
+	case errors.Is(e.Err, ErrUnknownUnit):
+		return fmt.Sprintf("%q: unit %q is not known; %s needs a %s", e.Text, e.Unit, col, want)
+	case errors.Is(e.Err, ErrNotFinite):
+		return fmt.Sprintf("%q is not a finite number that can be a reading", e.Text)
+	case errors.Is(e.Err, ErrUncertainty):
+		return fmt.Sprintf("%q: the ± part must be a relative uncertainty in %% (e.g. ±10%%)", e.Text)
+	default:
+		return fmt.Sprintf("%q is not a number", e.Text)
+	}
+}
+
+// Parsed is the result of reading one numeric cell.
+type Parsed struct {
+	Value          float64 // SI value (percent for Percent, kelvin for Temperature); 0 when not Known
+	Known          bool    // false: blank or a "not measured" word
+	RelUncertainty float64 // from a "±10%" suffix; 0 when none
+	Number         float64 // the number as written, before unit conversion
+	Unit           string  // the unit written in the cell, "" when the header's applied
+	Note           string  // a remark for a warning ("n/a" read as not measured), "" when none
+}
+
+// notMeasuredWords are the texts read as "not measured" in numeric columns.
+func isNotMeasured(s string) bool {
+	switch strings.ToLower(s) {
+	case "n/a", "na", "n.a.", "n.a", "-", "--", "–", "—", "?", "none", "not measured", "nil":
+		return true
+	}
+	return false
+}
+
+// ParseQuantity reads a numeric cell of a column of dimension dim whose header
+// gives headerUnit ("" for SI or a plain number). The cell may carry its own
+// unit ("2.5 MV/m", "150 pF", "1 GΩ"), which wins over the header's and must
+// have the same dimension; a relative uncertainty suffix ("±10%", "+/-10 %");
+// a decimal comma when it holds no other comma; exponents (1e9, 1.5E-3).
+// Blank gives Known false with no note; "n/a", "na", "-", "?", "none" give
+// Known false with a Note. The value is returned in SI units (percent stays
+// percent, °C becomes kelvin). Errors are *QuantityError wrapping a sentinel.
+func ParseQuantity(text, headerUnit string, dim Dimension) (Parsed, error) {
+	s := strings.TrimSpace(strings.ReplaceAll(text, "\u00a0", " "))
+	if s == "" {
+		return Parsed{}, nil
+	}
+	if isNotMeasured(s) {
+		return Parsed{Note: fmt.Sprintf("%q read as not measured", s)}, nil
+	}
+	qerr := func(err error) error { return &QuantityError{Text: s, Want: dim, Err: err} }
+
+	// Uncertainty suffix.
+	var rel float64
+	if i, w := uncertaintyMark(s); i >= 0 {
+		u := strings.TrimSpace(s[i+w:])
+		s2 := strings.TrimSpace(s[:i])
+		if !strings.HasSuffix(u, "%") {
+			return Parsed{}, qerr(ErrUncertainty)
+		}
+		n, err := parseNumber(strings.TrimSpace(strings.TrimSuffix(u, "%")))
+		if err != nil || n < 0 || n > 1000 {
+			return Parsed{}, qerr(ErrUncertainty)
+		}
+		rel = n / 100
+		s = s2
+	}
+
+	numText, unitText := splitNumberUnit(s)
+	if numText == "" {
+		low := strings.ToLower(strings.TrimLeft(s, "+-"))
+		if strings.HasPrefix(low, "nan") || strings.HasPrefix(low, "inf") || strings.HasPrefix(low, "∞") {
+			return Parsed{}, qerr(ErrNotFinite)
+		}
+		return Parsed{}, qerr(ErrNotANumber)
+	}
+	n, err := parseNumber(numText)
+	if err != nil {
+		if errors.Is(err, ErrNotFinite) {
+			return Parsed{}, qerr(ErrNotFinite)
+		}
+		return Parsed{}, qerr(ErrNotANumber)
+	}
+	p := Parsed{Known: true, RelUncertainty: rel, Number: n}
+	var u Unit
+	switch {
+	case unitText != "":
+		us := lookupUnits(unitText)
+		if len(us) == 0 && isDigit(unitText[0]) {
+			return Parsed{}, qerr(ErrNotANumber) // "1 234": a space inside the number
+		}
+		if len(us) == 0 {
+			// A trailing word that is no unit: "12 approx" is text, not a number.
+			if !looksLikeUnit(unitText) {
+				return Parsed{}, qerr(ErrNotANumber)
+			}
+			return Parsed{}, &QuantityError{Text: s, Unit: unitText, Want: dim, Err: ErrUnknownUnit}
+		}
+		found := false
+		for _, c := range us {
+			if c.Dim == dim {
+				u, found = c, true
+				break
+			}
+		}
+		if !found {
+			return Parsed{}, &QuantityError{Text: s, Unit: unitText, UnitDim: us[0].Dim, Want: dim, Err: ErrWrongDimension}
+		}
+		p.Unit = strings.TrimSpace(unitText)
+	case headerUnit != "" && dim != Dimensionless && dim != Slope:
+		hu, err := ParseUnit(headerUnit, dim)
+		if err != nil {
+			return Parsed{}, err
+		}
+		u = hu
+	default:
+		u = Unit{Dim: dim, Factor: 1}
+	}
+	v := n*u.Factor + u.Offset
+	if math.IsInf(v, 0) || math.IsNaN(v) {
+		return Parsed{}, qerr(ErrNotFinite)
+	}
+	if v == 0 {
+		v = 0 // no negative zero
+	}
+	if dim == Resistance && strings.HasPrefix(p.Unit, "m") && !strings.HasPrefix(p.Unit, "min") {
+		p.Note = fmt.Sprintf("%q read as milliohm; write M for megaohm", s)
+	}
+	p.Value = v
+	return p, nil
+}
+
+// uncertaintyMark finds "±", "+/-" or "+-" in s and returns its index and width, or -1.
+func uncertaintyMark(s string) (int, int) {
+	for _, m := range []string{"±", "+/-", "+-"} {
+		// "+-" must not be the sign of an exponent ("1e+-3" is not valid anyway).
+		if i := strings.Index(s, m); i > 0 {
+			return i, len(m)
+		}
+	}
+	return -1, 0
+}
+
+// looksLikeUnit reports whether a trailing text could be meant as a unit
+// (short, no spaces beyond those units have).
+func looksLikeUnit(s string) bool {
+	return utf8.RuneCountInString(s) <= 12
+}
+
+// splitNumberUnit splits "1.5e+6 ohm" into "1.5e+6" and "ohm". The number part
+// is a sign, digits, '.' or ',', and an exponent; "" when s does not start with one.
+func splitNumberUnit(s string) (string, string) {
+	i := 0
+	if i < len(s) && (s[i] == '+' || s[i] == '-') {
+		i++
+	} else if strings.HasPrefix(s, "−") { // minus sign U+2212
+		s = "-" + s[len("−"):]
+		i++
+	}
+	start := i
+	digits := 0
+	for i < len(s) && (isDigit(s[i]) || s[i] == '.' || s[i] == ',') {
+		if isDigit(s[i]) {
+			digits++
+		}
+		i++
+	}
+	if digits == 0 || i == start {
+		return "", s
+	}
+	// exponent
+	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
+		j := i + 1
+		if j < len(s) && (s[j] == '+' || s[j] == '-') {
+			j++
+		}
+		k := j
+		for k < len(s) && isDigit(s[k]) {
+			k++
+		}
+		if k > j {
+			i = k
+		}
+	}
+	return s[:i], strings.TrimSpace(s[i:])
+}
+
+func isDigit(b byte) bool { return b >= '0' && b <= '9' }
+
+// parseNumber parses a number written with a decimal point, or a decimal comma
+// when it is the only comma and there is no point.
+func parseNumber(t string) (float64, error) {
+	if t == "" {
+		return 0, ErrNotANumber
+	}
+	for _, r := range t {
+		if !(unicode.IsDigit(r) || strings.ContainsRune("+-.,eE", r)) {
+			return 0, ErrNotANumber
+		}
+	}
+	if c := strings.Count(t, ","); c > 0 {
+		if c > 1 || strings.Contains(t, ".") {
+			return 0, ErrNotANumber
+		}
+		t = strings.Replace(t, ",", ".", 1)
+	}
+	if strings.Count(t, ".") > 1 {
+		return 0, ErrNotANumber
+	}
+	v, err := strconv.ParseFloat(t, 64)
+	if err != nil {
+		var ne *strconv.NumError
+		if errors.As(err, &ne) && errors.Is(ne.Err, strconv.ErrRange) {
+			return 0, ErrNotFinite
+		}
+		return 0, ErrNotANumber
+	}
+	if math.IsInf(v, 0) || math.IsNaN(v) {
+		return 0, ErrNotFinite
+	}
+	return v, nil
+}
+
+// FormatSI writes an SI value with its SI unit ("1.2e+04 V/m") so that
+// ParseQuantity(FormatSI(v, d), "", d) gives v back (temperature is written in K).
+func FormatSI(v float64, d Dimension) string {
+	s := strconv.FormatFloat(v, 'g', -1, 64)
+	if u := SIUnit(d); u != "" {
+		return s + " " + u
+	}
+	return s
+}

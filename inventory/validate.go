@@ -1,0 +1,1315 @@
+package inventory
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+	"time"
+
+	"github.com/xuri/excelize/v2"
+)
+
+// Sentinels of validation problems (Problem.Err wraps one of them, or a
+// *QuantityError, or one of the header sentinels).
+var (
+	// ErrRequired: a value the row needs is blank.
+	ErrRequired = errors.New("required value missing")
+	// ErrOutOfRange: a value is outside what is physically possible or plausible.
+	ErrOutOfRange = errors.New("value out of range")
+	// ErrUnitSlip: a reading exceeds what air can hold or a plant object can have: likely a unit slip.
+	ErrUnitSlip = errors.New("likely unit slip")
+	// ErrUnknownReference: an ID or name refers to nothing in the survey or the built-in lists.
+	ErrUnknownReference = errors.New("unknown reference")
+	// ErrRejectedReference: a row refers to a row that was itself rejected.
+	ErrRejectedReference = errors.New("reference to a rejected row")
+	// ErrDuplicateID: an ID or name is used twice.
+	ErrDuplicateID = errors.New("duplicate ID")
+	// ErrNotInList: a value is not one of the allowed codes.
+	ErrNotInList = errors.New("value not in the list")
+	// ErrInconsistent: values of one row contradict each other.
+	ErrInconsistent = errors.New("inconsistent values")
+	// ErrMissingSheet: a sheet the survey needs is missing.
+	ErrMissingSheet = errors.New("missing sheet")
+)
+
+// Plausibility limits used by validation. Air breaks down at about 3 MV/m over
+// centimetre gaps (reference section 3, AMS Glossary); the others are common
+// practice, no source: no plant object comes near them, so a value beyond is a
+// unit slip.
+const (
+	MaxAirField         = 3e6   // V/m
+	MaxSurfacePotential = 250e3 // V, common practice, no source
+	MaxCapacitance      = 1e-6  // F; a road tanker is about 1 nF (reference section 2)
+	MaxSize             = 100.0 // m for Length, Width, Diameter
+	MaxSpeed            = 50.0  // m/s; webs run up to a few tens of m/s
+	MaxParticleSize     = 0.1   // m (100 mm)
+	MaxMIE              = 10.0  // J; dust MIEs reach about 1 J
+	MaxChargingCurrent  = 1e-3  // A; industrial currents rarely exceed 100 µA (reference section 7)
+	ThinLayer           = 10e-3 // m; propagating brush possible on layers thinner than about 8-10 mm (reference section 3)
+)
+
+// rowState collects the problems of one input row.
+type rowState struct {
+	sheet  string
+	row    int
+	id     string
+	probs  []Problem // reported in Survey.Problems
+	shared []Problem // reasons reported once elsewhere (a header problem), listed in Rejected only
+}
+
+func (r *rowState) rejected() bool {
+	if len(r.shared) > 0 {
+		return true
+	}
+	for _, p := range r.probs {
+		if p.Severity == Error {
+			return true
+		}
+	}
+	return false
+}
+
+// validator holds the state of one validation pass.
+type validator struct {
+	s      *Survey
+	rows   map[string][]*rowState
+	tables map[string]*table
+}
+
+func (v *validator) newRow(sheet string, row int) *rowState {
+	r := &rowState{sheet: sheet, row: row}
+	v.rows[sheet] = append(v.rows[sheet], r)
+	return r
+}
+
+// field reads cells of one table row and records their problems.
+type field struct {
+	v  *validator
+	t  *table
+	rr rawRow
+	st *rowState
+}
+
+func (f *field) letter(name string) string {
+	if i, ok := f.t.Index[name]; ok {
+		return ColumnLetter(i)
+	}
+	return ""
+}
+
+func (f *field) idLetter() string {
+	for _, n := range []string{"ID", "Name", "Change"} {
+		if l := f.letter(n); l != "" {
+			return l
+		}
+	}
+	return ""
+}
+
+func (f *field) add(sev Severity, name string, err error, msg, fix string) {
+	f.st.probs = append(f.st.probs, Problem{Sheet: f.t.Sheet, Row: f.rr.Row, Column: f.letter(name), Field: name,
+		ID: f.st.id, Severity: sev, Message: msg, Fix: fix, Err: err})
+}
+
+func (f *field) errorf(name string, err error, fix, format string, args ...any) {
+	f.add(Error, name, err, fmt.Sprintf(format, args...), fix)
+}
+
+func (f *field) warnf(name string, err error, fix, format string, args ...any) {
+	f.add(Warning, name, err, fmt.Sprintf(format, args...), fix)
+}
+
+func (f *field) text(name string) string {
+	s, _, _ := f.t.cell(f.rr, name)
+	return s
+}
+
+// qty parses a numeric cell; the returned Parsed keeps the written number for suggestions.
+func (f *field) qty(name string) (Quantity, Parsed) {
+	text, ref, ok := f.t.cell(f.rr, name)
+	if !ok || text == "" {
+		return Quantity{Cell: ref}, Parsed{}
+	}
+	if p, bad := f.t.BadUnit[name]; bad {
+		f.st.shared = append(f.st.shared, p)
+		return Quantity{Cell: ref}, Parsed{}
+	}
+	m := f.t.Cols[f.t.Index[name]]
+	p, err := ParseQuantity(text, m.Unit, m.Column.Dim)
+	if err != nil {
+		msg, fix := err.Error(), ""
+		var qe *QuantityError
+		if errors.As(err, &qe) {
+			msg = qe.Describe(name)
+			fix = quantityFix(qe, m, f.t.Sheet)
+		}
+		f.errorf(name, err, fix, "%s", msg)
+		return Quantity{Cell: ref}, Parsed{}
+	}
+	if p.Note != "" {
+		f.warnf(name, nil, "", "%s", p.Note)
+	}
+	return Quantity{Value: p.Value, Known: p.Known, RelUncertainty: p.RelUncertainty, Cell: ref}, p
+}
+
+// quantityFix suggests how to repair a cell that did not parse.
+func quantityFix(qe *QuantityError, m HeaderMatch, sheet string) string {
+	unit := m.Unit
+	switch {
+	case errors.Is(qe, ErrWrongDimension):
+		var others []string
+		for _, c := range SheetColumns(sheet) {
+			if c.Dim == qe.UnitDim {
+				others = append(others, c.Name)
+			}
+		}
+		fix := fmt.Sprintf("write a %s", m.Column.Dim)
+		if unit != "" {
+			fix += fmt.Sprintf(" (a bare number is read in %s)", unit)
+		}
+		if len(others) > 0 {
+			fix += fmt.Sprintf(", or move the value to %s", strings.Join(others, " or "))
+		}
+		return fix
+	case errors.Is(qe, ErrUnknownUnit):
+		if unit != "" {
+			return fmt.Sprintf("write a unit such as %s, or a bare number in %s", unit, unit)
+		}
+		return "write a bare number"
+	case errors.Is(qe, ErrNotFinite):
+		return "enter the measured value, or leave the cell blank if it was not measured"
+	case errors.Is(qe, ErrUncertainty):
+		return "write the uncertainty as a percentage, e.g. 12 ±10%"
+	default:
+		return "enter a number (with a unit if not in the header's), or leave the cell blank if it was not measured"
+	}
+}
+
+// enumValue reads a code from a list, case-insensitively, with aliases; it
+// returns the canonical code, "" when blank, and records an error with the
+// nearest code when the value is not in the list.
+func (f *field) enumValue(name string, allowed []string, aliases map[string]string) string {
+	raw := f.text(name)
+	if raw == "" {
+		return ""
+	}
+	n := NormalizeName(raw)
+	for _, a := range allowed {
+		if NormalizeName(a) == n {
+			return a
+		}
+	}
+	if a, ok := aliases[n]; ok {
+		return a
+	}
+	fix := "use one of: " + strings.Join(allowed, ", ")
+	if near := Nearest(raw, allowed); near != "" {
+		fix = fmt.Sprintf("did you mean %q? (%s)", near, fix)
+	}
+	f.errorf(name, ErrNotInList, fix, "%q is not one of the %s values", short(raw, 60), name)
+	return ""
+}
+
+// positive records an error when a known quantity is not above zero.
+func (f *field) positive(name string, q Quantity) {
+	if q.Known && q.Value <= 0 {
+		f.errorf(name, ErrOutOfRange, "enter the measured value, or leave the cell blank if it was not measured",
+			"%s must be greater than zero", name)
+	}
+}
+
+func (f *field) nonNegative(name string, q Quantity) {
+	if q.Known && q.Value < 0 {
+		f.errorf(name, ErrOutOfRange, "enter the value without a sign", "%s cannot be negative", name)
+	}
+}
+
+// slip records a likely unit slip when |value| exceeds limit (in SI), with a
+// suggested reading that stays within the limit.
+func (f *field) slip(name string, q Quantity, p Parsed, limit float64, why string) {
+	if !q.Known || math.Abs(q.Value) <= limit {
+		return
+	}
+	m := f.t.Cols[f.t.Index[name]]
+	fix := "check the unit"
+	if s := suggestReading(p, m, limit); s != "" {
+		fix = fmt.Sprintf("check the unit: did you mean %s?", s)
+	}
+	f.errorf(name, ErrUnitSlip, fix, "%s %s is %s; a likely unit slip", name, strings.TrimSpace(f.text(name)), why)
+}
+
+// suggestReading proposes the written number in another unit of the column's
+// dimension that brings it within limit: the column's default unit first, then
+// the number divided by 1000 or 1e6 in the unit written.
+func suggestReading(p Parsed, m HeaderMatch, limit float64) string {
+	num := p.Number
+	fmtNum := func(x float64) string { return strconv.FormatFloat(x, 'g', 4, 64) }
+	type cand struct {
+		num  float64
+		unit string
+	}
+	written := p.Unit
+	if written == "" {
+		written = m.Unit
+	}
+	var cands []cand
+	if m.Column.Unit != "" && p.Unit != "" {
+		cands = append(cands, cand{num, m.Column.Unit})
+	}
+	for _, u := range smallerUnits(m.Column.Dim) {
+		cands = append(cands, cand{num, u})
+	}
+	cands = append(cands, cand{num / 1e3, written}, cand{num / 1e6, written})
+	for _, c := range cands {
+		u, err := ParseUnit(c.unit, m.Column.Dim)
+		if err != nil && c.unit != "" {
+			continue
+		}
+		factor := 1.0
+		if err == nil {
+			factor = u.Factor
+		}
+		if v := math.Abs(c.num * factor); v <= limit && v > 0 {
+			return strings.TrimSpace(fmtNum(c.num) + " " + c.unit)
+		}
+	}
+	return ""
+}
+
+// smallerUnits lists units a surveyor may have meant instead of the header's.
+func smallerUnits(d Dimension) []string {
+	switch d {
+	case ElectricField:
+		return []string{"kV/m", "V/m"}
+	case Potential:
+		return []string{"V"}
+	case Length:
+		return []string{"mm", "µm"}
+	case Speed:
+		return []string{"m/min"}
+	case Capacitance:
+		return []string{"pF"}
+	case Energy:
+		return []string{"mJ"}
+	}
+	return nil
+}
+
+// ---- the pass ----
+
+// validate turns the read sheets into the Survey: every row accepted or
+// rejected with its reasons, references resolved, problems sorted, counts kept.
+func validate(s *Survey, site *siteSheet, tables map[string]*table) {
+	v := &validator{s: s, rows: map[string][]*rowState{}, tables: tables}
+	for _, sh := range []string{SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials, SheetChanges} {
+		s.Problems = append(s.Problems, tables[sh].Problems...)
+	}
+	for _, sh := range []string{SheetStations, SheetObjects} {
+		if !tables[sh].Present {
+			s.Problems = append(s.Problems, Problem{Sheet: sh, Severity: Error, Err: ErrMissingSheet,
+				Message: fmt.Sprintf("the workbook has no %s sheet", sh), Fix: "add it from the template (sparkmargin template)"})
+		}
+	}
+	v.applySite(site)
+	mats := v.materials(tables[SheetMaterials])
+	atms := v.atmospheres(tables[SheetAtmospheres])
+	stations := v.stations(tables[SheetStations], atms)
+	objs := v.objects(tables[SheetObjects], stations, mats)
+	v.changes(tables[SheetChanges], stations, objs)
+	if t := tables[SheetObjects]; t.Present && t.HeaderRow > 0 && len(t.Rows) == 0 {
+		s.Problems = append(s.Problems, Problem{Sheet: SheetObjects, Row: t.HeaderRow, Severity: Warning,
+			Message: "the sheet has no object rows; nothing will be assessed"})
+	}
+	v.finish()
+}
+
+// finish moves row problems into the survey, builds Rejected and Counts, and sorts.
+func (v *validator) finish() {
+	s := v.s
+	order := []string{SheetSite, SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials}
+	if v.tables[SheetChanges].Present {
+		order = append(order, SheetChanges)
+	}
+	for _, sh := range order {
+		c := SheetCount{Sheet: sh}
+		for _, r := range v.rows[sh] {
+			s.Problems = append(s.Problems, r.probs...)
+			c.Read++
+			if r.rejected() {
+				c.Rejected++
+				rej := Rejected{Sheet: sh, Row: r.row, ID: r.id}
+				rej.Problems = append(rej.Problems, r.shared...)
+				for _, p := range r.probs {
+					if p.Severity == Error {
+						rej.Problems = append(rej.Problems, p)
+					}
+				}
+				s.Rejected = append(s.Rejected, rej)
+			} else {
+				c.Accepted++
+			}
+		}
+		s.Counts = append(s.Counts, c)
+	}
+	SortProblems(s.Problems)
+	sort.SliceStable(s.Rejected, func(i, j int) bool {
+		a, b := s.Rejected[i], s.Rejected[j]
+		if sheetRank(a.Sheet) != sheetRank(b.Sheet) {
+			return sheetRank(a.Sheet) < sheetRank(b.Sheet)
+		}
+		return a.Row < b.Row
+	})
+}
+
+func sheetRank(sh string) int {
+	for i, n := range append(Sheets(), SheetChanges) {
+		if n == sh {
+			return i
+		}
+	}
+	return 100
+}
+
+// SortProblems sorts problems in sheet (contract order, other sheets after by
+// name), row, column order; problems of one cell keep their order.
+func SortProblems(ps []Problem) {
+	sort.SliceStable(ps, func(i, j int) bool {
+		a, b := ps[i], ps[j]
+		if ra, rb := sheetRank(a.Sheet), sheetRank(b.Sheet); ra != rb {
+			return ra < rb
+		}
+		if a.Sheet != b.Sheet {
+			return a.Sheet < b.Sheet
+		}
+		if a.Row != b.Row {
+			return a.Row < b.Row
+		}
+		if len(a.Column) != len(b.Column) {
+			return len(a.Column) < len(b.Column)
+		}
+		return a.Column < b.Column
+	})
+}
+
+// unheaded warns once per column about values under no header.
+func (v *validator) unheaded(t *table, st *rowState, rr rawRow, seen map[int]bool) {
+	if t.HeaderRow == 0 {
+		return
+	}
+	for i, c := range rr.Cells {
+		if strings.TrimSpace(c) == "" || seen[i] {
+			continue
+		}
+		if _, ok := t.Cols[i]; ok {
+			continue
+		}
+		seen[i] = true
+		st.probs = append(st.probs, Problem{Sheet: t.Sheet, Row: rr.Row, Column: ColumnLetter(i), ID: st.id, Severity: Warning,
+			Message: "a value in a column without a known header is not read (this warning is given once per column)",
+			Fix:     "give the column a header from the template, or delete the value"})
+	}
+}
+
+// beginRow starts a table row: ID, hidden-row note, missing-column rejection.
+func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]bool) *field {
+	st := v.newRow(t.Sheet, rr.Row)
+	f := &field{v: v, t: t, rr: rr, st: st}
+	st.id = f.text(idCol)
+	st.shared = append(st.shared, t.Missing...)
+	if rr.Hidden {
+		f.warnf("", nil, "", "the row is hidden; it is read like any other")
+	}
+	v.unheaded(t, st, rr, seen)
+	return f
+}
+
+// idRegistry finds duplicate IDs (case-insensitively, spaces trimmed).
+type idRegistry map[string]int
+
+func (r idRegistry) check(f *field, col, id string) bool {
+	k := strings.ToLower(id)
+	if first, dup := r[k]; dup {
+		f.errorf(col, ErrDuplicateID, "give each row its own "+col,
+			"%s %q is already used in row %d; this row is rejected", col, short(id, 60), first)
+		return false
+	}
+	r[k] = f.rr.Row
+	return true
+}
+
+// refState is the outcome of one referenced row.
+type refState struct {
+	ID       string
+	Row      int
+	Accepted bool
+}
+
+// resolve looks up a reference among rows of another sheet: exact, then
+// case-insensitive (with a warning); records errors for unknown or rejected rows.
+func (f *field) resolve(col, ref string, targets map[string]refState, targetSheet string, present bool) (string, bool) {
+	if t, ok := targets[ref]; ok {
+		if !t.Accepted {
+			f.errorf(col, ErrRejectedReference, fmt.Sprintf("fix %s!%d first", targetSheet, t.Row),
+				"%s %q was rejected (%s!%d), so this row cannot be assessed", strings.ToLower(col), short(ref, 60), targetSheet, t.Row)
+			return "", false
+		}
+		return t.ID, true
+	}
+	for k, t := range targets {
+		if strings.EqualFold(k, ref) {
+			if !t.Accepted {
+				f.errorf(col, ErrRejectedReference, fmt.Sprintf("fix %s!%d first", targetSheet, t.Row),
+					"%s %q was rejected (%s!%d), so this row cannot be assessed", strings.ToLower(col), short(ref, 60), targetSheet, t.Row)
+				return "", false
+			}
+			f.warnf(col, nil, fmt.Sprintf("write it as %q", t.ID), "%q read as %s %q (letter case differs)", short(ref, 60), strings.ToLower(col), t.ID)
+			return t.ID, true
+		}
+	}
+	var ids []string
+	for k := range targets {
+		ids = append(ids, k)
+	}
+	sort.Strings(ids)
+	fix := fmt.Sprintf("use an ID from the %s sheet", targetSheet)
+	if near := Nearest(ref, ids); near != "" {
+		fix = fmt.Sprintf("did you mean %q?", near)
+	}
+	where := fmt.Sprintf("is not an ID on the %s sheet", targetSheet)
+	if !present {
+		where = fmt.Sprintf("cannot be found: the workbook has no %s sheet", targetSheet)
+	}
+	f.errorf(col, ErrUnknownReference, fix, "%s %q %s", strings.ToLower(col), short(ref, 60), where)
+	return "", false
+}
+
+// ---- Site ----
+
+// siteSheet is the Site sheet as read.
+type siteSheet struct {
+	Present  bool
+	Date1904 bool // the workbook counts dates from 1904
+	Rows     []siteRow
+	Problem  []Problem
+}
+
+type siteRow struct {
+	Row         int
+	Item, Value string
+	Match       HeaderMatch
+	Known       bool
+	Hidden      bool
+}
+
+// readSite reads the Site sheet: Item | Value rows, with or without the
+// header row "Item | Value". Blank rows are skipped.
+func (r *reader) readSite(s *Survey) *siteSheet {
+	ss := &siteSheet{}
+	actual, ok := r.sheets[NormalizeName(SheetSite)]
+	if !ok {
+		return ss
+	}
+	ss.Present = true
+	ss.Date1904 = r.date1904
+	items := SiteItems()
+	first := true
+	err := r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+		if blankRow(cells) {
+			return true
+		}
+		item, value := "", ""
+		if len(cells) > 0 {
+			item = strings.TrimSpace(cells[0])
+		}
+		if len(cells) > 1 {
+			value = strings.TrimSpace(cells[1])
+		}
+		if first {
+			first = false
+			if NormalizeName(item) == "item" {
+				return true
+			}
+		}
+		if len(ss.Rows) >= r.opts.MaxRows {
+			return false
+		}
+		m, known, _ := MatchHeader(item, items)
+		ss.Rows = append(ss.Rows, siteRow{Row: row, Item: item, Value: value, Match: m, Known: known, Hidden: hidden})
+		return true
+	})
+	if err != nil {
+		ss.Problem = append(ss.Problem, Problem{Sheet: SheetSite, Severity: Error, Err: err,
+			Message: "the sheet cannot be read to its end (" + short(err.Error(), 100) + ")",
+			Fix:     "open the workbook in a spreadsheet program and save it again"})
+	}
+	return ss
+}
+
+// applySite validates the Site sheet into Survey.Site.
+func (v *validator) applySite(ss *siteSheet) {
+	s := v.s
+	s.Problems = append(s.Problems, ss.Problem...)
+	if !ss.Present {
+		s.Problems = append(s.Problems, Problem{Sheet: SheetSite, Severity: Error, Err: ErrMissingSheet,
+			Message: "the workbook has no Site sheet (site name, survey date and relative humidity)", Fix: "add it from the template (sparkmargin template)"})
+		return
+	}
+	site := &s.Site
+	seen := map[string]int{}
+	for _, r := range ss.Rows {
+		st := v.newRow(SheetSite, r.Row)
+		st.id = r.Item
+		add := func(sev Severity, err error, msg, fix string) {
+			st.probs = append(st.probs, Problem{Sheet: SheetSite, Row: r.Row, Column: "B", Field: r.Match.Column.Name, ID: r.Item,
+				Severity: sev, Message: msg, Fix: fix, Err: err})
+		}
+		if r.Hidden {
+			add(Warning, nil, "the row is hidden; it is read like any other", "")
+		}
+		if !r.Known {
+			site.Items = append(site.Items, SiteItem{Key: NormalizeName(r.Item), Item: r.Item, Value: r.Value, Row: r.Row})
+			if near := Nearest(splitName(r.Item), columnNames(SiteItems())); near != "" && r.Item != "" {
+				st.probs = append(st.probs, Problem{Sheet: SheetSite, Row: r.Row, Column: "A", ID: r.Item, Severity: Warning, Err: ErrUnknownColumn,
+					Message: fmt.Sprintf("item %q is not a known Site item; it is kept as a site setting", short(r.Item, 60)),
+					Fix:     fmt.Sprintf("did you mean %q?", near)})
+			}
+			continue
+		}
+		name := r.Match.Column.Name
+		if first, dup := seen[name]; dup {
+			add(Error, ErrDuplicateID, fmt.Sprintf("item %s is given twice (rows %d and %d)", name, first, r.Row), "delete one of the two rows")
+			continue
+		}
+		seen[name] = r.Row
+		switch r.Match.Column.Dim {
+		case Text:
+			switch name {
+			case "Site":
+				site.Name = r.Value
+			case "Surveyed by":
+				site.SurveyedBy = r.Value
+			}
+		case Date:
+			if r.Value == "" {
+				continue
+			}
+			d, err := parseDate(r.Value, ss.Date1904)
+			if err != nil {
+				add(Error, err, fmt.Sprintf("%q is not a date", short(r.Value, 60)), "write the date as 2026-03-14, or enter it as a spreadsheet date")
+				continue
+			}
+			site.SurveyDate = d
+		default:
+			p, err := ParseQuantity(r.Value, r.Match.Unit, r.Match.Column.Dim)
+			if err != nil {
+				var qe *QuantityError
+				msg := err.Error()
+				if errors.As(err, &qe) {
+					msg = qe.Describe(name)
+				}
+				add(Error, err, "enter a number, e.g. "+siteExample(name), msg)
+				continue
+			}
+			if p.Note != "" {
+				add(Warning, nil, p.Note, "")
+			}
+			q := Quantity{Value: p.Value, Known: p.Known, RelUncertainty: p.RelUncertainty, Cell: fmt.Sprintf("B%d", r.Row)}
+			switch name {
+			case "Relative humidity":
+				for _, pr := range checkRH(q) {
+					add(pr.Severity, pr.Err, pr.Message, pr.Fix)
+				}
+				site.RelativeHumidity = q
+			case "Air temperature":
+				if q.Known && (q.Value < 223.15 || q.Value > 353.15) {
+					fix := "enter the air temperature in °C"
+					if c := q.Value - 273.15; c-273.15 >= -50 && c-273.15 <= 80 {
+						fix = fmt.Sprintf("did you mean %.4g °C? (the value looks like kelvin)", c-273.15)
+					}
+					add(Error, ErrOutOfRange, fmt.Sprintf("air temperature %s is outside -50 to 80 °C", r.Value), fix)
+					continue
+				}
+				site.AirTemperature = q
+			case "Required margin":
+				if q.Known && q.Value < 1 {
+					add(Error, ErrOutOfRange, fmt.Sprintf("required margin %s is below 1: energies above MIE would count as non-incendive", r.Value), "enter a margin of 1 or more (10 is usual)")
+					continue
+				}
+				site.RequiredMargin = q
+			}
+		}
+	}
+	var missing []string
+	if site.Name == "" {
+		missing = append(missing, "Site")
+	}
+	if site.SurveyDate.IsZero() {
+		missing = append(missing, "Survey date")
+	}
+	if !site.RelativeHumidity.Known {
+		missing = append(missing, "Relative humidity")
+	}
+	for _, m := range missing {
+		if row, given := seen[m]; given {
+			// given but blank or rejected: the row's own problem says why
+			s.Problems = append(s.Problems, Problem{Sheet: SheetSite, Row: row, Column: "B", Field: m, Severity: Error, Err: ErrRequired,
+				Message: fmt.Sprintf("%s is required", m), Fix: "enter it, e.g. " + siteExample(m)})
+			continue
+		}
+		s.Problems = append(s.Problems, Problem{Sheet: SheetSite, Field: m, Severity: Error, Err: ErrRequired,
+			Message: fmt.Sprintf("the Site sheet needs the item %s", m), Fix: fmt.Sprintf("add a row %q with its value, e.g. %s", itemHeader(m), siteExample(m))})
+	}
+	if !site.AirTemperature.Known {
+		site.AirTemperature = Quantity{Value: 293.15, Known: true}
+		site.Defaults = append(site.Defaults, "Air temperature 20 °C (default)")
+	}
+	if !site.RequiredMargin.Known {
+		site.RequiredMargin = Quantity{Value: 10, Known: true}
+		site.Defaults = append(site.Defaults, "Required margin 10 (default, a site choice)")
+	}
+}
+
+func itemHeader(name string) string {
+	for _, c := range SiteItems() {
+		if c.Name == name {
+			return c.Header()
+		}
+	}
+	return name
+}
+
+func siteExample(name string) string {
+	switch name {
+	case "Site":
+		return "Plant 2 coating hall"
+	case "Survey date":
+		return "2026-03-14"
+	case "Relative humidity":
+		return "45"
+	case "Air temperature":
+		return "20"
+	case "Required margin":
+		return "10"
+	}
+	return "a value"
+}
+
+// parseDate reads an ISO date (2026-03-14, optionally with a time) or a
+// spreadsheet date serial (days since 1899-12-30, or 1904 dates) into UTC midnight.
+func parseDate(s string, date1904 bool) (time.Time, error) {
+	s = strings.TrimSpace(s)
+	for _, layout := range []string{"2006-01-02", "2006-01-02T15:04:05Z", "2006-01-02T15:04:05", "2006-01-02 15:04:05", "2006/01/02", "2006-01-02T15:04:05.999Z"} {
+		if t, err := time.Parse(layout, s); err == nil {
+			return time.Date(t.Year(), t.Month(), t.Day(), 0, 0, 0, 0, time.UTC), nil
+		}
+	}
+	f, err := strconv.ParseFloat(s, 64)
+	if err != nil || math.IsNaN(f) || f < 1 || f > 2958465 {
+		return time.Time{}, ErrNotANumber
+	}
+	t, err := excelize.ExcelDateToTime(f, date1904)
+	if err != nil {
+		return time.Time{}, err
+	}
+	return time.Date(t.Year(), t.Month(), t.Day(), 0, 0, 0, 0, time.UTC), nil
+}
+
+// checkRH checks a relative humidity in percent.
+func checkRH(q Quantity) []Problem {
+	if !q.Known {
+		return nil
+	}
+	switch {
+	case q.Value < 0 || q.Value > 100:
+		return []Problem{{Severity: Error, Err: ErrOutOfRange, Message: fmt.Sprintf("relative humidity %.4g %% is outside 0-100 %%", q.Value), Fix: "enter the RH in percent, e.g. 45"}}
+	case q.Value > 0 && q.Value < 1:
+		return []Problem{{Severity: Warning, Message: fmt.Sprintf("relative humidity %.4g %% is very low: a cell formatted as a percentage stores 45 %% as 0.45", q.Value), Fix: fmt.Sprintf("did you mean %.4g %%?", q.Value*100)}}
+	}
+	return nil
+}
+
+// ---- Materials ----
+
+// matState is a material name's outcome for references.
+type matState struct {
+	m        Material
+	row      int
+	accepted bool
+}
+
+func (v *validator) materials(t *table) map[string]matState {
+	out := map[string]matState{}
+	s := v.s
+	builtins := BuiltinMaterials()
+	ids := idRegistry{}
+	seen := map[int]bool{}
+	var extra []Material
+	overridden := map[string]Material{}
+	for _, rr := range t.Rows {
+		f := v.beginRow(t, rr, "Name", seen)
+		name := f.st.id
+		if name == "" {
+			f.errorf("Name", ErrRequired, "give the material a name", "Name is blank")
+			continue
+		}
+		if !ids.check(f, "Name", name) {
+			continue
+		}
+		var base Material
+		isBuiltin := false
+		for _, b := range builtins {
+			if sameName(b.Name, name) {
+				base, isBuiltin = b, true
+				name = b.Name
+			}
+		}
+		if !isBuiltin {
+			base = Material{Name: name, Permittivity: math.NaN(), SurfaceResistivity: math.NaN(), VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN()}
+			if isAlias(name) {
+				bm, _ := LookupMaterial(name)
+				f.warnf("Name", nil, "", "%q is also a name of the built-in %s; this row defines a separate material", short(name, 60), bm.Name)
+			}
+		}
+		m := base
+		m.BuiltIn = false
+		m.Row = rr.Row
+		class := f.enumValue("Class", FixedLists()[ListMaterialClass], map[string]string{"insulative": ClassInsulating, "static dissipative": ClassDissipative, "antistatic": ClassDissipative, "metal": ClassConductive})
+		eps, _ := f.qty("Relative permittivity")
+		rs, _ := f.qty("Surface resistivity")
+		slope, _ := f.qty("Humidity slope")
+		rv, _ := f.qty("Volume resistivity")
+		eb, _ := f.qty("Breakdown strength")
+		if eps.Known {
+			if eps.Value < 1 || eps.Value > 100 {
+				f.errorf("Relative permittivity", ErrOutOfRange, "enter epsr, e.g. 2.3 for PE", "relative permittivity %.4g is outside 1-100", eps.Value)
+			}
+			m.Permittivity = eps.Value
+		}
+		f.positive("Surface resistivity", rs)
+		if rs.Known {
+			m.SurfaceResistivity = rs.Value
+		}
+		if slope.Known {
+			if slope.Value < 0 || slope.Value > 5 {
+				f.errorf("Humidity slope", ErrOutOfRange, "enter decades per 10 %RH: 0 for hydrophobic plastics, about 0.8 for paper", "humidity slope %.4g is outside 0-5 decades per 10 %%RH", slope.Value)
+			}
+			m.HumiditySlope = slope.Value
+		}
+		f.positive("Volume resistivity", rv)
+		if rv.Known {
+			m.VolumeResistivity = rv.Value
+		}
+		f.positive("Breakdown strength", eb)
+		if eb.Known {
+			if eb.Value > 1e9 {
+				f.errorf("Breakdown strength", ErrUnitSlip, "check the unit: the column is in kV/mm", "breakdown strength %s is above 1000 kV/mm", f.text("Breakdown strength"))
+			}
+			m.BreakdownStrength = eb.Value
+		}
+		if class != "" {
+			if c := ClassFromSurfaceResistivity(m.SurfaceResistivity); rs.Known && c != "" && c != class {
+				f.warnf("Class", ErrInconsistent, "check the class or the surface resistivity",
+					"class %s does not match the surface resistivity %s, which is %s by ESD definitions", class, f.text("Surface resistivity"), c)
+			}
+			m.Class = class
+		} else if f.text("Class") == "" && !isBuiltin {
+			if c := ClassFromSurfaceResistivity(m.SurfaceResistivity); c != "" {
+				m.Class = c
+			} else {
+				f.errorf("Class", ErrRequired, "enter the class (conductive, dissipative, insulating) or the surface resistivity", "material %s needs a Class or a Surface resistivity", short(name, 60))
+			}
+		}
+		notes := f.text("Notes")
+		src := fmt.Sprintf("survey Materials sheet row %d", rr.Row)
+		if isBuiltin {
+			src += fmt.Sprintf(" (overrides the built-in %s; blank cells keep its values)", base.Name)
+		}
+		if notes != "" {
+			src += ": " + notes
+		}
+		m.Source = src
+		accepted := !f.st.rejected()
+		out[strings.ToLower(name)] = matState{m: m, row: rr.Row, accepted: accepted}
+		if !accepted {
+			continue
+		}
+		if isBuiltin {
+			overridden[base.Name] = m
+			f.warnf("Name", nil, "", "%s overrides the built-in material of the same name", base.Name)
+		} else {
+			extra = append(extra, m)
+		}
+	}
+	for _, b := range builtins {
+		if o, ok := overridden[b.Name]; ok {
+			s.Materials = append(s.Materials, o)
+		} else {
+			s.Materials = append(s.Materials, b)
+		}
+	}
+	s.Materials = append(s.Materials, extra...)
+	return out
+}
+
+// ---- Atmospheres ----
+
+var dustGroups = map[string]bool{"IIIA": true, "IIIB": true, "IIIC": true}
+var gasGroups = map[string]bool{"IIA": true, "IIB": true, "IIC": true}
+var dustZones = map[string]bool{"20": true, "21": true, "22": true}
+var gasZones = map[string]bool{"0": true, "1": true, "2": true}
+
+func (v *validator) atmospheres(t *table) map[string]refState {
+	out := map[string]refState{}
+	ids := idRegistry{}
+	seen := map[int]bool{}
+	lists := FixedLists()
+	for _, rr := range t.Rows {
+		f := v.beginRow(t, rr, "ID", seen)
+		a := Atmosphere{ID: f.st.id, Row: rr.Row, Description: f.text("Description"), Notes: f.text("Notes")}
+		if a.ID == "" {
+			f.errorf("ID", ErrRequired, "give every atmosphere a short unique ID, e.g. A-TOL", "ID is blank")
+		} else if !ids.check(f, "ID", a.ID) {
+			continue
+		}
+		a.Kind = f.enumValue("Kind", lists[ListAtmosphereKind], map[string]string{"vapor": "vapour", "gas/vapour": "vapour", "gas vapour": "vapour", "dust cloud": "dust"})
+		a.Group = groupValue(f)
+		a.Zone = f.enumValue("Zone", lists[ListZone], map[string]string{"zone 0": "0", "zone 1": "1", "zone 2": "2", "zone 20": "20", "zone 21": "21", "zone 22": "22", "0.0": "0", "1.0": "1", "2.0": "2", "20.0": "20", "21.0": "21", "22.0": "22", "non hazardous": "none", "unclassified": "none"})
+		mie, mp := f.qty("MIE")
+		f.positive("MIE", mie)
+		f.slip("MIE", mie, mp, MaxMIE, "above any MIE (dusts reach about 1 J)")
+		if f.text("Kind") == "" {
+			f.errorf("Kind", ErrRequired, "use one of: "+strings.Join(lists[ListAtmosphereKind], ", "), "atmosphere %s needs a Kind", short(a.ID, 60))
+		}
+		if sub := f.text("Substance"); sub != "" {
+			if bs, ok := LookupSubstance(sub); ok {
+				a.Substance = bs.Name
+				if a.Kind == "dust" {
+					f.errorf("Substance", ErrInconsistent, "use Kind gas, vapour or hybrid, or remove the substance", "%s is a %s but Kind is dust", bs.Name, bs.Kind)
+				}
+				if !mie.Known && f.text("MIE") == "" {
+					mie = Quantity{Value: bs.MIE, Known: true, Cell: mie.Cell}
+					a.MIEFromSubstance = true
+				}
+				if a.Group == "" && f.text("Group") == "" {
+					a.Group = bs.Group
+					a.GroupFromSubstance = true
+				}
+			} else {
+				a.Substance = sub
+				fix := "give MIE and Group from the site's data"
+				if near := Nearest(sub, substanceNames()); near != "" {
+					fix = fmt.Sprintf("did you mean %q? (or give MIE and Group)", near)
+				}
+				if !mie.Known {
+					f.errorf("Substance", ErrUnknownReference, fix, "substance %q is not in the built-in list, and MIE is blank", short(sub, 60))
+				} else {
+					f.warnf("Substance", ErrUnknownReference, fix, "substance %q is not in the built-in list; the MIE as given is used", short(sub, 60))
+				}
+			}
+		}
+		a.MIE = mie
+		if a.Kind != "" && a.Kind != "none" {
+			if !a.MIE.Known && f.text("MIE") == "" && f.text("Substance") == "" {
+				f.errorf("MIE", ErrRequired, "enter the MIE in mJ, or a built-in Substance", "atmosphere %s (%s) needs an MIE", short(a.ID, 60), a.Kind)
+			}
+			if a.Group == "" && f.text("Group") == "" {
+				f.warnf("Group", ErrRequired, "enter the group from the site's classification", "Group is blank; the strictest group's limits will have to be assumed")
+			}
+			if a.Zone == "" && f.text("Zone") == "" {
+				f.warnf("Zone", ErrRequired, "enter the zone from the site's hazardous-area classification", "Zone is blank; an unzoned area may have to be treated as the strictest zone")
+			}
+		}
+		switch a.Kind {
+		case "dust":
+			if gasGroups[a.Group] {
+				f.errorf("Group", ErrInconsistent, "use IIIA, IIIB or IIIC for a dust", "group %s is a gas group but Kind is dust", a.Group)
+			}
+			if gasZones[a.Zone] {
+				f.errorf("Zone", ErrInconsistent, "use zone 20, 21 or 22 for a dust", "zone %s is a gas zone but Kind is dust", a.Zone)
+			}
+		case "gas", "vapour", "mist":
+			if dustGroups[a.Group] {
+				f.errorf("Group", ErrInconsistent, "use IIA, IIB or IIC, or Kind dust or hybrid", "group %s is a dust group but Kind is %s", a.Group, a.Kind)
+			}
+			if dustZones[a.Zone] {
+				f.errorf("Zone", ErrInconsistent, "use zone 0, 1 or 2, or Kind dust or hybrid", "zone %s is a dust zone but Kind is %s", a.Zone, a.Kind)
+			}
+		case "none":
+			if a.Zone != "" && a.Zone != "none" {
+				f.errorf("Zone", ErrInconsistent, "set Kind to the atmosphere's kind, or Zone to none", "Kind none cannot be in zone %s", a.Zone)
+			}
+		}
+		accepted := !f.st.rejected()
+		if a.ID != "" {
+			out[a.ID] = refState{ID: a.ID, Row: rr.Row, Accepted: accepted}
+		}
+		if accepted {
+			v.s.Atmospheres = append(v.s.Atmospheres, a)
+		}
+	}
+	return out
+}
+
+// groupValue reads a gas or dust group, accepting "iia", "II A", "IIa".
+func groupValue(f *field) string {
+	raw := f.text("Group")
+	if raw == "" {
+		return ""
+	}
+	n := strings.ToUpper(strings.NewReplacer(" ", "", "-", "", "_", "").Replace(raw))
+	n = strings.TrimPrefix(n, "GROUP")
+	for _, g := range FixedLists()[ListGroup] {
+		if g == n {
+			return g
+		}
+	}
+	return f.enumValue("Group", FixedLists()[ListGroup], nil)
+}
+
+// ---- Stations ----
+
+func (v *validator) stations(t *table, atms map[string]refState) map[string]refState {
+	out := map[string]refState{}
+	ids := idRegistry{}
+	seen := map[int]bool{}
+	atmPresent := v.tables[SheetAtmospheres].Present
+	for _, rr := range t.Rows {
+		f := v.beginRow(t, rr, "ID", seen)
+		st := Station{ID: f.st.id, Row: rr.Row, Name: f.text("Name"), Line: f.text("Line"), Notes: f.text("Notes")}
+		dup := false
+		if st.ID == "" {
+			f.errorf("ID", ErrRequired, "give every station a unique ID, e.g. ST-UNW", "ID is blank")
+		} else if !ids.check(f, "ID", st.ID) {
+			dup = true
+		}
+		if ref := f.text("Atmosphere"); ref != "" && NormalizeName(ref) != "none" {
+			if id, ok := f.resolve("Atmosphere", ref, atms, SheetAtmospheres, atmPresent); ok {
+				st.Atmosphere = id
+			}
+		}
+		rh, _ := f.qty("Relative humidity")
+		for _, p := range checkRH(rh) {
+			f.add(p.Severity, "Relative humidity", p.Err, p.Message, p.Fix)
+		}
+		st.RelativeHumidity = rh
+		accepted := !f.st.rejected()
+		if st.ID != "" && !dup {
+			out[st.ID] = refState{ID: st.ID, Row: rr.Row, Accepted: accepted}
+		}
+		if accepted {
+			v.s.Stations = append(v.s.Stations, st)
+		}
+	}
+	return out
+}
+
+// ---- Objects ----
+
+// KindRequirement says in words what an object kind needs on its row.
+type KindRequirement struct {
+	Kind  string
+	Needs string // the rule in words, as check reports it
+}
+
+// KindRequirements returns the per-kind requirements validation applies, for
+// the README and the check command.
+func KindRequirements() []KindRequirement {
+	return []KindRequirement{
+		{KindSheet, "Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed"},
+		{KindBelt, "as sheet (Speed optional: it gives the charging current)"},
+		{KindRoller, "Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth"},
+		{KindContainer, "a reading (Field with Field distance, or Surface potential), charging (Mass flow with Charge-to-mass, or Charging current) or Resistance to earth"},
+		{KindPart, "Surface potential, Charging current or Resistance to earth"},
+		{KindPerson, "Surface potential or Resistance to earth"},
+		{KindPowder, "Mass flow, Diameter (silo or container) and Particle size; Charge-to-mass optional"},
+		{KindLiquid, "Speed (flow velocity), Diameter (line inner diameter) and Conductivity"},
+		{KindBag, "a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
+	}
+}
+
+// objectValues holds the parsed quantities of an object row with their cells.
+type objectValues struct {
+	o Object
+	p map[string]Parsed
+}
+
+func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
+	out := map[string]refState{}
+	ids := idRegistry{}
+	seen := map[int]bool{}
+	lists := FixedLists()
+	stPresent := v.tables[SheetStations].Present
+	for _, rr := range t.Rows {
+		f := v.beginRow(t, rr, "ID", seen)
+		o := Object{ID: f.st.id, Row: rr.Row, Description: f.text("Description"), Notes: f.text("Notes")}
+		dup := false
+		if o.ID == "" {
+			f.errorf("ID", ErrRequired, "give every object a unique ID", "ID is blank")
+		} else if !ids.check(f, "ID", o.ID) {
+			dup = true
+		}
+		o.Kind = f.enumValue("Kind", lists[ListKind], nil)
+		if o.Kind == "" && f.text("Kind") == "" {
+			f.errorf("Kind", ErrRequired, "use one of: "+strings.Join(Kinds(), ", "), "Kind is blank")
+		}
+		who := strings.TrimSpace(o.Kind + " " + short(o.ID, 60))
+		if ref := f.text("Station"); ref == "" {
+			f.errorf("Station", ErrRequired, "enter the ID of the station the object is at", "%s needs a Station", who)
+		} else if id, ok := f.resolve("Station", ref, stations, SheetStations, stPresent); ok {
+			o.Station = id
+		}
+		if mref := f.text("Material"); mref != "" {
+			o.Material = v.resolveMaterial(f, mref, mats)
+		}
+		o.Backing = f.enumValue("Backing", lists[ListBacking], map[string]string{"grounded": "earthed", "earth": "earthed", "on earthed metal": "earthed", "no": "none", "free": "none"})
+		o.BagType = bagTypeValue(f)
+		o.Filling = f.enumValue("Filling", lists[ListFilling], map[string]string{"dip tube": "dip pipe", "diptube": "dip pipe", "top fill": "top", "bottom fill": "bottom", "splash": "top"})
+
+		var p = map[string]Parsed{}
+		q := func(name string) Quantity {
+			qq, pp := f.qty(name)
+			p[name] = pp
+			return qq
+		}
+		o.Length, o.Width, o.Diameter = q("Length"), q("Width"), q("Diameter")
+		o.Thickness, o.DistanceToEarth = q("Thickness"), q("Distance to earth")
+		o.Field, o.FieldDistance, o.SurfacePotential = q("Field"), q("Field distance"), q("Surface potential")
+		o.Speed, o.MassFlow, o.ChargeToMass = q("Speed"), q("Mass flow"), q("Charge-to-mass")
+		o.ChargingCurrent, o.ChargingTime, o.ParticleSize = q("Charging current"), q("Charging time"), q("Particle size")
+		o.Resistance, o.Capacitance = q("Resistance to earth"), q("Capacitance")
+		o.Conductivity, o.Permittivity = q("Conductivity"), q("Relative permittivity")
+
+		// physical ranges
+		for _, n := range []struct {
+			name string
+			q    Quantity
+		}{{"Length", o.Length}, {"Width", o.Width}, {"Diameter", o.Diameter}, {"Thickness", o.Thickness},
+			{"Distance to earth", o.DistanceToEarth}, {"Field distance", o.FieldDistance}, {"Particle size", o.ParticleSize},
+			{"Charging time", o.ChargingTime}, {"Resistance to earth", o.Resistance}, {"Capacitance", o.Capacitance},
+			{"Conductivity", o.Conductivity}} {
+			f.positive(n.name, n.q)
+		}
+		for _, n := range []string{"Length", "Width", "Diameter"} {
+			qq := map[string]Quantity{"Length": o.Length, "Width": o.Width, "Diameter": o.Diameter}[n]
+			f.slip(n, qq, p[n], MaxSize, "larger than any plant object")
+		}
+		f.slip("Particle size", o.ParticleSize, p["Particle size"], MaxParticleSize, "above 100 mm, no powder")
+		f.nonNegative("Speed", o.Speed)
+		f.slip("Speed", o.Speed, p["Speed"], MaxSpeed, "faster than any web, belt or line flow")
+		f.nonNegative("Mass flow", o.MassFlow)
+		f.slip("Field", o.Field, p["Field"], MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
+		thinBacked := o.Backing == "earthed" && o.Thickness.Known && o.Thickness.Value < ThinLayer
+		if !thinBacked {
+			f.slip("Surface potential", o.SurfacePotential, p["Surface potential"], MaxSurfacePotential, "beyond what a plant object holds in air")
+		}
+		f.slip("Capacitance", o.Capacitance, p["Capacitance"], MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
+		if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
+			f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
+		}
+		if o.Permittivity.Known && (o.Permittivity.Value < 1 || o.Permittivity.Value > 100) {
+			f.errorf("Relative permittivity", ErrOutOfRange, "enter epsr, e.g. 2.4 for toluene", "relative permittivity %.4g is outside 1-100", o.Permittivity.Value)
+		}
+		if o.Field.Known && !o.FieldDistance.Known && f.text("Field distance") == "" {
+			f.errorf("Field distance", ErrRequired, "enter the meter-to-surface distance of the reading", "%s: a Field reading needs its Field distance", who)
+		}
+		v.kindNeeds(f, &o, who)
+		o.BagType = strings.ToUpper(o.BagType)
+		if o.Kind == KindBag && o.BagType == "" && f.text("Bag type") == "" {
+			f.warnf("Bag type", ErrRequired, "enter the bag type (A, B, C or D) from its label", "%s: no Bag type; assessed as the most restrictive case", who)
+		}
+		if o.Kind == KindBag && o.Station != "" {
+			if st, ok := v.s.Station(o.Station); ok && st.Atmosphere == "" {
+				f.errorf("Station", ErrRequired, "give the station an Atmosphere (kind dust with the product's MIE, or kind none for a non-combustible product)",
+					"%s: station %s has no Atmosphere; the product's MIE decides which bag types may be used", who, o.Station)
+			}
+		}
+		if (o.Kind == KindSheet || o.Kind == KindBelt) && o.Material == "" && f.text("Material") == "" {
+			f.warnf("Material", nil, "enter the material", "%s: no Material; the model takes default material properties", who)
+		}
+		accepted := !f.st.rejected()
+		if o.ID != "" && !dup {
+			out[o.ID] = refState{ID: o.ID, Row: rr.Row, Accepted: accepted}
+		}
+		if accepted {
+			v.s.Objects = append(v.s.Objects, o)
+		}
+	}
+	return out
+}
+
+// kindNeeds checks the per-kind requirements (see KindRequirements).
+func (v *validator) kindNeeds(f *field, o *Object, who string) {
+	reading := (o.Field.Known && o.FieldDistance.Known) || o.SurfacePotential.Known
+	const readingText = "a reading (Field with Field distance, or Surface potential)"
+	var need []string
+	switch o.Kind {
+	case KindSheet, KindBelt:
+		if !o.Length.Known {
+			need = append(need, "Length")
+		}
+		if !o.Width.Known {
+			need = append(need, "Width")
+		}
+		// A conductive or dissipative layer with a measured resistance to earth is
+		// judged on its earthing; an insulating one needs a reading.
+		cond := false
+		if m, ok := v.s.Material(o.Material); ok && m.Class != ClassInsulating && o.Resistance.Known {
+			cond = true
+		}
+		if !reading && !cond {
+			need = append(need, readingText+" (or, for a conductive or dissipative material, Resistance to earth)")
+		}
+		if o.Backing == "earthed" && !o.Thickness.Known {
+			need = append(need, "Thickness (the layer lies on earthed metal)")
+		}
+	case KindRoller:
+		if !o.Diameter.Known {
+			need = append(need, "Diameter")
+		}
+		if !reading && !o.Resistance.Known {
+			need = append(need, "a reading (Field with Field distance, or Surface potential) or its Resistance to earth")
+		}
+	case KindContainer:
+		if !reading && !(o.MassFlow.Known && o.ChargeToMass.Known) && !o.ChargingCurrent.Known && !o.Resistance.Known {
+			need = append(need, "a reading (Field with Field distance, or Surface potential), its charging (Mass flow with Charge-to-mass, or Charging current) or its Resistance to earth")
+		}
+	case KindPart:
+		if !o.SurfacePotential.Known && !o.ChargingCurrent.Known && !o.Resistance.Known {
+			need = append(need, "Surface potential, Charging current or Resistance to earth")
+		}
+	case KindPerson:
+		if !o.SurfacePotential.Known && !o.Resistance.Known {
+			need = append(need, "Surface potential or Resistance to earth")
+		}
+	case KindPowder:
+		for _, n := range []struct {
+			name string
+			q    Quantity
+		}{{"Mass flow", o.MassFlow}, {"Diameter", o.Diameter}, {"Particle size", o.ParticleSize}} {
+			if !n.q.Known {
+				need = append(need, n.name)
+			}
+		}
+	case KindLiquid:
+		for _, n := range []struct {
+			name string
+			q    Quantity
+		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}, {"Conductivity", o.Conductivity}} {
+			if !n.q.Known {
+				need = append(need, n.name)
+			}
+		}
+	}
+	if len(need) == 0 {
+		return
+	}
+	// Only report what is missing, not what was given but unreadable (that has its own problem).
+	f.st.probs = append(f.st.probs, Problem{Sheet: f.t.Sheet, Row: f.rr.Row, Column: f.idLetter(), ID: o.ID, Severity: Error, Err: ErrRequired,
+		Message: fmt.Sprintf("%s: needs %s", who, joinAnd(need)),
+		Fix:     "measure and enter them, or delete the row if the object is not part of the survey"})
+}
+
+func joinAnd(s []string) string {
+	switch len(s) {
+	case 0:
+		return ""
+	case 1:
+		return s[0]
+	}
+	return strings.Join(s[:len(s)-1], ", ") + " and " + s[len(s)-1]
+}
+
+// bagTypeValue reads "C", "type C", "Type-C".
+func bagTypeValue(f *field) string {
+	raw := f.text("Bag type")
+	if raw == "" {
+		return ""
+	}
+	n := strings.ToUpper(strings.TrimSpace(strings.TrimPrefix(NormalizeName(raw), "type")))
+	for _, b := range FixedLists()[ListBagType] {
+		if n == b {
+			return b
+		}
+	}
+	return f.enumValue("Bag type", FixedLists()[ListBagType], nil)
+}
+
+// resolveMaterial finds a material by name: the survey's Materials sheet
+// first, then the built-ins and their aliases.
+func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matState) string {
+	if m, ok := mats[strings.ToLower(ref)]; ok {
+		if !m.accepted {
+			f.errorf("Material", ErrRejectedReference, fmt.Sprintf("fix Materials!%d first", m.row),
+				"material %q was rejected (Materials!%d), so this row cannot be assessed", short(ref, 60), m.row)
+			return ""
+		}
+		return m.m.Name
+	}
+	for k, m := range mats {
+		if sameName(k, ref) {
+			if !m.accepted {
+				f.errorf("Material", ErrRejectedReference, fmt.Sprintf("fix Materials!%d first", m.row),
+					"material %q was rejected (Materials!%d), so this row cannot be assessed", short(ref, 60), m.row)
+				return ""
+			}
+			return m.m.Name
+		}
+	}
+	if bm, ok := LookupMaterial(ref); ok {
+		return bm.Name
+	}
+	var names []string
+	for _, m := range v.s.Materials {
+		names = append(names, m.Name)
+	}
+	fix := "use a built-in material (sparkmargin library) or add it to the Materials sheet"
+	if near := Nearest(ref, names); near != "" {
+		fix = fmt.Sprintf("did you mean %q? (or add the material to the Materials sheet)", near)
+	}
+	f.errorf("Material", ErrUnknownReference, fix, "material %q is neither built in nor on the Materials sheet", short(ref, 60))
+	return ""
+}
+
+// ---- Changes ----
+
+// ChangeKinds lists the Change codes of the Changes sheet.
+func ChangeKinds() []string {
+	return []string{"rh", "station-rh", "earth", "material", "footwear", "margin", "speed", "conductivity", "bag-type"}
+}
+
+func (v *validator) changes(t *table, stations, objs map[string]refState) {
+	seen := map[int]bool{}
+	for _, rr := range t.Rows {
+		f := v.beginRow(t, rr, "Change", seen)
+		c := Change{Row: rr.Row, Target: f.text("Target"), Value: f.text("Value"), Note: f.text("Notes")}
+		c.Change = strings.ReplaceAll(strings.ToLower(f.enumValueRaw("Change", ChangeKinds())), " ", "-")
+		if f.text("Change") == "" {
+			f.errorf("Change", ErrRequired, "use one of: "+strings.Join(ChangeKinds(), ", "), "Change is blank")
+		}
+		if c.Value == "" {
+			f.errorf("Value", ErrRequired, "enter the new value with its unit, e.g. 60 %", "Value is blank")
+		}
+		if c.Target != "" {
+			lt := strings.ToLower(c.Target)
+			if strings.HasPrefix(lt, "station:") {
+				id := strings.TrimSpace(c.Target[len("station:"):])
+				if rid, ok := f.resolve("Target", id, stations, SheetStations, v.tables[SheetStations].Present); ok {
+					c.Target = "station:" + rid
+				}
+			} else if rid, ok := f.resolve("Target", c.Target, objs, SheetObjects, v.tables[SheetObjects].Present); ok {
+				c.Target = rid
+			}
+		}
+		if !f.st.rejected() {
+			v.s.Changes = append(v.s.Changes, c)
+		}
+	}
+}
+
+// enumValueRaw is enumValue with '-' kept significant in the codes ("bag-type").
+func (f *field) enumValueRaw(name string, allowed []string) string {
+	return f.enumValue(name, allowed, nil)
+}
