@@ -38,6 +38,9 @@ func BagTypeAllowed(t BagType, env Environment, productMIE float64, lim Limits) 
 		if eff == BagC || eff == BagD {
 			return true, bagOKCode(t)
 		}
+		if t == BagUnknown {
+			return false, ReasonBagUnknownNotAllowed
+		}
 		return false, ReasonBagNotForGas
 	case dust:
 		if eff == BagA {

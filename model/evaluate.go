@@ -362,12 +362,15 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	ev.Resistance = r
 
 	i := current
+	measured := given(in.SurfacePotential)
 	switch {
 	case given(i):
 	case given(in.ChargingCurrent):
 		i = in.ChargingCurrent
 	case given(in.MassFlow) && given(in.ChargeToMass):
 		i = MassFlowCurrent(in.MassFlow, in.ChargeToMass)
+	case measured:
+		// The potential is measured: no charging current is assumed.
 	case in.Kind == Person:
 		i = WalkingCurrent
 		ev.Assumed |= AssumedWalkingCurrent
@@ -380,7 +383,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 
 	var v float64
 	switch {
-	case given(in.SurfacePotential):
+	case measured:
 		v, ev.PotentialSource = math.Abs(in.SurfacePotential), PotentialMeasured
 	case in.Kind == Person && !given(in.Resistance) && !given(in.ChargingCurrent):
 		ev.NotAssessed |= MissingPersonPotential

@@ -1,0 +1,82 @@
+package model
+
+import (
+	"math"
+	"testing"
+)
+
+// TestBagTypeTable checks every bag type against every column and MIE band of the
+// usage table. Source: IEC 61340-4-4:2018 usage table as quoted by trade summaries
+// (reference section 8b [C]).
+func TestBagTypeTable(t *testing.T) {
+	lim := DefaultLimits()
+	nonFlam := Environment{RelativeHumidity: 40, MIE: math.NaN()}
+	dust21 := Environment{RelativeHumidity: 40, Atmosphere: Dust, Group: IIIB, Zone: Zone21}
+	dust22 := Environment{RelativeHumidity: 40, Atmosphere: Dust, Group: IIIA, Zone: Zone22}
+	gasIIA := Environment{RelativeHumidity: 40, Atmosphere: Vapour, Group: IIA, Zone: Zone1}
+	gasIIB := Environment{RelativeHumidity: 40, Atmosphere: Gas, Group: IIB, Zone: Zone2}
+	bands := []struct {
+		name string
+		mie  float64
+	}{{"> 1000 mJ", 2}, {"3-1000 mJ", 0.1}, {"<= 3 mJ", 1e-3}}
+	// allowed[column][band] lists the types A, B, C, D allowed.
+	type row [4]bool
+	table := []struct {
+		name string
+		env  Environment
+		want [3]row
+	}{
+		{"non-flammable", nonFlam, [3]row{{true, true, true, true}, {false, true, true, true}, {false, false, true, true}}},
+		{"dust zone 21", dust21, [3]row{{false, true, true, true}, {false, true, true, true}, {false, false, true, true}}},
+		{"dust zone 22", dust22, [3]row{{false, true, true, true}, {false, true, true, true}, {false, false, true, true}}},
+		{"gas zone 1 IIA", gasIIA, [3]row{{false, false, true, true}, {false, false, true, true}, {false, false, true, true}}},
+		{"gas zone 2 IIB", gasIIB, [3]row{{false, false, true, true}, {false, false, true, true}, {false, false, true, true}}},
+	}
+	for _, col := range table {
+		for bi, band := range bands {
+			for ti, typ := range []BagType{BagA, BagB, BagC, BagD} {
+				ok, code := BagTypeAllowed(typ, col.env, band.mie, lim)
+				if ok != col.want[bi][ti] {
+					t.Errorf("%s, %s, type %v: allowed %v, want %v (%s)", col.name, band.name, typ, ok, col.want[bi][ti], code.Text(0, 0))
+				}
+			}
+			// The unknown type is assessed as type A.
+			ok, code := BagTypeAllowed(BagUnknown, col.env, band.mie, lim)
+			if ok != col.want[bi][0] || (code != ReasonBagUnknownAllowed && code != ReasonBagUnknownNotAllowed) {
+				t.Errorf("%s, %s, unknown type: allowed %v (%s), want as type A", col.name, band.name, ok, code.Text(0, 0))
+			}
+		}
+	}
+	// Never for IIC, zone 0 or zone 20.
+	never := []struct {
+		env  Environment
+		code Reason
+	}{
+		{Environment{Atmosphere: Gas, Group: IIC, Zone: Zone1}, ReasonBagNeverIIC},
+		{Environment{Atmosphere: Gas, Group: IIA, Zone: Zone0}, ReasonBagNeverZone0or20},
+		{Environment{Atmosphere: Dust, Group: IIIB, Zone: Zone20}, ReasonBagNeverZone0or20},
+	}
+	for _, n := range never {
+		for _, typ := range []BagType{BagA, BagB, BagC, BagD, BagUnknown} {
+			if ok, code := BagTypeAllowed(typ, n.env, 1, lim); ok || code != n.code {
+				t.Errorf("type %v in %v zone %v: allowed %v code %d", typ, n.env.Group, n.env.Zone, ok, code)
+			}
+		}
+	}
+	// Types C and D are qualified for MIE >= 0.14 mJ only.
+	for _, env := range []Environment{nonFlam, dust21, gasIIA} {
+		for _, typ := range []BagType{BagC, BagD} {
+			if ok, code := BagTypeAllowed(typ, env, 0.1e-3, lim); ok || code != ReasonBagBelowQualifiedMIE {
+				t.Errorf("type %v at 0.1 mJ: allowed %v code %d", typ, ok, code)
+			}
+		}
+	}
+	// Type C is allowed only if earthed: the code says so.
+	if _, code := BagTypeAllowed(BagC, gasIIA, 1, lim); code != ReasonBagCAllowedIfEarthed {
+		t.Errorf("type C code %d", code)
+	}
+	// An unknown product MIE is the most sensitive band: B not allowed in zone 21.
+	if ok, _ := BagTypeAllowed(BagB, dust21, math.NaN(), lim); ok {
+		t.Error("type B with unknown product MIE allowed")
+	}
+}
