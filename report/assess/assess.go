@@ -276,7 +276,7 @@ func (x *objectContext) evalDefaults(r *ObjectResult, c *Classification) []Defau
 		defs = append(defs, Default{Field: "Brush discharge energy", Value: mJ(x.lim.BrushEnergy), Reason: "equivalent energy of a brush discharge: the upper end of the published 3-4 mJ (documented choice)"})
 	}
 	if ev.Discharges[model.PropagatingBrush].Possible {
-		defs = append(defs, Default{Field: "Propagating brush energy", Value: "upper estimate", Reason: fmt.Sprintf("stored field energy of the layer, bounded by %s (published range hundreds of mJ to J)", mJ(x.lim.PropagatingMaxEnergy))})
+		defs = append(defs, Default{Field: "Propagating brush energy", Value: "upper estimate", Reason: fmt.Sprintf("at most %s, the upper end of the published range (hundreds of mJ to J)", mJ(x.lim.PropagatingMaxEnergy))})
 	}
 	if in.Kind == model.Person && math.IsNaN(in.SurfacePotential) && !math.IsNaN(ev.Potential) {
 		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})

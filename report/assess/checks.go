@@ -177,7 +177,9 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		if q, limQ := ev.TransferredCharge, TransferredChargeLimit(env, lim); q > limQ {
 			c.Failed = c.Failed.Add(CheckTransferredCharge)
 		}
-		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !ev.Dissipative && a > limA {
+		// Type C and D bags are qualified by their own test, not by an area limit.
+		qualifiedBag := in.Kind == model.Bag && (in.BagType == model.BagC || in.BagType == model.BagD)
+		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !ev.Dissipative && !qualifiedBag && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
 		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) {
@@ -382,4 +384,3 @@ func BagChargingCurrent(in *model.Input, ev *model.Evaluation) float64 {
 	}
 	return math.Abs(in.MassFlow * in.ChargeToMass)
 }
-

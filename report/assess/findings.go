@@ -71,6 +71,17 @@ func mitigationClass(in *model.Input, d model.DischargeType) string {
 	return "insulator"
 }
 
+// dischargeOfCharge returns the possible discharge that transfers the largest charge.
+func dischargeOfCharge(ev *model.Evaluation) model.DischargeType {
+	t, q := model.NoDischarge, 0.0
+	for i := range ev.Discharges {
+		if d := &ev.Discharges[i]; d.Possible && d.Charge > q {
+			t, q = d.Type, d.Charge
+		}
+	}
+	return t
+}
+
 // humiditySentence says whether raising humidity helps the object's material.
 func humiditySentence(in *model.Input) string {
 	m := in.Material
@@ -101,7 +112,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		msg = fmt.Sprintf("%s of %s is below the MIE of %s but reaches MIE / %s = %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), plain(x.margin), mJ(env.MIE/x.margin), ratioText(c.Ratio))
 	case CheckTransferredCharge:
 		msg = fmt.Sprintf("transferred charge %s exceeds the %s limit of %s in %s", nC(ev.TransferredCharge), env.Group, nC(TransferredChargeLimit(env, lim)), zoneWords(env.Zone))
-		if in.Kind == model.Sheet || in.Kind == model.Belt || in.Kind == model.Roller || in.Kind == model.Bag {
+		switch cls := mitigationClass(in, dischargeOfCharge(ev)); cls {
+		case "conductor", "person", "bag":
+			mit = templates.Mitigation("transferred-charge." + cls)
+		default:
 			mit += humiditySentence(in)
 		}
 	case CheckInsulatingArea:
@@ -134,6 +148,9 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			src = "propagating brush discharge energy"
 		}
 		msg = fmt.Sprintf("%s %s exceeds the %s shock limit for people who touch it", src, mJ(e), mJ(lim.ShockEnergy))
+		if src != "stored energy" {
+			mit = templates.Mitigation("shock-energy." + mitigationClass(in, model.PropagatingBrush))
+		}
 		if !math.IsNaN(ev.Potential) && !math.IsNaN(ev.Capacitance) && src == "stored energy" {
 			msg += fmt.Sprintf(" (%s at %s)", pF(ev.Capacitance), kV(ev.Potential))
 		}
@@ -228,6 +245,9 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 			}
 		}
 		s := capitalise(r.Verdict.String()) + ": " + first.Message
+		if r.Atmosphere == nil {
+			s = capitalise(r.Verdict.String()) + " with no flammable atmosphere at the station: " + first.Message
+		}
 		if n := len(r.Findings) - 1; n == 1 {
 			s += "; 1 further finding"
 		} else if n > 1 {
@@ -235,9 +255,6 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 		}
 		if c.Cause != CauseNone && causeText != "" {
 			s += "; the discharge energy was not assessed (" + causeText + ")"
-		}
-		if r.Atmosphere == nil {
-			s += " (no flammable atmosphere at the station)"
 		}
 		return s + "."
 	}

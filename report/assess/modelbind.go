@@ -15,23 +15,64 @@ func missingText(m model.Missing) string {
 	return strings.Join(t, "; ")
 }
 
+// assumptionField names the quantity each model assumption stands for.
+func assumptionField(a model.Assumption) string {
+	switch a {
+	case model.AssumedSteadyState:
+		return "Charging time"
+	case model.AssumedWalkingCurrent, model.AssumedMaxCurrent, model.AssumedBagCurrent:
+		return "Charging current"
+	case model.AssumedNoCoronaCap:
+		return "Corona-onset cap"
+	case model.AssumedLayerPermittivity, model.AssumedPlatePermittivity:
+		return "Relative permittivity"
+	case model.AssumedLiquidPermittivity:
+		return "Liquid permittivity"
+	case model.AssumedInfiniteSheet:
+		return "Sheet size"
+	case model.AssumedDissipativeClass:
+		return "Surface resistivity"
+	case model.AssumedBreakdownUnknown:
+		return "Breakdown strength"
+	case model.AssumedPropagatingArea:
+		return "Propagating brush area"
+	case model.AssumedThinLayer:
+		return "Layer thickness"
+	case model.AssumedHighResistivity:
+		return "Volume resistivity"
+	case model.AssumedConeCharge:
+		return "Charge-to-mass"
+	case model.AssumedProductMIE, model.AssumedProductMIEUnknown:
+		return "Product MIE"
+	}
+	return "Model assumption"
+}
+
 // modelAssumptions turns the model's own assumption bits into defaults. The bits
 // the assessment records itself with their values (capacitance estimate, unknown
-// resistance, bag type, conductivity, temperature) are skipped so each shows once.
+// resistance, bag type, conductivity, temperature) are skipped so each shows once,
+// and so are the charging assumptions of a conductor whose potential was measured
+// (they fed nothing).
 func modelAssumptions(ev *model.Evaluation) []Default {
-	const own = model.AssumedCapacitance | model.AssumedNotEarthed | model.AssumedBagTypeA |
-		model.AssumedLowConductivity | model.AssumedTemperature
-	rest := ev.Assumed &^ own
-	if rest == 0 {
-		return nil
+	rest := ev.Assumed &^ (model.AssumedCapacitance | model.AssumedNotEarthed | model.AssumedBagTypeA |
+		model.AssumedLowConductivity | model.AssumedTemperature)
+	if ev.PotentialSource == model.PotentialMeasured {
+		rest &^= model.AssumedWalkingCurrent | model.AssumedMaxCurrent | model.AssumedSteadyState
 	}
 	var out []Default
-	for _, t := range rest.Texts() {
-		field, value, ok := strings.Cut(t, ":")
-		if !ok {
-			field, value = "Model assumption", t
+	for bit := model.Assumption(1); bit != 0 && bit <= rest; bit <<= 1 {
+		if rest&bit == 0 {
+			continue
 		}
-		out = append(out, Default{Field: capitalise(strings.TrimSpace(field)), Value: strings.TrimSpace(value), Reason: "model default (see the Method sheet)"})
+		texts := bit.Texts()
+		if len(texts) == 0 {
+			continue
+		}
+		value := texts[0]
+		if _, after, ok := strings.Cut(value, ": "); ok {
+			value = after
+		}
+		out = append(out, Default{Field: assumptionField(bit), Value: value, Reason: "model default: " + texts[0]})
 	}
 	return out
 }
