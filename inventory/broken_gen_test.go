@@ -22,7 +22,9 @@ type brokenSurvey struct {
 // brokenSurveys lists the broken surveys. Object rows of the demo (row 1 is the
 // header): UNW-OP 4, COAT-WEB 5, COAT-PAN 8, COAT-HOSE 9, DRY-TC 13, LAM-PAP 14,
 // REW-SHAFT 20, MIX-TOL2 24, BAG-B 34, DRM-DRUM 41, DRM-LNC 42. Changed values
-// are invented for the tests.
+// are invented for the tests. Every golden also lists the two warnings the demo
+// itself raises on purpose: BAG-X has no bag type (Objects!Y38) and the
+// Materials sheet overrides the built-in PE (Materials!A4).
 func brokenSurveys() []brokenSurvey {
 	return []brokenSurvey{
 		{"person-missing-reading", "person UNW-OP has neither Surface potential nor Resistance to earth",
@@ -63,8 +65,8 @@ func brokenSurveys() []brokenSurvey {
 			func(s *SurveySheets) { setSiteValue(*s, "Survey date", nil) }},
 		{"missing-objects-sheet", "the Objects sheet is missing",
 			func(s *SurveySheets) { dropSheet(s, SheetObjects) }},
-		{"text-in-number", "LAM-PAP field written as about 8",
-			func(s *SurveySheets) { setObjectCell(*s, "LAM-PAP", "Field", "about 8") }},
+		{"text-in-number", "LAM-PAP speed written as about 3.5",
+			func(s *SurveySheets) { setObjectCell(*s, "LAM-PAP", "Speed", "about 3.5") }},
 		{"unknown-column", "an extra Objects column Shift (a warning only)",
 			func(s *SurveySheets) {
 				addObjectColumn(*s, "Shift", map[string]any{"UNW-WEB": "early", "COAT-WEB": "late"})
@@ -75,8 +77,8 @@ func brokenSurveys() []brokenSurvey {
 			func(s *SurveySheets) { setObjectCell(*s, "COAT-PAN", "Length", "n/a") }},
 		{"bad-bag-type", "BAG-B bag type E, not one of A, B, C, D",
 			func(s *SurveySheets) { setObjectCell(*s, "BAG-B", "Bag type", "E") }},
-		{"bad-filling", "MIX-TOL2 filling splash, not top, bottom or dip pipe",
-			func(s *SurveySheets) { setObjectCell(*s, "MIX-TOL2", "Filling", "splash") }},
+		{"bad-filling", "MIX-TOL2 filling pumped, not top, bottom or dip pipe",
+			func(s *SurveySheets) { setObjectCell(*s, "MIX-TOL2", "Filling", "pumped") }},
 	}
 }
 

@@ -289,7 +289,7 @@ func demoObjects() [][]any {
 		o("UNW-WEB", "ST-UNW", KindSheet, "PET film web, free span after the unwind roll", "PET",
 			"Length", 1.8, "Width", 1.32, "Thickness", "23 µm", "Backing", "none", "Field", 180.0, "Field distance", 0.05, "Speed", 3.5), // invented for the demo
 		o("UNW-IDL", "ST-UNW", KindRoller, "Aluminium idler roller, earthed through its bearings", "aluminium",
-			"Length", 1.4, "Diameter", 0.12, "Speed", 3.5, "Resistance to earth", 50.0), // invented for the demo
+			"Length", 1.4, "Diameter", 0.12, "Surface potential", 0.0, "Speed", 3.5, "Resistance to earth", 50.0), // invented for the demo
 		o("UNW-OP", "ST-UNW", KindPerson, "Operator at the splice table, ESD shoes on plain concrete", "",
 			"Resistance to earth", 5e7, "Capacitance", 200.0), // invented for the demo
 
@@ -297,11 +297,11 @@ func demoObjects() [][]any {
 		o("COAT-WEB", "ST-COAT", KindSheet, "PET web entering the coating head, free span, no neutraliser", "PET",
 			"Length", 1.5, "Width", 1.32, "Thickness", 0.023, "Backing", "none", "Field", 400.0, "Field distance", 0.05, "Speed", 3.5), // invented for the demo
 		o("COAT-APP", "ST-COAT", KindRoller, "Steel applicator roll, earthed", "steel",
-			"Length", 1.4, "Diameter", 0.25, "Speed", 3.5, "Resistance to earth", 10.0), // invented for the demo
+			"Length", 1.4, "Diameter", 0.25, "Surface potential", 0.0, "Speed", 3.5, "Resistance to earth", 10.0), // invented for the demo
 		o("COAT-BLD", "ST-COAT", KindPart, "Doctor blade holder on PTFE bushings", "stainless steel",
 			"Surface potential", 6.0, "Resistance to earth", "1 TΩ", "Capacitance", "15 pF"), // invented for the demo
 		o("COAT-PAN", "ST-COAT", KindContainer, "Coating pan, stainless, bonded to the frame", "stainless steel",
-			"Length", 1.5, "Width", 0.3, "Resistance to earth", 5.0, "Capacitance", 150.0), // invented for the demo
+			"Length", 1.5, "Width", 0.3, "Charging current", 0.05, "Resistance to earth", 5.0, "Capacitance", 150.0), // invented for the demo
 		o("COAT-HOSE", "ST-COAT", KindPart, "Metal coupling on the solvent feed hose, no bond wire", "stainless steel",
 			"Charging current", 0.01, "Resistance to earth", 1e9, "Capacitance", 10.0), // invented for the demo
 		o("COAT-OP", "ST-COAT", KindPerson, "Coater operator, ESD shoes on the conductive floor", "",
@@ -311,7 +311,7 @@ func demoObjects() [][]any {
 		o("DRY-WEB", "ST-DRY", KindSheet, "Coated PET web at the tunnel exit, after the ionising bar", "PET",
 			"Length", 2.0, "Width", 1.32, "Thickness", 0.025, "Backing", "none", "Field", 6.0, "Field distance", 0.05, "Speed", 3.5), // invented for the demo
 		o("DRY-IDL", "ST-DRY", KindRoller, "Aluminium idler roller, earthed", "aluminium",
-			"Length", 1.4, "Diameter", 0.1, "Speed", 3.5, "Resistance to earth", 20.0), // invented for the demo
+			"Length", 1.4, "Diameter", 0.1, "Surface potential", 0.0, "Speed", 3.5, "Resistance to earth", 20.0), // invented for the demo
 		o("DRY-TC", "ST-DRY", KindPart, "Web temperature probe on an insulating bracket", "stainless steel",
 			"Surface potential", "2.5 kV", "Resistance to earth", 1e12, "Capacitance", 12.0), // invented for the demo
 
@@ -319,11 +319,11 @@ func demoObjects() [][]any {
 		o("LAM-PAP", "ST-LAM", KindSheet, "Paper interleaf web, free span before the nip", "paper",
 			"Length", 1.0, "Width", 1.32, "Thickness", 0.08, "Backing", "none", "Field", 8.0, "Field distance", 0.05, "Speed", 3.5), // invented for the demo
 		o("LAM-NIP", "ST-LAM", KindRoller, "Steel nip roll, earthed", "steel",
-			"Length", 1.4, "Diameter", 0.2, "Speed", 3.5, "Resistance to earth", 10.0), // invented for the demo
+			"Length", 1.4, "Diameter", 0.2, "Surface potential", 0.0, "Speed", 3.5, "Resistance to earth", 10.0), // invented for the demo
 		o("LAM-OP", "ST-LAM", KindPerson, "Interleaf operator, ESD shoes", "",
 			"Resistance to earth", 3e7, "Capacitance", 200.0), // invented for the demo
 		o("LAM-KNF", "ST-LAM", KindPart, "Slitter knife holder, earthed through the frame", "steel",
-			"Resistance to earth", 1e4, "Capacitance", 20.0), // invented for the demo
+			"Surface potential", 0.0, "Resistance to earth", 1e4, "Capacitance", 20.0), // invented for the demo
 
 		// Rewind (zone 2): low fields; the rewind shaft fails the earthing requirement (marginal).
 		o("REW-WEB", "ST-REW", KindSheet, "Coated web into the rewind nip", "Coated PET C2",
@@ -349,7 +349,7 @@ func demoObjects() [][]any {
 			"Diameter", "25 mm", "Speed", 3.0, "Charging time", 120.0, "Resistance to earth", 1e11, "Capacitance", 300.0,
 			"Conductivity", 4.6e5, "Relative permittivity", 6.0, "Filling", "dip pipe"), // invented for the demo
 		o("MIX-VES", "ST-MIX", KindContainer, "Mixer vessel M1, 2 m³, stainless", "stainless steel",
-			"Diameter", 1.6, "Resistance to earth", 50.0, "Capacitance", 1000.0), // invented for the demo
+			"Diameter", 1.6, "Charging current", 0.15, "Resistance to earth", 50.0, "Capacitance", 1000.0), // invented for the demo
 		o("MIX-OP", "ST-MIX", KindPerson, "Operator at the manway, ordinary shoes on the painted floor", "",
 			"Surface potential", 9.0, "Resistance to earth", 1e12, "Capacitance", 200.0), // invented for the demo
 
@@ -386,7 +386,7 @@ func demoObjects() [][]any {
 			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0,
 			"Notes", "Type not known: assessed as the most restrictive case"), // invented for the demo
 		o("BAG-FRM", "ST-BAG", KindPart, "Bag discharge frame and spout, earthed", "steel",
-			"Resistance to earth", 10.0, "Capacitance", 50.0), // invented for the demo
+			"Charging current", 0.8, "Resistance to earth", 10.0, "Capacitance", 50.0), // invented for the demo
 		o("BAG-OP", "ST-BAG", KindPerson, "Operator cutting the bag spout, ESD shoes", "",
 			"Resistance to earth", 2e7, "Capacitance", 200.0), // invented for the demo
 
@@ -394,11 +394,11 @@ func demoObjects() [][]any {
 		o("DRM-DRUM", "ST-DRM", KindContainer, "200 L steel drum on the filling scale, interlocked earth clamp", "steel",
 			"Diameter", 0.6, "Charging current", 0.5, "Charging time", 180.0, "Resistance to earth", 10.0, "Capacitance", 100.0), // invented for the demo
 		o("DRM-LNC", "ST-DRM", KindPart, "Stainless filling lance, bonded to the filler", "stainless steel",
-			"Resistance to earth", 1e3, "Capacitance", 20.0), // invented for the demo
+			"Charging current", 0.5, "Resistance to earth", 1e3, "Capacitance", 20.0), // invented for the demo
 		o("DRM-BELT", "ST-DRM", KindBelt, "Conveyor belt to the filling scale", "conductive rubber",
-			"Length", 4.0, "Width", 0.6, "Thickness", 5.0, "Backing", "none", "Speed", 0.2, "Resistance to earth", 1e5), // invented for the demo
+			"Length", 4.0, "Width", 0.6, "Thickness", 5.0, "Backing", "none", "Field", 0.5, "Field distance", 0.05, "Speed", 0.2, "Resistance to earth", 1e5), // invented for the demo
 		o("DRM-SCL", "ST-DRM", KindPart, "Weigh-scale platform, bonded", "steel",
-			"Resistance to earth", 2.0, "Capacitance", 120.0), // invented for the demo
+			"Surface potential", 0.0, "Resistance to earth", 2.0, "Capacitance", 120.0), // invented for the demo
 		o("DRM-OP", "ST-DRM", KindPerson, "Filling operator, ESD shoes on the conductive floor", "",
 			"Resistance to earth", 1e7, "Capacitance", 200.0), // invented for the demo
 	}
