@@ -10,6 +10,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/templates"
 )
 
 // The surveys below are built in memory (no workbook): an invented plant whose
@@ -693,5 +694,42 @@ func TestFormat(t *testing.T) {
 		if tc.got != tc.want {
 			t.Errorf("got %q, want %q", tc.got, tc.want)
 		}
+	}
+}
+
+func TestEveryCheckHasMitigation(t *testing.T) {
+	for k := Check(0); k < NumChecks; k++ {
+		if templates.Mitigation(k.Name()) == "" {
+			t.Errorf("check %s has no mitigation text", k.Name())
+		}
+	}
+	for _, cls := range []string{"conductor", "person", "insulator", "powder", "liquid", "bag"} {
+		if templates.Mitigation("energy."+cls) == "" {
+			t.Errorf("energy mitigation for %s missing", cls)
+		}
+	}
+	// A key with no text of its own falls back to its family.
+	if got, want := templates.Mitigation("conductor-earthing.person"), templates.Mitigation("conductor-earthing"); got != want {
+		t.Errorf("fallback: got %q, want %q", got, want)
+	}
+}
+
+func TestAtmosphereDefaults(t *testing.T) {
+	// A vapour atmosphere with no zone is assessed as zone 0, the strictest (TRGS 723 as
+	// summarised in reference section 11), and its MIE from the substance list is recorded.
+	atm := inventory.Atmosphere{ID: "A-HEX", Substance: "n-hexane", Kind: "vapour", MIE: known(0.24e-3), Group: "IIA", MIEFromSubstance: true}
+	// A 10 cm x 6 cm = 60 cm^2 film (derived): above the zone 0 IIA limit of 50 cm^2
+	// (EPL Ga) and below the zone 1 limit of 100 cm^2 (IEC 60079-0, from memory).
+	film := inventory.Object{Kind: "sheet", Material: matPET.Name, Length: known(0.1), Width: known(0.06), Field: known(1e3), FieldDistance: known(0.1)}
+	r := one(t, &atm, film, matPET)
+	if r.Environment.Zone != model.Zone0 || !hasDefault(r, "Zone") || !hasDefault(r, "MIE") {
+		t.Errorf("zone %v defaults %+v, want zone 0 and Zone, MIE defaults", r.Environment.Zone, r.Defaults)
+	}
+	if !hasCheck(r, "insulating-area") {
+		t.Errorf("60 cm² in zone 0 IIA: findings %v, want insulating-area", checks(r))
+	}
+	atm.Zone = "1"
+	if r := one(t, &atm, film, matPET); hasCheck(r, "insulating-area") {
+		t.Errorf("60 cm² in zone 1 IIA: unexpected insulating-area finding")
 	}
 }
