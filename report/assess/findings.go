@@ -260,8 +260,8 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 	}
 	if r.Atmosphere == nil {
 		s := "Non-incendive: no flammable atmosphere at the station, so it is judged on shock alone"
-		if e := ShockEnergy(&r.Input, &r.Eval); !math.IsNaN(e) {
-			s += fmt.Sprintf(", and its %s stays below the %s shock limit", mJ(e), mJ(x.lim.ShockEnergy))
+		if e := ShockEnergy(&r.Input, &r.Eval); e > 0 {
+			s += fmt.Sprintf(", and its stored energy of %s stays below the %s shock limit", mJ(e), mJ(x.lim.ShockEnergy))
 		}
 		return s + "."
 	}
