@@ -246,33 +246,39 @@ const (
 	numAssumptions = iota
 )
 
-var assumptionTexts = [numAssumptions]string{
-	"capacitance not measured: estimated (see the capacitance model)",
-	"resistance to earth not given: taken as not earthed",
-	"charging time not given: steady-state potential I R",
-	"charging current of a walking person taken as 1 uA (Jonassen)",
-	"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR)",
-	"air temperature not given: 20 °C",
-	"size not given: potential not capped at corona onset",
-	"layer permittivity not given: 3 (common polymers)",
-	"permittivity of the layer under the container not given: 2 (dry wood)",
-	"sheet size not given: taken as infinite (sigma = 2 eps0 E, a lower bound)",
-	"surface resistivity not given: the material's dissipative class taken (lost below 30 %RH)",
-	"layer breakdown strength not given: taken above 4 kV",
-	"insulating area not given: propagating brush energy taken at its upper bound",
-	"double-layer thickness not given: taken as thin",
-	"powder volume resistivity not given: taken as high (>= 1e10 ohm m)",
-	"powder charge not given: cone discharge taken as possible",
-	"liquid conductivity not given: taken as low",
-	"liquid permittivity not given: 2",
-	"bag type not given: assessed as type A, the most restrictive case",
-	"charging current not given: the 3 uA the bag qualification assumes",
-	"product MIE not given: the station's dust MIE",
-	"product MIE not given: the most sensitive band (<= 3 mJ)",
+// assumptionTexts returns the texts of the set's bits, in bit order (a table, not state).
+func assumptionTexts() [numAssumptions]string {
+	return [numAssumptions]string{
+		"capacitance not measured: estimated (see the capacitance model)",
+		"resistance to earth not given: taken as not earthed",
+		"charging time not given: steady-state potential I R",
+		"charging current of a walking person taken as 1 uA (Jonassen)",
+		"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR)",
+		"air temperature not given: 20 °C",
+		"size not given: potential not capped at corona onset",
+		"layer permittivity not given: 3 (common polymers)",
+		"permittivity of the layer under the container not given: 2 (dry wood)",
+		"sheet size not given: taken as infinite (sigma = 2 eps0 E, a lower bound)",
+		"surface resistivity not given: the material's dissipative class taken (lost below 30 %RH)",
+		"layer breakdown strength not given: taken above 4 kV",
+		"insulating area not given: propagating brush energy taken at its upper bound",
+		"double-layer thickness not given: taken as thin",
+		"powder volume resistivity not given: taken as high (>= 1e10 ohm m)",
+		"powder charge not given: cone discharge taken as possible",
+		"liquid conductivity not given: taken as low",
+		"liquid permittivity not given: 2",
+		"bag type not given: assessed as type A, the most restrictive case",
+		"charging current not given: the 3 uA the bag qualification assumes",
+		"product MIE not given: the station's dust MIE",
+		"product MIE not given: the most sensitive band (<= 3 mJ)",
+	}
 }
 
 // Texts lists the assumptions in the set, in a fixed order (allocates; call on demand).
-func (a Assumption) Texts() []string { return bitTexts(uint32(a), assumptionTexts[:]) }
+func (a Assumption) Texts() []string {
+	t := assumptionTexts()
+	return bitTexts(uint32(a), t[:])
+}
 
 // Flags: what the model noticed.
 const (
@@ -290,22 +296,28 @@ const (
 	numFlags = iota
 )
 
-var flagTexts = [numFlags]string{
-	"reading beyond what air can hold: check the reading and its unit",
-	"potential capped at the corona onset of the conductor's radius",
-	"body potential capped at the documented walking-test maximum",
-	"Glor's formula used outside its validity range (D 0.5-3 m, d 0.1-3 mm): extrapolated",
-	"the layer can support a propagating brush if charged to 2.5e-4 C/m^2",
-	"the dissipative surface decays more slowly than it reaches the hazard",
-	"stored energy above the shock threshold",
-	"flow velocity above the filling limit",
-	"top (splash) filling of a low-conductivity liquid",
-	"type C bag not earthed (tab to earth unknown or above the limit)",
-	"charging current above the 3 uA the type C/D qualification assumes",
+// flagTexts returns the texts of the set's bits, in bit order (a table, not state).
+func flagTexts() [numFlags]string {
+	return [numFlags]string{
+		"reading beyond what air can hold: check the reading and its unit",
+		"potential capped at the corona onset of the conductor's radius",
+		"body potential capped at the documented walking-test maximum",
+		"Glor's formula used outside its validity range (D 0.5-3 m, d 0.1-3 mm): extrapolated",
+		"the layer can support a propagating brush if charged to 2.5e-4 C/m^2",
+		"the dissipative surface decays more slowly than it reaches the hazard",
+		"stored energy above the shock threshold",
+		"flow velocity above the filling limit",
+		"top (splash) filling of a low-conductivity liquid",
+		"type C bag not earthed (tab to earth unknown or above the limit)",
+		"charging current above the 3 uA the type C/D qualification assumes",
+	}
 }
 
 // Texts lists the flags in the set, in a fixed order (allocates; call on demand).
-func (f Flag) Texts() []string { return bitTexts(uint32(f), flagTexts[:]) }
+func (f Flag) Texts() []string {
+	t := flagTexts()
+	return bitTexts(uint32(f), t[:])
+}
 
 // Missing inputs.
 const (
@@ -321,20 +333,26 @@ const (
 	numMissing = iota
 )
 
-var missingTexts = [numMissing]string{
-	"needs a known Kind",
-	"needs Field with Field distance, or Surface potential",
-	"needs Field distance for the Field reading",
-	"needs Thickness of the layer on its earthed backing",
-	"needs Backing earthed with Thickness, or Distance to earth, to use a Surface potential",
-	"needs Surface potential, Charging current (or Mass flow and Charge-to-mass) or Resistance to earth",
-	"needs Surface potential or Resistance to earth",
-	"needs Diameter and Particle size for the cone discharge energy",
-	"needs Speed and Diameter of the line, or Charging current",
+// missingTexts returns the texts of the set's bits, in bit order (a table, not state).
+func missingTexts() [numMissing]string {
+	return [numMissing]string{
+		"needs a known Kind",
+		"needs Field with Field distance, or Surface potential",
+		"needs Field distance for the Field reading",
+		"needs Thickness of the layer on its earthed backing",
+		"needs Backing earthed with Thickness, or Distance to earth, to use a Surface potential",
+		"needs Surface potential, Charging current (or Mass flow and Charge-to-mass) or Resistance to earth",
+		"needs Surface potential or Resistance to earth",
+		"needs Diameter and Particle size for the cone discharge energy",
+		"needs Speed and Diameter of the line, or Charging current",
+	}
 }
 
 // Texts lists what the object lacks, in a fixed order (allocates; call on demand).
-func (m Missing) Texts() []string { return bitTexts(uint32(m), missingTexts[:]) }
+func (m Missing) Texts() []string {
+	t := missingTexts()
+	return bitTexts(uint32(m), t[:])
+}
 
 func bitTexts(set uint32, texts []string) []string {
 	var out []string
