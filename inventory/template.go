@@ -263,7 +263,15 @@ func writeSiteTemplate(f *excelize.File, st sheetStyles, cautions []string) erro
 			if err := f.SetCellStyle(s, cell, cell, st.note); err != nil {
 				return err
 			}
+			// Wrapped rows do not grow by themselves in every program.
+			lines := (len([]rune(c)) + cautionLineChars - 1) / cautionLineChars
+			if err := f.SetRowHeight(s, row+1+i, 15*float64(max(lines, 1))); err != nil {
+				return err
+			}
 		}
+	}
+	if err := fitToPageWidth(f, s, "landscape"); err != nil {
+		return err
 	}
 	if err := f.SetColWidth(s, "A", "A", 26); err != nil {
 		return err
@@ -274,10 +282,27 @@ func writeSiteTemplate(f *excelize.File, st sheetStyles, cautions []string) erro
 	if err := f.SetColWidth(s, "C", "C", 4); err != nil {
 		return err
 	}
-	if err := f.SetColWidth(s, "D", "D", 90); err != nil {
+	if err := f.SetColWidth(s, "D", "D", cautionColumnWidth); err != nil {
 		return err
 	}
 	return freezeHeader(f, s, 0)
+}
+
+// cautionColumnWidth is the width of the Site sheet's caution column, and
+// cautionLineChars about how many characters of italic text a line of it holds.
+const (
+	cautionColumnWidth = 90
+	cautionLineChars   = 95
+)
+
+// fitToPageWidth prints the sheet one page wide in the given orientation.
+func fitToPageWidth(f *excelize.File, sheet, orientation string) error {
+	fit := true
+	if err := f.SetSheetProps(sheet, &excelize.SheetPropsOptions{FitToPage: &fit}); err != nil {
+		return err
+	}
+	one, any := 1, 0
+	return f.SetPageLayout(sheet, &excelize.PageLayoutOptions{Orientation: &orientation, FitToWidth: &one, FitToHeight: &any})
 }
 
 // writeTableTemplate writes a table sheet's header row, its hints and drop-downs.
@@ -315,6 +340,9 @@ func writeTableTemplate(f *excelize.File, st sheetStyles, sheet string, lists li
 		if err := f.AddDataValidation(sheet, data); err != nil {
 			return err
 		}
+	}
+	if err := fitToPageWidth(f, sheet, "landscape"); err != nil {
+		return err
 	}
 	xsplit := 0
 	if sheet == SheetObjects {
