@@ -80,17 +80,21 @@ func testAudit() *assess.Audit {
 	// energy, CLC/TR 50404 summaries) against 0.24 mJ: ratio 16.67 (derived: 4/0.24).
 	o1 := blankEval(model.Sheet)
 	o1.ChargeDensity = 12e-6 // invented for the demo
+	o1.Assumed = model.AssumedInfiniteSheet
+	o1.Flags = model.FlagSlowDecay
 	o1.SurfaceField = 12e-6 / (2 * 8.8541878128e-12) // derived: sigma/(2 eps0) = 677.6 kV/m
 	o1.Discharges[model.Brush] = model.Discharge{Type: model.Brush, Possible: true, Energy: 4e-3, Charge: 120e-9}
 	o1.EffectiveEnergy, o1.Effective = 4e-3, model.Brush
-	o1.TransferredCharge = 120e-9 // derived: 12 uC/m^2 x 100 cm^2
-	o1.InsulatingArea = 1.2 * 3  // invented for the demo: 1.2 m wide, 3 m free span
+	o1.TransferredCharge = 120e-9                        // derived: 12 uC/m^2 x 100 cm^2
+	o1.InsulatingArea = 1.2 * 3                          // invented for the demo: 1.2 m wide, 3 m free span
 	o1.SurfaceResistivity = 1e14 * math.Pow(10, 0.1*1.5) // derived: slope 0.1 dec per 10 %RH, 15 %RH below 50 %
 	o1.ChargingCurrent = 12e-6 * 2.5 * 1.2               // derived: I = sigma v w
 
 	// O2: isolated idler roller, 30 pF at 5 kV: W = 0.375 mJ (derived: C V^2/2).
 	o2 := blankEval(model.Roller)
 	o2.Capacitance, o2.Potential = 30e-12, 5e3
+	o2.CapacitanceModel, o2.PotentialSource = model.CapCylinderPlane, model.PotentialMeasured
+	o2.Assumed = model.AssumedCapacitance | model.AssumedNotEarthed
 	o2.StoredEnergy = 0.5 * 30e-12 * 5e3 * 5e3
 	o2.Discharges[model.Spark] = model.Discharge{Type: model.Spark, Possible: true, Energy: o2.StoredEnergy, Charge: 30e-12 * 5e3}
 	o2.EffectiveEnergy, o2.Effective = o2.StoredEnergy, model.Spark
@@ -101,6 +105,8 @@ func testAudit() *assess.Audit {
 	// O3: operator, 200 pF (Saito 1963 typical body) at 10 kV: 10 mJ (derived).
 	o3 := blankEval(model.Person)
 	o3.Capacitance, o3.Potential = 200e-12, 10e3
+	o3.CapacitanceModel, o3.PotentialSource = model.CapTypical, model.PotentialMeasured
+	o3.Assumed = model.AssumedCapacitance
 	o3.StoredEnergy = 10e-3
 	o3.Discharges[model.Spark] = model.Discharge{Type: model.Spark, Possible: true, Energy: 10e-3, Charge: 2e-6}
 	o3.EffectiveEnergy, o3.Effective = 10e-3, model.Spark
@@ -116,6 +122,7 @@ func testAudit() *assess.Audit {
 	// V = 47.6 kV, W = 113 mJ (electrostatics.md §10 case 6, derived).
 	o5 := blankEval(model.Container)
 	o5.Capacitance, o5.Potential = 100e-12, 47.6e3
+	o5.CapacitanceModel, o5.PotentialSource = model.CapMeasured, model.PotentialCharging
 	o5.StoredEnergy = 0.5 * 100e-12 * 47.6e3 * 47.6e3
 	o5.Discharges[model.Spark] = model.Discharge{Type: model.Spark, Possible: true, Energy: o5.StoredEnergy, Charge: 4.76e-6}
 	o5.EffectiveEnergy, o5.Effective = o5.StoredEnergy, model.Spark
@@ -143,7 +150,7 @@ func testAudit() *assess.Audit {
 
 	// O9: a part with nothing measured: not assessed.
 	o9 := blankEval(model.Part)
-	o9.NotAssessed = 1
+	o9.NotAssessed = model.MissingConductorCharging
 	o9.EffectiveEnergy = nan
 
 	obj := func(id, station, kind string, row int) inventory.Object {
@@ -246,16 +253,11 @@ func testAudit() *assess.Audit {
 	}
 }
 
-// testLimits are the limits the fixture says it applied. Source: electrostatics.md §5-6
-// (IEC 60079-0 and TRGS 727 values, several from memory as marked there).
+// testLimits are the model's default limits (with their sources in
+// model.LimitSources) with one survey override, as a Site sheet may give:
+// conductors to earth at 1e8 ohm instead of 1e6 (invented for the demo).
 func testLimits() model.Limits {
-	var l model.Limits
-	l.BrushChargeDensity[model.IIA], l.BrushChargeDensity[model.IIB], l.BrushChargeDensity[model.IIC] = 5e-6, 3e-6, 1e-6
-	l.BrushEnergy, l.BrushArea = 4e-3, 100e-4
-	l.TransferredCharge[model.IIA], l.TransferredCharge[model.IIB], l.TransferredCharge[model.IIC] = 60e-9, 25e-9, 10e-9
-	l.AreaGb[model.IIA], l.AreaGb[model.IIB], l.AreaGb[model.IIC] = 100e-4, 100e-4, 20e-4
-	l.AreaGa[model.IIA], l.AreaGa[model.IIB], l.AreaGa[model.IIC] = 50e-4, 25e-4, 4e-4
-	l.ConductorEarthing, l.PersonEarthing, l.PersonEarthingMIE, l.ShockEnergy = 1e6, 1e8, 10e-3, 350e-3
-	l.SafePotential, l.SparkMinPotential, l.AirBreakdown, l.NotEarthed = 100, 300, 3e6, 1e13
+	l := model.DefaultLimits()
+	l.ConductorEarthing = 1e8
 	return l
 }

@@ -38,6 +38,8 @@ const (
 	UnitRatio                   // energy over MIE, [–]
 	UnitProbability             // a probability 0-1, shown as a percentage
 	UnitCelsius                 // temperature in °C from kelvin
+	UnitVolt                    // potential, V (small potentials: limits)
+	UnitCubicMetre              // volume, m³
 )
 
 type unitSpec struct {
@@ -95,6 +97,10 @@ func (u Unit) spec() unitSpec {
 		return unitSpec{"", 1, 0, fmtWide2}
 	case UnitProbability:
 		return unitSpec{"", 1, 0, fmtPercent1}
+	case UnitVolt:
+		return unitSpec{"V", 1, 0, fmtFixed0}
+	case UnitCubicMetre:
+		return unitSpec{"m³", 1, 0, fmtFixed2}
 	case UnitCelsius:
 		return unitSpec{"°C", 1, 273.15, fmtFixed1}
 	}

@@ -14,9 +14,9 @@ func TestUnitDisplay(t *testing.T) {
 		si   float64
 		want float64
 	}{
-		{"person capacitance", UnitPF, 200e-12, 200},     // Saito 1963: 200 pF typical body
-		{"body potential", UnitKV, 10e3, 10},             // derived: 10 kV
-		{"spark energy", UnitMJ, 5e-3, 5},                // Source: electrostatics.md §10.1, 100 pF at 10 kV -> 5 mJ
+		{"person capacitance", UnitPF, 200e-12, 200},      // Saito 1963: 200 pF typical body
+		{"body potential", UnitKV, 10e3, 10},              // derived: 10 kV
+		{"spark energy", UnitMJ, 5e-3, 5},                 // Source: electrostatics.md §10.1, 100 pF at 10 kV -> 5 mJ
 		{"breakdown density", UnitUCPerM2, 2.65e-5, 26.5}, // Source: CCPS glossary, eps0 x 3 MV/m
 		{"air breakdown", UnitKVPerM, 3e6, 3000},          // Source: AMS Glossary, about 3 MV/m
 		{"group IIA charge", UnitNC, 60e-9, 60},           // from memory: IEC 60079-0, 60 nC for IIA

@@ -59,10 +59,10 @@ func TestWriteJSONNulls(t *testing.T) {
 	}
 	// Keys present and null where the kind has no such quantity.
 	nulls := []struct{ id, key string }{
-		{"O7", "ratio"},           // no atmosphere
-		{"O9", "ratio"},           // no atmosphere
-		{"O9", "energy_J"},        // not assessed
-		{"O1", "capacitance_F"},   // a sheet has no capacitance
+		{"O7", "ratio"},         // no atmosphere
+		{"O9", "ratio"},         // no atmosphere
+		{"O9", "energy_J"},      // not assessed
+		{"O1", "capacitance_F"}, // a sheet has no capacitance
 		{"O3", "charge_density_C_per_m2"},
 		{"O8", "potential_V"},
 	}

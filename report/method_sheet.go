@@ -3,6 +3,7 @@ package report
 import (
 	"fmt"
 	"math"
+	"reflect"
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/model"
@@ -15,62 +16,154 @@ func containsFold(s, sub string) bool {
 
 // limitRow is one limit applied, with its value in display units and its source.
 type limitRow struct {
-	name   string
-	value  float64 // SI
-	unit   Unit
-	source string
+	name       string
+	value      float64 // SI, as applied
+	def        float64 // SI, the model's default
+	unit       Unit
+	source     string
+	fromMemory bool
 }
 
-// limitRows lists the limits of l with their sources and editions.
-//
-// TODO(model.LimitSources): the source texts here repeat the project's
-// reference notes (electrostatics.md §5-8b); once package model exports the
-// sources beside its DefaultLimits, take them from there instead. Values always
-// come from the limits actually applied (Options.Limits, survey overrides merged).
-func limitRows(l model.Limits) []limitRow {
-	g := func(name string, arr [7]float64, u Unit, src string) []limitRow {
-		return []limitRow{
-			{name + ", IIA", arr[model.IIA], u, src},
-			{name + ", IIB", arr[model.IIB], u, src},
-			{name + ", IIC", arr[model.IIC], u, src},
-		}
-	}
+// limitRows lists every limit of model.LimitSources with the value actually
+// applied (Options.Limits, survey overrides merged), the default and its source.
+func limitRows(applied model.Limits) []limitRow {
+	rv := reflect.ValueOf(applied)
 	var out []limitRow
-	out = append(out, g("Brush charge-density screen", l.BrushChargeDensity, UnitUCPerM2, "JNIOSH-TR (secondary summary); a documented, overridable screen")...)
-	out = append(out,
-		limitRow{"Brush equivalent energy", l.BrushEnergy, UnitMJ, "CLC/TR 50404 summaries (3-4 mJ, upper end taken)"},
-		limitRow{"Area one brush discharge drains", l.BrushArea, UnitCM2, "documented choice of this tool"},
-	)
-	out = append(out, g("Transferred charge, EPL Gb/Gc (zones 1, 2)", l.TransferredCharge, UnitNC, "IEC 60079-0 7.4.2 / IEC TS 60079-32-1:2013+A1:2017 (from memory)")...)
-	out = append(out, limitRow{"Zone 0 factor on transferred charge", l.ZoneZeroChargeFactor, UnitDimless, "documented choice (zone 0 values not confirmed)"})
-	out = append(out, g("Insulating area, EPL Ga (zone 0)", l.AreaGa, UnitCM2, "IEC 60079-0 (from memory)")...)
-	out = append(out, g("Insulating area, EPL Gb/Gc (zones 1, 2)", l.AreaGb, UnitCM2, "IEC 60079-0 (from memory)")...)
-	out = append(out,
-		limitRow{"Propagating brush: charge density needed", l.PropagatingDensity, UnitUCPerM2, "JNIOSH-TR; TRGS 727 Annex C"},
-		limitRow{"Propagating brush: layer breakdown below which prevented", l.PropagatingBreakdown, UnitKV, "TRGS 727 Annex C; IEC 60079-0:2017"},
-		limitRow{"Propagating brush: thickness above which not expected", l.PropagatingThickness, UnitMillimetre, "from memory (8-10 mm)"},
-		limitRow{"Conductor resistance to earth", l.ConductorEarthing, UnitOhm, "TRGS 727 8.3"},
-		limitRow{"Person-to-earth resistance", l.PersonEarthing, UnitOhm, "TRGS 727 7.2 (zones 0, 1, 20, 21)"},
-		limitRow{"Person limit applies at MIE up to", l.PersonEarthingMIE, UnitMJ, "TRGS 727 7.2"},
-		limitRow{"Shock energy to people", l.ShockEnergy, UnitMJ, "TRGS 727 Annex D"},
-		limitRow{"Safe conductor potential", l.SafePotential, UnitKV, "JNIOSH-TR (100 V)"},
-		limitRow{"Spark minimum potential (Paschen floor)", l.SparkMinPotential, UnitKV, "Paschen minimum in air, about 300-327 V"},
-		limitRow{"Air breakdown field", l.AirBreakdown, UnitKVPerM, "AMS Glossary (about 3 MV/m, cm gaps)"},
-		limitRow{"Resistance taken when unknown", l.NotEarthed, UnitOhm, "documented choice: treated as not earthed"},
-		limitRow{"Cap on an estimated body potential", l.PersonMaxPotential, UnitKV, "ESD Association walking tests (tens of kV)"},
-		limitRow{"Liquid: low conductivity at or below", l.LowConductivity, UnitPSPerM, "IEC TS 60079-32-1"},
-		limitRow{"Liquid: high conductivity above", l.HighConductivity, UnitPSPerM, "IEC TS 60079-32-1 (from memory)"},
-		limitRow{"Liquid: v·d limit above the conductivity bound", l.VDHigh, UnitM2PerS, "IEC TS 60079-32-1 (road tankers)"},
-		limitRow{"Liquid: v·d limit at or below it, or unknown", l.VDLow, UnitM2PerS, "IEC TS 60079-32-1 (road tankers)"},
-		limitRow{"Liquid: conductivity bound of the v·d limits", l.VDKappa, UnitPSPerM, "IEC TS 60079-32-1"},
-		limitRow{"Liquid: maximum velocity", l.MaxVelocity, UnitMPerS, "IEC TS 60079-32-1 (from memory)"},
-		limitRow{"Liquid: velocity until the inlet is submerged", l.SlowStartVelocity, UnitMPerS, "IEC TS 60079-32-1 (from memory)"},
-		limitRow{"Bag type C: any point to earthing tab", l.BagCToTab, UnitOhm, "IEC 61340-4-4:2018 (1e7 Ω in the earlier edition)"},
-		limitRow{"Bag type C: tab to plant earth", l.BagTabToEarth, UnitOhm, "IEC 61340-4-4"},
-		limitRow{"Bags C, D: MIE their qualification assumes", l.BagMinMIE, UnitMJ, "IEC 61340-4-4"},
-		limitRow{"Bags C, D: charging current their qualification assumes", l.BagMaxCurrent, UnitUA, "IEC 61340-4-4"},
-	)
+	for _, c := range model.LimitSources() {
+		v, ok := limitField(rv, c.Limit)
+		if !ok {
+			v = c.Value
+		}
+		out = append(out, limitRow{name: limitLabel(c.Limit), value: v, def: c.Value, unit: siDisplayUnit(c.Unit),
+			source: c.Source, fromMemory: c.FromMemory})
+	}
 	return out
+}
+
+// limitField reads the Limits field named as in model.Citation.Limit:
+// "ShockEnergy" or "TransferredCharge[IIB]" ("[other]" is the no-group entry).
+func limitField(rv reflect.Value, name string) (float64, bool) {
+	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
+	f := rv.FieldByName(field)
+	if !f.IsValid() {
+		return 0, false
+	}
+	if indexed {
+		if f.Kind() != reflect.Array {
+			return 0, false
+		}
+		g := model.GroupNone
+		if group != "other" {
+			pg, err := model.ParseGroup(group)
+			if err != nil {
+				return 0, false
+			}
+			g = pg
+		}
+		if int(g) >= f.Len() {
+			return 0, false
+		}
+		f = f.Index(int(g))
+	}
+	if f.Kind() != reflect.Float64 {
+		return 0, false
+	}
+	return f.Float(), true
+}
+
+// siDisplayUnit maps the SI unit of a citation to the audit's display unit.
+func siDisplayUnit(si string) Unit {
+	switch si {
+	case "C/m^2":
+		return UnitUCPerM2
+	case "J":
+		return UnitMJ
+	case "m^2":
+		return UnitCM2
+	case "C":
+		return UnitNC
+	case "V":
+		return UnitVolt
+	case "V/m":
+		return UnitKVPerM
+	case "ohm":
+		return UnitOhm
+	case "ohm m":
+		return UnitOhmM
+	case "S/m":
+		return UnitPSPerM
+	case "m^2/s":
+		return UnitM2PerS
+	case "m/s":
+		return UnitMPerS
+	case "A":
+		return UnitUA
+	case "m":
+		return UnitMillimetre
+	case "C/kg":
+		return UnitUCPerKg
+	case "m^3":
+		return UnitCubicMetre
+	}
+	return UnitDimless
+}
+
+// limitLabel names a limit in words; an unknown field keeps its name.
+func limitLabel(name string) string {
+	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
+	labels := map[string]string{
+		"BrushChargeDensity":   "Brush discharge: charge-density screen",
+		"BrushEnergy":          "Brush discharge: equivalent energy",
+		"BrushArea":            "Brush discharge: area one discharge drains",
+		"TransferredCharge":    "Transferred charge, EPL Gb/Gc (zones 1, 2)",
+		"ZoneZeroChargeFactor": "Zone 0 factor on the transferred charge",
+		"AreaGa":               "Insulating area, EPL Ga (zone 0)",
+		"AreaGb":               "Insulating area, EPL Gb/Gc (zones 1, 2)",
+		"PropagatingDensity":   "Propagating brush: charge density it needs",
+		"PropagatingBreakdown": "Propagating brush: layer breakdown below which it is prevented",
+		"PropagatingThickness": "Propagating brush: thickness above which it is not expected",
+		"PropagatingMaxEnergy": "Propagating brush: upper bound of the energy",
+		"ConductorEarthing":    "Conductor resistance to earth",
+		"PersonEarthing":       "Person-to-earth resistance",
+		"PersonEarthingMIE":    "Person-to-earth limit applies at MIE up to",
+		"ShockEnergy":          "Shock energy to people",
+		"SafePotential":        "Safe conductor potential",
+		"SparkMinPotential":    "Spark minimum potential (Paschen)",
+		"AirBreakdown":         "Air breakdown field",
+		"NotEarthed":           "Resistance taken when not measured",
+		"PersonMaxPotential":   "Cap on an estimated body potential",
+		"LowConductivity":      "Liquid: low conductivity at or below",
+		"HighConductivity":     "Liquid: high conductivity above",
+		"VDHigh":               "Liquid filling: v·d limit above the conductivity bound",
+		"VDLow":                "Liquid filling: v·d limit at or below it, or unknown",
+		"VDKappa":              "Liquid filling: conductivity bound of the v·d limits",
+		"MaxVelocity":          "Liquid filling: maximum velocity",
+		"SlowStartVelocity":    "Liquid filling: velocity until the inlet is submerged",
+		"BagCToTab":            "Bag type C: any point to the earthing tab",
+		"BagTabToEarth":        "Bag type C: tab to plant earth",
+		"BagMinMIE":            "Bags C and D: lowest MIE of their qualification",
+		"BagMaxCurrent":        "Bags C and D: charging current of their qualification",
+		"MaxChargingCurrent":   "Largest charging current taken when none is known",
+		"DissipativeSurface":   "Surface resistance counted as dissipative",
+		"DissipativeEarthing":  "Earthing of a dissipative surface",
+		"ConeResistivity":      "Cone discharge: bulk resistivity needed",
+		"ConeChargeToMass":     "Cone discharge: charge-to-mass needed",
+		"ConeField":            "Cone discharge: heap field below which none is expected",
+		"ConeMinVolume":        "Cone discharge: container volume below which none is expected",
+		"BagDustLow":           "Bags: MIE band boundary (low)",
+		"BagDustHigh":          "Bags: MIE band boundary (high)",
+	}
+	l, ok := labels[field]
+	if !ok {
+		l = field
+	}
+	if indexed {
+		if group == "other" {
+			group = "no group, dusts"
+		}
+		l += ", " + group
+	}
+	return l
 }
 
 // limitValue returns the display cell of a limit: empty when the limit is not
@@ -86,7 +179,8 @@ func limitValue(r limitRow) cell {
 // sources, constants, limits applied, defaults applied and materials used.
 func (wb *workbook) method() error {
 	f, s, a := wb.f, SheetMethod, wb.a
-	if err := setWidths(f, s, []float64{40, 60, 14, 12, 50}); err != nil {
+	widths := []float64{36, 56, 30, 18, 50}
+	if err := setWidths(f, s, widths); err != nil {
 		return err
 	}
 	sink := normalSink{f: f, sheet: s, st: wb.st}
@@ -109,21 +203,8 @@ func (wb *workbook) method() error {
 		return nil
 	}
 	put := func(cells ...cell) error {
-		if err := sink.row(r, cells); err != nil {
+		if err := sink.row(r, cells, rowHeight(widths, cells)); err != nil {
 			return err
-		}
-		// Wrapped long texts: estimate the height from the longest cell.
-		h := 0.0
-		widths := []float64{40, 60, 14, 12, 50}
-		for i, c := range cells {
-			if t, ok := c.v.(string); ok && c.wrap && i < len(widths) {
-				h = math.Max(h, wrappedHeight(t, widths[i]))
-			}
-		}
-		if h > 17 {
-			if err := f.SetRowHeight(s, r, h); err != nil {
-				return err
-			}
 		}
 		r++
 		return nil
@@ -180,19 +261,19 @@ func (wb *workbook) method() error {
 		src  string
 	}{
 		{"Vacuum permittivity ε0", 8.8541878128e-12, "F/m", "0.0000000000E+00", "CODATA 2018"},
-		{"Air breakdown field (cm gaps)", breakdown / 1e3, "kV/m", "0", "AMS Glossary (about 3 MV/m)"},
+		{"Air breakdown field (cm gaps)", breakdown / 1e3, "kV/m", "0", "AMS Glossary (about 3 MV/m); the value applied"},
 		{"Breakdown-limited charge density, one side", 8.8541878128e-12 * breakdown / 1e-6, "µC/m²", "0.00", "derived: ε0 × air breakdown field; CCPS glossary 2.65e-5 C/m²"},
 		{"Paschen minimum in air", paschen, "V", "0", "Paschen's law; about 327 V, no gap breaks down below about 300 V"},
 		{"Corona onset, smooth cylinder r = 1 mm", 5860, "kV/m", "0", "Peek 1929: 30 δ m (1 + 0.301/√(δ r)) kV/cm, 58.6 kV/cm"},
 	}
 	for _, c := range consts {
-		if err := put(text(c.name), cell{v: c.v, numFmt: c.fmt}, text(c.unit), cell{}, wrapText(c.src)); err != nil {
+		if err := put(text(c.name), cell{v: c.v, numFmt: c.fmt, align: "left"}, text(c.unit), cell{}, wrapText(c.src)); err != nil {
 			return err
 		}
 	}
 	r++
 
-	if err := section("Limits applied", []string{"Limit", "Value", "Unit", "", "Source and edition"}); err != nil {
+	if err := section("Limits applied", []string{"Limit", "Value applied", "Unit", "Survey override", "Source and edition"}); err != nil {
 		return err
 	}
 	for _, l := range limitRows(a.Options.Limits) {
@@ -200,11 +281,21 @@ func (wb *workbook) method() error {
 		if unit == "" {
 			unit = "–"
 		}
-		if err := put(wrapText(l.name), limitValue(l), text(unit), cell{}, wrapText(l.source)); err != nil {
+		src := l.source
+		if l.fromMemory {
+			src += " (from memory, not confirmed)"
+		}
+		over := cell{}
+		if l.value != l.def && !(math.IsNaN(l.value) && math.IsNaN(l.def)) {
+			over = wrapText("yes; default " + l.unit.Text(l.def))
+		}
+		v := limitValue(l)
+		v.align = "left"
+		if err := put(wrapText(l.name), v, text(unit), over, wrapText(src)); err != nil {
 			return err
 		}
 	}
-	if err := put(wrapText("Required margin on MIE (Site sheet)"), est(inQ(UnitDimless, site.RequiredMargin), siteDefaulted(site.Defaults, "margin")), text("–"), cell{}, wrapText("the site's choice; default 10")); err != nil {
+	if err := put(wrapText("Required margin on MIE (Site sheet)"), leftAligned(est(inQ(UnitDimless, site.RequiredMargin), siteDefaulted(site.Defaults, "margin"))), text("–"), cell{}, wrapText("the site's choice; default 10")); err != nil {
 		return err
 	}
 	r++
@@ -213,28 +304,24 @@ func (wb *workbook) method() error {
 		return err
 	}
 	nd := 0
-	for _, d := range site.Defaults {
-		if err := put(text("Site: "+d), cell{}, cell{}, cell{}, text("Site sheet value not given: default used")); err != nil {
+	for _, d := range a.MethodDefaults {
+		if err := put(wrapText(d.Field), wrapText(d.Value), cell{}, cell{}, wrapText(d.Reason)); err != nil {
 			return err
 		}
 		nd++
 	}
-	for _, at := range a.Survey.Atmospheres {
-		if at.MIEFromSubstance {
-			if err := put(text("MIE of atmosphere "+at.ID), text(UnitMJ.Text(at.MIE.OrNaN())), cell{}, cell{}, wrapText("from the built-in substance list ("+at.Substance+")")); err != nil {
-				return err
+	// Site values the survey reader defaulted, unless the assessment listed them already.
+	for _, d := range site.Defaults {
+		listed := false
+		for _, m := range a.MethodDefaults {
+			if containsFold(d, m.Field) {
+				listed = true
 			}
-			nd++
 		}
-		if at.GroupFromSubstance {
-			if err := put(text("Group of atmosphere "+at.ID), text(at.Group), cell{}, cell{}, wrapText("from the built-in substance list ("+at.Substance+")")); err != nil {
-				return err
-			}
-			nd++
+		if listed {
+			continue
 		}
-	}
-	for _, d := range a.MethodDefaults {
-		if err := put(wrapText(d.Field), wrapText(d.Value), cell{}, cell{}, wrapText(d.Reason)); err != nil {
+		if err := put(wrapText("Site sheet: "+d), cell{}, cell{}, cell{}, text("not given on the Site sheet: default used")); err != nil {
 			return err
 		}
 		nd++
@@ -246,7 +333,7 @@ func (wb *workbook) method() error {
 	}
 	r++
 
-	if err := section("Materials used", []string{"Material", "Class", UnitOhmSq.Header("Surface resistivity at 50 % RH"), "Slope [decades per 10 %RH]", "Source"}); err != nil {
+	if err := section("Materials used", []string{"Material", "Class", UnitOhmSq.Header("Surface resistivity at 50 % RH"), "Slope [dec/10 %RH]", "Source"}); err != nil {
 		return err
 	}
 	used := map[string]bool{}
@@ -268,4 +355,9 @@ func (wb *workbook) method() error {
 		}
 	}
 	return wb.printSetup(s, 1, "", "")
+}
+
+func leftAligned(c cell) cell {
+	c.align = "left"
+	return c
 }

@@ -13,6 +13,9 @@ import (
 // enumText returns the text of a model enum or bit set: its String method when
 // it has one, "" for the zero value, else the number (until the model names it).
 func enumText(v any) string {
+	if t, ok := v.(interface{ Texts() []string }); ok {
+		return strings.Join(t.Texts(), "; ")
+	}
 	if s, ok := v.(fmt.Stringer); ok {
 		return s.String()
 	}
@@ -156,7 +159,17 @@ func objectColumns(withProbability bool) []column[objRow] {
 			if o.Eval.NotAssessed != 0 {
 				return cell{numFmt: UnitMJ.NumFmt()}
 			}
-			return quantity(UnitMJ, o.Eval.EffectiveEnergy)
+			c := quantity(UnitMJ, o.Eval.EffectiveEnergy)
+			switch {
+			case o.Eval.EffectiveEnergy <= 0:
+			case o.Eval.Effective == model.Brush:
+				c = est(c, hasDefault(o, "brush"))
+			case o.Eval.Effective == model.PropagatingBrush:
+				c = est(c, hasDefault(o, "propagating"))
+			case o.Eval.Effective == model.Spark:
+				c = est(c, hasDefault(o, "capacitance", "body potential"))
+			}
+			return c
 		}},
 		{"Effective discharge", 12, func(o objRow) cell {
 			if o.Eval.NotAssessed != 0 || o.Eval.EffectiveEnergy == 0 || math.IsNaN(o.Eval.EffectiveEnergy) {
@@ -189,7 +202,7 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{UnitPF.Header("Capacitance given"), 10, func(o objRow) cell { return inQ(UnitPF, o.Object.Capacitance) }},
 		{UnitPSPerM.Header("Conductivity"), 10, func(o objRow) cell { return inQ(UnitPSPerM, o.Object.Conductivity) }},
 		{UnitDimless.Header("Liquid permittivity"), 9, func(o objRow) cell { return inQ(UnitDimless, o.Object.Permittivity) }},
-		{"Bag type", 7, func(o objRow) cell { return optText(o.Object.BagType) }},
+		{"Bag type", 7, func(o objRow) cell { return code(o.Object.BagType) }},
 		{"Filling", 9, func(o objRow) cell { return optText(o.Object.Filling) }},
 		{"Survey notes", 24, func(o objRow) cell { return wrapText(o.Object.Notes) }},
 
@@ -206,13 +219,19 @@ func objectColumns(withProbability bool) []column[objRow] {
 			if o.Atmosphere == nil {
 				return cell{}
 			}
-			return optText(o.Atmosphere.Zone)
+			if o.Atmosphere.Zone == "" && hasDefault(o, "zone") {
+				return code(o.Environment.Zone.String() + " est.")
+			}
+			return code(o.Atmosphere.Zone)
 		}},
 		{"Group", 7, func(o objRow) cell {
 			if o.Atmosphere == nil {
 				return cell{}
 			}
-			return optText(o.Atmosphere.Group)
+			if o.Atmosphere.GroupFromSubstance {
+				return code(o.Atmosphere.Group + " est.")
+			}
+			return code(o.Atmosphere.Group)
 		}},
 
 		// Computed quantities.
@@ -230,7 +249,7 @@ func objectColumns(withProbability bool) []column[objRow] {
 			return text("est.: " + enumText(o.Eval.CapacitanceModel))
 		}},
 		{UnitKV.Header("Potential"), 10, func(o objRow) cell {
-			return est(quantity(UnitKV, o.Eval.Potential), hasDefault(o, "potential"))
+			return est(quantity(UnitKV, o.Eval.Potential), hasDefault(o, "body potential", "potential"))
 		}},
 		{"Potential source", 14, func(o objRow) cell {
 			if math.IsNaN(o.Eval.Potential) {
@@ -259,8 +278,9 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{UnitSecond.Header("Relaxation time"), 10, ev(func(e *model.Evaluation) float64 { return e.RelaxationTime }, UnitSecond)},
 		{UnitUA.Header("Streaming current"), 10, ev(func(e *model.Evaluation) float64 { return e.StreamingCurrent }, UnitUA)},
 		{UnitM2PerS.Header("Velocity × diameter"), 10, ev(func(e *model.Evaluation) float64 { return e.VelocityDiameter }, UnitM2PerS)},
-		{"Model notes", 18, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
-		{"Missing inputs", 16, func(o objRow) cell { return wrapText(enumText(o.Eval.NotAssessed)) }},
+		{"Model assumptions", 30, func(o objRow) cell { return wrapText(enumText(o.Eval.Assumed)) }},
+		{"Model notes", 30, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
+		{"Missing inputs", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.NotAssessed)) }},
 	}
 	if withProbability {
 		p := func(f func(*assess.Probability) float64, u Unit) func(objRow) cell {

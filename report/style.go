@@ -34,12 +34,21 @@ type cell struct {
 	verdictOf assess.Verdict
 	wrap      bool
 	bold      bool
+	align     string // "", "center", "left", "right"
 }
 
 func text(s string) cell     { return cell{v: s} }
 func wrapText(s string) cell { return cell{v: s, wrap: true} }
 func boldText(s string) cell { return cell{v: s, bold: true} }
-func integer(n int) cell     { return cell{v: n, numFmt: "0"} }
+func integer(n int) cell     { return cell{v: n, numFmt: "0", align: "center"} }
+
+// code is a short code (zone, group, severity), centred; "" is an empty cell.
+func code(s string) cell {
+	if s == "" {
+		return cell{}
+	}
+	return cell{v: s, align: "center"}
+}
 func verdictCell(v assess.Verdict) cell {
 	return cell{v: v.String(), verdict: true, verdictOf: v}
 }
@@ -65,6 +74,7 @@ type styleKey struct {
 	header  bool
 	title   int // 0 none, 1 title, 2 section
 	caution bool
+	align   string
 }
 
 // styles creates and caches the style IDs of one workbook (no package state).
@@ -82,7 +92,7 @@ func (s *styles) get(k styleKey) int {
 	if id, ok := s.cache[k]; ok {
 		return id
 	}
-	st := &excelize.Style{Alignment: &excelize.Alignment{Vertical: "top", WrapText: k.wrap}}
+	st := &excelize.Style{Alignment: &excelize.Alignment{Vertical: "top", WrapText: k.wrap, Horizontal: k.align}}
 	font := &excelize.Font{Family: "Liberation Sans", Size: 10, Bold: k.bold}
 	if k.numFmt != "" {
 		nf := k.numFmt
@@ -104,6 +114,7 @@ func (s *styles) get(k styleKey) int {
 		st.Fill = excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"E7E6E6"}}
 		st.Alignment.WrapText = true
 		st.Alignment.Vertical = "bottom"
+		st.Alignment.Horizontal = "center"
 		st.Border = []excelize.Border{{Type: "bottom", Color: "404040", Style: 2}}
 	}
 	switch k.title {
@@ -132,7 +143,7 @@ func (s *styles) get(k styleKey) int {
 
 // of returns the style of a cell.
 func (s *styles) of(c cell) int {
-	k := styleKey{numFmt: c.numFmt, est: c.est, wrap: c.wrap, bold: c.bold}
+	k := styleKey{numFmt: c.numFmt, est: c.est, wrap: c.wrap, bold: c.bold, align: c.align}
 	if c.verdict {
 		k.verdict = int(c.verdictOf) + 1
 	}

@@ -71,7 +71,8 @@ func (wb *workbook) summary() error {
 	}
 	for _, kv := range ident {
 		kv[0].bold = true
-		if err := sink.row(r, []cell{kv[0], kv[1]}); err != nil {
+		kv[1].align = "left"
+		if err := sink.row(r, []cell{kv[0], kv[1]}, 0); err != nil {
 			return err
 		}
 		r++
@@ -95,12 +96,12 @@ func (wb *workbook) summary() error {
 	for _, v := range verdictOrder() {
 		n := a.Counts[v]
 		total += n
-		if err := sink.row(r, []cell{verdictCell(v), integer(n), integer(findingsBy[v])}); err != nil {
+		if err := sink.row(r, []cell{verdictCell(v), integer(n), integer(findingsBy[v])}, 0); err != nil {
 			return err
 		}
 		r++
 	}
-	if err := sink.row(r, []cell{boldText("All objects"), integer(total), integer(len(a.Findings))}); err != nil {
+	if err := sink.row(r, []cell{boldText("All objects"), integer(total), integer(len(a.Findings))}, 0); err != nil {
 		return err
 	}
 	r += 2
@@ -115,13 +116,13 @@ func (wb *workbook) summary() error {
 	}
 	r++
 	for _, c := range a.Survey.Counts {
-		if err := sink.row(r, []cell{text(c.Sheet), integer(c.Read), integer(c.Accepted), integer(c.Rejected)}); err != nil {
+		if err := sink.row(r, []cell{text(c.Sheet), integer(c.Read), integer(c.Accepted), integer(c.Rejected)}, 0); err != nil {
 			return err
 		}
 		r++
 	}
 	if n := len(a.Survey.Warnings()); n > 0 {
-		if err := sink.row(r, []cell{text(fmt.Sprintf("%d warning(s) on accepted rows: see the Rejected sheet", n))}); err != nil {
+		if err := sink.row(r, []cell{text(fmt.Sprintf("%d warning(s) on accepted rows: see the Rejected sheet", n))}, 0); err != nil {
 			return err
 		}
 		r++
@@ -148,25 +149,30 @@ func (wb *workbook) summary() error {
 			ratioCell(finitePtr(st.WorstRatio)), integer(len(st.Objects)),
 			integer(st.Counts[assess.Incendive]), integer(st.Counts[assess.Marginal]),
 			integer(st.Counts[assess.NonIncendive]), integer(st.Counts[assess.NotAssessed]),
-		}); err != nil {
+		}, rowHeight(summaryWidths(), []cell{{}, {}, wrapText(st.Station.Name)})); err != nil {
 			return err
 		}
 		r++
 	}
 	r++
 
-	// Chart of worst ratio per station, pointing at the Stations sheet.
+	// Chart of worst ratio per station, pointing at the Stations sheet; it
+	// starts a new printed page so that it is never cut in two.
 	if len(a.Stations) > 0 {
+		if err := f.InsertPageBreak(s, fmt.Sprintf("A%d", r)); err != nil {
+			return err
+		}
 		if err := section(r, "Worst ratio per station"); err != nil {
 			return err
 		}
 		r++
-		if err := wb.chart(fmt.Sprintf("A%d", r)); err != nil {
+		rows := chartRows(len(a.Stations))
+		if err := wb.chart(fmt.Sprintf("A%d", r), rows); err != nil {
 			return err
 		}
-		r += chartRows
+		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
 		if err := sink.row(r, []cell{wrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
-			"Stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}); err != nil {
+			"Stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
 			return err
 		}
 		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
@@ -194,7 +200,7 @@ func (wb *workbook) summary() error {
 		if err := f.SetCellStyle(s, ref, ref, wb.st.of(wrapText(""))); err != nil {
 			return err
 		}
-		if err := f.SetRowHeight(s, r, wrappedHeight(c, 130)); err != nil {
+		if err := f.SetRowHeight(s, r, wrappedHeight(c, sum(summaryWidths()))); err != nil {
 			return err
 		}
 		r++
@@ -202,12 +208,30 @@ func (wb *workbook) summary() error {
 	return wb.printSetup(s, 1, "", "")
 }
 
-// chartRows is the height of the Summary chart in sheet rows (20 px each).
-const chartRows = 18
+func sum(xs []float64) float64 {
+	t := 0.0
+	for _, x := range xs {
+		t += x
+	}
+	return t
+}
+
+// chartRows returns the height of the Summary chart in sheet rows (20 px
+// each): room for the axes plus a bar line per station, at most one page.
+func chartRows(stations int) int {
+	n := 6 + (stations*3+1)/2
+	if n < 16 {
+		n = 16
+	}
+	if n > 26 {
+		n = 26
+	}
+	return n
+}
 
 // chart adds the native bar chart of the stations' worst ratios, on a log
 // value axis, in one neutral colour (the verdicts are coloured in the table).
-func (wb *workbook) chart(at string) error {
+func (wb *workbook) chart(at string, rows int) error {
 	n := wb.stationRows
 	sheet := "'" + SheetStations + "'"
 	gap := uint(60)
@@ -222,13 +246,13 @@ func (wb *workbook) chart(at string) error {
 			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"4D4D4D"}},
 		}},
 		Format:    excelize.GraphicOptions{OffsetX: 4, OffsetY: 4},
-		Dimension: excelize.ChartDimension{Width: 900, Height: chartRows*20 - 8},
+		Dimension: excelize.ChartDimension{Width: 900, Height: uint(rows*20 - 8)},
 		Legend:    excelize.ChartLegend{Position: "none"},
 		Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "Worst ratio E/MIE per station (log scale)", Font: &excelize.Font{Size: 11, Bold: true}}}},
-		XAxis:     excelize.ChartAxis{ReverseOrder: true, Font: excelize.Font{Size: 9}},
+		XAxis:     excelize.ChartAxis{ReverseOrder: true, Font: excelize.Font{Size: 9, Color: "000000"}},
 		YAxis: excelize.ChartAxis{
-			LogBase: 10, MajorGridLines: true, Font: excelize.Font{Size: 9},
-			Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "effective energy / MIE [–]"}}},
+			LogBase: 10, MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"},
+			Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "effective energy / MIE [–]", Font: &excelize.Font{Size: 9, Color: "000000"}}}},
 		},
 		GapWidth:     &gap,
 		ShowBlanksAs: "gap",

@@ -2,13 +2,14 @@ package report
 
 import (
 	"fmt"
+	"strings"
 
 	"github.com/xuri/excelize/v2"
 )
 
 // rowSink writes the rows of one sheet, in normal mode or through a StreamWriter.
 type rowSink interface {
-	row(r int, cells []cell) error
+	row(r int, cells []cell, height float64) error
 	header(r int, headers []string) error
 }
 
@@ -19,7 +20,12 @@ type normalSink struct {
 	st    *styles
 }
 
-func (n normalSink) row(r int, cells []cell) error {
+func (n normalSink) row(r int, cells []cell, height float64) error {
+	if height > 0 {
+		if err := n.f.SetRowHeight(n.sheet, r, height); err != nil {
+			return err
+		}
+	}
 	for i, c := range cells {
 		ref, err := excelize.CoordinatesToCellName(i+1, r)
 		if err != nil {
@@ -62,7 +68,7 @@ type streamSink struct {
 	st *styles
 }
 
-func (s streamSink) row(r int, cells []cell) error {
+func (s streamSink) row(r int, cells []cell, height float64) error {
 	vals := make([]any, len(cells))
 	for i, c := range cells {
 		if c.v == nil && c.numFmt == "" && !c.verdict {
@@ -70,6 +76,9 @@ func (s streamSink) row(r int, cells []cell) error {
 			continue
 		}
 		vals[i] = excelize.Cell{StyleID: s.st.of(c), Value: c.v}
+	}
+	if height > 0 {
+		return s.sw.SetRow(fmt.Sprintf("A%d", r), vals, excelize.RowOpts{Height: height})
 	}
 	return s.sw.SetRow(fmt.Sprintf("A%d", r), vals)
 }
@@ -104,6 +113,60 @@ func rowCells[T any](cols []column[T], v T) []cell {
 		out[i] = c.value(v)
 	}
 	return out
+}
+
+// rowHeight returns the height (points) a row needs for its wrapped texts in
+// columns of the given widths, or 0 when one line is enough. Workbooks store
+// heights, not layouts, and LibreOffice does not grow streamed rows itself.
+func rowHeight(widths []float64, cells []cell) float64 {
+	lines := 1
+	for i, c := range cells {
+		t, ok := c.v.(string)
+		if !ok || !c.wrap || i >= len(widths) {
+			continue
+		}
+		if n := wrappedLines(t, widths[i]); n > lines {
+			lines = n
+		}
+	}
+	if lines == 1 {
+		return 0
+	}
+	return lineHeight*float64(lines) + 2
+}
+
+// lineHeight is the height in points of one line of 10 pt text.
+const lineHeight = 12.75
+
+// wrappedLines counts the lines a text takes in a column of width characters,
+// wrapping greedily at spaces as a spreadsheet does.
+func wrappedLines(s string, width float64) int {
+	capacity := int(width*1.4) - 1 // 10 pt text in a column measured in 11 pt digits (measured in LibreOffice)
+	if capacity < 4 {
+		capacity = 4
+	}
+	n := 0
+	for _, para := range strings.Split(s, "\n") {
+		n++
+		used := 0
+		for _, w := range strings.Fields(para) {
+			l := len([]rune(w))
+			switch {
+			case used == 0:
+				used = l
+			case used+1+l <= capacity:
+				used += 1 + l
+			default:
+				n++
+				used = l
+			}
+			for used > capacity { // a word longer than the column breaks
+				n++
+				used -= capacity
+			}
+		}
+	}
+	return n
 }
 
 // lastCol returns the column letters of the n-th column (1-based).

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"strings"
 	"time"
 
@@ -236,8 +235,10 @@ func tableSheetNormal[T any](wb *workbook, sheet string, cols []column[T], rows 
 	if err := wb.f.SetRowHeight(sheet, 1, 42); err != nil {
 		return err
 	}
+	widths := widthsOf(cols)
 	for i, r := range rows {
-		if err := sink.row(i+2, rowCells(cols, r)); err != nil {
+		cells := rowCells(cols, r)
+		if err := sink.row(i+2, cells, rowHeight(widths, cells)); err != nil {
 			return err
 		}
 	}
@@ -282,8 +283,10 @@ func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int
 	if err := sink.header(1, headers(cols)); err != nil {
 		return err
 	}
+	widths := widthsOf(cols)
 	for i := 0; i < n; i++ {
-		if err := sink.row(i+2, rowCells(cols, row(i))); err != nil {
+		cells := rowCells(cols, row(i))
+		if err := sink.row(i+2, cells, rowHeight(widths, cells)); err != nil {
 			return err
 		}
 	}
@@ -311,13 +314,13 @@ func stationColumns(withProbability bool) []column[stationRow] {
 			if s.Atmosphere == nil {
 				return cell{}
 			}
-			return optText(s.Atmosphere.Zone)
+			return code(s.Atmosphere.Zone)
 		}},
 		{"Group", 7, func(s stationRow) cell {
 			if s.Atmosphere == nil {
 				return cell{}
 			}
-			return optText(s.Atmosphere.Group)
+			return code(s.Atmosphere.Group)
 		}},
 		{UnitPercentRH.Header("RH at station"), 9, func(s stationRow) cell { return inQ(UnitPercentRH, s.Station.RelativeHumidity) }},
 		{"Verdict", 14, func(s stationRow) cell { return verdictCell(s.Verdict) }},
@@ -374,8 +377,8 @@ func findingColumns() []column[findingRow] {
 	return []column[findingRow]{
 		{"#", 5, func(r findingRow) cell { return integer(r.n) }},
 		{"Severity", 12, func(r findingRow) cell { return verdictCell(r.f.Severity) }},
-		{"Station", 10, func(r findingRow) cell { return text(r.f.StationID) }},
-		{"Object", 12, func(r findingRow) cell { return text(r.f.ObjectID) }},
+		{"Station", 10, func(r findingRow) cell { return code(r.f.StationID) }},
+		{"Object", 12, func(r findingRow) cell { return code(r.f.ObjectID) }},
 		{"Check", 18, func(r findingRow) cell { return text(r.f.Check) }},
 		{"Finding", 50, func(r findingRow) cell { return wrapText(r.f.Message) }},
 		{"Mitigation", 50, func(r findingRow) cell { return wrapText(r.f.Mitigation) }},
@@ -403,10 +406,8 @@ func (wb *workbook) cautions() error {
 	}
 	for i, c := range templates.Cautions() {
 		r := i + 2
-		if err := sink.row(r, []cell{integer(i + 1), wrapText(c)}); err != nil {
-			return err
-		}
-		if err := f.SetRowHeight(s, r, wrappedHeight(c, 120)); err != nil {
+		cells := []cell{integer(i + 1), wrapText(c)}
+		if err := sink.row(r, cells, rowHeight([]float64{5, 120}, cells)); err != nil {
 			return err
 		}
 	}
@@ -416,14 +417,10 @@ func (wb *workbook) cautions() error {
 	return wb.printSetup(s, 1, "$1:$1", "")
 }
 
-// wrappedHeight estimates the row height (points) of a wrapped text in a column
-// of the given width (characters), since workbooks store heights, not layouts.
+// wrappedHeight returns the row height (points) of a wrapped text in a column
+// of the given width (characters).
 func wrappedHeight(s string, width float64) float64 {
-	lines := math.Ceil(float64(len([]rune(s))) / (width * 0.95))
-	if lines < 1 {
-		lines = 1
-	}
-	return 13.5*lines + 3
+	return lineHeight*float64(wrappedLines(s, width)) + 2
 }
 
 // ---- Rejected ----
@@ -435,7 +432,7 @@ type problemRow struct {
 
 func problemColumns() []column[problemRow] {
 	return []column[problemRow]{
-		{"Severity", 9, func(r problemRow) cell { return text(r.p.Severity.String()) }},
+		{"Severity", 9, func(r problemRow) cell { return code(r.p.Severity.String()) }},
 		{"Row status", 16, func(r problemRow) cell { return text(r.status) }},
 		{"Sheet", 12, func(r problemRow) cell { return text(r.p.Sheet) }},
 		{"Row", 6, func(r problemRow) cell {

@@ -129,20 +129,20 @@ func TestWorkbookObjectsValues(t *testing.T) {
 		id, col string
 		want    float64
 	}{
-		{"O3", "Capacitance [pF]", 200},                      // Saito 1963 typical body
-		{"O3", "Effective energy [mJ]", 10},                  // derived: 200 pF x (10 kV)^2 / 2
-		{"O3", "Ratio E/MIE [–]", 41.666666666666664},        // derived: 10 / 0.24
-		{"O5", "Potential [kV]", 47.6},                       // Source: electrostatics.md §10 case 6
-		{"O5", "Stored energy [mJ]", 113.288},                // derived: 100 pF x (47.6 kV)^2 / 2
-		{"O1", "Charge density [µC/m²]", 12},                 // invented for the demo
-		{"O1", "Surface field [kV/m]", 677.6454},             // derived: 12e-6 / 1.7708e-11 = 677.645 kV/m
-		{"O1", "Transferred charge [nC]", 120},               // derived: 12 uC/m^2 x 100 cm^2
-		{"O2", "Transferred charge [nC]", 150},               // derived: 30 pF x 5 kV
-		{"O5", "Resistance to earth [Ω]", 1e11},              // invented for the demo
-		{"O8", "Relaxation time [s]", 21.25005},              // derived: eps0 x 2.4 / 1 pS/m
-		{"O1", "Insulating area [cm²]", 36000},               // derived: 3.6 m^2
-		{"O4", "Ratio E/MIE [–]", 0},                         // a defined zero stays 0
-		{"O1", "P(incendive) [%]", 0.93},                     // stored as a fraction, shown as %
+		{"O3", "Capacitance [pF]", 200},               // Saito 1963 typical body
+		{"O3", "Effective energy [mJ]", 10},           // derived: 200 pF x (10 kV)^2 / 2
+		{"O3", "Ratio E/MIE [–]", 41.666666666666664}, // derived: 10 / 0.24
+		{"O5", "Potential [kV]", 47.6},                // Source: electrostatics.md §10 case 6
+		{"O5", "Stored energy [mJ]", 113.288},         // derived: 100 pF x (47.6 kV)^2 / 2
+		{"O1", "Charge density [µC/m²]", 12},          // invented for the demo
+		{"O1", "Surface field [kV/m]", 677.6454},      // derived: 12e-6 / 1.7708e-11 = 677.645 kV/m
+		{"O1", "Transferred charge [nC]", 120},        // derived: 12 uC/m^2 x 100 cm^2
+		{"O2", "Transferred charge [nC]", 150},        // derived: 30 pF x 5 kV
+		{"O5", "Resistance to earth [Ω]", 1e11},       // invented for the demo
+		{"O8", "Relaxation time [s]", 21.25005},       // derived: eps0 x 2.4 / 1 pS/m
+		{"O1", "Insulating area [cm²]", 36000},        // derived: 3.6 m^2
+		{"O4", "Ratio E/MIE [–]", 0},                  // a defined zero stays 0
+		{"O1", "P(incendive) [%]", 0.93},              // stored as a fraction, shown as %
 	}
 	for _, c := range checks {
 		got, ok := num(c.id, c.col)
@@ -151,12 +151,12 @@ func TestWorkbookObjectsValues(t *testing.T) {
 		}
 	}
 	empties := []struct{ id, col string }{
-		{"O7", "Ratio E/MIE [–]"},   // no atmosphere
-		{"O9", "Ratio E/MIE [–]"},   // no atmosphere
+		{"O7", "Ratio E/MIE [–]"}, // no atmosphere
+		{"O9", "Ratio E/MIE [–]"}, // no atmosphere
 		{"O9", "Effective energy [mJ]"},
-		{"O1", "Capacitance [pF]"},  // NaN: not defined for a sheet
+		{"O1", "Capacitance [pF]"}, // NaN: not defined for a sheet
 		{"O3", "Charge density [µC/m²]"},
-		{"O3", "P(incendive) [%]"},  // no sample for this object
+		{"O3", "P(incendive) [%]"}, // no sample for this object
 	}
 	for _, e := range empties {
 		if s := byID[e.id][colIndex(t, hdr, e.col)]; s != "" {

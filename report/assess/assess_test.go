@@ -733,3 +733,40 @@ func TestAtmosphereDefaults(t *testing.T) {
 		t.Errorf("60 cm² in zone 1 IIA: unexpected insulating-area finding")
 	}
 }
+
+func FuzzLimitsFromSite(f *testing.F) {
+	f.Add("shock energy [mj]", "400")
+	f.Add("conductor earthing limit [ω]", "1e6 ohm")
+	f.Add("brush area", "100 cm²")
+	f.Add("transferred charge iic [nc]", "-3")
+	f.Add("whatever", "")
+	f.Fuzz(func(t *testing.T, key, value string) {
+		base := model.DefaultLimits()
+		lim, probs := LimitsFromSite(inventory.Site{Items: []inventory.SiteItem{{Key: key, Item: key, Value: value, Row: 9}}}, base)
+		if len(probs) > 1 {
+			t.Fatalf("one item gave %d problems", len(probs))
+		}
+		if len(probs) == 1 && lim != base && !(math.IsNaN(base.TransferredCharge[0])) {
+			t.Fatalf("a rejected item changed the limits")
+		}
+		if len(probs) == 0 && lim == base {
+			// Accepted: a value equal to the base is the only way nothing changes.
+			return
+		}
+	})
+}
+
+func BenchmarkClassify(b *testing.B) {
+	lim := model.DefaultLimits()
+	// Source: reference section 10.6 (derived): 5 uA into 1e11 ohm, 100 pF, 1 s -> 113 mJ.
+	in := model.Input{Kind: model.Container, Material: unknownMaterial(), Capacitance: 100e-12, Resistance: 1e11, MassFlow: 0.5, ChargeToMass: 10e-6, ChargingTime: 1,
+		Length: math.NaN(), Width: math.NaN(), Diameter: math.NaN(), Thickness: math.NaN(), DistanceToEarth: math.NaN(),
+		Field: math.NaN(), FieldDistance: math.NaN(), SurfacePotential: math.NaN(), Speed: math.NaN(),
+		ChargingCurrent: math.NaN(), ParticleSize: math.NaN(), Conductivity: math.NaN(), Permittivity: math.NaN(), ProductMIE: math.NaN()}
+	env := model.Environment{RelativeHumidity: 50, Temperature: 293.15, Atmosphere: model.Dust, Group: model.IIIB, Zone: model.Zone21, MIE: 10e-3}
+	b.ReportAllocs()
+	for b.Loop() {
+		ev := model.Evaluate(in, env, lim)
+		_ = Classify(&in, &env, &ev, &lim, 10)
+	}
+}
