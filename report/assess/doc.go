@@ -1,0 +1,64 @@
+// Package assess judges a read survey against ignition limits: for every
+// accepted object it runs the model for its kind in its station's surroundings,
+// applies the checks, gives a verdict with a one-sentence reason, findings with
+// mitigations in words of the trade, and the defaults the result rests on; then
+// it ranks the stations.
+//
+//	survey := inventory.ReadFile("line3.xlsx", inventory.ReadOptions{})
+//	lim, problems := assess.LimitsFromSite(survey.Site, model.DefaultLimits())
+//	audit := assess.Assess(survey, assess.Options{Limits: lim})
+//	audit.Stations[0]   // the worst station: Rank 1, Verdict, WorstRatio
+//	audit.Findings[0]   // e.g. {Check: "energy-vs-mie", Message: "spark of 5 mJ reaches the MIE of 0.24 mJ (ratio 20.8)", ...}
+//
+// # Checks
+//
+// Each check has a stable name (Check.Name) used in findings, JSON and the
+// mitigation texts of package templates:
+//
+//	energy-vs-mie        effective energy >= MIE                                  incendive
+//	energy-vs-margin     MIE / required margin <= energy < MIE                    marginal
+//	transferred-charge   charge of one discharge > group limit (zone 0: x factor) incendive
+//	insulating-area      insulating surface > EPL Ga (zone 0) / Gb (zones 1, 2)   marginal
+//	conductor-earthing   conductor to earth > 1e6 ohm, or not measured            marginal
+//	person-earthing      person to earth > 1e8 ohm, zones 0/1/20/21, MIE <= 10 mJ  marginal
+//	shock-energy         energy to a person touching it > 350 mJ                  marginal
+//	filling-velocity     liquid v d > 0.5 (kappa > 10 pS/m) or 0.38 m^2/s         marginal
+//	velocity-ceiling     liquid flow velocity > 7 m/s                             marginal
+//	slow-start           top filling without a dip pipe (or filling not given)    marginal
+//	low-conductivity     liquid <= 50 pS/m, or conductivity not given             marginal
+//	bag-type             bag type not allowed here (IEC 61340-4-4 usage table)     marginal
+//	bag-earthing         type C bag tab to earth > 1e6 ohm, or not measured       marginal
+//	bag-qualification    type C/D bag with MIE < 0.14 mJ or current > 3 uA        marginal
+//
+// # Verdicts
+//
+// Classify, pure and allocation-free, gives the worst severity among the failed
+// checks; with none failed, non-incendive, unless the energy could not be judged
+// (the model lacked inputs, or the atmosphere's MIE is unknown), which is "not
+// assessed". An object at a station with no flammable atmosphere has no ratio and
+// is judged on the shock check alone.
+//
+// # Choices where the standards are silent
+//
+//   - The earthing, person-to-earth, area, liquid and bag requirements are
+//     explosion-protection requirements: they apply only where the station has an
+//     atmosphere. The shock check applies everywhere.
+//   - Touchable for the shock check: persons, parts, containers, conductive rollers,
+//     the receiving containers of liquid and powder rows and conductive bags (their
+//     stored energy C V^2 / 2), and any layer that can give a propagating brush
+//     discharge (webs, belts, type A bags).
+//   - Conductors to earth: parts, containers, rollers the model treats as
+//     conductors, liquid rows (line and receiving container) and powder rows that
+//     describe their receiving container (Resistance or Capacitance given).
+//   - An atmosphere with no zone is assessed in the strictest zone (0, or 20 for
+//     dust), recorded as a default; an explicit zone "none" is taken as written.
+//   - A failed requirement outranks "not assessed": the reason then says the
+//     energy could not be judged.
+//   - A bag row's Resistance to earth is its earthing tab to plant earth; the bag's
+//     own point-to-tab resistance is a product property named in the mitigation.
+//   - A bag with no type is assessed as type A; a liquid with no filling mode as
+//     top filling; a liquid with no conductivity as low-conductivity. Each is a default.
+//   - Raising humidity is recommended only for materials whose surface
+//     resistivity falls at least HumidityResponds decades per 10 %RH.
+//   - Double-layer charge is read from the row's Notes ("double-layer").
+package assess
