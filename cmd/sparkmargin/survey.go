@@ -1,0 +1,70 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+)
+
+// loadSurvey reads and validates a survey; an unreadable file is a usage-class error (exit 2).
+func loadSurvey(path string) (*inventory.Survey, error) {
+	s, err := inventory.ReadFile(path, inventory.ReadOptions{})
+	if err != nil {
+		if errors.Is(err, inventory.ErrUnreadable) {
+			return nil, withCode(exitUsage, err)
+		}
+		return nil, withCode(exitUsage, fmt.Errorf("reading %s: %w", path, err))
+	}
+	return s, nil
+}
+
+// sameFile reports whether two paths name the same file (after cleaning and resolving links where possible).
+func sameFile(a, b string) bool {
+	ca, errA := filepath.Abs(a)
+	cb, errB := filepath.Abs(b)
+	if errA != nil || errB != nil {
+		return a == b
+	}
+	if ra, err := filepath.EvalSymlinks(ca); err == nil {
+		ca = ra
+	}
+	if rb, err := filepath.EvalSymlinks(cb); err == nil {
+		cb = rb
+	}
+	return ca == cb
+}
+
+// refuseExisting refuses to replace an existing file unless force is set.
+func refuseExisting(path string, force bool) error {
+	if force {
+		return nil
+	}
+	if _, err := os.Stat(path); err == nil {
+		return withCode(exitUsage, fmt.Errorf("%s already exists; choose another name or pass --force", path))
+	}
+	return nil
+}
+
+// defaultAuditPath is "<dir>/<name>-audit.xlsx" beside the survey.
+func defaultAuditPath(survey string) string {
+	dir, base := filepath.Split(survey)
+	name := strings.TrimSuffix(base, filepath.Ext(base))
+	return filepath.Join(dir, name+"-audit.xlsx")
+}
+
+// commandLine rebuilds the command as run, for the Method sheet: the command path,
+// the flags that were set and the arguments.
+func commandLine(c *cobra.Command, args []string) []string {
+	out := strings.Fields(c.CommandPath())
+	c.Flags().Visit(func(f *pflag.Flag) {
+		out = append(out, "--"+f.Name+"="+f.Value.String())
+	})
+	return append(out, args...)
+}
