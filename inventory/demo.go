@@ -260,7 +260,7 @@ func demoStations() [][]any {
 		s("ID", "ST-UNW", "Name", "Unwind", "Line", "Coating line C2", "Notes", "Outside the classified area"), // invented for the demo
 		s("ID", "ST-COAT", "Name", "Coating head", "Line", "Coating line C2", "Atmosphere", "A-TOL1"),          // invented for the demo
 		s("ID", "ST-DRY", "Name", "Drying tunnel exit", "Line", "Coating line C2", "Atmosphere", "A-TOL2"),     // invented for the demo
-		s("ID", "ST-LAM", "Name", "Paper interleaf", "Line", "Coating line C2", "Atmosphere", "A-TOL2", "Relative humidity", 60.0, // invented for the demo
+		s("ID", "ST-LAM", "Name", "Paper interleaf", "Line", "Coating line C2", "Atmosphere", "A-TOL2", "Relative humidity", 65.0, // invented for the demo
 			"Notes", "Humidified enclosure"), // invented for the demo
 		s("ID", "ST-REW", "Name", "Rewind", "Line", "Coating line C2", "Atmosphere", "A-TOL2"),                // invented for the demo
 		s("ID", "ST-MIX", "Name", "Solvent charging, mixer M1", "Line", "Mixing room", "Atmosphere", "A-MIX"), // invented for the demo
@@ -315,7 +315,7 @@ func demoObjects() [][]any {
 		o("DRY-TC", "ST-DRY", KindPart, "Web temperature probe on an insulating bracket", "stainless steel",
 			"Surface potential", "2.5 kV", "Resistance to earth", 1e12, "Capacitance", 12.0), // invented for the demo
 
-		// Paper interleaf (zone 2, humidified to 60 %): paper dissipates; non-incendive.
+		// Paper interleaf (zone 2, humidified to 65 %): paper dissipates; non-incendive.
 		o("LAM-PAP", "ST-LAM", KindSheet, "Paper interleaf web, free span before the nip", "paper",
 			"Length", 1.0, "Width", 1.32, "Thickness", 0.08, "Backing", "none", "Field", 8.0, "Field distance", 0.05, "Speed", 3.5), // invented for the demo
 		o("LAM-NIP", "ST-LAM", KindRoller, "Steel nip roll, earthed", "steel",
@@ -359,7 +359,7 @@ func demoObjects() [][]any {
 			"Diameter", 0.6, "Mass flow", 0.5, "Charge-to-mass", 10.0, "Charging time", 60.0, "Particle size", 0.08), // invented for the demo
 		o("PWD-DRU1", "ST-PWD", KindContainer, "200 L steel drum on a plastic pallet, earth clamp not fitted", "steel",
 			"Diameter", 0.6, "Mass flow", 0.5, "Charge-to-mass", 10.0, "Charging current", 5.0, "Charging time", 60.0,
-			"Resistance to earth", 1e11, "Capacitance", 100.0), // invented for the demo
+			"Resistance to earth", 1e10, "Capacitance", 100.0), // invented for the demo
 		o("PWD-DRU2", "ST-PWD", KindContainer, "200 L steel drum, earth clamp fitted", "steel",
 			"Diameter", 0.6, "Mass flow", 0.5, "Charge-to-mass", 10.0, "Charging current", 5.0, "Charging time", 60.0,
 			"Resistance to earth", 10.0, "Capacitance", 100.0), // invented for the demo
@@ -371,22 +371,22 @@ func demoObjects() [][]any {
 		// Bulk-bag emptying (resin dust 10 mJ, zone 21): types B, C earthed and D are
 		// permitted; type A, an unearthed type C and an unlabelled bag are not.
 		o("BAG-A", "ST-BAG", KindBag, "Type A bag of resin powder, plain PP fabric", "woven PP fabric",
-			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0, "Bag type", "A"), // invented for the demo
+			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 0.1, "Charging time", 900.0, "Bag type", "A"), // invented for the demo
 		o("BAG-B", "ST-BAG", KindBag, "Type B bag of resin powder", "woven PP fabric",
-			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0, "Bag type", "B"), // invented for the demo
+			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 0.1, "Charging time", 900.0, "Bag type", "B"), // invented for the demo
 		o("BAG-CE", "ST-BAG", KindBag, "Type C bag, earth tab clamped to the frame", "woven PP fabric",
-			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0,
+			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 0.1, "Charging time", 900.0,
 			"Resistance to earth", "100 kΩ", "Bag type", "C"), // invented for the demo
 		o("BAG-CU", "ST-BAG", KindBag, "Type C bag, earth clamp left off", "woven PP fabric",
-			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0,
+			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 0.1, "Charging time", 900.0,
 			"Resistance to earth", 1e12, "Bag type", "C"), // invented for the demo
 		o("BAG-D", "ST-BAG", KindBag, "Type D bag of resin powder", "woven PP fabric",
-			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0, "Bag type", "D"), // invented for the demo
+			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 0.1, "Charging time", 900.0, "Bag type", "D"), // invented for the demo
 		o("BAG-X", "ST-BAG", KindBag, "Bag with no type label (supplier unknown)", "woven PP fabric",
-			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 1.0, "Charging time", 900.0,
+			"Diameter", 0.9, "Mass flow", 0.8, "Charge-to-mass", 0.1, "Charging time", 900.0,
 			"Notes", "Type not known: assessed as the most restrictive case"), // invented for the demo
 		o("BAG-FRM", "ST-BAG", KindPart, "Bag discharge frame and spout, earthed", "steel",
-			"Charging current", 0.8, "Resistance to earth", 10.0, "Capacitance", 50.0), // invented for the demo
+			"Charging current", 0.08, "Resistance to earth", 10.0, "Capacitance", 50.0), // invented for the demo
 		o("BAG-OP", "ST-BAG", KindPerson, "Operator cutting the bag spout, ESD shoes", "",
 			"Resistance to earth", 2e7, "Capacitance", 200.0), // invented for the demo
 
