@@ -184,7 +184,7 @@ func Nearest(s string, candidates []string) string {
 		return ""
 	}
 	l := max(len([]rune(n)), len([]rune(NormalizeName(best))))
-	if bestD == 0 || bestD > 4 || bestD*3 > l+1 {
+	if bestD == 0 || bestD > 4 || bestD*2 > l {
 		if bestD == 0 {
 			return best
 		}

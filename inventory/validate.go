@@ -246,7 +246,12 @@ func (f *field) slip(name string, q Quantity, p Parsed, limit float64, why strin
 // the number divided by 1000 or 1e6 in the unit written.
 func suggestReading(p Parsed, m HeaderMatch, limit float64) string {
 	num := p.Number
-	fmtNum := func(x float64) string { return strconv.FormatFloat(x, 'g', 4, 64) }
+	fmtNum := func(x float64) string {
+		if a := math.Abs(x); a >= 1e-3 && a < 1e7 {
+			return strconv.FormatFloat(x, 'f', -1, 64)
+		}
+		return strconv.FormatFloat(x, 'g', 4, 64)
+	}
 	type cand struct {
 		num  float64
 		unit string
@@ -1142,46 +1147,48 @@ func (v *validator) objects(t *table, stations map[string]refState, mats map[str
 
 // kindNeeds checks the per-kind requirements (see KindRequirements).
 func (v *validator) kindNeeds(f *field, o *Object, who string) {
-	reading := (o.Field.Known && o.FieldDistance.Known) || o.SurfacePotential.Known
+	// A value given but unreadable has its own problem: it is not reported missing as well.
+	given := func(name string, q Quantity) bool { return q.Known || f.text(name) != "" }
+	reading := (given("Field", o.Field) && given("Field distance", o.FieldDistance)) || given("Surface potential", o.SurfacePotential)
 	const readingText = "a reading (Field with Field distance, or Surface potential)"
 	var need []string
 	switch o.Kind {
 	case KindSheet, KindBelt:
-		if !o.Length.Known {
+		if !given("Length", o.Length) {
 			need = append(need, "Length")
 		}
-		if !o.Width.Known {
+		if !given("Width", o.Width) {
 			need = append(need, "Width")
 		}
 		// A conductive or dissipative layer with a measured resistance to earth is
 		// judged on its earthing; an insulating one needs a reading.
 		cond := false
-		if m, ok := v.s.Material(o.Material); ok && m.Class != ClassInsulating && o.Resistance.Known {
+		if m, ok := v.s.Material(o.Material); ok && m.Class != ClassInsulating && given("Resistance to earth", o.Resistance) {
 			cond = true
 		}
 		if !reading && !cond {
 			need = append(need, readingText+" (or, for a conductive or dissipative material, Resistance to earth)")
 		}
-		if o.Backing == "earthed" && !o.Thickness.Known {
+		if o.Backing == "earthed" && !given("Thickness", o.Thickness) {
 			need = append(need, "Thickness (the layer lies on earthed metal)")
 		}
 	case KindRoller:
-		if !o.Diameter.Known {
+		if !given("Diameter", o.Diameter) {
 			need = append(need, "Diameter")
 		}
-		if !reading && !o.Resistance.Known {
+		if !reading && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "a reading (Field with Field distance, or Surface potential) or its Resistance to earth")
 		}
 	case KindContainer:
-		if !reading && !(o.MassFlow.Known && o.ChargeToMass.Known) && !o.ChargingCurrent.Known && !o.Resistance.Known {
+		if !reading && !(given("Mass flow", o.MassFlow) && given("Charge-to-mass", o.ChargeToMass)) && !given("Charging current", o.ChargingCurrent) && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "a reading (Field with Field distance, or Surface potential), its charging (Mass flow with Charge-to-mass, or Charging current) or its Resistance to earth")
 		}
 	case KindPart:
-		if !o.SurfacePotential.Known && !o.ChargingCurrent.Known && !o.Resistance.Known {
+		if !given("Surface potential", o.SurfacePotential) && !given("Charging current", o.ChargingCurrent) && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "Surface potential, Charging current or Resistance to earth")
 		}
 	case KindPerson:
-		if !o.SurfacePotential.Known && !o.Resistance.Known {
+		if !given("Surface potential", o.SurfacePotential) && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "Surface potential or Resistance to earth")
 		}
 	case KindPowder:
@@ -1189,7 +1196,7 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 			name string
 			q    Quantity
 		}{{"Mass flow", o.MassFlow}, {"Diameter", o.Diameter}, {"Particle size", o.ParticleSize}} {
-			if !n.q.Known {
+			if !given(n.name, n.q) {
 				need = append(need, n.name)
 			}
 		}
@@ -1198,7 +1205,7 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 			name string
 			q    Quantity
 		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}, {"Conductivity", o.Conductivity}} {
-			if !n.q.Known {
+			if !given(n.name, n.q) {
 				need = append(need, n.name)
 			}
 		}
