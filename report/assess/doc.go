@@ -17,7 +17,7 @@
 //
 //	energy-vs-mie        effective energy >= MIE                                  incendive
 //	energy-vs-margin     MIE / required margin <= energy < MIE                    marginal
-//	transferred-charge   charge of one discharge > group limit (zone 0: x factor) incendive
+//	transferred-charge   charge of one brush discharge > group limit (zone 0: x f) incendive
 //	insulating-area      insulating surface > EPL Ga (zone 0) / Gb (zones 1, 2)   marginal
 //	conductor-earthing   conductor to earth > 1e6 ohm, or not measured            marginal
 //	person-earthing      person to earth > 1e8 ohm, zones 0/1/20/21, MIE <= 10 mJ  marginal
@@ -52,6 +52,9 @@
 //     describe their receiving container (Resistance or Capacitance given).
 //   - An atmosphere with no zone is assessed in the strictest zone (0, or 20 for
 //     dust), recorded as a default; an explicit zone "none" is taken as written.
+//   - The transferred-charge limits are applied to brush and propagating brush
+//     discharges (insulating surfaces, for which IEC 60079-0 sets them); sparks
+//     from conductors are judged by their energy (see InsulatorCharge).
 //   - A failed requirement outranks "not assessed": the reason then says the
 //     energy could not be judged.
 //   - A bag row's Resistance to earth is its earthing tab to plant earth; the bag's

@@ -71,15 +71,13 @@ func mitigationClass(in *model.Input, d model.DischargeType) string {
 	return "insulator"
 }
 
-// dischargeOfCharge returns the possible discharge that transfers the largest charge.
-func dischargeOfCharge(ev *model.Evaluation) model.DischargeType {
-	t, q := model.NoDischarge, 0.0
-	for i := range ev.Discharges {
-		if d := &ev.Discharges[i]; d.Possible && d.Charge > q {
-			t, q = d.Type, d.Charge
-		}
+// insulatorDischarge returns the brush or propagating brush discharge whose charge InsulatorCharge gives.
+func insulatorDischarge(ev *model.Evaluation) model.DischargeType {
+	pb := &ev.Discharges[model.PropagatingBrush]
+	if pb.Possible && pb.Charge == InsulatorCharge(ev) {
+		return model.PropagatingBrush
 	}
-	return t
+	return model.Brush
 }
 
 // humiditySentence says whether raising humidity helps the object's material.
@@ -111,11 +109,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 	case CheckEnergyMargin:
 		msg = fmt.Sprintf("%s of %s is below the MIE of %s but reaches MIE / %s = %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), plain(x.margin), mJ(env.MIE/x.margin), ratioText(c.Ratio))
 	case CheckTransferredCharge:
-		msg = fmt.Sprintf("transferred charge %s exceeds the %s limit of %s in %s", nC(ev.TransferredCharge), env.Group, nC(TransferredChargeLimit(env, lim)), zoneWords(env.Zone))
-		switch cls := mitigationClass(in, dischargeOfCharge(ev)); cls {
-		case "conductor", "person", "bag":
-			mit = templates.Mitigation("transferred-charge." + cls)
-		default:
+		msg = fmt.Sprintf("charge transferred by one %s, %s, exceeds the %s limit of %s in %s", dischargeWords(insulatorDischarge(ev)), nC(InsulatorCharge(ev)), env.Group, nC(TransferredChargeLimit(env, lim)), zoneWords(env.Zone))
+		if in.Kind == model.Bag {
+			mit = templates.Mitigation("transferred-charge.bag")
+		} else {
 			mit += humiditySentence(in)
 		}
 	case CheckInsulatingArea:
