@@ -1,5 +1,9 @@
 package inventory
 
+// Regenerate testdata/demo/demo-survey.xlsx and testdata/broken/*.xlsx from
+// the Go source (the broken surveys' .golden files are written by hand):
+//go:generate go test -run "TestDemoSurveyFile|TestBrokenSurveyFiles" -update
+
 import (
 	"bytes"
 	"fmt"
