@@ -97,6 +97,9 @@ func (x *objectContext) assess(o *inventory.Object) ObjectResult {
 
 	in, mat, inDefs := x.input(o)
 	defs = append(defs, inDefs...)
+	if in.Kind == model.Liquid {
+		defs = append(defs, liquidFromSubstance(&in, atm)...)
+	}
 	r.Material = mat
 	r.Input = in
 	if in.Kind == model.KindUnknown && cause == CauseNone {
@@ -249,11 +252,34 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 		if in.Filling == model.FillUnknown {
 			defs = append(defs, Default{Field: "Filling", Value: "top", Reason: "not given: assessed as top filling without a dip pipe (the most restrictive case)"})
 		}
-		if math.IsNaN(in.Conductivity) {
+	}
+	return in, mat, defs
+}
+
+// liquidFromSubstance fills a liquid row's unknown conductivity and permittivity
+// from the built-in substance of the station's atmosphere, taking the liquid
+// filled as the one whose vapour the atmosphere is (a documented choice; a
+// contaminated or two-phase liquid can be far less conductive: measure it).
+// A conductivity still unknown is assessed as low.
+func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
+	var defs []Default
+	sub, ok := inventory.Substance{}, false
+	if atm != nil && atm.Substance != "" {
+		sub, ok = inventory.LookupSubstance(atm.Substance)
+	}
+	if math.IsNaN(in.Conductivity) {
+		if ok && sub.Conductivity > 0 {
+			in.Conductivity = sub.Conductivity
+			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity), Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
+		} else {
 			defs = append(defs, Default{Field: "Conductivity", Value: "low (≤ 50 pS/m)", Reason: "not given: assessed as a low-conductivity liquid, with the low-conductivity v d limit"})
 		}
 	}
-	return in, mat, defs
+	if math.IsNaN(in.Permittivity) && !(in.Material.Permittivity > 0) && ok && sub.Permittivity > 0 {
+		in.Permittivity = sub.Permittivity
+		defs = append(defs, Default{Field: "Liquid permittivity", Value: plain(sub.Permittivity), Reason: fmt.Sprintf("not given: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
+	}
+	return defs
 }
 
 func unknownMaterial() model.Material {

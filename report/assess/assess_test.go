@@ -380,6 +380,26 @@ func TestLiquids(t *testing.T) {
 	}
 }
 
+func TestLiquidFromSubstance(t *testing.T) {
+	// Ethyl acetate, 4.6e5 pS/m and epsr 6 in the built-in list (reference section 8,
+	// from memory): a row without conductivity takes them, so the fill at 1 m/s in
+	// 50 mm through a dip pipe is not flagged low-conductivity.
+	o := inventory.Object{Kind: "liquid", Speed: known(1), Diameter: known(0.05), Filling: "dip pipe", Resistance: known(1e3), Capacitance: known(100e-12)}
+	r := one(t, &atmEthylAcetate, o)
+	wantRel(t, "conductivity", r.Input.Conductivity, 4.6e5*1e-12)
+	wantRel(t, "permittivity", r.Input.Permittivity, 6)
+	if hasCheck(r, "low-conductivity") || !hasDefault(r, "Conductivity") {
+		t.Errorf("findings %v defaults %+v", checks(r), r.Defaults)
+	}
+	// Without a substance the conductivity stays unknown and is assessed as low.
+	atm := atmEthylAcetate
+	atm.Substance = ""
+	r = one(t, &atm, o)
+	if !math.IsNaN(r.Input.Conductivity) || !hasCheck(r, "low-conductivity") {
+		t.Errorf("no substance: conductivity %g, findings %v", r.Input.Conductivity, checks(r))
+	}
+}
+
 func hasDefault(r ObjectResult, field string) bool {
 	for _, d := range r.Defaults {
 		if d.Field == field {

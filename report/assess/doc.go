@@ -60,7 +60,9 @@
 //   - A bag row's Resistance to earth is its earthing tab to plant earth; the bag's
 //     own point-to-tab resistance is a product property named in the mitigation.
 //   - A bag with no type is assessed as type A; a liquid with no filling mode as
-//     top filling; a liquid with no conductivity as low-conductivity. Each is a default.
+//     top filling. A liquid with no conductivity (or permittivity) takes the typical
+//     value of the station atmosphere's built-in substance, else is assessed as
+//     low-conductivity. Each is a default.
 //   - Raising humidity is recommended only for materials whose surface
 //     resistivity falls at least HumidityResponds decades per 10 %RH.
 //   - Double-layer charge is read from the row's Notes ("double-layer").
