@@ -455,6 +455,9 @@ func TestBagTypeTable(t *testing.T) {
 		{"vapour IIB zone 2", gas("2", "IIB"), "CD"},
 		{"vapour IIC zone 1", gas("1", "IIC"), ""},
 		{"vapour IIA zone 0", gas("0", "IIA"), ""},
+		// No atmosphere at the station: the product is taken as non-combustible, every
+		// type allowed (a documented choice of this package, not from the table).
+		{"no atmosphere", nil, "ABCD"},
 	}
 	for _, b := range bands {
 		for _, typ := range []string{"A", "B", "C", "D", ""} {
