@@ -287,6 +287,7 @@ type table struct {
 	Present   bool
 	HeaderRow int                 // 0 when no header was found
 	Cols      map[int]HeaderMatch // by 0-based column index
+	Headed    map[int]bool        // columns with a non-blank header cell (known or not)
 	Index     map[string]int      // column name -> index (first occurrence)
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
@@ -412,7 +413,7 @@ func blankRow(cells []string) bool {
 // of a sheet with fewer, match the contract's columns), matches its headers,
 // and collects the non-blank rows below it.
 func (r *reader) readTable(sheet string) *table {
-	t := &table{Sheet: sheet, Cols: map[int]HeaderMatch{}, Index: map[string]int{}, BadUnit: map[string]Problem{}}
+	t := &table{Sheet: sheet, Cols: map[int]HeaderMatch{}, Headed: map[int]bool{}, Index: map[string]int{}, BadUnit: map[string]Problem{}}
 	actual, ok := r.sheets[NormalizeName(sheet)]
 	if !ok {
 		return t
@@ -495,6 +496,7 @@ func (r *reader) matchHeaderRow(t *table, cols []Column, cells []string) {
 			continue
 		}
 		letter := ColumnLetter(i)
+		t.Headed[i] = true
 		m, ok, err := MatchHeader(c, cols)
 		if !ok {
 			fix := ""

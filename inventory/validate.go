@@ -408,8 +408,8 @@ func (v *validator) unheaded(t *table, st *rowState, rr rawRow, seen map[int]boo
 		if strings.TrimSpace(c) == "" || seen[i] {
 			continue
 		}
-		if _, ok := t.Cols[i]; ok {
-			continue
+		if t.Headed[i] {
+			continue // known, or an unknown header already warned about
 		}
 		seen[i] = true
 		st.probs = append(st.probs, Problem{Sheet: t.Sheet, Row: rr.Row, Column: ColumnLetter(i), ID: st.id, Severity: Warning,
@@ -522,7 +522,9 @@ func (r *reader) readSite(s *Survey) *siteSheet {
 	items := SiteItems()
 	first := true
 	err := r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
-		if blankRow(cells) {
+		// Only columns A and B are read; notes beside them (the template's
+		// cautions in column D) are not survey data.
+		if blankRow(cells[:min(2, len(cells))]) {
 			return true
 		}
 		item, value := "", ""
