@@ -62,15 +62,13 @@ func hasDefault(o *assess.ObjectResult, names ...string) bool {
 	return false
 }
 
-// defaultsText lists an object's defaults as "Capacitance = 200 pF (typical human body); ...".
+// defaultsText lists an object's defaults compactly, "Capacitance = 200 pF;
+// Resistance to earth = 1e13 Ω": the reasons are on the Method sheet (and in
+// the JSON), so that a row stays a few lines high in print.
 func defaultsText(ds []assess.Default) string {
 	parts := make([]string, 0, len(ds))
 	for _, d := range ds {
-		s := d.Field + " = " + d.Value
-		if d.Reason != "" {
-			s += " (" + d.Reason + ")"
-		}
-		parts = append(parts, s)
+		parts = append(parts, d.Field+" = "+d.Value)
 	}
 	return strings.Join(parts, "; ")
 }
@@ -177,9 +175,9 @@ func objectColumns(withProbability bool) []column[objRow] {
 			}
 			return text(o.Eval.Effective.String())
 		}},
-		{"Reason", 40, func(o objRow) cell { return wrapText(o.Reason) }},
+		{"Reason", 48, func(o objRow) cell { return wrapText(o.Reason) }},
 		{"Findings [count]", 9, func(o objRow) cell { return integer(len(o.Findings)) }},
-		{"Defaults applied (values marked est.)", 40, func(o objRow) cell { return wrapText(defaultsText(o.Defaults)) }},
+		{"Defaults applied (values marked est.; reasons on Method)", 48, func(o objRow) cell { return wrapText(defaultsText(o.Defaults)) }},
 
 		// Surveyed inputs.
 		{"Material", 14, func(o objRow) cell { return optText(o.Object.Material) }},
@@ -278,8 +276,8 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{UnitSecond.Header("Relaxation time"), 10, ev(func(e *model.Evaluation) float64 { return e.RelaxationTime }, UnitSecond)},
 		{UnitUA.Header("Streaming current"), 10, ev(func(e *model.Evaluation) float64 { return e.StreamingCurrent }, UnitUA)},
 		{UnitM2PerS.Header("Velocity × diameter"), 10, ev(func(e *model.Evaluation) float64 { return e.VelocityDiameter }, UnitM2PerS)},
-		{"Model assumptions", 30, func(o objRow) cell { return wrapText(enumText(o.Eval.Assumed)) }},
-		{"Model notes", 30, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
+		{"Model assumptions", 40, func(o objRow) cell { return wrapText(enumText(o.Eval.Assumed)) }},
+		{"Model notes", 36, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
 		{"Missing inputs", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.NotAssessed)) }},
 	}
 	if withProbability {

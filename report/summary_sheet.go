@@ -2,6 +2,7 @@ package report
 
 import (
 	"fmt"
+	"math"
 
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
@@ -172,7 +173,7 @@ func (wb *workbook) summary() error {
 		}
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
 		if err := sink.row(r, []cell{wrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
-			"Stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
+			"A station whose worst ratio is 0 (no discharge possible) has no bar; stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
 			return err
 		}
 		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
@@ -235,6 +236,7 @@ func (wb *workbook) chart(at string, rows int) error {
 	n := wb.stationRows
 	sheet := "'" + SheetStations + "'"
 	gap := uint(60)
+	lo, hi := ratioAxis(wb.a.Stations)
 	return wb.f.AddChart(SheetSummary, at, &excelize.Chart{
 		Type: excelize.Bar,
 		Series: []excelize.ChartSeries{{
@@ -251,12 +253,32 @@ func (wb *workbook) chart(at string, rows int) error {
 		Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "Worst ratio E/MIE per station (log scale)", Font: &excelize.Font{Size: 11, Bold: true}}}},
 		XAxis:     excelize.ChartAxis{ReverseOrder: true, Font: excelize.Font{Size: 9, Color: "000000"}},
 		YAxis: excelize.ChartAxis{
-			LogBase: 10, MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"},
+			LogBase: 10, Minimum: &lo, Maximum: &hi, MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"},
 			Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "effective energy / MIE [–]", Font: &excelize.Font{Size: 9, Color: "000000"}}}},
 		},
 		GapWidth:     &gap,
 		ShowBlanksAs: "gap",
 	})
+}
+
+// ratioAxis returns the log axis range of the ratio chart: whole decades from
+// below the smallest positive ratio (showing at least 1/margin = 0.1, not
+// below 1e-4) to above the largest (at least 10), so every bar is drawn.
+func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
+	lo, hi = 0.1, 10
+	for i := range stations {
+		r := finitePtr(stations[i].WorstRatio)
+		if r == nil || *r <= 0 {
+			continue
+		}
+		if d := math.Pow(10, math.Floor(math.Log10(*r))); d < lo {
+			lo = d
+		}
+		if d := math.Pow(10, math.Ceil(math.Log10(*r))); d > hi {
+			hi = d
+		}
+	}
+	return math.Max(lo, 1e-4), hi
 }
 
 // siteDefaulted reports whether the site value was defaulted (Site.Defaults

@@ -132,8 +132,15 @@ func rowHeight(widths []float64, cells []cell) float64 {
 	if lines == 1 {
 		return 0
 	}
+	if lines > maxLines {
+		lines = maxLines // the cell keeps the whole text; print shows the first lines
+	}
 	return lineHeight*float64(lines) + 2
 }
+
+// maxLines caps a table row's height so that one wordy cell does not make a
+// row take half a page.
+const maxLines = 8
 
 // lineHeight is the height in points of one line of 10 pt text.
 const lineHeight = 12.75

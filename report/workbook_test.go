@@ -176,7 +176,7 @@ func TestWorkbookObjectsValues(t *testing.T) {
 	if !strings.HasSuffix(shown, "est.") {
 		t.Errorf("O3 capacitance shows %q, want the est. marker", shown)
 	}
-	if d := byID["O3"][colIndex(t, hdr, "Defaults applied (values marked est.)")]; !strings.Contains(d, "200 pF") {
+	if d := byID["O3"][colIndex(t, hdr, "Defaults applied (values marked est.; reasons on Method)")]; !strings.Contains(d, "200 pF") {
 		t.Errorf("O3 defaults = %q, want the 200 pF default listed", d)
 	}
 }
