@@ -609,9 +609,12 @@ func TestDefaultsRecorded(t *testing.T) {
 	s := newSurvey([]inventory.Atmosphere{atmToluene}, []inventory.Station{{ID: "S", Atmosphere: "A-TOL"}},
 		[]inventory.Object{{ID: "P", Station: "S", Kind: "person", Resistance: known(1e10)}, {ID: "D", Station: "S", Kind: "container", MassFlow: known(0.1), ChargeToMass: known(1e-6)}}, nil)
 	s.Site.RequiredMargin = inventory.Quantity{}
+	// As the reader leaves it: the temperature filled in and listed as a default.
+	s.Site.AirTemperature = known(293.15)
+	s.Site.Defaults = []string{"Air temperature 20 °C (default)"}
 	a := Assess(s, Options{})
 	p := a.Objects[0]
-	for _, f := range []string{"Capacitance", "Relative humidity", "Required margin"} {
+	for _, f := range []string{"Capacitance", "Relative humidity", "Required margin", "Air temperature"} {
 		if !hasDefault(p, f) {
 			t.Errorf("person: default %q not recorded (%+v)", f, p.Defaults)
 		}
