@@ -593,6 +593,7 @@ func TestStationRanking(t *testing.T) {
 }
 
 func TestUnknownStationKeepsObject(t *testing.T) {
+	// 100 pF at 1 kV: values invented for the demo; the station is what matters.
 	s := newSurvey(nil, nil, []inventory.Object{{ID: "LOST", Station: "S-NONE", Kind: "part", Capacitance: known(1e-10), SurfacePotential: known(1e3)}}, nil)
 	a := Assess(s, Options{})
 	if len(a.Objects) != 1 || a.Objects[0].Verdict != NotAssessed || !strings.Contains(a.Objects[0].Reason, "S-NONE") {
@@ -779,6 +780,7 @@ func TestAtmosphereDefaults(t *testing.T) {
 }
 
 func FuzzLimitsFromSite(f *testing.F) {
+	// Seeds: invented for the demo (item texts as a surveyor writes them).
 	f.Add("shock energy [mj]", "400")
 	f.Add("conductor earthing limit [ω]", "1e6 ohm")
 	f.Add("brush area", "100 cm²")
