@@ -49,7 +49,7 @@ func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
 	}
 	root.SetOut(stdout)
 	root.SetErr(stderr)
-	root.AddCommand(newTemplateCmd(), newCheckCmd(), newAssessCmd(), newDemoCmd(), newLibraryCmd())
+	root.AddCommand(newTemplateCmd(), newCheckCmd(), newAssessCmd(), newDemoCmd(), newLibraryCmd(), newWhatifCmd(), newSweepCmd(), newCompareCmd())
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
 		return withCode(exitUsage, fmt.Errorf("%w\nrun '%s --help' for usage", err, c.CommandPath()))
 	})

@@ -1,0 +1,113 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/rerun"
+)
+
+type compareOptions struct {
+	old, new string
+	output   string
+	json     string
+}
+
+func newCompareCmd() *cobra.Command {
+	var o compareOptions
+	c := &cobra.Command{
+		Use:   "compare OLD NEW [-o FILE.xlsx]",
+		Short: "Compare two surveys of the same floor (or two audit JSON files): added, removed, changed, ranks moved",
+		Long: "compare assesses two surveys (.xlsx) of the same floor, or reads two audit JSON files written by\n" +
+			"'sparkmargin assess --json', and lists the objects added and removed, the objects whose readings,\n" +
+			"resistance, material or verdict changed, and the stations whose rank moved. When either side is a\n" +
+			"JSON file both sides are compared on the audit's results (the JSON holds no readings).\n" +
+			"Exit status: 0 done, 1 nothing could be assessed, 2 usage or unreadable input.",
+		Example: "  sparkmargin compare last-year.xlsx this-year.xlsx -o compare.xlsx\n" +
+			"  sparkmargin compare old-audit.json new-audit.json --json compare.json",
+		Args: cobra.ExactArgs(2),
+		RunE: func(c *cobra.Command, args []string) error {
+			o.old, o.new = args[0], args[1]
+			return runCompare(c.OutOrStdout(), o)
+		},
+	}
+	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write; none when not given")
+	c.Flags().StringVar(&o.json, "json", "", "also write the comparison as JSON to this file")
+	return c
+}
+
+func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".json") }
+
+// compareSide loads one side: an audit JSON as it is, a survey assessed (and,
+// when the other side is JSON, turned into the audit JSON so both compare alike).
+func compareSide(path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
+	label := filepath.Base(path)
+	if isJSON(path) {
+		data, err := os.ReadFile(path)
+		if err != nil {
+			return nil, nil, withCode(exitUsage, fmt.Errorf("reading %s: %w", path, err))
+		}
+		side, err := rerun.SideFromJSON(label, data)
+		if err != nil {
+			return nil, nil, withCode(exitUsage, err)
+		}
+		return side, nil, nil
+	}
+	s, err := loadSurvey(path)
+	if err != nil {
+		return nil, nil, err
+	}
+	if len(s.Objects) == 0 {
+		return nil, nil, withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", path, path))
+	}
+	a := assess.Assess(s, assess.Options{Limits: rerun.Limits(s)})
+	if !asJSON {
+		return rerun.SideFromAudit(label, a), s, nil
+	}
+	var buf bytes.Buffer
+	if err := report.WriteJSON(&buf, a, report.RunInfo{ToolVersion: version, SurveyFile: label}); err != nil {
+		return nil, nil, withCode(exitUsage, err)
+	}
+	side, err := rerun.SideFromJSON(label, buf.Bytes())
+	return side, s, err
+}
+
+func runCompare(out io.Writer, o compareOptions) error {
+	for _, in := range []string{o.old, o.new} {
+		if err := refuseSurveyPath(in, o.output, o.json); err != nil {
+			return err
+		}
+	}
+	asJSON := isJSON(o.old) || isJSON(o.new)
+	oldSide, _, err := compareSide(o.old, asJSON)
+	if err != nil {
+		return err
+	}
+	newSide, newSurvey, err := compareSide(o.new, asJSON)
+	if err != nil {
+		return err
+	}
+	c := rerun.Compare(oldSide, newSide)
+	if err := writeRerun(o.output, o.json,
+		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey) },
+		func(w io.Writer) error { return rerun.WriteCompareJSON(w, c) }); err != nil {
+		return err
+	}
+	rerun.WriteCompareSummary(out, c)
+	if o.output != "" {
+		fmt.Fprintf(out, "\nCompare workbook: %s\n", o.output)
+	}
+	if o.json != "" {
+		fmt.Fprintf(out, "Compare JSON:     %s\n", o.json)
+	}
+	return nil
+}

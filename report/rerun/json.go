@@ -1,0 +1,184 @@
+package rerun
+
+import (
+	"encoding/json"
+	"io"
+	"math"
+)
+
+// The JSON documents of whatif, sweep and compare: exactly the stable keys of
+// the rerun contract, SI values, null for a ratio that is not defined (no
+// atmosphere). Structs, not maps, keep the key order fixed.
+
+type jsonChange struct {
+	Change  string   `json:"change"`
+	Target  string   `json:"target"`
+	Value   string   `json:"value"`
+	SIValue *float64 `json:"si_value"`
+	Applied string   `json:"applied"`
+	Source  string   `json:"source"`
+	Note    string   `json:"note"`
+	Objects []string `json:"objects"`
+}
+
+type jsonVerdictRatio struct {
+	Verdict string   `json:"verdict"`
+	Ratio   *float64 `json:"ratio"`
+}
+
+type jsonWhatifObject struct {
+	ID      string           `json:"id"`
+	Station string           `json:"station"`
+	Before  jsonVerdictRatio `json:"before"`
+	After   jsonVerdictRatio `json:"after"`
+}
+
+type jsonStationState struct {
+	Rank       int      `json:"rank"`
+	Verdict    string   `json:"verdict"`
+	WorstRatio *float64 `json:"worst_ratio"`
+}
+
+type jsonWhatifStation struct {
+	ID     string            `json:"id"`
+	Before *jsonStationState `json:"before"`
+	After  *jsonStationState `json:"after"`
+}
+
+type jsonWhatif struct {
+	Changes  []jsonChange        `json:"changes"`
+	Objects  []jsonWhatifObject  `json:"objects"`
+	Stations []jsonWhatifStation `json:"stations"`
+}
+
+func finite(p *float64) *float64 {
+	if p == nil || math.IsNaN(*p) || math.IsInf(*p, 0) {
+		return nil
+	}
+	v := *p
+	return &v
+}
+
+func encode(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(v)
+}
+
+// WriteWhatifJSON writes the whatif document: {"changes", "objects": [{"id",
+// "station", "before": {"verdict", "ratio"}, "after": {...}}], "stations": [{"id",
+// "before": {"rank", "verdict", "worst_ratio"}, "after": {...}}]}. Each change
+// carries change, target, value (as written), si_value, applied, source, note and
+// the objects it reached.
+func WriteWhatifJSON(w io.Writer, x *Whatif) error {
+	d := jsonWhatif{Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}}
+	for _, a := range x.Applied {
+		si := a.SI
+		objs := a.Objects
+		if objs == nil {
+			objs = []string{}
+		}
+		d.Changes = append(d.Changes, jsonChange{a.Kind, a.Target, a.Value, finite(&si), a.SIText, a.Source, a.Note, objs})
+	}
+	for _, o := range x.Objects {
+		j := jsonWhatifObject{ID: o.ID, Station: o.Station}
+		if o.Before != nil {
+			j.Before = jsonVerdictRatio{o.Before.Verdict.String(), finite(o.Before.Ratio)}
+		}
+		if o.After != nil {
+			j.After = jsonVerdictRatio{o.After.Verdict.String(), finite(o.After.Ratio)}
+		}
+		d.Objects = append(d.Objects, j)
+	}
+	for _, s := range x.Stations {
+		j := jsonWhatifStation{ID: s.ID}
+		if s.Before != nil {
+			j.Before = &jsonStationState{s.Before.Rank, s.Before.Verdict.String(), finite(s.Before.WorstRatio)}
+		}
+		if s.After != nil {
+			j.After = &jsonStationState{s.After.Rank, s.After.Verdict.String(), finite(s.After.WorstRatio)}
+		}
+		d.Stations = append(d.Stations, j)
+	}
+	return encode(w, d)
+}
+
+type jsonSweepStation struct {
+	ID         string   `json:"id"`
+	Verdict    string   `json:"verdict"`
+	WorstRatio *float64 `json:"worst_ratio"`
+}
+
+type jsonSweepStep struct {
+	RHPct     float64            `json:"rh_pct"`
+	Incendive int                `json:"incendive"`
+	Marginal  int                `json:"marginal"`
+	Stations  []jsonSweepStation `json:"stations"`
+}
+
+type jsonSweep struct {
+	Steps []jsonSweepStep `json:"steps"`
+}
+
+// WriteSweepJSON writes the sweep document: {"steps": [{"rh_pct", "incendive",
+// "marginal", "stations": [{"id", "verdict", "worst_ratio"}]}]}.
+func WriteSweepJSON(w io.Writer, s *Sweep) error {
+	d := jsonSweep{Steps: []jsonSweepStep{}}
+	for _, st := range s.Steps {
+		j := jsonSweepStep{RHPct: st.RH, Incendive: st.Incendive, Marginal: st.Marginal, Stations: []jsonSweepStation{}}
+		for _, x := range st.Stations {
+			j.Stations = append(j.Stations, jsonSweepStation{x.ID, x.Verdict.String(), finite(x.WorstRatio)})
+		}
+		d.Steps = append(d.Steps, j)
+	}
+	return encode(w, d)
+}
+
+type jsonChanged struct {
+	ID            string   `json:"id"`
+	Fields        []string `json:"fields"`
+	VerdictBefore string   `json:"verdict_before"`
+	VerdictAfter  string   `json:"verdict_after"`
+}
+
+type jsonRankMove struct {
+	ID         string `json:"id"`
+	RankBefore *int   `json:"rank_before"`
+	RankAfter  *int   `json:"rank_after"`
+}
+
+type jsonCompare struct {
+	Added    []string       `json:"added"`
+	Removed  []string       `json:"removed"`
+	Changed  []jsonChanged  `json:"changed"`
+	Stations []jsonRankMove `json:"stations"`
+}
+
+func rankPtr(r int) *int {
+	if r == 0 {
+		return nil
+	}
+	return &r
+}
+
+// WriteCompareJSON writes the compare document: {"added": [ids], "removed":
+// [ids], "changed": [{"id", "fields", "verdict_before", "verdict_after"}],
+// "stations": [{"id", "rank_before", "rank_after"}]} with the stations whose rank
+// moved (null rank: the station is not on that side).
+func WriteCompareJSON(w io.Writer, c *Comparison) error {
+	d := jsonCompare{Added: nonNil(c.Added), Removed: nonNil(c.Removed), Changed: []jsonChanged{}, Stations: []jsonRankMove{}}
+	for _, ch := range c.Changed {
+		d.Changed = append(d.Changed, jsonChanged{ch.ID, ch.Fields, ch.VerdictBefore, ch.VerdictAfter})
+	}
+	for _, m := range c.Stations {
+		d.Stations = append(d.Stations, jsonRankMove{m.ID, rankPtr(m.RankBefore), rankPtr(m.RankAfter)})
+	}
+	return encode(w, d)
+}
+
+func nonNil(s []string) []string {
+	if s == nil {
+		return []string{}
+	}
+	return s
+}

@@ -1,0 +1,254 @@
+package rerun
+
+import (
+	"fmt"
+	"math"
+		"strings"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+)
+
+// Outcome is what a change did to one object's or station's hazard. An object or
+// station is a hazard when its verdict is incendive or marginal.
+type Outcome string
+
+// Outcomes of a rerun.
+const (
+	Cleared  Outcome = "cleared"  // a hazard before, none after
+	Stayed   Outcome = "stayed"   // a hazard before and after
+	Appeared Outcome = "appeared" // none before, a hazard after
+	NoHazard Outcome = "no hazard"
+)
+
+// IsHazard reports whether a verdict counts as a hazard (incendive or marginal).
+func IsHazard(v assess.Verdict) bool { return v == assess.Incendive || v == assess.Marginal }
+
+// OutcomeOf classifies a before/after pair of verdicts.
+func OutcomeOf(before, after assess.Verdict) Outcome {
+	switch b, a := IsHazard(before), IsHazard(after); {
+	case b && !a:
+		return Cleared
+	case b && a:
+		return Stayed
+	case !b && a:
+		return Appeared
+	}
+	return NoHazard
+}
+
+// ObjectDelta is one object before and after the changes.
+type ObjectDelta struct {
+	ID, Station, Kind string
+	Before, After     *assess.ObjectResult // nil only when the object is missing on that side
+	Outcome           Outcome
+	Changed           bool   // a change reached this row or its station
+	Why               string // the physics of the difference, in words
+}
+
+// StationDelta is one station before and after the changes.
+type StationDelta struct {
+	ID, Name      string
+	Before, After *assess.StationResult
+	Outcome       Outcome
+}
+
+// Whatif is the before/after assessment of a survey under a set of changes.
+type Whatif struct {
+	Before, After *assess.Audit
+	Applied       []Applied
+	Objects       []ObjectDelta  // survey order
+	Stations      []StationDelta // in the order of the ranking after the changes
+	Moved         map[Outcome]int
+}
+
+// Limits returns the limits an assessment of s uses: the defaults with the Site
+// sheet's overrides (problems in the overrides are reported by assess and check).
+func Limits(s *inventory.Survey) model.Limits {
+	lim, _ := assess.LimitsFromSite(s.Site, model.DefaultLimits())
+	return lim
+}
+
+// Run assesses s, applies the changes to a deep copy and assesses it again.
+// s is not modified.
+func Run(s *inventory.Survey, changes []Change) (*Whatif, error) {
+	before := assess.Assess(s, assess.Options{Limits: Limits(s)})
+	changed, applied, err := Apply(s, before, changes)
+	if err != nil {
+		return nil, err
+	}
+	after := assess.Assess(changed, assess.Options{Limits: Limits(changed)})
+	return Diff(before, after, applied), nil
+}
+
+// Diff pairs the objects and stations of two audits of the same survey.
+func Diff(before, after *assess.Audit, applied []Applied) *Whatif {
+	w := &Whatif{Before: before, After: after, Applied: applied, Moved: map[Outcome]int{Cleared: 0, Stayed: 0, Appeared: 0, NoHazard: 0}}
+	reached := map[string]bool{}
+	rhStations := map[string]bool{}
+	siteWideChange := false
+	for _, a := range applied {
+		for _, id := range a.Objects {
+			reached[id] = true
+		}
+		for _, id := range a.Stations {
+			rhStations[id] = true
+		}
+		if a.Kind == ChangeMargin {
+			siteWideChange = true
+		}
+	}
+	idx := map[string]int{}
+	for i := range after.Objects {
+		idx[after.Objects[i].Object.ID] = i
+	}
+	for i := range before.Objects {
+		b := &before.Objects[i]
+		d := ObjectDelta{ID: b.Object.ID, Station: b.Object.Station, Kind: b.Object.Kind, Before: b}
+		if j, ok := idx[d.ID]; ok {
+			d.After = &after.Objects[j]
+			d.Outcome = OutcomeOf(b.Verdict, d.After.Verdict)
+			d.Changed = reached[d.ID] || rhStations[d.Station] || siteWideChange
+			d.Why = why(b, d.After, d.Changed)
+		}
+		w.Moved[d.Outcome]++
+		w.Objects = append(w.Objects, d)
+	}
+	bst := map[string]*assess.StationResult{}
+	for i := range before.Stations {
+		bst[before.Stations[i].Station.ID] = &before.Stations[i]
+	}
+	for i := range after.Stations {
+		a := &after.Stations[i]
+		d := StationDelta{ID: a.Station.ID, Name: a.Station.Name, After: a, Before: bst[a.Station.ID]}
+		if d.Before != nil {
+			d.Outcome = OutcomeOf(d.Before.Verdict, a.Verdict)
+		}
+		w.Stations = append(w.Stations, d)
+	}
+	return w
+}
+
+// why explains an object's before/after difference with the model's physics:
+// for an RH change, whether the material's surface responds to humidity.
+func why(b, a *assess.ObjectResult, changed bool) string {
+	if !changed {
+		return "not reached by any change: " + verdictPhrase(a)
+	}
+	var parts []string
+	rhB, rhA := b.Environment.RelativeHumidity, a.Environment.RelativeHumidity
+	if rhB != rhA {
+		parts = append(parts, humidityPhrase(b, a))
+	}
+	if rb, ra := b.Object.Resistance, a.Object.Resistance; rb != ra {
+		parts = append(parts, fmt.Sprintf("resistance to earth %s → %s Ω%s", ohmText(rb), ohmText(ra), potentialPhrase(b, a)))
+	}
+	if b.Object.Material != a.Object.Material {
+		parts = append(parts, fmt.Sprintf("material %s → %s", orNone(b.Object.Material), orNone(a.Object.Material)))
+	}
+	if b.Object.Speed != a.Object.Speed {
+		parts = append(parts, fmt.Sprintf("speed %s → %s m/s", qText(b.Object.Speed, 1), qText(a.Object.Speed, 1)))
+	}
+	if b.Object.Conductivity != a.Object.Conductivity {
+		parts = append(parts, fmt.Sprintf("conductivity %s → %s pS/m", qText(b.Object.Conductivity, 1e12), qText(a.Object.Conductivity, 1e12)))
+	}
+	if b.Object.BagType != a.Object.BagType {
+		parts = append(parts, fmt.Sprintf("bag type %s → %s", orNone(b.Object.BagType), orNone(a.Object.BagType)))
+	}
+	if len(parts) == 0 && b.Verdict == a.Verdict && ratioEq(b.Ratio, a.Ratio) {
+		parts = append(parts, "the change does not alter this row's result")
+	}
+	return strings.Join(parts, "; ") + ": " + verdictPhrase(a)
+}
+
+// humidityPhrase says how the row's material responds to an RH change, from its humidity slope.
+func humidityPhrase(b, a *assess.ObjectResult) string {
+	rh := fmtSig(a.Environment.RelativeHumidity)
+	hazard := dischargeName(b)
+	m := a.Material
+	switch {
+	case m == nil:
+		return fmt.Sprintf("RH %s → %s %%, but the row gives no material: the model cannot say how its surface responds", fmtSig(b.Environment.RelativeHumidity), rh)
+	case m.HumiditySlope <= 0 || math.IsNaN(m.SurfaceResistivity):
+		if ratioEq(b.Ratio, a.Ratio) && b.Verdict == a.Verdict {
+			return fmt.Sprintf("%s surface does not respond to humidity: %s hazard unchanged at %s %%", m.Name, hazard, rh)
+		}
+		return fmt.Sprintf("%s surface does not respond to humidity (slope 0) at %s %%", m.Name, rh)
+	}
+	rb, ra := b.Eval.SurfaceResistivity, a.Eval.SurfaceResistivity
+	return fmt.Sprintf("%s surface resistivity %s → %s Ω/sq from %s to %s %% RH (%s decade(s) per 10 %%RH)",
+		m.Name, fmtSig(rb), fmtSig(ra), fmtSig(b.Environment.RelativeHumidity), rh, fmtSig(m.HumiditySlope))
+}
+
+func potentialPhrase(b, a *assess.ObjectResult) string {
+	pb, pa := b.Eval.Potential, a.Eval.Potential
+	if math.IsNaN(pb) || math.IsNaN(pa) || pb == pa {
+		return ""
+	}
+	return fmt.Sprintf(", potential %s → %s V, stored energy %s → %s mJ", fmtSig(pb), fmtSig(pa), fmtSig(b.Eval.StoredEnergy*1e3), fmtSig(a.Eval.StoredEnergy*1e3))
+}
+
+func dischargeName(r *assess.ObjectResult) string {
+	switch r.Eval.Effective {
+	case model.NoDischarge:
+		if IsHazard(r.Verdict) {
+			return r.Verdict.String()
+		}
+		return "no-discharge"
+	case model.PropagatingBrush:
+		return "propagating brush"
+	}
+	return r.Eval.Effective.String()
+}
+
+func verdictPhrase(r *assess.ObjectResult) string {
+	s := r.Verdict.String()
+	if r.Ratio != nil {
+		s += ", ratio " + fmtSig(*r.Ratio)
+	}
+	return s
+}
+
+func ratioEq(a, b *float64) bool {
+	if a == nil || b == nil {
+		return a == nil && b == nil
+	}
+	return *a == *b || math.Abs(*a-*b) <= 1e-12*math.Max(math.Abs(*a), math.Abs(*b))
+}
+
+func ohmText(q inventory.Quantity) string {
+	if !q.Known {
+		return "not measured"
+	}
+	return fmtSig(q.Value)
+}
+
+func qText(q inventory.Quantity, scale float64) string {
+	if !q.Known {
+		return "not given"
+	}
+	return fmtSig(q.Value * scale)
+}
+
+func orNone(s string) string {
+	if s == "" {
+		return "not given"
+	}
+	return s
+}
+
+// fmtSig formats v with 3 significant digits (report.FormatSig), trailing zeros
+// of the mantissa dropped: "55", "1e6", "0.156".
+func fmtSig(v float64) string {
+	s := report.FormatSig(v, 3)
+	mant, exp, hasExp := strings.Cut(s, "e")
+	if strings.Contains(mant, ".") {
+		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
+	}
+	if hasExp {
+		return mant + "e" + exp
+	}
+	return mant
+}

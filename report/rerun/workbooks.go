@@ -1,0 +1,340 @@
+package rerun
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/xuri/excelize/v2"
+)
+
+// Sheet names of the whatif workbook, in order.
+const (
+	SheetSummary  = "Summary"
+	SheetObjects  = "Objects"
+	SheetStations = "Stations"
+	SheetChanges  = "Changes applied"
+	SheetMethod   = "Method"
+	SheetCautions = "Cautions"
+	SheetRejected = "Rejected"
+	SheetSweep    = "Sweep"
+	SheetAdded    = "Added"
+	SheetRemoved  = "Removed"
+	SheetChanged  = "Changed"
+)
+
+func rerunNotes() [][2]string {
+	return [][2]string{
+		{"Changes", "Each change is validated like survey input (IDs must be accepted rows, values carry a unit of the right dimension) and applied, in order (Changes sheet first, then the command-line flags), to a copy of the accepted rows. The survey file is never modified."},
+		{"Before and after", "The survey is assessed as it is (before) and with the changes (after), with the same limits and the same model; a verdict is a hazard when it is incendive or marginal. Cleared: a hazard before, none after. Stayed: a hazard before and after. Appeared: none before, a hazard after."},
+		{"Humidity", "A station's RH is its own, else the site's. When it changes, the model recomputes each material's surface resistivity from its 50 % value and its humidity slope (log10 of resistivity falls linearly by the slope per 10 %RH, clipped); a material with slope 0 (PTFE, PE, PP) does not respond. A site RH change reaches only stations that give no RH of their own."},
+		{"Earthing and footwear", "An earthing change sets the resistance to earth of one object, or of every row at a station the assessment treats as a conductor that must be earthed (parts, containers, liquid lines, conductive rollers, type C bags); a footwear change sets a person's resistance to earth through footwear and floor."},
+	}
+}
+
+// WriteWhatifWorkbook writes the whatif workbook: Summary (counts before and
+// after, counts moved, a chart), Objects and Stations before/after, Changes
+// applied, Method, Cautions and Rejected.
+func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
+	if x == nil || x.Before == nil || x.Before.Survey == nil {
+		return errors.New("whatif workbook: no result")
+	}
+	s := x.Before.Survey
+	b := newBook(s, SheetSummary)
+
+	// Summary.
+	sh := SheetSummary
+	b.check(b.f.SetColWidth(sh, "A", "A", 26))
+	b.check(b.f.SetColWidth(sh, "B", "D", 14))
+	b.put(sh, 1, 1, tx("What-if: "+b.site), "title")
+	r := 3
+	for _, kv := range [][2]string{{"Survey", s.Path}, {"Survey date", b.date}, {"Changes applied", fmt.Sprint(len(x.Applied))}} {
+		b.put(sh, 1, r, tx(kv[0]), "")
+		b.put(sh, 2, r, tx(kv[1]), "")
+		r++
+	}
+	r++
+	b.put(sh, 1, r, tx("Objects by verdict"), "section")
+	r++
+	countsAt := r
+	var rows [][]xc
+	for _, v := range []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed} {
+		rows = append(rows, []xc{vd(v.String()), in(x.Before.Counts[v]), in(x.After.Counts[v])})
+	}
+	r = b.table(sh, r, []string{"Verdict", "Before", "After"}, []float64{26, 14, 14}, rows) + 1
+	b.put(sh, 1, r, tx("What moved"), "section")
+	r++
+	st := map[Outcome]int{}
+	for _, d := range x.Stations {
+		st[d.Outcome]++
+	}
+	rows = nil
+	for _, o := range []Outcome{Cleared, Stayed, Appeared, NoHazard} {
+		rows = append(rows, []xc{tx(string(o)), in(x.Moved[o]), in(st[o])})
+	}
+	r = b.table(sh, r, []string{"Outcome", "Objects", "Stations"}, []float64{26, 14, 14}, rows) + 1
+	b.put(sh, 1, r, xc{v: "Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet).", wrap: true}, "caution")
+	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("C%d", r)))
+	b.check(b.f.SetRowHeight(sh, r, 40))
+	gap := uint(80)
+	b.check(b.f.AddChart(sh, "E3", &excelize.Chart{
+		Type: excelize.Col,
+		Series: []excelize.ChartSeries{
+			{Name: fmt.Sprintf("%s!$B$%d", sh, countsAt), Categories: fmt.Sprintf("%s!$A$%d:$A$%d", sh, countsAt+1, countsAt+4), Values: fmt.Sprintf("%s!$B$%d:$B$%d", sh, countsAt+1, countsAt+4), Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"A6A6A6"}}},
+			{Name: fmt.Sprintf("%s!$C$%d", sh, countsAt), Categories: fmt.Sprintf("%s!$A$%d:$A$%d", sh, countsAt+1, countsAt+4), Values: fmt.Sprintf("%s!$C$%d:$C$%d", sh, countsAt+1, countsAt+4), Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"404040"}}},
+		},
+		Dimension: excelize.ChartDimension{Width: 560, Height: 320},
+		Legend:    excelize.ChartLegend{Position: "bottom"},
+		Title:     chartTitle("Objects by verdict, before and after the changes", 11),
+		XAxis:     excelize.ChartAxis{Font: excelize.Font{Size: 9, Color: "000000"}},
+		YAxis:     excelize.ChartAxis{MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"}, Title: chartTitle("objects", 9)},
+		GapWidth:  &gap,
+	}))
+	b.print(sh, false)
+
+	// Objects.
+	rows = nil
+	for _, o := range x.Objects {
+		mat := ""
+		if o.After != nil {
+			mat = o.After.Object.Material
+		}
+		row := []xc{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio)}
+		if o.After != nil {
+			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio), tx(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
+		}
+		rows = append(rows, row)
+	}
+	b.table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "What changed and why", "Reason after"},
+		[]float64{12, 10, 10, 14, 14, 12, 14, 12, 11, 55, 55}, rows)
+	b.print(SheetObjects, true)
+
+	// Stations.
+	rows = nil
+	for _, d := range x.Stations {
+		row := []xc{tx(d.ID), tx(d.Name)}
+		if d.Before != nil {
+			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), ratioCell(d.Before.WorstRatio))
+		} else {
+			row = append(row, xc{}, xc{}, xc{})
+		}
+		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), ratioCell(d.After.WorstRatio), tx(string(d.Outcome)))
+		rows = append(rows, row)
+	}
+	b.table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
+		[]float64{10, 28, 8, 14, 12, 8, 14, 12, 11}, rows)
+	b.print(SheetStations, true)
+
+	// Changes applied.
+	rows = nil
+	for i, a := range x.Applied {
+		rows = append(rows, []xc{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
+	}
+	if len(rows) == 0 {
+		rows = append(rows, []xc{{}, tx("none: the survey as it is")})
+	}
+	b.table(SheetChanges, 1, []string{"#", "Change", "Target", "Value as written", "Value applied", "From", "What was changed", "Objects reached", "Note"},
+		[]float64{4, 11, 16, 14, 14, 12, 50, 30, 30}, rows)
+	b.print(SheetChanges, true)
+
+	b.method(s, info, rerunNotes())
+	b.cautions()
+	b.rejected(s)
+	return b.write(w)
+}
+
+// WriteSweepWorkbook writes the sweep workbook: the Sweep table (one row per RH
+// step: counts and each station's worst ratio and verdict) with a line chart of
+// the counts and one of the worst ratios, the Stations sheet (the RH from which
+// each is non-incendive), Method and Cautions.
+func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
+	if sw == nil || len(sw.Steps) == 0 {
+		return errors.New("sweep workbook: no steps")
+	}
+	b := newBook(sw.Survey, SheetSweep)
+	headers := []string{"RH [%]", "Incendive objects", "Marginal objects"}
+	widths := []float64{8, 11, 11}
+	for _, st := range sw.Steps[0].Stations {
+		headers = append(headers, st.ID+" worst ratio [–]", st.ID+" verdict")
+		widths = append(widths, 12, 14)
+	}
+	var rows [][]xc
+	for _, st := range sw.Steps {
+		row := []xc{numCell(st.RH, report.UnitPercentRH), in(st.Incendive), in(st.Marginal)}
+		for _, x := range st.Stations {
+			row = append(row, ratioCell(x.WorstRatio), vd(x.Verdict.String()))
+		}
+		rows = append(rows, row)
+	}
+	n := len(sw.Steps) + 1
+	b.table(SheetSweep, 1, headers, widths, rows)
+	sh := quoteSheet(SheetSweep)
+	cat := fmt.Sprintf("%s!$A$2:$A$%d", sh, n)
+	line := func(col int, colour string) excelize.ChartSeries {
+		c, _ := excelize.ColumnNumberToName(col)
+		return excelize.ChartSeries{Name: fmt.Sprintf("%s!$%s$1", sh, c), Categories: cat, Values: fmt.Sprintf("%s!$%s$2:$%s$%d", sh, c, c, n),
+			Line: excelize.LineOptions{Width: 2, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}, Marker: excelize.ChartMarker{Symbol: "circle", Size: 5, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}}
+	}
+	anchor := fmt.Sprintf("A%d", n+3)
+	b.check(b.f.AddChart(SheetSweep, anchor, &excelize.Chart{
+		Type:      excelize.Line,
+		Series:    []excelize.ChartSeries{line(2, "C8102E"), line(3, "B08D00")},
+		Dimension: excelize.ChartDimension{Width: 640, Height: 320},
+		Legend:    excelize.ChartLegend{Position: "bottom"},
+		Title:     chartTitle("Objects incendive and marginal against relative humidity", 11),
+		XAxis:     excelize.ChartAxis{Font: excelize.Font{Size: 9, Color: "000000"}, Title: chartTitle("relative humidity [%]", 9)},
+		YAxis:     excelize.ChartAxis{MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"}, Title: chartTitle("objects", 9)},
+	}))
+	// Worst ratio per station: log axis, so only stations with a ratio above 0 somewhere.
+	palette := []string{"1F4E79", "C55A11", "548235", "7030A0", "BF9000", "2E75B6", "843C0C", "375623", "404040", "FF0000"}
+	var ser []excelize.ChartSeries
+	for j, st := range sw.Steps[0].Stations {
+		pos := false
+		for _, step := range sw.Steps {
+			if r := step.Stations[j].WorstRatio; r != nil && *r > 0 {
+				pos = true
+			}
+		}
+		_ = st
+		if pos {
+			ser = append(ser, line(4+2*j, palette[len(ser)%len(palette)]))
+		}
+	}
+	if len(ser) > 0 {
+		b.check(b.f.AddChart(SheetSweep, fmt.Sprintf("H%d", n+3), &excelize.Chart{
+			Type:         excelize.Line,
+			Series:       ser,
+			Dimension:    excelize.ChartDimension{Width: 720, Height: 320},
+			Legend:       excelize.ChartLegend{Position: "right"},
+			Title:        chartTitle("Worst ratio E/MIE per station against relative humidity (log scale; 1 = MIE reached)", 11),
+			XAxis:        excelize.ChartAxis{Font: excelize.Font{Size: 9, Color: "000000"}, Title: chartTitle("relative humidity [%]", 9)},
+			YAxis:        excelize.ChartAxis{LogBase: 10, MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"}, Title: chartTitle("worst ratio [–]", 9)},
+			ShowBlanksAs: "gap",
+		}))
+	}
+	b.print(SheetSweep, true)
+
+	rows = nil
+	for _, c := range sw.Clearances {
+		clears := numCell(c.ClearsAt, report.UnitPercentRH)
+		first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
+		var fv, lv string
+		for j := range first.Stations {
+			if first.Stations[j].ID == c.ID {
+				fv, lv = first.Stations[j].Verdict.String(), last.Stations[j].Verdict.String()
+			}
+		}
+		rows = append(rows, []xc{tx(c.ID), tx(c.Name), vd(fv), vd(lv), clears, wr(c.Text)})
+	}
+	b.table(SheetStations, 1, []string{"Station", "Name", fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[0].RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[len(sw.Steps)-1].RH)), "Non-incendive from RH [%]", "What humidity does"},
+		[]float64{10, 28, 14, 14, 14, 60}, rows)
+	b.print(SheetStations, true)
+	notes := append(rerunNotes()[2:3], [2]string{"Sweep", "At each step the same RH is set at the site and at every station (a station's own RH is overridden) and the survey is assessed again with the same limits. A station becomes non-incendive at the lowest step from which every higher step is non-incendive; when the highest step is still incendive or marginal, humidity alone never gets it there. Steps are only as fine as the range given."})
+	b.method(sw.Survey, info, notes)
+	b.cautions()
+	return b.write(w)
+}
+
+// WriteCompareWorkbook writes the compare workbook: Summary, Added, Removed,
+// Changed (one row per changed field), Stations (ranks moved) and Cautions.
+func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Survey) error {
+	if c == nil {
+		return errors.New("compare workbook: no comparison")
+	}
+	b := newBook(newSurvey, SheetSummary)
+	sh := SheetSummary
+	b.check(b.f.SetColWidth(sh, "A", "A", 26))
+	b.check(b.f.SetColWidth(sh, "B", "B", 60))
+	b.put(sh, 1, 1, tx("Compare: "+b.site), "title")
+	r := 3
+	for _, kv := range [][2]string{{"Old", c.Old.Label}, {"New", c.New.Label}, {"Objects added", fmt.Sprint(len(c.Added))}, {"Objects removed", fmt.Sprint(len(c.Removed))},
+		{"Objects changed", fmt.Sprint(len(c.Changed))}, {"Verdicts changed", fmt.Sprint(countVerdictChanges(c))}, {"Stations whose rank moved", fmt.Sprint(len(c.Stations))}} {
+		b.put(sh, 1, r, tx(kv[0]), "")
+		b.put(sh, 2, r, wr(kv[1]), "")
+		r++
+	}
+	r++
+	b.put(sh, 1, r, xc{v: "Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet).", wrap: true}, "caution")
+	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("B%d", r)))
+	b.check(b.f.SetRowHeight(sh, r, 30))
+	b.print(sh, false)
+
+	one := func(sheet string, ids []string, side *Side) {
+		byID := map[string]SideObject{}
+		for _, o := range side.Objects {
+			byID[o.ID] = o
+		}
+		var rows [][]xc
+		for _, id := range ids {
+			o := byID[id]
+			rows = append(rows, []xc{tx(id), tx(o.Station), vd(o.Verdict), ratioCell(o.Ratio)})
+		}
+		if len(rows) == 0 {
+			rows = append(rows, []xc{tx("none")})
+		}
+		b.table(sheet, 1, []string{"ID", "Station", "Verdict", "Ratio E/MIE [–]"}, []float64{14, 12, 14, 12}, rows)
+		b.print(sheet, true)
+	}
+	one(SheetAdded, c.Added, c.New)
+	one(SheetRemoved, c.Removed, c.Old)
+
+	var rows [][]xc
+	for _, ch := range c.Changed {
+		for i, f := range ch.Fields {
+			rows = append(rows, []xc{tx(ch.ID), tx(ch.Station), tx(f), tx(ch.Before[i]), tx(ch.After[i]), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
+		}
+	}
+	if len(rows) == 0 {
+		rows = append(rows, []xc{tx("none")})
+	}
+	b.table(SheetChanged, 1, []string{"ID", "Station", "Field", "Old value (SI)", "New value (SI)", "Verdict old", "Verdict new"}, []float64{14, 12, 20, 18, 18, 14, 14}, rows)
+	b.print(SheetChanged, true)
+
+	rows = nil
+	for _, m := range c.Stations {
+		row := []xc{tx(m.ID), tx(m.Name), {}, {}, vd(m.VerdictBefore), vd(m.VerdictAfter), tx(rankMove(m))}
+		if m.RankBefore > 0 {
+			row[2] = in(m.RankBefore)
+		}
+		if m.RankAfter > 0 {
+			row[3] = in(m.RankAfter)
+		}
+		rows = append(rows, row)
+	}
+	if len(rows) == 0 {
+		rows = append(rows, []xc{tx("none"), tx("no station's rank moved")})
+	}
+	b.table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Move"}, []float64{10, 28, 9, 9, 14, 14, 22}, rows)
+	b.print(SheetStations, true)
+	b.cautions()
+	return b.write(w)
+}
+
+func countVerdictChanges(c *Comparison) int {
+	n := 0
+	for _, ch := range c.Changed {
+		if ch.VerdictChanged() {
+			n++
+		}
+	}
+	return n
+}
+
+func rankMove(m RankMove) string {
+	switch {
+	case m.RankBefore == 0:
+		return "new station"
+	case m.RankAfter == 0:
+		return "station removed"
+	case m.RankAfter < m.RankBefore:
+		return fmt.Sprintf("up %d (worse)", m.RankBefore-m.RankAfter)
+	}
+	return fmt.Sprintf("down %d (better)", m.RankAfter-m.RankBefore)
+}
+
+var _ = math.NaN
