@@ -147,7 +147,7 @@ func (x *objectContext) assess(o *inventory.Object) ObjectResult {
 		r.Ratio = &ratio
 	}
 	r.Findings = x.findings(&r, &c)
-	defs = append(defs, x.evalDefaults(&r, &c)...)
+	defs = append(defs, x.evalDefaults(&r)...)
 	r.Defaults = dedupeDefaults(append(append([]Default(nil), x.siteDefaults...), defs...))
 	r.Reason = x.reason(&r, &c, causeText)
 	return r
@@ -305,7 +305,7 @@ func unknownMaterial() model.Material {
 }
 
 // evalDefaults lists the defaults the model's result rests on.
-func (x *objectContext) evalDefaults(r *ObjectResult, c *Classification) []Default {
+func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 	var defs []Default
 	in, ev := &r.Input, &r.Eval
 	if math.IsNaN(in.Capacitance) && ev.Capacitance > 0 && ev.CapacitanceModel != model.CapNone && ev.CapacitanceModel != model.CapMeasured {
@@ -325,7 +325,6 @@ func (x *objectContext) evalDefaults(r *ObjectResult, c *Classification) []Defau
 		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
 	}
 	defs = append(defs, modelAssumptions(ev)...)
-	_ = c
 	return defs
 }
 
