@@ -103,7 +103,8 @@ func verdictOrder() []assess.Verdict {
 // set up to print: landscape, fitted to the page width (the wide Objects sheet
 // to a few pages across, with its ID column repeated), header rows repeated,
 // and a footer with site, survey date and page number. The document
-// properties come from the survey date, so the same audit gives the same cells.
+// properties come from the survey date and the package parts are written in a
+// fixed order, so the same audit gives the same cells and the same bytes.
 func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if a == nil || a.Survey == nil {
 		return errors.New("write workbook: no audit or no survey")
@@ -155,7 +156,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	}); err != nil {
 		return fmt.Errorf("write workbook: document properties: %w", err)
 	}
-	if _, err := f.WriteTo(w); err != nil {
+	if err := writeCanonical(f, w); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil
