@@ -173,6 +173,18 @@ func columnNames(cols []Column) []string {
 // longer name, and at most 4 edits); "" otherwise.
 func Nearest(s string, candidates []string) string {
 	n := NormalizeName(s)
+	// A name cut short ("stainles" for "stainless steel") is a prefix of one candidate.
+	if len([]rune(n)) >= 4 {
+		var pre []string
+		for _, c := range candidates {
+			if strings.HasPrefix(NormalizeName(c), n) {
+				pre = append(pre, c)
+			}
+		}
+		if len(pre) == 1 {
+			return pre[0]
+		}
+	}
 	best, bestD := "", 1<<30
 	for _, c := range candidates {
 		d := editDistance(n, NormalizeName(c))

@@ -1164,12 +1164,14 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		}
 		// A conductive or dissipative layer with a measured resistance to earth is
 		// judged on its earthing; an insulating one needs a reading.
-		cond := false
-		if m, ok := v.s.Material(o.Material); ok && m.Class != ClassInsulating && given("Resistance to earth", o.Resistance) {
-			cond = true
-		}
-		if !reading && !cond {
-			need = append(need, readingText+" (or, for a conductive or dissipative material, Resistance to earth)")
+		m, known := v.s.Material(o.Material)
+		cond := known && m.Class != ClassInsulating
+		if !reading && !(cond && given("Resistance to earth", o.Resistance)) {
+			if known && !cond {
+				need = append(need, readingText)
+			} else {
+				need = append(need, readingText+" (or, for a conductive or dissipative material, Resistance to earth)")
+			}
 		}
 		if o.Backing == "earthed" && !given("Thickness", o.Thickness) {
 			need = append(need, "Thickness (the layer lies on earthed metal)")
