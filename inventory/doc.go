@@ -17,9 +17,10 @@
 // opened with excelize's unzip limits and a private temporary folder that is
 // removed afterwards; a panic inside the reader becomes an UnreadableError.
 // Rows are streamed with raw cell values (numbers unformatted; a formula gives
-// its cached value, a formula without one reads as blank). Booleans stored as
-// booleans come through as 1 and 0 (the streaming reader cannot tell them from
-// numbers). Hidden rows and sheets are read like any other, with a warning.
+// its cached value, a formula without one reads as blank). A cell reading 0
+// or 1 in a numeric column is asked for its type after streaming (on sheets of
+// up to 5000 rows), so a TRUE/FALSE cell is an error rather than 1 or 0.
+// Hidden rows and sheets are read like any other, with a warning.
 //
 // Sheet names match case-insensitively. Sheets outside the contract get a
 // warning, except helper sheets (Lists, Help, Read me, Instructions, About).

@@ -288,6 +288,7 @@ type table struct {
 	HeaderRow int                 // 0 when no header was found
 	Cols      map[int]HeaderMatch // by 0-based column index
 	Headed    map[int]bool        // columns with a non-blank header cell (known or not)
+	Bool      map[string]bool     // A1 references of cells stored as booleans in numeric columns
 	Index     map[string]int      // column name -> index (first occurrence)
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
@@ -481,11 +482,39 @@ func (r *reader) readTable(sheet string) *table {
 		}
 		return t
 	}
+	r.findBooleans(t)
 	if len(above) > 0 {
 		t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: above[0], Severity: Warning,
 			Message: fmt.Sprintf("rows above the header (row %d) are taken as a title and not read as data", t.HeaderRow)})
 	}
 	return t
+}
+
+// maxBoolCheckRows bounds the sheets in which cells reading 0 or 1 are checked
+// for being booleans: the check loads the whole sheet, which a survey-sized
+// sheet affords and a hostile one need not be given.
+const maxBoolCheckRows = 5000
+
+// findBooleans marks numeric cells stored as booleans (TRUE/FALSE), which the
+// streaming reader returns as 1 and 0. Only cells reading exactly 0 or 1 are
+// asked about, after the rows are streamed.
+func (r *reader) findBooleans(t *table) {
+	t.Bool = map[string]bool{}
+	if len(t.Rows) > maxBoolCheckRows {
+		return
+	}
+	for _, rr := range t.Rows {
+		for i, c := range rr.Cells {
+			m, ok := t.Cols[i]
+			if !ok || m.Column.Dim == Text || m.Column.Dim == Date || (c != "0" && c != "1") {
+				continue
+			}
+			ref := fmt.Sprintf("%s%d", ColumnLetter(i), rr.Row)
+			if ct, err := r.f.GetCellType(t.Actual, ref); err == nil && ct == excelize.CellTypeBool {
+				t.Bool[ref] = true
+			}
+		}
+	}
 }
 
 // matchHeaderRow matches every header cell of a sheet.

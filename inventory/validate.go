@@ -138,6 +138,12 @@ func (f *field) qty(name string) (Quantity, Parsed) {
 		return Quantity{Cell: ref}, Parsed{}
 	}
 	m := f.t.Cols[f.t.Index[name]]
+	if f.t.Bool[ref] {
+		f.errorf(name, &QuantityError{Text: text, Want: m.Column.Dim, Err: ErrNotANumber},
+			"enter the number, or leave the cell blank if it was not measured",
+			"the cell holds a yes/no value (TRUE or FALSE), not a number")
+		return Quantity{Cell: ref}, Parsed{}
+	}
 	p, err := ParseQuantity(text, m.Unit, m.Column.Dim)
 	if err != nil {
 		msg, fix := err.Error(), ""
