@@ -41,29 +41,50 @@ func canonicalZip(r io.ReaderAt, size int64, w io.Writer) error {
 	zw := zip.NewWriter(w)
 	stamp := time.Date(1980, 1, 1, 0, 0, 0, 0, time.UTC)
 	for _, f := range files {
-		hdr := &zip.FileHeader{Name: f.Name, Method: zip.Deflate, Modified: stamp}
-		out, err := zw.CreateHeader(hdr)
+		if f.Name == "[Content_Types].xml" {
+			if err := rewritePart(zw, f, stamp, sortContentTypes); err != nil {
+				return err
+			}
+			continue
+		}
+		// Copy the compressed bytes as they are: deflate output is the same
+		// for the same input, and recompressing would double the work.
+		hdr := f.FileHeader
+		hdr.Modified = stamp
+		hdr.ModifiedTime, hdr.ModifiedDate = 0, 1<<5|1 // MS-DOS date of 1980-01-01 (CreateRaw does not convert Modified)
+		hdr.Extra = nil
+		out, err := zw.CreateRaw(&hdr)
 		if err != nil {
 			return err
 		}
-		in, err := f.Open()
+		in, err := f.OpenRaw()
 		if err != nil {
 			return fmt.Errorf("part %s: %w", f.Name, err)
 		}
-		if f.Name == "[Content_Types].xml" {
-			var b []byte
-			if b, err = io.ReadAll(in); err == nil {
-				_, err = out.Write(sortContentTypes(b))
-			}
-		} else {
-			_, err = io.Copy(out, in)
-		}
-		_ = in.Close()
-		if err != nil {
+		if _, err := io.Copy(out, in); err != nil {
 			return fmt.Errorf("part %s: %w", f.Name, err)
 		}
 	}
 	return zw.Close()
+}
+
+// rewritePart writes the part f through edit, recompressed.
+func rewritePart(zw *zip.Writer, f *zip.File, stamp time.Time, edit func([]byte) []byte) error {
+	in, err := f.Open()
+	if err != nil {
+		return fmt.Errorf("part %s: %w", f.Name, err)
+	}
+	b, err := io.ReadAll(in)
+	_ = in.Close()
+	if err != nil {
+		return fmt.Errorf("part %s: %w", f.Name, err)
+	}
+	out, err := zw.CreateHeader(&zip.FileHeader{Name: f.Name, Method: zip.Deflate, Modified: stamp})
+	if err != nil {
+		return err
+	}
+	_, err = out.Write(edit(b))
+	return err
 }
 
 // sortContentTypes sorts the entries of [Content_Types].xml (excelize writes

@@ -4,6 +4,7 @@ import (
 	"archive/zip"
 	"bytes"
 	"flag"
+	"fmt"
 	"html"
 	"io"
 	"os"
@@ -12,6 +13,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
 )
@@ -318,4 +320,27 @@ func TestWorkbookDeterministic(t *testing.T) {
 func TestMain(m *testing.M) {
 	flag.Parse()
 	os.Exit(m.Run())
+}
+
+// bigAudit repeats the fixture's objects n times (IDs made unique), for benchmarks.
+func bigAudit(n int) *assess.Audit {
+	a := testAudit()
+	base := a.Objects
+	a.Objects = make([]assess.ObjectResult, 0, n)
+	for i := 0; len(a.Objects) < n; i++ {
+		for _, o := range base {
+			o.Object.ID = fmt.Sprintf("%s-%d", o.Object.ID, i)
+			a.Objects = append(a.Objects, o)
+		}
+	}
+	return a
+}
+
+func BenchmarkWriteWorkbook10k(b *testing.B) {
+	a := bigAudit(10000)
+	for b.Loop() {
+		if err := WriteWorkbook(io.Discard, a, testInfo()); err != nil {
+			b.Fatal(err)
+		}
+	}
 }
