@@ -448,7 +448,7 @@ func resolveTarget(s *inventory.Survey, c Change) (station, object string, err e
 
 func unknown(c Change, what, id string, candidates []string) error {
 	fix := ""
-	if near := inventory.Nearest(id, candidates); near != "" {
+	if near := nearest(id, candidates); near != "" {
 		fix = fmt.Sprintf("did you mean %q?", near)
 		if what == "station" && strings.HasPrefix(strings.ToLower(c.Target), "station:") {
 			fix = fmt.Sprintf("did you mean \"station:%s\"?", near)
@@ -499,12 +499,12 @@ func quantity(c Change, headerUnit string, dim inventory.Dimension) (float64, er
 		msg := err.Error()
 		var qe *inventory.QuantityError
 		if errors.As(err, &qe) {
-			msg = qe.Describe(c.Kind)
+			msg = strings.Replace(qe.Describe("\x00"), "column \x00", "the "+c.Kind+" change", 1)
 		}
-		return 0, &ChangeError{Change: c, Message: msg, Fix: "write e.g. " + example(c.Kind), Err: fmt.Errorf("%w: %w", ErrBadValue, err)}
+		return 0, &ChangeError{Change: c, Message: msg, Fix: "write e.g. --" + c.Kind + " " + example(c.Kind), Err: fmt.Errorf("%w: %w", ErrBadValue, err)}
 	}
 	if !p.Known {
-		return 0, &ChangeError{Change: c, Message: fmt.Sprintf("%q gives no value", c.Value), Fix: "write e.g. " + example(c.Kind), Err: ErrBadValue}
+		return 0, &ChangeError{Change: c, Message: fmt.Sprintf("%q gives no value", c.Value), Fix: "write e.g. --" + c.Kind + " " + example(c.Kind), Err: ErrBadValue}
 	}
 	return p.Value, nil
 }
@@ -528,7 +528,7 @@ func material(s *inventory.Survey, c Change) (inventory.Material, error) {
 	}
 	sort.Strings(names)
 	fix := "add it to the Materials sheet or run 'sparkmargin library' for the built-in names"
-	if near := inventory.Nearest(name, names); near != "" {
+	if near := nearest(name, names); near != "" {
 		fix = fmt.Sprintf("did you mean %q? (or %s)", near, fix)
 	}
 	return inventory.Material{}, &ChangeError{Change: c, Message: fmt.Sprintf("material %q is neither built in nor on the Materials sheet", name), Fix: fix, Err: ErrUnknownTarget}
@@ -540,4 +540,22 @@ func num(v float64) string {
 		return "unknown"
 	}
 	return fmtSig(v)
+}
+
+// nearest is inventory.Nearest, except that a candidate with the same letters in
+// another order (a transposition slip, "PTEF" for "PTFE") wins over an equally
+// near one of other letters.
+func nearest(s string, candidates []string) string {
+	key := func(t string) string {
+		r := []rune(strings.ToLower(t))
+		sort.Slice(r, func(i, j int) bool { return r[i] < r[j] })
+		return string(r)
+	}
+	k := key(s)
+	for _, c := range candidates {
+		if key(c) == k {
+			return c
+		}
+	}
+	return inventory.Nearest(s, candidates)
 }

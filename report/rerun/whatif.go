@@ -3,7 +3,7 @@ package rerun
 import (
 	"fmt"
 	"math"
-		"strings"
+	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
@@ -163,23 +163,36 @@ func why(b, a *assess.ObjectResult, changed bool) string {
 	return strings.Join(parts, "; ") + ": " + verdictPhrase(a)
 }
 
-// humidityPhrase says how the row's material responds to an RH change, from its humidity slope.
+// humidityPhrase says how the row's material responds to an RH change, from its
+// humidity slope: only surfaces whose resistivity responds change the result.
 func humidityPhrase(b, a *assess.ObjectResult) string {
-	rh := fmtSig(a.Environment.RelativeHumidity)
-	hazard := dischargeName(b)
+	from, rh := fmtSig(b.Environment.RelativeHumidity), fmtSig(a.Environment.RelativeHumidity)
+	same := ratioEq(b.Ratio, a.Ratio) && b.Verdict == a.Verdict
 	m := a.Material
 	switch {
 	case m == nil:
-		return fmt.Sprintf("RH %s → %s %%, but the row gives no material: the model cannot say how its surface responds", fmtSig(b.Environment.RelativeHumidity), rh)
+		return fmt.Sprintf("RH %s → %s %%: the row gives no material, so humidity does not enter its result", from, rh)
+	case strings.EqualFold(m.Class, inventory.ClassConductive):
+		return fmt.Sprintf("RH %s → %s %%: %s is a conductor, humidity does not change its charge or its discharge", from, rh, m.Name)
 	case m.HumiditySlope <= 0 || math.IsNaN(m.SurfaceResistivity):
-		if ratioEq(b.Ratio, a.Ratio) && b.Verdict == a.Verdict {
-			return fmt.Sprintf("%s surface does not respond to humidity: %s hazard unchanged at %s %%", m.Name, hazard, rh)
+		if same {
+			return fmt.Sprintf("%s surface does not respond to humidity: %s unchanged at %s %%", m.Name, hazardName(b), rh)
 		}
-		return fmt.Sprintf("%s surface does not respond to humidity (slope 0) at %s %%", m.Name, rh)
+		return fmt.Sprintf("%s surface does not respond to humidity (slope 0), RH %s → %s %%", m.Name, from, rh)
 	}
-	rb, ra := b.Eval.SurfaceResistivity, a.Eval.SurfaceResistivity
 	return fmt.Sprintf("%s surface resistivity %s → %s Ω/sq from %s to %s %% RH (%s decade(s) per 10 %%RH)",
-		m.Name, fmtSig(rb), fmtSig(ra), fmtSig(b.Environment.RelativeHumidity), rh, fmtSig(m.HumiditySlope))
+		m.Name, fmtSig(b.Eval.SurfaceResistivity), fmtSig(a.Eval.SurfaceResistivity), from, rh, fmtSig(m.HumiditySlope))
+}
+
+// hazardName names what stays the same: "brush hazard", "spark hazard", "result".
+func hazardName(r *assess.ObjectResult) string {
+	switch r.Eval.Effective {
+	case model.NoDischarge:
+		return "result"
+	case model.PropagatingBrush:
+		return "propagating brush hazard"
+	}
+	return r.Eval.Effective.String() + " hazard"
 }
 
 func potentialPhrase(b, a *assess.ObjectResult) string {
@@ -188,19 +201,6 @@ func potentialPhrase(b, a *assess.ObjectResult) string {
 		return ""
 	}
 	return fmt.Sprintf(", potential %s → %s V, stored energy %s → %s mJ", fmtSig(pb), fmtSig(pa), fmtSig(b.Eval.StoredEnergy*1e3), fmtSig(a.Eval.StoredEnergy*1e3))
-}
-
-func dischargeName(r *assess.ObjectResult) string {
-	switch r.Eval.Effective {
-	case model.NoDischarge:
-		if IsHazard(r.Verdict) {
-			return r.Verdict.String()
-		}
-		return "no-discharge"
-	case model.PropagatingBrush:
-		return "propagating brush"
-	}
-	return r.Eval.Effective.String()
 }
 
 func verdictPhrase(r *assess.ObjectResult) string {
