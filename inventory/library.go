@@ -2,7 +2,6 @@ package inventory
 
 import (
 	"math"
-	"strings"
 )
 
 // Material classes by surface resistivity (ESD practice, reference section 6):
@@ -188,8 +187,8 @@ func substanceNames() []string {
 	return out
 }
 
-// materialNamesFold returns true when two material names are the same
-// (case-insensitive, spaces and dashes folded).
+// sameName reports whether two names are the same (case-insensitive, spaces
+// and dashes folded).
 func sameName(a, b string) bool { return NormalizeName(a) == NormalizeName(b) }
 
 // isAlias reports whether s is an alias of a built-in (not its canonical name).
@@ -202,6 +201,3 @@ func isAlias(s string) bool {
 	_, ok := LookupMaterial(s)
 	return ok
 }
-
-// trimLower is strings.ToLower of the trimmed text.
-func trimLower(s string) string { return strings.ToLower(strings.TrimSpace(s)) }

@@ -1043,12 +1043,6 @@ func KindRequirements() []KindRequirement {
 	}
 }
 
-// objectValues holds the parsed quantities of an object row with their cells.
-type objectValues struct {
-	o Object
-	p map[string]Parsed
-}
-
 func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
 	out := map[string]refState{}
 	ids := idRegistry{}
@@ -1302,7 +1296,7 @@ func (v *validator) changes(t *table, stations, objs map[string]refState) {
 	for _, rr := range t.Rows {
 		f := v.beginRow(t, rr, "Change", seen)
 		c := Change{Row: rr.Row, Target: f.text("Target"), Value: f.text("Value"), Note: f.text("Notes")}
-		c.Change = strings.ReplaceAll(strings.ToLower(f.enumValueRaw("Change", ChangeKinds())), " ", "-")
+		c.Change = f.enumValue("Change", ChangeKinds(), nil)
 		if f.text("Change") == "" {
 			f.errorf("Change", ErrRequired, "use one of: "+strings.Join(ChangeKinds(), ", "), "Change is blank")
 		}
@@ -1324,9 +1318,4 @@ func (v *validator) changes(t *table, stations, objs map[string]refState) {
 			v.s.Changes = append(v.s.Changes, c)
 		}
 	}
-}
-
-// enumValueRaw is enumValue with '-' kept significant in the codes ("bag-type").
-func (f *field) enumValueRaw(name string, allowed []string) string {
-	return f.enumValue(name, allowed, nil)
 }

@@ -48,8 +48,8 @@ func TestValidBook(t *testing.T) {
 	if !s.Atmospheres[0].MIEFromSubstance || !s.Atmospheres[0].GroupFromSubstance || s.Atmospheres[0].Group != "IIA" {
 		t.Errorf("toluene atmosphere not filled from the substance: %+v", s.Atmospheres[0])
 	}
-	if w.Cell("Field") != "L2" {
-		t.Errorf("Field cell %q, want L2", w.Cell("Field"))
+	if w.Field.Cell != "L2" {
+		t.Errorf("Field cell %q, want L2", w.Field.Cell)
 	}
 	if s.Objects[2].Field.Known {
 		t.Error("blank Field read as known")
@@ -63,15 +63,6 @@ func TestValidBook(t *testing.T) {
 	if len(s.Materials) != len(BuiltinMaterials())+1 {
 		t.Errorf("%d materials, want built-ins + 1", len(s.Materials))
 	}
-}
-
-// Cell returns the A1 reference of a named quantity, for tests.
-func (o Object) Cell(name string) string {
-	switch name {
-	case "Field":
-		return o.Field.Cell
-	}
-	return ""
 }
 
 // Each validation rule, one fault at a time in an otherwise valid survey.
