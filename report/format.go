@@ -146,7 +146,13 @@ func (u Unit) Display(si float64) (float64, bool) {
 		return 0, false
 	}
 	sp := u.spec()
-	return (si - sp.offset) / sp.scale, true
+	v := (si - sp.offset) / sp.scale
+	// Round to the 15 significant digits a spreadsheet keeps, so that
+	// 350e-3 J shows as 350 mJ and not 349.99999999999994.
+	if r, err := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 15, 64), 64); err == nil {
+		v = r
+	}
+	return v, true
 }
 
 // Cell returns the display value for a workbook cell: a float64, or nil (an

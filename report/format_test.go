@@ -27,6 +27,7 @@ func TestUnitDisplay(t *testing.T) {
 		{"q/m", UnitUCPerKg, 10e-6, 10},                   // derived: 10 uC/kg
 		{"room temperature", UnitCelsius, 293.15, 20},     // derived: 293.15 K = 20 °C
 		{"resistance", UnitOhm, 1e6, 1e6},                 // Source: TRGS 727 8.3, 1 Mohm
+		{"shock energy", UnitMJ, 350e-3, 350},             // Source: TRGS 727 Annex D, 350 mJ
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -107,5 +108,12 @@ func TestEstFormat(t *testing.T) {
 	}
 	if got, want := estFormat(fmtWide2), `[=0]0" est.";[<0.01]0.0E+00" est.";0.00" est."`; got != want {
 		t.Errorf("estFormat = %q, want %q", got, want)
+	}
+}
+
+func TestUnitDisplayExact(t *testing.T) {
+	// Source: TRGS 727 Annex D, 350 mJ: the cell must hold 350 exactly, not 349.99999999999994.
+	if v, _ := UnitMJ.Display(350e-3); v != 350 {
+		t.Errorf("350e-3 J in mJ = %v, want exactly 350", v)
 	}
 }

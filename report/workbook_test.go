@@ -344,3 +344,27 @@ func BenchmarkWriteWorkbook10k(b *testing.B) {
 		}
 	}
 }
+
+func TestWorkbookMethod(t *testing.T) {
+	f := openWorkbook(t, testWorkbook(t))
+	flat := ""
+	for _, r := range rowsOf(t, f, SheetMethod) {
+		flat += strings.Join(r, "|") + "\n"
+	}
+	for _, want := range []string{
+		"Survey file SHA-256|5b1f0c0e", "Tool|sparkmargin 0.0.0-test", "Command|sparkmargin assess demo-plant.xlsx",
+		"Vacuum permittivity ε0|0.0000000000088541878128|F/m||CODATA 2018",         // Source: CODATA 2018
+		"Conductor resistance to earth|100000000|Ω|yes; default 1.00e6 Ω|TRGS 727", // the fixture's override of 1e6 ohm (TRGS 727 8.3)
+		"Shock energy to people|350|mJ||TRGS 727",                                  // Source: TRGS 727 Annex D, 350 mJ
+		"Capacitance|200 pF|||typical human body (Saito 1963)",
+		"Charge density, earthed backing",
+	} {
+		if !strings.Contains(flat, want) {
+			t.Errorf("Method lacks %q", want)
+		}
+	}
+	cautions := rowsOf(t, f, SheetCautions)
+	if len(cautions) < 2 || !strings.HasPrefix(cautions[1][1], "Every figure") {
+		t.Errorf("Cautions sheet %v", cautions)
+	}
+}

@@ -31,6 +31,11 @@ const DryDayHumidity = 30.0
 // then ranked (see Rank) and the findings ordered by severity, station rank and
 // object order.
 //
+// With opts.Samples > 0 it then propagates the uncertainty table by Monte Carlo
+// (see montecarlo.go): every object gets a Probability and every station its
+// ProbabilityAnyIncendive; the seed (DefaultSeed when 0) and the table used are
+// recorded in Audit.Options.
+//
 // opts.Limits are used as given; a zero Limits takes model.DefaultLimits with the
 // Site sheet's overrides (LimitsFromSite) merged, and Audit.Options records them.
 func Assess(s *inventory.Survey, opts Options) *Audit {
@@ -78,6 +83,15 @@ func Assess(s *inventory.Survey, opts Options) *Audit {
 		a.Counts[a.Objects[i].Verdict]++
 	}
 	a.Stations = Rank(s, a.Objects)
+	if a.Options.Samples > 0 {
+		if a.Options.Seed == 0 {
+			a.Options.Seed = DefaultSeed
+		}
+		if a.Options.Uncertainties == nil {
+			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
+		}
+		monteCarlo(a, margin)
+	}
 	a.Findings = orderFindings(a.Objects, a.Stations)
 	a.MethodDefaults = methodDefaults(a.Objects)
 	return a

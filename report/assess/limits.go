@@ -131,6 +131,7 @@ func LimitKeys() []LimitKey {
 // override (see LimitKeys for the names and units). An item that names a limit
 // but whose value is not a positive number in a unit of the right dimension is an
 // Error (the limit keeps its base value); an item that names no limit is a Warning.
+// Items starting with "Uncertainty" are left to UncertaintiesFromSite.
 func LimitsFromSite(site inventory.Site, base model.Limits) (model.Limits, []inventory.Problem) {
 	lim := base
 	keys := LimitKeys()
@@ -141,6 +142,9 @@ func LimitsFromSite(site inventory.Site, base model.Limits) (model.Limits, []inv
 			name, keyUnit = splitUnit(it.Item)
 		}
 		name = normaliseName(name)
+		if isUncertaintyItem(name) {
+			continue // UncertaintiesFromSite reads these
+		}
 		var key *LimitKey
 		for i := range keys {
 			if keys[i].Name == name {

@@ -113,8 +113,13 @@ type StationResult struct {
 type Options struct {
 	Limits  model.Limits // the limits applied (survey overrides already merged)
 	Samples int          // Monte Carlo samples per object; 0 = point estimate only
-	Seed    uint64       // Monte Carlo seed
-	Workers int          // 0 = all cores
+	Seed    uint64       // Monte Carlo seed; 0 takes DefaultSeed (Audit.Options records the seed used)
+	Workers int          // 0 = all cores (runtime.GOMAXPROCS); results do not depend on it
+
+	// Uncertainties is the uncertainty table the Monte Carlo samples with; nil
+	// takes DefaultUncertainties with the Site sheet's overrides
+	// (UncertaintiesFromSite). Audit.Options records the table used.
+	Uncertainties []Uncertainty
 }
 
 // Audit is the whole assessment of one survey.

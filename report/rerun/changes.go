@@ -229,6 +229,7 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		for _, st := range s.Stations {
 			if !st.RelativeHumidity.Known {
 				a.Stations = append(a.Stations, st.ID)
+				a.Objects = append(a.Objects, objectsAt(s, st.ID, func(*inventory.Object) bool { return true })...)
 			}
 		}
 		a.Description = fmt.Sprintf("site RH set to %s %%; applies to the %d station(s) that give no RH of their own", num(v), len(a.Stations))
@@ -243,6 +244,9 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		}
 		s.Site.RequiredMargin = inventory.Known(v)
 		a.SI, a.SIText = v, num(v)
+		for _, o := range s.Objects {
+			a.Objects = append(a.Objects, o.ID)
+		}
 		a.Description = fmt.Sprintf("required margin set to %s: energy must stay below MIE / %s", num(v), num(v))
 		return a, nil
 	}
