@@ -1,0 +1,349 @@
+package assess
+
+import (
+	"math"
+	"math/rand/v2"
+	"runtime"
+	"slices"
+	"sync"
+	"sync/atomic"
+
+	"gonum.org/v1/gonum/stat"
+	"gonum.org/v1/gonum/stat/distuv"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+)
+
+// DefaultSeed is the Monte Carlo seed when Options.Seed is 0 (a fixed,
+// documented value, so two runs of the same survey give the same probabilities).
+const DefaultSeed uint64 = 1
+
+// Monte Carlo propagation of the uncertainty table (Options.Samples > 0).
+//
+// For each object, N input sets are drawn: every input the row (or its station
+// and atmosphere) gives, and the capacitance the model estimated for a
+// conductor, is drawn from its row of the uncertainty table (or from the cell's
+// own "±x%", which wins), then model.Evaluate and Classify run on the draw. The
+// object's Probability holds the share of draws giving each verdict and the
+// 5th, 50th and 95th percentiles of the effective energy (over the draws where
+// it could be judged; NaN when none could).
+//
+// Choices (documented, not standard):
+//   - Inputs are drawn independently of one another. Material properties from the
+//     built-in list or the Materials sheet (permittivity, resistivities, slope,
+//     breakdown strength), the limits and the margin are not drawn; values the
+//     assessment filled from a built-in list (a liquid's conductivity from its
+//     substance, an atmosphere's MIE) are drawn like measured ones. Values not
+//     given at all stay at their defaults (a default is not a reading).
+//   - Normal draws are reflected to stay physical: a reading keeps its sign, a
+//     distance stays positive, humidity stays within 0-100 %RH. Log-normal draws
+//     have the reading as their median.
+//   - An object the assessment could not judge at all (unknown station, atmosphere
+//     or kind) is "not assessed" in every draw.
+//   - Reproducible: each object has its own stream, a PCG generator seeded with
+//     (seed, FNV-1a 64 of the object ID), so its result depends neither on the
+//     number of workers nor on the row order. Two rows with the same ID get the
+//     same stream.
+//   - The station's probability that any object is incendive is
+//     1 - prod(1 - P_i(incendive)) over its objects: the objects are taken as
+//     independent. They share the station's MIE and humidity, which makes their
+//     verdicts positively correlated, so this is an upper bound of the
+//     correlated value (a conservative choice).
+
+// sampleTarget is one input field a draw sets.
+type sampleTarget uint8
+
+const (
+	tField sampleTarget = iota
+	tFieldDistance
+	tSurfacePotential
+	tResistance
+	tCapacitance
+	tChargingCurrent
+	tMassFlow
+	tChargeToMass
+	tLength
+	tWidth
+	tDiameter
+	tThickness
+	tDistanceToEarth
+	tParticleSize
+	tSpeed
+	tChargingTime
+	tConductivity
+	tMIE
+	tRelativeHumidity
+	numTargets
+)
+
+// field returns the address of the target's value in the draw's input or environment.
+func (t sampleTarget) field(in *model.Input, env *model.Environment) *float64 {
+	switch t {
+	case tField:
+		return &in.Field
+	case tFieldDistance:
+		return &in.FieldDistance
+	case tSurfacePotential:
+		return &in.SurfacePotential
+	case tResistance:
+		return &in.Resistance
+	case tCapacitance:
+		return &in.Capacitance
+	case tChargingCurrent:
+		return &in.ChargingCurrent
+	case tMassFlow:
+		return &in.MassFlow
+	case tChargeToMass:
+		return &in.ChargeToMass
+	case tLength:
+		return &in.Length
+	case tWidth:
+		return &in.Width
+	case tDiameter:
+		return &in.Diameter
+	case tThickness:
+		return &in.Thickness
+	case tDistanceToEarth:
+		return &in.DistanceToEarth
+	case tParticleSize:
+		return &in.ParticleSize
+	case tSpeed:
+		return &in.Speed
+	case tChargingTime:
+		return &in.ChargingTime
+	case tConductivity:
+		return &in.Conductivity
+	case tMIE:
+		return &env.MIE
+	}
+	return &env.RelativeHumidity
+}
+
+// drawSpec is how one target is drawn.
+type drawSpec struct {
+	target sampleTarget
+	dist   Distribution
+	mu     float64 // normal: the value; log-normal: ln |value|
+	sigma  float64 // normal: SI standard deviation; log-normal: of ln
+	sign   float64 // log-normal: the value's sign
+	upper  float64 // normal: reflect above this (humidity 100 %RH); 0 none
+}
+
+// samplePlan lists the draws of one object; a fixed array, so building it does not allocate.
+type samplePlan struct {
+	n     int
+	draws [numTargets]drawSpec
+}
+
+func (p *samplePlan) add(t sampleTarget, u *Uncertainty, v, rel float64) {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return
+	}
+	dist, sp, _ := u.CellSpread(rel)
+	if !(sp > 0) {
+		return
+	}
+	d := drawSpec{target: t, dist: dist}
+	switch dist {
+	case LogNormal:
+		if v == 0 {
+			return
+		}
+		d.mu, d.sigma, d.sign = math.Log(math.Abs(v)), sp, math.Copysign(1, v)
+	case NormalRelative:
+		d.mu, d.sigma = v, sp*math.Abs(v)
+	default:
+		d.mu, d.sigma = v, sp
+	}
+	if d.sigma == 0 {
+		return
+	}
+	if t == tRelativeHumidity {
+		d.upper = 100
+	}
+	p.draws[p.n] = d
+	p.n++
+}
+
+// planFor builds the draws of one assessed object.
+func planFor(r *ObjectResult, tab *[NumUncertainInputs]Uncertainty, siteRH inventory.Quantity) samplePlan {
+	var p samplePlan
+	in, o := &r.Input, &r.Object
+	p.add(tField, &tab[UncField], in.Field, o.Field.RelUncertainty)
+	p.add(tFieldDistance, &tab[UncFieldDistance], in.FieldDistance, o.FieldDistance.RelUncertainty)
+	p.add(tSurfacePotential, &tab[UncSurfacePotential], in.SurfacePotential, o.SurfacePotential.RelUncertainty)
+	p.add(tResistance, &tab[UncResistance], in.Resistance, o.Resistance.RelUncertainty)
+	if !math.IsNaN(in.Capacitance) {
+		p.add(tCapacitance, &tab[UncCapacitanceMeasured], in.Capacitance, o.Capacitance.RelUncertainty)
+	} else if cm := r.Eval.CapacitanceModel; cm != model.CapNone && cm != model.CapMeasured && r.Eval.Capacitance > 0 {
+		// The estimate is fixed from the point evaluation and drawn about it: the
+		// model takes a given capacitance as measured, which changes nothing else
+		// for a conductor row (it is one already).
+		p.add(tCapacitance, &tab[UncCapacitanceEstimated], r.Eval.Capacitance, 0)
+	}
+	p.add(tChargingCurrent, &tab[UncChargingCurrent], in.ChargingCurrent, o.ChargingCurrent.RelUncertainty)
+	p.add(tMassFlow, &tab[UncMassFlow], in.MassFlow, o.MassFlow.RelUncertainty)
+	p.add(tChargeToMass, &tab[UncChargeToMass], in.ChargeToMass, o.ChargeToMass.RelUncertainty)
+	p.add(tLength, &tab[UncSize], in.Length, o.Length.RelUncertainty)
+	p.add(tWidth, &tab[UncSize], in.Width, o.Width.RelUncertainty)
+	p.add(tDiameter, &tab[UncSize], in.Diameter, o.Diameter.RelUncertainty)
+	p.add(tThickness, &tab[UncSize], in.Thickness, o.Thickness.RelUncertainty)
+	p.add(tDistanceToEarth, &tab[UncSize], in.DistanceToEarth, o.DistanceToEarth.RelUncertainty)
+	p.add(tParticleSize, &tab[UncSize], in.ParticleSize, o.ParticleSize.RelUncertainty)
+	p.add(tSpeed, &tab[UncSpeed], in.Speed, o.Speed.RelUncertainty)
+	p.add(tChargingTime, &tab[UncChargingTime], in.ChargingTime, o.ChargingTime.RelUncertainty)
+	p.add(tConductivity, &tab[UncConductivity], in.Conductivity, o.Conductivity.RelUncertainty)
+	if env := &r.Environment; env.Atmosphere != model.NoAtmosphere && env.MIE > 0 {
+		u := &tab[UncMIEGas]
+		if env.Atmosphere == model.Dust || env.Atmosphere == model.Hybrid {
+			u = &tab[UncMIEDust]
+		}
+		rel := 0.0
+		if r.Atmosphere != nil {
+			rel = r.Atmosphere.MIE.RelUncertainty
+		}
+		p.add(tMIE, u, env.MIE, rel)
+	}
+	// Humidity is drawn only where it was given (station, else site), not the dry-day default.
+	switch {
+	case r.Station.RelativeHumidity.Known:
+		p.add(tRelativeHumidity, &tab[UncRelativeHumidity], r.Environment.RelativeHumidity, r.Station.RelativeHumidity.RelUncertainty)
+	case siteRH.Known:
+		p.add(tRelativeHumidity, &tab[UncRelativeHumidity], r.Environment.RelativeHumidity, siteRH.RelUncertainty)
+	}
+	return p
+}
+
+// sampler holds one worker's generator and energy buffer, reused object after object.
+type sampler struct {
+	src      *rand.PCG
+	energies []float64
+	seed     uint64
+	samples  int
+	lim      *model.Limits
+	margin   float64
+	tab      *[NumUncertainInputs]Uncertainty
+	siteRH   inventory.Quantity
+}
+
+func newSampler(seed uint64, samples int, lim *model.Limits, margin float64, tab *[NumUncertainInputs]Uncertainty, siteRH inventory.Quantity) *sampler {
+	return &sampler{src: rand.NewPCG(seed, 0), energies: make([]float64, 0, samples), seed: seed, samples: samples,
+		lim: lim, margin: margin, tab: tab, siteRH: siteRH}
+}
+
+// objectStream returns the second PCG seed word of an object: FNV-1a 64 of its ID.
+func objectStream(id string) uint64 {
+	h := uint64(14695981039346656037)
+	for i := 0; i < len(id); i++ {
+		h ^= uint64(id[i])
+		h *= 1099511628211
+	}
+	return h
+}
+
+// object runs the Monte Carlo of one assessed object. The sample loop does not allocate.
+func (s *sampler) object(r *ObjectResult) Probability {
+	p := Probability{Samples: s.samples, EnergyP05: math.NaN(), EnergyP50: math.NaN(), EnergyP95: math.NaN()}
+	if s.samples <= 0 {
+		return p
+	}
+	point := Classify(&r.Input, &r.Environment, &r.Eval, s.lim, s.margin)
+	if point.Verdict != r.Verdict {
+		// The assessment overrode the model (unknown station, atmosphere or kind): nothing to sample.
+		p.NotAssessed = 1
+		return p
+	}
+	plan := planFor(r, s.tab, s.siteRH)
+	s.src.Seed(s.seed, objectStream(r.Object.ID))
+	norm := distuv.Normal{Mu: 0, Sigma: 1, Src: s.src}
+	var counts [NotAssessed + 1]int
+	energies := s.energies[:0]
+	for k := 0; k < s.samples; k++ {
+		in, env := r.Input, r.Environment
+		for j := 0; j < plan.n; j++ {
+			d := &plan.draws[j]
+			*d.target.field(&in, &env) = d.draw(norm)
+		}
+		ev := model.Evaluate(in, env, *s.lim)
+		c := Classify(&in, &env, &ev, s.lim, s.margin)
+		counts[c.Verdict]++
+		if !math.IsNaN(c.Energy) {
+			energies = append(energies, c.Energy)
+		}
+	}
+	s.energies = energies
+	n := float64(s.samples)
+	p.Incendive, p.Marginal = float64(counts[Incendive])/n, float64(counts[Marginal])/n
+	p.NonIncendive, p.NotAssessed = float64(counts[NonIncendive])/n, float64(counts[NotAssessed])/n
+	if len(energies) > 0 {
+		slices.Sort(energies)
+		p.EnergyP05 = stat.Quantile(0.05, stat.Empirical, energies, nil)
+		p.EnergyP50 = stat.Quantile(0.50, stat.Empirical, energies, nil)
+		p.EnergyP95 = stat.Quantile(0.95, stat.Empirical, energies, nil)
+	}
+	return p
+}
+
+// draw draws one value; norm is the worker's standard normal on the object's stream.
+func (d *drawSpec) draw(norm distuv.Normal) float64 {
+	if d.dist == LogNormal {
+		return d.sign * distuv.LogNormal{Mu: d.mu, Sigma: d.sigma, Src: norm.Src}.Rand()
+	}
+	x := distuv.Normal{Mu: d.mu, Sigma: d.sigma, Src: norm.Src}.Rand()
+	if (d.mu > 0 && x < 0) || (d.mu < 0 && x > 0) {
+		x = -x
+	}
+	if d.upper > 0 && x > d.upper {
+		x = math.Max(2*d.upper-x, 0)
+	}
+	return x
+}
+
+// monteCarlo fills the Probability of every object and the stations'
+// ProbabilityAnyIncendive; opts.Samples > 0, opts.Seed and opts.Uncertainties resolved.
+func monteCarlo(a *Audit, margin float64) {
+	opts := &a.Options
+	tab := uncertaintyTable(opts.Uncertainties)
+	probs := make([]Probability, len(a.Objects))
+	workers := opts.Workers
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	workers = min(workers, len(a.Objects))
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			s := newSampler(opts.Seed, opts.Samples, &opts.Limits, margin, &tab, a.Survey.Site.RelativeHumidity)
+			for {
+				i := int(next.Add(1) - 1)
+				if i >= len(a.Objects) {
+					return
+				}
+				probs[i] = s.object(&a.Objects[i])
+			}
+		}()
+	}
+	wg.Wait()
+	none := make(map[string]float64, len(a.Stations))
+	for i := range a.Objects {
+		a.Objects[i].Probability = &probs[i]
+		id := a.Objects[i].Object.Station
+		if _, ok := none[id]; !ok {
+			none[id] = 1
+		}
+		none[id] *= 1 - probs[i].Incendive
+	}
+	for k := range a.Stations {
+		st := &a.Stations[k]
+		q, ok := none[st.Station.ID]
+		if !ok {
+			q = 1 // a station with no object
+		}
+		any := 1 - q
+		st.ProbabilityAnyIncendive = &any
+	}
+}
