@@ -45,6 +45,9 @@ func newAssessCmd() *cobra.Command {
 	c.Flags().StringVarP(&o.output, "output", "o", "", "audit workbook to write (default <survey>-audit.xlsx beside the survey)")
 	c.Flags().StringVar(&o.json, "json", "", "also write the audit as JSON to this file")
 	c.Flags().BoolVar(&o.strict, "strict", false, "exit 1 when any row was rejected")
+	c.Flags().IntVar(&o.samples, "samples", 0, "Monte Carlo samples per object for the probability of each verdict (0: point estimate only)")
+	c.Flags().Uint64Var(&o.seed, "seed", assess.DefaultSeed, "Monte Carlo seed, recorded on the Method sheet and in the JSON")
+	c.Flags().IntVar(&o.workers, "workers", 0, "Monte Carlo worker goroutines (0: all cores); results do not depend on it")
 	return c
 }
 
@@ -94,7 +97,9 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 func assessSurvey(s *inventory.Survey, o assessOptions) (*assess.Audit, error) {
 	lim, problems := assess.LimitsFromSite(s.Site, model.DefaultLimits())
 	s.Problems = append(s.Problems, problems...)
-	return assess.Assess(s, assess.Options{Limits: lim, Samples: o.samples, Seed: o.seed, Workers: o.workers}), nil
+	unc, problems := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
+	s.Problems = append(s.Problems, problems...)
+	return assess.Assess(s, assess.Options{Limits: lim, Samples: o.samples, Seed: o.seed, Workers: o.workers, Uncertainties: unc}), nil
 }
 
 func runInfo(s *inventory.Survey, args []string) report.RunInfo {
