@@ -298,7 +298,7 @@ func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int
 
 type stationRow = *assess.StationResult
 
-func stationColumns(withProbability bool) []column[stationRow] {
+func stationColumns(site inventory.Site, withProbability bool) []column[stationRow] {
 	count := func(v assess.Verdict) func(stationRow) cell {
 		return func(s stationRow) cell { return integer(s.Counts[v]) }
 	}
@@ -306,7 +306,7 @@ func stationColumns(withProbability bool) []column[stationRow] {
 		{"Rank", 6, func(s stationRow) cell { return integer(s.Rank) }},
 		{"Station", 10, func(s stationRow) cell { return text(s.Station.ID) }},
 		{"Name", 24, func(s stationRow) cell { return wrapText(s.Station.Name) }},
-		{"Line", 10, func(s stationRow) cell { return optText(s.Station.Line) }},
+		{"Line", 14, func(s stationRow) cell { return wrapText(s.Station.Line) }},
 		{"Atmosphere", 24, func(s stationRow) cell { return wrapText(atmosphereText(s.Atmosphere)) }},
 		{UnitMJ.Header("MIE"), 9, func(s stationRow) cell {
 			return est(quantity(UnitMJ, atmosphereMIE(s.Atmosphere)), s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance)
@@ -323,7 +323,13 @@ func stationColumns(withProbability bool) []column[stationRow] {
 			}
 			return code(s.Atmosphere.Group)
 		}},
-		{UnitPercentRH.Header("RH at station"), 9, func(s stationRow) cell { return inQ(UnitPercentRH, s.Station.RelativeHumidity) }},
+		{UnitPercentRH.Header("RH used"), 9, func(s stationRow) cell {
+			if s.Station.RelativeHumidity.Known {
+				return inQ(UnitPercentRH, s.Station.RelativeHumidity)
+			}
+			// The station gives none: the site's RH is used (marked est.).
+			return est(inQ(UnitPercentRH, site.RelativeHumidity), true)
+		}},
 		{"Verdict", 14, func(s stationRow) cell { return verdictCell(s.Verdict) }},
 		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s stationRow) cell { return ratioCell(finitePtr(s.WorstRatio)) }},
 		{"Objects [count]", 9, func(s stationRow) cell { return integer(len(s.Objects)) }},
@@ -355,7 +361,7 @@ func (wb *workbook) stations() error {
 		rows[i] = &wb.a.Stations[i]
 	}
 	wb.stationRows = len(rows) + 1
-	return tableSheetNormal(wb, SheetStations, stationColumns(anyProbability(wb.a)), rows)
+	return tableSheetNormal(wb, SheetStations, stationColumns(wb.a.Survey.Site, anyProbability(wb.a)), rows)
 }
 
 // ---- Objects ----

@@ -161,7 +161,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	widths := []float64{8, 11, 11}
 	for _, st := range sw.Steps[0].Stations {
 		headers = append(headers, st.ID+" worst ratio [–]", st.ID+" verdict")
-		widths = append(widths, 12, 14)
+		widths = append(widths, 11, 12)
 	}
 	var rows [][]xc
 	for _, st := range sw.Steps {
@@ -178,7 +178,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	line := func(col int, colour string) excelize.ChartSeries {
 		c, _ := excelize.ColumnNumberToName(col)
 		return excelize.ChartSeries{Name: fmt.Sprintf("%s!$%s$1", sh, c), Categories: cat, Values: fmt.Sprintf("%s!$%s$2:$%s$%d", sh, c, c, n),
-			Line: excelize.LineOptions{Width: 2, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}, Marker: excelize.ChartMarker{Symbol: "circle", Size: 5, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}}
+			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}, Line: excelize.LineOptions{Width: 2, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}, Marker: excelize.ChartMarker{Symbol: "circle", Size: 5, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}}
 	}
 	anchor := fmt.Sprintf("A%d", n+3)
 	b.check(b.f.AddChart(SheetSweep, anchor, &excelize.Chart{
