@@ -1,6 +1,7 @@
 package inventory
 
 import (
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -22,6 +23,17 @@ type utBook []utSheet
 // strings as strings; a string starting with "=" is written as a formula
 // without a cached value.
 func utWriteBook(t testing.TB, b utBook) string {
+	t.Helper()
+	data := utBookBytes(t, b)
+	p := filepath.Join(t.TempDir(), "survey.xlsx")
+	if err := os.WriteFile(p, data, 0o600); err != nil {
+		t.Fatal(err)
+	}
+	return p
+}
+
+// utBookBytes writes the sheets into an .xlsx held in memory.
+func utBookBytes(t testing.TB, b utBook) []byte {
 	t.Helper()
 	f := excelize.NewFile()
 	defer f.Close()
@@ -54,11 +66,11 @@ func utWriteBook(t testing.TB, b utBook) string {
 	if len(b) == 0 {
 		f.SetSheetName("Sheet1", "Empty")
 	}
-	p := filepath.Join(t.TempDir(), "survey.xlsx")
-	if err := f.SaveAs(p); err != nil {
+	buf, err := f.WriteToBuffer()
+	if err != nil {
 		t.Fatal(err)
 	}
-	return p
+	return buf.Bytes()
 }
 
 // headerRow returns the template's header texts of a sheet.

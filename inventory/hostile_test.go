@@ -110,3 +110,30 @@ func TestOddInput(t *testing.T) {
 		}
 	})
 }
+
+// FuzzReadCells puts arbitrary text into header and data cells of a valid
+// survey: the reader never panics and every row is accounted for.
+func FuzzReadCells(f *testing.F) {
+	f.Add("Field [kV/m]", "12 kV/mm", "ST-1", "sheet", "PET", "45")
+	f.Add("Capacitance [Ω]", "150 pF", "st-1 ", "roler", "pett", "0.45")
+	f.Add("", "=1/0", "", "", "", "")
+	f.Add("ID", "#DIV/0!", "ST-9", "bag", "polyethylene", "n/a")
+	f.Fuzz(func(t *testing.T, header, value, station, kind, material, rh string) {
+		b := utValidBook()
+		b[3].Rows[0][11] = header
+		b = b.set(SheetObjects, "W-1", "Field", value).set(SheetObjects, "W-1", "Station", station).
+			set(SheetObjects, "W-1", "Kind", kind).set(SheetObjects, "W-1", "Material", material)
+		b[0].Rows[4][1] = rh
+		data := utBookBytes(t, b)
+		s, err := Read(data, "fuzz.xlsx", ReadOptions{})
+		if err != nil {
+			t.Fatalf("valid workbook unreadable: %v", err)
+		}
+		utAccounted(t, s)
+		for _, p := range s.Problems {
+			if p.Sheet == "" || p.Message == "" {
+				t.Fatalf("problem without place or message: %+v", p)
+			}
+		}
+	})
+}
