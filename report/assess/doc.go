@@ -66,4 +66,37 @@
 //   - Raising humidity is recommended only for materials whose surface
 //     resistivity falls at least HumidityResponds decades per 10 %RH.
 //   - Double-layer charge is read from the row's Notes ("double-layer").
+//
+// # Uncertainty (Options.Samples > 0)
+//
+// Every measured input has a default uncertainty (DefaultUncertainties), each a
+// documented choice of this tool, not a standard value; a cell's own "±x%"
+// (inventory.Quantity.RelUncertainty, a relative standard uncertainty) wins over
+// the table, and the Site sheet overrides a row (UncertaintiesFromSite):
+//
+//	input                              default         distribution        Site item
+//	field reading                      ±10 %           normal, relative    Uncertainty field [%]
+//	reading distance                   ±10 mm          normal, absolute    Uncertainty field distance [mm]
+//	surface or body potential          ±10 %           normal, relative    Uncertainty surface potential [%]
+//	resistance to earth                ±0.5 decade     log-normal          Uncertainty resistance [decades]
+//	capacitance, measured              ±10 %           log-normal          Uncertainty measured capacitance [%]
+//	capacitance, estimated             ±30 %           log-normal          Uncertainty estimated capacitance [%]
+//	MIE, dust or hybrid                ×/÷ 2           log-normal          Uncertainty MIE dust [factor]
+//	MIE, gas, vapour or mist           ±20 %           log-normal          Uncertainty MIE gas [%]
+//	charging current                   ×/÷ 2           log-normal          Uncertainty charging current [factor]
+//	mass flow                          ±10 %           normal, relative    Uncertainty mass flow [%]
+//	charge-to-mass ratio               ×/÷ 3           log-normal          Uncertainty charge to mass [factor]
+//	sizes (L, W, D, thickness,         ±5 %            normal, relative    Uncertainty size [%]
+//	  distance to earth, particle size)
+//	speed                              ±5 %            normal, relative    Uncertainty speed [%]
+//	charging time                      ±10 %           normal, relative    Uncertainty charging time [%]
+//	liquid conductivity                ×/÷ 2           log-normal          Uncertainty conductivity [factor]
+//	relative humidity (when given)     ±5 %RH          normal, absolute    Uncertainty relative humidity [%RH]
+//
+// A log-normal row of ±x % has ln-standard deviation ln(1 + x/100); "decades"
+// d gives d ln 10; "factor" f gives ln f. The Monte Carlo (montecarlo.go) draws
+// each object's inputs N times from its own seeded stream, runs Evaluate and
+// Classify per draw, and gives the probability of each verdict, the 5th, 50th
+// and 95th percentiles of the effective energy, and per station the probability
+// that any object is incendive (objects taken as independent: an upper bound).
 package assess

@@ -4,11 +4,9 @@ import (
 	"math"
 	"math/rand/v2"
 	"runtime"
-	"slices"
 	"sync"
 	"sync/atomic"
 
-	"gonum.org/v1/gonum/stat"
 	"gonum.org/v1/gonum/stat/distuv"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -259,11 +257,15 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	norm := distuv.Normal{Mu: 0, Sigma: 1, Src: s.src}
 	var counts [NotAssessed + 1]int
 	energies := s.energies[:0]
+	// Every draw overwrites the same fields, so the input is copied once.
+	in, env := r.Input, r.Environment
+	var fields [numTargets]*float64
+	for j := 0; j < plan.n; j++ {
+		fields[j] = plan.draws[j].target.field(&in, &env)
+	}
 	for k := 0; k < s.samples; k++ {
-		in, env := r.Input, r.Environment
 		for j := 0; j < plan.n; j++ {
-			d := &plan.draws[j]
-			*d.target.field(&in, &env) = d.draw(norm)
+			*fields[j] = plan.draws[j].draw(norm)
 		}
 		ev := model.Evaluate(in, env, *s.lim)
 		c := Classify(&in, &env, &ev, s.lim, s.margin)
@@ -277,12 +279,69 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	p.Incendive, p.Marginal = float64(counts[Incendive])/n, float64(counts[Marginal])/n
 	p.NonIncendive, p.NotAssessed = float64(counts[NonIncendive])/n, float64(counts[NotAssessed])/n
 	if len(energies) > 0 {
-		slices.Sort(energies)
-		p.EnergyP05 = stat.Quantile(0.05, stat.Empirical, energies, nil)
-		p.EnergyP50 = stat.Quantile(0.50, stat.Empirical, energies, nil)
-		p.EnergyP95 = stat.Quantile(0.95, stat.Empirical, energies, nil)
+		p.EnergyP05, p.EnergyP50, p.EnergyP95 = percentiles(energies)
 	}
 	return p
+}
+
+// percentiles returns the 5th, 50th and 95th percentiles of x by the empirical
+// definition of gonum's stat.Quantile (stat.Empirical: the smallest x(i), i
+// 1-based, with i >= p n), by selection instead of a full sort. x is reordered.
+func percentiles(x []float64) (p05, p50, p95 float64) {
+	k05, k50, k95 := empiricalIndex(0.05, len(x)), empiricalIndex(0.50, len(x)), empiricalIndex(0.95, len(x))
+	p95 = selectNth(x, k95)
+	p50 = selectNth(x[:k95+1], k50)
+	p05 = selectNth(x[:k50+1], k05)
+	return p05, p50, p95
+}
+
+// empiricalIndex is the 0-based index of the p quantile of n sorted values (stat.Empirical).
+func empiricalIndex(p float64, n int) int {
+	k := int(math.Ceil(p*float64(n))) - 1
+	return max(0, min(k, n-1))
+}
+
+// selectNth reorders x so that x[k] is the value a sort would put there, every
+// x[i] <= x[k] for i < k and >= for i > k (Hoare's selection), and returns x[k].
+func selectNth(x []float64, k int) float64 {
+	lo, hi := 0, len(x)-1
+	for hi > lo {
+		// Median of three as the pivot.
+		mid := lo + (hi-lo)/2
+		if x[mid] < x[lo] {
+			x[mid], x[lo] = x[lo], x[mid]
+		}
+		if x[hi] < x[lo] {
+			x[hi], x[lo] = x[lo], x[hi]
+		}
+		if x[hi] < x[mid] {
+			x[hi], x[mid] = x[mid], x[hi]
+		}
+		pivot := x[mid]
+		i, j := lo, hi
+		for i <= j {
+			for x[i] < pivot {
+				i++
+			}
+			for x[j] > pivot {
+				j--
+			}
+			if i <= j {
+				x[i], x[j] = x[j], x[i]
+				i++
+				j--
+			}
+		}
+		switch {
+		case k <= j:
+			hi = j
+		case k >= i:
+			lo = i
+		default:
+			return x[k]
+		}
+	}
+	return x[k]
 }
 
 // draw draws one value; norm is the worker's standard normal on the object's stream.
