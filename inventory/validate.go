@@ -1058,7 +1058,15 @@ func (v *validator) objects(t *table, stations map[string]refState, mats map[str
 		} else if !ids.check(f, "ID", o.ID) {
 			dup = true
 		}
-		o.Kind = f.enumValue("Kind", lists[ListKind], nil)
+		if raw := f.text("Kind"); raw != "" {
+			if k, ok := kindHints()[NormalizeName(raw)]; ok {
+				// A word of the trade for a kind: the surveyor chooses, since the kind picks the model.
+				f.errorf("Kind", ErrNotInList, fmt.Sprintf("did you mean %q? (use one of: %s)", k, strings.Join(Kinds(), ", ")),
+					"%q is not one of the Kind values", short(raw, 60))
+			} else {
+				o.Kind = f.enumValue("Kind", lists[ListKind], nil)
+			}
+		}
 		if o.Kind == "" && f.text("Kind") == "" {
 			f.errorf("Kind", ErrRequired, "use one of: "+strings.Join(Kinds(), ", "), "Kind is blank")
 		}
@@ -1145,6 +1153,22 @@ func (v *validator) objects(t *table, stations map[string]refState, mats map[str
 		}
 	}
 	return out
+}
+
+// kindHints maps words surveyors use for things to the kind that models them,
+// for suggestions only.
+func kindHints() map[string]string {
+	return map[string]string{
+		"web": KindSheet, "film": KindSheet, "foil": KindSheet, "liner": KindSheet, "plate": KindSheet,
+		"conveyor": KindBelt, "conveyor belt": KindBelt, "drive belt": KindBelt,
+		"roll": KindRoller, "drum roller": KindRoller, "idler": KindRoller, "shaft": KindPart,
+		"drum": KindContainer, "tank": KindContainer, "vessel": KindContainer, "bucket": KindContainer, "ibc": KindContainer, "can": KindContainer, "tote": KindContainer,
+		"operator": KindPerson, "worker": KindPerson, "human": KindPerson, "people": KindPerson,
+		"dust": KindPowder, "granulate": KindPowder, "granules": KindPowder, "pellets": KindPowder,
+		"solvent": KindLiquid, "fluid": KindLiquid,
+		"fibc": KindBag, "big bag": KindBag, "bulk bag": KindBag, "sack": KindBag,
+		"nozzle": KindPart, "flange": KindPart, "tool": KindPart, "probe": KindPart,
+	}
 }
 
 // kindNeeds checks the per-kind requirements (see KindRequirements).

@@ -151,6 +151,8 @@ func TestValidationRules(t *testing.T) {
 		// enumerations
 		{name: "unknown kind", mut: func(b utBook) utBook { return b.set(SheetObjects, "R-1", "Kind", "roler") },
 			cell: "Objects!C4", errIs: ErrNotInList, fixHas: `did you mean "roller"?`, reject: "Objects!4"},
+		{name: "a trade word for a kind", mut: func(b utBook) utBook { return b.set(SheetObjects, "C-1", "Kind", "Drum") },
+			cell: "Objects!C5", errIs: ErrNotInList, fixHas: `did you mean "container"?`, reject: "Objects!5"},
 		{name: "unknown backing", mut: func(b utBook) utBook { return b.set(SheetObjects, "W-1", "Backing", "metal") },
 			cell: "Objects!J2", errIs: ErrNotInList, reject: "Objects!2"},
 		{name: "unknown bag type", mut: func(b utBook) utBook { return b.set(SheetObjects, "BG-1", "Bag type", "E") },
