@@ -350,8 +350,20 @@ func TestUncertaintyText(t *testing.T) {
 	if n := len(DefaultUncertainties()); n != int(NumUncertainInputs) {
 		t.Errorf("default table has %d rows, want %d", n, NumUncertainInputs)
 	}
-	if len(UncertaintyKeys()) != int(NumUncertainInputs) {
+	keys := UncertaintyKeys()
+	if len(keys) != int(NumUncertainInputs) {
 		t.Error("UncertaintyKeys does not list every row")
+	}
+	// Each listed item, written on a Site sheet, is read back onto its own row.
+	for i, k := range keys {
+		it := inventory.SiteItem{Item: k, Key: inventory.NormalizeName(k), Value: "1", Row: i + 2}
+		tab, probs := UncertaintiesFromSite(inventory.Site{Items: []inventory.SiteItem{it}}, DefaultUncertainties())
+		if len(probs) != 0 || !tab[i].Overridden {
+			t.Errorf("item %q: problems %v, overridden %v", k, probs, tab[i].Overridden)
+		}
+	}
+	if got := tab[UncMIEDust].SiteItem(); got != "Uncertainty MIE dust [factor]" {
+		t.Errorf("MIE dust item %q", got)
 	}
 }
 

@@ -230,9 +230,19 @@ func isUncertaintyItem(name string) bool {
 func UncertaintyKeys() []string {
 	var out []string
 	for _, u := range DefaultUncertainties() {
-		out = append(out, strings.ToUpper(u.SiteKey[:1])+u.SiteKey[1:]+" ["+u.Unit+"]")
+		out = append(out, u.SiteItem())
 	}
 	return out
+}
+
+// SiteItem returns the Site-sheet item that overrides the row, as written on
+// the sheet with its default unit: "Uncertainty field [%]".
+func (u Uncertainty) SiteItem() string {
+	if u.SiteKey == "" {
+		return ""
+	}
+	name := strings.ReplaceAll(" "+u.SiteKey+" ", " mie ", " MIE ")
+	return strings.ToUpper(name[1:2]) + strings.TrimSpace(name[2:]) + " [" + u.Unit + "]"
 }
 
 // spreadUnit is the canonical unit the value or the item names ("%", "decades", "factor").
