@@ -32,9 +32,11 @@ type xc struct {
 	verdict string // a verdict spelling: coloured
 	wrap    bool
 	bold    bool
+	center  bool
 }
 
 func tx(s string) xc { return xc{v: s} }
+func ct(s string) xc { return xc{v: s, center: true} }
 func wr(s string) xc { return xc{v: s, wrap: true} }
 func in(n int) xc    { return xc{v: n, numFmt: "0"} }
 func vd(v string) xc {
@@ -103,11 +105,14 @@ func verdictColours(v string) (fill, font string) {
 
 // style returns a cached style: kind is "", "header", "title", "section", "caution".
 func (b *book) style(kind string, c xc) int {
-	key := fmt.Sprintf("%s|%s|%s|%v|%v", kind, c.numFmt, c.verdict, c.wrap, c.bold)
+	key := fmt.Sprintf("%s|%s|%s|%v|%v|%v", kind, c.numFmt, c.verdict, c.wrap, c.bold, c.center)
 	if id, ok := b.cache[key]; ok {
 		return id
 	}
 	st := &excelize.Style{Alignment: &excelize.Alignment{Vertical: "top", WrapText: c.wrap}}
+	if c.center {
+		st.Alignment.Horizontal = "center"
+	}
 	font := &excelize.Font{Family: "Liberation Sans", Size: 10, Bold: c.bold}
 	if c.numFmt != "" {
 		nf := c.numFmt

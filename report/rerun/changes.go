@@ -304,6 +304,7 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		return nil
 	}
 	conductor := conductorTest(before)
+	tail := ""
 	switch c.Kind {
 	case ChangeEarth, ChangeFootwear:
 		v, err := quantity(c, "Ω", inventory.Resistance)
@@ -325,8 +326,17 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		if err != nil {
 			return a, err
 		}
+		var dropped []string
 		for _, i := range targets {
-			s.Objects[i].Resistance = inventory.Known(v)
+			o := &s.Objects[i]
+			o.Resistance = inventory.Known(v)
+			// A conductor's or person's measured potential was set by the old leakage
+			// path: it no longer holds, and the model estimates the potential from the
+			// charging current (or its documented worst-case default) and the new resistance.
+			if o.SurfacePotential.Known && (o.Kind == inventory.KindPerson || conductor(o)) {
+				dropped = append(dropped, fmt.Sprintf("%s (%s kV)", o.ID, num(o.SurfacePotential.Value/1e3)))
+				o.SurfacePotential = inventory.Quantity{}
+			}
 		}
 		a.SI, a.SIText = v, num(v)+" Ω"
 		what := "resistance to earth"
@@ -334,6 +344,10 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 			what = "footwear/floor resistance to earth"
 		}
 		a.Description = fmt.Sprintf("%s set to %s Ω", what, num(v))
+		if len(dropped) > 0 {
+			tail = "; the measured potential of " + strings.Join(dropped, ", ") +
+				" was taken with the old earthing and is dropped: the model estimates it from the charging current and the new resistance"
+		}
 	case ChangeMaterial:
 		m, err := material(s, c)
 		if err != nil {
@@ -400,6 +414,7 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 	if stationID != "" {
 		a.Description += fmt.Sprintf(" on %d row(s) at station %s", len(a.Objects), stationID)
 	}
+	a.Description += tail
 	return a, nil
 }
 

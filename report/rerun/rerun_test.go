@@ -563,3 +563,31 @@ func golden(t *testing.T, name string, got []byte) {
 		t.Errorf("%s differs from the golden file (run go test -update after checking):\n%s", name, got)
 	}
 }
+
+// A person's measured potential was set by the old footwear: a footwear change
+// drops it and the model estimates the body potential from a walking current.
+func TestFootwearDropsMeasuredPotential(t *testing.T) {
+	// Source: 200 pF at 9 kV stores C V^2 / 2 = 8.1 mJ (derived; reference section 10
+	// item 1 gives 100 pF at 10 kV -> 5 mJ for the same formula); vs toluene 0.24 mJ:
+	// ratio 33.75, incendive (derived). With 1e7 ohm footwear and floor, a walking
+	// current of about 1 uA (Jonassen, from memory; model.WalkingCurrent) gives at most
+	// I R = 10 V (derived), far below any spark.
+	op := inventory.Object{ID: "OP", Kind: "person", SurfacePotential: known(9e3), Resistance: known(1e12), Capacitance: known(200e-12)}
+	s := surveyOf(atmToluene, 50, op)
+	w := run(t, s, [2]string{"footwear", "station:ST-OP=1e7"})
+	d := delta(t, w, "OP")
+	near(t, "stored energy before", d.Before.Eval.StoredEnergy, 8.1e-3)
+	if d.Before.Ratio == nil || d.Before.Verdict != assess.Incendive {
+		t.Fatalf("before: %s, want incendive", d.Before.Verdict)
+	}
+	near(t, "ratio before", *d.Before.Ratio, 33.75)
+	if d.After.Object.SurfacePotential.Known {
+		t.Error("the measured potential was kept after the footwear change")
+	}
+	if d.After.Eval.Potential > 10*(1+1e-9) || d.After.Verdict != assess.NonIncendive {
+		t.Errorf("after: %g V, %s; want at most 10 V, non-incendive", d.After.Eval.Potential, d.After.Verdict)
+	}
+	if !strings.Contains(w.Applied[0].Description, "OP (9 kV) was taken with the old earthing") {
+		t.Errorf("description %q does not say the reading was dropped", w.Applied[0].Description)
+	}
+}

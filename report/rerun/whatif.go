@@ -142,6 +142,9 @@ func why(b, a *assess.ObjectResult, changed bool) string {
 	if rhB != rhA {
 		parts = append(parts, humidityPhrase(b, a))
 	}
+	if b.Object.SurfacePotential.Known && !a.Object.SurfacePotential.Known {
+		parts = append(parts, fmt.Sprintf("the measured %s kV (taken with the old earthing) no longer applies", fmtSig(b.Object.SurfacePotential.Value/1e3)))
+	}
 	if rb, ra := b.Object.Resistance, a.Object.Resistance; rb != ra {
 		parts = append(parts, fmt.Sprintf("resistance to earth %s → %s Ω%s", ohmText(rb), ohmText(ra), potentialPhrase(b, a)))
 	}

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -106,7 +105,7 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		}
 		row := []xc{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio)}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio), tx(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
@@ -123,7 +122,7 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		} else {
 			row = append(row, xc{}, xc{}, xc{})
 		}
-		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), ratioCell(d.After.WorstRatio), tx(string(d.Outcome)))
+		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), ratioCell(d.After.WorstRatio), ct(string(d.Outcome)))
 		rows = append(rows, row)
 	}
 	b.table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
@@ -297,7 +296,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 
 	rows = nil
 	for _, m := range c.Stations {
-		row := []xc{tx(m.ID), tx(m.Name), {}, {}, vd(m.VerdictBefore), vd(m.VerdictAfter), tx(rankMove(m))}
+		row := []xc{tx(m.ID), tx(m.Name), {}, {}, vd(m.VerdictBefore), vd(m.VerdictAfter), ct(rankMove(m))}
 		if m.RankBefore > 0 {
 			row[2] = in(m.RankBefore)
 		}
@@ -336,5 +335,3 @@ func rankMove(m RankMove) string {
 	}
 	return fmt.Sprintf("down %d (better)", m.RankAfter-m.RankBefore)
 }
-
-var _ = math.NaN
