@@ -464,21 +464,22 @@ func (r *reader) readTable(sheet string) *table {
 			Fix:     "split the survey into several workbooks"})
 	}
 	if t.HeaderRow == 0 {
-		if len(above) > 0 {
-			t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: above[0], Severity: Error, Err: ErrMissingColumn,
-				Message: fmt.Sprintf("no header row found in the first %d rows (a header names at least two columns such as %s)", headerScanRows, strings.Join(requiredColumns(sheet), ", ")),
-				Fix:     "put the header row of the template above the data"})
-			// Every non-blank row is read and rejected: nothing is lost.
-			_ = r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
-				if !blankRow(cells) {
-					if len(t.Rows) >= r.opts.MaxRows {
-						return false
-					}
-					t.Rows = append(t.Rows, rawRow{Row: row, Cells: cells, Hidden: hidden})
+		// Every non-blank row is read and rejected: nothing is lost.
+		_ = r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+			if !blankRow(cells) {
+				if len(t.Rows) >= r.opts.MaxRows {
+					return false
 				}
-				return true
-			})
-			t.Missing = append(t.Missing, t.Problems[len(t.Problems)-1])
+				t.Rows = append(t.Rows, rawRow{Row: row, Cells: cells, Hidden: hidden})
+			}
+			return true
+		})
+		if len(t.Rows) > 0 {
+			p := Problem{Sheet: sheet, Row: t.Rows[0].Row, Severity: Error, Err: ErrMissingColumn,
+				Message: fmt.Sprintf("no header row found in the first %d rows (a header names at least two columns such as %s)", headerScanRows, strings.Join(requiredColumns(sheet), ", ")),
+				Fix:     "put the header row of the template above the data"}
+			t.Problems = append(t.Problems, p)
+			t.Missing = append(t.Missing, p)
 		}
 		return t
 	}

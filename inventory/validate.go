@@ -540,12 +540,11 @@ func (r *reader) readSite(s *Survey) *siteSheet {
 		if len(cells) > 1 {
 			value = strings.TrimSpace(cells[1])
 		}
-		if first {
+		if first && NormalizeName(item) == "item" || NormalizeName(item) == "item" && NormalizeName(value) == "value" {
 			first = false
-			if NormalizeName(item) == "item" {
-				return true
-			}
+			return true // the header row, first or below a title
 		}
+		first = false
 		if len(ss.Rows) >= r.opts.MaxRows {
 			return false
 		}

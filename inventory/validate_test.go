@@ -410,6 +410,16 @@ func TestHeaderFaults(t *testing.T) {
 			}
 		}
 	})
+	t.Run("data far below an absent header", func(t *testing.T) {
+		b := utValidBook()
+		b[2].Rows = append(make([][]any, 14), []any{"ST-1", "x"})
+		s := utReadBook(t, b)
+		for _, c := range s.Counts {
+			if c.Sheet == SheetStations && (c.Read != 1 || c.Rejected != 1) {
+				t.Errorf("stations %+v", c)
+			}
+		}
+	})
 	t.Run("unknown sheet warns", func(t *testing.T) {
 		b := append(utValidBook(), utSheet{"Scratch", [][]any{{"x"}}})
 		s := utReadBook(t, b)
