@@ -169,7 +169,7 @@ func lines(s string, w float64) int {
 	n := 0
 	for _, part := range strings.Split(s, "\n") {
 		l := len([]rune(part))
-		n += max(1, int(math.Ceil(float64(l)/math.Max(1, w-1))))
+		n += max(1, int(math.Ceil(float64(l)/math.Max(1, 1.1*w-2))))
 	}
 	return n
 }

@@ -165,7 +165,7 @@ func clearances(s *inventory.Survey, steps []SweepStep) []StationClearance {
 			}
 		default:
 			c.ClearsAt = steps[k].RH
-			c.Text = fmt.Sprintf("non-incendive from %s %% RH on (%s at %s %%)", fmtSig(steps[k].RH), steps[k-1].Stations[j].Verdict, fmtSig(steps[k-1].RH))
+			c.Text = fmt.Sprintf("non-incendive from %s %% RH on (still %s at %s %%)", fmtSig(steps[k].RH), steps[k-1].Stations[j].Verdict, fmtSig(steps[k-1].RH))
 		}
 		out = append(out, c)
 	}
