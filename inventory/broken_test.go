@@ -1,9 +1,3 @@
-//go:build brokengolden
-
-// These tests need the reader (ReadFile). They are behind the brokengolden build
-// tag until the reader is complete: go test -tags brokengolden ./inventory.
-// Remove the tag once they pass.
-
 package inventory
 
 import (
