@@ -68,7 +68,7 @@ func newWhatifCmd() *cobra.Command {
 		Args: cobra.ExactArgs(1),
 		RunE: func(c *cobra.Command, args []string) error {
 			o.survey = args[0]
-			o.args = commandLine(c, args)
+			o.args = whatifCommandLine(o)
 			return runWhatif(c.OutOrStdout(), o)
 		},
 	}
@@ -178,4 +178,23 @@ func writeRerun(xlsx, jsonPath string, book, doc func(io.Writer) error) error {
 		}
 	}
 	return nil
+}
+
+// whatifCommandLine rebuilds the command for the Method sheet with the changes
+// in the order they were given (the order they are applied in).
+func whatifCommandLine(o whatifOptions) []string {
+	out := []string{"sparkmargin", "whatif", o.survey}
+	for _, f := range o.flags {
+		out = append(out, "--"+f.kind, f.arg)
+	}
+	if o.noSheetChanges {
+		out = append(out, "--no-sheet-changes")
+	}
+	if o.output != "" {
+		out = append(out, "-o", o.output)
+	}
+	if o.json != "" {
+		out = append(out, "--json", o.json)
+	}
+	return out
 }

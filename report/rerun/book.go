@@ -291,6 +291,9 @@ func (b *book) method(s *inventory.Survey, info RunInfo, notes [][2]string) {
 	for _, kv := range [][2]string{{"Tool", "sparkmargin " + info.ToolVersion}, {"Command", info.CommandLine}, {"Survey file", file}, {"Survey SHA-256", sha}} {
 		b.put(sh, 1, r, tx(kv[0]), "")
 		b.put(sh, 2, r, wr(kv[1]), "")
+		if n := lines(kv[1], 70); n > 1 {
+			b.check(b.f.SetRowHeight(sh, r, 12.75*float64(n)+2))
+		}
 		r++
 	}
 	r++
