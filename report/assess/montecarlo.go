@@ -126,6 +126,19 @@ type drawSpec struct {
 	sigma  float64 // normal: SI standard deviation; log-normal: of ln
 	sign   float64 // log-normal: the value's sign
 	upper  float64 // normal: reflect above this (humidity 100 %RH); 0 none
+
+	// The distributions, built once per object on the object's stream (bind).
+	normal    distuv.Normal
+	logNormal distuv.LogNormal
+}
+
+// bind builds the draw's distribution on src.
+func (d *drawSpec) bind(src rand.Source) {
+	if d.dist == LogNormal {
+		d.logNormal = distuv.LogNormal{Mu: d.mu, Sigma: d.sigma, Src: src}
+	} else {
+		d.normal = distuv.Normal{Mu: d.mu, Sigma: d.sigma, Src: src}
+	}
 }
 
 // samplePlan lists the draws of one object; a fixed array, so building it does not allocate.
@@ -254,7 +267,9 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	}
 	plan := planFor(r, s.tab, s.siteRH)
 	s.src.Seed(s.seed, objectStream(r.Object.ID))
-	norm := distuv.Normal{Mu: 0, Sigma: 1, Src: s.src}
+	for j := 0; j < plan.n; j++ {
+		plan.draws[j].bind(s.src)
+	}
 	var counts [NotAssessed + 1]int
 	energies := s.energies[:0]
 	// Every draw overwrites the same fields, so the input is copied once.
@@ -265,7 +280,7 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	}
 	for k := 0; k < s.samples; k++ {
 		for j := 0; j < plan.n; j++ {
-			*fields[j] = plan.draws[j].draw(norm)
+			*fields[j] = plan.draws[j].draw()
 		}
 		ev := model.Evaluate(in, env, *s.lim)
 		c := Classify(&in, &env, &ev, s.lim, s.margin)
@@ -344,12 +359,12 @@ func selectNth(x []float64, k int) float64 {
 	return x[k]
 }
 
-// draw draws one value; norm is the worker's standard normal on the object's stream.
-func (d *drawSpec) draw(norm distuv.Normal) float64 {
+// draw draws one value from the bound distribution.
+func (d *drawSpec) draw() float64 {
 	if d.dist == LogNormal {
-		return d.sign * distuv.LogNormal{Mu: d.mu, Sigma: d.sigma, Src: norm.Src}.Rand()
+		return d.sign * d.logNormal.Rand()
 	}
-	x := distuv.Normal{Mu: d.mu, Sigma: d.sigma, Src: norm.Src}.Rand()
+	x := d.normal.Rand()
 	if (d.mu > 0 && x < 0) || (d.mu < 0 && x > 0) {
 		x = -x
 	}

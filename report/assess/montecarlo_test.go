@@ -248,19 +248,21 @@ func TestMonteCarloNotAssessedObject(t *testing.T) {
 
 func TestDrawStaysPhysical(t *testing.T) {
 	src := rand.NewPCG(1, 2)
-	norm := distuv.Normal{Mu: 0, Sigma: 1, Src: src}
 	// A 10 mm distance with a 10 mm spread (the table default) and humidity near 100 %RH.
 	dist := drawSpec{target: tFieldDistance, dist: NormalAbsolute, mu: 0.01, sigma: 0.01}
 	rh := drawSpec{target: tRelativeHumidity, dist: NormalAbsolute, mu: 97, sigma: 5, upper: 100}
 	neg := drawSpec{target: tField, dist: NormalRelative, mu: -1e5, sigma: 1e5}
+	for _, d := range []*drawSpec{&dist, &rh, &neg} {
+		d.bind(src)
+	}
 	for k := 0; k < 2000; k++ {
-		if x := dist.draw(norm); x < 0 {
+		if x := dist.draw(); x < 0 {
 			t.Fatalf("distance drawn negative: %v", x)
 		}
-		if x := rh.draw(norm); x < 0 || x > 100 {
+		if x := rh.draw(); x < 0 || x > 100 {
 			t.Fatalf("humidity drawn outside 0-100: %v", x)
 		}
-		if x := neg.draw(norm); x > 0 {
+		if x := neg.draw(); x > 0 {
 			t.Fatalf("negative field reading changed sign: %v", x)
 		}
 	}
