@@ -591,3 +591,20 @@ func TestFootwearDropsMeasuredPotential(t *testing.T) {
 		t.Errorf("description %q does not say the reading was dropped", w.Applied[0].Description)
 	}
 }
+
+func TestOutcomeOf(t *testing.T) {
+	// The outcome rules of the rerun contract (issue text): a hazard is incendive or marginal.
+	I, M, N, X := assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed
+	cases := []struct {
+		b, a assess.Verdict
+		want Outcome
+	}{
+		{I, N, Cleared}, {M, N, Cleared}, {I, M, Stayed}, {M, I, Stayed}, {N, I, Appeared}, {N, M, Appeared},
+		{N, N, NoHazard}, {X, N, NoHazard}, {I, X, Unjudged}, {N, X, Unjudged}, {X, I, Appeared},
+	}
+	for _, c := range cases {
+		if got := OutcomeOf(c.b, c.a); got != c.want {
+			t.Errorf("OutcomeOf(%s, %s) = %q, want %q", c.b, c.a, got, c.want)
+		}
+	}
+}

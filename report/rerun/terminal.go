@@ -48,8 +48,12 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
 	}
 	tw.Flush()
-	fmt.Fprintf(w, "\nObjects: %d cleared, %d stayed, %d appeared, %d without hazard before and after\n",
+	fmt.Fprintf(w, "\nObjects: %d cleared, %d stayed, %d appeared, %d without hazard before and after",
 		x.Moved[Cleared], x.Moved[Stayed], x.Moved[Appeared], x.Moved[NoHazard])
+	if n := x.Moved[Unjudged]; n > 0 {
+		fmt.Fprintf(w, ", %d not assessed after the changes", n)
+	}
+	fmt.Fprintln(w)
 	caution(w)
 	return nil
 }

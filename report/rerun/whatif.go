@@ -21,6 +21,9 @@ const (
 	Stayed   Outcome = "stayed"   // a hazard before and after
 	Appeared Outcome = "appeared" // none before, a hazard after
 	NoHazard Outcome = "no hazard"
+	// Unjudged: not assessed after the changes (inputs the model needs are missing):
+	// neither cleared nor safe.
+	Unjudged Outcome = "not assessed"
 )
 
 // IsHazard reports whether a verdict counts as a hazard (incendive or marginal).
@@ -28,6 +31,9 @@ func IsHazard(v assess.Verdict) bool { return v == assess.Incendive || v == asse
 
 // OutcomeOf classifies a before/after pair of verdicts.
 func OutcomeOf(before, after assess.Verdict) Outcome {
+	if after == assess.NotAssessed {
+		return Unjudged
+	}
 	switch b, a := IsHazard(before), IsHazard(after); {
 	case b && !a:
 		return Cleared
@@ -85,7 +91,7 @@ func Run(s *inventory.Survey, changes []Change) (*Whatif, error) {
 
 // Diff pairs the objects and stations of two audits of the same survey.
 func Diff(before, after *assess.Audit, applied []Applied) *Whatif {
-	w := &Whatif{Before: before, After: after, Applied: applied, Moved: map[Outcome]int{Cleared: 0, Stayed: 0, Appeared: 0, NoHazard: 0}}
+	w := &Whatif{Before: before, After: after, Applied: applied, Moved: map[Outcome]int{Cleared: 0, Stayed: 0, Appeared: 0, NoHazard: 0, Unjudged: 0}}
 	reached := map[string]bool{}
 	rhStations := map[string]bool{}
 	siteWideChange := false

@@ -73,7 +73,7 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		st[d.Outcome]++
 	}
 	rows = nil
-	for _, o := range []Outcome{Cleared, Stayed, Appeared, NoHazard} {
+	for _, o := range []Outcome{Cleared, Stayed, Appeared, NoHazard, Unjudged} {
 		rows = append(rows, []xc{tx(string(o)), in(x.Moved[o]), in(st[o])})
 	}
 	r = b.table(sh, r, []string{"Outcome", "Objects", "Stations"}, []float64{26, 14, 14}, rows) + 1
