@@ -233,6 +233,9 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 			}
 		}
 		a.Description = fmt.Sprintf("site RH set to %s %%; applies to the %d station(s) that give no RH of their own", num(v), len(a.Stations))
+		if len(a.Stations) == 0 {
+			a.Description += " (every station gives its own: use --station-rh ID=VALUE to change them)"
+		}
 		return a, nil
 	case ChangeMargin:
 		v, err := quantity(c, "", inventory.Dimensionless)
