@@ -483,3 +483,17 @@ func TestPercentilesMatchSortedQuantile(t *testing.T) {
 		}
 	}
 }
+
+func TestMonteCarloSampleLoopDoesNotAllocate(t *testing.T) {
+	a := Assess(demoSurvey(t), Options{})
+	tab := uncertaintyTable(DefaultUncertainties())
+	s := newSampler(DefaultSeed, 100, &a.Options.Limits, DefaultMargin, &tab, a.Survey.Site.RelativeHumidity)
+	allocs := testing.AllocsPerRun(3, func() {
+		for i := range a.Objects {
+			_ = s.object(&a.Objects[i])
+		}
+	})
+	if allocs != 0 {
+		t.Errorf("%v allocations per run of the sample loop over the demo objects, want 0", allocs)
+	}
+}
