@@ -9,12 +9,14 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/report/assess"
 )
 
 func newLibraryCmd() *cobra.Command {
 	return &cobra.Command{
 		Use:   "library",
-		Short: "List the built-in materials and substances with their sources",
+		Short: "List the built-in materials, substances and limits with their sources",
 		Args:  cobra.NoArgs,
 		RunE: func(c *cobra.Command, args []string) error {
 			writeLibrary(c.OutOrStdout())
@@ -46,6 +48,24 @@ func writeLibrary(out io.Writer) {
 	for _, s := range inventory.BuiltinSubstances() {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", s.Name, s.Kind, num(s.MIE*1e3, "%.3g"), s.Group,
 			num(s.Conductivity*1e12, "%.3g"), num(s.Permittivity, "%.3g"), s.Source)
+	}
+	tw.Flush()
+	fmt.Fprintln(out, "\nLimits applied by default (SI units; [M] recalled, not confirmed against the standard's text here)")
+	tw = tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "Limit\tValue\tUnit\tSource")
+	for _, c := range model.LimitSources() {
+		src := c.Source
+		if c.FromMemory {
+			src = "[M] " + src
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", c.Limit, num(c.Value, "%.4g"), c.Unit, src)
+	}
+	tw.Flush()
+	fmt.Fprintln(out, "\nSite sheet items that override a limit (Item | Value; the unit may be given in the item or the value)")
+	tw = tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "Item\tDefault unit\tSets")
+	for _, k := range assess.LimitKeys() {
+		fmt.Fprintf(tw, "%s\t%s\t%s\n", k.Name, k.Unit, k.Note)
 	}
 	tw.Flush()
 }
