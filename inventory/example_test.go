@@ -7,7 +7,7 @@ import (
 )
 
 // A cell's own unit wins over the header's; values come back in SI units.
-// derived: 2.5 MV/m = 2.5e6 V/m; 150 pF = 1.5e-10 F.
+// Source: SI prefixes (SI Brochure, 9th ed.), derived: 2.5 MV/m = 2.5e6 V/m; 150 pF = 1.5e-10 F.
 func ExampleParseQuantity() {
 	p, _ := inventory.ParseQuantity("2.5 MV/m", "kV/m", inventory.ElectricField)
 	fmt.Println(p.Value, p.Known)

@@ -10,7 +10,7 @@ import (
 )
 
 // Expected values below are derived: the SI prefix definitions (p 1e-12 ... T 1e12),
-// 1 min = 60 s, 1 h = 3600 s, 1 t = 1000 kg, 0 °C = 273.15 K (SI Brochure, 9th ed.).
+// Source: SI Brochure, 9th ed.: 1 min = 60 s, 1 h = 3600 s, 1 t = 1000 kg, 0 °C = 273.15 K.
 func TestParseQuantity(t *testing.T) {
 	cases := []struct {
 		name   string

@@ -7,7 +7,8 @@ import (
 )
 
 // Property tests: a few hundred seeded random cases each (no outside values:
-// monotonicity the physics requires, derived).
+// monotonicity the physics requires, derived). The atmosphere is toluene vapour,
+// MIE 0.24 mJ, group IIA: from memory (reference section 4), used only as a setting.
 
 func logUniform(r *rand.Rand, lo, hi float64) float64 {
 	return math.Pow(10, math.Log10(lo)+r.Float64()*(math.Log10(hi)-math.Log10(lo)))
