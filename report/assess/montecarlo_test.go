@@ -497,3 +497,24 @@ func TestMonteCarloSampleLoopDoesNotAllocate(t *testing.T) {
 		t.Errorf("%v allocations per run of the sample loop over the demo objects, want 0", allocs)
 	}
 }
+
+func TestMonteCarloSiteOverride(t *testing.T) {
+	// With every Site uncertainty item at 0 the draws equal the point estimate:
+	// the part of the closed-form test (1 kV, 50 µJ < MIE 0.24 mJ; derived: C V^2 / 2)
+	// is marginal (unearthed) in every draw.
+	s := newSurvey([]inventory.Atmosphere{atmToluene}, []inventory.Station{{ID: "S1", Atmosphere: atmToluene.ID}},
+		[]inventory.Object{chargedPart("P1", known(1e9))}, nil)
+	for i, k := range UncertaintyKeys() {
+		s.Site.Items = append(s.Site.Items, inventory.SiteItem{Item: k, Key: inventory.NormalizeName(k), Value: "0", Row: i + 5})
+	}
+	a := Assess(s, Options{Samples: 100})
+	p := a.Objects[0].Probability
+	if p.Marginal != 1 || !scalar.EqualWithinRel(p.EnergyP05, 50e-6, 1e-9) || !scalar.EqualWithinRel(p.EnergyP95, 50e-6, 1e-9) {
+		t.Errorf("probability %+v, want marginal 1 and energy 50 µJ throughout", p)
+	}
+	for _, u := range a.Options.Uncertainties {
+		if !u.Overridden || u.Spread != 0 {
+			t.Errorf("%s: recorded %v (overridden %v), want 0 from the Site sheet", u.Name, u.Spread, u.Overridden)
+		}
+	}
+}

@@ -170,7 +170,7 @@ func DefaultUncertainties() []Uncertainty {
 // row's Unit when absent; the value may carry its own, "0.5 decades"). A normal
 // relative row takes %; an absolute length row mm, cm or m; humidity %RH; a
 // log-normal row % (a standard uncertainty of ±x % is a factor 1 + x/100),
-// decades or factor. 0 turns the row off. An item that names a row but whose
+// decades or factor. 0 turns the row off (so does a factor of 1). An item that names a row but whose
 // value cannot be used is an Error and the row keeps its base value. Items
 // that start with "uncertainty" but name no row are Warnings. Other items are
 // left to LimitsFromSite.
@@ -336,6 +336,9 @@ func parseSpread(raw, keyUnit string, u *Uncertainty) (float64, error) {
 	case "dec":
 		return v * math.Ln10, nil
 	case "x":
+		if v == 0 {
+			return 0, nil // off, as for the other units
+		}
 		if v < 1 {
 			return 0, fmt.Errorf("a factor must be at least 1, got %q", raw)
 		}
