@@ -47,9 +47,9 @@ func (e *UnreadableError) Unwrap() []error {
 // values take the defaults.
 type ReadOptions struct {
 	// MaxFileSize refuses files larger than this many bytes before opening them
-	// (default 64 MiB; a survey is a few hundred kB).
+	// (default 256 MiB; a survey is a few hundred kB, a full sheet about 50 MiB).
 	MaxFileSize int64
-	// UnzipSizeLimit caps the unpacked size of the whole workbook (default 256 MiB).
+	// UnzipSizeLimit caps the unpacked size of the whole workbook (default 2 GiB).
 	UnzipSizeLimit int64
 	// UnzipXMLSizeLimit caps one unpacked part kept in memory; larger parts go
 	// to temporary files in a private folder (default 16 MiB).
@@ -57,17 +57,21 @@ type ReadOptions struct {
 	// TmpDir is the folder in which a private temporary folder is made and
 	// removed again ("" for the system's).
 	TmpDir string
-	// MaxRows caps the rows read per sheet (default 100000); a sheet with more
-	// gets an error and the rest is not read.
+	// MaxRows caps the rows read per sheet (default DefaultMaxRows, the
+	// sheet's own row limit); a sheet with more gets an error and the rest is
+	// not read.
 	MaxRows int
 }
 
 // Defaults of ReadOptions.
 const (
-	DefaultMaxFileSize       = 64 << 20
-	DefaultUnzipSizeLimit    = 256 << 20
+	// A survey of a sheet's full 1,048,575 object rows is about 50 MiB and
+	// unpacks to about 0.5 GiB; parts above DefaultUnzipXMLSizeLimit are read
+	// from temporary files, so the unpack limit bounds disk, not memory.
+	DefaultMaxFileSize       = 256 << 20
+	DefaultUnzipSizeLimit    = 2 << 30
 	DefaultUnzipXMLSizeLimit = 16 << 20
-	DefaultMaxRows           = 100000
+	DefaultMaxRows           = excelize.TotalRows
 )
 
 func (o ReadOptions) withDefaults() ReadOptions {
@@ -95,6 +99,10 @@ func (o ReadOptions) withDefaults() ReadOptions {
 // problem inside a readable workbook is a Problem in the Survey instead, and
 // the error is nil. The file is never written to.
 func ReadFile(path string, opts ReadOptions) (*Survey, error) {
+	return readFile(path, opts, nil)
+}
+
+func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error) {
 	opts = opts.withDefaults()
 	fi, err := os.Stat(path)
 	if err != nil {
@@ -123,14 +131,18 @@ func ReadFile(path string, opts ReadOptions) (*Survey, error) {
 	if why := sniff(head.b, n); why != "" {
 		return nil, &UnreadableError{Path: path, Reason: why}
 	}
+	sum := hex.EncodeToString(h.Sum(nil))
+	if hooks != nil {
+		hooks.path, hooks.sha = path, sum
+	}
 	s, err := openAndRead(path, opts, func(o excelize.Options) (*excelize.File, error) {
 		return excelize.OpenFile(path, o)
-	})
+	}, hooks)
 	if err != nil {
-		return nil, err
+		return s, err
 	}
 	s.Path = path
-	s.SHA256 = hex.EncodeToString(h.Sum(nil))
+	s.SHA256 = sum
 	return s, nil
 }
 
@@ -146,7 +158,7 @@ func Read(data []byte, name string, opts ReadOptions) (*Survey, error) {
 	}
 	s, err := openAndRead(name, opts, func(o excelize.Options) (*excelize.File, error) {
 		return excelize.OpenReader(bytes.NewReader(data), o)
-	})
+	}, nil)
 	if err != nil {
 		return nil, err
 	}
@@ -157,7 +169,7 @@ func Read(data []byte, name string, opts ReadOptions) (*Survey, error) {
 
 // openAndRead opens the workbook in a private temporary folder, reads it and
 // turns a panic inside excelize or the reader into an UnreadableError.
-func openAndRead(name string, opts ReadOptions, open func(excelize.Options) (*excelize.File, error)) (s *Survey, err error) {
+func openAndRead(name string, opts ReadOptions, open func(excelize.Options) (*excelize.File, error), hooks *streamHooks) (s *Survey, err error) {
 	tmp, err := os.MkdirTemp(opts.TmpDir, "sparkmargin-read-")
 	if err != nil {
 		return nil, fmt.Errorf("making a temporary folder for reading %s: %w", name, err)
@@ -182,6 +194,9 @@ func openAndRead(name string, opts ReadOptions, open func(excelize.Options) (*ex
 	}
 	defer f.Close()
 	r := &reader{f: f, opts: opts}
+	if hooks != nil {
+		return r.stream(hooks)
+	}
 	s = r.read()
 	return s, nil
 }
@@ -293,6 +308,7 @@ type table struct {
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
 	Rows      []rawRow
+	rowsSeen  int // data rows read below the header (kept in Rows or handed to the row hook)
 	Problems  []Problem // sheet and header problems
 }
 
@@ -300,6 +316,10 @@ type table struct {
 type reader struct {
 	f        *excelize.File
 	opts     ReadOptions
+	// rowHook, when set, receives the data rows of hookSheet below its header
+	// instead of Rows; it returns false to stop reading the sheet.
+	rowHook   func(t *table, rr rawRow) bool
+	hookSheet string
 	date1904 bool
 	sheets   map[string]string // normalised name -> actual
 }
@@ -311,6 +331,18 @@ func helperSheets() map[string]bool {
 }
 
 func (r *reader) read() *Survey {
+	s, site := r.readSheets()
+	tables := map[string]*table{}
+	for _, sh := range []string{SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials, SheetChanges} {
+		tables[sh] = r.readTable(sh)
+	}
+	validate(s, site, tables)
+	return s
+}
+
+// readSheets lists the workbook's sheets (warning about unknown and hidden
+// ones) and reads the Site sheet.
+func (r *reader) readSheets() (*Survey, *siteSheet) {
 	s := &Survey{}
 	if p, err := r.f.GetWorkbookProps(); err == nil && p.Date1904 != nil {
 		r.date1904 = *p.Date1904
@@ -338,13 +370,7 @@ func (r *reader) read() *Survey {
 			}
 		}
 	}
-	site := r.readSite(s)
-	tables := map[string]*table{}
-	for _, sh := range []string{SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials, SheetChanges} {
-		tables[sh] = r.readTable(sh)
-	}
-	validate(s, site, tables)
-	return s
+	return s, r.readSite(s)
 }
 
 // contractSheetName returns the contract spelling of a normalised sheet name.
@@ -446,11 +472,16 @@ func (r *reader) readTable(sheet string) *table {
 		if blankRow(cells) {
 			return true
 		}
-		if len(t.Rows) >= r.opts.MaxRows {
+		if t.rowsSeen >= r.opts.MaxRows {
 			limited = true
 			return false
 		}
-		t.Rows = append(t.Rows, rawRow{Row: row, Cells: cells, Hidden: hidden})
+		t.rowsSeen++
+		rr := rawRow{Row: row, Cells: cells, Hidden: hidden}
+		if r.rowHook != nil && r.hookSheet == sheet {
+			return r.rowHook(t, rr)
+		}
+		t.Rows = append(t.Rows, rr)
 		return true
 	})
 	if err != nil {

@@ -77,6 +77,7 @@ type validator struct {
 	s      *Survey
 	rows   map[string][]*rowState
 	tables map[string]*table
+	quiet  map[string]int // rows accepted without any problem whose row state was dropped
 }
 
 func (v *validator) newRow(sheet string, row int) *rowState {
@@ -314,24 +315,46 @@ func smallerUnits(d Dimension) []string {
 // validate turns the read sheets into the Survey: every row accepted or
 // rejected with its reasons, references resolved, problems sorted, counts kept.
 func validate(s *Survey, site *siteSheet, tables map[string]*table) {
-	v := &validator{s: s, rows: map[string][]*rowState{}, tables: tables}
-	for _, sh := range []string{SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials, SheetChanges} {
-		s.Problems = append(s.Problems, tables[sh].Problems...)
+	v := newValidator(s, tables)
+	v.tableProblems(SheetAtmospheres, SheetStations, SheetObjects, SheetMaterials, SheetChanges)
+	mats, stations := v.begin(site)
+	t := tables[SheetObjects]
+	objs := v.objects(t, stations, mats)
+	v.end(stations, objs, len(t.Rows))
+}
+
+func newValidator(s *Survey, tables map[string]*table) *validator {
+	return &validator{s: s, rows: map[string][]*rowState{}, tables: tables, quiet: map[string]int{}}
+}
+
+// tableProblems adds the sheet and header problems of the given tables.
+func (v *validator) tableProblems(sheets ...string) {
+	for _, sh := range sheets {
+		v.s.Problems = append(v.s.Problems, v.tables[sh].Problems...)
 	}
+}
+
+// begin checks the required sheets and validates every sheet the Objects rows
+// refer to: Site, Materials, Atmospheres and Stations.
+func (v *validator) begin(site *siteSheet) (map[string]matState, map[string]refState) {
 	for _, sh := range []string{SheetStations, SheetObjects} {
-		if !tables[sh].Present {
-			s.Problems = append(s.Problems, Problem{Sheet: sh, Severity: Error, Err: ErrMissingSheet,
+		if !v.tables[sh].Present {
+			v.s.Problems = append(v.s.Problems, Problem{Sheet: sh, Severity: Error, Err: ErrMissingSheet,
 				Message: fmt.Sprintf("the workbook has no %s sheet", sh), Fix: "add it from the template (sparkmargin template)"})
 		}
 	}
 	v.applySite(site)
-	mats := v.materials(tables[SheetMaterials])
-	atms := v.atmospheres(tables[SheetAtmospheres])
-	stations := v.stations(tables[SheetStations], atms)
-	objs := v.objects(tables[SheetObjects], stations, mats)
-	v.changes(tables[SheetChanges], stations, objs)
-	if t := tables[SheetObjects]; t.Present && t.HeaderRow > 0 && len(t.Rows) == 0 {
-		s.Problems = append(s.Problems, Problem{Sheet: SheetObjects, Row: t.HeaderRow, Severity: Warning,
+	mats := v.materials(v.tables[SheetMaterials])
+	atms := v.atmospheres(v.tables[SheetAtmospheres])
+	return mats, v.stations(v.tables[SheetStations], atms)
+}
+
+// end validates the Changes sheet against the objects and finishes the survey;
+// objectRows is the number of data rows of the Objects sheet.
+func (v *validator) end(stations, objs map[string]refState, objectRows int) {
+	v.changes(v.tables[SheetChanges], stations, objs)
+	if t := v.tables[SheetObjects]; t.Present && t.HeaderRow > 0 && objectRows == 0 {
+		v.s.Problems = append(v.s.Problems, Problem{Sheet: SheetObjects, Row: t.HeaderRow, Severity: Warning,
 			Message: "the sheet has no object rows; nothing will be assessed"})
 	}
 	v.finish()
@@ -345,7 +368,7 @@ func (v *validator) finish() {
 		order = append(order, SheetChanges)
 	}
 	for _, sh := range order {
-		c := SheetCount{Sheet: sh}
+		c := SheetCount{Sheet: sh, Read: v.quiet[sh], Accepted: v.quiet[sh]}
 		for _, r := range v.rows[sh] {
 			s.Problems = append(s.Problems, r.probs...)
 			c.Read++
@@ -1043,115 +1066,149 @@ func KindRequirements() []KindRequirement {
 }
 
 func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
-	out := map[string]refState{}
-	ids := idRegistry{}
-	seen := map[int]bool{}
-	lists := FixedLists()
-	stPresent := v.tables[SheetStations].Present
+	p := v.newObjectPass(stations, mats)
 	for _, rr := range t.Rows {
-		f := v.beginRow(t, rr, "ID", seen)
-		o := Object{ID: f.st.id, Row: rr.Row, Description: f.text("Description"), Notes: f.text("Notes")}
-		dup := false
-		if o.ID == "" {
-			f.errorf("ID", ErrRequired, "give every object a unique ID", "ID is blank")
-		} else if !ids.check(f, "ID", o.ID) {
-			dup = true
-		}
-		if raw := f.text("Kind"); raw != "" {
-			if k, ok := kindHints()[NormalizeName(raw)]; ok {
-				// A word of the trade for a kind: the surveyor chooses, since the kind picks the model.
-				f.errorf("Kind", ErrNotInList, fmt.Sprintf("did you mean %q? (use one of: %s)", k, strings.Join(Kinds(), ", ")),
-					"%q is not one of the Kind values", short(raw, 60))
-			} else {
-				o.Kind = f.enumValue("Kind", lists[ListKind], nil)
-			}
-		}
-		if o.Kind == "" && f.text("Kind") == "" {
-			f.errorf("Kind", ErrRequired, "use one of: "+strings.Join(Kinds(), ", "), "Kind is blank")
-		}
-		who := strings.TrimSpace(o.Kind + " " + short(o.ID, 60))
-		if ref := f.text("Station"); ref == "" {
-			f.errorf("Station", ErrRequired, "enter the ID of the station the object is at", "%s needs a Station", who)
-		} else if id, ok := f.resolve("Station", ref, stations, SheetStations, stPresent); ok {
-			o.Station = id
-		}
-		if mref := f.text("Material"); mref != "" {
-			o.Material = v.resolveMaterial(f, mref, mats)
-		}
-		o.Backing = f.enumValue("Backing", lists[ListBacking], map[string]string{"grounded": "earthed", "earth": "earthed", "on earthed metal": "earthed", "no": "none", "free": "none"})
-		o.BagType = bagTypeValue(f)
-		o.Filling = f.enumValue("Filling", lists[ListFilling], map[string]string{"dip tube": "dip pipe", "diptube": "dip pipe", "top fill": "top", "bottom fill": "bottom", "splash": "top"})
+		_ = p.row(t, rr)
+	}
+	return p.out
+}
 
-		var p = map[string]Parsed{}
-		q := func(name string) Quantity {
-			qq, pp := f.qty(name)
-			p[name] = pp
-			return qq
-		}
-		o.Length, o.Width, o.Diameter = q("Length"), q("Width"), q("Diameter")
-		o.Thickness, o.DistanceToEarth = q("Thickness"), q("Distance to earth")
-		o.Field, o.FieldDistance, o.SurfacePotential = q("Field"), q("Field distance"), q("Surface potential")
-		o.Speed, o.MassFlow, o.ChargeToMass = q("Speed"), q("Mass flow"), q("Charge-to-mass")
-		o.ChargingCurrent, o.ChargingTime, o.ParticleSize = q("Charging current"), q("Charging time"), q("Particle size")
-		o.Resistance, o.Capacitance = q("Resistance to earth"), q("Capacitance")
-		o.Conductivity, o.Permittivity = q("Conductivity"), q("Relative permittivity")
+// objectPass holds the state of validating the Objects sheet row by row.
+type objectPass struct {
+	v         *validator
+	out       map[string]refState // nil: not kept (no Changes rows refer to objects)
+	ids       idRegistry
+	seen      map[int]bool
+	lists     map[string][]string
+	stPresent bool
+	stations  map[string]refState
+	mats      map[string]matState
+	// quiet drops the row state of rows without problems (they are only counted),
+	// and each receives every accepted object instead of Survey.Objects.
+	quiet bool
+	each  func(Object) error
+}
 
-		// physical ranges
-		for _, n := range []struct {
-			name string
-			q    Quantity
-		}{{"Length", o.Length}, {"Width", o.Width}, {"Diameter", o.Diameter}, {"Thickness", o.Thickness},
-			{"Distance to earth", o.DistanceToEarth}, {"Field distance", o.FieldDistance}, {"Particle size", o.ParticleSize},
-			{"Charging time", o.ChargingTime}, {"Resistance to earth", o.Resistance}, {"Capacitance", o.Capacitance},
-			{"Conductivity", o.Conductivity}} {
-			f.positive(n.name, n.q)
-		}
-		for _, n := range []string{"Length", "Width", "Diameter"} {
-			qq := map[string]Quantity{"Length": o.Length, "Width": o.Width, "Diameter": o.Diameter}[n]
-			f.slip(n, qq, p[n], MaxSize, "larger than any plant object")
-		}
-		f.slip("Particle size", o.ParticleSize, p["Particle size"], MaxParticleSize, "above 100 mm, no powder")
-		f.nonNegative("Speed", o.Speed)
-		f.slip("Speed", o.Speed, p["Speed"], MaxSpeed, "faster than any web, belt or line flow")
-		f.nonNegative("Mass flow", o.MassFlow)
-		f.slip("Field", o.Field, p["Field"], MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
-		thinBacked := o.Backing == "earthed" && o.Thickness.Known && o.Thickness.Value < ThinLayer
-		if !thinBacked {
-			f.slip("Surface potential", o.SurfacePotential, p["Surface potential"], MaxSurfacePotential, "beyond what a plant object holds in air")
-		}
-		f.slip("Capacitance", o.Capacitance, p["Capacitance"], MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
-		if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
-			f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
-		}
-		if o.Permittivity.Known && (o.Permittivity.Value < 1 || o.Permittivity.Value > 100) {
-			f.errorf("Relative permittivity", ErrOutOfRange, "enter epsr, e.g. 2.4 for toluene", "relative permittivity %.4g is outside 1-100", o.Permittivity.Value)
-		}
-		if o.Field.Known && !o.FieldDistance.Known && f.text("Field distance") == "" {
-			f.errorf("Field distance", ErrRequired, "enter the meter-to-surface distance of the reading", "%s: a Field reading needs its Field distance", who)
-		}
-		v.kindNeeds(f, &o, who)
-		o.BagType = strings.ToUpper(o.BagType)
-		if o.Kind == KindBag && o.BagType == "" && f.text("Bag type") == "" {
-			f.warnf("Bag type", ErrRequired, "enter the bag type (A, B, C or D) from its label", "%s: no Bag type; assessed as the most restrictive case", who)
-		}
-		if o.Kind == KindBag && o.Station != "" {
-			if st, ok := v.s.Station(o.Station); ok && st.Atmosphere == "" {
-				f.errorf("Station", ErrRequired, "give the station an Atmosphere (kind dust with the product's MIE, or kind none for a non-combustible product)",
-					"%s: station %s has no Atmosphere; the product's MIE decides which bag types may be used", who, o.Station)
-			}
-		}
-		if (o.Kind == KindSheet || o.Kind == KindBelt) && o.Material == "" && f.text("Material") == "" {
-			f.warnf("Material", nil, "enter the material", "%s: no Material; the model takes default material properties", who)
-		}
-		accepted := !f.st.rejected()
-		if o.ID != "" && !dup {
-			out[o.ID] = refState{ID: o.ID, Row: rr.Row, Accepted: accepted}
-		}
-		if accepted {
-			v.s.Objects = append(v.s.Objects, o)
+func (v *validator) newObjectPass(stations map[string]refState, mats map[string]matState) *objectPass {
+	return &objectPass{v: v, out: map[string]refState{}, ids: idRegistry{}, seen: map[int]bool{}, lists: FixedLists(),
+		stPresent: v.tables[SheetStations].Present, stations: stations, mats: mats}
+}
+
+// row validates one Objects row; the error is each's.
+func (op *objectPass) row(t *table, rr rawRow) error {
+	v := op.v
+	f := v.beginRow(t, rr, "ID", op.seen)
+	o := Object{ID: f.st.id, Row: rr.Row, Description: f.text("Description"), Notes: f.text("Notes")}
+	dup := false
+	if o.ID == "" {
+		f.errorf("ID", ErrRequired, "give every object a unique ID", "ID is blank")
+	} else if !op.ids.check(f, "ID", o.ID) {
+		dup = true
+	}
+	if raw := f.text("Kind"); raw != "" {
+		if k, ok := kindHints()[NormalizeName(raw)]; ok {
+			// A word of the trade for a kind: the surveyor chooses, since the kind picks the model.
+			f.errorf("Kind", ErrNotInList, fmt.Sprintf("did you mean %q? (use one of: %s)", k, strings.Join(Kinds(), ", ")),
+				"%q is not one of the Kind values", short(raw, 60))
+		} else {
+			o.Kind = f.enumValue("Kind", op.lists[ListKind], nil)
 		}
 	}
-	return out
+	if o.Kind == "" && f.text("Kind") == "" {
+		f.errorf("Kind", ErrRequired, "use one of: "+strings.Join(Kinds(), ", "), "Kind is blank")
+	}
+	who := strings.TrimSpace(o.Kind + " " + short(o.ID, 60))
+	if ref := f.text("Station"); ref == "" {
+		f.errorf("Station", ErrRequired, "enter the ID of the station the object is at", "%s needs a Station", who)
+	} else if id, ok := f.resolve("Station", ref, op.stations, SheetStations, op.stPresent); ok {
+		o.Station = id
+	}
+	if mref := f.text("Material"); mref != "" {
+		o.Material = v.resolveMaterial(f, mref, op.mats)
+	}
+	o.Backing = f.enumValue("Backing", op.lists[ListBacking], map[string]string{"grounded": "earthed", "earth": "earthed", "on earthed metal": "earthed", "no": "none", "free": "none"})
+	o.BagType = bagTypeValue(f)
+	o.Filling = f.enumValue("Filling", op.lists[ListFilling], map[string]string{"dip tube": "dip pipe", "diptube": "dip pipe", "top fill": "top", "bottom fill": "bottom", "splash": "top"})
+
+	var p = map[string]Parsed{}
+	q := func(name string) Quantity {
+		qq, pp := f.qty(name)
+		p[name] = pp
+		return qq
+	}
+	o.Length, o.Width, o.Diameter = q("Length"), q("Width"), q("Diameter")
+	o.Thickness, o.DistanceToEarth = q("Thickness"), q("Distance to earth")
+	o.Field, o.FieldDistance, o.SurfacePotential = q("Field"), q("Field distance"), q("Surface potential")
+	o.Speed, o.MassFlow, o.ChargeToMass = q("Speed"), q("Mass flow"), q("Charge-to-mass")
+	o.ChargingCurrent, o.ChargingTime, o.ParticleSize = q("Charging current"), q("Charging time"), q("Particle size")
+	o.Resistance, o.Capacitance = q("Resistance to earth"), q("Capacitance")
+	o.Conductivity, o.Permittivity = q("Conductivity"), q("Relative permittivity")
+
+	// physical ranges
+	for _, n := range []struct {
+		name string
+		q    Quantity
+	}{{"Length", o.Length}, {"Width", o.Width}, {"Diameter", o.Diameter}, {"Thickness", o.Thickness},
+		{"Distance to earth", o.DistanceToEarth}, {"Field distance", o.FieldDistance}, {"Particle size", o.ParticleSize},
+		{"Charging time", o.ChargingTime}, {"Resistance to earth", o.Resistance}, {"Capacitance", o.Capacitance},
+		{"Conductivity", o.Conductivity}} {
+		f.positive(n.name, n.q)
+	}
+	for _, n := range []string{"Length", "Width", "Diameter"} {
+		qq := map[string]Quantity{"Length": o.Length, "Width": o.Width, "Diameter": o.Diameter}[n]
+		f.slip(n, qq, p[n], MaxSize, "larger than any plant object")
+	}
+	f.slip("Particle size", o.ParticleSize, p["Particle size"], MaxParticleSize, "above 100 mm, no powder")
+	f.nonNegative("Speed", o.Speed)
+	f.slip("Speed", o.Speed, p["Speed"], MaxSpeed, "faster than any web, belt or line flow")
+	f.nonNegative("Mass flow", o.MassFlow)
+	f.slip("Field", o.Field, p["Field"], MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
+	thinBacked := o.Backing == "earthed" && o.Thickness.Known && o.Thickness.Value < ThinLayer
+	if !thinBacked {
+		f.slip("Surface potential", o.SurfacePotential, p["Surface potential"], MaxSurfacePotential, "beyond what a plant object holds in air")
+	}
+	f.slip("Capacitance", o.Capacitance, p["Capacitance"], MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
+	if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
+		f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
+	}
+	if o.Permittivity.Known && (o.Permittivity.Value < 1 || o.Permittivity.Value > 100) {
+		f.errorf("Relative permittivity", ErrOutOfRange, "enter epsr, e.g. 2.4 for toluene", "relative permittivity %.4g is outside 1-100", o.Permittivity.Value)
+	}
+	if o.Field.Known && !o.FieldDistance.Known && f.text("Field distance") == "" {
+		f.errorf("Field distance", ErrRequired, "enter the meter-to-surface distance of the reading", "%s: a Field reading needs its Field distance", who)
+	}
+	v.kindNeeds(f, &o, who)
+	o.BagType = strings.ToUpper(o.BagType)
+	if o.Kind == KindBag && o.BagType == "" && f.text("Bag type") == "" {
+		f.warnf("Bag type", ErrRequired, "enter the bag type (A, B, C or D) from its label", "%s: no Bag type; assessed as the most restrictive case", who)
+	}
+	if o.Kind == KindBag && o.Station != "" {
+		if st, ok := v.s.Station(o.Station); ok && st.Atmosphere == "" {
+			f.errorf("Station", ErrRequired, "give the station an Atmosphere (kind dust with the product's MIE, or kind none for a non-combustible product)",
+				"%s: station %s has no Atmosphere; the product's MIE decides which bag types may be used", who, o.Station)
+		}
+	}
+	if (o.Kind == KindSheet || o.Kind == KindBelt) && o.Material == "" && f.text("Material") == "" {
+		f.warnf("Material", nil, "enter the material", "%s: no Material; the model takes default material properties", who)
+	}
+	accepted := !f.st.rejected()
+	if o.ID != "" && !dup && op.out != nil {
+		op.out[o.ID] = refState{ID: o.ID, Row: rr.Row, Accepted: accepted}
+	}
+	if op.quiet && len(f.st.probs) == 0 && len(f.st.shared) == 0 {
+		// A row with no problem needs no row state: it is counted.
+		rows := v.rows[t.Sheet]
+		v.rows[t.Sheet] = rows[:len(rows)-1]
+		v.quiet[t.Sheet]++
+	}
+	if !accepted {
+		return nil
+	}
+	if op.each != nil {
+		return op.each(o)
+	}
+	v.s.Objects = append(v.s.Objects, o)
+	return nil
 }
 
 // kindHints maps words surveyors use for things to the kind that models them,

@@ -1,0 +1,108 @@
+package inventory
+
+import (
+	"fmt"
+	"runtime/debug"
+)
+
+// streamHooks are the callbacks of StreamFile and what they are told.
+type streamHooks struct {
+	begin     func(*Survey) error
+	each      func(Object) error
+	path, sha string
+}
+
+// call runs fn and turns a panic in it into an error, so that a fault in the
+// caller's code is not reported as an unreadable workbook.
+func call(fn func() error) (err error) {
+	defer func() {
+		if p := recover(); p != nil {
+			err = fmt.Errorf("panic while handling a survey object: %v\n%s", p, debug.Stack())
+		}
+	}()
+	return fn()
+}
+
+// StreamFile reads and validates the survey at path as ReadFile does, but
+// hands every accepted object to each, in sheet order, instead of keeping it
+// in Survey.Objects, so that memory grows with the stations, problems and
+// rejected rows, not with the objects: Objects rows are validated as they are
+// streamed in, and a row without any problem keeps no state (it is counted).
+//
+// begin is called once, before the first object, with the survey as far as it
+// is known then: Path, SHA256, Site, Atmospheres, Stations and Materials (the
+// Changes sheet is validated after the objects, and Problems, Rejected and
+// Counts are complete only in the survey returned). The survey returned is
+// the one ReadFile would return, except that Objects is nil. An error from
+// begin or each stops the reading and is returned as it is; a file that is not
+// a readable workbook gives an error wrapping ErrUnreadable, and begin is then
+// not called.
+func StreamFile(path string, opts ReadOptions, begin func(*Survey) error, each func(Object) error) (*Survey, error) {
+	if begin == nil {
+		begin = func(*Survey) error { return nil }
+	}
+	return readFile(path, opts, &streamHooks{begin: begin, each: each})
+}
+
+// stream reads the workbook with the Objects rows validated as they come.
+func (r *reader) stream(h *streamHooks) (*Survey, error) {
+	s, site := r.readSheets()
+	s.Path, s.SHA256 = h.path, h.sha
+	tables := map[string]*table{}
+	for _, sh := range []string{SheetAtmospheres, SheetStations, SheetMaterials, SheetChanges} {
+		tables[sh] = r.readTable(sh)
+	}
+	_, present := r.sheets[NormalizeName(SheetObjects)]
+	tables[SheetObjects] = &table{Sheet: SheetObjects, Present: present}
+	v := newValidator(s, tables)
+	v.tableProblems(SheetAtmospheres, SheetStations, SheetMaterials, SheetChanges)
+	mats, stations := v.begin(site)
+	if err := call(func() error { return h.begin(s) }); err != nil {
+		return nil, err
+	}
+	p := v.newObjectPass(stations, mats)
+	p.quiet = true
+	p.each = func(o Object) error { return call(func() error { return h.each(o) }) }
+	if len(tables[SheetChanges].Rows) == 0 {
+		p.out = nil // nothing refers to the objects: their IDs need not be kept twice
+	}
+	// The first maxBoolCheckRows rows are held back so that a survey-sized
+	// sheet gets the same check for booleans as ReadFile gives it; a larger
+	// sheet gets none (as with ReadFile) and its rows go through one by one.
+	var failed error
+	buffering := true
+	r.rowHook, r.hookSheet = func(t *table, rr rawRow) bool {
+		if buffering {
+			if len(t.Rows) < maxBoolCheckRows {
+				t.Rows = append(t.Rows, rr)
+				return true
+			}
+			buffering = false
+			for _, b := range t.Rows {
+				if failed = p.row(t, b); failed != nil {
+					return false
+				}
+			}
+			t.Rows = nil
+		}
+		failed = p.row(t, rr)
+		return failed == nil
+	}, SheetObjects
+	t := r.readTable(SheetObjects)
+	r.rowHook = nil
+	if failed != nil {
+		return nil, failed
+	}
+	tables[SheetObjects] = t
+	v.tableProblems(SheetObjects)
+	// Rows still held back (a sheet of at most maxBoolCheckRows rows), or the
+	// rows of a sheet without a header (every one rejected).
+	for _, b := range t.Rows {
+		if err := p.row(t, b); err != nil {
+			return nil, err
+		}
+	}
+	t.Rows = nil
+	v.end(stations, p.out, t.rowsSeen)
+	return s, nil
+}
