@@ -308,20 +308,20 @@ type table struct {
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
 	Rows      []rawRow
-	rowsSeen  int // data rows read below the header (kept in Rows or handed to the row hook)
+	rowsSeen  int       // data rows read below the header (kept in Rows or handed to the row hook)
 	Problems  []Problem // sheet and header problems
 }
 
 // reader holds one open workbook while it is read.
 type reader struct {
-	f        *excelize.File
-	opts     ReadOptions
+	f    *excelize.File
+	opts ReadOptions
 	// rowHook, when set, receives the data rows of hookSheet below its header
 	// instead of Rows; it returns false to stop reading the sheet.
 	rowHook   func(t *table, rr rawRow) bool
 	hookSheet string
-	date1904 bool
-	sheets   map[string]string // normalised name -> actual
+	date1904  bool
+	sheets    map[string]string // normalised name -> actual
 }
 
 // helperSheets are sheet names a template or a spreadsheet program may add that
