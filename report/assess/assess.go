@@ -39,6 +39,32 @@ const DryDayHumidity = 30.0
 // opts.Limits are used as given; a zero Limits takes model.DefaultLimits with the
 // Site sheet's overrides (LimitsFromSite) merged, and Audit.Options records them.
 func Assess(s *inventory.Survey, opts Options) *Audit {
+	a, ctx := prepare(s, opts)
+	margin := ctx.margin
+	a.Objects = make([]ObjectResult, len(s.Objects))
+	for i := range s.Objects {
+		a.Objects[i] = ctx.assess(&s.Objects[i])
+		a.Counts[a.Objects[i].Verdict]++
+	}
+	a.Stations = Rank(s, a.Objects)
+	if a.Options.Samples > 0 {
+		if a.Options.Seed == 0 {
+			a.Options.Seed = DefaultSeed
+		}
+		if a.Options.Uncertainties == nil {
+			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
+		}
+		monteCarlo(a, margin)
+	}
+	a.Findings = orderFindings(a.Objects, a.Stations)
+	a.MethodDefaults = methodDefaults(a.Objects)
+	return a
+}
+
+// prepare resolves the options (limits from the Site sheet when none are
+// given) and the site-wide values every object is assessed with; it returns
+// the empty audit and the object context (shared by Assess and Streamer).
+func prepare(s *inventory.Survey, opts Options) (*Audit, objectContext) {
 	if opts.Limits == (model.Limits{}) {
 		opts.Limits, _ = LimitsFromSite(s.Site, model.DefaultLimits())
 	}
@@ -76,25 +102,7 @@ func Assess(s *inventory.Survey, opts Options) *Audit {
 			site = append(site, Default{Field: "Site", Value: d, Reason: "Site sheet default"})
 		}
 	}
-	ctx := objectContext{survey: s, lim: &opts.Limits, margin: margin, temperature: temperature, siteDefaults: site}
-	a.Objects = make([]ObjectResult, len(s.Objects))
-	for i := range s.Objects {
-		a.Objects[i] = ctx.assess(&s.Objects[i])
-		a.Counts[a.Objects[i].Verdict]++
-	}
-	a.Stations = Rank(s, a.Objects)
-	if a.Options.Samples > 0 {
-		if a.Options.Seed == 0 {
-			a.Options.Seed = DefaultSeed
-		}
-		if a.Options.Uncertainties == nil {
-			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
-		}
-		monteCarlo(a, margin)
-	}
-	a.Findings = orderFindings(a.Objects, a.Stations)
-	a.MethodDefaults = methodDefaults(a.Objects)
-	return a
+	return a, objectContext{survey: s, lim: &opts.Limits, margin: margin, temperature: temperature, siteDefaults: site}
 }
 
 type objectContext struct {

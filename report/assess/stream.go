@@ -1,0 +1,223 @@
+package assess
+
+import (
+	"cmp"
+	"runtime"
+	"slices"
+	"sync"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+)
+
+// Streamer assesses a survey's objects batch by batch, as they are read, and
+// keeps only what grows with the stations and findings: the station
+// aggregates (counts, worst ratio, the object IDs at each station), the
+// findings, the defaults applied and, when sampling, each station's
+// probability that no object is incendive. It gives the same results as
+// Assess (stations, ranks, findings and their order, counts, defaults,
+// probabilities), for surveys too large to hold every ObjectResult.
+//
+// Use: NewStreamer with the survey as far as it is known before its objects
+// (Site, Atmospheres, Stations, Materials: what inventory.StreamFile gives its
+// begin callback), Add for each batch of objects in survey order, Finish once.
+type Streamer struct {
+	a       *Audit
+	ctx     objectContext
+	tab     [NumUncertainInputs]Uncertainty
+	workers int
+	samp    []*sampler
+
+	index    map[string]int // station ID -> position in stations
+	stations []StationResult
+	findings []keyedFinding
+	none     map[string]float64 // per station: probability that no object is incendive
+	seen     int                // objects assessed so far
+	results  []ObjectResult
+}
+
+type keyedFinding struct {
+	f        Finding
+	obj, seq int
+}
+
+// NewStreamer prepares the assessment of survey s with opts, as Assess does
+// (limits from the Site sheet when opts.Limits is zero; with Samples > 0 the
+// seed and uncertainty table resolved and recorded in the audit's Options).
+func NewStreamer(s *inventory.Survey, opts Options) *Streamer {
+	a, ctx := prepare(s, opts)
+	if a.Options.Samples > 0 {
+		if a.Options.Seed == 0 {
+			a.Options.Seed = DefaultSeed
+		}
+		if a.Options.Uncertainties == nil {
+			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
+		}
+	}
+	st := &Streamer{a: a, ctx: ctx, index: map[string]int{}, none: map[string]float64{}}
+	st.tab = uncertaintyTable(a.Options.Uncertainties)
+	st.workers = a.Options.Workers
+	if st.workers <= 0 {
+		st.workers = runtime.GOMAXPROCS(0)
+	}
+	for _, sta := range s.Stations {
+		sr := StationResult{Station: sta, Verdict: NotAssessed, Counts: zeroCounts()}
+		if at, ok := s.Atmosphere(sta.Atmosphere); ok && sta.Atmosphere != "" {
+			sr.Atmosphere = &at
+		}
+		st.index[sta.ID] = len(st.stations)
+		st.stations = append(st.stations, sr)
+	}
+	return st
+}
+
+// Options returns the options the assessment runs with (resolved as Audit.Options).
+func (st *Streamer) Options() Options { return st.a.Options }
+
+// Add assesses a batch of objects (the next ones in survey order) and returns
+// their results, with their Probability when sampling (the Monte Carlo runs
+// on the batch with Options.Workers goroutines). The slice returned is reused
+// by the next call: copy what must outlive it.
+func (st *Streamer) Add(objs []inventory.Object) []ObjectResult {
+	st.results = slices.Grow(st.results[:0], len(objs))[:len(objs)]
+	for i := range objs {
+		st.results[i] = st.ctx.assess(&objs[i])
+	}
+	if st.a.Options.Samples > 0 && len(objs) > 0 {
+		st.sample(st.results)
+	}
+	for i := range st.results {
+		st.aggregate(&st.results[i])
+	}
+	return st.results
+}
+
+// sample fills the Probability of every result of the batch.
+func (st *Streamer) sample(rs []ObjectResult) {
+	opts := &st.a.Options
+	w := min(st.workers, len(rs))
+	for len(st.samp) < w {
+		st.samp = append(st.samp, newSampler(opts.Seed, opts.Samples, &opts.Limits, st.ctx.margin, &st.tab, st.a.Survey.Site.RelativeHumidity))
+	}
+	probs := make([]Probability, len(rs))
+	var wg sync.WaitGroup
+	for k := 0; k < w; k++ {
+		wg.Add(1)
+		go func(s *sampler) {
+			defer wg.Done()
+			for i := k; i < len(rs); i += w {
+				probs[i] = s.object(&rs[i])
+			}
+		}(st.samp[k])
+	}
+	wg.Wait()
+	for i := range rs {
+		rs[i].Probability = &probs[i]
+	}
+}
+
+// aggregate adds one result to the station aggregates, findings, counts and defaults.
+func (st *Streamer) aggregate(o *ObjectResult) {
+	a := st.a
+	a.Counts[o.Verdict]++
+	j, ok := st.index[o.Station.ID]
+	if !ok {
+		j = len(st.stations)
+		st.index[o.Station.ID] = j
+		st.stations = append(st.stations, StationResult{Station: o.Station, Verdict: NotAssessed, Counts: zeroCounts()})
+	}
+	sr := &st.stations[j]
+	if len(sr.Objects) == 0 || o.Verdict.Severity() > sr.Verdict.Severity() {
+		sr.Verdict = o.Verdict
+	}
+	sr.Objects = append(sr.Objects, o.Object.ID)
+	sr.Counts[o.Verdict]++
+	if o.Ratio != nil && (sr.WorstRatio == nil || *o.Ratio > *sr.WorstRatio) {
+		r := *o.Ratio
+		sr.WorstRatio = &r
+	}
+	for k, f := range o.Findings {
+		st.findings = append(st.findings, keyedFinding{f, st.seen, k})
+	}
+	if p := o.Probability; p != nil {
+		id := o.Object.Station
+		if _, ok := st.none[id]; !ok {
+			st.none[id] = 1
+		}
+		st.none[id] *= 1 - p.Incendive
+	}
+	a.MethodDefaults = mergeDefaults(a.MethodDefaults, o.Defaults)
+	st.seen++
+}
+
+// mergeDefaults adds ds to the method defaults as methodDefaults does.
+func mergeDefaults(out, ds []Default) []Default {
+	for _, d := range ds {
+		found := false
+		for j := range out {
+			if out[j].Field == d.Field && out[j].Reason == d.Reason {
+				if out[j].Value != d.Value {
+					out[j].Value = "per object (see Objects)"
+				}
+				found = true
+				break
+			}
+		}
+		if !found {
+			out = append(out, d)
+		}
+	}
+	return out
+}
+
+// Objects returns the number of objects assessed so far.
+func (st *Streamer) Objects() int { return st.seen }
+
+// Finish ranks the stations, orders the findings and returns the audit: the
+// same as Assess's, except that Objects is nil (each result was handed out by
+// Add) and Survey is the survey given to NewStreamer (pass the completed one,
+// with its final Problems and Counts, by setting Audit.Survey). The Streamer
+// is not to be used afterwards.
+func (st *Streamer) Finish() *Audit {
+	a := st.a
+	slices.SortStableFunc(st.stations, compareStations)
+	for i := range st.stations {
+		st.stations[i].Rank = i + 1
+	}
+	a.Stations = st.stations
+	if a.Options.Samples > 0 {
+		for k := range a.Stations {
+			s := &a.Stations[k]
+			q, ok := st.none[s.Station.ID]
+			if !ok {
+				q = 1
+			}
+			any := 1 - q
+			s.ProbabilityAnyIncendive = &any
+		}
+	}
+	rank := make(map[string]int, len(a.Stations))
+	for _, s := range a.Stations {
+		rank[s.Station.ID] = s.Rank
+	}
+	all := st.findings
+	slices.SortStableFunc(all, func(x, y keyedFinding) int {
+		if c := cmp.Compare(y.f.Severity.Severity(), x.f.Severity.Severity()); c != 0 {
+			return c
+		}
+		if c := cmp.Compare(rank[x.f.StationID], rank[y.f.StationID]); c != 0 {
+			return c
+		}
+		if c := cmp.Compare(x.obj, y.obj); c != 0 {
+			return c
+		}
+		return cmp.Compare(x.seq, y.seq)
+	})
+	if len(all) > 0 {
+		a.Findings = make([]Finding, len(all))
+		for i := range all {
+			a.Findings[i] = all[i].f
+		}
+	}
+	st.findings = nil
+	return a
+}
