@@ -174,6 +174,21 @@ func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if a == nil || a.Survey == nil {
 		return errors.New("write JSON: no audit or no survey")
 	}
+	doc := jsonDoc(a, info)
+	for i := range a.Objects {
+		doc.Objects = append(doc.Objects, objectJSON(&a.Objects[i]))
+	}
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(doc); err != nil {
+		return fmt.Errorf("write JSON: %w", err)
+	}
+	return nil
+}
+
+// jsonDoc builds the JSON document of a, without its objects.
+func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 	s := a.Survey
 	doc := jsonAudit{
 		Tool:   jsonTool{info.tool(), info.ToolVersion},
@@ -223,9 +238,6 @@ func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
 		}
 		doc.Stations = append(doc.Stations, js)
 	}
-	for i := range a.Objects {
-		doc.Objects = append(doc.Objects, objectJSON(&a.Objects[i]))
-	}
 	for _, r := range problemRows(s) {
 		if r.p.Severity == inventory.Warning {
 			doc.Warnings = append(doc.Warnings, problemJSON(r.p))
@@ -233,13 +245,7 @@ func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
 			doc.Rejected = append(doc.Rejected, problemJSON(r.p))
 		}
 	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	enc.SetEscapeHTML(false)
-	if err := enc.Encode(doc); err != nil {
-		return fmt.Errorf("write JSON: %w", err)
-	}
-	return nil
+	return doc
 }
 
 func objectJSON(o *assess.ObjectResult) jsonObject {

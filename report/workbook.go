@@ -256,20 +256,45 @@ func tableSheetNormal[T any](wb *workbook, sheet string, cols []column[T], rows 
 // tableSheetStream writes a table through a StreamWriter; the autofilter and
 // print setup are made on the empty sheet first, which the stream keeps.
 func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int, row func(i int) T, pagesWide int, titleCols string, freezeCols int) error {
-	last := n + 1
-	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(cols)), last), nil); err != nil {
-		return err
-	}
-	if err := wb.printSetup(sheet, pagesWide, "$1:$1", titleCols); err != nil {
-		return err
-	}
-	sw, err := wb.f.NewStreamWriter(sheet)
+	ts, err := openTableStream(wb, sheet, cols, n, pagesWide, titleCols, freezeCols)
 	if err != nil {
 		return err
 	}
+	for i := 0; i < n; i++ {
+		if err := ts.row(row(i)); err != nil {
+			return err
+		}
+	}
+	return ts.sw.Flush()
+}
+
+// tableStream is a table sheet being written through a StreamWriter.
+type tableStream[T any] struct {
+	sw     *excelize.StreamWriter
+	sink   streamSink
+	cols   []column[T]
+	widths []float64
+	next   int // sheet row of the next data row
+}
+
+// openTableStream sets up a streamed table sheet for n data rows (the
+// autofilter range; see the WorkbookWriter for a count known only at the end)
+// and writes its header row.
+func openTableStream[T any](wb *workbook, sheet string, cols []column[T], n int, pagesWide int, titleCols string, freezeCols int) (*tableStream[T], error) {
+	last := n + 1
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(cols)), last), nil); err != nil {
+		return nil, err
+	}
+	if err := wb.printSetup(sheet, pagesWide, "$1:$1", titleCols); err != nil {
+		return nil, err
+	}
+	sw, err := wb.f.NewStreamWriter(sheet)
+	if err != nil {
+		return nil, err
+	}
 	for i, c := range cols {
 		if err := sw.SetColWidth(i+1, i+1, c.width); err != nil {
-			return err
+			return nil, err
 		}
 	}
 	top, _ := excelize.CoordinatesToCellName(freezeCols+1, 2)
@@ -278,20 +303,23 @@ func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int
 		pane = "bottomRight"
 	}
 	if err := sw.SetPanes(&excelize.Panes{Freeze: true, XSplit: freezeCols, YSplit: 1, TopLeftCell: top, ActivePane: pane}); err != nil {
+		return nil, err
+	}
+	ts := &tableStream[T]{sw: sw, sink: streamSink{sw: sw, st: wb.st}, cols: cols, widths: widthsOf(cols), next: 2}
+	if err := ts.sink.header(1, headers(cols)); err != nil {
+		return nil, err
+	}
+	return ts, nil
+}
+
+// row writes the next data row.
+func (ts *tableStream[T]) row(v T) error {
+	cells := rowCells(ts.cols, v)
+	if err := ts.sink.row(ts.next, cells, rowHeight(ts.widths, cells)); err != nil {
 		return err
 	}
-	sink := streamSink{sw: sw, st: wb.st}
-	if err := sink.header(1, headers(cols)); err != nil {
-		return err
-	}
-	widths := widthsOf(cols)
-	for i := 0; i < n; i++ {
-		cells := rowCells(cols, row(i))
-		if err := sink.row(i+2, cells, rowHeight(widths, cells)); err != nil {
-			return err
-		}
-	}
-	return sw.Flush()
+	ts.next++
+	return nil
 }
 
 // ---- Stations ----
