@@ -1,6 +1,7 @@
 package inventory
 
 import (
+	"archive/zip"
 	"bytes"
 	"crypto/sha256"
 	"encoding/hex"
@@ -131,6 +132,13 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if why := sniff(head.b, n); why != "" {
 		return nil, &UnreadableError{Path: path, Reason: why}
 	}
+	if zr, err := zip.OpenReader(path); err == nil {
+		why := checkParts(&zr.Reader, opts)
+		zr.Close()
+		if why != "" {
+			return nil, &UnreadableError{Path: path, Reason: why}
+		}
+	}
 	sum := hex.EncodeToString(h.Sum(nil))
 	if hooks != nil {
 		hooks.path, hooks.sha = path, sum
@@ -155,6 +163,11 @@ func Read(data []byte, name string, opts ReadOptions) (*Survey, error) {
 	}
 	if why := sniff(data, int64(len(data))); why != "" {
 		return nil, &UnreadableError{Path: name, Reason: why}
+	}
+	if zr, err := zip.NewReader(bytes.NewReader(data), int64(len(data))); err == nil {
+		if why := checkParts(zr, opts); why != "" {
+			return nil, &UnreadableError{Path: name, Reason: why}
+		}
 	}
 	s, err := openAndRead(name, opts, func(o excelize.Options) (*excelize.File, error) {
 		return excelize.OpenReader(bytes.NewReader(data), o)
