@@ -317,6 +317,7 @@ type table struct {
 	Cols      map[int]HeaderMatch // by 0-based column index
 	Headed    map[int]bool        // columns with a non-blank header cell (known or not)
 	Bool      map[string]bool     // A1 references of cells stored as booleans in numeric columns
+	Formula   map[string]string   // A1 references of formula cells without a stored result, with the formula
 	Index     map[string]int      // column name -> index (first occurrence)
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
@@ -541,20 +542,38 @@ func (r *reader) readTable(sheet string) *table {
 const maxBoolCheckRows = 5000
 
 // findBooleans marks numeric cells stored as booleans (TRUE/FALSE), which the
-// streaming reader returns as 1 and 0. Only cells reading exactly 0 or 1 are
-// asked about, after the rows are streamed.
+// streaming reader returns as 1 and 0, and formula cells of known columns
+// that hold no stored result, which it returns as blank (the reader never
+// calculates a formula, so such a cell has no value; it must not pass for
+// "not measured"). Only cells reading exactly 0 or 1, or blank, are asked
+// about, after the rows are streamed. A formula without a result in a numeric
+// column gets "=formula" as its text, so that the cell counts as given.
 func (r *reader) findBooleans(t *table) {
 	t.Bool = map[string]bool{}
+	t.Formula = map[string]string{}
 	if len(t.Rows) > maxBoolCheckRows {
 		return
 	}
 	for _, rr := range t.Rows {
-		for i, c := range rr.Cells {
-			m, ok := t.Cols[i]
-			if !ok || m.Column.Dim == Text || m.Column.Dim == Date || (c != "0" && c != "1") {
-				continue
+		for i, m := range t.Cols {
+			c := ""
+			if i < len(rr.Cells) {
+				c = rr.Cells[i]
 			}
 			ref := fmt.Sprintf("%s%d", ColumnLetter(i), rr.Row)
+			numeric := m.Column.Dim != Text && m.Column.Dim != Date
+			if strings.TrimSpace(c) == "" {
+				if fm, err := r.f.GetCellFormula(t.Actual, ref); err == nil && strings.TrimSpace(fm) != "" {
+					t.Formula[ref] = fm
+					if numeric && i < len(rr.Cells) {
+						rr.Cells[i] = "=" + fm
+					}
+				}
+				continue
+			}
+			if !numeric || (c != "0" && c != "1") {
+				continue
+			}
 			if ct, err := r.f.GetCellType(t.Actual, ref); err == nil && ct == excelize.CellTypeBool {
 				t.Bool[ref] = true
 			}

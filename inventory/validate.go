@@ -33,6 +33,9 @@ var (
 	ErrInconsistent = errors.New("inconsistent values")
 	// ErrMissingSheet: a sheet the survey needs is missing.
 	ErrMissingSheet = errors.New("missing sheet")
+	// ErrFormulaWithoutValue: a formula cell holds no stored result (the
+	// reader never calculates formulas).
+	ErrFormulaWithoutValue = errors.New("formula without a stored result")
 )
 
 // Plausibility limits used by validation. Air breaks down at about 3 MV/m over
@@ -131,6 +134,11 @@ func (f *field) text(name string) string {
 // qty parses a numeric cell; the returned Parsed keeps the written number for suggestions.
 func (f *field) qty(name string) (Quantity, Parsed) {
 	text, ref, ok := f.t.cell(f.rr, name)
+	if fm, isFormula := f.t.Formula[ref]; ok && isFormula {
+		f.errorf(name, ErrFormulaWithoutValue, "open the workbook in a spreadsheet program so that it calculates, save it and check again; or type the value",
+			"the cell holds the formula =%s but no stored result, and formulas are never calculated here", short(fm, 60))
+		return Quantity{Cell: ref}, Parsed{}
+	}
 	if !ok || text == "" {
 		return Quantity{Cell: ref}, Parsed{}
 	}
@@ -455,6 +463,18 @@ func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]boo
 	st.shared = append(st.shared, t.Missing...)
 	if rr.Hidden {
 		f.warnf("", nil, "", "the row is hidden; it is read like any other")
+	}
+	// A formula without a stored result in a text or date column (numeric
+	// columns report it where the number is parsed).
+	for i := 0; i < len(rr.Cells) || i < 64; i++ {
+		m, ok := t.Cols[i]
+		if !ok || (m.Column.Dim != Text && m.Column.Dim != Date) {
+			continue
+		}
+		if fm, ok := t.Formula[fmt.Sprintf("%s%d", ColumnLetter(i), rr.Row)]; ok {
+			f.errorf(m.Column.Name, ErrFormulaWithoutValue, "open the workbook in a spreadsheet program so that it calculates, save it and check again; or type the text",
+				"the cell holds the formula =%s but no stored result, and formulas are never calculated here", short(fm, 60))
+		}
 	}
 	v.unheaded(t, st, rr, seen)
 	return f
