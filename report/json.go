@@ -17,6 +17,7 @@ import (
 // is null: not defined for the kind, not measured, or no atmosphere.
 type jsonAudit struct {
 	Tool     jsonTool      `json:"tool"`
+	Options  *jsonOptions  `json:"options,omitempty"`
 	Survey   jsonSurvey    `json:"survey"`
 	Site     jsonSite      `json:"site"`
 	Counts   jsonCounts    `json:"counts"`
@@ -30,6 +31,24 @@ type jsonAudit struct {
 type jsonTool struct {
 	Name    string `json:"name"`
 	Version string `json:"version"`
+}
+
+// jsonOptions records how the assessment sampled (present when it did).
+type jsonOptions struct {
+	Samples       int               `json:"samples"`
+	Seed          uint64            `json:"seed"`
+	Uncertainties []jsonUncertainty `json:"uncertainties"`
+}
+
+// jsonUncertainty is one row of the uncertainty table; spread is the standard
+// deviation: relative (normal, relative), SI or %RH (normal, absolute), of ln (log-normal).
+type jsonUncertainty struct {
+	Input        string  `json:"input"`
+	Distribution string  `json:"distribution"`
+	Spread       float64 `json:"spread"`
+	Text         string  `json:"text"`
+	SiteItem     string  `json:"site_item"`
+	Overridden   bool    `json:"overridden"`
 }
 
 type jsonSurvey struct {
@@ -211,6 +230,16 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 		Rejected: []jsonProblem{},
 		Warnings: []jsonProblem{},
 		Cautions: templates.Cautions(),
+	}
+	if a.Options.Samples > 0 {
+		tab := a.Options.Uncertainties
+		if tab == nil {
+			tab = assess.DefaultUncertainties()
+		}
+		doc.Options = &jsonOptions{Samples: a.Options.Samples, Seed: a.Options.Seed, Uncertainties: []jsonUncertainty{}}
+		for _, u := range tab {
+			doc.Options.Uncertainties = append(doc.Options.Uncertainties, jsonUncertainty{u.Name, u.Dist.String(), u.Spread, u.Text(), u.SiteItem(), u.Overridden})
+		}
 	}
 	if !s.Site.SurveyDate.IsZero() {
 		doc.Site.SurveyDate = s.Site.SurveyDate.UTC().Format("2006-01-02")

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -333,6 +334,13 @@ func (wb *workbook) method() error {
 	}
 	r++
 
+	if a.Options.Samples > 0 {
+		if err := wb.methodUncertainty(section, put); err != nil {
+			return err
+		}
+		r++
+	}
+
 	if err := section("Materials used", []string{"Material", "Class", UnitOhmSq.Header("Surface resistivity at 50 % RH"), "Slope [dec/10 %RH]", "Source"}); err != nil {
 		return err
 	}
@@ -360,4 +368,38 @@ func (wb *workbook) method() error {
 func leftAligned(c cell) cell {
 	c.align = "left"
 	return c
+}
+
+// methodUncertainty lists the uncertainty table the Monte Carlo drew from
+// (Audit.Options.Uncertainties; the defaults when the audit recorded none),
+// how a cell's own "±x %" is taken, and how the draws were made.
+func (wb *workbook) methodUncertainty(section func(string, []string) error, put func(...cell) error) error {
+	a := wb.a
+	if err := section("Uncertainty (Monte Carlo)", []string{"Input", "Uncertainty (one standard deviation)", "Distribution", "Site item", "Why"}); err != nil {
+		return err
+	}
+	tab := a.Options.Uncertainties
+	if tab == nil {
+		tab = assess.DefaultUncertainties()
+	}
+	for _, u := range tab {
+		v := u.Text()
+		switch {
+		case u.Spread == 0:
+			v = "not drawn"
+		case u.Overridden:
+			v += " (Site sheet)"
+		}
+		if err := put(wrapText(u.Name), wrapText(v), text(u.Dist.String()), wrapText(u.SiteItem()), wrapText(u.Note)); err != nil {
+			return err
+		}
+	}
+	if err := put(wrapText("A cell's own uncertainty"), wrapText("\"12 kV ±10%\" wins over the table"), text("relative"), cell{},
+		wrapText("a relative standard uncertainty; a log-normal row takes it as a factor 1 + x")); err != nil {
+		return err
+	}
+	return put(wrapText("Draws"), wrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), cell{}, cell{},
+		wrapText("each object its own stream (seed and object ID): results depend neither on the number of workers nor on the row order; "+
+			"inputs drawn independently, materials and limits not drawn; a station's P(any incendive) is 1 - Π(1 - P(incendive)) over its objects, "+
+			"taken as independent (an upper bound, since they share the MIE and humidity)"))
 }

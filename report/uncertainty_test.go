@@ -1,0 +1,50 @@
+package report
+
+import (
+	"bytes"
+	"encoding/json"
+	"strings"
+	"testing"
+)
+
+// The fixture sampled 1000 draws with seed 7: the Method sheet lists the
+// uncertainty table and the draws, the JSON records the options.
+func TestMethodUncertaintyAndJSONOptions(t *testing.T) {
+	f := openWorkbook(t, testWorkbook(t))
+	flat := ""
+	for _, r := range rowsOf(t, f, SheetMethod) {
+		flat += strings.Join(r, "|") + "\n"
+	}
+	for _, want := range []string{
+		"Uncertainty (Monte Carlo)",
+		// The default table's documented choices (report/assess DefaultUncertainties).
+		"Field reading|±10 %|normal (relative)|Uncertainty field [%]",
+		"Resistance to earth|±0.5 decade|log-normal|Uncertainty resistance [decades]",
+		"MIE, dust or hybrid|×/÷ 2|log-normal|Uncertainty MIE dust [factor]",
+		"Draws|1000 per object, seed 7",
+	} {
+		if !strings.Contains(flat, want) {
+			t.Errorf("Method lacks %q", want)
+		}
+	}
+	var b bytes.Buffer
+	if err := WriteJSON(&b, testAudit(), testInfo()); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct {
+		Options *struct {
+			Samples       int    `json:"samples"`
+			Seed          uint64 `json:"seed"`
+			Uncertainties []struct {
+				Input string `json:"input"`
+				Text  string `json:"text"`
+			} `json:"uncertainties"`
+		} `json:"options"`
+	}
+	if err := json.Unmarshal(b.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if doc.Options == nil || doc.Options.Samples != 1000 || doc.Options.Seed != 7 || len(doc.Options.Uncertainties) == 0 {
+		t.Fatalf("options %+v, want 1000 samples, seed 7 and the table", doc.Options)
+	}
+}
