@@ -9,6 +9,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strconv"
 	"strings"
 	"unicode/utf8"
 
@@ -318,6 +319,7 @@ type table struct {
 	Headed    map[int]bool        // columns with a non-blank header cell (known or not)
 	Bool      map[string]bool     // A1 references of cells stored as booleans in numeric columns
 	Formula   map[string]string   // A1 references of formula cells without a stored result, with the formula
+	Dated     map[string]string   // A1 references of numbers formatted as dates in numeric columns, with the date shown
 	Index     map[string]int      // column name -> index (first occurrence)
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
@@ -336,6 +338,8 @@ type reader struct {
 	hookSheet string
 	date1904  bool
 	sheets    map[string]string // normalised name -> actual
+	// dateStyles caches whether a style index shows dates (see dateStyled).
+	dateStyles map[int]bool
 }
 
 // helperSheets are sheet names a template or a spreadsheet program may add that
@@ -551,6 +555,7 @@ const maxBoolCheckRows = 5000
 func (r *reader) findBooleans(t *table) {
 	t.Bool = map[string]bool{}
 	t.Formula = map[string]string{}
+	t.Dated = map[string]string{}
 	if len(t.Rows) > maxBoolCheckRows {
 		return
 	}
@@ -571,7 +576,16 @@ func (r *reader) findBooleans(t *table) {
 				}
 				continue
 			}
-			if !numeric || (c != "0" && c != "1") {
+			if !numeric {
+				continue
+			}
+			if v, err := strconv.ParseFloat(c, 64); err == nil && r.dateStyled(t.Actual, ref) {
+				t.Dated[ref] = c
+				if d, err := excelize.ExcelDateToTime(v, r.date1904); err == nil {
+					t.Dated[ref] = d.Format("2006-01-02")
+				}
+			}
+			if c != "0" && c != "1" {
 				continue
 			}
 			if ct, err := r.f.GetCellType(t.Actual, ref); err == nil && ct == excelize.CellTypeBool {
@@ -579,6 +593,57 @@ func (r *reader) findBooleans(t *table) {
 			}
 		}
 	}
+}
+
+// dateStyled reports whether a cell's number format shows a date or time (a
+// spreadsheet turns "1.3" or "3-5" typed in some locales into a date, whose
+// serial number would otherwise be read as a plausible number).
+func (r *reader) dateStyled(sheet, ref string) bool {
+	idx, err := r.f.GetCellStyle(sheet, ref)
+	if err != nil || idx == 0 {
+		return false
+	}
+	if r.dateStyles == nil {
+		r.dateStyles = map[int]bool{}
+	}
+	if d, ok := r.dateStyles[idx]; ok {
+		return d
+	}
+	d := false
+	if st, err := r.f.GetStyle(idx); err == nil {
+		switch {
+		case st.CustomNumFmt != nil:
+			d = dateFormatCode(*st.CustomNumFmt)
+		case st.NumFmt >= 14 && st.NumFmt <= 22, st.NumFmt >= 27 && st.NumFmt <= 36, st.NumFmt >= 45 && st.NumFmt <= 47, st.NumFmt >= 50 && st.NumFmt <= 58:
+			d = true // the built-in date and time formats (ECMA-376 Part 1, 18.8.30)
+		}
+	}
+	r.dateStyles[idx] = d
+	return d
+}
+
+// dateFormatCode reports whether a number format code shows a date or time:
+// outside quoted text, escapes and [..] sections it uses y, d, h or s.
+func dateFormatCode(code string) bool {
+	inQuote, inBracket := false, false
+	for i := 0; i < len(code); i++ {
+		c := code[i]
+		switch {
+		case inQuote:
+			inQuote = c != '"'
+		case inBracket:
+			inBracket = c != ']'
+		case c == '"':
+			inQuote = true
+		case c == '[':
+			inBracket = true
+		case c == 0x5c || c == '_' || c == '*': // backslash escape, padding, fill
+			i++
+		case strings.IndexByte("yYdDhHsS", c) >= 0:
+			return true
+		}
+	}
+	return false
 }
 
 // matchHeaderRow matches every header cell of a sheet.

@@ -147,6 +147,12 @@ func (f *field) qty(name string) (Quantity, Parsed) {
 		return Quantity{Cell: ref}, Parsed{}
 	}
 	m := f.t.Cols[f.t.Index[name]]
+	if shown, ok := f.t.Dated[ref]; ok {
+		f.errorf(name, &QuantityError{Text: text, Want: m.Column.Dim, Err: ErrNotANumber},
+			"format the cell as a number and type the value again",
+			"the cell holds a date (it shows %s), not a number; a spreadsheet may have turned the typed value into a date", shown)
+		return Quantity{Cell: ref}, Parsed{}
+	}
 	if f.t.Bool[ref] {
 		f.errorf(name, &QuantityError{Text: text, Want: m.Column.Dim, Err: ErrNotANumber},
 			"enter the number, or leave the cell blank if it was not measured",
