@@ -157,23 +157,42 @@ func readGolden(path string) (fault string, want []expectedProblem, err error) {
 			fault = strings.TrimSpace(strings.TrimPrefix(line, "# fault:"))
 		case strings.HasPrefix(line, "#"):
 		default:
-			var e expectedProblem
-			if i := strings.Index(line, " ("); i >= 0 {
-				j := strings.LastIndex(line, ")")
-				e.Cell, e.Field, e.Severity = line[:i], line[i+2:j], strings.TrimSpace(line[j+1:])
-			} else {
-				parts := strings.Fields(line)
-				if len(parts) == 2 {
-					e.Cell, e.Severity = parts[0], parts[1]
-				}
-			}
-			if e.Cell == "" || (e.Severity != "error" && e.Severity != "warning") {
+			e, ok := parseProblemLine(line)
+			if !ok {
 				return "", nil, &os.PathError{Op: "parse", Path: path, Err: errBadGoldenLine(line)}
 			}
 			want = append(want, e)
 		}
 	}
 	return fault, want, sc.Err()
+}
+
+// parseProblemLine parses `CELL (FIELD) SEVERITY` or `CELL SEVERITY`; a cell
+// whose sheet name holds spaces or brackets is quoted: `"Objects (2)" warning`.
+func parseProblemLine(line string) (expectedProblem, bool) {
+	var e expectedProblem
+	if rest, ok := strings.CutPrefix(line, `"`); ok {
+		cell, after, ok := strings.Cut(rest, `"`)
+		if !ok {
+			return e, false
+		}
+		e, ok = parseProblemLine("x" + after)
+		e.Cell = cell
+		return e, ok
+	}
+	if i := strings.Index(line, " ("); i >= 0 {
+		j := strings.LastIndex(line, ")")
+		if j < i {
+			return e, false
+		}
+		e.Cell, e.Field, e.Severity = line[:i], line[i+2:j], strings.TrimSpace(line[j+1:])
+	} else {
+		parts := strings.Fields(line)
+		if len(parts) == 2 {
+			e.Cell, e.Severity = parts[0], parts[1]
+		}
+	}
+	return e, e.Cell != "" && (e.Severity == "error" || e.Severity == "warning")
 }
 
 type errBadGoldenLine string

@@ -1,0 +1,619 @@
+package inventory
+
+import (
+	"archive/zip"
+	"bufio"
+	"bytes"
+	"compress/flate"
+	"fmt"
+	"hash/crc32"
+	"io"
+	"math/rand/v2"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+	"time"
+
+	"github.com/xuri/excelize/v2"
+)
+
+// corpusCase is one odd or hostile workbook of the corpus in testdata/corpus.
+// Its expected outcome is in testdata/corpus/<name>.golden, written by hand
+// from the fault (see testdata/corpus/README.md), never by -update.
+//
+// A case is built in one of three ways: the demo survey with mutate (and then
+// post, which edits the written workbook with excelize, and raw, which edits the
+// zip's parts); or bytes alone (file, for files that are no workbook). Cases
+// marked transient are too big or too odd to check in (a deflate bomb, a file
+// over the size cap) and are generated into a temporary folder by the test;
+// frozen ones are not byte-reproducible (encryption salts, another program's
+// output) and are checked in once and only regenerated with -update.
+type corpusCase struct {
+	name   string
+	fault  string
+	mutate func(s *SurveySheets)
+	post   func(f *excelize.File) error
+	raw    func(name string, part []byte) []byte // edits a zip part; return part unchanged to keep it
+	file   func() []byte
+	// write makes the file at path itself (transient cases).
+	write     func(t testing.TB, path string)
+	transient bool
+	frozen    bool
+	opts      ReadOptions // read options of the inventory-level run (zero: defaults)
+}
+
+// Object rows of the demo used below (row 1 is the header): COAT-WEB 5 (a web
+// with Width G5 1.32 m, Field L5 400 kV/m, Description D5), DRY-TC 13,
+// REW-BELT 21, BAG-X 38. Values put in are invented for the tests.
+func corpusCases() []corpusCase {
+	objects := func(s SurveySheets) *SheetRows { return s.Sheet(SheetObjects) }
+	cell := func(id, col string, v any) func(*SurveySheets) {
+		return func(s *SurveySheets) { setObjectCell(*s, id, col, v) }
+	}
+	rawCell := func(ref, xml string) func(string, []byte) []byte {
+		re := regexp.MustCompile(`<c r="` + ref + `"[^>]*>.*?</c>`)
+		return func(name string, b []byte) []byte {
+			if name != "xl/worksheets/sheet4.xml" {
+				return b
+			}
+			if !re.Match(b) {
+				panic("corpus: no cell " + ref)
+			}
+			return re.ReplaceAll(b, []byte(xml))
+		}
+	}
+	demoBytes := func() []byte {
+		b, err := DemoSurveyBytes()
+		if err != nil {
+			panic(err)
+		}
+		return b
+	}
+	return []corpusCase{
+		// Formulas and error cells.
+		{name: "formula-cached", fault: "COAT-WEB Field is the formula =200*2 with its cached value 400 (read as 400: no problem)",
+			post: func(f *excelize.File) error {
+				if err := f.SetCellFormula(SheetObjects, "L5", "200*2"); err != nil {
+					return err
+				}
+				if err := f.SetCellValue(SheetObjects, "L5", 400); err != nil {
+					return err
+				}
+				return f.SetCellFormula(SheetObjects, "L5", "200*2")
+			}},
+		{name: "formula-no-cache", fault: "COAT-WEB Field is the formula =200*2 with no cached value (formulas are never calculated)",
+			mutate: cell("COAT-WEB", "Field", nil),
+			post:   func(f *excelize.File) error { return f.SetCellFormula(SheetObjects, "L5", "200*2") }},
+		{name: "formula-like-text", fault: "COAT-WEB and DRY-TC descriptions are text starting with = (=HYPERLINK(...), =1+1): kept as text, no problem",
+			mutate: func(s *SurveySheets) {
+				setObjectCell(*s, "COAT-WEB", "Description", `=HYPERLINK("http://example.invalid/x","open")`)
+				setObjectCell(*s, "DRY-TC", "Description", "=1+1")
+			}},
+		{name: "error-cell-div0", fault: "COAT-WEB Field is the formula =1/0 whose cached value is the error #DIV/0!",
+			raw: rawCell("L5", `<c r="L5" t="e"><f>1/0</f><v>#DIV/0!</v></c>`)},
+		{name: "error-text-na", fault: "COAT-WEB Field is the text #N/A, as pasted from another workbook",
+			mutate: cell("COAT-WEB", "Field", "#N/A")},
+		// Types in numeric columns.
+		{name: "boolean-in-number", fault: "COAT-WEB Width is the boolean TRUE",
+			post: func(f *excelize.File) error { return f.SetCellBool(SheetObjects, "G5", true) }},
+		{name: "date-in-number", fault: "COAT-WEB Width is a date (2026-01-03, as a spreadsheet makes of a typed 1.3 in some locales)",
+			mutate: cell("COAT-WEB", "Width", time.Date(2026, 1, 3, 0, 0, 0, 0, time.UTC))},
+		{name: "date-in-resistance", fault: "DRM-DRUM Resistance to earth is a date (2026-01-03, whose serial 46025 would pass for a plausible 46 kΩ)",
+			mutate: cell("DRM-DRUM", "Resistance to earth", time.Date(2026, 1, 3, 0, 0, 0, 0, time.UTC))},
+		{name: "nan-text", fault: "COAT-WEB Field is the text NaN",
+			mutate: cell("COAT-WEB", "Field", "NaN")},
+		{name: "inf-text", fault: "COAT-WEB Field is the text Inf and REW-BELT Field the text -infinity",
+			mutate: func(s *SurveySheets) {
+				setObjectCell(*s, "COAT-WEB", "Field", "Inf")
+				setObjectCell(*s, "REW-BELT", "Field", "-infinity")
+			}},
+		{name: "nan-number", fault: "COAT-WEB Field is a numeric cell whose stored value is NaN (written by a program, not a spreadsheet)",
+			raw: rawCell("L5", `<c r="L5"><v>NaN</v></c>`)},
+		{name: "overflow-number", fault: "COAT-WEB Field is a numeric cell whose stored value 1e999 overflows a float64",
+			raw: rawCell("L5", `<c r="L5"><v>1e999</v></c>`)},
+		{name: "huge-number", fault: "COAT-WEB Field is 1e300 kV/m, far beyond what air can hold",
+			mutate: cell("COAT-WEB", "Field", 1e300)},
+		{name: "tiny-number", fault: "COAT-WEB Field is 1e-300 kV/m, a reading of practically nothing (accepted: no problem)",
+			mutate: cell("COAT-WEB", "Field", 1e-300)},
+		{name: "negative-zero", fault: "COAT-WEB Field is stored as -0 (accepted as zero: no problem)",
+			raw: rawCell("L5", `<c r="L5"><v>-0</v></c>`)},
+		// Text and IDs.
+		{name: "long-text", fault: "COAT-WEB Description is 32767 characters, the most a cell holds (accepted: no problem)",
+			mutate: cell("COAT-WEB", "Description", strings.Repeat("Coated web, ", 32767/12)+strings.Repeat("x", 32767%12))},
+		{name: "long-id", fault: "COAT-WEB ID is 1000 characters long (accepted: no problem)",
+			mutate: cell("COAT-WEB", "ID", strings.Repeat("COATWEB-", 125))},
+		{name: "blank-id", fault: "COAT-WEB ID left blank",
+			mutate: cell("COAT-WEB", "ID", nil)},
+		{name: "whitespace-id", fault: "COAT-WEB ID is three spaces and a tab",
+			mutate: cell("COAT-WEB", "ID", "   \t")},
+		{name: "numeric-id", fault: "COAT-WEB ID is the number 12345 (accepted as the ID 12345: no problem)",
+			mutate: cell("COAT-WEB", "ID", 12345)},
+		{name: "non-ascii-ids", fault: "station ST-COAT renamed ST-BESCHICHTUNG-Ü (and its objects' references), COAT-WEB renamed BAHN-Ø1-µ (accepted: no problem)",
+			mutate: func(s *SurveySheets) {
+				renameStation(*s, "ST-COAT", "ST-BESCHICHTUNG-Ü")
+				setObjectCell(*s, "COAT-WEB", "ID", "BAHN-Ø1-µ")
+			}},
+		{name: "trailing-space-references", fault: "DRY-TC station written \"ST-DRY  \" and COAT-WEB material with a leading and trailing space (accepted: no problem)",
+			mutate: func(s *SurveySheets) {
+				setObjectCell(*s, "DRY-TC", "Station", "ST-DRY  ")
+				id := "COAT-WEB"
+				m := objectCell(*s, id, "Material")
+				setObjectCell(*s, id, "Material", " "+m+" ")
+			}},
+		// Sheet and header layout.
+		{name: "case-changed-sheet-names", fault: "sheets named SITE, atmospheres, STATIONS, objects, MATERIALS (accepted: no problem)",
+			mutate: func(s *SurveySheets) {
+				for i, n := range []string{"SITE", "atmospheres", "STATIONS", "objects", "MATERIALS"} {
+					(*s)[i].Name = n
+				}
+			}},
+		{name: "case-changed-headers", fault: "Objects headers ID, Station, Kind, Field written id, STATION, kind, FIELD [kV/m] (accepted: no problem)",
+			mutate: func(s *SurveySheets) {
+				h := objects(*s).Rows[0]
+				h[0], h[1], h[2], h[11] = "id", "STATION", "kind", "FIELD [kV/m]"
+			}},
+		{name: "title-row", fault: "a title row above the Objects header (the header is on row 2)",
+			mutate: func(s *SurveySheets) {
+				o := objects(*s)
+				o.Rows = append([][]any{{"Objects surveyed on line C2, February"}}, o.Rows...)
+			}},
+		{name: "merged-title-row", fault: "a title row above the Stations header, merged across A1:F1",
+			mutate: func(s *SurveySheets) {
+				st := s.Sheet(SheetStations)
+				st.Rows = append([][]any{{"Stations of line C2"}}, st.Rows...)
+			},
+			post: func(f *excelize.File) error { return f.MergeCell(SheetStations, "A1", "F1") }},
+		{name: "merged-header-cells", fault: "the Objects Notes header merged across AA1:AB1 (accepted: no problem)",
+			post: func(f *excelize.File) error { return f.MergeCell(SheetObjects, "AA1", "AB1") }},
+		{name: "duplicate-column", fault: "a second Field [kV/m] column at AB with other values",
+			mutate: func(s *SurveySheets) {
+				addObjectColumn(*s, "Field [kV/m]", map[string]any{"COAT-WEB": 999.0})
+				// addObjectColumn puts the column at AB (after AA Notes).
+			}},
+		{name: "extra-columns", fault: "three extra Objects columns Shift, Operator, Checked at AB, AC, AD",
+			mutate: func(s *SurveySheets) {
+				addObjectColumn(*s, "Shift", map[string]any{"COAT-WEB": "early"})
+				addObjectColumn(*s, "Operator", map[string]any{"COAT-WEB": "J. Doe"})
+				addObjectColumn(*s, "Checked", map[string]any{"DRY-TC": "yes"})
+			}},
+		{name: "blank-rows-between", fault: "two blank rows inserted in Objects after row 10 (COAT-OP), so BAG-X moves to row 40",
+			mutate: func(s *SurveySheets) {
+				o := objects(*s)
+				rows := append([][]any{}, o.Rows[:10]...)
+				rows = append(rows, []any{}, []any{nil, "  "})
+				o.Rows = append(rows, o.Rows[10:]...)
+			}},
+		{name: "header-only-objects", fault: "the Objects sheet holds its header row only",
+			mutate: func(s *SurveySheets) { objects(*s).Rows = objects(*s).Rows[:1] }},
+		{name: "header-only-changes", fault: "an optional Changes sheet with its header row only (no problem)",
+			mutate: func(s *SurveySheets) {
+				*s = append(*s, SheetRows{Name: SheetChanges, Rows: [][]any{headerRow(SheetColumns(SheetChanges))}})
+			}},
+		{name: "missing-site", fault: "the Site sheet is missing",
+			mutate: func(s *SurveySheets) { dropSheet(s, SheetSite) }},
+		{name: "copied-sheet", fault: "an extra sheet Objects (2), a copy of Objects, is not read",
+			mutate: func(s *SurveySheets) {
+				c := s.Clone()
+				*s = append(*s, SheetRows{Name: "Objects (2)", Rows: c.Sheet(SheetObjects).Rows})
+			}},
+		{name: "hidden-rows", fault: "Objects rows 5 (COAT-WEB) and 13 (DRY-TC) hidden",
+			post: func(f *excelize.File) error {
+				if err := f.SetRowVisible(SheetObjects, 5, false); err != nil {
+					return err
+				}
+				return f.SetRowVisible(SheetObjects, 13, false)
+			}},
+		{name: "hidden-sheet", fault: "the Materials sheet hidden",
+			post: func(f *excelize.File) error { return f.SetSheetVisible(SheetMaterials, false) }},
+		{name: "very-hidden-sheet", fault: "the Materials sheet very hidden (not listed by the spreadsheet's unhide menu)",
+			post: func(f *excelize.File) error { return f.SetSheetVisible(SheetMaterials, false, true) }},
+		// Damaged parts inside a good zip.
+		{name: "truncated-sheet-xml", fault: "the Objects sheet's XML part ends after row 10 (cut mid-file, no closing tags)",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/worksheets/sheet4.xml" {
+					return b
+				}
+				i := bytes.Index(b, []byte(`<row r="11"`))
+				if i < 0 {
+					panic("corpus: no row 11")
+				}
+				return b[:i]
+			}},
+		{name: "xml-external-entity", fault: "the Objects sheet's XML declares an external entity (file:///etc/passwd) and uses it in COAT-WEB Description",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/worksheets/sheet4.xml" {
+					return b
+				}
+				s := string(b)
+				decl := `<!DOCTYPE worksheet [<!ENTITY xxe SYSTEM "file:///etc/passwd">]>`
+				j := strings.Index(s, "?>")
+				s = s[:j+2] + decl + s[j+2:]
+				re := regexp.MustCompile(`<c r="D5"[^>]*>.*?</c>`)
+				return []byte(re.ReplaceAllString(s, `<c r="D5" t="inlineStr"><is><t>&xxe;</t></is></c>`))
+			}},
+		// Files that are no survey workbook.
+		{name: "empty", fault: "an empty file", file: func() []byte { return []byte{} }},
+		{name: "random-bytes", fault: "8 KiB of random bytes", file: func() []byte {
+			rng := rand.New(rand.NewPCG(7, 7))
+			b := make([]byte, 8192)
+			for i := range b {
+				b[i] = byte(rng.UintN(256))
+			}
+			b[0] = 0x01 // no zip or OLE signature by chance
+			return b
+		}},
+		{name: "truncated-zip", fault: "the demo survey cut to its first half (as by an interrupted download)",
+			file: func() []byte { b := demoBytes(); return b[:len(b)/2] }},
+		{name: "csv-renamed", fault: "a CSV file saved with the .xlsx extension",
+			file: func() []byte { return []byte("ID,Station,Kind,Field [kV/m]\nCOAT-WEB,ST-COAT,sheet,400\n") }},
+		{name: "old-xls-signature", fault: "a file with the signature of an old binary .xls (or an encrypted workbook) and nothing more",
+			file: func() []byte {
+				return append([]byte{0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1}, make([]byte, 1016)...)
+			}},
+		{name: "zip-without-workbook", fault: "a valid zip holding one text file and no workbook",
+			file: func() []byte {
+				var buf bytes.Buffer
+				zw := zip.NewWriter(&buf)
+				w, _ := zw.CreateHeader(&zip.FileHeader{Name: "notes.txt", Method: zip.Deflate, Modified: time.Date(2026, 2, 10, 0, 0, 0, 0, time.UTC)})
+				io.WriteString(w, "survey notes, not a workbook\n")
+				zw.Close()
+				return buf.Bytes()
+			}},
+		{name: "password-protected", fault: "the demo survey saved with the password site (encrypted)", frozen: true,
+			file: func() []byte {
+				f, err := excelize.OpenReader(bytes.NewReader(demoBytes()))
+				if err != nil {
+					panic(err)
+				}
+				defer f.Close()
+				var buf bytes.Buffer
+				if err := f.Write(&buf, excelize.Options{Password: "site"}); err != nil {
+					panic(err)
+				}
+				return buf.Bytes()
+			}},
+		{name: "libreoffice-saved", fault: "the demo survey opened and saved again by LibreOffice (soffice --headless --convert-to xlsx)", frozen: true,
+			write: func(t testing.TB, path string) { writeWithLibreOffice(t, demoBytes(), path) }},
+		// Transient: generated by the test, never checked in.
+		{name: "deflate-bomb", fault: "the demo survey whose Objects sheet is replaced by zeros unpacking to twice the default unzip limit (4 GiB), compressed to about 4 MiB, its size declared honestly", transient: true,
+			write: func(t testing.TB, path string) {
+				writeBomb(t, demoBytes(), path, 2*DefaultUnzipSizeLimit, 2*DefaultUnzipSizeLimit)
+			}},
+		{name: "deflate-bomb-under-limit", fault: "the demo survey whose Objects sheet is 1 GiB of zeros compressed to about 1 MiB, under the unzip limit, its size declared honestly", transient: true,
+			write: func(t testing.TB, path string) { writeBomb(t, demoBytes(), path, 1<<30, 1<<30) }},
+		{name: "deflate-bomb-lying", fault: "the same 1 GiB of zeros, but the zip declares the part as 64 KiB", transient: true,
+			write: func(t testing.TB, path string) { writeBomb(t, demoBytes(), path, 1<<30, 64<<10) }},
+		{name: "over-size-cap", fault: "a sparse file one byte over the default size cap, starting with a zip signature", transient: true,
+			write: func(t testing.TB, path string) {
+				f, err := os.Create(path)
+				if err != nil {
+					t.Fatal(err)
+				}
+				defer f.Close()
+				if _, err := f.Write([]byte("PK\x03\x04")); err != nil {
+					t.Fatal(err)
+				}
+				if err := f.Truncate(DefaultMaxFileSize + 1); err != nil {
+					t.Fatal(err)
+				}
+			}},
+	}
+}
+
+// renameStation renames a station and every reference to it.
+func renameStation(s SurveySheets, from, to string) {
+	setCell(s, SheetStations, from, "ID", to)
+	o := s.Sheet(SheetObjects)
+	for _, r := range o.Rows[1:] {
+		if cellText(r, 1) == from {
+			r[1] = to
+		}
+	}
+}
+
+// objectCell returns the text of a cell of the object row with the given ID.
+func objectCell(s SurveySheets, id, column string) string {
+	j := columnIndex(SheetColumns(SheetObjects), column)
+	for _, r := range s.Sheet(SheetObjects).Rows[1:] {
+		if cellText(r, 0) == id {
+			return cellText(r, j)
+		}
+	}
+	panic("corpus: no object " + id)
+}
+
+// corpusDir is testdata/corpus from the inventory package.
+func corpusDir() string { return filepath.Join("..", "testdata", "corpus") }
+
+// build makes the case's bytes (not for transient or write cases).
+func (c corpusCase) build(t testing.TB) []byte {
+	t.Helper()
+	if c.file != nil {
+		return c.file()
+	}
+	s := DemoSurvey().Clone()
+	if c.mutate != nil {
+		c.mutate(&s)
+	}
+	var buf bytes.Buffer
+	if err := WriteSurvey(&buf, s); err != nil {
+		t.Fatal(err)
+	}
+	data := buf.Bytes()
+	if c.post != nil {
+		f, err := excelize.OpenReader(bytes.NewReader(data))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := c.post(f); err != nil {
+			t.Fatal(err)
+		}
+		var out bytes.Buffer
+		if _, err := f.WriteTo(&out); err != nil {
+			t.Fatal(err)
+		}
+		f.Close()
+		data = out.Bytes()
+	}
+	if c.raw != nil {
+		data = rewriteZip(t, data, c.raw)
+	}
+	return data
+}
+
+// rewriteZip copies a zip, passing every part through edit (same order and names).
+func rewriteZip(t testing.TB, data []byte, edit func(name string, b []byte) []byte) []byte {
+	t.Helper()
+	zr, err := zip.NewReader(bytes.NewReader(data), int64(len(data)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var buf bytes.Buffer
+	zw := zip.NewWriter(&buf)
+	for _, zf := range zr.File {
+		rc, err := zf.Open()
+		if err != nil {
+			t.Fatal(err)
+		}
+		b, err := io.ReadAll(rc)
+		rc.Close()
+		if err != nil {
+			t.Fatal(err)
+		}
+		b = edit(zf.Name, b)
+		w, err := zw.CreateHeader(&zip.FileHeader{Name: zf.Name, Method: zip.Deflate, Modified: zf.Modified})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := w.Write(b); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if err := zw.Close(); err != nil {
+		t.Fatal(err)
+	}
+	return buf.Bytes()
+}
+
+// writeBomb writes the demo survey with its Objects sheet replaced by size
+// zero bytes (a multiple of 1 MiB), deflated to about size/1000 without
+// compressing it all: one flushed 1 MiB block of zeros is repeated (its
+// back-references reach only zeros). The zip's headers declare the part's
+// unpacked size as declared.
+func writeBomb(t testing.TB, demo []byte, path string, size, declared uint64) {
+	t.Helper()
+	const chunk = 1 << 20
+	zeros := make([]byte, chunk)
+	var both bytes.Buffer
+	fw, _ := flate.NewWriter(&both, flate.BestCompression)
+	fw.Write(zeros)
+	fw.Flush()
+	n1 := both.Len()
+	fw.Write(zeros) // a second block, which refers back to zeros only
+	fw.Flush()
+	block := append([]byte(nil), both.Bytes()[n1:]...)
+	fw.Close() // an empty final block
+	tail := append([]byte(nil), both.Bytes()[n1+len(block):]...)
+	var stream bytes.Buffer
+	stream.Write(both.Bytes()[:n1])
+	for i := uint64(1); i < size/chunk; i++ {
+		stream.Write(block)
+	}
+	stream.Write(tail)
+	var crc uint32
+	if size <= 1<<30 { // the larger bomb is refused from its declared size; its CRC is never reached
+		h := crc32.NewIEEE()
+		for i := uint64(0); i < size/chunk; i++ {
+			h.Write(zeros)
+		}
+		crc = h.Sum32()
+	}
+	zr, err := zip.NewReader(bytes.NewReader(demo), int64(len(demo)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := os.Create(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer out.Close()
+	zw := zip.NewWriter(out)
+	for _, zf := range zr.File {
+		if zf.Name == "xl/worksheets/sheet4.xml" {
+			w, err := zw.CreateRaw(&zip.FileHeader{Name: zf.Name, Method: zip.Deflate, CRC32: crc,
+				CompressedSize64: uint64(stream.Len()), UncompressedSize64: declared, Modified: zf.Modified})
+			if err != nil {
+				t.Fatal(err)
+			}
+			w.Write(stream.Bytes())
+			continue
+		}
+		if err := zw.Copy(zf); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if err := zw.Close(); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// writeWithLibreOffice saves data through LibreOffice into path; it skips when
+// soffice is not on PATH.
+func writeWithLibreOffice(t testing.TB, data []byte, path string) {
+	t.Helper()
+	soffice, err := exec.LookPath("soffice")
+	if err != nil {
+		t.Skip("soffice is not installed; the checked-in libreoffice-saved.xlsx is used")
+	}
+	dir := t.TempDir()
+	in := filepath.Join(dir, "in", "libreoffice-saved.xlsx")
+	os.MkdirAll(filepath.Dir(in), 0o755)
+	if err := os.WriteFile(in, data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	outDir := filepath.Join(dir, "out")
+	cmd := exec.Command(soffice, "-env:UserInstallation=file://"+filepath.Join(dir, "profile"), "--headless",
+		"--convert-to", "xlsx", "--outdir", outDir, in)
+	if out, err := cmd.CombinedOutput(); err != nil {
+		t.Fatalf("soffice: %v\n%s", err, out)
+	}
+	b, err := os.ReadFile(filepath.Join(outDir, "libreoffice-saved.xlsx"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(path, b, 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// corpusGolden is a hand-written expected outcome.
+type corpusGolden struct {
+	Fault      string
+	Exit       int               // exit code of check: 0, 1 or 2
+	Unreadable string            // part of the one-sentence message when Exit is 2
+	Rows       map[string][3]int // sheet -> read, accepted, rejected
+	RowOrder   []string
+	Problems   []expectedProblem
+}
+
+// readCorpusGolden reads a corpus golden: "# fault: ..." and comment lines,
+// "exit N", "unreadable TEXT", "rows SHEET READ ACCEPTED REJECTED" and
+// problem lines as in the broken goldens (CELL (FIELD) SEVERITY).
+func readCorpusGolden(path string) (*corpusGolden, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	g := &corpusGolden{Exit: -1, Rows: map[string][3]int{}}
+	sc := bufio.NewScanner(f)
+	for sc.Scan() {
+		line := strings.TrimSpace(sc.Text())
+		key, rest, _ := strings.Cut(line, " ")
+		switch {
+		case line == "":
+		case strings.HasPrefix(line, "# fault:"):
+			g.Fault = strings.TrimSpace(strings.TrimPrefix(line, "# fault:"))
+		case strings.HasPrefix(line, "#"):
+		case key == "exit":
+			g.Exit, err = strconv.Atoi(rest)
+		case key == "unreadable":
+			g.Unreadable = rest
+		case key == "rows":
+			var sh string
+			var n [3]int
+			if _, err = fmt.Sscanf(rest, "%s %d %d %d", &sh, &n[0], &n[1], &n[2]); err == nil {
+				g.Rows[sh] = n
+				g.RowOrder = append(g.RowOrder, sh)
+			}
+		default:
+			e, ok := parseProblemLine(line)
+			if !ok {
+				return nil, fmt.Errorf("%s: bad golden line %q", path, line)
+			}
+			g.Problems = append(g.Problems, e)
+		}
+		if err != nil {
+			return nil, fmt.Errorf("%s: line %q: %w", path, line, err)
+		}
+	}
+	if g.Exit < 0 || g.Exit > 2 {
+		return nil, fmt.Errorf("%s: no exit line", path)
+	}
+	return g, sc.Err()
+}
+
+// TestCorpusFiles checks that each checked-in corpus file holds what its Go
+// source generates (-update rewrites them; frozen files only with -update) and
+// that each case has a hand-written golden whose fault line matches the table.
+func TestCorpusFiles(t *testing.T) {
+	cases := corpusCases()
+	if len(cases) < 40 {
+		t.Errorf("%d corpus cases, want at least 40", len(cases)) // Source: issue 7, item 1
+	}
+	seen := map[string]bool{}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			if seen[c.name] {
+				t.Fatal("name used twice")
+			}
+			seen[c.name] = true
+			defer func() {
+				g, err := readCorpusGolden(filepath.Join(corpusDir(), c.name+".golden"))
+				if err != nil {
+					t.Fatalf("golden: %v (goldens are written by hand, never by -update)", err)
+				}
+				if g.Fault != c.fault {
+					t.Errorf("golden fault line %q, table says %q", g.Fault, c.fault)
+				}
+			}()
+			if c.transient {
+				return
+			}
+			path := filepath.Join(corpusDir(), c.name+".xlsx")
+			switch {
+			case c.frozen && *update:
+				if c.write != nil {
+					c.write(t, path)
+				} else if err := os.WriteFile(path, c.build(t), 0o644); err != nil {
+					t.Fatal(err)
+				}
+			case c.frozen:
+				if _, err := os.Stat(path); err != nil {
+					t.Fatalf("%v (run go test ./inventory -run TestCorpusFiles -update)", err)
+				}
+			case c.file != nil || c.raw != nil:
+				checkGeneratedBytes(t, path, c.build(t))
+			default:
+				checkGeneratedWorkbook(t, path, c.build(t))
+			}
+		})
+	}
+}
+
+// checkGeneratedBytes compares the bytes of a checked-in file with data, or
+// rewrites it with -update (for files excelize cannot open or that differ from
+// a plain workbook only below the cell level).
+func checkGeneratedBytes(t *testing.T, path string, data []byte) {
+	t.Helper()
+	if *update {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, data, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	old, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./inventory -update to generate it)", err)
+	}
+	if !bytes.Equal(old, data) {
+		t.Errorf("%s is out of date with its Go source (run go test ./inventory -update)", path)
+	}
+}
