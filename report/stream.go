@@ -155,7 +155,9 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if wb.st.err != nil {
 		return fmt.Errorf("write workbook: %w", wb.st.err)
 	}
-	f.SetActiveSheet(0)
+	// No SetActiveSheet: the Summary (the new file's first sheet, renamed) is
+	// already the active one, and SetActiveSheet would load every sheet,
+	// the whole streamed Objects sheet among them, back into memory.
 	info := wb.info
 	d := surveyDate(a).Format("2006-01-02T15:04:05Z")
 	if err := f.SetDocProps(&excelize.DocProperties{

@@ -121,6 +121,9 @@ func TestStreamedOutputsMatch(t *testing.T) {
 			}
 			got, gotJSON := streamedOutputs(t, c.a, tmp)
 			sameCells(t, got, want.Bytes())
+			if g := openWorkbook(t, got); g.GetActiveSheetIndex() != 0 {
+				t.Errorf("active sheet %d, want 0 (Summary)", g.GetActiveSheetIndex())
+			}
 			if !bytes.Equal(gotJSON, wantJSON.Bytes()) {
 				t.Errorf("streamed JSON differs from WriteJSON's (%d bytes, want %d)", len(gotJSON), wantJSON.Len())
 				_ = os.WriteFile("/tmp/got.json", gotJSON, 0o600)
