@@ -21,8 +21,15 @@ var ErrHeaderUnit = errors.New("header unit does not fit the column")
 // NormalizeName folds a header or item name for matching: lower case, '-' and
 // '_' read as spaces, surrounding and repeated spaces dropped.
 func NormalizeName(s string) string {
-	s = strings.ToLower(s)
-	s = strings.NewReplacer("-", " ", "_", " ", "\u00a0", " ").Replace(s)
+	// strings.Map, not a Replacer: a Replacer is built on every call, and
+	// names are normalised for every cell read.
+	s = strings.Map(func(r rune) rune {
+		switch r {
+		case '-', '_', '\u00a0':
+			return ' '
+		}
+		return r
+	}, strings.ToLower(s))
 	return strings.Join(strings.Fields(s), " ")
 }
 

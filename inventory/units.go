@@ -125,87 +125,95 @@ type baseUnit struct {
 	prefixed bool // an SI prefix may stand before it
 }
 
+// namedBaseUnit is a base unit with its symbol.
+type namedBaseUnit struct {
+	name string
+	baseUnit
+}
+
 // baseUnits returns the unit symbols the survey knows, before prefixes.
-// A function rather than a package variable: no package-level mutable state.
-func baseUnits() map[string]baseUnit {
-	return map[string]baseUnit{
+// A function rather than a package variable: no package-level mutable state;
+// a slice, not a map, because it is built for every value parsed (a slice
+// literal is cheap to build and scan) and so that matches come in table order.
+func baseUnits() []namedBaseUnit {
+	return []namedBaseUnit{
 		// length
-		"m": {Length, 1, 0, true},
+		{"m", baseUnit{Length, 1, 0, true}},
 		// electric field
-		"V/m":  {ElectricField, 1, 0, true},
-		"V/cm": {ElectricField, 100, 0, true},
-		"V/mm": {ElectricField, 1000, 0, true},
+		{"V/m", baseUnit{ElectricField, 1, 0, true}},
+		{"V/cm", baseUnit{ElectricField, 100, 0, true}},
+		{"V/mm", baseUnit{ElectricField, 1000, 0, true}},
 		// potential
-		"V": {Potential, 1, 0, true},
+		{"V", baseUnit{Potential, 1, 0, true}},
 		// speed
-		"m/s":   {Speed, 1, 0, true},
-		"m/min": {Speed, 1.0 / 60, 0, true},
-		"m/h":   {Speed, 1.0 / 3600, 0, true},
+		{"m/s", baseUnit{Speed, 1, 0, true}},
+		{"m/min", baseUnit{Speed, 1.0 / 60, 0, true}},
+		{"m/h", baseUnit{Speed, 1.0 / 3600, 0, true}},
 		// mass flow
-		"g/s":   {MassFlow, 1e-3, 0, true},
-		"g/min": {MassFlow, 1e-3 / 60, 0, true},
-		"g/h":   {MassFlow, 1e-3 / 3600, 0, true},
-		"t/h":   {MassFlow, 1000.0 / 3600, 0, false},
-		"t/min": {MassFlow, 1000.0 / 60, 0, false},
+		{"g/s", baseUnit{MassFlow, 1e-3, 0, true}},
+		{"g/min", baseUnit{MassFlow, 1e-3 / 60, 0, true}},
+		{"g/h", baseUnit{MassFlow, 1e-3 / 3600, 0, true}},
+		{"t/h", baseUnit{MassFlow, 1000.0 / 3600, 0, false}},
+		{"t/min", baseUnit{MassFlow, 1000.0 / 60, 0, false}},
 		// charge-to-mass
-		"C/kg": {ChargeToMass, 1, 0, true},
-		"C/g":  {ChargeToMass, 1e3, 0, true},
+		{"C/kg", baseUnit{ChargeToMass, 1, 0, true}},
+		{"C/g", baseUnit{ChargeToMass, 1e3, 0, true}},
 		// current
-		"A": {Current, 1, 0, true},
+		{"A", baseUnit{Current, 1, 0, true}},
 		// time
-		"s":   {Time, 1, 0, true},
-		"sec": {Time, 1, 0, false},
-		"min": {Time, 60, 0, false},
-		"h":   {Time, 3600, 0, false},
-		"hr":  {Time, 3600, 0, false},
+		{"s", baseUnit{Time, 1, 0, true}},
+		{"sec", baseUnit{Time, 1, 0, false}},
+		{"min", baseUnit{Time, 60, 0, false}},
+		{"h", baseUnit{Time, 3600, 0, false}},
+		{"hr", baseUnit{Time, 3600, 0, false}},
 		// resistance and surface resistivity (ohm per square)
-		"Ω":              {Resistance, 1, 0, true},
-		"ohm":            {Resistance, 1, 0, true},
-		"ohms":           {Resistance, 1, 0, true},
-		"Ω/sq":           {Resistance, 1, 0, true},
-		"Ω/□":            {Resistance, 1, 0, true},
-		"ohm/sq":         {Resistance, 1, 0, true},
-		"ohms/sq":        {Resistance, 1, 0, true},
-		"ohm/square":     {Resistance, 1, 0, true},
-		"ohm per square": {Resistance, 1, 0, true},
+		{"Ω", baseUnit{Resistance, 1, 0, true}},
+		{"ohm", baseUnit{Resistance, 1, 0, true}},
+		{"ohms", baseUnit{Resistance, 1, 0, true}},
+		{"Ω/sq", baseUnit{Resistance, 1, 0, true}},
+		{"Ω/□", baseUnit{Resistance, 1, 0, true}},
+		{"ohm/sq", baseUnit{Resistance, 1, 0, true}},
+		{"ohms/sq", baseUnit{Resistance, 1, 0, true}},
+		{"ohm/square", baseUnit{Resistance, 1, 0, true}},
+		{"ohm per square", baseUnit{Resistance, 1, 0, true}},
 		// volume resistivity
-		"Ω·m":    {Resistivity, 1, 0, true},
-		"Ω m":    {Resistivity, 1, 0, true},
-		"Ωm":     {Resistivity, 1, 0, true},
-		"Ω.m":    {Resistivity, 1, 0, true},
-		"ohm m":  {Resistivity, 1, 0, true},
-		"ohm·m":  {Resistivity, 1, 0, true},
-		"ohm.m":  {Resistivity, 1, 0, true},
-		"ohm-m":  {Resistivity, 1, 0, true},
-		"Ω·cm":   {Resistivity, 0.01, 0, true},
-		"Ω cm":   {Resistivity, 0.01, 0, true},
-		"Ωcm":    {Resistivity, 0.01, 0, true},
-		"ohm cm": {Resistivity, 0.01, 0, true},
-		"ohm·cm": {Resistivity, 0.01, 0, true},
-		"ohm.cm": {Resistivity, 0.01, 0, true},
-		"ohm-cm": {Resistivity, 0.01, 0, true},
+		{"Ω·m", baseUnit{Resistivity, 1, 0, true}},
+		{"Ω m", baseUnit{Resistivity, 1, 0, true}},
+		{"Ωm", baseUnit{Resistivity, 1, 0, true}},
+		{"Ω.m", baseUnit{Resistivity, 1, 0, true}},
+		{"ohm m", baseUnit{Resistivity, 1, 0, true}},
+		{"ohm·m", baseUnit{Resistivity, 1, 0, true}},
+		{"ohm.m", baseUnit{Resistivity, 1, 0, true}},
+		{"ohm-m", baseUnit{Resistivity, 1, 0, true}},
+		{"Ω·cm", baseUnit{Resistivity, 0.01, 0, true}},
+		{"Ω cm", baseUnit{Resistivity, 0.01, 0, true}},
+		{"Ωcm", baseUnit{Resistivity, 0.01, 0, true}},
+		{"ohm cm", baseUnit{Resistivity, 0.01, 0, true}},
+		{"ohm·cm", baseUnit{Resistivity, 0.01, 0, true}},
+		{"ohm.cm", baseUnit{Resistivity, 0.01, 0, true}},
+		{"ohm-cm", baseUnit{Resistivity, 0.01, 0, true}},
 		// capacitance
-		"F": {Capacitance, 1, 0, true},
+		{"F", baseUnit{Capacitance, 1, 0, true}},
 		// energy
-		"J": {Energy, 1, 0, true},
+		{"J", baseUnit{Energy, 1, 0, true}},
 		// percent
-		"%":    {Percent, 1, 0, false},
-		"%RH":  {Percent, 1, 0, false},
-		"% RH": {Percent, 1, 0, false},
+		{"%", baseUnit{Percent, 1, 0, false}},
+		{"%RH", baseUnit{Percent, 1, 0, false}},
+		{"% RH", baseUnit{Percent, 1, 0, false}},
 		// temperature
-		"°C":   {Temperature, 1, 273.15, false},
-		"℃":    {Temperature, 1, 273.15, false},
-		"C":    {Temperature, 1, 273.15, false},
-		"degC": {Temperature, 1, 273.15, false},
-		"K":    {Temperature, 1, 0, false},
+		{"°C", baseUnit{Temperature, 1, 273.15, false}},
+		{"℃", baseUnit{Temperature, 1, 273.15, false}},
+		{"C", baseUnit{Temperature, 1, 273.15, false}},
+		{"degC", baseUnit{Temperature, 1, 273.15, false}},
+		{"K", baseUnit{Temperature, 1, 0, false}},
 		// conductivity
-		"S/m":  {Conductivity, 1, 0, true},
-		"S/cm": {Conductivity, 100, 0, true},
+		{"S/m", baseUnit{Conductivity, 1, 0, true}},
+		{"S/cm", baseUnit{Conductivity, 100, 0, true}},
 		// humidity slope: only the header's own wording
-		"decades per 10 %RH":  {Slope, 1, 0, false},
-		"decades per 10 % RH": {Slope, 1, 0, false},
-		"decades/10 %RH":      {Slope, 1, 0, false},
-		"dec/10%RH":           {Slope, 1, 0, false},
+		{"decades per 10 %RH", baseUnit{Slope, 1, 0, false}},
+		{"decades per 10 % RH", baseUnit{Slope, 1, 0, false}},
+		{"decades/10 %RH", baseUnit{Slope, 1, 0, false}},
+		{"dec/10%RH", baseUnit{Slope, 1, 0, false}},
 	}
 }
 
@@ -253,7 +261,8 @@ func lookupUnits(symbol string) []Unit {
 		out = append(out, Unit{Symbol: strings.TrimSpace(symbol), Dim: b.dim, Factor: b.factor * pf, Offset: b.offset})
 	}
 	try := func(fold bool) {
-		for name, b := range bases {
+		for _, nb := range bases {
+			name, b := nb.name, nb.baseUnit
 			if (fold && strings.EqualFold(name, s)) || (!fold && name == s) {
 				add(name, b, 1)
 			}
@@ -267,7 +276,8 @@ func lookupUnits(symbol string) []Unit {
 		if !ok || rest == "" {
 			return
 		}
-		for name, b := range bases {
+		for _, nb := range bases {
+			name, b := nb.name, nb.baseUnit
 			if !b.prefixed {
 				continue
 			}
