@@ -17,7 +17,6 @@ import (
 	"io"
 	"os"
 	"path/filepath"
-	"sync"
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -30,29 +29,11 @@ var scaleSizes = []int{1000, 10000, 100000}
 // scaleObjects adds one more size, e.g. -scale-objects 50000 for the 50k targets.
 var scaleObjects = flag.Int("scale-objects", 0, "also run the Scale benchmarks on a generated survey of this many objects")
 
-// generated surveys, written once per size into one folder for the run.
-var (
-	genOnce  sync.Once
-	genDir   string
-	genFiles = map[int]string{}
-	genMu    sync.Mutex
-)
-
+// generatedSurvey writes a generated survey of n objects into the
+// benchmark's temporary folder (removed after it).
 func generatedSurvey(b *testing.B, n int) string {
 	b.Helper()
-	genOnce.Do(func() {
-		d, err := os.MkdirTemp("", "sparkmargin-bench-")
-		if err != nil {
-			b.Fatal(err)
-		}
-		genDir = d
-	})
-	genMu.Lock()
-	defer genMu.Unlock()
-	if p, ok := genFiles[n]; ok {
-		return p
-	}
-	p := filepath.Join(genDir, fmt.Sprintf("survey-%d.xlsx", n))
+	p := filepath.Join(b.TempDir(), fmt.Sprintf("survey-%d.xlsx", n))
 	f, err := os.Create(p)
 	if err != nil {
 		b.Fatal(err)
@@ -63,7 +44,6 @@ func generatedSurvey(b *testing.B, n int) string {
 	if err := f.Close(); err != nil {
 		b.Fatal(err)
 	}
-	genFiles[n] = p
 	return p
 }
 

@@ -1,0 +1,188 @@
+package main
+
+import (
+	"bytes"
+	"io"
+	"os"
+	"path/filepath"
+	"reflect"
+	"strings"
+	"testing"
+
+	"github.com/xuri/excelize/v2"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+)
+
+func copyFile(t *testing.T, from, to string) {
+	t.Helper()
+	b, err := os.ReadFile(from)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(to, b, 0o600); err != nil {
+		t.Fatal(err)
+	}
+}
+
+func sheetRows(t *testing.T, path, sheet string) [][]string {
+	t.Helper()
+	f, err := excelize.OpenFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, err := f.GetRows(sheet, excelize.Options{RawCellValue: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return rows
+}
+
+// TestAssessFolderPortfolio: a folder with two copies of the demo survey (and
+// an audit and a lock file, which are skipped) gives an audit and a JSON per
+// survey and a portfolio ranking both sites and all their stations.
+func TestAssessFolderPortfolio(t *testing.T) {
+	dir := t.TempDir()
+	in := filepath.Join(dir, "surveys")
+	if err := os.Mkdir(in, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	demo := writeDemo(t, dir)
+	copyFile(t, demo, filepath.Join(in, "works-a.xlsx"))
+	copyFile(t, demo, filepath.Join(in, "works-b.xlsx"))
+	copyFile(t, demo, filepath.Join(in, "old-audit.xlsx"))
+	copyFile(t, demo, filepath.Join(in, "~$works-a.xlsx"))
+	out, js := filepath.Join(dir, "out"), filepath.Join(dir, "json")
+	code, stdout, errOut := runCLI(t, "assess", in, "-o", out, "--json", js)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for _, p := range []string{"out/works-a-audit.xlsx", "out/works-b-audit.xlsx", "out/portfolio.xlsx",
+		"json/works-a-audit.json", "json/works-b-audit.json", "json/portfolio.json"} {
+		if _, err := os.Stat(filepath.Join(dir, p)); err != nil {
+			t.Errorf("%s not written", p)
+		}
+	}
+	if strings.Contains(stdout, "old-audit") || strings.Contains(stdout, "~$") {
+		t.Error("an audit or a lock file was assessed as a survey")
+	}
+	sites := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), report.PortfolioSites)
+	if len(sites) != 3 {
+		t.Fatalf("Sites sheet has %d rows, want a header and 2 sites", len(sites))
+	}
+	stations := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), report.PortfolioStations)
+	s, err := inventory.ReadFile(demo, inventory.ReadOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(stations) != 1+2*len(s.Stations) {
+		t.Errorf("Stations sheet has %d rows, want %d", len(stations), 1+2*len(s.Stations))
+	}
+}
+
+// TestAssessSeveralExitCodes: every survey is tried; exit 0 when all were
+// assessed, 1 when one had no object to assess, 2 when one is unreadable or
+// missing, and the readable ones still get their audits and the portfolio.
+func TestAssessSeveralExitCodes(t *testing.T) {
+	dir := t.TempDir()
+	demo := writeDemo(t, dir)
+	a, b := filepath.Join(dir, "a.xlsx"), filepath.Join(dir, "b.xlsx")
+	copyFile(t, demo, a)
+	copyFile(t, demo, b)
+	noObjects := filepath.Join(dir, "no-objects.xlsx")
+	copyFile(t, filepath.Join("..", "..", "testdata", "broken", "missing-objects-sheet.xlsx"), noObjects)
+	empty := filepath.Join(dir, "empty.xlsx")
+	if err := os.WriteFile(empty, nil, 0o600); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "out")
+	for _, c := range []struct {
+		name    string
+		args    []string
+		code    int
+		stderr  string
+		audits  []string
+		ranked  int
+		outFile bool
+	}{
+		{"all assessed", []string{a, b}, exitOK, "", []string{"a-audit.xlsx", "b-audit.xlsx"}, 2, false},
+		{"one with no objects", []string{a, noObjects}, exitProblems, "no object could be assessed", []string{"a-audit.xlsx", "no-objects-audit.xlsx"}, 2, false},
+		{"one unreadable", []string{empty, a}, exitUsage, "empty.xlsx", []string{"a-audit.xlsx"}, 1, false},
+		{"one missing", []string{a, filepath.Join(dir, "nope.xlsx"), noObjects}, exitUsage, "nope.xlsx", []string{"a-audit.xlsx"}, 2, false},
+		{"-o is a file", []string{a, b}, exitUsage, "names a folder", nil, 0, true},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			o := filepath.Join(out, strings.ReplaceAll(c.name, " ", "-"))
+			if c.outFile {
+				_ = os.MkdirAll(filepath.Dir(o), 0o755)
+				_ = os.WriteFile(o, []byte("x"), 0o600)
+			}
+			code, _, errOut := runCLI(t, append([]string{"assess", "-o", o}, c.args...)...)
+			if code != c.code || !strings.Contains(errOut, c.stderr) {
+				t.Fatalf("exit %d, stderr %q; want %d and %q", code, errOut, c.code, c.stderr)
+			}
+			for _, f := range c.audits {
+				if _, err := os.Stat(filepath.Join(o, f)); err != nil {
+					t.Errorf("%s not written", f)
+				}
+			}
+			if c.ranked > 0 {
+				if rows := sheetRows(t, filepath.Join(o, "portfolio.xlsx"), report.PortfolioSites); len(rows) != 1+c.ranked {
+					t.Errorf("portfolio ranks %d sites, want %d", len(rows)-1, c.ranked)
+				}
+			}
+		})
+	}
+}
+
+// TestAssessStreamedSameCells: the assess command's streamed audit has the
+// cells of the in-memory path (ReadFile, Assess, WriteWorkbook) on the demo,
+// with and without sampling; the JSON has the same bytes.
+func TestAssessStreamedSameCells(t *testing.T) {
+	dir := t.TempDir()
+	demo := writeDemo(t, dir)
+	for _, samples := range []string{"0", "200"} {
+		xlsx, js := filepath.Join(dir, "cli-"+samples+".xlsx"), filepath.Join(dir, "cli-"+samples+".json")
+		args := []string{"assess", demo, "-o", xlsx, "--json", js, "--samples", samples}
+		if code, _, errOut := runCLI(t, args...); code != exitOK {
+			t.Fatalf("assess: exit %d: %s", code, errOut)
+		}
+		s, err := inventory.ReadFile(demo, inventory.ReadOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		lim, p1 := assess.LimitsFromSite(s.Site, model.DefaultLimits())
+		unc, p2 := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
+		s.Problems = append(append(s.Problems, p1...), p2...)
+		n := map[string]int{"0": 0, "200": 200}[samples]
+		a := assess.Assess(s, assess.Options{Limits: lim, Samples: n, Seed: assess.DefaultSeed, Uncertainties: unc})
+		// The command line as the command records it (the Method sheet shows it).
+		info := runInfo(s, []string{"sparkmargin", "assess", "--json=" + js, "--output=" + xlsx, "--samples=" + samples, demo})
+		want := filepath.Join(dir, "mem-"+samples+".xlsx")
+		if err := report.WriteFileAtomic(want, func(w io.Writer) error { return report.WriteWorkbook(w, a, info) }); err != nil {
+			t.Fatal(err)
+		}
+		for _, sh := range report.Sheets() {
+			g, w := sheetRows(t, xlsx, sh), sheetRows(t, want, sh)
+			if !reflect.DeepEqual(g, w) {
+				for i := range w {
+					if i >= len(g) || !reflect.DeepEqual(g[i], w[i]) {
+						t.Errorf("samples %s: sheet %s row %d differs:\n%q\n%q", samples, sh, i+1, g[min(i, len(g)-1)], w[i])
+						break
+					}
+				}
+			}
+		}
+		var jb bytes.Buffer
+		if err := report.WriteJSON(&jb, a, info); err != nil {
+			t.Fatal(err)
+		}
+		if got, _ := os.ReadFile(js); !bytes.Equal(got, jb.Bytes()) {
+			t.Errorf("samples %s: JSON differs from the in-memory path's", samples)
+		}
+	}
+}
