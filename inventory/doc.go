@@ -16,10 +16,22 @@
 // a truncated zip and random bytes each get one sentence. The workbook is
 // opened with excelize's unzip limits and a private temporary folder that is
 // removed afterwards; a panic inside the reader becomes an UnreadableError.
+// Before excelize reads them, the worksheet and shared-strings parts are
+// streamed once through a check (partscan.go): parts declaring more than the
+// unzip limit in total, a part that unpacks to more than its zip header says,
+// a run of over 4 MiB without markup (a bomb of zeros under the limit, which
+// excelize's XML decoder would hold in memory whole), or XML that is
+// malformed or cut short (excelize's row iterator stops silently at a syntax
+// error, so rows would be lost unseen) make the file unreadable. Entities are
+// never resolved. Parts over 64 MiB are checked for their closing tag and text
+// runs only, not token by token.
 // Rows are streamed with raw cell values (numbers unformatted; a formula gives
-// its cached value, a formula without one reads as blank). A cell reading 0
-// or 1 in a numeric column is asked for its type after streaming (on sheets of
-// up to 5000 rows), so a TRUE/FALSE cell is an error rather than 1 or 0.
+// its cached value; formulas are never calculated). After streaming, on
+// sheets of up to 5000 rows, a cell reading 0 or 1 in a numeric column is
+// asked for its type, so a TRUE/FALSE cell is an error rather than 1 or 0; a
+// number in a numeric column whose format shows a date is an error (its
+// serial, e.g. 46025, would pass for a value); a blank cell of a known column
+// holding a formula without a stored result is an error (not "not measured").
 // Hidden rows and sheets are read like any other, with a warning.
 //
 // Sheet names match case-insensitively. Sheets outside the contract get a
