@@ -112,7 +112,8 @@ func checkPart(zf *zip.File, name string) string {
 	defer rc.Close()
 	var sc partScanner
 	var copyErr, xmlErr error
-	if zf.UncompressedSize64 <= maxXMLCheck {
+	checked := zf.UncompressedSize64 <= maxXMLCheck
+	if checked {
 		pr, pw := io.Pipe()
 		done := make(chan error, 1)
 		go func() {
@@ -125,10 +126,24 @@ func checkPart(zf *zip.File, name string) string {
 				return r, nil // only the structure is checked
 			}
 			var err error
+			depth, elements := 0, 0
 			for err == nil {
-				_, err = d.RawToken()
+				var tok xml.Token
+				tok, err = d.RawToken()
+				switch tok.(type) {
+				case xml.StartElement:
+					depth++
+					elements++
+				case xml.EndElement:
+					depth--
+				}
 			}
-			if err == io.EOF || errors.Is(err, errNotChecked) {
+			switch {
+			case errors.Is(err, errNotChecked):
+				err = nil
+			case err == io.EOF && (depth != 0 || elements == 0):
+				err = errCutShort
+			case err == io.EOF:
 				err = nil
 			}
 			if err != nil {
@@ -151,15 +166,18 @@ func checkPart(zf *zip.File, name string) string {
 		return fmt.Sprintf("it is a damaged .xlsx (its part %s does not unpack as its zip header states)", short(name, 60))
 	case copyErr != nil && copyErr != xmlErr:
 		return fmt.Sprintf("it is a damaged .xlsx (its part %s cannot be unpacked: %s)", short(name, 60), short(copyErr.Error(), 80))
+	case errors.Is(xmlErr, errCutShort), !checked && !closesRoot(sc.tail):
+		return fmt.Sprintf("it is a damaged .xlsx (its part %s is cut short)", short(name, 60))
 	case xmlErr != nil:
 		return fmt.Sprintf("it is a damaged .xlsx (the XML of its part %s is malformed: %s)", short(name, 60), short(xmlMessage(xmlErr), 80))
-	case !closesRoot(sc.tail):
-		return fmt.Sprintf("it is a damaged .xlsx (its part %s is cut short)", short(name, 60))
 	}
 	return ""
 }
 
-var errNotChecked = errors.New("encoding not checked")
+var (
+	errNotChecked = errors.New("encoding not checked")
+	errCutShort   = errors.New("the part ends before its root element is closed")
+)
 
 // closesRoot reports whether the part's last bytes close its root element
 // (</worksheet>, </x:worksheet>, </sst>).

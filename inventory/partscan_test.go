@@ -1,0 +1,78 @@
+package inventory
+
+import (
+	"archive/zip"
+	"bytes"
+	"testing"
+)
+
+// Number format codes: dates and times, and numbers whose codes hold the same
+// letters only inside quotes, brackets or escapes. Codes from ECMA-376 Part 1,
+// 18.8.31 (numFmt) and the usual spreadsheet custom formats.
+func TestDateFormatCode(t *testing.T) {
+	tests := []struct {
+		code string
+		date bool
+	}{
+		{"yyyy-mm-dd", true},
+		{"d/m/yy", true},
+		{"[$-409]mmmm d, yyyy", true},
+		{"h:mm:ss AM/PM", true},
+		{"0.00", false},
+		{`0.0 "days"`, false},
+		{`0.00\d`, false},
+		{"[Red]0.00", false},
+		{"#,##0 _s", false},
+		{"General", false},
+		{"0.00E+00", false},
+	}
+	for _, tc := range tests {
+		if got := dateFormatCode(tc.code); got != tc.date {
+			t.Errorf("dateFormatCode(%q) = %v, want %v", tc.code, got, tc.date)
+		}
+	}
+}
+
+func TestClosesRoot(t *testing.T) {
+	tests := []struct {
+		tail string
+		want bool
+	}{
+		{"</sheetData></worksheet>", true},
+		{"</sheetData></worksheet>\r\n", true},
+		{"</x:worksheet>", true},
+		{"<t>a</t></si></sst>", true},
+		{"</row>", false},
+		{"<row r=\"11\"", false},
+		{"", false},
+		{"<worksheet/>", false}, // self-closed roots are told by the XML check, which the tail check is not
+	}
+	for _, tc := range tests {
+		if got := closesRoot([]byte(tc.tail)); got != tc.want {
+			t.Errorf("closesRoot(%q) = %v, want %v", tc.tail, got, tc.want)
+		}
+	}
+}
+
+// A shared-strings part with no strings may be a self-closed root: complete.
+func TestCheckPartsSelfClosedRoot(t *testing.T) {
+	data, err := DemoSurveyBytes()
+	if err != nil {
+		t.Fatal(err)
+	}
+	empty := []byte(`<?xml version="1.0" encoding="UTF-8" standalone="yes"?>` + "\n" +
+		`<sst xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main" count="0" uniqueCount="0"/>`)
+	b := rewriteZip(t, data, func(name string, part []byte) []byte {
+		if name == "xl/sharedStrings.xml" {
+			return empty
+		}
+		return part
+	})
+	zr, err := zip.NewReader(bytes.NewReader(b), int64(len(b)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if why := checkParts(zr, ReadOptions{}.withDefaults()); why != "" {
+		t.Errorf("checkParts: %s", why)
+	}
+}
