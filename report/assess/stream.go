@@ -1,9 +1,9 @@
 package assess
 
 import (
-	"cmp"
 	"runtime"
 	"slices"
+	"sort"
 	"sync"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -29,15 +29,30 @@ type Streamer struct {
 
 	index    map[string]int // station ID -> position in stations
 	stations []StationResult
-	findings []keyedFinding
+	findings []Finding
+	findObj  []uint32 // per finding: the object's position in the survey
+	findSeq  []uint8  // per finding: its position among the object's findings
 	none     map[string]float64 // per station: probability that no object is incendive
 	seen     int                // objects assessed so far
 	results  []ObjectResult
+	// mitigations holds one copy of each mitigation text: findings repeat a
+	// few dozen texts, some built per finding.
+	mitigations map[string]string
 }
 
-type keyedFinding struct {
-	f        Finding
-	obj, seq int
+// findingOrder sorts findings in place by a packed key: severity (most
+// severe first), station rank, object position, position among the object's
+// findings (no copy of the findings is made, which matters for a million objects).
+type findingOrder struct {
+	keys []uint64
+	f    []Finding
+}
+
+func (o findingOrder) Len() int           { return len(o.keys) }
+func (o findingOrder) Less(i, j int) bool { return o.keys[i] < o.keys[j] }
+func (o findingOrder) Swap(i, j int) {
+	o.keys[i], o.keys[j] = o.keys[j], o.keys[i]
+	o.f[i], o.f[j] = o.f[j], o.f[i]
 }
 
 // NewStreamer prepares the assessment of survey s with opts, as Assess does
@@ -53,7 +68,7 @@ func NewStreamer(s *inventory.Survey, opts Options) *Streamer {
 			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
 		}
 	}
-	st := &Streamer{a: a, ctx: ctx, index: map[string]int{}, none: map[string]float64{}}
+	st := &Streamer{a: a, ctx: ctx, index: map[string]int{}, none: map[string]float64{}, mitigations: map[string]string{}}
 	st.tab = uncertaintyTable(a.Options.Uncertainties)
 	st.workers = a.Options.Workers
 	if st.workers <= 0 {
@@ -136,7 +151,14 @@ func (st *Streamer) aggregate(o *ObjectResult) {
 		sr.WorstRatio = &r
 	}
 	for k, f := range o.Findings {
-		st.findings = append(st.findings, keyedFinding{f, st.seen, k})
+		if m, ok := st.mitigations[f.Mitigation]; ok {
+			f.Mitigation = m
+		} else {
+			st.mitigations[f.Mitigation] = f.Mitigation
+		}
+		st.findings = append(st.findings, f)
+		st.findObj = append(st.findObj, uint32(st.seen))
+		st.findSeq = append(st.findSeq, uint8(k))
 	}
 	if p := o.Probability; p != nil {
 		id := o.Object.Station
@@ -199,25 +221,18 @@ func (st *Streamer) Finish() *Audit {
 	for _, s := range a.Stations {
 		rank[s.Station.ID] = s.Rank
 	}
-	all := st.findings
-	slices.SortStableFunc(all, func(x, y keyedFinding) int {
-		if c := cmp.Compare(y.f.Severity.Severity(), x.f.Severity.Severity()); c != 0 {
-			return c
-		}
-		if c := cmp.Compare(rank[x.f.StationID], rank[y.f.StationID]); c != 0 {
-			return c
-		}
-		if c := cmp.Compare(x.obj, y.obj); c != 0 {
-			return c
-		}
-		return cmp.Compare(x.seq, y.seq)
-	})
-	if len(all) > 0 {
-		a.Findings = make([]Finding, len(all))
-		for i := range all {
-			a.Findings[i] = all[i].f
-		}
+	// Key: 2 bits severity (3 - Severity, so the most severe sorts first),
+	// 24 bits station rank, 30 bits object position, 8 bits finding position.
+	keys := make([]uint64, len(st.findings))
+	for i := range st.findings {
+		f := &st.findings[i]
+		keys[i] = uint64(3-min(f.Severity.Severity(), 3))<<62 | uint64(rank[f.StationID]&(1<<24-1))<<38 |
+			uint64(st.findObj[i]&(1<<30-1))<<8 | uint64(st.findSeq[i])
 	}
-	st.findings = nil
+	sort.Sort(findingOrder{keys, st.findings})
+	if len(st.findings) > 0 {
+		a.Findings = st.findings
+	}
+	st.findings, st.findObj, st.findSeq = nil, nil, nil
 	return a
 }
