@@ -30,8 +30,8 @@ type Streamer struct {
 	index    map[string]int // station ID -> position in stations
 	stations []StationResult
 	findings []Finding
-	findObj  []uint32 // per finding: the object's position in the survey
-	findSeq  []uint8  // per finding: its position among the object's findings
+	findObj  []uint32           // per finding: the object's position in the survey
+	findSeq  []uint8            // per finding: its position among the object's findings
 	none     map[string]float64 // per station: probability that no object is incendive
 	seen     int                // objects assessed so far
 	results  []ObjectResult
