@@ -1,6 +1,7 @@
 package report
 
 import (
+	"archive/zip"
 	"bytes"
 	"encoding/json"
 	"errors"
@@ -177,7 +178,15 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	defer tmp.Close()
-	n, err := f.WriteTo(tmp)
+	// The package goes straight into the temporary file: File.WriteTo would
+	// build the whole zip in memory first (hundreds of MB for a full sheet).
+	// (excelize's zip64 header fix-up works on that in-memory copy only; the
+	// canonical copy below writes its own headers, as for WriteWorkbook.)
+	f.SetZipWriter(func(io.Writer) excelize.ZipWriter { return zip.NewWriter(tmp) })
+	if _, err := f.WriteTo(io.Discard); err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	n, err := tmp.Seek(0, io.SeekEnd)
 	if err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
