@@ -10,6 +10,9 @@ type streamHooks struct {
 	begin     func(*Survey) error
 	each      func(Object) error
 	path, sha string
+	// holdBack is how many Objects rows are held back for the boolean check
+	// (maxBoolCheckRows; tests lower it to reach the row-by-row path quickly).
+	holdBack int
 }
 
 // call runs fn and turns a panic in it into an error, so that a fault in the
@@ -41,7 +44,7 @@ func StreamFile(path string, opts ReadOptions, begin func(*Survey) error, each f
 	if begin == nil {
 		begin = func(*Survey) error { return nil }
 	}
-	return readFile(path, opts, &streamHooks{begin: begin, each: each})
+	return readFile(path, opts, &streamHooks{begin: begin, each: each, holdBack: maxBoolCheckRows})
 }
 
 // stream reads the workbook with the Objects rows validated as they come.
@@ -73,7 +76,7 @@ func (r *reader) stream(h *streamHooks) (*Survey, error) {
 	buffering := true
 	r.rowHook, r.hookSheet = func(t *table, rr rawRow) bool {
 		if buffering {
-			if len(t.Rows) < maxBoolCheckRows {
+			if len(t.Rows) < h.holdBack {
 				t.Rows = append(t.Rows, rr)
 				return true
 			}
