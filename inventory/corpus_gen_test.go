@@ -263,6 +263,22 @@ func corpusCases() []corpusCase {
 				zw.Close()
 				return buf.Bytes()
 			}},
+		{name: "docx-renamed", fault: "a minimal word-processor document (.docx) saved with the .xlsx extension",
+			file: func() []byte {
+				var buf bytes.Buffer
+				zw := zip.NewWriter(&buf)
+				for _, part := range [][2]string{
+					{"[Content_Types].xml", `<?xml version="1.0" encoding="UTF-8"?><Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"/>`},
+					{"word/document.xml", `<?xml version="1.0" encoding="UTF-8"?><w:document xmlns:w="http://schemas.openxmlformats.org/wordprocessingml/2006/main"><w:body/></w:document>`},
+				} {
+					w, _ := zw.CreateHeader(&zip.FileHeader{Name: part[0], Method: zip.Deflate, Modified: time.Date(2026, 2, 10, 0, 0, 0, 0, time.UTC)})
+					io.WriteString(w, part[1])
+				}
+				zw.Close()
+				return buf.Bytes()
+			}},
+		{name: "ods-renamed", fault: "the demo survey saved by LibreOffice as OpenDocument (.ods) and renamed .xlsx", frozen: true,
+			write: func(t testing.TB, path string) { writeWithLibreOfficeAs(t, demoBytes(), path, "ods") }},
 		{name: "password-protected", fault: "the demo survey saved with the password site (encrypted)", frozen: true,
 			file: func() []byte {
 				f, err := excelize.OpenReader(bytes.NewReader(demoBytes()))
@@ -465,6 +481,13 @@ func writeBomb(t testing.TB, demo []byte, path string, size, declared uint64) {
 // soffice is not on PATH.
 func writeWithLibreOffice(t testing.TB, data []byte, path string) {
 	t.Helper()
+	writeWithLibreOfficeAs(t, data, path, "xlsx")
+}
+
+// writeWithLibreOfficeAs saves data through LibreOffice in the format ext
+// (xlsx, ods) into path.
+func writeWithLibreOfficeAs(t testing.TB, data []byte, path, ext string) {
+	t.Helper()
 	soffice, err := exec.LookPath("soffice")
 	if err != nil {
 		t.Skip("soffice is not installed; the checked-in libreoffice-saved.xlsx is used")
@@ -477,11 +500,11 @@ func writeWithLibreOffice(t testing.TB, data []byte, path string) {
 	}
 	outDir := filepath.Join(dir, "out")
 	cmd := exec.Command(soffice, "-env:UserInstallation=file://"+filepath.Join(dir, "profile"), "--headless",
-		"--convert-to", "xlsx", "--outdir", outDir, in)
+		"--convert-to", ext, "--outdir", outDir, in)
 	if out, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("soffice: %v\n%s", err, out)
 	}
-	b, err := os.ReadFile(filepath.Join(outDir, "libreoffice-saved.xlsx"))
+	b, err := os.ReadFile(filepath.Join(outDir, "libreoffice-saved."+ext))
 	if err != nil {
 		t.Fatal(err)
 	}

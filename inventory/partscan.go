@@ -43,6 +43,9 @@ func checkParts(zr *zip.Reader, opts ReadOptions) string {
 	if total > uint64(opts.UnzipSizeLimit) {
 		return fmt.Sprintf("its contents unpack to more than the %s limit (a damaged or hostile file)", sizeText(opts.UnzipSizeLimit))
 	}
+	if why := otherDocument(zr); why != "" {
+		return why
+	}
 	for _, zf := range zr.File {
 		name := strings.ReplaceAll(zf.Name, `\`, "/")
 		lower := strings.ToLower(name)
@@ -54,6 +57,38 @@ func checkParts(zr *zip.Reader, opts ReadOptions) string {
 		}
 	}
 	return ""
+}
+
+// otherDocument tells a zip that holds no workbook: an OpenDocument file, a
+// word-processor or presentation document, or any other zip.
+func otherDocument(zr *zip.Reader) string {
+	has := map[string]*zip.File{}
+	workbook := false
+	for _, zf := range zr.File {
+		name := strings.ToLower(strings.ReplaceAll(zf.Name, `\`, "/"))
+		has[name] = zf
+		if strings.HasSuffix(name, "workbook.xml") {
+			workbook = true
+		}
+	}
+	if zf, ok := has["mimetype"]; ok && zf.UncompressedSize64 < 200 {
+		if rc, err := zf.Open(); err == nil {
+			b, _ := io.ReadAll(io.LimitReader(rc, 200))
+			rc.Close()
+			if bytes.HasPrefix(b, []byte("application/vnd.oasis.opendocument")) {
+				return "it is an OpenDocument file (such as .ods), not an .xlsx; save it in the spreadsheet program as an Excel workbook (.xlsx)"
+			}
+		}
+	}
+	switch {
+	case workbook:
+		return ""
+	case has["word/document.xml"] != nil:
+		return "it is a word-processor document (.docx) renamed, not a workbook"
+	case has["ppt/presentation.xml"] != nil:
+		return "it is a presentation (.pptx) renamed, not a workbook"
+	}
+	return "it is a zip file that holds no workbook (no workbook.xml part)"
 }
 
 // partScanner follows a part's bytes: the longest run without '<' and the
