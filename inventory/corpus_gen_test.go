@@ -211,6 +211,32 @@ func corpusCases() []corpusCase {
 			post: func(f *excelize.File) error { return f.SetSheetVisible(SheetMaterials, false) }},
 		{name: "very-hidden-sheet", fault: "the Materials sheet very hidden (not listed by the spreadsheet's unhide menu)",
 			post: func(f *excelize.File) error { return f.SetSheetVisible(SheetMaterials, false, true) }},
+		{name: "far-column", fault: "5000 extra Stations rows S11 to S5010, each with a stray 1 in column XFD (the last a sheet has)",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/worksheets/sheet3.xml" {
+					return b
+				}
+				var rows strings.Builder
+				for r := 11; r <= 5010; r++ {
+					fmt.Fprintf(&rows, `<row r="%d"><c r="A%d" t="inlineStr"><is><t>S%d</t></is></c><c r="XFD%d"><v>1</v></c></row>`, r, r, r, r)
+				}
+				s := string(b)
+				i := strings.Index(s, "</sheetData>")
+				return []byte(s[:i] + rows.String() + s[i:])
+			}},
+		{name: "far-column-stray", fault: "COAT-WEB and DRY-TC each have a stray value in column XFD (the last a sheet has)",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/worksheets/sheet4.xml" {
+					return b
+				}
+				s := string(b)
+				for _, r := range []string{"5", "13"} {
+					i := strings.Index(s, `<row r="`+r+`"`)
+					j := i + strings.Index(s[i:], "</row>")
+					s = s[:j] + `<c r="XFD` + r + `" t="inlineStr"><is><t>stray</t></is></c>` + s[j:]
+				}
+				return []byte(s)
+			}},
 		// Damaged parts inside a good zip.
 		{name: "truncated-sheet-xml", fault: "the Objects sheet's XML part ends after row 10 (cut mid-file, no closing tags)",
 			raw: func(name string, b []byte) []byte {

@@ -161,14 +161,19 @@ func checkPart(zf *zip.File, name string) string {
 				return r, nil // only the structure is checked
 			}
 			var err error
-			depth, elements := 0, 0
+			depth, elements, far := 0, 0, 0
 			for err == nil {
 				var tok xml.Token
 				tok, err = d.RawToken()
-				switch tok.(type) {
+				switch e := tok.(type) {
 				case xml.StartElement:
 					depth++
 					elements++
+					if e.Name.Local == "c" && farCell(e.Attr) {
+						if far++; far > maxFarCells {
+							err = errFarCells
+						}
+					}
 				case xml.EndElement:
 					depth--
 				}
@@ -201,6 +206,8 @@ func checkPart(zf *zip.File, name string) string {
 		return fmt.Sprintf("it is a damaged .xlsx (its part %s does not unpack as its zip header states)", short(name, 60))
 	case copyErr != nil && copyErr != xmlErr:
 		return fmt.Sprintf("it is a damaged .xlsx (its part %s cannot be unpacked: %s)", short(name, 60), short(copyErr.Error(), 80))
+	case errors.Is(xmlErr, errFarCells):
+		return fmt.Sprintf("its part %s has more than %d cells beyond column %s, where no survey data goes (a damaged or hostile file)", short(name, 60), maxFarCells, ColumnLetter(maxColumns-1))
 	case errors.Is(xmlErr, errCutShort), !checked && !closesRoot(sc.tail):
 		return fmt.Sprintf("it is a damaged .xlsx (its part %s is cut short)", short(name, 60))
 	case xmlErr != nil:
@@ -212,7 +219,29 @@ func checkPart(zf *zip.File, name string) string {
 var (
 	errNotChecked = errors.New("encoding not checked")
 	errCutShort   = errors.New("the part ends before its root element is closed")
+	errFarCells   = errors.New("too many cells beyond maxColumns")
 )
+
+// maxFarCells is how many cells beyond column maxColumns a sheet part may
+// have: excelize's row reader makes every such row a slice out to that column
+// (16384 cells at XFD), so a few thousand of them cost gigabytes. A handful of
+// stray values are read (and warned about); more are refused.
+const maxFarCells = 200
+
+// farCell reports whether a cell element's reference lies beyond maxColumns.
+func farCell(attrs []xml.Attr) bool {
+	for _, a := range attrs {
+		if a.Name.Local != "r" {
+			continue
+		}
+		col := 0
+		for i := 0; i < len(a.Value) && a.Value[i] >= 'A' && a.Value[i] <= 'Z' && col <= maxColumns; i++ {
+			col = col*26 + int(a.Value[i]-'A') + 1
+		}
+		return col > maxColumns
+	}
+	return false
+}
 
 // closesRoot reports whether the part's last bytes close its root element
 // (</worksheet>, </x:worksheet>, </sst>).

@@ -340,6 +340,8 @@ type reader struct {
 	sheets    map[string]string // normalised name -> actual
 	// dateStyles caches whether a style index shows dates (see dateStyled).
 	dateStyles map[int]bool
+	// farRow is, per sheet, the first row with a value beyond maxColumns.
+	farRow map[string]int
 }
 
 // helperSheets are sheet names a template or a spreadsheet program may add that
@@ -437,11 +439,37 @@ func (r *reader) streamRows(actual string, fn func(row int, cells []string, hidd
 		if err != nil {
 			return err
 		}
+		cells = r.boundCells(actual, n, cells)
 		if !fn(n, cells, rows.GetRowOpts().Hidden) {
 			break
 		}
 	}
 	return rows.Error()
+}
+
+// maxColumns is the widest row the reader keeps: a survey has some thirty
+// columns, and a stray value (or a hostile one) at column XFD would otherwise
+// make every row a slice of 16384 cells.
+const maxColumns = 1024
+
+// boundCells drops a row's trailing blank cells (styled but empty cells far to
+// the right are common) and cuts it at maxColumns, noting the first row of the
+// sheet that had a value beyond.
+func (r *reader) boundCells(sheet string, row int, cells []string) []string {
+	n := len(cells)
+	for n > 0 && strings.TrimSpace(cells[n-1]) == "" {
+		n--
+	}
+	if n > maxColumns {
+		if r.farRow == nil {
+			r.farRow = map[string]int{}
+		}
+		if _, seen := r.farRow[sheet]; !seen {
+			r.farRow[sheet] = row
+		}
+		n = maxColumns
+	}
+	return cells[:n:n]
 }
 
 func blankRow(cells []string) bool {
@@ -507,6 +535,11 @@ func (r *reader) readTable(sheet string) *table {
 			Message: "the sheet cannot be read to its end (" + short(err.Error(), 100) + "); rows after the fault are not read",
 			Fix:     "open the workbook in a spreadsheet program and save it again"})
 	}
+	if row, ok := r.farRow[actual]; ok {
+		t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: row, Severity: Warning,
+			Message: fmt.Sprintf("values beyond column %s are not read (the first is on row %d)", ColumnLetter(maxColumns-1), row),
+			Fix:     "move survey data into the template's columns"})
+	}
 	if limited {
 		t.Problems = append(t.Problems, Problem{Sheet: sheet, Severity: Error,
 			Message: fmt.Sprintf("the sheet has more than %d rows; rows after that are not read", r.opts.MaxRows),
@@ -545,6 +578,10 @@ func (r *reader) readTable(sheet string) *table {
 // sheet affords and a hostile one need not be given.
 const maxBoolCheckRows = 5000
 
+// maxBoolCheckCells bounds rows x widest row of a sheet checked cell by cell
+// (5000 rows of the template's columns, with room to spare).
+const maxBoolCheckCells = 5000 * 64
+
 // findBooleans marks numeric cells stored as booleans (TRUE/FALSE), which the
 // streaming reader returns as 1 and 0, and formula cells of known columns
 // that hold no stored result, which it returns as blank (the reader never
@@ -557,6 +594,15 @@ func (r *reader) findBooleans(t *table) {
 	t.Formula = map[string]string{}
 	t.Dated = map[string]string{}
 	if len(t.Rows) > maxBoolCheckRows {
+		return
+	}
+	// The per-cell questions load the whole sheet, which excelize fills out to
+	// its widest row: bound rows x width too.
+	width := 0
+	for _, rr := range t.Rows {
+		width = max(width, len(rr.Cells))
+	}
+	if len(t.Rows)*width > maxBoolCheckCells {
 		return
 	}
 	for _, rr := range t.Rows {
