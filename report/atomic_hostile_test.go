@@ -187,7 +187,11 @@ func TestWriteFileAtomicKilled(t *testing.T) {
 	}
 	rng := rand.New(rand.NewPCG(3, 4))
 	seen := map[string]int{}
-	for i := 0; i < 8; i++ {
+	kills := 8
+	if raceEnabled {
+		kills = 3
+	}
+	for i := 0; i < kills; i++ {
 		cmd := exec.Command(os.Args[0], "-test.run=^TestAtomicKillHelper$", "-test.count=1")
 		cmd.Env = append(os.Environ(), killHelperEnv+"="+p)
 		out, err := cmd.StdoutPipe()
