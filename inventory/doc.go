@@ -24,7 +24,11 @@
 // malformed or cut short (excelize's row iterator stops silently at a syntax
 // error, so rows would be lost unseen) make the file unreadable. Entities are
 // never resolved. Parts over 64 MiB are checked for their closing tag and text
-// runs only, not token by token.
+// runs only, not token by token. A zip without a workbook part says what it
+// is (OpenDocument, .docx, .pptx). Rows are kept up to their last non-blank
+// cell and at most to column AMJ (1024): values beyond get one warning per
+// sheet, and a sheet part with more than 200 cells beyond AMJ is refused
+// (excelize would make each such row a slice of up to 16384 cells).
 // Rows are streamed with raw cell values (numbers unformatted; a formula gives
 // its cached value; formulas are never calculated). After streaming, on
 // sheets of up to 5000 rows, a cell reading 0 or 1 in a numeric column is
