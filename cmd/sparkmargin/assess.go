@@ -237,6 +237,11 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 	if err != nil {
 		return err
 	}
+	for _, f := range files {
+		if err := refuseSurveyPath(f, portfolio, portfolioJSON); err != nil {
+			return err
+		}
+	}
 	var p report.Portfolio
 	targets := map[string]string{}
 	failed := 0

@@ -114,6 +114,7 @@ func TestAssessSeveralExitCodes(t *testing.T) {
 		{"one unreadable", []string{empty, a}, exitUsage, "empty.xlsx", []string{"a-audit.xlsx"}, 1, false},
 		{"one missing", []string{a, filepath.Join(dir, "nope.xlsx"), noObjects}, exitUsage, "nope.xlsx", []string{"a-audit.xlsx"}, 2, false},
 		{"-o is a file", []string{a, b}, exitUsage, "names a folder", nil, 0, true},
+		{"-p is a survey", []string{a, b, "-p", b}, exitUsage, "survey itself", nil, 0, false},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			o := filepath.Join(out, strings.ReplaceAll(c.name, " ", "-"))
