@@ -235,6 +235,18 @@ func (wb *workbook) method() error {
 	}
 	r++
 
+	for _, n := range wb.methodNotes {
+		if err := section(n.Title, nil); err != nil {
+			return err
+		}
+		for _, kv := range n.Notes {
+			if err := put(cell{v: kv[0], wrap: true, bold: true}, wrapText(kv[1])); err != nil {
+				return err
+			}
+		}
+		r++
+	}
+
 	if err := section("Formulas", []string{"Quantity", "Formula", "Applies to", "", "Source"}); err != nil {
 		return err
 	}

@@ -169,6 +169,10 @@ type workbook struct {
 	info RunInfo
 	// stationRows is the last data row of the Stations sheet, for the chart.
 	stationRows int
+	// heading is the page-header text before the sheet name; "" is the audit's.
+	heading string
+	// methodNotes are extra sections of the Method sheet (a Book's); none in the audit.
+	methodNotes []MethodNotes
 }
 
 // footerEscape doubles '&', the header/footer control character.
@@ -199,8 +203,12 @@ func (wb *workbook) printSetup(sheet string, pagesWide int, titleRows, titleCols
 	if len([]rune(site)) > 80 {
 		site = string([]rune(site)[:80]) + "…"
 	}
+	heading := "Electrostatic screening audit"
+	if wb.heading != "" {
+		heading = footerEscape(wb.heading)
+	}
 	if err := f.SetHeaderFooter(sheet, &excelize.HeaderFooterOptions{
-		OddHeader: "&L&8Electrostatic screening audit: &A&R&8" + footerEscape(wb.info.tool()+" "+wb.info.ToolVersion),
+		OddHeader: "&L&8" + heading + ": &A&R&8" + footerEscape(wb.info.tool()+" "+wb.info.ToolVersion),
 		OddFooter: "&L&8" + site + "&C&8Survey date " + dateText(wb.a) + "&R&8Page &P of &N",
 	}); err != nil {
 		return err

@@ -44,29 +44,29 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		return errors.New("whatif workbook: no result")
 	}
 	s := x.Before.Survey
-	b := newBook(s, SheetSummary)
+	b := newBook(x.After, info, SheetSummary, "What-if on the screening audit")
 
 	// Summary.
 	sh := SheetSummary
 	b.check(b.f.SetColWidth(sh, "A", "A", 26))
 	b.check(b.f.SetColWidth(sh, "B", "D", 14))
-	b.put(sh, 1, 1, tx("What-if: "+b.site), "title")
+	b.Put(sh, 1, 1, report.TitleCell("What-if: "+b.site))
 	r := 3
 	for _, kv := range [][2]string{{"Survey", s.Path}, {"Survey date", b.date}, {"Changes applied", fmt.Sprint(len(x.Applied))}} {
-		b.put(sh, 1, r, tx(kv[0]), "")
-		b.put(sh, 2, r, tx(kv[1]), "")
+		b.Put(sh, 1, r, tx(kv[0]))
+		b.Put(sh, 2, r, tx(kv[1]))
 		r++
 	}
 	r++
-	b.put(sh, 1, r, tx("Objects by verdict"), "section")
+	b.Put(sh, 1, r, report.SectionCell("Objects by verdict"))
 	r++
 	countsAt := r
-	var rows [][]xc
+	var rows [][]report.Cell
 	for _, v := range []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed} {
-		rows = append(rows, []xc{vd(v.String()), in(x.Before.Counts[v]), in(x.After.Counts[v])})
+		rows = append(rows, []report.Cell{vd(v.String()), in(x.Before.Counts[v]), in(x.After.Counts[v])})
 	}
-	r = b.table(sh, r, []string{"Verdict", "Before", "After"}, []float64{26, 14, 14}, rows) + 1
-	b.put(sh, 1, r, tx("What moved"), "section")
+	r = b.Table(sh, r, []string{"Verdict", "Before", "After"}, []float64{26, 14, 14}, rows) + 1
+	b.Put(sh, 1, r, report.SectionCell("What moved"))
 	r++
 	st := map[Outcome]int{}
 	for _, d := range x.Stations {
@@ -74,10 +74,10 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	}
 	rows = nil
 	for _, o := range []Outcome{Cleared, Stayed, Appeared, NoHazard, Unjudged} {
-		rows = append(rows, []xc{tx(string(o)), in(x.Moved[o]), in(st[o])})
+		rows = append(rows, []report.Cell{tx(string(o)), in(x.Moved[o]), in(st[o])})
 	}
-	r = b.table(sh, r, []string{"Outcome", "Objects", "Stations"}, []float64{26, 14, 14}, rows) + 1
-	b.put(sh, 1, r, xc{v: "Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet).", wrap: true}, "caution")
+	r = b.Table(sh, r, []string{"Outcome", "Objects", "Stations"}, []float64{26, 14, 14}, rows) + 1
+	b.Put(sh, 1, r, report.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
 	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("C%d", r)))
 	b.check(b.f.SetRowHeight(sh, r, 40))
 	gap := uint(80)
@@ -94,7 +94,7 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		YAxis:     excelize.ChartAxis{MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"}, Title: chartTitle("objects", 9)},
 		GapWidth:  &gap,
 	}))
-	b.print(sh, false)
+	b.PrintSetup(sh, "")
 
 	// Objects.
 	rows = nil
@@ -103,75 +103,78 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		if o.After != nil {
 			mat = o.After.Object.Material
 		}
-		row := []xc{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio)}
+		row := []report.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), report.RatioCell(o.Before.Ratio)}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), report.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
-	b.table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "What changed and why", "Reason after"},
+	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "What changed and why", "Reason after"},
 		[]float64{12, 10, 10, 14, 14, 12, 14, 12, 11, 55, 55}, rows)
-	b.print(SheetObjects, true)
+	b.PrintSetup(SheetObjects, "$1:$1")
 
 	// Stations.
 	rows = nil
 	for _, d := range x.Stations {
-		row := []xc{tx(d.ID), tx(d.Name)}
+		row := []report.Cell{tx(d.ID), tx(d.Name)}
 		if d.Before != nil {
-			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), ratioCell(d.Before.WorstRatio))
+			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), report.RatioCell(d.Before.WorstRatio))
 		} else {
-			row = append(row, xc{}, xc{}, xc{})
+			row = append(row, report.EmptyCell(), report.EmptyCell(), report.EmptyCell())
 		}
-		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), ratioCell(d.After.WorstRatio), ct(string(d.Outcome)))
+		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), report.RatioCell(d.After.WorstRatio), ct(string(d.Outcome)))
 		rows = append(rows, row)
 	}
-	b.table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
 		[]float64{10, 28, 8, 14, 12, 8, 14, 12, 11}, rows)
-	b.print(SheetStations, true)
+	b.PrintSetup(SheetStations, "$1:$1")
 
 	// Changes applied.
 	rows = nil
 	for i, a := range x.Applied {
-		rows = append(rows, []xc{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
+		rows = append(rows, []report.Cell{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []xc{{}, tx("none: the survey as it is")})
+		rows = append(rows, []report.Cell{report.EmptyCell(), tx("none: the survey as it is")})
 	}
-	b.table(SheetChanges, 1, []string{"#", "Change", "Target", "Value as written", "Value applied", "From", "What was changed", "Objects reached", "Note"},
+	b.Table(SheetChanges, 1, []string{"#", "Change", "Target", "Value as written", "Value applied", "From", "What was changed", "Objects reached", "Note"},
 		[]float64{4, 11, 16, 14, 14, 12, 50, 30, 30}, rows)
-	b.print(SheetChanges, true)
+	b.PrintSetup(SheetChanges, "$1:$1")
 
-	b.method(s, info, rerunNotes())
-	b.cautions()
-	b.rejected(s)
+	b.AddMethodSheet(report.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: rerunNotes()})
+	b.AddCautionsSheet()
+	b.AddRejectedSheet(s)
 	return b.write(w)
 }
 
 // WriteSweepWorkbook writes the sweep workbook: the Sweep table (one row per RH
 // step: counts and each station's worst ratio and verdict) with a line chart of
 // the counts and one of the worst ratios, the Stations sheet (the RH from which
-// each is non-incendive), Method and Cautions.
+// each is non-incendive), and the audit's Method (with the sweep's notes)
+// and Cautions sheets.
 func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
-	if sw == nil || len(sw.Steps) == 0 {
-		return errors.New("sweep workbook: no steps")
+	if sw == nil || len(sw.Steps) == 0 || sw.Survey == nil {
+		return errors.New("sweep workbook: no steps or no survey")
 	}
-	b := newBook(sw.Survey, SheetSweep)
+	// The Method sheet is the audit of the survey as it is; the sweep replaces only the RH.
+	base := assess.Assess(sw.Survey, assess.Options{Limits: Limits(sw.Survey)})
+	b := newBook(base, info, SheetSweep, "Humidity sweep of the screening audit")
 	headers := []string{"RH [%]", "Incendive objects", "Marginal objects"}
 	widths := []float64{8, 11, 11}
 	for _, st := range sw.Steps[0].Stations {
 		headers = append(headers, st.ID+" worst ratio [–]", st.ID+" verdict")
 		widths = append(widths, 11, 12)
 	}
-	var rows [][]xc
+	var rows [][]report.Cell
 	for _, st := range sw.Steps {
-		row := []xc{numCell(st.RH, report.UnitPercentRH), in(st.Incendive), in(st.Marginal)}
+		row := []report.Cell{report.QuantityCell(report.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
 		for _, x := range st.Stations {
-			row = append(row, ratioCell(x.WorstRatio), vd(x.Verdict.String()))
+			row = append(row, report.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
 		}
 		rows = append(rows, row)
 	}
 	n := len(sw.Steps) + 1
-	b.table(SheetSweep, 1, headers, widths, rows)
+	b.Table(SheetSweep, 1, headers, widths, rows)
 	sh := quoteSheet(SheetSweep)
 	cat := fmt.Sprintf("%s!$A$2:$A$%d", sh, n)
 	line := func(col int, colour string) excelize.ChartSeries {
@@ -216,11 +219,11 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 			ShowBlanksAs: "gap",
 		}))
 	}
-	b.print(SheetSweep, true)
+	b.PrintSetup(SheetSweep, "$1:$1")
 
 	rows = nil
 	for _, c := range sw.Clearances {
-		clears := numCell(c.ClearsAt, report.UnitPercentRH)
+		clears := report.QuantityCell(report.UnitPercentRH, c.ClearsAt)
 		first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
 		var fv, lv string
 		for j := range first.Stations {
@@ -228,14 +231,14 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 				fv, lv = first.Stations[j].Verdict.String(), last.Stations[j].Verdict.String()
 			}
 		}
-		rows = append(rows, []xc{tx(c.ID), tx(c.Name), vd(fv), vd(lv), clears, wr(c.Text)})
+		rows = append(rows, []report.Cell{tx(c.ID), tx(c.Name), vd(fv), vd(lv), clears, wr(c.Text)})
 	}
-	b.table(SheetStations, 1, []string{"Station", "Name", fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[0].RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[len(sw.Steps)-1].RH)), "Non-incendive from RH [%]", "What humidity does"},
+	b.Table(SheetStations, 1, []string{"Station", "Name", fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[0].RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[len(sw.Steps)-1].RH)), "Non-incendive from RH [%]", "What humidity does"},
 		[]float64{10, 28, 14, 14, 14, 60}, rows)
-	b.print(SheetStations, true)
+	b.PrintSetup(SheetStations, "$1:$1")
 	notes := append(rerunNotes()[2:3], [2]string{"Sweep", "At each step the same RH is set at the site and at every station (a station's own RH is overridden) and the survey is assessed again with the same limits. A station becomes non-incendive at the lowest step from which every higher step is non-incendive; when the highest step is still incendive or marginal, humidity alone never gets it there. Steps are only as fine as the range given."})
-	b.method(sw.Survey, info, notes)
-	b.cautions()
+	b.AddMethodSheet(report.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
+	b.AddCautionsSheet()
 	return b.write(w)
 }
 
@@ -245,58 +248,58 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	if c == nil {
 		return errors.New("compare workbook: no comparison")
 	}
-	b := newBook(newSurvey, SheetSummary)
+	b := newBook(&assess.Audit{Survey: newSurvey}, RunInfo{}, SheetSummary, "Comparison of two surveys")
 	sh := SheetSummary
 	b.check(b.f.SetColWidth(sh, "A", "A", 26))
 	b.check(b.f.SetColWidth(sh, "B", "B", 60))
-	b.put(sh, 1, 1, tx("Compare: "+b.site), "title")
+	b.Put(sh, 1, 1, report.TitleCell("Compare: "+b.site))
 	r := 3
 	for _, kv := range [][2]string{{"Old", c.Old.Label}, {"New", c.New.Label}, {"Objects added", fmt.Sprint(len(c.Added))}, {"Objects removed", fmt.Sprint(len(c.Removed))},
 		{"Objects changed", fmt.Sprint(len(c.Changed))}, {"Verdicts changed", fmt.Sprint(countVerdictChanges(c))}, {"Stations whose rank moved", fmt.Sprint(len(c.Stations))}} {
-		b.put(sh, 1, r, tx(kv[0]), "")
-		b.put(sh, 2, r, wr(kv[1]), "")
+		b.Put(sh, 1, r, tx(kv[0]))
+		b.Put(sh, 2, r, wr(kv[1]))
 		r++
 	}
 	r++
-	b.put(sh, 1, r, xc{v: "Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet).", wrap: true}, "caution")
+	b.Put(sh, 1, r, report.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
 	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("B%d", r)))
 	b.check(b.f.SetRowHeight(sh, r, 30))
-	b.print(sh, false)
+	b.PrintSetup(sh, "")
 
 	one := func(sheet string, ids []string, side *Side) {
 		byID := map[string]SideObject{}
 		for _, o := range side.Objects {
 			byID[o.ID] = o
 		}
-		var rows [][]xc
+		var rows [][]report.Cell
 		for _, id := range ids {
 			o := byID[id]
-			rows = append(rows, []xc{tx(id), tx(o.Station), vd(o.Verdict), ratioCell(o.Ratio)})
+			rows = append(rows, []report.Cell{tx(id), tx(o.Station), vd(o.Verdict), report.RatioCell(o.Ratio)})
 		}
 		if len(rows) == 0 {
-			rows = append(rows, []xc{tx("none")})
+			rows = append(rows, []report.Cell{tx("none")})
 		}
-		b.table(sheet, 1, []string{"ID", "Station", "Verdict", "Ratio E/MIE [–]"}, []float64{14, 12, 14, 12}, rows)
-		b.print(sheet, true)
+		b.Table(sheet, 1, []string{"ID", "Station", "Verdict", "Ratio E/MIE [–]"}, []float64{14, 12, 14, 12}, rows)
+		b.PrintSetup(sheet, "$1:$1")
 	}
 	one(SheetAdded, c.Added, c.New)
 	one(SheetRemoved, c.Removed, c.Old)
 
-	var rows [][]xc
+	var rows [][]report.Cell
 	for _, ch := range c.Changed {
 		for i, f := range ch.Fields {
-			rows = append(rows, []xc{tx(ch.ID), tx(ch.Station), tx(f), tx(ch.Before[i]), tx(ch.After[i]), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
+			rows = append(rows, []report.Cell{tx(ch.ID), tx(ch.Station), tx(f), tx(ch.Before[i]), tx(ch.After[i]), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
 		}
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []xc{tx("none")})
+		rows = append(rows, []report.Cell{tx("none")})
 	}
-	b.table(SheetChanged, 1, []string{"ID", "Station", "Field", "Old value (SI)", "New value (SI)", "Verdict old", "Verdict new"}, []float64{14, 12, 20, 18, 18, 14, 14}, rows)
-	b.print(SheetChanged, true)
+	b.Table(SheetChanged, 1, []string{"ID", "Station", "Field", "Old value (SI)", "New value (SI)", "Verdict old", "Verdict new"}, []float64{14, 12, 20, 18, 18, 14, 14}, rows)
+	b.PrintSetup(SheetChanged, "$1:$1")
 
 	rows = nil
 	for _, m := range c.Stations {
-		row := []xc{tx(m.ID), tx(m.Name), {}, {}, vd(m.VerdictBefore), vd(m.VerdictAfter), ct(rankMove(m))}
+		row := []report.Cell{tx(m.ID), tx(m.Name), report.EmptyCell(), report.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter), ct(rankMove(m))}
 		if m.RankBefore > 0 {
 			row[2] = in(m.RankBefore)
 		}
@@ -306,11 +309,11 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		rows = append(rows, row)
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []xc{tx("none"), tx("no station's rank moved")})
+		rows = append(rows, []report.Cell{tx("none"), tx("no station's rank moved")})
 	}
-	b.table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Move"}, []float64{10, 28, 9, 9, 14, 14, 22}, rows)
-	b.print(SheetStations, true)
-	b.cautions()
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Move"}, []float64{10, 28, 9, 9, 14, 14, 22}, rows)
+	b.PrintSetup(SheetStations, "$1:$1")
+	b.AddCautionsSheet()
 	return b.write(w)
 }
 
