@@ -220,7 +220,7 @@ func TestSweepCommand(t *testing.T) {
 		t.Fatal(err)
 	}
 	defer f.Close()
-	if got := f.GetSheetList(); !slices.Equal(got, []string{"Sweep", "Stations", "Method", "Cautions"}) {
+	if got := f.GetSheetList(); !slices.Equal(got, []string{"Sweep", "Stations", "Method", "Cautions", "Rejected"}) {
 		t.Errorf("sheets %v", got)
 	}
 }

@@ -239,6 +239,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	notes := append(rerunNotes()[2:3], [2]string{"Sweep", "At each step the same RH is set at the site and at every station (a station's own RH is overridden) and the survey is assessed again with the same limits. A station becomes non-incendive at the lowest step from which every higher step is non-incendive; when the highest step is still incendive or marginal, humidity alone never gets it there. Steps are only as fine as the range given."})
 	b.AddMethodSheet(report.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
 	b.AddCautionsSheet()
+	b.AddRejectedSheet(sw.Survey)
 	return b.write(w)
 }
 
