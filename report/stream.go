@@ -137,21 +137,8 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if err := w.objects.sw.Flush(); err != nil {
 		return fmt.Errorf("write workbook: sheet %s: %w", SheetObjects, err)
 	}
-	steps := []struct {
-		name string
-		fn   func() error
-	}{
-		{SheetStations, wb.stations},
-		{SheetFindings, wb.findings},
-		{SheetMethod, wb.method},
-		{SheetCautions, wb.cautions},
-		{SheetRejected, wb.rejected},
-		{SheetSummary, wb.summary},
-	}
-	for _, s := range steps {
-		if err := s.fn(); err != nil {
-			return fmt.Errorf("write workbook: sheet %s: %w", s.name, err)
-		}
+	if err := wb.writeSheets(false); err != nil {
+		return err
 	}
 	if wb.st.err != nil {
 		return fmt.Errorf("write workbook: %w", wb.st.err)

@@ -122,22 +122,8 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 			return fmt.Errorf("write workbook: sheet %s: %w", s, err)
 		}
 	}
-	steps := []struct {
-		name string
-		fn   func() error
-	}{
-		{SheetStations, wb.stations},
-		{SheetObjects, wb.objects},
-		{SheetFindings, wb.findings},
-		{SheetMethod, wb.method},
-		{SheetCautions, wb.cautions},
-		{SheetRejected, wb.rejected},
-		{SheetSummary, wb.summary},
-	}
-	for _, s := range steps {
-		if err := s.fn(); err != nil {
-			return fmt.Errorf("write workbook: sheet %s: %w", s.name, err)
-		}
+	if err := wb.writeSheets(true); err != nil {
+		return err
 	}
 	if st.err != nil {
 		return fmt.Errorf("write workbook: %w", st.err)
@@ -526,4 +512,31 @@ func problemRows(s *inventory.Survey) []problemRow {
 
 func (wb *workbook) rejected() error {
 	return tableSheetNormal(wb, SheetRejected, problemColumns(), problemRows(wb.a.Survey))
+}
+
+// writeSheets writes the audit's sheets in dependency order (the Summary last,
+// since it reads the others' cell ranges); the Objects sheet only when
+// withObjects: the streaming writer has written it row by row already.
+func (wb *workbook) writeSheets(withObjects bool) error {
+	type step struct {
+		name string
+		fn   func() error
+	}
+	steps := []step{{SheetStations, wb.stations}}
+	if withObjects {
+		steps = append(steps, step{SheetObjects, wb.objects})
+	}
+	steps = append(steps,
+		step{SheetFindings, wb.findings},
+		step{SheetMethod, wb.method},
+		step{SheetCautions, wb.cautions},
+		step{SheetRejected, wb.rejected},
+		step{SheetSummary, wb.summary},
+	)
+	for _, s := range steps {
+		if err := s.fn(); err != nil {
+			return fmt.Errorf("write workbook: sheet %s: %w", s.name, err)
+		}
+	}
+	return nil
 }
