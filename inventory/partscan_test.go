@@ -7,7 +7,7 @@ import (
 )
 
 // Number format codes: dates and times, and numbers whose codes hold the same
-// letters only inside quotes, brackets or escapes. Codes from ECMA-376 Part 1,
+// letters only inside quotes, brackets or escapes. Source: ECMA-376 Part 1,
 // 18.8.31 (numFmt) and the usual spreadsheet custom formats.
 func TestDateFormatCode(t *testing.T) {
 	tests := []struct {

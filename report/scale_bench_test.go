@@ -227,7 +227,7 @@ func floor(path string, width int, out io.Writer) error {
 				if i < len(cells) && i%2 == 0 {
 					row[i] = cells[i]
 				} else {
-					row[i] = float64(r) * 1.5e-3
+					row[i] = float64(r) * 1.5e-3 // invented for the demo: filler numbers of the floor sheet
 				}
 			}
 			if err := sw.SetRow(fmt.Sprintf("A%d", r), row); err != nil {

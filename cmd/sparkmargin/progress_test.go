@@ -17,7 +17,7 @@ func TestProgress(t *testing.T) {
 	clock := time.Date(2026, 1, 1, 0, 0, 0, 0, time.UTC)
 	p := &progress{w: &buf, enabled: true, now: func() time.Time { return clock }}
 	p.begin("big.xlsx")
-	for i := 0; i < 100; i++ { // 0.99 s in steps of 10 ms
+	for i := 0; i < 100; i++ { // 0.99 s in steps of 10 ms (timings invented for the test)
 		p.set(i * 1000)
 		clock = clock.Add(10 * time.Millisecond)
 	}
