@@ -18,16 +18,29 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 	if a == nil {
 		return fmt.Errorf("write summary: no audit")
 	}
+	sampled := a.Options.Samples > 0
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "Rank\tStation\tVerdict\tWorst ratio E/MIE\tObjects\tIncendive\tMarginal\tNon-incendive\tNot assessed")
+	header := "Rank\tStation\tVerdict\tWorst ratio E/MIE\tObjects\tIncendive\tMarginal\tNon-incendive\tNot assessed"
+	if sampled {
+		header += "\tP(any incendive)"
+	}
+	fmt.Fprintln(tw, header)
 	for i := range a.Stations {
 		s := &a.Stations[i]
 		name := s.Station.ID
 		if s.Station.Name != "" {
 			name += " " + s.Station.Name
 		}
-		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d\n", s.Rank, name, s.Verdict, FormatRatio(finitePtr(s.WorstRatio)),
+		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, FormatRatio(finitePtr(s.WorstRatio)),
 			len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed])
+		if sampled {
+			p := "–"
+			if s.ProbabilityAnyIncendive != nil {
+				p = fmt.Sprintf("%.3f", *s.ProbabilityAnyIncendive)
+			}
+			fmt.Fprint(tw, "\t"+p)
+		}
+		fmt.Fprintln(tw)
 	}
 	if err := tw.Flush(); err != nil {
 		return fmt.Errorf("write summary: %w", err)
@@ -39,6 +52,9 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 		total += a.Counts[v]
 	}
 	fmt.Fprintf(w, "\nObjects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
+	if sampled {
+		fmt.Fprintf(w, "Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet)\n", a.Options.Samples, a.Options.Seed)
+	}
 	if a.Survey != nil {
 		read, acc, rej := 0, 0, 0
 		var where []string
