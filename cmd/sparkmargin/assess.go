@@ -69,6 +69,9 @@ func newAssessCmd() *cobra.Command {
 }
 
 func runAssess(out, errOut io.Writer, o assessOptions) error {
+	if o.samples < 0 || o.workers < 0 {
+		return withCode(exitUsage, fmt.Errorf("--samples and --workers take a count of 0 or more (got --samples %d, --workers %d)", o.samples, o.workers))
+	}
 	if o.survey != "" {
 		if fi, err := os.Stat(o.survey); err == nil && fi.IsDir() {
 			o.surveys, o.survey = []string{o.survey}, ""

@@ -50,6 +50,7 @@ func TestVersionAndUsage(t *testing.T) {
 		{"unknown flag", []string{"check", "--nope", "x.xlsx"}, exitUsage, "", "unknown flag"},
 		{"missing argument", []string{"check"}, exitUsage, "", "accepts 1 arg"},
 		{"completion", []string{"completion", "bash"}, exitOK, "bash completion", ""},
+		{"negative samples", []string{"assess", "--samples", "-5", "x.xlsx"}, exitUsage, "", "--samples and --workers take a count"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
