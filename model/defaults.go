@@ -73,7 +73,7 @@ const (
 	srcTRGS      = "TRGS 727:2016"
 	srcBags      = "IEC 61340-4-4:2018"
 	srcJNIOSH    = "JNIOSH-TR (secondary summary); documented, overridable screen"
-	srcChoice    = "screening choice of this model (documented in package model)"
+	srcChoice    = "screening choice of this tool, not a standard value"
 	srcCCPS      = "CCPS glossary; AMS Glossary of Meteorology"
 	srcPaschen   = "Paschen minimum of air, about 327 V"
 	srcWalking   = "ESD Association body-voltage table (vinyl floor 12 kV at low RH), rounded up"
