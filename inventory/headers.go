@@ -21,6 +21,9 @@ var ErrHeaderUnit = errors.New("header unit does not fit the column")
 // NormalizeName folds a header or item name for matching: lower case, '-' and
 // '_' read as spaces, surrounding and repeated spaces dropped.
 func NormalizeName(s string) string {
+	if isNormalName(s) {
+		return s // already lower case, single spaces, nothing to map: the common case, without allocating
+	}
 	// strings.Map, not a Replacer: a Replacer is built on every call, and
 	// names are normalised for every cell read.
 	s = strings.Map(func(r rune) rune {
@@ -31,6 +34,25 @@ func NormalizeName(s string) string {
 		return r
 	}, strings.ToLower(s))
 	return strings.Join(strings.Fields(s), " ")
+}
+
+// isNormalName reports whether NormalizeName would return s unchanged: ASCII
+// without upper-case letters, '-' or '_', and words parted by single spaces.
+func isNormalName(s string) bool {
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		switch {
+		case c >= 0x80, c >= 'A' && c <= 'Z', c == '-', c == '_':
+			return false
+		case c == ' ':
+			if i == 0 || i == len(s)-1 || s[i-1] == ' ' {
+				return false
+			}
+		case c == '\t', c == '\n', c == '\v', c == '\f', c == '\r':
+			return false
+		}
+	}
+	return true
 }
 
 // headerAliases maps a few other names practitioners write to contract names
@@ -157,6 +179,9 @@ func findColumn(name string, cols []Column) (Column, bool) {
 func ColumnLetter(i int) string {
 	if i < 0 {
 		return ""
+	}
+	if i < 26 {
+		return "ABCDEFGHIJKLMNOPQRSTUVWXYZ"[i : i+1]
 	}
 	s := ""
 	for i >= 0 {

@@ -295,6 +295,9 @@ func plainOSError(err error) string {
 
 // short cuts s to at most n runes, marking the cut.
 func short(s string, n int) string {
+	if len(s) <= n {
+		return s // no more bytes than n, so no more runes
+	}
 	r := []rune(s)
 	if len(r) <= n {
 		return s
@@ -324,8 +327,9 @@ type table struct {
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
 	Rows      []rawRow
-	rowsSeen  int       // data rows read below the header (kept in Rows or handed to the row hook)
-	Problems  []Problem // sheet and header problems
+	rowsSeen  int          // data rows read below the header (kept in Rows or handed to the row hook)
+	units     map[int]Unit // parsed header units by column index (see headerUnit)
+	Problems  []Problem    // sheet and header problems
 }
 
 // reader holds one open workbook while it is read.
@@ -756,9 +760,36 @@ func (t *table) cell(rr rawRow, name string) (string, string, bool) {
 	if !ok {
 		return "", "", false
 	}
-	ref := fmt.Sprintf("%s%d", ColumnLetter(i), rr.Row)
+	ref := ColumnLetter(i) + strconv.Itoa(rr.Row)
 	if i >= len(rr.Cells) {
 		return "", ref, true
 	}
 	return strings.TrimSpace(rr.Cells[i]), ref, true
+}
+
+// cellText returns the trimmed text of a row's cell in column name ("" when
+// the column or the cell is absent), without its reference.
+func (t *table) cellText(rr rawRow, name string) string {
+	i, ok := t.Index[name]
+	if !ok || i >= len(rr.Cells) {
+		return ""
+	}
+	return strings.TrimSpace(rr.Cells[i])
+}
+
+// headerUnit returns the parsed unit of a numeric column's header, parsed
+// once per column (ParseQuantity would parse it for every cell).
+func (t *table) headerUnit(i int, unit string, dim Dimension) (Unit, error) {
+	if u, ok := t.units[i]; ok {
+		return u, nil
+	}
+	u, err := ParseUnit(unit, dim)
+	if err != nil {
+		return u, err // not kept: rare, and each cell gets its own error
+	}
+	if t.units == nil {
+		t.units = map[int]Unit{}
+	}
+	t.units[i] = u
+	return u, nil
 }

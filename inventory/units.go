@@ -384,6 +384,13 @@ func isNotMeasured(s string) bool {
 // Known false with a Note. The value is returned in SI units (percent stays
 // percent, °C becomes kelvin). Errors are *QuantityError wrapping a sentinel.
 func ParseQuantity(text, headerUnit string, dim Dimension) (Parsed, error) {
+	return parseQuantity(text, headerUnit, dim, nil, 0)
+}
+
+// parseQuantity is ParseQuantity with the header's unit taken from column
+// col of table t when t is not nil (the reader parses each column's header
+// unit once, see table.headerUnit).
+func parseQuantity(text, headerUnit string, dim Dimension, t *table, col int) (Parsed, error) {
 	s := strings.TrimSpace(strings.ReplaceAll(text, "\u00a0", " "))
 	if s == "" {
 		return Parsed{}, nil
@@ -451,11 +458,17 @@ func ParseQuantity(text, headerUnit string, dim Dimension) (Parsed, error) {
 		}
 		p.Unit = strings.TrimSpace(unitText)
 	case headerUnit != "" && dim != Dimensionless && dim != Slope:
-		hu, err := ParseUnit(headerUnit, dim)
+		var h Unit
+		var err error
+		if t != nil {
+			h, err = t.headerUnit(col, headerUnit, dim)
+		} else {
+			h, err = ParseUnit(headerUnit, dim)
+		}
 		if err != nil {
 			return Parsed{}, err
 		}
-		u = hu
+		u = h
 	default:
 		u = Unit{Dim: dim, Factor: 1}
 	}

@@ -81,6 +81,8 @@ type validator struct {
 	rows   map[string][]*rowState
 	tables map[string]*table
 	quiet  map[string]int // rows accepted without any problem whose row state was dropped
+	// builtins remembers built-in material look-ups by reference (builtinMaterial).
+	builtins map[string]builtinHit
 }
 
 func (v *validator) newRow(sheet string, row int) *rowState {
@@ -127,8 +129,7 @@ func (f *field) warnf(name string, err error, fix, format string, args ...any) {
 }
 
 func (f *field) text(name string) string {
-	s, _, _ := f.t.cell(f.rr, name)
-	return s
+	return f.t.cellText(f.rr, name)
 }
 
 // qty parses a numeric cell; the returned Parsed keeps the written number for suggestions.
@@ -159,7 +160,7 @@ func (f *field) qty(name string) (Quantity, Parsed) {
 			"the cell holds a yes/no value (TRUE or FALSE), not a number")
 		return Quantity{Cell: ref}, Parsed{}
 	}
-	p, err := ParseQuantity(text, m.Unit, m.Column.Dim)
+	p, err := parseQuantity(text, m.Unit, m.Column.Dim, f.t, f.t.Index[name])
 	if err != nil {
 		msg, fix := err.Error(), ""
 		var qe *QuantityError
@@ -472,7 +473,7 @@ func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]boo
 	}
 	// A formula without a stored result in a text or date column (numeric
 	// columns report it where the number is parsed).
-	for i := 0; i < len(rr.Cells) || i < 64; i++ {
+	for i := 0; len(t.Formula) > 0 && (i < len(rr.Cells) || i < 64); i++ {
 		m, ok := t.Cols[i]
 		if !ok || (m.Column.Dim != Text && m.Column.Dim != Date) {
 			continue
@@ -1106,6 +1107,7 @@ type objectPass struct {
 	ids       idRegistry
 	seen      map[int]bool
 	lists     map[string][]string
+	hints     map[string]string // kindHints, built once
 	stPresent bool
 	stations  map[string]refState
 	mats      map[string]matState
@@ -1116,7 +1118,7 @@ type objectPass struct {
 }
 
 func (v *validator) newObjectPass(stations map[string]refState, mats map[string]matState) *objectPass {
-	return &objectPass{v: v, out: map[string]refState{}, ids: idRegistry{}, seen: map[int]bool{}, lists: FixedLists(),
+	return &objectPass{v: v, out: map[string]refState{}, ids: idRegistry{}, seen: map[int]bool{}, lists: FixedLists(), hints: kindHints(),
 		stPresent: v.tables[SheetStations].Present, stations: stations, mats: mats}
 }
 
@@ -1132,7 +1134,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		dup = true
 	}
 	if raw := f.text("Kind"); raw != "" {
-		if k, ok := kindHints()[NormalizeName(raw)]; ok {
+		if k, ok := op.hints[NormalizeName(raw)]; ok {
 			// A word of the trade for a kind: the surveyor chooses, since the kind picks the model.
 			f.errorf("Kind", ErrNotInList, fmt.Sprintf("did you mean %q? (use one of: %s)", k, strings.Join(Kinds(), ", ")),
 				"%q is not one of the Kind values", short(raw, 60))
@@ -1153,22 +1155,30 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		o.Material = v.resolveMaterial(f, mref, op.mats)
 	}
 	o.Backing = f.enumValue("Backing", op.lists[ListBacking], map[string]string{"grounded": "earthed", "earth": "earthed", "on earthed metal": "earthed", "no": "none", "free": "none"})
-	o.BagType = bagTypeValue(f)
+	o.BagType = bagTypeValue(f, op.lists[ListBagType])
 	o.Filling = f.enumValue("Filling", op.lists[ListFilling], map[string]string{"dip tube": "dip pipe", "diptube": "dip pipe", "top fill": "top", "bottom fill": "bottom", "splash": "top"})
 
-	var p = map[string]Parsed{}
-	q := func(name string) Quantity {
-		qq, pp := f.qty(name)
-		p[name] = pp
-		return qq
-	}
-	o.Length, o.Width, o.Diameter = q("Length"), q("Width"), q("Diameter")
-	o.Thickness, o.DistanceToEarth = q("Thickness"), q("Distance to earth")
-	o.Field, o.FieldDistance, o.SurfacePotential = q("Field"), q("Field distance"), q("Surface potential")
-	o.Speed, o.MassFlow, o.ChargeToMass = q("Speed"), q("Mass flow"), q("Charge-to-mass")
-	o.ChargingCurrent, o.ChargingTime, o.ParticleSize = q("Charging current"), q("Charging time"), q("Particle size")
-	o.Resistance, o.Capacitance = q("Resistance to earth"), q("Capacitance")
-	o.Conductivity, o.Permittivity = q("Conductivity"), q("Relative permittivity")
+	// The cells are parsed in the order of the columns below (their problems
+	// come in that order); the Parsed of those checked for slips is kept.
+	var pLength, pWidth, pDiameter, pField, pSurface, pSpeed, pParticle, pCapacitance Parsed
+	o.Length, pLength = f.qty("Length")
+	o.Width, pWidth = f.qty("Width")
+	o.Diameter, pDiameter = f.qty("Diameter")
+	o.Thickness, _ = f.qty("Thickness")
+	o.DistanceToEarth, _ = f.qty("Distance to earth")
+	o.Field, pField = f.qty("Field")
+	o.FieldDistance, _ = f.qty("Field distance")
+	o.SurfacePotential, pSurface = f.qty("Surface potential")
+	o.Speed, pSpeed = f.qty("Speed")
+	o.MassFlow, _ = f.qty("Mass flow")
+	o.ChargeToMass, _ = f.qty("Charge-to-mass")
+	o.ChargingCurrent, _ = f.qty("Charging current")
+	o.ChargingTime, _ = f.qty("Charging time")
+	o.ParticleSize, pParticle = f.qty("Particle size")
+	o.Resistance, _ = f.qty("Resistance to earth")
+	o.Capacitance, pCapacitance = f.qty("Capacitance")
+	o.Conductivity, _ = f.qty("Conductivity")
+	o.Permittivity, _ = f.qty("Relative permittivity")
 
 	// physical ranges
 	for _, n := range []struct {
@@ -1180,20 +1190,19 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		{"Conductivity", o.Conductivity}} {
 		f.positive(n.name, n.q)
 	}
-	for _, n := range []string{"Length", "Width", "Diameter"} {
-		qq := map[string]Quantity{"Length": o.Length, "Width": o.Width, "Diameter": o.Diameter}[n]
-		f.slip(n, qq, p[n], MaxSize, "larger than any plant object")
-	}
-	f.slip("Particle size", o.ParticleSize, p["Particle size"], MaxParticleSize, "above 100 mm, no powder")
+	f.slip("Length", o.Length, pLength, MaxSize, "larger than any plant object")
+	f.slip("Width", o.Width, pWidth, MaxSize, "larger than any plant object")
+	f.slip("Diameter", o.Diameter, pDiameter, MaxSize, "larger than any plant object")
+	f.slip("Particle size", o.ParticleSize, pParticle, MaxParticleSize, "above 100 mm, no powder")
 	f.nonNegative("Speed", o.Speed)
-	f.slip("Speed", o.Speed, p["Speed"], MaxSpeed, "faster than any web, belt or line flow")
+	f.slip("Speed", o.Speed, pSpeed, MaxSpeed, "faster than any web, belt or line flow")
 	f.nonNegative("Mass flow", o.MassFlow)
-	f.slip("Field", o.Field, p["Field"], MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
+	f.slip("Field", o.Field, pField, MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
 	thinBacked := o.Backing == "earthed" && o.Thickness.Known && o.Thickness.Value < ThinLayer
 	if !thinBacked {
-		f.slip("Surface potential", o.SurfacePotential, p["Surface potential"], MaxSurfacePotential, "beyond what a plant object holds in air")
+		f.slip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air")
 	}
-	f.slip("Capacitance", o.Capacitance, p["Capacitance"], MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
+	f.slip("Capacitance", o.Capacitance, pCapacitance, MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
 	if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
 		f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
 	}
@@ -1340,18 +1349,19 @@ func joinAnd(s []string) string {
 }
 
 // bagTypeValue reads "C", "type C", "Type-C".
-func bagTypeValue(f *field) string {
+// types is the list of bag types (FixedLists()[ListBagType]).
+func bagTypeValue(f *field, types []string) string {
 	raw := f.text("Bag type")
 	if raw == "" {
 		return ""
 	}
 	n := strings.ToUpper(strings.TrimSpace(strings.TrimPrefix(NormalizeName(raw), "type")))
-	for _, b := range FixedLists()[ListBagType] {
+	for _, b := range types {
 		if n == b {
 			return b
 		}
 	}
-	return f.enumValue("Bag type", FixedLists()[ListBagType], nil)
+	return f.enumValue("Bag type", types, nil)
 }
 
 // resolveMaterial finds a material by name: the survey's Materials sheet
@@ -1375,8 +1385,8 @@ func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matSta
 			return m.m.Name
 		}
 	}
-	if bm, ok := LookupMaterial(ref); ok {
-		return bm.Name
+	if name, ok := v.builtinMaterial(ref); ok {
+		return name
 	}
 	var names []string
 	for _, m := range v.s.Materials {
@@ -1388,6 +1398,25 @@ func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matSta
 	}
 	f.errorf("Material", ErrUnknownReference, fix, "material %q is neither built in nor on the Materials sheet", short(ref, 60))
 	return ""
+}
+
+// builtinMaterial is LookupMaterial(ref)'s name, remembered per reference
+// for the pass (a survey names the same few materials on many rows).
+func (v *validator) builtinMaterial(ref string) (string, bool) {
+	if hit, ok := v.builtins[ref]; ok {
+		return hit.name, hit.ok
+	}
+	bm, ok := LookupMaterial(ref)
+	if v.builtins == nil {
+		v.builtins = map[string]builtinHit{}
+	}
+	v.builtins[ref] = builtinHit{bm.Name, ok}
+	return bm.Name, ok
+}
+
+type builtinHit struct {
+	name string
+	ok   bool
 }
 
 // ---- Changes ----
