@@ -6,8 +6,7 @@ import (
 	"runtime"
 	"sync"
 	"sync/atomic"
-
-	"gonum.org/v1/gonum/stat/distuv"
+	"unsafe"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
@@ -39,6 +38,13 @@ const DefaultSeed uint64 = 1
 //     have the reading as their median.
 //   - An object the assessment could not judge at all (unknown station, atmosphere
 //     or kind) is "not assessed" in every draw.
+//   - Draws are those of gonum's distuv.Normal{Mu, Sigma} and
+//     distuv.LogNormal{Mu, Sigma} on the object's stream (mu + sigma z, exp(mu +
+//     sigma z), z from the generator's NormFloat64), written out so that the
+//     sample loop makes no interface call to a distribution and no rand.Rand per draw.
+//   - The sizes, readings, flows, speed and conductivity of a row that feed
+//     nothing for it (probed once per object, see prune) are not drawn; this
+//     saves work and leaves the distribution of the results unchanged.
 //   - Reproducible: each object has its own stream, a PCG generator seeded with
 //     (seed, FNV-1a 64 of the object ID), so its result depends neither on the
 //     number of workers nor on the row order. Two rows with the same ID get the
@@ -126,19 +132,6 @@ type drawSpec struct {
 	sigma  float64 // normal: SI standard deviation; log-normal: of ln
 	sign   float64 // log-normal: the value's sign
 	upper  float64 // normal: reflect above this (humidity 100 %RH); 0 none
-
-	// The distributions, built once per object on the object's stream (bind).
-	normal    distuv.Normal
-	logNormal distuv.LogNormal
-}
-
-// bind builds the draw's distribution on src.
-func (d *drawSpec) bind(src rand.Source) {
-	if d.dist == LogNormal {
-		d.logNormal = distuv.LogNormal{Mu: d.mu, Sigma: d.sigma, Src: src}
-	} else {
-		d.normal = distuv.Normal{Mu: d.mu, Sigma: d.sigma, Src: src}
-	}
 }
 
 // samplePlan lists the draws of one object; a fixed array, so building it does not allocate.
@@ -226,9 +219,13 @@ func planFor(r *ObjectResult, tab *[NumUncertainInputs]Uncertainty, siteRH inven
 	return p
 }
 
-// sampler holds one worker's generator and energy buffer, reused object after object.
+// sampler holds one worker's generator and energy buffer, reused object after
+// object. The generator state lives in the sampler, which is padded at both ends
+// so that two workers' states never share a cache line.
 type sampler struct {
-	src      *rand.PCG
+	_        [64]byte
+	pcg      rand.PCG
+	rng      *rand.Rand // on pcg
 	energies []float64
 	seed     uint64
 	samples  int
@@ -236,11 +233,14 @@ type sampler struct {
 	margin   float64
 	tab      *[NumUncertainInputs]Uncertainty
 	siteRH   inventory.Quantity
+	_        [64]byte
 }
 
 func newSampler(seed uint64, samples int, lim *model.Limits, margin float64, tab *[NumUncertainInputs]Uncertainty, siteRH inventory.Quantity) *sampler {
-	return &sampler{src: rand.NewPCG(seed, 0), energies: make([]float64, 0, samples), seed: seed, samples: samples,
+	s := &sampler{energies: make([]float64, 0, samples), seed: seed, samples: samples,
 		lim: lim, margin: margin, tab: tab, siteRH: siteRH}
+	s.rng = rand.New(&s.pcg)
+	return s
 }
 
 // objectStream returns the second PCG seed word of an object: FNV-1a 64 of its ID.
@@ -266,10 +266,6 @@ func (s *sampler) object(r *ObjectResult) Probability {
 		return p
 	}
 	plan := planFor(r, s.tab, s.siteRH)
-	s.src.Seed(s.seed, objectStream(r.Object.ID))
-	for j := 0; j < plan.n; j++ {
-		plan.draws[j].bind(s.src)
-	}
 	var counts [NotAssessed + 1]int
 	energies := s.energies[:0]
 	// Every draw overwrites the same fields, so the input is copied once.
@@ -278,9 +274,14 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	for j := 0; j < plan.n; j++ {
 		fields[j] = plan.draws[j].target.field(&in, &env)
 	}
+	stream := objectStream(r.Object.ID)
+	s.pcg.Seed(s.seed, stream^probeStream)
+	s.prune(&plan, &fields, &in, &env)
+	s.pcg.Seed(s.seed, stream)
+	rng := s.rng
 	for k := 0; k < s.samples; k++ {
 		for j := 0; j < plan.n; j++ {
-			*fields[j] = plan.draws[j].draw()
+			*fields[j] = plan.draws[j].draw(rng)
 		}
 		ev := model.Evaluate(in, env, *s.lim)
 		c := Classify(&in, &env, &ev, s.lim, s.margin)
@@ -297,6 +298,96 @@ func (s *sampler) object(r *ObjectResult) Probability {
 		p.EnergyP05, p.EnergyP50, p.EnergyP95 = percentiles(energies)
 	}
 	return p
+}
+
+// probeStream is XORed into an object's stream word for the draws that find its
+// active inputs, so they are reproducible and apart from the sample draws.
+const probeStream uint64 = 0x9e3779b97f4a7c15
+
+// probeBases is the number of input sets the active inputs are probed at: the
+// point estimate, then joint draws.
+const probeBases = 3
+
+// prunable reports whether a target may be left out when the probes find it
+// inactive: the sizes, readings, flows, speed and conductivity, which feed the
+// model or not according to which inputs the row gives. The resistance, the
+// capacitance, the charging time, the MIE and the humidity are always drawn:
+// whether they matter can hang on the values of the others (an MIE does not
+// change a zero energy, but a draw of the resistance can make the energy
+// non-zero; a charging time does not change a body at steady state, but a
+// higher resistance can lengthen its time constant).
+func (t sampleTarget) prunable() bool {
+	switch t {
+	case tResistance, tCapacitance, tChargingTime, tMIE, tRelativeHumidity:
+		return false
+	}
+	return true
+}
+
+// prune keeps in plan only the draws that feed the result. At each probe base
+// (the point estimate, then joint draws of every input) each prunable input not
+// yet found active is set to a fresh draw on its own; it is active when the model's
+// evaluation or the classification changes in any bit (NaN-safe: the comparison
+// is of the bytes). An input found inactive feeds nothing for this object (the
+// sizes of a part with a measured capacitance and potential, for instance), so
+// not drawing it saves the work and leaves the distribution of the results as
+// it is. in, env and fields are left at the point estimate.
+func (s *sampler) prune(plan *samplePlan, fields *[numTargets]*float64, in *model.Input, env *model.Environment) {
+	if plan.n == 0 {
+		return
+	}
+	var point [numTargets]float64
+	for j := 0; j < plan.n; j++ {
+		point[j] = *fields[j]
+	}
+	var active [numTargets]bool
+	left := plan.n
+	for j := 0; j < plan.n; j++ {
+		if !plan.draws[j].target.prunable() {
+			active[j] = true
+			left--
+		}
+	}
+	for b := 0; b < probeBases && left > 0; b++ {
+		if b > 0 {
+			for j := 0; j < plan.n; j++ {
+				*fields[j] = plan.draws[j].draw(s.rng)
+			}
+		}
+		refEv := model.Evaluate(*in, *env, *s.lim)
+		refC := Classify(in, env, &refEv, s.lim, s.margin)
+		for j := 0; j < plan.n; j++ {
+			if active[j] {
+				continue
+			}
+			base := *fields[j]
+			*fields[j] = plan.draws[j].draw(s.rng)
+			ev := model.Evaluate(*in, *env, *s.lim)
+			c := Classify(in, env, &ev, s.lim, s.margin)
+			if !sameBytes(&ev, &refEv) || !sameBytes(&c, &refC) {
+				active[j] = true
+				left--
+			}
+			*fields[j] = base
+		}
+	}
+	n := 0
+	for j := 0; j < plan.n; j++ {
+		*fields[j] = point[j]
+		if active[j] {
+			plan.draws[n], fields[n] = plan.draws[j], fields[j]
+			n++
+		}
+	}
+	plan.n = n
+}
+
+// sameBytes reports whether *a and *b hold the same bytes. For the plain
+// structs of numbers it is used on, this is equality with NaN equal to itself;
+// any doubt (a NaN of another payload) only reads as a difference.
+func sameBytes[T any](a, b *T) bool {
+	n := unsafe.Sizeof(*a)
+	return string(unsafe.Slice((*byte)(unsafe.Pointer(a)), n)) == string(unsafe.Slice((*byte)(unsafe.Pointer(b)), n))
 }
 
 // percentiles returns the 5th, 50th and 95th percentiles of x by the empirical
@@ -359,12 +450,14 @@ func selectNth(x []float64, k int) float64 {
 	return x[k]
 }
 
-// draw draws one value from the bound distribution.
-func (d *drawSpec) draw() float64 {
+// draw draws one value on rng: a standard normal z (the generator's ziggurat),
+// then mu + sigma z, or sign exp(mu + sigma z) for a log-normal.
+func (d *drawSpec) draw(rng *rand.Rand) float64 {
+	z := rng.NormFloat64()
 	if d.dist == LogNormal {
-		return d.sign * d.logNormal.Rand()
+		return d.sign * math.Exp(z*d.sigma+d.mu)
 	}
-	x := d.normal.Rand()
+	x := z*d.sigma + d.mu
 	if (d.mu > 0 && x < 0) || (d.mu < 0 && x > 0) {
 		x = -x
 	}

@@ -247,22 +247,19 @@ func TestMonteCarloNotAssessedObject(t *testing.T) {
 }
 
 func TestDrawStaysPhysical(t *testing.T) {
-	src := rand.NewPCG(1, 2)
+	rng := rand.New(rand.NewPCG(1, 2))
 	// A 10 mm distance with a 10 mm spread (the table default) and humidity near 100 %RH.
 	dist := drawSpec{target: tFieldDistance, dist: NormalAbsolute, mu: 0.01, sigma: 0.01}
 	rh := drawSpec{target: tRelativeHumidity, dist: NormalAbsolute, mu: 97, sigma: 5, upper: 100}
 	neg := drawSpec{target: tField, dist: NormalRelative, mu: -1e5, sigma: 1e5}
-	for _, d := range []*drawSpec{&dist, &rh, &neg} {
-		d.bind(src)
-	}
 	for k := 0; k < 2000; k++ {
-		if x := dist.draw(); x < 0 {
+		if x := dist.draw(rng); x < 0 {
 			t.Fatalf("distance drawn negative: %v", x)
 		}
-		if x := rh.draw(); x < 0 || x > 100 {
+		if x := rh.draw(rng); x < 0 || x > 100 {
 			t.Fatalf("humidity drawn outside 0-100: %v", x)
 		}
-		if x := neg.draw(); x > 0 {
+		if x := neg.draw(rng); x > 0 {
 			t.Fatalf("negative field reading changed sign: %v", x)
 		}
 	}
@@ -517,4 +514,60 @@ func TestMonteCarloSiteOverride(t *testing.T) {
 			t.Errorf("%s: recorded %v (overridden %v), want 0 from the Site sheet", u.Name, u.Spread, u.Overridden)
 		}
 	}
+}
+
+func TestPrunedInputsFeedNothing(t *testing.T) {
+	// Every input the sampler leaves out of a demo object's draws must change
+	// neither the verdict nor the energy at any of 500 joint draws of all the
+	// object's inputs (derived: an input left out must not feed the result).
+	a := Assess(demoSurvey(t), Options{})
+	tab := uncertaintyTable(DefaultUncertainties())
+	s := newSampler(DefaultSeed, 10, &a.Options.Limits, DefaultMargin, &tab, a.Survey.Site.RelativeHumidity)
+	rng := rand.New(rand.NewPCG(3, 4))
+	total, drawn := 0, 0
+	for i := range a.Objects {
+		r := &a.Objects[i]
+		full := planFor(r, s.tab, s.siteRH)
+		plan := full
+		in, env := r.Input, r.Environment
+		var fields [numTargets]*float64
+		for j := 0; j < plan.n; j++ {
+			fields[j] = plan.draws[j].target.field(&in, &env)
+		}
+		s.prune(&plan, &fields, &in, &env)
+		total, drawn = total+full.n, drawn+plan.n
+		kept := map[sampleTarget]bool{}
+		for j := 0; j < plan.n; j++ {
+			kept[plan.draws[j].target] = true
+		}
+		var all [numTargets]*float64
+		for j := 0; j < full.n; j++ {
+			all[j] = full.draws[j].target.field(&in, &env)
+		}
+		for k := 0; k < 500; k++ {
+			for j := 0; j < full.n; j++ {
+				*all[j] = full.draws[j].draw(rng)
+			}
+			ev0 := model.Evaluate(in, env, *s.lim)
+			c0 := Classify(&in, &env, &ev0, s.lim, s.margin)
+			for j := 0; j < full.n; j++ {
+				if kept[full.draws[j].target] {
+					continue
+				}
+				base := *all[j]
+				*all[j] = full.draws[j].draw(rng)
+				ev := model.Evaluate(in, env, *s.lim)
+				c := Classify(&in, &env, &ev, s.lim, s.margin)
+				if c.Verdict != c0.Verdict || !sameBytes(&c.Energy, &c0.Energy) {
+					t.Fatalf("%s: input %d was left out but changes the result (%v, %v J -> %v, %v J)",
+						r.Object.ID, full.draws[j].target, c0.Verdict, c0.Energy, c.Verdict, c.Energy)
+				}
+				*all[j] = base
+			}
+		}
+	}
+	if drawn >= total {
+		t.Errorf("no input left out of the demo's draws (%d of %d drawn)", drawn, total)
+	}
+	t.Logf("%d of %d inputs drawn", drawn, total)
 }
