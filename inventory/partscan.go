@@ -140,6 +140,38 @@ func (p *partScanner) keepTail(b []byte) {
 var errTextRun = errors.New("text run too long")
 
 func checkPart(zf *zip.File, name string) string {
+	if zf.UncompressedSize64 <= maxXMLCheck && quickCheckPart(zf) {
+		return ""
+	}
+	return fullCheckPart(zf, name)
+}
+
+// quickCheckPart reports whether a part is sound by one pass of xmlScan over
+// its bytes: it unpacks without an error, holds no run of text longer than
+// maxTextRun, and is well-formed XML in the subset xmlScan is sure of, with
+// its root closed and at most maxFarCells far cells, which is when
+// fullCheckPart finds nothing either. When it cannot tell, fullCheckPart
+// reads the part again and words what is wrong.
+func quickCheckPart(zf *zip.File) bool {
+	rc, err := zf.Open()
+	if err != nil {
+		return false
+	}
+	defer rc.Close()
+	var sc partScanner
+	tee := io.TeeReader(rc, &sc)
+	x := newXMLScan(tee)
+	if !x.scan() {
+		return false
+	}
+	if _, err := io.Copy(io.Discard, tee); err != nil || x.err != nil || sc.long {
+		return false
+	}
+	return x.depth == 0 && x.elements > 0 && x.far <= maxFarCells
+}
+
+// fullCheckPart checks a part token by token with encoding/xml.
+func fullCheckPart(zf *zip.File, name string) string {
 	rc, err := zf.Open()
 	if err != nil {
 		return "" // excelize words an unreadable zip
