@@ -329,6 +329,7 @@ type table struct {
 	Rows      []rawRow
 	rowsSeen  int          // data rows read below the header (kept in Rows or handed to the row hook)
 	units     map[int]Unit // parsed header units by column index (see headerUnit)
+	refEnd    []int        // end of column j's letters in a row's references, without the row numbers (see field.ref)
 	Problems  []Problem    // sheet and header problems
 }
 

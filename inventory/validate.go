@@ -97,6 +97,47 @@ type field struct {
 	t  *table
 	rr rawRow
 	st *rowState
+	// refs holds the A1 references of the row's cells in the header's
+	// columns, one after the other, built once per row (see ref).
+	refs string
+}
+
+// ref returns the A1 reference of the row's cell in column i. The
+// references of a row are built in one string, so a row's quantities cost
+// one allocation for their cell references, not one each.
+func (f *field) ref(i int) string {
+	t := f.t
+	if t.refEnd == nil {
+		n := 0
+		for _, j := range t.Index {
+			n = max(n, j+1)
+		}
+		t.refEnd = make([]int, n)
+		end := 0
+		for j := range n {
+			end += len(ColumnLetter(j))
+			t.refEnd[j] = end
+		}
+	}
+	if i >= len(t.refEnd) {
+		return ColumnLetter(i) + strconv.Itoa(f.rr.Row)
+	}
+	var digits [20]byte
+	d := strconv.AppendInt(digits[:0], int64(f.rr.Row), 10)
+	if f.refs == "" {
+		var b strings.Builder
+		b.Grow(t.refEnd[len(t.refEnd)-1] + len(t.refEnd)*len(d))
+		for j := range t.refEnd {
+			b.WriteString(ColumnLetter(j))
+			b.Write(d)
+		}
+		f.refs = b.String()
+	}
+	start := i * len(d)
+	if i > 0 {
+		start += t.refEnd[i-1]
+	}
+	return f.refs[start : t.refEnd[i]+(i+1)*len(d)]
 }
 
 func (f *field) letter(name string) string {
@@ -134,7 +175,10 @@ func (f *field) text(name string) string {
 
 // qty parses a numeric cell; the returned Parsed keeps the written number for suggestions.
 func (f *field) qty(name string) (Quantity, Parsed) {
-	text, ref, ok := f.t.cell(f.rr, name)
+	text, ref, ok := "", "", false
+	if i, in := f.t.Index[name]; in {
+		text, ref, ok = f.t.cellText(f.rr, name), f.ref(i), true
+	}
 	if fm, isFormula := f.t.Formula[ref]; ok && isFormula {
 		f.errorf(name, ErrFormulaWithoutValue, "open the workbook in a spreadsheet program so that it calculates, save it and check again; or type the value",
 			"the cell holds the formula =%s but no stored result, and formulas are never calculated here", short(fm, 60))
@@ -1108,6 +1152,7 @@ type objectPass struct {
 	seen      map[int]bool
 	lists     map[string][]string
 	hints     map[string]string // kindHints, built once
+	matRefs   map[string]matHit // Materials sheet look-ups (sheetMaterial)
 	stPresent bool
 	stations  map[string]refState
 	mats      map[string]matState
@@ -1118,7 +1163,7 @@ type objectPass struct {
 }
 
 func (v *validator) newObjectPass(stations map[string]refState, mats map[string]matState) *objectPass {
-	return &objectPass{v: v, out: map[string]refState{}, ids: idRegistry{}, seen: map[int]bool{}, lists: FixedLists(), hints: kindHints(),
+	return &objectPass{v: v, out: map[string]refState{}, ids: idRegistry{}, seen: map[int]bool{}, lists: FixedLists(), hints: kindHints(), matRefs: map[string]matHit{},
 		stPresent: v.tables[SheetStations].Present, stations: stations, mats: mats}
 }
 
@@ -1152,7 +1197,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		o.Station = id
 	}
 	if mref := f.text("Material"); mref != "" {
-		o.Material = v.resolveMaterial(f, mref, op.mats)
+		o.Material = v.resolveMaterial(f, mref, op.mats, op.matRefs)
 	}
 	o.Backing = f.enumValue("Backing", op.lists[ListBacking], map[string]string{"grounded": "earthed", "earth": "earthed", "on earthed metal": "earthed", "no": "none", "free": "none"})
 	o.BagType = bagTypeValue(f, op.lists[ListBagType])
@@ -1366,24 +1411,15 @@ func bagTypeValue(f *field, types []string) string {
 
 // resolveMaterial finds a material by name: the survey's Materials sheet
 // first, then the built-ins and their aliases.
-func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matState) string {
-	if m, ok := mats[strings.ToLower(ref)]; ok {
+// cache remembers the look-ups on mats (see sheetMaterial).
+func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matState, cache map[string]matHit) string {
+	if m, ok := sheetMaterial(ref, mats, cache); ok {
 		if !m.accepted {
 			f.errorf("Material", ErrRejectedReference, fmt.Sprintf("fix Materials!%d first", m.row),
 				"material %q was rejected (Materials!%d), so this row cannot be assessed", short(ref, 60), m.row)
 			return ""
 		}
 		return m.m.Name
-	}
-	for k, m := range mats {
-		if sameName(k, ref) {
-			if !m.accepted {
-				f.errorf("Material", ErrRejectedReference, fmt.Sprintf("fix Materials!%d first", m.row),
-					"material %q was rejected (Materials!%d), so this row cannot be assessed", short(ref, 60), m.row)
-				return ""
-			}
-			return m.m.Name
-		}
 	}
 	if name, ok := v.builtinMaterial(ref); ok {
 		return name
@@ -1398,6 +1434,32 @@ func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matSta
 	}
 	f.errorf("Material", ErrUnknownReference, fix, "material %q is neither built in nor on the Materials sheet", short(ref, 60))
 	return ""
+}
+
+// sheetMaterial finds ref on the Materials sheet: the same name lower-cased,
+// else the first name that matches once normalised (in the map's order, as
+// it always was), remembered in cache per reference (mats does not change
+// while the objects are read).
+func sheetMaterial(ref string, mats map[string]matState, cache map[string]matHit) (matState, bool) {
+	if h, ok := cache[ref]; ok {
+		return h.m, h.ok
+	}
+	m, ok := mats[strings.ToLower(ref)]
+	if !ok {
+		for k, km := range mats {
+			if sameName(k, ref) {
+				m, ok = km, true
+				break
+			}
+		}
+	}
+	cache[ref] = matHit{m, ok}
+	return m, ok
+}
+
+type matHit struct {
+	m  matState
+	ok bool
 }
 
 // builtinMaterial is LookupMaterial(ref)'s name, remembered per reference
