@@ -101,11 +101,11 @@ type partScanner struct {
 
 func (p *partScanner) Write(b []byte) (int, error) {
 	n := len(b)
+	p.keepTail(b)
 	for len(b) > 0 {
 		i := bytes.IndexByte(b, '<')
 		if i < 0 {
 			p.run += int64(len(b))
-			p.keepTail(b)
 			break
 		}
 		p.run += int64(i)
@@ -113,7 +113,6 @@ func (p *partScanner) Write(b []byte) (int, error) {
 			p.long = true
 		}
 		p.run = 0
-		p.keepTail(b[:i+1])
 		b = b[i+1:]
 	}
 	if p.run > maxTextRun {

@@ -50,7 +50,17 @@ func (x *xmlScan) fill(need int) bool {
 
 // next returns the next byte, false at the end of the part.
 func (x *xmlScan) next() (byte, bool) {
-	if x.pos >= x.end && !x.fill(1) {
+	if x.pos < x.end {
+		b := x.buf[x.pos]
+		x.pos++
+		return b, true
+	}
+	return x.refill()
+}
+
+// refill is next when the buffer is used up.
+func (x *xmlScan) refill() (byte, bool) {
+	if !x.fill(1) {
 		return 0, false
 	}
 	b := x.buf[x.pos]
