@@ -1,6 +1,7 @@
 package inventory
 
 import (
+	"errors"
 	"fmt"
 	"runtime/debug"
 )
@@ -65,37 +66,14 @@ func (r *reader) stream(h *streamHooks) (*Survey, error) {
 	}
 	p := v.newObjectPass(stations, mats)
 	p.quiet = true
-	p.each = func(o Object) error { return call(func() error { return h.each(o) }) }
 	if len(tables[SheetChanges].Rows) == 0 {
 		p.out = nil // nothing refers to the objects: their IDs need not be kept twice
 	}
-	// The first maxBoolCheckRows rows are held back so that a survey-sized
-	// sheet gets the same check for booleans as ReadFile gives it; a larger
-	// sheet gets none (as with ReadFile) and its rows go through one by one.
-	var failed error
-	buffering := true
-	r.rowHook, r.hookSheet = func(t *table, rr rawRow) bool {
-		if buffering {
-			if len(t.Rows) < h.holdBack {
-				t.Rows = append(t.Rows, rr)
-				return true
-			}
-			buffering = false
-			for _, b := range t.Rows {
-				if failed = p.row(t, b); failed != nil {
-					return false
-				}
-			}
-			t.Rows = nil
-		}
-		failed = p.row(t, rr)
-		return failed == nil
-	}, SheetObjects
-	t := r.readTable(SheetObjects)
-	r.rowHook = nil
+	t, failed := r.streamObjects(p, h)
 	if failed != nil {
 		return nil, failed
 	}
+	p.each = func(o Object) error { return call(func() error { return h.each(o) }) }
 	tables[SheetObjects] = t
 	v.tableProblems(SheetObjects)
 	// Rows still held back (a sheet of at most maxBoolCheckRows rows), or the
@@ -109,3 +87,107 @@ func (r *reader) stream(h *streamHooks) (*Survey, error) {
 	v.end(stations, p.out, t.rowsSeen)
 	return s, nil
 }
+
+// objectBatch is how many accepted objects the reading goroutine of
+// streamObjects hands over at a time, and objectBatches how many batches
+// may wait: the reader runs at most that far ahead of the caller.
+const (
+	objectBatch   = 256
+	objectBatches = 4
+)
+
+// streamObjects reads and validates the Objects sheet in a goroutine of its
+// own while the caller's each runs in this one, on the objects in sheet
+// order as they are accepted, so that reading the workbook and what the
+// caller does with the objects (assessing, writing) overlap on two cores.
+// Only the reading goroutine touches the reader and the validator until it
+// is done; each sees the objects by value, and the survey only as begin
+// saw it (the validator writes to it again after the sheet is read). An
+// error from each stops the reading and is returned; a panic while reading
+// is raised again here, where openAndRead turns it into an UnreadableError,
+// unless each failed first.
+func (r *reader) streamObjects(p *objectPass, h *streamHooks) (*table, error) {
+	batches := make(chan []Object, objectBatches)
+	stop := make(chan struct{})
+	type result struct {
+		t     *table
+		panic any
+	}
+	done := make(chan result, 1)
+	go func() {
+		var res result
+		defer func() {
+			res.panic = recover()
+			close(batches)
+			done <- res
+		}()
+		batch := make([]Object, 0, objectBatch)
+		send := func() bool {
+			select {
+			case batches <- batch:
+				batch = make([]Object, 0, objectBatch)
+				return true
+			case <-stop:
+				return false
+			}
+		}
+		p.each = func(o Object) error {
+			batch = append(batch, o)
+			if len(batch) == cap(batch) && !send() {
+				return errStopped
+			}
+			return nil
+		}
+		// The first maxBoolCheckRows rows are held back so that a survey-sized
+		// sheet gets the same check for booleans as ReadFile gives it; a larger
+		// sheet gets none (as with ReadFile) and its rows go through one by one.
+		buffering := true
+		r.rowHook, r.hookSheet = func(t *table, rr rawRow) bool {
+			if buffering {
+				if len(t.Rows) < h.holdBack {
+					t.Rows = append(t.Rows, rr)
+					return true
+				}
+				buffering = false
+				for _, b := range t.Rows {
+					if p.row(t, b) != nil {
+						return false
+					}
+				}
+				t.Rows = nil
+			}
+			return p.row(t, rr) == nil
+		}, SheetObjects
+		res.t = r.readTable(SheetObjects)
+		r.rowHook = nil
+		if len(batch) > 0 {
+			send()
+		}
+	}()
+	var failed error
+	for b := range batches {
+		for _, o := range b {
+			if failed != nil {
+				break
+			}
+			failed = call(func() error { return h.each(o) })
+		}
+		if failed != nil {
+			close(stop)
+			for range batches { // let the reader see the stop and end
+			}
+			break
+		}
+	}
+	res := <-done
+	if failed != nil {
+		return nil, failed
+	}
+	if res.panic != nil {
+		panic(res.panic)
+	}
+	return res.t, nil
+}
+
+// errStopped stops the reading goroutine of streamObjects after each failed.
+var errStopped = errors.New("stopped")
