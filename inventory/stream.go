@@ -108,6 +108,7 @@ const (
 // unless each failed first.
 func (r *reader) streamObjects(p *objectPass, h *streamHooks) (*table, error) {
 	batches := make(chan []Object, objectBatches)
+	free := make(chan []Object, objectBatches+2) // batches handed back for reuse (each gets copies)
 	stop := make(chan struct{})
 	type result struct {
 		t     *table
@@ -125,7 +126,11 @@ func (r *reader) streamObjects(p *objectPass, h *streamHooks) (*table, error) {
 		send := func() bool {
 			select {
 			case batches <- batch:
-				batch = make([]Object, 0, objectBatch)
+				select {
+				case batch = <-free:
+				default:
+					batch = make([]Object, 0, objectBatch)
+				}
 				return true
 			case <-stop:
 				return false
@@ -171,6 +176,10 @@ func (r *reader) streamObjects(p *objectPass, h *streamHooks) (*table, error) {
 				break
 			}
 			failed = call(func() error { return h.each(o) })
+		}
+		select {
+		case free <- b[:0]:
+		default:
 		}
 		if failed != nil {
 			close(stop)
