@@ -119,3 +119,19 @@ func TestXMLScanPassesWrittenSurveys(t *testing.T) {
 		}
 	}
 }
+
+// FuzzXMLScan: whatever the bytes, the quick check passes a part only when
+// the strict decoder does too.
+func FuzzXMLScan(f *testing.F) {
+	for _, s := range []string{
+		`<?xml version="1.0" encoding="UTF-8" standalone="yes"?>` + "\n" + `<worksheet><sheetData><row r="1"><c r="A1" t="s"><v>0</v></c></row></sheetData></worksheet>`,
+		`<sst count="1"><si><t>a &amp; b&#xA;</t></si></sst>`, `<a/>`, `<x:c r="XFE1"/>`, `<a>]]></a>`,
+	} {
+		f.Add([]byte(s))
+	}
+	f.Fuzz(func(t *testing.T, b []byte) {
+		if quickSound(b) && !strictXMLSound(b) {
+			t.Errorf("quick check passes what encoding/xml refuses: %q", short(string(b), 200))
+		}
+	})
+}
