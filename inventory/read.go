@@ -755,19 +755,6 @@ func splitName(h string) string {
 	return n
 }
 
-// cell returns the trimmed text of a row's cell in column name and its A1 reference.
-func (t *table) cell(rr rawRow, name string) (string, string, bool) {
-	i, ok := t.Index[name]
-	if !ok {
-		return "", "", false
-	}
-	ref := ColumnLetter(i) + strconv.Itoa(rr.Row)
-	if i >= len(rr.Cells) {
-		return "", ref, true
-	}
-	return strings.TrimSpace(rr.Cells[i]), ref, true
-}
-
 // cellText returns the trimmed text of a row's cell in column name ("" when
 // the column or the cell is absent), without its reference.
 func (t *table) cellText(rr rawRow, name string) string {
