@@ -147,18 +147,8 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	// already the active one, and SetActiveSheet would load every sheet,
 	// the whole streamed Objects sheet among them, back into memory.
 	info := wb.info
-	d := surveyDate(a).Format("2006-01-02T15:04:05Z")
-	if err := f.SetDocProps(&excelize.DocProperties{
-		Creator:        info.tool() + " " + info.ToolVersion,
-		LastModifiedBy: info.tool(),
-		Created:        d,
-		Modified:       d,
-		Title:          "Electrostatic ignition screening audit: " + siteName(a),
-		Subject:        "Screening estimates; see the Cautions sheet",
-		Description:    "Survey " + info.file(a) + ", SHA-256 " + info.sha(a),
-		Language:       "en",
-	}); err != nil {
-		return fmt.Errorf("write workbook: document properties: %w", err)
+	if err := setDocProps(f, a, info); err != nil {
+		return err
 	}
 	tmp, err := os.CreateTemp(w.tmp, "audit-*.xlsx")
 	if err != nil {

@@ -129,18 +129,8 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 		return fmt.Errorf("write workbook: %w", st.err)
 	}
 	f.SetActiveSheet(0)
-	d := surveyDate(a).Format("2006-01-02T15:04:05Z")
-	if err := f.SetDocProps(&excelize.DocProperties{
-		Creator:        info.tool() + " " + info.ToolVersion,
-		LastModifiedBy: info.tool(),
-		Created:        d,
-		Modified:       d,
-		Title:          "Electrostatic ignition screening audit: " + siteName(a),
-		Subject:        "Screening estimates; see the Cautions sheet",
-		Description:    "Survey " + info.file(a) + ", SHA-256 " + info.sha(a),
-		Language:       "en",
-	}); err != nil {
-		return fmt.Errorf("write workbook: document properties: %w", err)
+	if err := setDocProps(f, a, info); err != nil {
+		return err
 	}
 	if err := writeCanonical(f, w); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
@@ -537,6 +527,25 @@ func (wb *workbook) writeSheets(withObjects bool) error {
 		if err := s.fn(); err != nil {
 			return fmt.Errorf("write workbook: sheet %s: %w", s.name, err)
 		}
+	}
+	return nil
+}
+
+// setDocProps sets the audit's document properties, dated by the survey date
+// (not the clock), so the same survey gives the same file.
+func setDocProps(f *excelize.File, a *assess.Audit, info RunInfo) error {
+	d := surveyDate(a).Format("2006-01-02T15:04:05Z")
+	if err := f.SetDocProps(&excelize.DocProperties{
+		Creator:        info.tool() + " " + info.ToolVersion,
+		LastModifiedBy: info.tool(),
+		Created:        d,
+		Modified:       d,
+		Title:          "Electrostatic ignition screening audit: " + siteName(a),
+		Subject:        "Screening estimates; see the Cautions sheet",
+		Description:    "Survey " + info.file(a) + ", SHA-256 " + info.sha(a),
+		Language:       "en",
+	}); err != nil {
+		return fmt.Errorf("write workbook: document properties: %w", err)
 	}
 	return nil
 }

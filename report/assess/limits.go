@@ -137,11 +137,7 @@ func LimitsFromSite(site inventory.Site, base model.Limits) (model.Limits, []inv
 	keys := LimitKeys()
 	var probs []inventory.Problem
 	for _, it := range site.Items {
-		name, keyUnit := splitUnit(it.Key)
-		if name == "" {
-			name, keyUnit = splitUnit(it.Item)
-		}
-		name = normaliseName(name)
+		name, keyUnit := siteItemName(it)
 		if isUncertaintyItem(name) {
 			continue // UncertaintiesFromSite reads these
 		}
@@ -239,4 +235,14 @@ func parseLimitValue(raw, keyUnit string, key *LimitKey) (float64, error) {
 		return 0, fmt.Errorf("%q is not a positive finite value", raw)
 	}
 	return v, nil
+}
+
+// siteItemName returns a Site item's normalised name and the unit written in it
+// ("Shock energy [mJ]" gives "shock energy", "mJ").
+func siteItemName(it inventory.SiteItem) (name, unit string) {
+	name, unit = splitUnit(it.Key)
+	if name == "" {
+		name, unit = splitUnit(it.Item)
+	}
+	return normaliseName(name), unit
 }

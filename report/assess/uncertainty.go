@@ -178,11 +178,7 @@ func UncertaintiesFromSite(site inventory.Site, base []Uncertainty) ([]Uncertain
 	out := append([]Uncertainty(nil), base...)
 	var probs []inventory.Problem
 	for _, it := range site.Items {
-		name, keyUnit := splitUnit(it.Key)
-		if name == "" {
-			name, keyUnit = splitUnit(it.Item)
-		}
-		name = normaliseName(name)
+		name, keyUnit := siteItemName(it)
 		if !isUncertaintyItem(name) {
 			continue
 		}
