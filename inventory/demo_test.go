@@ -220,18 +220,9 @@ func workbookCells(t *testing.T, data []byte) map[string][][]string {
 // data, or rewrites the file with -update.
 func checkGeneratedWorkbook(t *testing.T, path string, data []byte) {
 	t.Helper()
-	if *update {
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, data, 0o644); err != nil {
-			t.Fatal(err)
-		}
+	old, ok := readGenerated(t, path, data)
+	if !ok {
 		return
-	}
-	old, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test ./inventory -update to generate it)", err)
 	}
 	if bytes.Equal(old, data) {
 		return // the writer is deterministic: equal bytes, equal cells
@@ -305,4 +296,24 @@ func TestFirstCellDifference(t *testing.T) {
 			}
 		})
 	}
+}
+
+// readGenerated returns the checked-in file at path for comparison with data;
+// with -update it rewrites the file from data instead and returns false.
+func readGenerated(t *testing.T, path string, data []byte) ([]byte, bool) {
+	t.Helper()
+	if *update {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, data, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return nil, false
+	}
+	old, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./inventory -update to generate it)", err)
+	}
+	return old, true
 }

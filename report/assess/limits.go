@@ -149,22 +149,12 @@ func LimitsFromSite(site inventory.Site, base model.Limits) (model.Limits, []inv
 			}
 		}
 		if key == nil {
-			probs = append(probs, inventory.Problem{
-				Sheet: inventory.SheetSite, Row: it.Row, Column: "A", Field: it.Item, Severity: inventory.Warning,
-				Message: fmt.Sprintf("item %q is not a site setting or a known limit; it is ignored", it.Item),
-				Fix:     "check the spelling against the limit items listed in the README (e.g. \"Shock energy [mJ]\")",
-				Err:     ErrUnknownSiteItem,
-			})
+			probs = append(probs, siteItemProblem(it, "A", inventory.Warning, fmt.Sprintf("item %q is not a site setting or a known limit; it is ignored", it.Item), "check the spelling against the limit items that sparkmargin library lists (e.g. \"Shock energy [mJ]\")", ErrUnknownSiteItem))
 			continue
 		}
 		v, err := parseLimitValue(it.Value, keyUnit, key)
 		if err != nil {
-			probs = append(probs, inventory.Problem{
-				Sheet: inventory.SheetSite, Row: it.Row, Column: "B", Field: it.Item, Severity: inventory.Error,
-				Message: fmt.Sprintf("limit %q: %v; the built-in value is kept", it.Item, err),
-				Fix:     fmt.Sprintf("give a positive number in %s, e.g. \"%s\"", unitOrPlain(key.Unit), exampleValue(key)),
-				Err:     fmt.Errorf("%w: %w", ErrLimitValue, err),
-			})
+			probs = append(probs, siteItemProblem(it, "B", inventory.Error, fmt.Sprintf("limit %q: %v; the built-in value is kept", it.Item, err), fmt.Sprintf("give a positive number in %s, e.g. \"%s\"", unitOrPlain(key.Unit), exampleValue(key)), fmt.Errorf("%w: %w", ErrLimitValue, err)))
 			continue
 		}
 		key.set(&lim, v)
@@ -245,4 +235,13 @@ func siteItemName(it inventory.SiteItem) (name, unit string) {
 		name, unit = splitUnit(it.Item)
 	}
 	return normaliseName(name), unit
+}
+
+// siteItemProblem is a problem at a Site sheet item: column A for the item's
+// name, column B for its value.
+func siteItemProblem(it inventory.SiteItem, column string, sev inventory.Severity, message, fix string, err error) inventory.Problem {
+	return inventory.Problem{
+		Sheet: inventory.SheetSite, Row: it.Row, Column: column, Field: it.Item, Severity: sev,
+		Message: message, Fix: fix, Err: err,
+	}
 }

@@ -190,22 +190,12 @@ func UncertaintiesFromSite(site inventory.Site, base []Uncertainty) ([]Uncertain
 			}
 		}
 		if u == nil {
-			probs = append(probs, inventory.Problem{
-				Sheet: inventory.SheetSite, Row: it.Row, Column: "A", Field: it.Item, Severity: inventory.Warning,
-				Message: fmt.Sprintf("item %q names no uncertainty; it is ignored", it.Item),
-				Fix:     "use one of the uncertainty items listed on the Method sheet (e.g. \"Uncertainty field [%]\")",
-				Err:     ErrUnknownSiteItem,
-			})
+			probs = append(probs, siteItemProblem(it, "A", inventory.Warning, fmt.Sprintf("item %q names no uncertainty; it is ignored", it.Item), "use one of the uncertainty items listed on the Method sheet (e.g. \"Uncertainty field [%]\")", ErrUnknownSiteItem))
 			continue
 		}
 		v, err := parseSpread(it.Value, keyUnit, u)
 		if err != nil {
-			probs = append(probs, inventory.Problem{
-				Sheet: inventory.SheetSite, Row: it.Row, Column: "B", Field: it.Item, Severity: inventory.Error,
-				Message: fmt.Sprintf("uncertainty %q: %v; the default %s is kept", it.Item, err, u.Text()),
-				Fix:     fmt.Sprintf("give a number >= 0 in %s, e.g. \"%s [%s] = 10\"", u.Unit, it.Item, u.Unit),
-				Err:     fmt.Errorf("%w: %w", ErrUncertaintyValue, err),
-			})
+			probs = append(probs, siteItemProblem(it, "B", inventory.Error, fmt.Sprintf("uncertainty %q: %v; the default %s is kept", it.Item, err, u.Text()), fmt.Sprintf("give a number >= 0 in %s, e.g. \"%s [%s] = 10\"", u.Unit, it.Item, u.Unit), fmt.Errorf("%w: %w", ErrUncertaintyValue, err)))
 			continue
 		}
 		u.Spread, u.Overridden = v, true
