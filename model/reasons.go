@@ -223,11 +223,11 @@ func Quantity(v float64, unit string) string {
 
 // Potential sources, as recorded in Evaluation.PotentialSource.
 const (
-	PotentialNone      PotentialSource = iota // no potential
-	PotentialMeasured                         // Surface potential on the row
-	PotentialFromField                        // V = E z from the field reading
-	PotentialCharging                         // V(t) = I R (1 - exp(-t/RC))
-	PotentialFromCharge                       // V = sigma A / C, an unearthed conducting surface (appended)
+	PotentialNone       PotentialSource = iota // no potential
+	PotentialMeasured                          // Surface potential on the row
+	PotentialFromField                         // V = E z from the field reading
+	PotentialCharging                          // V(t) = I R (1 - exp(-t/RC))
+	PotentialFromCharge                        // V = sigma A / C, an unearthed conducting surface (appended)
 )
 
 // String says where the potential came from.
