@@ -1224,6 +1224,8 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	o.Capacitance, pCapacitance = f.qty("Capacitance")
 	o.Conductivity, _ = f.qty("Conductivity")
 	o.Permittivity, _ = f.qty("Relative permittivity")
+	o.LayerBreakdown, _ = f.qty("Layer breakdown")
+	o.Process = f.enumValue("Process", op.lists[ListProcess], map[string]string{"web": "moving web", "film": "moving web", "moving film": "moving web", "conveyor belt": "belt", "pneumatic": "pneumatic conveying", "equipment": "fixed equipment"})
 
 	// physical ranges
 	for _, n := range []struct {
@@ -1232,7 +1234,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	}{{"Length", o.Length}, {"Width", o.Width}, {"Diameter", o.Diameter}, {"Thickness", o.Thickness},
 		{"Distance to earth", o.DistanceToEarth}, {"Field distance", o.FieldDistance}, {"Particle size", o.ParticleSize},
 		{"Charging time", o.ChargingTime}, {"Resistance to earth", o.Resistance}, {"Capacitance", o.Capacitance},
-		{"Conductivity", o.Conductivity}} {
+		{"Conductivity", o.Conductivity}, {"Layer breakdown", o.LayerBreakdown}} {
 		f.positive(n.name, n.q)
 	}
 	f.slip("Length", o.Length, pLength, MaxSize, "larger than any plant object")

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
@@ -273,9 +274,9 @@ func TestHeaderFaults(t *testing.T) {
 		b[3].Rows[0] = append(b[3].Rows[0], "Colour")
 		b[3].Rows[1] = append(b[3].Rows[1], "blue")
 		s := utReadBook(t, b)
-		ps := utProblemsAt(s, "Objects!AB1")
+		ps := utProblemsAt(s, utObjectsCell(1, 1))
 		if len(ps) != 1 || ps[0].Severity != Warning || !errors.Is(ps[0], ErrUnknownColumn) {
-			t.Fatalf("problems at AB1: %+v\n%s", ps, utDump(s))
+			t.Fatalf("problems at %s: %+v\n%s", utObjectsCell(1, 1), ps, utDump(s))
 		}
 		if len(s.Errors()) != 0 {
 			t.Errorf("errors:\n%s", utDump(s))
@@ -294,9 +295,9 @@ func TestHeaderFaults(t *testing.T) {
 		b := utValidBook()
 		b[3].Rows[0] = append(b[3].Rows[0], "Field (kV/m)")
 		s := utReadBook(t, b)
-		ps := utProblemsAt(s, "Objects!AB1")
+		ps := utProblemsAt(s, utObjectsCell(1, 1))
 		if len(ps) != 1 || ps[0].Severity != Error || !errors.Is(ps[0], ErrDuplicateColumn) {
-			t.Fatalf("problems at AB1: %+v", ps)
+			t.Fatalf("problems at %s: %+v", utObjectsCell(1, 1), ps)
 		}
 	})
 	t.Run("missing ID column rejects every row", func(t *testing.T) {
@@ -374,7 +375,7 @@ func TestHeaderFaults(t *testing.T) {
 		if len(s.Objects) != 9 || len(s.Errors()) != 0 {
 			t.Fatalf("%d objects\n%s", len(s.Objects), utDump(s))
 		}
-		if ps := utProblemsAt(s, "Objects!AE2"); len(ps) != 1 || ps[0].Severity != Warning {
+		if ps := utProblemsAt(s, utObjectsCell(4, 2)); len(ps) != 1 || ps[0].Severity != Warning {
 			t.Errorf("no warning for the stray value: %+v\n%s", ps, utDump(s))
 		}
 	})
@@ -471,4 +472,11 @@ func TestChangesSheet(t *testing.T) {
 	if ps := utProblemsAt(s, "Changes!B6"); len(ps) != 1 || !errors.Is(ps[0], ErrUnknownReference) {
 		t.Errorf("B6: %+v", ps)
 	}
+}
+
+// utObjectsCell names the cell in row of the n-th column after the Objects
+// columns of the contract (n = 1: the first column past them).
+func utObjectsCell(n, row int) string {
+	c, _ := excelize.CoordinatesToCellName(len(SheetColumns(SheetObjects))+n, row)
+	return "Objects!" + c
 }
