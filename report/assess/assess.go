@@ -252,14 +252,13 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 		Conductivity:     o.Conductivity.OrNaN(),
 		Permittivity:     o.Permittivity.OrNaN(),
 		ProductMIE:       math.NaN(), // no survey column: the model takes the station's dust MIE
+		LayerBreakdown:   o.LayerBreakdown.OrNaN(),
 	}
+	in.Process, _ = model.ParseProcess(o.Process)
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)
-	// The survey has no column for double-layer charge: the Notes say it.
-	if n := strings.ToLower(o.Notes); strings.Contains(n, "double-layer") || strings.Contains(n, "double layer") {
-		in.DoubleLayer = true
-		defs = append(defs, Default{Field: "Double-layer charge", Value: "yes", Reason: "read from the row's Notes"})
-	}
+	// Double-layer charge is judged from the process (Process column, charging
+	// current density), never from words in the Notes.
 	var mat *inventory.Material
 	if o.Material != "" {
 		if m, ok := x.survey.Material(o.Material); ok {
