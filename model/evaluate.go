@@ -331,8 +331,11 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	default:
 		br.Possible, br.Energy, br.Charge = true, lim.BrushEnergy, sigma*lim.BrushArea
 		if leaks {
+			// The reading contradicts the humidity model: the model clears nothing
+			// more on this row (its propagating brush, its area exemption).
 			ev.Flags |= FlagHumidityContradiction
 			setReason(br, ReasonBrushReadingOverHumidity, sigma, screen)
+			leaks = false
 		} else {
 			setReason(br, ReasonBrushPossible, sigma, screen)
 		}
@@ -401,7 +404,12 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		return sigma
 	}
 	w := lim.PropagatingMaxEnergy
-	if positive(ev.InsulatingArea) && positive(t) {
+	if process {
+		// The process can charge the layer beyond what was read: the upper estimate.
+		if positive(ev.InsulatingArea) {
+			pb.Charge = sigma * ev.InsulatingArea
+		}
+	} else if positive(ev.InsulatingArea) && positive(t) {
 		pe := epsr
 		if !positive(pe) {
 			pe = 3
@@ -465,6 +473,8 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 		v, ev.PotentialSource = ConductorPotential(ev.ChargingCurrent, r, c, in.ChargingTime), PotentialCharging
 	}
 	if !positive(c) || !given(v) {
+		// The brush and propagating brush the reading shows keep their energies
+		// (the assessment still judges them); the spark is missing its inputs.
 		ev.NotAssessed |= MissingSurfaceSpark
 		markNotEvaluated(ev, Spark)
 		return

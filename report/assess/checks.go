@@ -160,6 +160,12 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 
 	if ev.NotAssessed != 0 {
 		c.Cause = CauseMissingInputs
+		// A discharge the model did judge is never hidden by an input it lacked
+		// for another one (e.g. the spark of an unearthed conducting surface):
+		// its energy is still compared with the MIE.
+		if e, d := EffectiveEnergy(env, ev); e > 0 {
+			c.Energy, c.Discharge = e, d
+		}
 	} else {
 		c.Energy, c.Discharge = EffectiveEnergy(env, ev)
 		if math.IsNaN(c.Energy) {
@@ -168,7 +174,7 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	}
 
 	if hasAtm {
-		if c.Cause == CauseNone {
+		if c.Cause == CauseNone || (c.Cause == CauseMissingInputs && c.Energy > 0) {
 			mie := env.MIE
 			if !(mie > 0) || math.IsInf(mie, 0) {
 				c.Cause = CauseNoMIE
@@ -189,8 +195,8 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		qualifiedBag := in.Kind == model.Bag && (in.BagType == model.BagC || in.BagType == model.BagD)
 		// The area limits are equipment-construction limits (IEC 60079-0): process
 		// material (moving webs, belts) is judged by its charge (IEC TS 60079-32-1),
-		// and only a dissipative surface that is also earthed is exempt.
-		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
+		// and only a dissipative surface that is also earthed is exempt (not when its reading contradicts the humidity model).
+		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
 		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) {
