@@ -164,7 +164,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	ev.Dissipative = dissipative
 	backed := in.EarthedBacking
 	ev.Earthed = backed || (given(in.Resistance) && in.Resistance <= lim.ConductorEarthing)
-	ev.IsolatedConductor = (in.Material.Conductive || dissipative || in.Material.Dissipative) && !ev.Earthed
+	ev.IsolatedConductor = conductingSurface(in, dissipative) && !ev.Earthed
 
 	epsr := in.Material.Permittivity
 	if backed && !positive(epsr) {
@@ -437,7 +437,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 // reading shows, or from its charging current.
 func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigma float64) {
 	sp := &ev.Discharges[Spark]
-	conducts := in.Material.Conductive || ev.Dissipative || in.Material.Dissipative
+	conducts := conductingSurface(in, ev.Dissipative)
 	if !ev.IsolatedConductor {
 		if conducts && ev.Earthed {
 			r := math.NaN()
@@ -516,6 +516,15 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	if w > lim.ShockEnergy {
 		ev.Flags |= FlagShock
 	}
+}
+
+// conductingSurface reports whether a surface conducts well enough to spark: a
+// conductive material, a surface dissipative at this RH by its resistivity, or,
+// with no resistivity given, a material of dissipative class (the stricter
+// reading: it may conduct). A resistivity given and insulating at this RH wins
+// over the class.
+func conductingSurface(in *Input, dissipative bool) bool {
+	return in.Material.Conductive || dissipative || (in.Material.Dissipative && !given(in.Material.SurfaceResistivity))
 }
 
 // surfaceCapacitance returns the measured capacitance of a conducting surface, or
