@@ -1224,7 +1224,8 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	o.Capacitance, pCapacitance = f.qty("Capacitance")
 	o.Conductivity, _ = f.qty("Conductivity")
 	o.Permittivity, _ = f.qty("Relative permittivity")
-	o.LayerBreakdown, _ = f.qty("Layer breakdown")
+	var pBreakdown Parsed
+	o.LayerBreakdown, pBreakdown = f.qty("Layer breakdown")
 	o.Process = f.enumValue("Process", op.lists[ListProcess], map[string]string{"web": "moving web", "film": "moving web", "moving film": "moving web", "conveyor belt": "belt", "pneumatic": "pneumatic conveying", "equipment": "fixed equipment"})
 
 	// physical ranges
@@ -1250,6 +1251,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		f.slip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air")
 	}
 	f.slip("Capacitance", o.Capacitance, pCapacitance, MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
+	f.slip("Layer breakdown", o.LayerBreakdown, pBreakdown, MaxSurfacePotential, "above what a plant layer holds (films hold 100-600 kV/mm)")
 	if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
 		f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
 	}

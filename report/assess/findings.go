@@ -123,6 +123,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		if in.Kind == model.Liquid {
 			what = "resistance to earth of the receiving container and line"
 		}
+		if ev.IsolatedConductor && (in.Kind == model.Sheet || in.Kind == model.Belt || in.Kind == model.Roller) {
+			what = "the surface conducts (conductive, or dissipative at this humidity) so it is a conductor; its resistance to earth"
+			mit = templates.Mitigation("conductor-earthing.surface")
+		}
 		if math.IsNaN(in.Resistance) {
 			msg = fmt.Sprintf("%s not measured, so taken as not earthed (limit %s)", what, ohm(lim.ConductorEarthing))
 		} else {
