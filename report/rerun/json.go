@@ -49,7 +49,6 @@ type jsonWhatif struct {
 	Changes  []jsonChange        `json:"changes"`
 	Objects  []jsonWhatifObject  `json:"objects"`
 	Stations []jsonWhatifStation `json:"stations"`
-	Note     string              `json:"readings_note"`
 }
 
 func finite(p *float64) *float64 {
@@ -68,11 +67,11 @@ func encode(w io.Writer, v any) error {
 
 // WriteWhatifJSON writes the whatif document: {"changes", "objects": [{"id",
 // "station", "before": {"verdict", "ratio"}, "after": {...}}], "stations": [{"id",
-// "before": {"rank", "verdict", "worst_ratio"}, "after": {...}}], "readings_note"}. Each change
+// "before": {"rank", "verdict", "worst_ratio"}, "after": {...}}]}. Each change
 // carries change, target, value (as written), si_value, applied, source, note and
 // the objects it reached.
 func WriteWhatifJSON(w io.Writer, x *Whatif) error {
-	d := jsonWhatif{Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}, Note: MeasuredReadingsNote}
+	d := jsonWhatif{Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}}
 	for _, a := range x.Applied {
 		si := a.SI
 		objs := a.Objects
@@ -119,13 +118,12 @@ type jsonSweepStep struct {
 
 type jsonSweep struct {
 	Steps []jsonSweepStep `json:"steps"`
-	Note  string          `json:"readings_note"`
 }
 
 // WriteSweepJSON writes the sweep document: {"steps": [{"rh_pct", "incendive",
-// "marginal", "stations": [{"id", "verdict", "worst_ratio"}]}], "readings_note"}.
+// "marginal", "stations": [{"id", "verdict", "worst_ratio"}]}]}.
 func WriteSweepJSON(w io.Writer, s *Sweep) error {
-	d := jsonSweep{Steps: []jsonSweepStep{}, Note: MeasuredReadingsNote}
+	d := jsonSweep{Steps: []jsonSweepStep{}}
 	for _, st := range s.Steps {
 		j := jsonSweepStep{RHPct: st.RH, Incendive: st.Incendive, Marginal: st.Marginal, Stations: []jsonSweepStation{}}
 		for _, x := range st.Stations {
