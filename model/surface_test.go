@@ -311,3 +311,57 @@ func TestIsProcessMaterial(t *testing.T) {
 		t.Error("ParseProcess accepted a word outside the list")
 	}
 }
+
+// Surface-potential readings: the cylinder over a plane for a roller, the disc of
+// equal area for a sheet far from earth, each when stricter than eps0 V / h.
+func TestSurfacePotentialGeometries(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	r := blank(Roller)
+	r.Material.Name, r.Material.SurfaceResistivity = "PTFE", 1e16
+	r.Diameter, r.Length, r.DistanceToEarth, r.SurfacePotential = 0.1, 1, 0.5, 10e3
+	// textbook (cylinder over a plane): axis at 0.55 m, R = 0.05 m:
+	// sigma = eps0 V / (R arcosh(11)) = eps0 x 1e4 / (0.05 x 3.0889) = 64 749 eps0
+	// (python3), above the plate's eps0 V / h = 20 000 eps0.
+	near(t, "roller cylinder", Evaluate(r, env, lim).ChargeDensity, Eps0*1e4/(0.05*math.Acosh(11)), 1e-12)
+	s := blank(Sheet)
+	s.Length, s.Width, s.DistanceToEarth, s.SurfacePotential = 1, 1, 1, 10e3
+	// h = 1 m is not small against a 1 m sheet (h > 0.2 m): the disc of equal area,
+	// r = sqrt(1/pi) = 0.5642 m, C/A = 8 eps0 r / A: sigma = 8 eps0 V / (pi r) =
+	// 4.513e4 eps0 (derived), above eps0 V / h = 1e4 eps0.
+	ev := Evaluate(s, env, lim)
+	near(t, "sheet far from earth", ev.ChargeDensity, 8*Eps0*1e4/(math.Pi*math.Sqrt(1/math.Pi)), 1e-12)
+	if ev.Assumed&AssumedOverEarthFree == 0 {
+		t.Error("outside-validity assumption not recorded")
+	}
+	// Close to earth (h = 5 mm): the plate, eps0 V / h = 2e6 eps0 (textbook).
+	s.DistanceToEarth = 5e-3
+	near(t, "sheet close over earth", Evaluate(s, env, lim).ChargeDensity, Eps0*1e4/5e-3, 1e-12)
+	// A measured potential on a backed layer above its breakdown is a contradiction:
+	// 3 kV on 50 um of 20 kV/mm (computed 1 kV, derived).
+	b := blank(Sheet)
+	b.EarthedBacking, b.Thickness, b.Material.Permittivity, b.Material.BreakdownStrength, b.SurfacePotential = true, 50e-6, 3, 20e6, 3e3
+	if ev := Evaluate(b, env, lim); ev.Flags&FlagBreakdownContradiction == 0 || ev.LayerVoltage != 3e3 {
+		t.Errorf("backed 3 kV: flags %b, layer voltage %g", ev.Flags, ev.LayerVoltage)
+	}
+}
+
+func TestOverEarthValid(t *testing.T) {
+	cases := []struct {
+		h, z, l, w float64
+		want       bool
+	}{
+		{0.05, 0.1, 1, 1, true},              // 0.15 <= 0.2
+		{0.1, 0.1, 1, 1, true},               // 0.2 <= 0.2 (the edge counts)
+		{0.15, 0.1, 1, 1, false},             // 0.25 > 0.2
+		{0.05, 0.1, 10, 0.5, false},          // the smaller side decides: 0.15 > 0.1
+		{1, 1, math.NaN(), math.NaN(), true}, // unknown sides: taken as infinite
+		{0.05, 0.05, math.NaN(), 0.4, false}, // 0.1 > 0.08
+		{0.05, 0.05, 0, 1, true},             // 0 is unknown, not zero
+	}
+	for _, c := range cases {
+		if got := OverEarthValid(c.h, c.z, c.l, c.w); got != c.want {
+			t.Errorf("OverEarthValid(%g, %g, %g, %g) = %v, want %v", c.h, c.z, c.l, c.w, got, c.want)
+		}
+	}
+}
