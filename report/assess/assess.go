@@ -345,6 +345,9 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 	if in.Kind == model.Person && math.IsNaN(in.SurfacePotential) && !math.IsNaN(ev.Potential) {
 		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
 	}
+	if ev.IsolatedConductor && ev.PotentialSource == model.PotentialFromCharge {
+		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"})
+	}
 	defs = append(defs, modelAssumptions(ev)...)
 	return defs
 }
