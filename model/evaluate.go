@@ -382,8 +382,10 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	measured := sigma >= lim.PropagatingDensity
 	switch {
 	case measured:
-	case process && leaks:
-		// Only the process says it could charge: the humidity model may clear that.
+	case process && leaks && finite(ev.DecayTime) && positive(travel):
+		// Only the process says it could charge: the humidity model may clear
+		// that, when the layer is shown to decay faster than it travels (an
+		// unknown decay or travel time clears nothing: principle 2).
 		setReason(pb, ReasonBrushLeaks, ev.SurfaceResistivity, nan)
 		return sigma
 	case !process:

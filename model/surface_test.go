@@ -365,3 +365,28 @@ func TestOverEarthValid(t *testing.T) {
 		}
 	}
 }
+
+// The humidity model may clear a propagating brush that only the process
+// suggests (nothing measured), and only when the layer is shown to decay faster
+// than it travels; an unknown decay clears nothing (principle 2).
+func TestHumidityClearsOnlyUnmeasuredProcessCharge(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	// A dissipative liner (1e7 ohm/sq, slope 0) on an earthed pipe wall, 2 mm thick,
+	// pneumatic conveying; read at 1 kV/m at 0.1 m: eps0 1e3 (1 + 3 x 0.1 / 2e-3) =
+	// 1.34 uC/m^2, below the screen (derived).
+	in.Material.SurfaceResistivity, in.Material.Permittivity = 1e7, 3
+	in.EarthedBacking, in.Thickness, in.Process = true, 2e-3, ProcessPneumatic
+	in.Length, in.Width, in.Speed = 1, 0.3, 0.5
+	in.Field, in.FieldDistance = 1e3, 0.1
+	ev := Evaluate(in, env, lim)
+	// derived: tau = 1e7 x (eps0 x 3 / 2e-3) x 0.09 / pi^2 = 1.2e-6 s, far below the 2 s run.
+	if ev.Discharges[PropagatingBrush].Possible || ev.Discharges[PropagatingBrush].Code != ReasonBrushLeaks {
+		t.Errorf("dissipative earthed liner: %s", ev.Discharges[PropagatingBrush].Reason())
+	}
+	in.Width = math.NaN() // decay unknown: not cleared
+	if ev = Evaluate(in, env, lim); !ev.Discharges[PropagatingBrush].Possible {
+		t.Errorf("unknown decay cleared the process-driven brush: %s", ev.Discharges[PropagatingBrush].Reason())
+	}
+}
