@@ -158,7 +158,7 @@ func TestHumidityPaperAndPTFE(t *testing.T) {
 	if p.After.Verdict != assess.Incendive || p.Outcome != Stayed || !hasFinding(p.After, "reading-vs-humidity") {
 		t.Errorf("paper at 65 %%: %s (%s), want incendive, stayed, with the contradiction: %s", p.After.Verdict, p.Outcome, p.After.Reason)
 	}
-	if !strings.Contains(p.Why, "paper surface resistivity 3.98e11 → 6.31e8 Ω/sq from 30 to 65 % RH (0.8 decade(s) per 10 %RH)") {
+	if !strings.Contains(p.Why, "paper surface resistivity 3.98e11 → 6.31e8 Ω/sq from 30 to 65 % RH (0.8 decade(s) per 10 %RH); the reading above the screen stays as measured") {
 		t.Errorf("paper why: %q", p.Why)
 	}
 
