@@ -1262,6 +1262,9 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		f.errorf("Field distance", ErrRequired, "enter the meter-to-surface distance of the reading", "%s: a Field reading needs its Field distance", who)
 	}
 	v.kindNeeds(f, &o, who)
+	if o.LayerBreakdown.Known && o.Kind != "" && o.Kind != KindSheet && o.Kind != KindBelt && o.Kind != KindRoller {
+		f.warnf("Layer breakdown", nil, "leave it blank, or give the layer its own sheet, belt or roller row", "%s: a Layer breakdown is read only on sheet, belt and roller rows", who)
+	}
 	o.BagType = strings.ToUpper(o.BagType)
 	if o.Kind == KindBag && o.BagType == "" && f.text("Bag type") == "" {
 		f.warnf("Bag type", ErrRequired, "enter the bag type (A, B, C or D) from its label", "%s: no Bag type; assessed as the most restrictive case", who)

@@ -480,3 +480,42 @@ func utObjectsCell(n, row int) string {
 	c, _ := excelize.CoordinatesToCellName(len(SheetColumns(SheetObjects))+n, row)
 	return "Objects!" + c
 }
+
+// Issue 11: Layer breakdown is read on layer rows only; elsewhere a warning.
+func TestLayerBreakdownOnlyOnLayers(t *testing.T) {
+	b := utValidBook()
+	at := -1
+	for i, h := range b[3].Rows[0] {
+		if h == "Layer breakdown [kV]" {
+			at = i
+		}
+	}
+	if at < 0 {
+		t.Fatalf("no Layer breakdown header: %v", b[3].Rows[0])
+	}
+	for r := 1; r < len(b[3].Rows); r++ {
+		if len(b[3].Rows[r]) == 0 {
+			continue
+		}
+		for len(b[3].Rows[r]) <= at {
+			b[3].Rows[r] = append(b[3].Rows[r], nil)
+		}
+		b[3].Rows[r][at] = 5.0
+	}
+	s := utReadBook(t, b)
+	for _, o := range s.Objects {
+		layer := o.Kind == KindSheet || o.Kind == KindBelt || o.Kind == KindRoller
+		if !o.LayerBreakdown.Known || o.LayerBreakdown.Value != 5e3 {
+			t.Errorf("%s: layer breakdown %+v, want 5 kV read as 5000 V", o.ID, o.LayerBreakdown)
+		}
+		warned := false
+		for _, p := range s.Problems {
+			if p.Row == o.Row && p.Severity == Warning && strings.Contains(p.Message, "Layer breakdown") {
+				warned = true
+			}
+		}
+		if warned == layer {
+			t.Errorf("%s (%s): warned %v", o.ID, o.Kind, warned)
+		}
+	}
+}
