@@ -58,6 +58,7 @@ const (
 	ListBagType        = "Bag type"
 	ListFilling        = "Filling"
 	ListSubstance      = "Substance"
+	ListProcess        = "Process"
 )
 
 // FixedLists returns the values of the drop-down lists that do not depend on the survey.
@@ -71,6 +72,7 @@ func FixedLists() map[string][]string {
 		ListMaterialClass:  {"conductive", "dissipative", "insulating"},
 		ListBagType:        {"A", "B", "C", "D"},
 		ListFilling:        {"top", "bottom", "dip pipe"},
+		ListProcess:        {"moving web", "belt", "pneumatic conveying", "fixed equipment"},
 	}
 }
 
@@ -135,6 +137,8 @@ var objectColumns = []Column{
 	{Name: "Bag type", Dim: Text, List: ListBagType, Hint: "A, B, C or D (IEC 61340-4-4); blank: assessed as the most restrictive case"},
 	{Name: "Filling", Dim: Text, List: ListFilling, Hint: "top, bottom or dip pipe (liquid rows)"},
 	{Name: "Notes", Dim: Text, Hint: "Free text"},
+	{Name: "Layer breakdown", Unit: "kV", Dim: Potential, Hint: "Measured breakdown voltage of the insulating layer itself (IEC 60243-1 style); blank: taken above 4 kV. Only a measured value at or below 4 kV rules out a propagating brush"},
+	{Name: "Process", Dim: Text, List: ListProcess, Hint: "moving web, belt, pneumatic conveying (product through this insulating pipe, hose or liner) or fixed equipment; blank: a belt, or a sheet with a Speed, is process material; anything else fixed equipment (area limit)"},
 }
 
 var materialColumns = []Column{

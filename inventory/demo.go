@@ -319,7 +319,9 @@ func demoObjects() [][]any {
 		o("DRY-TC", "ST-DRY", KindPart, "Web temperature probe on an insulating bracket", "stainless steel",
 			"Surface potential", "2.5 kV", "Resistance to earth", 1e12, "Capacitance", 12.0), // invented for the demo
 
-		// Paper interleaf (zone 2, humidified to 65 %): paper dissipates; non-incendive.
+		// Paper interleaf (zone 2, humidified to 65 %): the paper is dissipative, but the
+		// web's resistance to earth was not measured, so it is assessed as an isolated
+		// conductor and sparks (incendive); earthing it through the nip would clear it.
 		o("LAM-PAP", "ST-LAM", KindSheet, "Paper interleaf web, free span before the nip", "paper",
 			"Length", 1.0, "Width", 1.32, "Thickness", 0.08, "Backing", "none", "Field", 8.0, "Field distance", 0.05, "Speed", 3.5), // invented for the demo
 		o("LAM-NIP", "ST-LAM", KindRoller, "Steel nip roll, earthed", "steel",

@@ -150,6 +150,10 @@ type Object struct {
 
 	Notes string
 	Row   int
+
+	// Insulating-surface inputs (appended).
+	LayerBreakdown Quantity // V, measured breakdown voltage of the layer (the sheet gives kV); not Known: taken above 4 kV
+	Process        string   // "moving web", "belt", "pneumatic conveying", "fixed equipment" or ""
 }
 
 // Material is one material, built-in or from the survey's Materials sheet.

@@ -1224,6 +1224,9 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	o.Capacitance, pCapacitance = f.qty("Capacitance")
 	o.Conductivity, _ = f.qty("Conductivity")
 	o.Permittivity, _ = f.qty("Relative permittivity")
+	var pBreakdown Parsed
+	o.LayerBreakdown, pBreakdown = f.qty("Layer breakdown")
+	o.Process = f.enumValue("Process", op.lists[ListProcess], map[string]string{"web": "moving web", "film": "moving web", "moving film": "moving web", "conveyor belt": "belt", "pneumatic": "pneumatic conveying", "equipment": "fixed equipment"})
 
 	// physical ranges
 	for _, n := range []struct {
@@ -1232,7 +1235,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	}{{"Length", o.Length}, {"Width", o.Width}, {"Diameter", o.Diameter}, {"Thickness", o.Thickness},
 		{"Distance to earth", o.DistanceToEarth}, {"Field distance", o.FieldDistance}, {"Particle size", o.ParticleSize},
 		{"Charging time", o.ChargingTime}, {"Resistance to earth", o.Resistance}, {"Capacitance", o.Capacitance},
-		{"Conductivity", o.Conductivity}} {
+		{"Conductivity", o.Conductivity}, {"Layer breakdown", o.LayerBreakdown}} {
 		f.positive(n.name, n.q)
 	}
 	f.slip("Length", o.Length, pLength, MaxSize, "larger than any plant object")
@@ -1248,6 +1251,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		f.slip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air")
 	}
 	f.slip("Capacitance", o.Capacitance, pCapacitance, MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
+	f.slip("Layer breakdown", o.LayerBreakdown, pBreakdown, MaxSurfacePotential, "above what a plant layer holds (films hold 100-600 kV/mm)")
 	if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
 		f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
 	}
@@ -1258,6 +1262,9 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		f.errorf("Field distance", ErrRequired, "enter the meter-to-surface distance of the reading", "%s: a Field reading needs its Field distance", who)
 	}
 	v.kindNeeds(f, &o, who)
+	if o.LayerBreakdown.Known && o.Kind != "" && o.Kind != KindSheet && o.Kind != KindBelt && o.Kind != KindRoller {
+		f.warnf("Layer breakdown", nil, "leave it blank, or give the layer its own sheet, belt or roller row", "%s: a Layer breakdown is read only on sheet, belt and roller rows", who)
+	}
 	o.BagType = strings.ToUpper(o.BagType)
 	if o.Kind == KindBag && o.BagType == "" && f.text("Bag type") == "" {
 		f.warnf("Bag type", ErrRequired, "enter the bag type (A, B, C or D) from its label", "%s: no Bag type; assessed as the most restrictive case", who)

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
@@ -273,9 +274,9 @@ func TestHeaderFaults(t *testing.T) {
 		b[3].Rows[0] = append(b[3].Rows[0], "Colour")
 		b[3].Rows[1] = append(b[3].Rows[1], "blue")
 		s := utReadBook(t, b)
-		ps := utProblemsAt(s, "Objects!AB1")
+		ps := utProblemsAt(s, utObjectsCell(1, 1))
 		if len(ps) != 1 || ps[0].Severity != Warning || !errors.Is(ps[0], ErrUnknownColumn) {
-			t.Fatalf("problems at AB1: %+v\n%s", ps, utDump(s))
+			t.Fatalf("problems at %s: %+v\n%s", utObjectsCell(1, 1), ps, utDump(s))
 		}
 		if len(s.Errors()) != 0 {
 			t.Errorf("errors:\n%s", utDump(s))
@@ -294,9 +295,9 @@ func TestHeaderFaults(t *testing.T) {
 		b := utValidBook()
 		b[3].Rows[0] = append(b[3].Rows[0], "Field (kV/m)")
 		s := utReadBook(t, b)
-		ps := utProblemsAt(s, "Objects!AB1")
+		ps := utProblemsAt(s, utObjectsCell(1, 1))
 		if len(ps) != 1 || ps[0].Severity != Error || !errors.Is(ps[0], ErrDuplicateColumn) {
-			t.Fatalf("problems at AB1: %+v", ps)
+			t.Fatalf("problems at %s: %+v", utObjectsCell(1, 1), ps)
 		}
 	})
 	t.Run("missing ID column rejects every row", func(t *testing.T) {
@@ -374,7 +375,7 @@ func TestHeaderFaults(t *testing.T) {
 		if len(s.Objects) != 9 || len(s.Errors()) != 0 {
 			t.Fatalf("%d objects\n%s", len(s.Objects), utDump(s))
 		}
-		if ps := utProblemsAt(s, "Objects!AE2"); len(ps) != 1 || ps[0].Severity != Warning {
+		if ps := utProblemsAt(s, utObjectsCell(4, 2)); len(ps) != 1 || ps[0].Severity != Warning {
 			t.Errorf("no warning for the stray value: %+v\n%s", ps, utDump(s))
 		}
 	})
@@ -470,5 +471,51 @@ func TestChangesSheet(t *testing.T) {
 	}
 	if ps := utProblemsAt(s, "Changes!B6"); len(ps) != 1 || !errors.Is(ps[0], ErrUnknownReference) {
 		t.Errorf("B6: %+v", ps)
+	}
+}
+
+// utObjectsCell names the cell in row of the n-th column after the Objects
+// columns of the contract (n = 1: the first column past them).
+func utObjectsCell(n, row int) string {
+	c, _ := excelize.CoordinatesToCellName(len(SheetColumns(SheetObjects))+n, row)
+	return "Objects!" + c
+}
+
+// Issue 11: Layer breakdown is read on layer rows only; elsewhere a warning.
+func TestLayerBreakdownOnlyOnLayers(t *testing.T) {
+	b := utValidBook()
+	at := -1
+	for i, h := range b[3].Rows[0] {
+		if h == "Layer breakdown [kV]" {
+			at = i
+		}
+	}
+	if at < 0 {
+		t.Fatalf("no Layer breakdown header: %v", b[3].Rows[0])
+	}
+	for r := 1; r < len(b[3].Rows); r++ {
+		if len(b[3].Rows[r]) == 0 {
+			continue
+		}
+		for len(b[3].Rows[r]) <= at {
+			b[3].Rows[r] = append(b[3].Rows[r], nil)
+		}
+		b[3].Rows[r][at] = 5.0
+	}
+	s := utReadBook(t, b)
+	for _, o := range s.Objects {
+		layer := o.Kind == KindSheet || o.Kind == KindBelt || o.Kind == KindRoller
+		if !o.LayerBreakdown.Known || o.LayerBreakdown.Value != 5e3 {
+			t.Errorf("%s: layer breakdown %+v, want 5 kV read as 5000 V", o.ID, o.LayerBreakdown)
+		}
+		warned := false
+		for _, p := range s.Problems {
+			if p.Row == o.Row && p.Severity == Warning && strings.Contains(p.Message, "Layer breakdown") {
+				warned = true
+			}
+		}
+		if warned == layer {
+			t.Errorf("%s (%s): warned %v", o.ID, o.Kind, warned)
+		}
 	}
 }

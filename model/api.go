@@ -84,7 +84,7 @@ type Input struct {
 	Length, Width, Diameter float64 // m
 	Thickness               float64 // m, insulating layer
 	EarthedBacking          bool    // the layer lies on earthed metal
-	DoubleLayer             bool    // the survey says double-layer charge (propagating brush without backing)
+	DoubleLayer             bool    // a caller that knows of double-layer charge (propagating brush without backing); the survey uses Process and the charging current density instead
 	DistanceToEarth         float64 // m
 
 	Field            float64 // V/m, field-meter reading
@@ -109,6 +109,16 @@ type Input struct {
 	// ProductMIE is the MIE (J) of the powder a bag holds; NaN: the station's
 	// dust MIE when its atmosphere is dust or hybrid, else the most sensitive band.
 	ProductMIE float64
+
+	// Insulating-surface inputs (appended).
+
+	// LayerBreakdown is the measured breakdown voltage (V) of the insulating layer
+	// (IEC 60243-1 style test on the layer itself); NaN: not measured, taken as
+	// above Limits.PropagatingBreakdown (thin films hold 100-600 kV/mm).
+	LayerBreakdown float64
+	// Process says whether the row is process material or fixed equipment, and
+	// whether pneumatic conveying charges it (see IsProcessMaterial).
+	Process Process
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.
@@ -244,6 +254,45 @@ type Evaluation struct {
 	VelocityLimit     float64           // m/s, filling velocity limit for the line (liquids)
 	BagAllowed        bool              // bags: the type may be used here (type C: if earthed)
 	BagCode           Reason            // bags: why (Reason text)
+
+	// Insulating surfaces (appended).
+	AirField        float64 // V/m, air-side field of a backed layer: the reading (parallel-plate split); NaN otherwise
+	LayerField      float64 // V/m, field inside a backed layer, V / t; NaN otherwise
+	LayerVoltage    float64 // V across a backed layer: measured surface potential or E z; NaN otherwise
+	LayerBreakdown  float64 // V, breakdown the layer is compared with: measured, else bulk strength x thickness; NaN unknown
+	BreakdownSource BreakdownSource
+	ChargingDensity float64 // A/m^2, charging current over the surface's area; NaN unknown
+	// ProcessMaterial: the surface is process material (IsProcessMaterial), judged by
+	// its charge; otherwise a fixed equipment surface held to the area limits.
+	ProcessMaterial bool
+	// Earthed: the surface is earthed as a conductor (earthed backing, or
+	// resistance to earth at most Limits.ConductorEarthing).
+	Earthed bool
+	// IsolatedConductor: the surface conducts (conductive, dissipative by its
+	// resistivity at this RH, or of dissipative class) and is not earthed: it is
+	// assessed for a spark as an isolated conductor.
+	IsolatedConductor bool
+}
+
+// BreakdownSource says where Evaluation.LayerBreakdown came from.
+type BreakdownSource uint8
+
+// Breakdown sources.
+const (
+	BreakdownUnknown  BreakdownSource = iota
+	BreakdownMeasured                 // Input.LayerBreakdown, measured on the layer
+	BreakdownComputed                 // bulk breakdown strength x thickness: never clears, used only to flag a contradiction
+)
+
+// String says where the layer breakdown voltage came from.
+func (b BreakdownSource) String() string {
+	switch b {
+	case BreakdownMeasured:
+		return "measured on the layer"
+	case BreakdownComputed:
+		return "computed from the bulk strength x thickness (a lower bound for thin films; never used to clear)"
+	}
+	return "not known: taken above 4 kV"
 }
 
 // CapModel says which model gave a capacitance.

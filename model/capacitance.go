@@ -58,12 +58,14 @@ func TypicalCapacitance(k Kind) float64 {
 
 // Capacitance models, as recorded in Evaluation.CapacitanceModel.
 const (
-	CapNone          CapModel = iota // no capacitance (insulating surfaces)
-	CapMeasured                      // given on the survey row
-	CapSphere                        // isolated sphere of the object's size
-	CapCylinderPlane                 // cylinder over an earthed plane
-	CapParallelPlate                 // container standing on an insulating layer
-	CapTypical                       // documented typical value for the kind
+	CapNone           CapModel = iota // no capacitance (insulating surfaces)
+	CapMeasured                       // given on the survey row
+	CapSphere                         // isolated sphere of the object's size
+	CapCylinderPlane                  // cylinder over an earthed plane
+	CapParallelPlate                  // container standing on an insulating layer
+	CapTypical                        // documented typical value for the kind
+	CapDisc                           // isolated disc of the same area (conducting sheet)
+	CapSheetOverEarth                 // plate over earth eps0 A / h (conducting sheet near a floor)
 )
 
 // String names the capacitance model.
@@ -79,6 +81,10 @@ func (m CapModel) String() string {
 		return "parallel plate on the insulating layer (eps0 epsr A / d)"
 	case CapTypical:
 		return "typical value for the kind"
+	case CapDisc:
+		return "isolated disc of the same area (8 eps0 r)"
+	case CapSheetOverEarth:
+		return "plate over earth (eps0 A / h)"
 	}
 	return "none"
 }

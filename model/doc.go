@@ -8,6 +8,22 @@
 // Evaluation.NotAssessed. The figures are screening estimates: they defer to
 // local codes, the site's hazardous-area classification and a competent person.
 //
+// # Principles
+//
+// Every rule of the model and of the assessment built on it follows three
+// principles (a wrong "non-incendive" is worse than no tool):
+//
+//  1. A measurement beats a default. No default or library value (the humidity
+//     model, a library dielectric strength, a typical capacitance, an
+//     extrapolated formula) may clear a hazard that a reading on the row shows.
+//     Where a reading contradicts the model, the reading's hazard is kept and a
+//     flag (FlagHumidityContradiction, FlagBreakdownContradiction) lets the
+//     assessment write a finding that names the contradiction and what to check.
+//  2. Unknown means the stricter case. A blank input takes the value that gives
+//     the stricter verdict, and Evaluation.Assumed says so beside the value.
+//  3. Never extrapolate into a clearance. Outside a formula's range the value at
+//     the nearest edge of the range is used (never less), and it is marked.
+//
 // # Method, step by step
 //
 // Insulating surfaces (sheet, belt, and a roller that is not a conductor, see
@@ -15,23 +31,49 @@
 //
 //  1. Surface resistivity at the station's RH from the material's 50 % value and
 //     slope (SurfaceResistivityAt); dissipative if below Limits.DissipativeSurface.
+//     A dissipative class with no resistivity does not count as dissipative.
+//     Process material or fixed equipment: IsProcessMaterial (Process input; blank:
+//     a belt, or a sheet with a Speed, is process material; anything else equipment).
 //  2. Charge density sigma from the field-meter reading E at distance z: on an
-//     earthed backing eps0 E (1 + epsr z/t); over earth at distance h
-//     eps0 E (1 + z/h); otherwise the finite rectangle in free space (Length x
-//     Width; unknown sides infinite). Or from a surface potential V: eps0 epsr V/t
-//     backed, eps0 V/h over earth. A density above what air can hold is flagged as a
-//     suspect reading, except on thin earthed-backed layers.
-//  3. Surface field sigma/eps0 (backed or over earth) or sigma/(2 eps0) (free).
-//  4. A dissipative surface that is earthed (backing, or resistance to earth
-//     <= Limits.DissipativeEarthing) and decays faster than it travels to the
-//     hazard keeps no charge: no brush, no propagating brush.
+//     earthed backing eps0 E (1 + epsr z/t); an insulating roller with a Diameter
+//     as a cylinder eps0 E (R + z)/R (on an earthed core the larger of the two);
+//     over earth at distance h the split eps0 E (1 + z/h) only while
+//     h + z <= OverEarthValidity x the smaller side (OverEarthValid), and never
+//     below the free sheet, so a distance to earth never makes it milder than a
+//     blank one; otherwise the finite rectangle in free space (Length x Width;
+//     unknown sides infinite). Or from a surface potential V: eps0 epsr V/t backed,
+//     eps0 V/h over earth (the larger of it and the disc of equal area outside the
+//     split's validity; for a roller the larger of it and the cylinder over a
+//     plane). A density above what air can hold is flagged as a suspect reading,
+//     except on thin earthed-backed layers.
+//  3. Surface field sigma/eps0 (backed, cylinder, split) or sigma/(2 eps0) (free).
+//     A backed layer also gets its air-side field (the reading), its internal
+//     field E z/t and the voltage across it E z (AirField, LayerField,
+//     LayerVoltage); a free sheet has no potential E z.
+//  4. Humidity: a dissipative surface that is earthed (backing, or resistance to
+//     earth <= Limits.DissipativeEarthing) and decays faster than it travels to
+//     the hazard leaks its charge; this clears only what was not measured: a
+//     reading above a screen keeps its discharge and raises FlagHumidityContradiction.
 //  5. Brush: possible when sigma exceeds the group's screen; equivalent energy
 //     Limits.BrushEnergy (4 mJ); charge sigma x Limits.BrushArea (100 cm^2).
-//  6. Propagating brush: needs an earthed backing or double-layer charge, a layer
-//     thinner than 8 mm whose breakdown voltage exceeds 4 kV, and sigma >=
-//     2.5e-4 C/m^2; energy the stored field energy of the layer, at most 1 J.
-//  7. Belts: charging current sigma v w. Decay of a strip earthed at its edges
-//     tau = rho_s c w^2/pi^2.
+//  6. Propagating brush: needs an earthed backing or a process that builds a
+//     double layer (charging current density above PropagatingCurrentDensity,
+//     about 1 mA/m^2, BG RCI FAQ 1.12; or Process pneumatic conveying, from
+//     memory), a layer thinner than 8 mm, a layer breakdown voltage not measured
+//     at or below 4 kV (Input.LayerBreakdown; unknown is taken above 4 kV, and a
+//     bulk strength x thickness never clears: thin films hold 100-600 kV/mm), and
+//     sigma >= 2.5e-4 C/m^2 measured, or the process; energy the stored field
+//     energy of the layer, at most 1 J (a process-driven one at 1 J). A layer
+//     whose voltage exceeds its breakdown (measured, else computed from the bulk
+//     strength) raises FlagBreakdownContradiction.
+//  7. Belts: charging current sigma v w (or the row's, the larger). Decay of a
+//     strip earthed at its edges tau = rho_s c w^2/pi^2.
+//  8. A conducting surface (conductive, dissipative, or of dissipative class)
+//     not earthed (no earthed backing, resistance blank or above
+//     Limits.ConductorEarthing) is an isolated conductor (IsolatedConductor): its
+//     spark W = C V^2/2 with V measured, or sigma A / C from the reading, or from
+//     its charging current; C measured, else the disc of equal area 8 eps0 r
+//     (the stricter for a charge read on it) or eps0 A/h when larger.
 //
 // Conductors (conductive roller, container, part, person):
 //

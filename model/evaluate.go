@@ -77,6 +77,11 @@ func newEvaluation(k Kind) Evaluation {
 		CoronaOnset:        nan,
 		ResidenceTime:      nan,
 		VelocityLimit:      nan,
+		AirField:           nan,
+		LayerField:         nan,
+		LayerVoltage:       nan,
+		LayerBreakdown:     nan,
+		ChargingDensity:    nan,
 	}
 	for i := range ev.Discharges {
 		ev.Discharges[i] = Discharge{Type: DischargeType(i), Energy: nan, Charge: nan, Code: ReasonNotApplicable, A: nan, B: nan}
@@ -127,24 +132,41 @@ func surfaceArea(in *Input) float64 {
 	return math.NaN()
 }
 
-// evalSurface is the insulating-surface recipe (sheet, belt, insulating roller).
+// evalSurface is the insulating-surface recipe (sheet, belt, insulating roller):
+// the charge the reading shows and its brush and propagating brush discharges
+// (surfaceCharge), then the spark of a conducting surface that is not earthed
+// (surfaceSpark).
 func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
-	ev.InsulatingArea = surfaceArea(in)
-	setReason(&ev.Discharges[Spark], ReasonSparkInsulator, math.NaN(), math.NaN())
+	sigma := surfaceCharge(ev, in, env, lim)
+	surfaceSpark(ev, in, env, lim, sigma)
+}
 
-	// Humidity: surface resistivity at the station's RH.
+// surfaceCharge fills the charge density, fields, brush and propagating brush of
+// an insulating surface and returns sigma (NaN when the reading is missing).
+func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) float64 {
+	nan := math.NaN()
+	ev.InsulatingArea = surfaceArea(in)
+	ev.ProcessMaterial = IsProcessMaterial(*in)
+	if !ev.ProcessMaterial && in.Process == ProcessUnknown && in.Kind == Sheet {
+		ev.Assumed |= AssumedEquipmentSurface
+	}
+	setReason(&ev.Discharges[Spark], ReasonSparkInsulator, nan, nan)
+
+	// Humidity: surface resistivity at the station's RH. A dissipative class with
+	// no resistivity does not count as dissipative for clearing (principle 2).
 	dissipative := false
 	if given(in.Material.SurfaceResistivity) {
 		ev.SurfaceResistivity = SurfaceResistivityAt(in.Material.SurfaceResistivity, in.Material.HumiditySlope, env.RelativeHumidity)
 		dissipative = ev.SurfaceResistivity < lim.DissipativeSurface
 	} else if in.Material.Dissipative {
 		ev.Assumed |= AssumedDissipativeClass
-		dissipative = !(env.RelativeHumidity < 30)
 	}
 	ev.Dissipative = dissipative
+	backed := in.EarthedBacking
+	ev.Earthed = backed || (given(in.Resistance) && in.Resistance <= lim.ConductorEarthing)
+	ev.IsolatedConductor = conductingSurface(in, dissipative) && !ev.Earthed
 
 	epsr := in.Material.Permittivity
-	backed := in.EarthedBacking
 	if backed && !positive(epsr) {
 		epsr = 3
 		ev.Assumed |= AssumedLayerPermittivity
@@ -152,26 +174,41 @@ func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	if backed && !positive(in.Thickness) {
 		ev.NotAssessed |= MissingThickness
 		markNotEvaluated(ev, Brush, PropagatingBrush)
-		return
+		return nan
 	}
 	h := in.DistanceToEarth
-	overEarth := !backed && positive(h)
+	roller := in.Kind == Roller && positive(in.Diameter)
+	rad := in.Diameter / 2
 
+	// Charge density from the reading. oneSided: all the field on one side
+	// (backed layer, cylinder, sheet close over earth); split: the parallel-plate
+	// split over earth was used (its capacitance per area serves the decay).
 	var sigma float64
+	oneSided, split := backed, false
 	switch {
 	case given(in.Field):
 		z := in.FieldDistance
 		if !positive(z) {
 			ev.NotAssessed |= MissingFieldDistance
 			markNotEvaluated(ev, Brush, PropagatingBrush)
-			return
+			return nan
 		}
 		e := math.Abs(in.Field)
 		switch {
 		case backed:
 			sigma = DensityBacked(e, z, in.Thickness, epsr)
-		case overEarth:
-			sigma = DensityOverEarth(e, z, h)
+			ev.AirField, ev.LayerField = BackedLayerFields(e, z, in.Thickness)
+			ev.LayerVoltage = e * z
+			ev.Potential, ev.PotentialSource = e*z, PotentialFromField
+			if roller {
+				// A layer on an earthed roller core: the cylinder is plausible too.
+				if c := DensityCylinder(e, rad, z); c > sigma {
+					sigma = c
+					ev.Assumed |= AssumedStricterGeometry
+				}
+			}
+		case roller:
+			sigma, oneSided = DensityCylinder(e, rad, z), true
 		default:
 			a, b := in.Length/2, in.Width/2
 			if !positive(a) {
@@ -184,35 +221,61 @@ func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 				ev.Assumed |= AssumedInfiniteSheet
 			}
 			sigma = DensityFreeRectangle(e, a, b, z)
+			if positive(h) {
+				// The split only inside its validity, and never below the free
+				// sheet: entering a floor distance never makes the result milder.
+				if !OverEarthValid(h, z, in.Length, in.Width) {
+					ev.Assumed |= AssumedOverEarthFree
+				} else if sp := DensityOverEarth(e, z, h); sp >= sigma {
+					sigma, oneSided, split = sp, true, true
+					ev.Potential, ev.PotentialSource = e*z, PotentialFromField
+				} else {
+					ev.Assumed |= AssumedStricterGeometry
+				}
+			}
 		}
 		if e > lim.AirBreakdown {
 			ev.Flags |= FlagSuspectReading
 		}
-		ev.Potential, ev.PotentialSource = e*z, PotentialFromField
 	case given(in.SurfacePotential):
 		v := math.Abs(in.SurfacePotential)
 		switch {
 		case backed:
 			sigma = DensityFromPotentialBacked(v, in.Thickness, epsr)
-		case overEarth:
-			sigma = DensityFromPotentialOverEarth(v, h)
+			ev.LayerVoltage, ev.LayerField = v, v/in.Thickness
+		case roller && positive(h):
+			sigma, oneSided = DensityFromPotentialOverEarth(v, h), true
+			if c := DensityFromPotentialCylinder(v, rad, h+rad); c > sigma {
+				sigma = c
+				ev.Assumed |= AssumedStricterGeometry
+			}
+		case positive(h):
+			sigma, oneSided, split = DensityFromPotentialOverEarth(v, h), true, true
+			if !OverEarthValid(h, 0, in.Length, in.Width) {
+				ev.Assumed |= AssumedOverEarthFree
+				if positive(ev.InsulatingArea) {
+					if f := DensityFromPotentialFree(v, ev.InsulatingArea); f > sigma {
+						sigma, oneSided, split = f, false, false
+					}
+				}
+			}
 		default:
 			ev.NotAssessed |= MissingSurfaceGeometry
 			markNotEvaluated(ev, Brush, PropagatingBrush)
-			return
+			return nan
 		}
 		ev.Potential, ev.PotentialSource = v, PotentialMeasured
 	default:
 		ev.NotAssessed |= MissingSurfaceReading
 		markNotEvaluated(ev, Brush, PropagatingBrush)
-		return
+		return nan
 	}
 	ev.ChargeDensity = sigma
 
 	// Surface field and the breakdown cap on the density.
 	maxSigma := MaxDensityTwoSided(lim.AirBreakdown)
 	ev.SurfaceField = IsolatedSheetField(sigma)
-	if backed || overEarth {
+	if oneSided {
 		maxSigma = MaxDensityOneSided(lim.AirBreakdown)
 		ev.SurfaceField = OneSidedField(sigma)
 	}
@@ -221,11 +284,15 @@ func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.Flags |= FlagSuspectReading
 	}
 
-	// Charging current of a belt.
+	// Charging current: a belt's sigma v w, or the row's (the larger when both).
 	if in.Kind == Belt && positive(in.Speed) && positive(in.Width) {
 		ev.ChargingCurrent = BeltCurrent(sigma, in.Speed, in.Width)
-	} else if given(in.ChargingCurrent) {
-		ev.ChargingCurrent = in.ChargingCurrent
+	}
+	if i := math.Abs(in.ChargingCurrent); given(i) && !(ev.ChargingCurrent >= i) {
+		ev.ChargingCurrent = i
+	}
+	if finite(ev.ChargingCurrent) && positive(ev.InsulatingArea) {
+		ev.ChargingDensity = ev.ChargingCurrent / ev.InsulatingArea
 	}
 
 	// Decay of a strip to its earthed edges.
@@ -233,14 +300,15 @@ func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	switch {
 	case backed:
 		cPerArea = Eps0 * epsr / in.Thickness
-	case overEarth:
+	case split:
 		cPerArea = Eps0 / h
 	}
 	if given(ev.SurfaceResistivity) && positive(in.Width) && finite(cPerArea) {
 		ev.DecayTime = StripRelaxationTime(ev.SurfaceResistivity, cPerArea, in.Width)
 	}
-	earthed := backed || (given(in.Resistance) && in.Resistance <= lim.DissipativeEarthing)
-	leaks := dissipative && earthed
+	// The humidity model: a dissipative surface earthed somewhere leaks its
+	// charge. It clears only what was not measured (principle 1).
+	leaks := dissipative && (backed || (given(in.Resistance) && in.Resistance <= lim.DissipativeEarthing))
 	travel := in.ChargingTime
 	if !positive(travel) && positive(in.Length) && positive(in.Speed) {
 		travel = in.Length / in.Speed
@@ -250,51 +318,100 @@ func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.Flags |= FlagSlowDecay
 	}
 
-	// Brush.
+	// Brush: the reading decides.
 	br := &ev.Discharges[Brush]
 	screen := lim.BrushChargeDensity[groupIndex(env.Group)]
 	switch {
-	case leaks:
-		setReason(br, ReasonBrushLeaks, ev.SurfaceResistivity, math.NaN())
 	case !(sigma > screen):
-		setReason(br, ReasonBrushBelowScreen, sigma, screen)
+		if leaks {
+			setReason(br, ReasonBrushLeaks, ev.SurfaceResistivity, nan)
+		} else {
+			setReason(br, ReasonBrushBelowScreen, sigma, screen)
+		}
 	default:
 		br.Possible, br.Energy, br.Charge = true, lim.BrushEnergy, sigma*lim.BrushArea
-		setReason(br, ReasonBrushPossible, sigma, screen)
+		if leaks {
+			// The reading contradicts the humidity model: the model clears nothing
+			// more on this row (its propagating brush, its area exemption).
+			ev.Flags |= FlagHumidityContradiction
+			setReason(br, ReasonBrushReadingOverHumidity, sigma, screen)
+			leaks = false
+		} else {
+			setReason(br, ReasonBrushPossible, sigma, screen)
+		}
 	}
 
-	// Propagating brush.
-	pb := &ev.Discharges[PropagatingBrush]
-	if leaks {
-		setReason(pb, ReasonBrushLeaks, ev.SurfaceResistivity, math.NaN())
-		return
+	// Layer breakdown: measured on the layer, else the bulk strength x thickness,
+	// which never clears but flags a layer holding more than it could.
+	if positive(in.Thickness) && (backed || in.DoubleLayer || in.Process == ProcessPneumatic) {
+		switch {
+		case positive(in.LayerBreakdown):
+			ev.LayerBreakdown, ev.BreakdownSource = math.Abs(in.LayerBreakdown), BreakdownMeasured
+		case given(in.Material.BreakdownStrength):
+			ev.LayerBreakdown, ev.BreakdownSource = in.Material.BreakdownStrength*in.Thickness, BreakdownComputed
+		}
+		if ev.LayerVoltage > ev.LayerBreakdown {
+			ev.Flags |= FlagBreakdownContradiction
+		}
 	}
-	if !backed && !in.DoubleLayer {
-		setReason(pb, ReasonPropNoLayer, math.NaN(), math.NaN())
-		return
+
+	// Propagating brush: an earthed backing or a process that builds a double
+	// layer (BG RCI FAQ 1.12: charging current density above about 1 mA/m^2;
+	// pneumatic conveying through insulating pipes or liners, from memory).
+	pb := &ev.Discharges[PropagatingBrush]
+	byCurrent := ev.ChargingDensity > PropagatingCurrentDensity
+	process := in.DoubleLayer || in.Process == ProcessPneumatic || byCurrent
+	if !backed && !process {
+		setReason(pb, ReasonPropNoLayer, nan, nan)
+		return sigma
 	}
 	t := in.Thickness
 	if !positive(t) {
 		ev.Assumed |= AssumedThinLayer
 	} else if t >= lim.PropagatingThickness {
 		setReason(pb, ReasonPropThick, t, lim.PropagatingThickness)
-		return
+		return sigma
 	}
-	bd := in.Material.BreakdownStrength * t
-	if given(bd) && bd <= lim.PropagatingBreakdown {
-		setReason(pb, ReasonPropLowBreakdown, bd, lim.PropagatingBreakdown)
-		return
+	if ev.BreakdownSource == BreakdownMeasured && ev.LayerBreakdown <= lim.PropagatingBreakdown {
+		setReason(pb, ReasonPropLowBreakdown, ev.LayerBreakdown, lim.PropagatingBreakdown)
+		return sigma
 	}
-	if !given(bd) {
+	if ev.BreakdownSource != BreakdownMeasured {
 		ev.Assumed |= AssumedBreakdownUnknown
 	}
-	if sigma < lim.PropagatingDensity {
+	measured := sigma >= lim.PropagatingDensity
+	switch {
+	case measured:
+	case process && leaks && finite(ev.DecayTime) && positive(travel):
+		// Only the process says it could charge: the humidity model may clear
+		// that, when the layer is shown to decay faster than it travels (an
+		// unknown decay or travel time clears nothing: principle 2).
+		setReason(pb, ReasonBrushLeaks, ev.SurfaceResistivity, nan)
+		return sigma
+	case !process:
 		ev.Flags |= FlagPropagatingLayer
 		setReason(pb, ReasonPropBelowDensity, sigma, lim.PropagatingDensity)
-		return
+		return sigma
+	default:
+		// Process-driven: the density is not measured, so the upper estimate.
+		pb.Possible, pb.Energy = true, lim.PropagatingMaxEnergy
+		if positive(ev.InsulatingArea) {
+			pb.Charge = lim.PropagatingDensity * ev.InsulatingArea
+		}
+		if byCurrent {
+			setReason(pb, ReasonPropCurrentDensity, ev.ChargingDensity, PropagatingCurrentDensity)
+		} else {
+			setReason(pb, ReasonPropPneumatic, lim.PropagatingMaxEnergy, nan)
+		}
+		return sigma
 	}
 	w := lim.PropagatingMaxEnergy
-	if positive(ev.InsulatingArea) && positive(t) {
+	if process {
+		// The process can charge the layer beyond what was read: the upper estimate.
+		if positive(ev.InsulatingArea) {
+			pb.Charge = sigma * ev.InsulatingArea
+		}
+	} else if positive(ev.InsulatingArea) && positive(t) {
 		pe := epsr
 		if !positive(pe) {
 			pe = 3
@@ -306,7 +423,141 @@ func evalSurface(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.Assumed |= AssumedPropagatingArea
 	}
 	pb.Possible, pb.Energy = true, w
-	setReason(pb, ReasonPropPossible, sigma, w)
+	if leaks {
+		ev.Flags |= FlagHumidityContradiction
+		setReason(pb, ReasonPropReadingOverHumidity, sigma, lim.PropagatingDensity)
+	} else {
+		setReason(pb, ReasonPropPossible, sigma, w)
+	}
+	return sigma
+}
+
+// surfaceSpark assesses a conducting surface (conductive, dissipative, or of
+// dissipative class) that is not earthed as an isolated conductor (IEC TS
+// 60079-32-1: conductors must be earthed; reference section 12): its capacitance
+// measured or estimated, its potential measured, or from the charge sigma A the
+// reading shows, or from its charging current.
+func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigma float64) {
+	sp := &ev.Discharges[Spark]
+	conducts := conductingSurface(in, ev.Dissipative)
+	if !ev.IsolatedConductor {
+		if conducts && ev.Earthed {
+			r := math.NaN()
+			if !in.EarthedBacking {
+				r = in.Resistance
+			}
+			setReason(sp, ReasonSparkSurfaceEarthed, r, lim.ConductorEarthing)
+		}
+		return
+	}
+	r := in.Resistance
+	if !given(r) {
+		r = lim.NotEarthed
+		ev.Assumed |= AssumedNotEarthed
+	}
+	ev.Resistance = r
+
+	var c, v float64
+	var m CapModel
+	area := ev.InsulatingArea
+	switch {
+	case given(in.SurfacePotential):
+		c, m = surfaceCapacitance(ev, in, false)
+		v, ev.PotentialSource = math.Abs(in.SurfacePotential), PotentialMeasured
+	case given(sigma) && positive(area):
+		c, m = surfaceCapacitance(ev, in, true)
+		v, ev.PotentialSource = sigma*area/c, PotentialFromCharge
+	case positive(ev.ChargingCurrent):
+		c, m = surfaceCapacitance(ev, in, false)
+		if !given(in.ChargingTime) {
+			ev.Assumed |= AssumedSteadyState
+		}
+		v, ev.PotentialSource = ConductorPotential(ev.ChargingCurrent, r, c, in.ChargingTime), PotentialCharging
+	}
+	if !positive(c) || !given(v) {
+		// The brush and propagating brush the reading shows keep their energies
+		// (the assessment still judges them); the spark is missing its inputs.
+		ev.NotAssessed |= MissingSurfaceSpark
+		markNotEvaluated(ev, Spark)
+		return
+	}
+	ev.Capacitance, ev.CapacitanceModel = c, m
+	if in.Kind == Roller && positive(in.Diameter) {
+		temp := env.Temperature
+		if !positive(temp) {
+			temp = DefaultTemperature
+			ev.Assumed |= AssumedTemperature
+		}
+		hh := math.NaN()
+		if positive(in.DistanceToEarth) {
+			hh = in.DistanceToEarth + in.Diameter/2
+		}
+		ev.CoronaOnset = CoronaOnsetPotential(in.Diameter/2, hh, RelativeAirDensity(temp))
+		if v > ev.CoronaOnset {
+			if ev.PotentialSource == PotentialMeasured {
+				ev.Flags |= FlagSuspectReading
+			}
+			v = ev.CoronaOnset
+			ev.Flags |= FlagCappedCorona
+		}
+	} else if ev.PotentialSource != PotentialMeasured {
+		ev.Assumed |= AssumedNoCoronaCap
+	}
+	ev.Potential = v
+	w := SparkEnergy(c, v)
+	ev.StoredEnergy = w
+	sp.Energy, sp.Charge = w, SparkCharge(c, v)
+	if v >= lim.SparkMinPotential {
+		sp.Possible = true
+		setReason(sp, ReasonSparkSurface, v, w)
+	} else {
+		setReason(sp, ReasonSparkBelowPaschen, v, lim.SparkMinPotential)
+	}
+	ev.DecayTime = DecayTime(r, c)
+	ev.TimeTo100V = TimeToPotential(v, lim.SafePotential, ev.DecayTime)
+	if w > lim.ShockEnergy {
+		ev.Flags |= FlagShock
+	}
+}
+
+// conductingSurface reports whether a surface conducts well enough to spark: a
+// conductive material, a surface dissipative at this RH by its resistivity, or,
+// with no resistivity given, a material of dissipative class (the stricter
+// reading: it may conduct). A resistivity given and insulating at this RH wins
+// over the class.
+func conductingSurface(in *Input, dissipative bool) bool {
+	return in.Material.Conductive || dissipative || (in.Material.Dissipative && !given(in.Material.SurfaceResistivity))
+}
+
+// surfaceCapacitance returns the measured capacitance of a conducting surface, or
+// its estimate: a roller as any conductor (estimateCapacitance); a sheet or belt
+// as the isolated disc of equal area, or, when forCharge is false (a measured
+// potential or a charging current, where a larger capacitance is the stricter),
+// the plate over earth eps0 A / h when that is larger. For a charge read on the
+// surface (forCharge) the smaller disc is the stricter (W = Q^2 / 2C).
+func surfaceCapacitance(ev *Evaluation, in *Input, forCharge bool) (float64, CapModel) {
+	if positive(in.Capacitance) {
+		return in.Capacitance, CapMeasured
+	}
+	if in.Kind == Roller {
+		return estimateCapacitance(ev, in)
+	}
+	a := ev.InsulatingArea
+	if !positive(a) {
+		return math.NaN(), CapNone
+	}
+	ev.Assumed |= AssumedCapacitance
+	c, m := DiscCapacitance(math.Sqrt(a/math.Pi)), CapDisc
+	if forCharge {
+		ev.Assumed |= AssumedSurfaceCapacitanceFree
+		return c, m
+	}
+	if h := in.DistanceToEarth; positive(h) {
+		if p := ParallelPlateCapacitance(a, h, 1); p > c {
+			c, m = p, CapSheetOverEarth
+		}
+	}
+	return c, m
 }
 
 func markNotEvaluated(ev *Evaluation, types ...DischargeType) {

@@ -60,6 +60,14 @@ const (
 	ReasonBagNeverZone0or20
 	ReasonBagBelowQualifiedMIE
 
+	// Insulating surfaces (appended).
+	ReasonSparkSurface             // A potential (V), B energy (J)
+	ReasonSparkSurfaceEarthed      // A resistance (ohm, NaN: earthed backing), B limit (ohm)
+	ReasonBrushReadingOverHumidity // A density, B screen (C/m^2)
+	ReasonPropReadingOverHumidity  // A density, B needed (C/m^2)
+	ReasonPropCurrentDensity       // A charging current density, B threshold (A/m^2)
+	ReasonPropPneumatic            // A energy (J)
+
 	numReasons
 )
 
@@ -113,7 +121,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonBrushBagProtected:
 		return "Type C and D fabrics are made so that brush discharges are not expected."
 	case ReasonPropNoLayer:
-		return "No earthed backing and no double-layer charge: no propagating brush."
+		return "No earthed backing and no charging process that builds a double layer (pneumatic conveying, or a charging current density above about 1 mA/m^2): no propagating brush."
 	case ReasonPropThick:
 		return fmt.Sprintf("The layer thickness %s is at or above %s: no propagating brush expected.", Quantity(a, "m"), Quantity(b, "m"))
 	case ReasonPropLowBreakdown:
@@ -164,6 +172,21 @@ func (r Reason) Text(a, b float64) string {
 		return "No bag type is qualified for zone 0 or zone 20."
 	case ReasonBagBelowQualifiedMIE:
 		return "Types C and D are qualified only for an MIE at or above 0.14 mJ."
+	case ReasonSparkSurface:
+		return fmt.Sprintf("The surface conducts (dissipative or conductive) but is not earthed: as an isolated conductor at %s it can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+	case ReasonSparkSurfaceEarthed:
+		if math.IsNaN(a) {
+			return "The conducting surface lies on earthed metal: no spark."
+		}
+		return fmt.Sprintf("The conducting surface is earthed through %s (limit %s): no spark.", Quantity(a, "ohm"), Quantity(b, "ohm"))
+	case ReasonBrushReadingOverHumidity:
+		return fmt.Sprintf("The reading gives %s, above the brush screen %s, although the humidity model finds the surface dissipative and earthed: the reading stands (a measurement beats the model).", Quantity(a, "C/m^2"), Quantity(b, "C/m^2"))
+	case ReasonPropReadingOverHumidity:
+		return fmt.Sprintf("The reading gives %s, at or above the %s a propagating brush needs, although the humidity model finds the surface dissipative and earthed: the reading stands.", Quantity(a, "C/m^2"), Quantity(b, "C/m^2"))
+	case ReasonPropCurrentDensity:
+		return fmt.Sprintf("The charging current density %s exceeds about %s: the process can charge the layer to a propagating brush whatever a field meter reads (BG RCI FAQ 1.12).", Quantity(a, "A/m^2"), Quantity(b, "A/m^2"))
+	case ReasonPropPneumatic:
+		return fmt.Sprintf("Pneumatic conveying through or over an insulating pipe, hose or liner can build a double layer that gives propagating brush discharges (from memory; taken at its upper estimate %s).", Quantity(a, "J"))
 	}
 	return "Unknown reason."
 }
@@ -200,10 +223,11 @@ func Quantity(v float64, unit string) string {
 
 // Potential sources, as recorded in Evaluation.PotentialSource.
 const (
-	PotentialNone      PotentialSource = iota // no potential
-	PotentialMeasured                         // Surface potential on the row
-	PotentialFromField                        // V = E z from the field reading
-	PotentialCharging                         // V(t) = I R (1 - exp(-t/RC))
+	PotentialNone       PotentialSource = iota // no potential
+	PotentialMeasured                          // Surface potential on the row
+	PotentialFromField                         // V = E z from the field reading
+	PotentialCharging                          // V(t) = I R (1 - exp(-t/RC))
+	PotentialFromCharge                        // V = sigma A / C, an unearthed conducting surface (appended)
 )
 
 // String says where the potential came from.
@@ -212,7 +236,9 @@ func (p PotentialSource) String() string {
 	case PotentialMeasured:
 		return "measured"
 	case PotentialFromField:
-		return "from the field reading (V = E z)"
+		return "from the field reading between the earthed meter and the earthed backing or floor (V = E z, parallel-plate split)"
+	case PotentialFromCharge:
+		return "from the charge the reading shows on the conducting surface (V = sigma A / C)"
 	case PotentialCharging:
 		return "from charging (V = I R (1 - exp(-t/RC)))"
 	}
@@ -243,6 +269,10 @@ const (
 	AssumedBagCurrent
 	AssumedProductMIE
 	AssumedProductMIEUnknown
+	AssumedEquipmentSurface
+	AssumedOverEarthFree
+	AssumedStricterGeometry
+	AssumedSurfaceCapacitanceFree
 	numAssumptions = iota
 )
 
@@ -259,8 +289,8 @@ func assumptionTexts() [numAssumptions]string {
 		"layer permittivity not given: 3 (common polymers)",
 		"permittivity of the layer under the container not given: 2 (dry wood)",
 		"sheet size not given: taken as infinite (sigma = 2 eps0 E, a lower bound)",
-		"surface resistivity not given: the material's dissipative class taken (lost below 30 %RH)",
-		"layer breakdown strength not given: taken above 4 kV",
+		"surface resistivity not given: the material's dissipative class does not count as dissipative for clearing (give the surface resistivity at 50 %RH); a spark is assessed if it is not earthed",
+		"layer breakdown voltage not measured: taken above 4 kV (thin films hold 100-600 kV/mm; a bulk strength never clears)",
 		"insulating area not given: propagating brush energy taken at its upper bound",
 		"double-layer thickness not given: taken as thin",
 		"powder volume resistivity not given: taken as high (>= 1e10 ohm m)",
@@ -271,6 +301,10 @@ func assumptionTexts() [numAssumptions]string {
 		"charging current not given: the 3 uA the bag qualification assumes",
 		"product MIE not given: the station's dust MIE",
 		"product MIE not given: the most sensitive band (<= 3 mJ)",
+		"not recognised as process material (no Process, no Speed): a fixed equipment surface, held to the insulating-area limit (the stricter reading)",
+		"distance to earth not small against the sheet: the parallel-plate split is outside its range, the free finite sheet is used",
+		"two geometries are plausible: the stricter (larger charge density) is used",
+		"capacitance of the conducting surface not measured: the isolated disc of equal area (8 eps0 r), the smaller and so stricter estimate for a charge read on it",
 	}
 }
 
@@ -293,6 +327,8 @@ const (
 	FlagSplashFilling
 	FlagBagNotEarthed
 	FlagBagCurrentAboveQualified
+	FlagBreakdownContradiction
+	FlagHumidityContradiction
 	numFlags = iota
 )
 
@@ -310,6 +346,8 @@ func flagTexts() [numFlags]string {
 		"top (splash) filling of a low-conductivity liquid",
 		"type C bag not earthed (tab to earth unknown or above the limit)",
 		"charging current above the 3 uA the type C/D qualification assumes",
+		"the layer holds a voltage above its breakdown voltage: check the reading and its unit, the thickness and the breakdown value (a bulk strength understates a thin film's)",
+		"the reading shows charge above the screen although the humidity model finds the surface dissipative and earthed: the reading stands; check the surface resistivity at this RH, the earthing and the reading",
 	}
 }
 
@@ -330,6 +368,7 @@ const (
 	MissingPersonPotential
 	MissingConeSize
 	MissingLiquidFlow
+	MissingSurfaceSpark
 	numMissing = iota
 )
 
@@ -345,6 +384,7 @@ func missingTexts() [numMissing]string {
 		"needs Surface potential or Resistance to earth",
 		"needs Diameter and Particle size for the cone discharge energy",
 		"needs Speed and Diameter of the line, or Charging current",
+		"needs Surface potential, Length and Width, or Charging current to judge the spark of the unearthed conducting surface",
 	}
 }
 

@@ -73,16 +73,320 @@ func TestSurfaceReadingPaths(t *testing.T) {
 	if ev.Assumed&AssumedThinLayer == 0 {
 		t.Errorf("double layer: assumed %b", ev.Assumed)
 	}
-	// Dissipative class without a resistivity, on an earthed backing at 50 %RH: leaks.
+	// Issue 11: a dissipative class with no resistivity does not count as
+	// dissipative for clearing: the 134 uC/m^2 reading keeps its brush; on its
+	// earthed backing it is earthed, so no spark.
 	c := blank(Belt)
 	c.Material.Dissipative, c.EarthedBacking, c.Thickness, c.Field, c.FieldDistance = true, true, 1e-3, 1e5, 0.05
 	ev = Evaluate(c, Environment{RelativeHumidity: 50, Atmosphere: Gas, Group: IIA, Zone: Zone1}, lim)
-	if ev.Discharges[Brush].Possible || ev.Discharges[PropagatingBrush].Code != ReasonBrushLeaks || ev.Assumed&AssumedDissipativeClass == 0 {
-		t.Errorf("dissipative belt: %s", ev.Discharges[Brush].Reason())
+	if !ev.Discharges[Brush].Possible || ev.Dissipative || ev.Assumed&AssumedDissipativeClass == 0 || ev.Discharges[Spark].Code != ReasonSparkSurfaceEarthed {
+		t.Errorf("dissipative-class belt: %s; %s", ev.Discharges[Brush].Reason(), ev.Discharges[Spark].Reason())
 	}
-	// The same below 30 %RH keeps its charge (Paasi et al. 2001 [C]: dissipative materials may become insulating).
-	ev = Evaluate(c, Environment{RelativeHumidity: 20, Atmosphere: Gas, Group: IIA, Zone: Zone1}, lim)
-	if !ev.Discharges[Brush].Possible {
-		t.Errorf("dry dissipative belt: %s", ev.Discharges[Brush].Reason())
+}
+
+// Issue 11, item 1: a bulk strength never clears a propagating brush; a layer
+// holding more than its breakdown is a contradiction.
+func TestLayerBreakdownContradiction(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	// 50 um film, epsr 3, bulk strength 20 kV/mm (a thick-plaque value) -> computed 1 kV (derived).
+	in.EarthedBacking, in.Thickness, in.Material.Permittivity, in.Material.BreakdownStrength = true, 50e-6, 3, 20e6
+	in.Length, in.Width, in.Field, in.FieldDistance = 1, 0.5, 50e3, 0.05
+	ev := Evaluate(in, env, lim)
+	// derived: the layer holds V = E z = 50 kV/m x 0.05 m = 2.5 kV (parallel-plate split).
+	near(t, "layer voltage", ev.LayerVoltage, 2.5e3, 1e-12)
+	near(t, "computed breakdown", ev.LayerBreakdown, 1e3, 1e-12)
+	// derived: sigma = eps0 x 5e4 x (1 + 3 x 0.05 / 5e-5) = 1.33e-3 C/m^2 >= 2.5e-4 (TRGS 727 Annex C).
+	near(t, "density", ev.ChargeDensity, Eps0*5e4*3001, 1e-12)
+	if ev.Flags&FlagBreakdownContradiction == 0 || !ev.Discharges[PropagatingBrush].Possible || ev.BreakdownSource != BreakdownComputed {
+		t.Errorf("computed 1 kV under 2.5 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	}
+	// A measured 2 kV (<= 4 kV) clears the propagating brush (TRGS 727 Annex C [C]),
+	// but 2.5 kV held above 2 kV is still a contradiction.
+	in.LayerBreakdown = 2e3
+	ev = Evaluate(in, env, lim)
+	if ev.Discharges[PropagatingBrush].Possible || ev.Flags&FlagBreakdownContradiction == 0 || ev.BreakdownSource != BreakdownMeasured {
+		t.Errorf("measured 2 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	}
+	// Measured 10 kV: no contradiction, and above 4 kV the brush stays possible.
+	in.LayerBreakdown = 10e3
+	ev = Evaluate(in, env, lim)
+	if !ev.Discharges[PropagatingBrush].Possible || ev.Flags&FlagBreakdownContradiction != 0 {
+		t.Errorf("measured 10 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	}
+}
+
+// Issue 11, item 8: a backed layer shows the air-side field read and the layer's
+// internal field apart; a free sheet has no potential E z.
+func TestBackedLayerFieldsAndFreePotential(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	in.EarthedBacking, in.Thickness, in.Material.Permittivity = true, 1e-4, 3
+	in.Field, in.FieldDistance = 1e4, 0.1
+	ev := Evaluate(in, env, lim)
+	// derived (parallel-plate split): air gap field = the reading 10 kV/m; layer field
+	// E z / t = 1e4 x 0.1 / 1e-4 = 10 MV/m; voltage across the layer 1 kV.
+	near(t, "air field", ev.AirField, 1e4, 1e-12)
+	near(t, "layer field", ev.LayerField, 1e7, 1e-12)
+	near(t, "layer voltage", ev.LayerVoltage, 1e3, 1e-12)
+	f := blank(Sheet)
+	f.Length, f.Width, f.Field, f.FieldDistance = 1, 1, 1e4, 0.1
+	ev = Evaluate(f, env, lim)
+	if !math.IsNaN(ev.Potential) || ev.PotentialSource != PotentialNone || !math.IsNaN(ev.AirField) {
+		t.Errorf("free sheet: potential %g (%s), air field %g", ev.Potential, ev.PotentialSource, ev.AirField)
+	}
+}
+
+// Issue 11, item 3: a dissipative surface that is not earthed sparks.
+func TestUnearthedDissipativeSheetSparks(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	in.Material.SurfaceResistivity, in.Material.HumiditySlope = 1e8, 0 // dissipative at any RH (< 1e9)
+	in.Length, in.Width, in.Field, in.FieldDistance = 1, 0.5, 100e3, 0.1
+	ev := Evaluate(in, env, lim)
+	// derived (python3): free rectangle a = 0.5, b = 0.25, z = 0.1: sigma = 2.4307 uC/m^2;
+	// Q = sigma x 0.5 m^2 = 1.2154 uC; disc of equal area C = 8 eps0 sqrt(0.5/pi) = 28.258 pF;
+	// V = Q/C = 43.0 kV; W = C V^2 / 2 = 26.1 mJ.
+	near(t, "density", ev.ChargeDensity, 2.4307218182715673e-06, 1e-9)
+	near(t, "capacitance", ev.Capacitance, 2.8258479017128046e-11, 1e-9)
+	near(t, "potential", ev.Potential, 43008.71637143416, 1e-9)
+	near(t, "spark energy", ev.Discharges[Spark].Energy, 0.02613555631497464, 1e-9)
+	if !ev.IsolatedConductor || !ev.Discharges[Spark].Possible || ev.Effective != Spark || ev.PotentialSource != PotentialFromCharge || ev.Assumed&AssumedNotEarthed == 0 {
+		t.Errorf("unearthed dissipative: %s", ev.Discharges[Spark].Reason())
+	}
+	// Earthed at 1e5 ohm (<= 1e6, TRGS 727 8.3): no spark.
+	in.Resistance = 1e5
+	ev = Evaluate(in, env, lim)
+	if ev.IsolatedConductor || ev.Discharges[Spark].Possible || ev.Discharges[Spark].Code != ReasonSparkSurfaceEarthed {
+		t.Errorf("earthed dissipative: %s", ev.Discharges[Spark].Reason())
+	}
+	// Earthed at 1e7 ohm: above the conductor limit, so still an isolated conductor.
+	in.Resistance = 1e7
+	if ev = Evaluate(in, env, lim); !ev.IsolatedConductor || !ev.Discharges[Spark].Possible {
+		t.Errorf("1e7 ohm dissipative: %s", ev.Discharges[Spark].Reason())
+	}
+	// A dissipative class with no resistivity: insulating for clearing, a conductor for sparking.
+	c := blank(Sheet)
+	c.Material.Dissipative = true
+	c.Length, c.Width, c.Field, c.FieldDistance = 1, 0.5, 100e3, 0.1
+	ev = Evaluate(c, env, lim)
+	if ev.Dissipative || !ev.IsolatedConductor || !ev.Discharges[Spark].Possible {
+		t.Errorf("dissipative class: %s", ev.Discharges[Spark].Reason())
+	}
+	// An insulating sheet never sparks.
+	p := blank(Sheet)
+	p.Material.SurfaceResistivity = 1e15
+	p.Length, p.Width, p.Field, p.FieldDistance = 1, 0.5, 100e3, 0.1
+	if ev = Evaluate(p, env, lim); ev.IsolatedConductor || ev.Discharges[Spark].Code != ReasonSparkInsulator {
+		t.Errorf("insulating sheet: %s", ev.Discharges[Spark].Reason())
+	}
+}
+
+// Issue 11, item 4: propagating brushes judged from the process.
+func TestProcessDrivenPropagatingBrush(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	in.Length, in.Width, in.Thickness, in.Field, in.FieldDistance = 0.5, 0.2, 1e-3, 1e3, 0.1
+	in.ChargingCurrent = 200e-6
+	ev := Evaluate(in, env, lim)
+	// derived: 200 uA over 0.1 m^2 = 2 mA/m^2, above about 1 mA/m^2 (BG RCI FAQ 1.12 [C]).
+	near(t, "current density", ev.ChargingDensity, 2e-3, 1e-12)
+	if pb := ev.Discharges[PropagatingBrush]; !pb.Possible || pb.Code != ReasonPropCurrentDensity || pb.Energy != lim.PropagatingMaxEnergy {
+		t.Errorf("2 mA/m^2: %s", pb.Reason())
+	}
+	// derived: 50 uA over 0.1 m^2 = 0.5 mA/m^2: no propagating brush without a backing.
+	in.ChargingCurrent = 50e-6
+	if pb := Evaluate(in, env, lim).Discharges[PropagatingBrush]; pb.Possible || pb.Code != ReasonPropNoLayer {
+		t.Errorf("0.5 mA/m^2: %s", pb.Reason())
+	}
+	// Pneumatic conveying through an insulating liner (from memory, reference section 12).
+	in.Process = ProcessPneumatic
+	if pb := Evaluate(in, env, lim).Discharges[PropagatingBrush]; !pb.Possible || pb.Code != ReasonPropPneumatic {
+		t.Errorf("pneumatic: %s", pb.Reason())
+	}
+	// ... unless the liner is 8 mm or thicker (from memory, reference section 3).
+	in.Thickness = 10e-3
+	if pb := Evaluate(in, env, lim).Discharges[PropagatingBrush]; pb.Possible {
+		t.Errorf("pneumatic, 10 mm: %s", pb.Reason())
+	}
+}
+
+// Issue 11, item 5: an insulating roller is a cylinder: sigma = eps0 E (R + z) / R.
+func TestRollerCylinder(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Roller)
+	in.Material.Name, in.Material.Permittivity, in.Material.SurfaceResistivity = "PTFE", 2.1, 1e16
+	in.Diameter, in.Length, in.Field, in.FieldDistance = 0.1, 1, 100e3, 0.1
+	ev := Evaluate(in, env, lim)
+	// Source: reference section 12 (Gauss's law): R = 0.05 m, z = 0.1 m ->
+	// sigma = eps0 x 1e5 x 0.15 / 0.05 = 2.656 uC/m^2 (a flat strip of the face would
+	// give pi eps0 E / atan(5) = 2.29 eps0 E, 24 % lower).
+	near(t, "roller density", ev.ChargeDensity, Eps0*1e5*3, 1e-12)
+	near(t, "roller surface field", ev.SurfaceField, 3e5, 1e-12)
+	// On an earthed core the stricter of the backed split and the cylinder.
+	in.EarthedBacking, in.Thickness = true, 5e-3
+	ev = Evaluate(in, env, lim)
+	// derived: backed eps0 E (1 + 2.1 x 0.1 / 5e-3) = 43 eps0 E, above the cylinder's 3 eps0 E.
+	near(t, "backed roller density", ev.ChargeDensity, Eps0*1e5*(1+2.1*0.1/5e-3), 1e-12)
+	in.Thickness = 0.5 // a check of the max rule only: backed 1.42 eps0 E, so the cylinder's 3 eps0 E wins (derived)
+	ev = Evaluate(in, env, lim)
+	near(t, "thick sleeve density", ev.ChargeDensity, Eps0*1e5*3, 1e-12)
+	if ev.Assumed&AssumedStricterGeometry == 0 {
+		t.Error("stricter geometry not recorded")
+	}
+}
+
+// Issue 11, item 6: the over-earth split only inside its validity; entering a
+// distance to earth never makes the density lower than leaving it blank.
+func TestOverEarthNeverMilderThanBlank(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	in.Length, in.Width, in.Field, in.FieldDistance = 1, 1, 100e3, 0.1
+	free := Evaluate(in, env, lim).ChargeDensity
+	// derived (python3): free 1 m x 1 m square at z = 0.1 m: sigma = pi eps0 E / atan(0.25/(0.1 sqrt(0.51))) = 2.152 uC/m^2.
+	near(t, "free square", free, 2.152045341305813e-06, 1e-9)
+	// derived: floor 1 m away: the old split eps0 E (1 + 0.1/1) = 0.97 uC/m^2 would be
+	// 2.2 x milder; h + z = 1.1 m > 0.2 x 1 m, so the free sheet is used.
+	in.DistanceToEarth = 1
+	ev := Evaluate(in, env, lim)
+	near(t, "floor far", ev.ChargeDensity, free, 1e-12)
+	if ev.Assumed&AssumedOverEarthFree == 0 {
+		t.Error("outside-validity assumption not recorded")
+	}
+	// derived: floor 5 cm away, h + z = 0.15 m <= 0.2 m: split eps0 E (1 + 2) = 2.656 uC/m^2 > free.
+	in.DistanceToEarth = 0.05
+	near(t, "floor near", Evaluate(in, env, lim).ChargeDensity, Eps0*1e5*3, 1e-12)
+	for _, h := range []float64{1e-3, 0.01, 0.05, 0.08, 0.1, 0.2, 0.5, 1, 3, 10, 100} {
+		for _, z := range []float64{0.01, 0.05, 0.1, 0.3, 1} {
+			for _, side := range []float64{0.1, 0.5, 1, 5, math.NaN()} {
+				in := blank(Sheet)
+				in.Length, in.Width, in.Field, in.FieldDistance = side, side, 50e3, z
+				blankSigma := Evaluate(in, env, lim).ChargeDensity
+				in.DistanceToEarth = h
+				if got := Evaluate(in, env, lim).ChargeDensity; got < blankSigma*(1-1e-12) {
+					t.Errorf("h %g, z %g, side %g: %g below the blank-distance %g", h, z, side, got, blankSigma)
+				}
+			}
+		}
+	}
+}
+
+// Issue 11, item 7: process material or fixed equipment.
+func TestIsProcessMaterial(t *testing.T) {
+	cases := []struct {
+		name string
+		kind Kind
+		proc Process
+		spd  float64
+		want bool
+	}{
+		{"belt", Belt, ProcessUnknown, math.NaN(), true},
+		{"moving sheet", Sheet, ProcessUnknown, 2, true},
+		{"still sheet (stricter)", Sheet, ProcessUnknown, math.NaN(), false},
+		{"sheet at 0 m/s", Sheet, ProcessUnknown, 0, false},
+		{"explicit web", Sheet, ProcessWeb, math.NaN(), true},
+		{"explicit equipment belt", Belt, ProcessEquipment, 3, false},
+		{"pneumatic pipe is equipment", Sheet, ProcessPneumatic, 3, false},
+		{"roller", Roller, ProcessUnknown, 2, false},
+	}
+	for _, tc := range cases {
+		in := blank(tc.kind)
+		in.Process, in.Speed = tc.proc, tc.spd
+		if got := IsProcessMaterial(in); got != tc.want {
+			t.Errorf("%s: got %v, want %v", tc.name, got, tc.want)
+		}
+	}
+	for p := ProcessUnknown; p <= ProcessEquipment; p++ {
+		if q, err := ParseProcess(p.String()); err != nil || q != p {
+			t.Errorf("ParseProcess(%q) = %v, %v", p.String(), q, err)
+		}
+	}
+	if _, err := ParseProcess("conveyor"); err == nil {
+		t.Error("ParseProcess accepted a word outside the list")
+	}
+}
+
+// Surface-potential readings: the cylinder over a plane for a roller, the disc of
+// equal area for a sheet far from earth, each when stricter than eps0 V / h.
+func TestSurfacePotentialGeometries(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	r := blank(Roller)
+	r.Material.Name, r.Material.SurfaceResistivity = "PTFE", 1e16
+	r.Diameter, r.Length, r.DistanceToEarth, r.SurfacePotential = 0.1, 1, 0.5, 10e3
+	// textbook (cylinder over a plane): axis at 0.55 m, R = 0.05 m:
+	// sigma = eps0 V / (R arcosh(11)) = eps0 x 1e4 / (0.05 x 3.0889) = 64 749 eps0
+	// (python3), above the plate's eps0 V / h = 20 000 eps0.
+	near(t, "roller cylinder", Evaluate(r, env, lim).ChargeDensity, Eps0*1e4/(0.05*math.Acosh(11)), 1e-12)
+	s := blank(Sheet)
+	s.Length, s.Width, s.DistanceToEarth, s.SurfacePotential = 1, 1, 1, 10e3
+	// h = 1 m is not small against a 1 m sheet (h > 0.2 m): the disc of equal area,
+	// r = sqrt(1/pi) = 0.5642 m, C/A = 8 eps0 r / A: sigma = 8 eps0 V / (pi r) =
+	// 4.513e4 eps0 (derived), above eps0 V / h = 1e4 eps0.
+	ev := Evaluate(s, env, lim)
+	near(t, "sheet far from earth", ev.ChargeDensity, 8*Eps0*1e4/(math.Pi*math.Sqrt(1/math.Pi)), 1e-12)
+	if ev.Assumed&AssumedOverEarthFree == 0 {
+		t.Error("outside-validity assumption not recorded")
+	}
+	// Close to earth (h = 5 mm): the plate, eps0 V / h = 2e6 eps0 (textbook).
+	s.DistanceToEarth = 5e-3
+	near(t, "sheet close over earth", Evaluate(s, env, lim).ChargeDensity, Eps0*1e4/5e-3, 1e-12)
+	// A measured potential on a backed layer above its breakdown is a contradiction:
+	// 3 kV on 50 um of 20 kV/mm (computed 1 kV, derived).
+	b := blank(Sheet)
+	b.EarthedBacking, b.Thickness, b.Material.Permittivity, b.Material.BreakdownStrength, b.SurfacePotential = true, 50e-6, 3, 20e6, 3e3
+	if ev := Evaluate(b, env, lim); ev.Flags&FlagBreakdownContradiction == 0 || ev.LayerVoltage != 3e3 {
+		t.Errorf("backed 3 kV: flags %b, layer voltage %g", ev.Flags, ev.LayerVoltage)
+	}
+}
+
+func TestOverEarthValid(t *testing.T) {
+	cases := []struct {
+		h, z, l, w float64
+		want       bool
+	}{
+		{0.05, 0.1, 1, 1, true},              // 0.15 <= 0.2
+		{0.1, 0.1, 1, 1, true},               // 0.2 <= 0.2 (the edge counts)
+		{0.15, 0.1, 1, 1, false},             // 0.25 > 0.2
+		{0.05, 0.1, 10, 0.5, false},          // the smaller side decides: 0.15 > 0.1
+		{1, 1, math.NaN(), math.NaN(), true}, // unknown sides: taken as infinite
+		{0.05, 0.05, math.NaN(), 0.4, false}, // 0.1 > 0.08
+		{0.05, 0.05, 0, 1, true},             // 0 is unknown, not zero
+	}
+	for _, c := range cases {
+		if got := OverEarthValid(c.h, c.z, c.l, c.w); got != c.want {
+			t.Errorf("OverEarthValid(%g, %g, %g, %g) = %v, want %v", c.h, c.z, c.l, c.w, got, c.want)
+		}
+	}
+}
+
+// The humidity model may clear a propagating brush that only the process
+// suggests (nothing measured), and only when the layer is shown to decay faster
+// than it travels; an unknown decay clears nothing (principle 2).
+func TestHumidityClearsOnlyUnmeasuredProcessCharge(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	// A dissipative liner (1e7 ohm/sq, slope 0) on an earthed pipe wall, 2 mm thick,
+	// pneumatic conveying; read at 1 kV/m at 0.1 m: eps0 1e3 (1 + 3 x 0.1 / 2e-3) =
+	// 1.34 uC/m^2, below the screen (derived).
+	in.Material.SurfaceResistivity, in.Material.Permittivity = 1e7, 3
+	in.EarthedBacking, in.Thickness, in.Process = true, 2e-3, ProcessPneumatic
+	in.Length, in.Width, in.Speed = 1, 0.3, 0.5
+	in.Field, in.FieldDistance = 1e3, 0.1
+	ev := Evaluate(in, env, lim)
+	// derived: tau = 1e7 x (eps0 x 3 / 2e-3) x 0.09 / pi^2 = 1.2e-6 s, far below the 2 s run.
+	if ev.Discharges[PropagatingBrush].Possible || ev.Discharges[PropagatingBrush].Code != ReasonBrushLeaks {
+		t.Errorf("dissipative earthed liner: %s", ev.Discharges[PropagatingBrush].Reason())
+	}
+	in.Width = math.NaN() // decay unknown: not cleared
+	if ev = Evaluate(in, env, lim); !ev.Discharges[PropagatingBrush].Possible {
+		t.Errorf("unknown decay cleared the process-driven brush: %s", ev.Discharges[PropagatingBrush].Reason())
 	}
 }

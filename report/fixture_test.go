@@ -24,6 +24,7 @@ func blankEval(k model.Kind) model.Evaluation {
 		ChargingCurrent: nan, StoredEnergy: nan, TransferredCharge: nan,
 		InsulatingArea: nan, SurfaceResistivity: nan, DecayTime: nan, TimeTo100V: nan,
 		RelaxationTime: nan, StreamingCurrent: nan, VelocityDiameter: nan,
+		AirField: nan, LayerField: nan, LayerVoltage: nan, LayerBreakdown: nan, ChargingDensity: nan,
 	}
 	for i := range e.Discharges {
 		e.Discharges[i] = model.Discharge{Type: model.DischargeType(i), Energy: nan, Charge: nan}

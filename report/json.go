@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
@@ -159,6 +160,14 @@ type jsonObject struct {
 	RelaxationTimeS        *float64         `json:"relaxation_time_s"`
 	StreamingCurrentA      *float64         `json:"streaming_current_A"`
 	VelocityDiameterM2PerS *float64         `json:"velocity_diameter_m2_per_s"`
+	AirFieldVPerM          *float64         `json:"air_field_V_per_m"`
+	LayerFieldVPerM        *float64         `json:"layer_field_V_per_m"`
+	LayerVoltageV          *float64         `json:"layer_voltage_V"`
+	LayerBreakdownV        *float64         `json:"layer_breakdown_V"`
+	LayerBreakdownSource   *string          `json:"layer_breakdown_source"`
+	ChargingDensityAPerM2  *float64         `json:"charging_current_density_A_per_m2"`
+	ProcessMaterial        *bool            `json:"process_material"`
+	IsolatedConductor      bool             `json:"isolated_conductor"`
 	Discharges             []jsonDischarge  `json:"discharges"`
 	Findings               []jsonFinding    `json:"findings"`
 	Defaults               []jsonDefault    `json:"defaults"`
@@ -298,9 +307,25 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		RelaxationTimeS:        finite(e.RelaxationTime),
 		StreamingCurrentA:      finite(e.StreamingCurrent),
 		VelocityDiameterM2PerS: finite(e.VelocityDiameter),
+		AirFieldVPerM:          finite(e.AirField),
+		LayerFieldVPerM:        finite(e.LayerField),
+		LayerVoltageV:          finite(e.LayerVoltage),
+		LayerBreakdownV:        finite(e.LayerBreakdown),
+		ChargingDensityAPerM2:  finite(e.ChargingDensity),
+		IsolatedConductor:      e.IsolatedConductor,
 		Discharges:             []jsonDischarge{},
 		Findings:               []jsonFinding{},
 		Defaults:               []jsonDefault{},
+	}
+	if jo.LayerBreakdownV != nil {
+		jo.LayerBreakdownSource = strPtr(e.BreakdownSource.String())
+	}
+	switch e.Kind {
+	case model.Sheet, model.Belt, model.Roller:
+		if !math.IsNaN(e.InsulatingArea) || e.Kind != model.Roller {
+			pm := e.ProcessMaterial
+			jo.ProcessMaterial = &pm
+		}
 	}
 	if e.NotAssessed == 0 {
 		jo.EnergyJ = finite(e.EffectiveEnergy)

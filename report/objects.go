@@ -279,6 +279,41 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{"Model assumptions", 40, func(o objRow) cell { return wrapText(enumText(o.Eval.Assumed)) }},
 		{"Model notes", 36, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
 		{"Missing inputs", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.NotAssessed)) }},
+
+		// Insulating surfaces (appended): the backed layer's fields apart, the
+		// breakdown it is compared with, and how the row was read.
+		{UnitKV.Header("Layer breakdown given"), 10, func(o objRow) cell { return inQ(UnitKV, o.Object.LayerBreakdown) }},
+		{"Process given", 12, func(o objRow) cell { return optText(o.Object.Process) }},
+		{UnitKVPerM.Header("Air-side field of the backed layer"), 11, ev(func(e *model.Evaluation) float64 { return e.AirField }, UnitKVPerM)},
+		{UnitKVPerM.Header("Field inside the backed layer"), 11, ev(func(e *model.Evaluation) float64 { return e.LayerField }, UnitKVPerM)},
+		{UnitKV.Header("Voltage across the layer"), 10, ev(func(e *model.Evaluation) float64 { return e.LayerVoltage }, UnitKV)},
+		{UnitKV.Header("Layer breakdown used"), 10, ev(func(e *model.Evaluation) float64 { return e.LayerBreakdown }, UnitKV)},
+		{"Layer breakdown basis", 16, func(o objRow) cell {
+			if o.Eval.Kind != model.Sheet && o.Eval.Kind != model.Belt && o.Eval.Kind != model.Roller {
+				return cell{}
+			}
+			if math.IsNaN(o.Eval.LayerBreakdown) && math.IsNaN(o.Eval.LayerVoltage) {
+				return cell{}
+			}
+			return wrapText(o.Eval.BreakdownSource.String())
+		}},
+		{"Surface judged as", 14, func(o objRow) cell {
+			switch {
+			case math.IsNaN(o.Eval.InsulatingArea) && o.Eval.Kind != model.Sheet && o.Eval.Kind != model.Belt:
+				return cell{}
+			case o.Eval.Kind == model.Bag || o.Eval.Kind == model.Liquid || o.Eval.Kind == model.Powder:
+				return cell{}
+			case o.Eval.ProcessMaterial:
+				return text("process material (charge screens, no area limit)")
+			}
+			return text("fixed equipment (area limit)")
+		}},
+		{"Unearthed conducting surface", 10, func(o objRow) cell {
+			if !o.Eval.IsolatedConductor {
+				return cell{}
+			}
+			return text("yes: assessed for a spark")
+		}},
 	}
 	if withProbability {
 		p := func(f func(*assess.Probability) float64, u Unit) func(objRow) cell {

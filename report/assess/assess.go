@@ -252,14 +252,13 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 		Conductivity:     o.Conductivity.OrNaN(),
 		Permittivity:     o.Permittivity.OrNaN(),
 		ProductMIE:       math.NaN(), // no survey column: the model takes the station's dust MIE
+		LayerBreakdown:   o.LayerBreakdown.OrNaN(),
 	}
+	in.Process, _ = model.ParseProcess(o.Process)
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)
-	// The survey has no column for double-layer charge: the Notes say it.
-	if n := strings.ToLower(o.Notes); strings.Contains(n, "double-layer") || strings.Contains(n, "double layer") {
-		in.DoubleLayer = true
-		defs = append(defs, Default{Field: "Double-layer charge", Value: "yes", Reason: "read from the row's Notes"})
-	}
+	// Double-layer charge is judged from the process (Process column, charging
+	// current density), never from words in the Notes.
 	var mat *inventory.Material
 	if o.Material != "" {
 		if m, ok := x.survey.Material(o.Material); ok {
@@ -345,6 +344,9 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 	}
 	if in.Kind == model.Person && math.IsNaN(in.SurfacePotential) && !math.IsNaN(ev.Potential) {
 		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
+	}
+	if ev.IsolatedConductor && ev.PotentialSource == model.PotentialFromCharge {
+		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"})
 	}
 	defs = append(defs, modelAssumptions(ev)...)
 	return defs

@@ -40,6 +40,10 @@ const (
 	CheckBagEarthing
 	// CheckBagQualification: conditions outside the qualification of types C and D.
 	CheckBagQualification
+	// CheckLayerBreakdown: a backed layer holds a voltage above its breakdown voltage (measured or computed): a contradiction to check.
+	CheckLayerBreakdown
+	// CheckReadingVsHumidity: a reading shows charge above the screen on a surface the humidity model finds dissipative and earthed.
+	CheckReadingVsHumidity
 	// NumChecks is the number of checks.
 	NumChecks
 )
@@ -75,6 +79,10 @@ func (c Check) Name() string {
 		return "bag-earthing"
 	case CheckBagQualification:
 		return "bag-qualification"
+	case CheckLayerBreakdown:
+		return "layer-breakdown-contradiction"
+	case CheckReadingVsHumidity:
+		return "reading-vs-humidity"
 	}
 	return "unknown"
 }
@@ -152,6 +160,12 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 
 	if ev.NotAssessed != 0 {
 		c.Cause = CauseMissingInputs
+		// A discharge the model did judge is never hidden by an input it lacked
+		// for another one (e.g. the spark of an unearthed conducting surface):
+		// its energy is still compared with the MIE.
+		if e, d := EffectiveEnergy(env, ev); e > 0 {
+			c.Energy, c.Discharge = e, d
+		}
 	} else {
 		c.Energy, c.Discharge = EffectiveEnergy(env, ev)
 		if math.IsNaN(c.Energy) {
@@ -160,7 +174,7 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	}
 
 	if hasAtm {
-		if c.Cause == CauseNone {
+		if c.Cause == CauseNone || (c.Cause == CauseMissingInputs && c.Energy > 0) {
 			mie := env.MIE
 			if !(mie > 0) || math.IsInf(mie, 0) {
 				c.Cause = CauseNoMIE
@@ -179,7 +193,10 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		}
 		// Type C and D bags are qualified by their own test, not by an area limit.
 		qualifiedBag := in.Kind == model.Bag && (in.BagType == model.BagC || in.BagType == model.BagD)
-		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !ev.Dissipative && !qualifiedBag && a > limA {
+		// The area limits are equipment-construction limits (IEC 60079-0): process
+		// material (moving webs, belts) is judged by its charge (IEC TS 60079-32-1),
+		// and only a dissipative surface that is also earthed is exempt (not when its reading contradicts the humidity model).
+		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
 		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) {
@@ -201,6 +218,14 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 			if !(in.Conductivity > lim.LowConductivity) {
 				c.Failed = c.Failed.Add(CheckLowConductivity)
 			}
+		}
+		// Contradictions between a reading and a model or a breakdown value
+		// (principle 1: the reading's hazard is kept, the contradiction reported).
+		if ev.Flags&model.FlagBreakdownContradiction != 0 {
+			c.Failed = c.Failed.Add(CheckLayerBreakdown)
+		}
+		if ev.Flags&model.FlagHumidityContradiction != 0 {
+			c.Failed = c.Failed.Add(CheckReadingVsHumidity)
 		}
 		if in.Kind == model.Bag {
 			// model.Evaluate applies the IEC 61340-4-4 usage table (model.BagTypeAllowed); a
@@ -323,7 +348,10 @@ func IsConductorRow(in *model.Input, ev *model.Evaluation) bool {
 	case model.Part, model.Container, model.Liquid:
 		return true
 	case model.Roller:
-		return model.RollerIsConductor(*in)
+		return model.RollerIsConductor(*in) || ev.IsolatedConductor
+	case model.Sheet, model.Belt:
+		// A conducting surface that is not earthed (model.Evaluation.IsolatedConductor).
+		return ev.IsolatedConductor
 	case model.Powder:
 		return !math.IsNaN(in.Resistance) || !math.IsNaN(in.Capacitance)
 	}
@@ -353,7 +381,7 @@ func PersonEarthingApplies(in *model.Input, env *model.Environment, lim *model.L
 func ShockEnergy(in *model.Input, ev *model.Evaluation) float64 {
 	e := math.NaN()
 	switch in.Kind {
-	case model.Person, model.Part, model.Container, model.Roller, model.Liquid, model.Powder, model.Bag:
+	case model.Person, model.Part, model.Container, model.Roller, model.Liquid, model.Powder, model.Bag, model.Sheet, model.Belt:
 		if !math.IsNaN(ev.StoredEnergy) {
 			e = ev.StoredEnergy
 		}

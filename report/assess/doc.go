@@ -65,7 +65,20 @@
 //     low-conductivity. Each is a default.
 //   - Raising humidity is recommended only for materials whose surface
 //     resistivity falls at least HumidityResponds decades per 10 %RH.
-//   - Double-layer charge is read from the row's Notes ("double-layer").
+//   - Double-layer charge is never read from words in the Notes: the model judges
+//     it from the Process column (pneumatic conveying) and the charging current
+//     density (above about 1 mA/m^2, BG RCI FAQ 1.12).
+//   - The insulating-area limit (IEC 60079-0, an equipment-construction limit)
+//     applies to fixed equipment surfaces only; process material (a belt, a sheet
+//     with a Speed, or Process "moving web" or "belt") is judged by its charge and
+//     discharges (IEC TS 60079-32-1). The area is shown either way. A surface is
+//     exempt only when dissipative at the RH and earthed.
+//   - A conducting surface (conductive, dissipative, or of dissipative class) that
+//     is not earthed is a conductor row: conductor-earthing applies and its spark
+//     counts (model.Evaluation.IsolatedConductor).
+//   - A reading that contradicts the humidity model or the layer's breakdown
+//     voltage keeps its hazard and adds a marginal finding
+//     (reading-vs-humidity, layer-breakdown-contradiction).
 //
 // # Uncertainty (Options.Samples > 0)
 //

@@ -123,6 +123,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		if in.Kind == model.Liquid {
 			what = "resistance to earth of the receiving container and line"
 		}
+		if ev.IsolatedConductor && (in.Kind == model.Sheet || in.Kind == model.Belt || in.Kind == model.Roller) {
+			what = "the surface conducts (conductive, or dissipative at this humidity) so it is a conductor; its resistance to earth"
+			mit = templates.Mitigation("conductor-earthing.surface")
+		}
 		if math.IsNaN(in.Resistance) {
 			msg = fmt.Sprintf("%s not measured, so taken as not earthed (limit %s)", what, ohm(lim.ConductorEarthing))
 		} else {
@@ -209,6 +213,14 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		} else {
 			msg = fmt.Sprintf("type C bag: earthing tab to plant earth %s exceeds %s", ohm(in.Resistance), ohm(lim.BagTabToEarth))
 		}
+	case CheckLayerBreakdown:
+		src := "computed from the material's bulk strength x thickness"
+		if ev.BreakdownSource == model.BreakdownMeasured {
+			src = "measured on the layer"
+		}
+		msg = fmt.Sprintf("the layer holds %s by its reading, above its breakdown voltage of %s (%s): the reading, its unit, the thickness or the breakdown value is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown), src)
+	case CheckReadingVsHumidity:
+		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(ev.ChargeDensity), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
 	case CheckBagQualification:
 		i := BagChargingCurrent(in, ev)
 		switch {

@@ -94,6 +94,7 @@ func objectFields(o *inventory.Object) []Field {
 		q("Resistance to earth", o.Resistance, "Ω"), q("Capacitance", o.Capacitance, "F"),
 		q("Conductivity", o.Conductivity, "S/m"), q("Relative permittivity", o.Permittivity, ""),
 		{"Bag type", o.BagType}, {"Filling", o.Filling},
+		q("Layer breakdown", o.LayerBreakdown, "V"), {"Process", o.Process},
 	}
 }
 

@@ -137,7 +137,9 @@ func TestHumidityPaperAndPTFE(t *testing.T) {
 	// Paper: 1e10 ohm/sq at 50 %, 0.8 decade per 10 %RH (reference section 9, weak
 	// secondary source; built-in list): at 30 % 1e10 x 10^1.6 = 3.98e11, at 65 %
 	// 1e10 x 10^-1.2 = 6.31e8 ohm/sq (derived), below the 1e9 ohm dissipative limit:
-	// an earthed dissipative web leaks its charge, no brush discharge.
+	// the humidity model says an earthed dissipative web leaks its charge, but the
+	// reading of 500 kV/m stays as measured (issue 11, principle 1: a measurement
+	// beats a default), so the brush stays and the contradiction is a finding.
 	// PTFE: slope 0 (reference section 9 [M], hydrophobic): nothing changes.
 	web := func(id, mat string) inventory.Object {
 		return inventory.Object{ID: id, Kind: "sheet", Material: mat, Length: known(1), Width: known(1), Thickness: known(50e-6),
@@ -153,10 +155,10 @@ func TestHumidityPaperAndPTFE(t *testing.T) {
 		t.Fatalf("paper at 30 %%: %s, want incendive (brush)", p.Before.Verdict)
 	}
 	near(t, "paper ratio at 30 %", *p.Before.Ratio, 4e-3/0.24e-3)
-	if p.After.Verdict != assess.NonIncendive || p.Outcome != Cleared {
-		t.Errorf("paper at 65 %%: %s (%s), want non-incendive, cleared: %s", p.After.Verdict, p.Outcome, p.After.Reason)
+	if p.After.Verdict != assess.Incendive || p.Outcome != Stayed || !hasFinding(p.After, "reading-vs-humidity") {
+		t.Errorf("paper at 65 %%: %s (%s), want incendive, stayed, with the contradiction: %s", p.After.Verdict, p.Outcome, p.After.Reason)
 	}
-	if !strings.Contains(p.Why, "paper surface resistivity 3.98e11 → 6.31e8 Ω/sq from 30 to 65 % RH (0.8 decade(s) per 10 %RH)") {
+	if !strings.Contains(p.Why, "paper surface resistivity 3.98e11 → 6.31e8 Ω/sq from 30 to 65 % RH (0.8 decade(s) per 10 %RH); the reading above the screen stays as measured") {
 		t.Errorf("paper why: %q", p.Why)
 	}
 
@@ -173,9 +175,21 @@ func TestHumidityPaperAndPTFE(t *testing.T) {
 	}
 }
 
-// More humidity never adds hazards on the demo survey.
+// More humidity never adds hazards on the demo survey, except at a station
+// where it turns an unearthed surface dissipative: a dissipative surface that is
+// not earthed is an isolated conductor that can spark (issue 11; reference
+// section 12, IEC TS 60079-32-1 principle), so its hazard appears as RH rises.
 func TestSweepMonotonicOnDemo(t *testing.T) {
 	s := demo(t)
+	sparks := map[string]bool{}
+	for _, o := range assess.Assess(withRH(s, 90), assess.Options{}).Objects {
+		if o.Eval.IsolatedConductor {
+			sparks[o.Station.ID] = true
+		}
+	}
+	if !sparks["ST-LAM"] || !sparks["ST-REW"] {
+		t.Errorf("stations with an unearthed dissipative web at 90 %%: %v, want ST-LAM and ST-REW", sparks)
+	}
 	rh, err := ParseRange("10:90:5")
 	if err != nil {
 		t.Fatal(err)
@@ -186,13 +200,10 @@ func TestSweepMonotonicOnDemo(t *testing.T) {
 	}
 	for i := 1; i < len(sw.Steps); i++ {
 		a, b := sw.Steps[i-1], sw.Steps[i]
-		if b.Incendive+b.Marginal > a.Incendive+a.Marginal {
-			t.Errorf("hazards rise from %g %% (%d) to %g %% (%d)", a.RH, a.Incendive+a.Marginal, b.RH, b.Incendive+b.Marginal)
-		}
-		if b.Incendive > a.Incendive {
-			t.Errorf("incendive objects rise from %g %% (%d) to %g %% (%d)", a.RH, a.Incendive, b.RH, b.Incendive)
-		}
 		for j := range b.Stations {
+			if sparks[b.Stations[j].ID] {
+				continue
+			}
 			ra, rb := a.Stations[j].WorstRatio, b.Stations[j].WorstRatio
 			if ra != nil && rb != nil && *rb > *ra*(1+1e-12) {
 				t.Errorf("station %s: worst ratio rises from %g at %g %% to %g at %g %%", b.Stations[j].ID, *ra, a.RH, *rb, b.RH)
@@ -202,12 +213,19 @@ func TestSweepMonotonicOnDemo(t *testing.T) {
 			}
 		}
 	}
-	// The paper interleaf station (paper, built-in 1e10 ohm/sq at 50 %, 0.8 decade per
+	// The paper interleaf web (paper, built-in 1e10 ohm/sq at 50 %, 0.8 decade per
 	// 10 %RH) reaches the 1e9 ohm dissipative limit at 50 + 10 x 1/0.8 = 62.5 % (derived):
-	// the first step above is 65 %.
-	for _, c := range sw.Clearances {
-		if c.ID == "ST-LAM" && c.ClearsAt != 65 {
-			t.Errorf("ST-LAM clears at %g %%, want 65 (%s)", c.ClearsAt, c.Text)
+	// from the 65 % step on it is a dissipative web with no resistance to earth, so
+	// it sparks (0.45 mJ against toluene's 0.24 mJ): ST-LAM is non-incendive up to
+	// 60 % and incendive from 65 %.
+	for _, st := range sw.Steps {
+		for _, x := range st.Stations {
+			if x.ID != "ST-LAM" {
+				continue
+			}
+			if want := st.RH >= 65; (x.Verdict == assess.Incendive) != want {
+				t.Errorf("ST-LAM at %g %%: %s", st.RH, x.Verdict)
+			}
 		}
 	}
 }
@@ -342,7 +360,7 @@ func TestCompareDemoVersions(t *testing.T) {
 		case "BAG-CU": // the unearthed type C bag is earthed (invented edit)
 			r[resCol] = 1e6
 		case "UNW-WEB": // a new field reading at the unwind (invented edit)
-			r[fieldCol] = 120.0
+			r[fieldCol] = 400.0 // above the IIA brush screen once the unwind is classified (a web 1.8 m x 1.32 m read at 0.05 m: about 2 eps0 E = 7 uC/m^2 > 5 uC/m^2, derived)
 		case "DRM-LNC":
 			kept = append(kept, r)
 			n := append([]any(nil), r...)
@@ -607,4 +625,25 @@ func TestOutcomeOf(t *testing.T) {
 			t.Errorf("OutcomeOf(%s, %s) = %q, want %q", c.b, c.a, got, c.want)
 		}
 	}
+}
+
+// withRH returns a copy of the survey with the site's and every station's RH set to v.
+func withRH(s *inventory.Survey, v float64) *inventory.Survey {
+	c := *s
+	c.Site.RelativeHumidity = inventory.Known(v)
+	c.Stations = append([]inventory.Station(nil), s.Stations...)
+	for i := range c.Stations {
+		c.Stations[i].RelativeHumidity = inventory.Known(v)
+	}
+	return &c
+}
+
+// hasFinding reports whether the object result has a finding of the check.
+func hasFinding(r *assess.ObjectResult, check string) bool {
+	for _, f := range r.Findings {
+		if f.Check == check {
+			return true
+		}
+	}
+	return false
 }

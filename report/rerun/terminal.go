@@ -10,6 +10,11 @@ import (
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
+// MeasuredReadingsNote says how a rerun treats the survey's readings: a change
+// of humidity (or any change that is not of a reading) moves the model's
+// defaults, never a reading on a row (principle 1: a measurement beats a default).
+const MeasuredReadingsNote = "Measured readings stay as measured: a humidity or earthing change moves what the model assumed, not a field, potential or current read on a row, so a surface whose reading is above its screen keeps that hazard until the reading itself is changed (take a new reading at the new conditions)."
+
 func caution(w io.Writer) {
 	fmt.Fprintf(w, "\n%s\n", templates.CautionLine)
 }
@@ -54,6 +59,7 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 		fmt.Fprintf(w, ", %d not assessed after the changes", n)
 	}
 	fmt.Fprintln(w)
+	fmt.Fprintln(w, MeasuredReadingsNote)
 	caution(w)
 	return nil
 }
@@ -84,6 +90,7 @@ func WriteSweepSummary(w io.Writer, s *Sweep) error {
 	for _, c := range s.Clearances {
 		fmt.Fprintf(w, "  %-8s %s\n", c.ID, c.Text)
 	}
+	fmt.Fprintln(w, MeasuredReadingsNote)
 	caution(w)
 	return nil
 }

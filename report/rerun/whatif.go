@@ -189,8 +189,15 @@ func humidityPhrase(b, a *assess.ObjectResult) string {
 		}
 		return fmt.Sprintf("%s surface does not respond to humidity (slope 0), RH %s → %s %%", m.Name, from, rh)
 	}
-	return fmt.Sprintf("%s surface resistivity %s → %s Ω/sq from %s to %s %% RH (%s decade(s) per 10 %%RH)",
+	s := fmt.Sprintf("%s surface resistivity %s → %s Ω/sq from %s to %s %% RH (%s decade(s) per 10 %%RH)",
 		m.Name, fmtSig(b.Eval.SurfaceResistivity), fmtSig(a.Eval.SurfaceResistivity), from, rh, fmtSig(m.HumiditySlope))
+	switch {
+	case a.Eval.Flags&model.FlagHumidityContradiction != 0:
+		s += "; the reading above the screen stays as measured, so its hazard stays (take a new reading at this RH)"
+	case a.Eval.IsolatedConductor && !b.Eval.IsolatedConductor:
+		s += "; the surface is now dissipative but not earthed, so it is assessed as an isolated conductor that can spark"
+	}
+	return s
 }
 
 // hazardName names what stays the same: "brush hazard", "spark hazard", "result".

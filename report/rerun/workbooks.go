@@ -31,8 +31,8 @@ func rerunNotes() [][2]string {
 	return [][2]string{
 		{"Changes", "Each change is validated like survey input (IDs must be accepted rows, values carry a unit of the right dimension) and applied, in order (Changes sheet first, then the command-line flags), to a copy of the accepted rows. The survey file is never modified."},
 		{"Before and after", "The survey is assessed as it is (before) and with the changes (after), with the same limits and the same model; a verdict is a hazard when it is incendive or marginal. Cleared: a hazard before, none after. Stayed: a hazard before and after. Appeared: none before, a hazard after."},
-		{"Humidity", "A station's RH is its own, else the site's. When it changes, the model recomputes each material's surface resistivity from its 50 % value and its humidity slope (log10 of resistivity falls linearly by the slope per 10 %RH, clipped); a material with slope 0 (PTFE, PE, PP) does not respond. A site RH change reaches only stations that give no RH of their own."},
-		{"Earthing and footwear", "An earthing change sets the resistance to earth of one object, or of every row at a station the assessment treats as a conductor that must be earthed (parts, containers, liquid lines, conductive rollers, type C bags); a footwear change sets a person's resistance to earth through footwear and floor."},
+		{"Humidity", "A station's RH is its own, else the site's. When it changes, the model recomputes each material's surface resistivity from its 50 % value and its humidity slope (log10 of resistivity falls linearly by the slope per 10 %RH, clipped); a material with slope 0 (PTFE, PE, PP) does not respond. A site RH change reaches only stations that give no RH of their own. " + MeasuredReadingsNote},
+		{"Earthing and footwear", "An earthing change sets the resistance to earth of one object, or of every row at a station the assessment treats as a conductor that must be earthed (parts, containers, liquid lines, conductive rollers, type C bags, and conducting or dissipative surfaces that are not earthed); a footwear change sets a person's resistance to earth through footwear and floor."},
 	}
 }
 
