@@ -61,4 +61,11 @@ type Limits struct {
 	ConeMinVolume        float64 // m^3, container volume below which none is expected
 	BagDustLow           float64 // J, product MIE band edge (at or below: most sensitive band)
 	BagDustHigh          float64 // J, product MIE band edge (above: least sensitive band)
+
+	// Added with the rules of issue 11 (fields only appended).
+
+	ConductorMaxPotential   float64 // V, cap on an unmeasured conductor potential (corona at edges and bolts)
+	SmallPartCapacitance    float64 // F, an isolated metal part below it need not be earthed (IIA, IIB, Group III)
+	SmallPartCapacitanceIIC float64 // F, the same for IIC and EPL Ga (zone 0)
+	DustBrushMIE            float64 // J, a dust below this MIE is screened for brush discharges like a hybrid
 }
