@@ -109,6 +109,11 @@ type Input struct {
 	// ProductMIE is the MIE (J) of the powder a bag holds; NaN: the station's
 	// dust MIE when its atmosphere is dust or hybrid, else the most sensitive band.
 	ProductMIE float64
+
+	// CapacitanceEstimated says that Capacitance is not a measurement but a value
+	// drawn about the model's estimate (uncertainty sampling): it may not clear a
+	// requirement that only a measured capacitance clears (small-part exemption).
+	CapacitanceEstimated bool
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.
