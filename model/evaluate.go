@@ -446,6 +446,11 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 		setReason(&ev.Discharges[Spark], ReasonSparkEarthedBound, bound, in.Resistance)
 		ev.DecayTime = DecayTime(r, c)
 		return
+	case in.Kind == Powder:
+		// The receiving container of a powder row with no stream on the row: its
+		// spark is not evaluated (its earthing is judged), the powder still is.
+		markNotEvaluated(ev, Spark, Corona)
+		return
 	default:
 		ev.NotAssessed |= MissingConductorCharging
 		markNotEvaluated(ev, Spark, Corona)

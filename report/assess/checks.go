@@ -165,8 +165,16 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	c := Classification{Verdict: NonIncendive, Ratio: math.NaN(), Energy: math.NaN()}
 	hasAtm := env.Atmosphere != model.NoAtmosphere
 
+	// With inputs missing, the discharges the model could evaluate still give a
+	// lower bound on the effective energy: one that reaches the MIE (or the margin)
+	// is a finding whatever the missing inputs would add (a known hazard is never
+	// hidden behind "not assessed").
+	lowerBound := math.NaN()
 	if ev.NotAssessed != 0 {
 		c.Cause = CauseMissingInputs
+		if e, _ := EffectiveEnergy(env, ev, lim); e > 0 {
+			lowerBound = e
+		}
 	} else {
 		c.Energy, c.Discharge = EffectiveEnergy(env, ev, lim)
 		if math.IsNaN(c.Energy) {
@@ -175,18 +183,28 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	}
 
 	if hasAtm {
-		if c.Cause == CauseNone {
-			mie := env.MIE
-			if !(mie > 0) || math.IsInf(mie, 0) {
-				c.Cause = CauseNoMIE
-			} else {
+		mie := env.MIE
+		switch {
+		case c.Cause == CauseNone && (!(mie > 0) || math.IsInf(mie, 0)):
+			c.Cause = CauseNoMIE
+		case c.Cause == CauseNone:
+			c.Ratio = c.Energy / mie
+			switch {
+			case c.Energy >= mie:
+				c.Failed = c.Failed.Add(CheckEnergyMIE)
+			case margin > 0 && c.Energy >= mie/margin:
+				c.Failed = c.Failed.Add(CheckEnergyMargin)
+			}
+		case lowerBound > 0 && mie > 0:
+			switch {
+			case lowerBound >= mie:
+				c.Failed = c.Failed.Add(CheckEnergyMIE)
+			case margin > 0 && lowerBound >= mie/margin:
+				c.Failed = c.Failed.Add(CheckEnergyMargin)
+			}
+			if c.Failed.Has(CheckEnergyMIE) || c.Failed.Has(CheckEnergyMargin) {
+				c.Energy, c.Discharge = EffectiveEnergy(env, ev, lim)
 				c.Ratio = c.Energy / mie
-				switch {
-				case c.Energy >= mie:
-					c.Failed = c.Failed.Add(CheckEnergyMIE)
-				case margin > 0 && c.Energy >= mie/margin:
-					c.Failed = c.Failed.Add(CheckEnergyMargin)
-				}
 			}
 		}
 		if q, limQ := ChargeAgainstLimit(env, ev), TransferredChargeLimit(env, lim); q > limQ {
@@ -304,7 +322,7 @@ func SmallPartExempt(in *model.Input, env *model.Environment, lim *model.Limits)
 // SmallPartLimit returns the capacitance below which an isolated metal part need
 // not be earthed in the environment (see SmallPartExempt).
 func SmallPartLimit(env *model.Environment, lim *model.Limits) float64 {
-	if env.Group == model.IIC || env.Zone == model.Zone0 {
+	if e, _ := env.WithStrictGroup(); e.Group == model.IIC || env.Zone == model.Zone0 {
 		return lim.SmallPartCapacitanceIIC
 	}
 	return lim.SmallPartCapacitance

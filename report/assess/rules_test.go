@@ -177,3 +177,22 @@ func TestBlankSiteHumidity(t *testing.T) {
 		t.Errorf("RH default not recorded: %v", r.Defaults)
 	}
 }
+
+// TestKnownHazardNotHiddenByMissingInputs: powder poured into toluene vapour with
+// the silo diameter missing (the cone energy cannot be computed) is still
+// incendive: its brush discharge alone, 4 mJ (CLC/TR 50404 summaries, upper end),
+// reaches the 0.24 mJ MIE (IEC TS 60079-32-1 treats powder into vapour separately).
+func TestKnownHazardNotHiddenByMissingInputs(t *testing.T) {
+	o := inventory.Object{Kind: "powder", MassFlow: known(0.5), ChargeToMass: known(10e-6), ParticleSize: known(1e-3), Material: "polymer powder"}
+	r := one(t, &atmToluene, o, matPowder)
+	if r.Eval.NotAssessed == 0 {
+		t.Fatal("the cone size should be missing")
+	}
+	if r.Verdict != Incendive || !hasCheck(r, CheckEnergyMIE.Name()) {
+		t.Errorf("verdict %v, findings %v; want incendive by the brush", r.Verdict, r.Findings)
+	}
+	// derived: 4 mJ / 0.24 mJ = 16.7.
+	if r.Ratio == nil || !scalar.EqualWithinRel(*r.Ratio, 4.0/0.24, relTol) {
+		t.Errorf("ratio %v, want 16.7", r.Ratio)
+	}
+}
