@@ -241,6 +241,16 @@ func (wb *workbook) method() error {
 	}
 	r++
 
+	if err := section("Principles", nil); err != nil {
+		return err
+	}
+	for _, p := range templates.Principles() {
+		if err := put(cell{v: p.Title, wrap: true, bold: true}, wrapText(p.Text)); err != nil {
+			return err
+		}
+	}
+	r++
+
 	for _, n := range wb.methodNotes {
 		if err := section(n.Title, nil); err != nil {
 			return err
