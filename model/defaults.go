@@ -104,7 +104,9 @@ func LimitSources() []Citation {
 	for _, g := range []Group{IIA, IIB, IIC} {
 		add("TransferredCharge["+g.String()+"]", l.TransferredCharge[g], "C", src0+" 7.4.2 / "+srcTS32, true)
 	}
-	add("TransferredCharge[Group III]", l.TransferredCharge[IIIA], "C", src0+" (Group III, against propagating brush discharges; the same for IIIA, IIIB, IIIC)", true)
+	for _, g := range []Group{IIIA, IIIB, IIIC} {
+		add("TransferredCharge["+g.String()+"]", l.TransferredCharge[g], "C", src0+" (Group III, against propagating brush discharges)", true)
+	}
 	add("ZoneZeroChargeFactor", l.ZoneZeroChargeFactor, "1", srcChoice+": EPL Ga values not confirmed (about 25/10/4 nC recalled)", true)
 	for _, g := range []Group{IIA, IIB, IIC} {
 		add("AreaGa["+g.String()+"]", l.AreaGa[g], "m^2", src0, true)

@@ -164,6 +164,9 @@ func limitLabel(name string) string {
 	if !ok {
 		l = field
 	}
+	if field == "TransferredCharge" && strings.HasPrefix(group, "III") {
+		l = "Transferred charge, dust (against propagating brush discharges)"
+	}
 	if indexed {
 		if group == "other" {
 			group = "no group, dusts"
