@@ -31,7 +31,7 @@ type Limits struct {
 	SafePotential      float64 // V, a conductor below it is safe (100 V)
 	SparkMinPotential  float64 // V, Paschen floor (about 300 V)
 	AirBreakdown       float64 // V/m
-	NotEarthed         float64 // ohm, taken for an unknown resistance to earth
+	NotEarthed         float64 // ohm, an unknown resistance to earth as shown; the conductor recipe computes it as no leakage (+Inf)
 	PersonMaxPotential float64 // V, cap on an estimated body potential
 
 	// Liquids (IEC 60079-32-1 filling limits).
