@@ -114,11 +114,12 @@ func finish(ev *Evaluation, env *Environment, lim *Limits) {
 }
 
 // WithStrictGroup returns the environment with group IIC when a gas, vapour,
-// mist or hybrid atmosphere gives no group, and whether it did so: a blank group
-// is assessed as the strictest gas group (common practice, no source; it is what
-// the survey check promises).
+// mist or hybrid atmosphere gives no gas group (blank, or only a dust group for a
+// hybrid), and whether it did so: an unknown gas group is assessed as the
+// strictest (common practice, no source; it is what the survey check promises).
 func (e Environment) WithStrictGroup() (Environment, bool) {
-	if e.Group == GroupNone && e.Atmosphere.IgnitedByBrush() {
+	gasGroup := e.Group == IIA || e.Group == IIB || e.Group == IIC
+	if !gasGroup && e.Atmosphere.IgnitedByBrush() {
 		e.Group = IIC
 		return e, true
 	}

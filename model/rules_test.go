@@ -157,3 +157,18 @@ func TestGroupIIIChargeLimit(t *testing.T) {
 		near(t, "Group III limit "+g.String(), lim.TransferredCharge[g], 200e-9, 1e-12)
 	}
 }
+
+// TestHybridWithDustGroupOnlyIsIIC: a hybrid atmosphere that gives only its dust
+// group has an unknown gas group: IIC (reference section 12, common practice, no source).
+func TestHybridWithDustGroupOnlyIsIIC(t *testing.T) {
+	e, assumed := Environment{Atmosphere: Hybrid, Group: IIIB}.WithStrictGroup()
+	if !assumed || e.Group != IIC {
+		t.Errorf("hybrid IIIB: %v assumed %v, want IIC", e.Group, assumed)
+	}
+	if _, assumed := (Environment{Atmosphere: Dust, Group: IIIB}).WithStrictGroup(); assumed {
+		t.Error("pure dust: IIC assumed")
+	}
+	if e, assumed := (Environment{Atmosphere: Vapour, Group: IIB}).WithStrictGroup(); assumed || e.Group != IIB {
+		t.Error("vapour IIB changed")
+	}
+}

@@ -216,6 +216,9 @@ func (x *objectContext) environment(st *inventory.Station) (model.Environment, *
 		// Unknown means the stricter case: the brush screen, transferred charge and area limits of IIC.
 		env = e
 		defs = append(defs, Default{Field: "Group", Value: env.Group.String(), Reason: fmt.Sprintf("atmosphere %s (%s) gives no gas group: assessed as IIC, the strictest group (common practice, no source)", a.ID, kind)})
+		if a.Group != "" {
+			defs[len(defs)-1].Reason = fmt.Sprintf("atmosphere %s (%s) gives only the dust group %s: its gas is assessed as IIC, the strictest group (common practice, no source)", a.ID, kind, a.Group)
+		}
 	}
 	if strings.TrimSpace(a.Zone) == "" {
 		// An unclassified area may have to be treated as the strictest zone (TRGS 723, reference section 11).
