@@ -52,7 +52,7 @@ type Limits struct {
 	// Added with the first implementation of Evaluate (fields only appended).
 
 	PropagatingMaxEnergy float64 // J, upper bound of a propagating brush's energy
-	MaxChargingCurrent   float64 // A, worst-case industrial charging current when none is known
+	MaxChargingCurrent   float64 // A, worst-case industrial charging current: bounds the potential of an earthed conductor with no charging on its row
 	DissipativeSurface   float64 // ohm, surface resistance below which a surface is dissipative
 	DissipativeEarthing  float64 // ohm, earthing a dissipative surface needs to leak its charge
 	ConeResistivity      float64 // ohm m, bulk resistivity at or above which a cone can form

@@ -269,7 +269,7 @@ func assumptionTexts() [numAssumptions]string {
 		"resistance to earth not given: taken as not earthed (no leakage)",
 		"charging time not given: steady-state potential I R",
 		"charging current of a walking person taken as 1 uA (Jonassen)",
-		"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR; no longer assumed for a conductor, kept for old results)",
+		"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR)",
 		"air temperature not given: 20 °C",
 		"size not given: potential not capped at corona onset",
 		"layer permittivity not given: 3 (common polymers)",

@@ -196,3 +196,19 @@ func TestKnownHazardNotHiddenByMissingInputs(t *testing.T) {
 		t.Errorf("ratio %v, want 16.7", r.Ratio)
 	}
 }
+
+// TestBagInHybridUsesGasColumn: a type B bag in a hybrid atmosphere in zone 21
+// (product 2 J: the dust column would allow it) is refused by the gas column of the
+// IEC 61340-4-4:2018 usage table (reference sections 8b and 12 [C]).
+func TestBagInHybridUsesGasColumn(t *testing.T) {
+	hyb := inventory.Atmosphere{ID: "A-HYB", Kind: "hybrid", MIE: known(2), Group: "IIA", Zone: "21"} // invented for the demo
+	r := one(t, &hyb, inventory.Object{Kind: "bag", BagType: "B"})
+	if !hasCheck(r, CheckBagType.Name()) {
+		t.Fatalf("type B in a hybrid: findings %v, want bag-type", r.Findings)
+	}
+	for _, f := range r.Findings {
+		if f.Check == CheckBagType.Name() && !strings.Contains(f.Basis, "IEC 61340-4-4:2018") {
+			t.Errorf("basis %q", f.Basis)
+		}
+	}
+}
