@@ -121,8 +121,8 @@ func utValidBook() utBook {
 		{SheetObjects, [][]any{
 			utHeader(SheetObjects),
 			utRow(SheetObjects, map[string]any{"ID": "W-1", "Station": "ST-1", "Kind": "sheet", "Material": "PET", "Length": 2, "Width": 1.2, "Field": 45, "Field distance": 0.1}),
-			utRow(SheetObjects, map[string]any{"ID": "B-1", "Station": "ST-1", "Kind": "belt", "Material": "rubber belt", "Length": 5, "Width": 0.5, "Surface potential": 8, "Speed": 2}),
-			utRow(SheetObjects, map[string]any{"ID": "R-1", "Station": "ST-1", "Kind": "roller", "Diameter": 0.2, "Surface potential": 3}),
+			utRow(SheetObjects, map[string]any{"ID": "B-1", "Station": "ST-1", "Kind": "belt", "Material": "rubber belt", "Length": 5, "Width": 0.5, "Surface potential": 8, "Distance to earth": 0.3, "Speed": 2}),
+			utRow(SheetObjects, map[string]any{"ID": "R-1", "Station": "ST-1", "Kind": "roller", "Diameter": 0.2, "Surface potential": 3, "Distance to earth": 0.1}),
 			utRow(SheetObjects, map[string]any{"ID": "C-1", "Station": "ST-2", "Kind": "container", "Mass flow": 0.5, "Charge-to-mass": 10}),
 			utRow(SheetObjects, map[string]any{"ID": "P-1", "Station": "ST-1", "Kind": "part", "Charging current": 1}),
 			utRow(SheetObjects, map[string]any{"ID": "OP-1", "Station": "ST-1", "Kind": "person", "Resistance to earth": "1e8"}),

@@ -1124,11 +1124,11 @@ type KindRequirement struct {
 // the README and the check command.
 func KindRequirements() []KindRequirement {
 	return []KindRequirement{
-		{KindSheet, "Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed"},
+		{KindSheet, "Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed; a Surface potential alone also needs Backing earthed or Distance to earth (a warning)"},
 		{KindBelt, "as sheet (Speed optional: it gives the charging current)"},
 		{KindRoller, "Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth"},
-		{KindContainer, "a reading (Field with Field distance, or Surface potential), charging (Mass flow with Charge-to-mass, or Charging current) or Resistance to earth"},
-		{KindPart, "Surface potential, Charging current or Resistance to earth"},
+		{KindContainer, "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or Resistance to earth; with only a Resistance above 1 Mohm, a warning that the spark is not evaluated"},
+		{KindPart, "as container"},
 		{KindPerson, "Surface potential or Resistance to earth"},
 		{KindPowder, "Mass flow, Diameter (silo or container) and Particle size; Charge-to-mass optional"},
 		{KindLiquid, "Speed (flow velocity), Diameter (line inner diameter) and Conductivity"},
@@ -1343,6 +1343,7 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		if o.Backing == "earthed" && !given("Thickness", o.Thickness) {
 			need = append(need, "Thickness (the layer lies on earthed metal)")
 		}
+		potentialGeometryNeed(f, o, who, given)
 	case KindRoller:
 		if !given("Diameter", o.Diameter) {
 			need = append(need, "Diameter")
@@ -1350,13 +1351,19 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		if !reading && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "a reading (Field with Field distance, or Surface potential) or its Resistance to earth")
 		}
-	case KindContainer:
-		if !reading && !(given("Mass flow", o.MassFlow) && given("Charge-to-mass", o.ChargeToMass)) && !given("Charging current", o.ChargingCurrent) && !given("Resistance to earth", o.Resistance) {
-			need = append(need, "a reading (Field with Field distance, or Surface potential), its charging (Mass flow with Charge-to-mass, or Charging current) or its Resistance to earth")
+		if m, known := v.s.Material(o.Material); !(known && m.Class == ClassConductive) && !given("Resistance to earth", o.Resistance) {
+			potentialGeometryNeed(f, o, who, given)
 		}
-	case KindPart:
-		if !given("Surface potential", o.SurfacePotential) && !given("Charging current", o.ChargingCurrent) && !given("Resistance to earth", o.Resistance) {
-			need = append(need, "Surface potential, Charging current or Resistance to earth")
+	case KindContainer, KindPart:
+		// A conductor's potential comes from a Surface potential or from its
+		// charging; a field reading near a conductor does not give it.
+		charging := (given("Mass flow", o.MassFlow) && given("Charge-to-mass", o.ChargeToMass)) || given("Charging current", o.ChargingCurrent)
+		if !given("Surface potential", o.SurfacePotential) && !charging && !given("Resistance to earth", o.Resistance) {
+			need = append(need, "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or its Resistance to earth")
+		}
+		if !given("Surface potential", o.SurfacePotential) && !charging && o.Resistance.Known && o.Resistance.Value > ConductorEarthingLimit {
+			f.warnf("Resistance to earth", nil, "measure its Surface potential in operation, or its Charging current (or Mass flow and Charge-to-mass)",
+				"%s: not earthed within 1 Mohm and no charging on the row: its spark is not evaluated, only its earthing is judged", who)
 		}
 	case KindPerson:
 		if !given("Surface potential", o.SurfacePotential) && !given("Resistance to earth", o.Resistance) {
@@ -1388,6 +1395,27 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 	f.st.probs = append(f.st.probs, Problem{Sheet: f.t.Sheet, Row: f.rr.Row, Column: f.idLetter(), ID: o.ID, Severity: Error, Err: ErrRequired,
 		Message: fmt.Sprintf("%s: needs %s", who, joinAnd(need)),
 		Fix:     "measure and enter them, or delete the row if the object is not part of the survey"})
+}
+
+// ConductorEarthingLimit is the resistance to earth (ohm) above which check
+// warns that a conductor with no charging on its row is judged on its earthing
+// only (TRGS 727:2016 8.3; the assessment's limit may be overridden on the Site sheet).
+const ConductorEarthingLimit = 1e6
+
+// potentialGeometryNeed warns when a Surface potential reading on an insulating
+// surface lacks what it needs to give a charge density: the layer on earthed
+// metal with its Thickness, or a Distance to earth. The row is kept (it is listed
+// as not assessed with the same words); nothing is said when a Field reading with
+// its distance is on the row (it is used instead) or no Surface potential is.
+func potentialGeometryNeed(f *field, o *Object, who string, given func(string, Quantity) bool) {
+	if !given("Surface potential", o.SurfacePotential) || (given("Field", o.Field) && given("Field distance", o.FieldDistance)) {
+		return
+	}
+	if o.Backing == "earthed" || given("Distance to earth", o.DistanceToEarth) {
+		return
+	}
+	f.warnf("Surface potential", ErrRequired, "enter Backing earthed with the layer's Thickness, or the Distance to earth, or a Field reading with its distance",
+		"%s: a Surface potential on a free surface gives no charge density: needs Backing earthed with Thickness, or Distance to earth; not assessed until then", who)
 }
 
 func joinAnd(s []string) string {

@@ -100,7 +100,18 @@ func TestValidationRules(t *testing.T) {
 		{name: "container needs reading or charging", mut: func(b utBook) utBook { return b.set(SheetObjects, "C-1", "Charge-to-mass", nil) },
 			cell: "Objects!A5", errIs: ErrRequired, msgHas: "its charging", reject: "Objects!5"},
 		{name: "part needs potential or current", mut: func(b utBook) utBook { return b.set(SheetObjects, "P-1", "Charging current", nil) },
-			cell: "Objects!A6", errIs: ErrRequired, msgHas: "Surface potential, Charging current or Resistance to earth", reject: "Objects!6"},
+			cell: "Objects!A6", errIs: ErrRequired, msgHas: "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or its Resistance to earth", reject: "Objects!6"},
+		// check names what assess needs (issue 11): a field reading gives no conductor potential,
+		{name: "container field alone is no potential", mut: func(b utBook) utBook {
+			return b.set(SheetObjects, "C-1", "Charge-to-mass", nil).set(SheetObjects, "C-1", "Mass flow", nil).set(SheetObjects, "C-1", "Field", 50).set(SheetObjects, "C-1", "Field distance", 0.1)
+		}, cell: "Objects!A5", errIs: ErrRequired, msgHas: "its charging", reject: "Objects!5"},
+		// a conductor with only a resistance above 1 Mohm is judged on its earthing alone,
+		{name: "part with only a high resistance warns", mut: func(b utBook) utBook {
+			return b.set(SheetObjects, "P-1", "Charging current", nil).set(SheetObjects, "P-1", "Resistance to earth", "1e9")
+		}, cell: "Objects!U6", sev: Warning, msgHas: "spark is not evaluated", fixHas: "Surface potential"},
+		// and a surface potential on a free surface gives no charge density.
+		{name: "free belt potential needs backing or distance", mut: func(b utBook) utBook { return b.set(SheetObjects, "B-1", "Distance to earth", nil) },
+			cell: "Objects!N3", sev: Warning, errIs: ErrRequired, msgHas: "needs Backing earthed with Thickness, or Distance to earth"},
 		{name: "powder needs particle size", mut: func(b utBook) utBook { return b.set(SheetObjects, "PW-1", "Particle size", nil) },
 			cell: "Objects!A8", errIs: ErrRequired, msgHas: "needs Particle size", reject: "Objects!8"},
 		{name: "liquid needs conductivity", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Conductivity", nil) },

@@ -119,6 +119,10 @@ type Input struct {
 	// Process says whether the row is process material or fixed equipment, and
 	// whether pneumatic conveying charges it (see IsProcessMaterial).
 	Process Process
+	// CapacitanceEstimated says that Capacitance is not a measurement but a value
+	// drawn about the model's estimate (uncertainty sampling): it may not clear a
+	// requirement that only a measured capacitance clears (small-part exemption).
+	CapacitanceEstimated bool
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.

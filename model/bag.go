@@ -5,7 +5,8 @@ package model
 // energy productMIE (J; NaN: unknown, taken as the most sensitive band).
 //
 // Surroundings: non-flammable (no atmosphere or no zone), dust zones 21 and 22, or
-// gas, vapour, mist or hybrid in zones 1 and 2 of groups IIA and IIB. Never in IIC,
+// gas, vapour, mist or hybrid in zones 1 and 2 of groups IIA and IIB. Gas or
+// vapour present in a dust zone (a hybrid atmosphere) takes the gas column. Never in IIC,
 // zone 0 or zone 20. Product bands: at or below lim.BagDustLow (3 mJ), up to
 // lim.BagDustHigh (1000 mJ), above. Types C and D are qualified only for MIE >=
 // lim.BagMinMIE (0.14 mJ). BagUnknown is assessed as type A, the bag with no
@@ -22,7 +23,9 @@ func BagTypeAllowed(t BagType, env Environment, productMIE float64, lim Limits) 
 	if t == BagUnknown {
 		eff = BagA
 	}
-	gas := env.Zone.Gas() || (env.Zone == ZoneNone && env.Atmosphere != NoAtmosphere && env.Atmosphere != Dust)
+	// Gas or vapour present (a hybrid atmosphere included), in any zone, takes the
+	// gas column: types A and B are not allowed (reference section 12).
+	gas := env.Zone.Gas() || env.Atmosphere.IgnitedByBrush()
 	dust := !gas && (env.Zone.Dust() || env.Atmosphere == Dust)
 	if env.Atmosphere == NoAtmosphere && env.Zone == ZoneNone {
 		gas, dust = false, false

@@ -80,3 +80,38 @@ func TestBagTypeTable(t *testing.T) {
 		t.Error("type B with unknown product MIE allowed")
 	}
 }
+
+// TestBagGasPresentInDustZone: a hybrid atmosphere, or gas or vapour present, in a
+// dust zone uses the gas column of the usage table, where types A and B are never
+// allowed, whatever the product's MIE. Source: IEC 61340-4-4:2018 usage table
+// (reference section 8b [C]) and reference section 12.
+func TestBagGasPresentInDustZone(t *testing.T) {
+	lim := DefaultLimits()
+	envs := []struct {
+		name string
+		env  Environment
+	}{
+		{"hybrid zone 21 IIA", Environment{Atmosphere: Hybrid, Group: IIA, Zone: Zone21, MIE: 5e-3}},
+		{"hybrid zone 22 IIB", Environment{Atmosphere: Hybrid, Group: IIB, Zone: Zone22, MIE: 5e-3}},
+		{"vapour in zone 21", Environment{Atmosphere: Vapour, Group: IIA, Zone: Zone21, MIE: 0.24e-3}},
+	}
+	for _, e := range envs {
+		// Product MIE 2 J: in the dust column type A and B would be allowed.
+		for _, typ := range []BagType{BagA, BagB} {
+			if ok, code := BagTypeAllowed(typ, e.env, 2, lim); ok || code != ReasonBagNotForGas {
+				t.Errorf("%s: type %v allowed %v (%s), want refused by the gas column", e.name, typ, ok, code.Text(0, 0))
+			}
+		}
+		for _, typ := range []BagType{BagC, BagD} {
+			if ok, _ := BagTypeAllowed(typ, e.env, 2, lim); !ok {
+				t.Errorf("%s: type %v refused, want allowed by the gas column", e.name, typ)
+			}
+		}
+	}
+	// A blank gas group on a hybrid is assessed as IIC through Evaluate: never allowed.
+	in := Input{Kind: Bag, BagType: BagC, ProductMIE: 2, Resistance: 1e5}
+	ev := Evaluate(in, Environment{Atmosphere: Hybrid, Zone: Zone21, MIE: 5e-3}, lim)
+	if ev.BagAllowed || ev.BagCode != ReasonBagNeverIIC || ev.Assumed&AssumedGroupIIC == 0 {
+		t.Errorf("hybrid, blank group: allowed %v, code %s, assumed %b", ev.BagAllowed, ev.BagCode.Text(0, 0), ev.Assumed)
+	}
+}

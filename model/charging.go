@@ -17,8 +17,18 @@ func BeltCurrent(sigma, v, w float64) float64 { return sigma * v * w }
 // ConductorPotential returns the potential of a conductor with resistance R to
 // earth and capacitance C charged by a current I for a time t:
 // V(t) = I R (1 - exp(-t / (R C))); t NaN or +Inf gives the steady state I R
-// (first-order RC circuit; TRGS 727 8.3, JNIOSH-TR).
+// (first-order RC circuit; TRGS 727 8.3, JNIOSH-TR). R = +Inf (no leakage) gives
+// I t / C, and +Inf in the steady state; I = 0 gives 0.
 func ConductorPotential(i, r, c, t float64) float64 {
+	if i == 0 {
+		return 0
+	}
+	if math.IsInf(r, 1) {
+		if !finite(t) {
+			return math.Inf(1)
+		}
+		return i * t / c
+	}
 	if !finite(t) {
 		return i * r
 	}

@@ -11,7 +11,7 @@ func DefaultLimits() Limits {
 		BrushEnergy:        4e-3,
 		BrushArea:          100e-4,
 
-		TransferredCharge:    [numGroups]float64{GroupNone: nan, IIA: 60e-9, IIB: 25e-9, IIC: 10e-9, IIIA: nan, IIIB: nan, IIIC: nan},
+		TransferredCharge:    [numGroups]float64{GroupNone: nan, IIA: 60e-9, IIB: 25e-9, IIC: 10e-9, IIIA: 200e-9, IIIB: 200e-9, IIIC: 200e-9},
 		ZoneZeroChargeFactor: 0.4,
 
 		AreaGa: [numGroups]float64{GroupNone: nan, IIA: 50e-4, IIB: 25e-4, IIC: 4e-4, IIIA: nan, IIIB: nan, IIIC: nan},
@@ -54,6 +54,11 @@ func DefaultLimits() Limits {
 		ConeMinVolume:        0.25,
 		BagDustLow:           3e-3,
 		BagDustHigh:          1000e-3,
+
+		ConductorMaxPotential:   50e3,
+		SmallPartCapacitance:    10e-12,
+		SmallPartCapacitanceIIC: 3e-12,
+		DustBrushMIE:            1e-3,
 	}
 }
 
@@ -99,6 +104,9 @@ func LimitSources() []Citation {
 	for _, g := range []Group{IIA, IIB, IIC} {
 		add("TransferredCharge["+g.String()+"]", l.TransferredCharge[g], "C", src0+" 7.4.2 / "+srcTS32, true)
 	}
+	for _, g := range []Group{IIIA, IIIB, IIIC} {
+		add("TransferredCharge["+g.String()+"]", l.TransferredCharge[g], "C", src0+" (Group III, against propagating brush discharges)", true)
+	}
 	add("ZoneZeroChargeFactor", l.ZoneZeroChargeFactor, "1", srcChoice+": EPL Ga values not confirmed (about 25/10/4 nC recalled)", true)
 	for _, g := range []Group{IIA, IIB, IIC} {
 		add("AreaGa["+g.String()+"]", l.AreaGa[g], "m^2", src0, true)
@@ -139,5 +147,9 @@ func LimitSources() []Citation {
 	add("ConeMinVolume", l.ConeMinVolume, "m^3", "JNIOSH-TR", false)
 	add("BagDustLow", l.BagDustLow, "J", srcBags, false)
 	add("BagDustHigh", l.BagDustHigh, "J", srcBags, false)
+	add("ConductorMaxPotential", l.ConductorMaxPotential, "V", "common practice, no source: plant conductors go into corona from edges and bolts at tens of kV; an unmeasured estimate above it is an artefact of an assumed resistance", false)
+	add("SmallPartCapacitance", l.SmallPartCapacitance, "F", src0+" (small isolated metal parts exempt from earthing, IIA/IIB/Group III)", true)
+	add("SmallPartCapacitanceIIC", l.SmallPartCapacitanceIIC, "F", src0+" (small isolated metal parts exempt from earthing, IIC or EPL Ga)", true)
+	add("DustBrushMIE", l.DustBrushMIE, "J", srcChoice+": dusts below about 1 mJ behave like hybrids for brush discharges", true)
 	return out
 }

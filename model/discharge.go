@@ -42,3 +42,20 @@ func ConeDischargeEnergy(diameter, particleSize float64) (energy float64, inRang
 		particleSize >= ConeMinParticleSize && particleSize <= ConeMaxParticleSize
 	return energy, inRange
 }
+
+// ConeEnergyAtRange returns the cone discharge energy by Glor's formula, never
+// extrapolated into a clearance: outside the validity range (D 0.5-3 m, d 0.1-3 mm)
+// it is the larger of the formula's value and its value at the nearest edge of the
+// range (D and d clamped into it). Below the range this is the edge value (the
+// formula falls there and must not clear); above it the extrapolated value, which
+// is larger. inRange reports whether both lie in the range.
+func ConeEnergyAtRange(diameter, particleSize float64) (energy float64, inRange bool) {
+	w, ok := ConeDischargeEnergy(diameter, particleSize)
+	if ok {
+		return w, true
+	}
+	dc := math.Min(math.Max(diameter, ConeMinDiameter), ConeMaxDiameter)
+	pc := math.Min(math.Max(particleSize, ConeMinParticleSize), ConeMaxParticleSize)
+	edge, _ := ConeDischargeEnergy(dc, pc)
+	return math.Max(w, edge), false
+}

@@ -78,24 +78,39 @@
 // Conductors (conductive roller, container, part, person):
 //
 //  1. Capacitance: measured; else a container on an insulating layer as a
-//     parallel plate; a cylinder over earth when Diameter, Length and Distance to
-//     earth are given; else the typical value of the kind (person 200 pF, part
-//     20 pF, container 100 pF), or the sphere of the object's size if larger.
-//  2. Resistance: measured; unknown is taken as not earthed (Limits.NotEarthed, 1e13 ohm).
+//     parallel plate; a container (or a powder row's receiving vessel) from the
+//     vessel size table (VesselCapacitance: drum up to 200 L 100 pF, 250-500 L
+//     300 pF, larger vessel, IBC or tanker 1000 pF; size unknown 1000 pF), never
+//     the isolated sphere of a floor-standing vessel; a cylinder over earth when
+//     Diameter, Length and Distance to earth are given; else the typical value of
+//     the kind (person 200 pF, part 20 pF), or the sphere of the object's size if larger.
+//  2. Resistance: measured; unknown is taken as not earthed with no leakage at all
+//     (the stricter case for any measured resistance).
 //  3. Charging current: measured; mass flow x charge-to-mass; a person walking
-//     1 uA; a conductor with only a resistance given the worst-case 100 uA.
-//  4. Potential: measured; else V(t) = I R (1 - exp(-t/RC)) (steady state I R
-//     when no charging time). Capped at Peek's corona onset of the object's
-//     radius (a person: at Limits.PersonMaxPotential). A person needs a surface
-//     potential or a resistance to earth; other conductors a potential, a current
-//     or a resistance.
+//     1 uA. No current is invented for any other conductor with no charging on its
+//     row: earthed within Limits.ConductorEarthing it cannot reach the spark floor
+//     even at the worst-case 100 uA (ReasonSparkEarthedBound); otherwise the spark
+//     is not evaluated (MissingConductorCharging says what to measure) and only its
+//     earthing is judged.
+//  4. Potential: measured (never capped; above Limits.ConductorMaxPotential it is
+//     flagged as a contradiction, FlagMeasuredAboveMaximum); else V(t) = I R
+//     (1 - exp(-t/RC)) (steady state I R when no charging time; with no leakage
+//     I t / C, or unbounded), capped at Limits.ConductorMaxPotential (50 kV,
+//     common practice, no source) and at Peek's corona onset of the object's
+//     radius (a person: at Limits.PersonMaxPotential). FlagAssumedResistance marks
+//     an estimate set by an unknown resistance.
 //  5. Spark when V >= 300 V: W = C V^2/2, Q = C V. Decay tau = R C, time to 100 V.
 //
 // Powder: charging current mass flow x q/m; the receiving container follows the
-// conductor recipe when its Resistance or Capacitance is on the row. Cone
-// discharge screened out by bulk resistivity < 1e10 ohm m, q/m < 1 uC/kg, a
-// container under 0.25 m^3 or a measured heap field <= 500 kV/m; otherwise its
-// energy by Glor's formula, flagged when outside D 0.5-3 m, d 0.1-3 mm.
+// conductor recipe when its Resistance or Capacitance is on the row. Brush
+// discharges from the charged powder, its cloud and its sack or liner (4 mJ)
+// unless the row shows the powder does not charge; they count against gas,
+// vapour, mist and hybrid atmospheres and dusts below Limits.DustBrushMIE
+// (BrushIgnites). Cone discharge screened out by bulk resistivity < 1e10 ohm m or
+// q/m < 1 uC/kg, or by a measured heap field <= 500 kV/m together with a container
+// under 0.25 m^3 (JNIOSH-TR states the two jointly); otherwise its energy by
+// Glor's formula, outside D 0.5-3 m, d 0.1-3 mm the value at the nearest edge of
+// the range, never less (ConeEnergyAtRange), flagged.
 //
 // Liquid: conductivity class; relaxation time eps0 epsr/kappa and the residence
 // 3 tau; streaming current 3.75e-6 v^2 d^2 as the charging current of the
@@ -103,12 +118,14 @@
 // the row); filling velocity limit; a low or unknown conductivity liquid can give
 // a brush from its surface (4 mJ).
 //
-// Bag: the type rule of IEC 61340-4-4 (BagTypeAllowed); types A and B give brush
+// Bag: the type rule of IEC 61340-4-4 (BagTypeAllowed; gas or vapour present in
+// a dust zone, a hybrid included, takes the gas column); types A and B give brush
 // discharges (A also propagating brush), an unearthed type C bag sparks as an
 // isolated conductor of estimated capacitance 300 pF, type D only corona; an
 // unknown type is assessed as type A, the most restrictive case.
 //
 // Comparison: Evaluation.EffectiveEnergy is the largest energy of the possible
-// discharges that can ignite the atmosphere kind (brush never for a pure dust
-// cloud). TransferredCharge is the largest charge of the possible discharges.
+// discharges that can ignite the atmosphere kind (brush not for a pure dust cloud
+// of MIE at or above 1 mJ). A gas, vapour, mist or hybrid atmosphere with no group
+// is assessed as IIC (Environment.WithStrictGroup, AssumedGroupIIC). TransferredCharge is the largest charge of the possible discharges.
 package model

@@ -16,6 +16,10 @@ import "math"
 // bag the bag rules (BagTypeAllowed) and the discharges of its type.
 func Evaluate(in Input, env Environment, lim Limits) Evaluation {
 	ev := newEvaluation(in.Kind)
+	if e, assumed := env.WithStrictGroup(); assumed {
+		env = e
+		ev.Assumed |= AssumedGroupIIC
+	}
 	switch in.Kind {
 	case Sheet, Belt:
 		evalSurface(&ev, &in, &env, &lim)
@@ -39,7 +43,7 @@ func Evaluate(in Input, env Environment, lim Limits) Evaluation {
 			ev.Discharges[i].Code = ReasonNotEvaluated
 		}
 	}
-	finish(&ev, &env)
+	finish(&ev, &env, &lim)
 	return ev
 }
 
@@ -92,7 +96,7 @@ func newEvaluation(k Kind) Evaluation {
 func setReason(d *Discharge, code Reason, a, b float64) { d.Code, d.A, d.B = code, a, b }
 
 // finish picks the effective discharge and the largest transferred charge.
-func finish(ev *Evaluation, env *Environment) {
+func finish(ev *Evaluation, env *Environment, lim *Limits) {
 	ev.EffectiveEnergy = 0
 	for i := range ev.Discharges {
 		d := &ev.Discharges[i]
@@ -105,13 +109,38 @@ func finish(ev *Evaluation, env *Environment) {
 		if !finite(d.Energy) {
 			continue
 		}
-		if d.Type == Brush && env.Atmosphere == Dust {
-			continue // never incendive to a pure dust cloud
+		if d.Type == Brush && !BrushIgnites(*env, *lim) {
+			continue // not incendive to a pure dust cloud of MIE at or above Limits.DustBrushMIE
 		}
 		if d.Energy > ev.EffectiveEnergy {
 			ev.EffectiveEnergy, ev.Effective = d.Energy, d.Type
 		}
 	}
+}
+
+// WithStrictGroup returns the environment with group IIC when a gas, vapour,
+// mist or hybrid atmosphere gives no gas group (blank, or only a dust group for a
+// hybrid), and whether it did so: an unknown gas group is assessed as the
+// strictest (common practice, no source; it is what the survey check promises).
+func (e Environment) WithStrictGroup() (Environment, bool) {
+	gasGroup := e.Group == IIA || e.Group == IIB || e.Group == IIC
+	if !gasGroup && e.Atmosphere.IgnitedByBrush() {
+		e.Group = IIC
+		return e, true
+	}
+	return e, false
+}
+
+// BrushIgnites reports whether a brush discharge can ignite the environment's
+// atmosphere: gases, vapours, mists and hybrid mixtures, and a dust whose MIE is
+// below Limits.DustBrushMIE (about 1 mJ: such dusts behave like hybrids for
+// screening, reference section 12, from memory); not a pure dust cloud of higher
+// MIE. An unknown dust MIE is taken as low enough (the stricter case).
+func BrushIgnites(env Environment, lim Limits) bool {
+	if env.Atmosphere.IgnitedByBrush() {
+		return true
+	}
+	return env.Atmosphere == Dust && !(env.MIE >= lim.DustBrushMIE)
 }
 
 func groupIndex(g Group) Group {
@@ -567,6 +596,10 @@ func markNotEvaluated(ev *Evaluation, types ...DischargeType) {
 }
 
 // estimateCapacitance returns the measured capacitance or the documented estimate.
+//
+// A container (and the receiving vessel of a powder row) takes the
+// size table VesselCapacitance: a floor-standing vessel is never estimated as an
+// isolated sphere, since the floor raises its capacitance (reference section 12).
 func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 	if positive(in.Capacitance) {
 		return in.Capacitance, CapMeasured
@@ -582,8 +615,16 @@ func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 		}
 		return ParallelPlateCapacitance(math.Pi*r*r, in.Thickness, epsr), CapParallelPlate
 	}
-	if k != Person && k != Liquid && positive(in.Diameter) && positive(in.Length) && positive(in.DistanceToEarth) {
+	vessel := k == Container || k == Powder
+	if !vessel && k != Person && k != Liquid && positive(in.Diameter) && positive(in.Length) && positive(in.DistanceToEarth) {
 		return CylinderOverPlaneCapacitance(in.Length, r, in.DistanceToEarth+r), CapCylinderPlane
+	}
+	if vessel {
+		c, _ := VesselCapacitance(in.Diameter, in.Length)
+		if !positive(in.Diameter) {
+			ev.Assumed |= AssumedVesselSize
+		}
+		return c, CapSizeTable
 	}
 	typ := TypicalCapacitance(k)
 	if k != Person && k != Liquid && positive(in.Diameter) {
@@ -600,6 +641,17 @@ func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 
 // evalConductor is the conductor recipe; current, when not NaN, is the charging
 // current supplied by the caller (powder stream, streaming current, bag filling).
+//
+// An unknown resistance to earth is taken as no leakage at all (the stricter case
+// for any known resistance): the potential then rises as I t / C, or to the cap
+// when no charging time is given. No charging current is invented for an object
+// with no charging mechanism on its row: its earthing is judged instead (a
+// resistance within Limits.ConductorEarthing keeps even the worst-case industrial
+// current below the spark floor) and the spark is otherwise not evaluated, with
+// what to measure. An unmeasured potential is capped at Limits.ConductorMaxPotential
+// (a person's at Limits.PersonMaxPotential) and at the corona onset of the object's
+// radius; a measured one is never capped: one above the cap is flagged as a
+// contradiction (FlagMeasuredAboveMaximum).
 func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, current float64) {
 	setReason(&ev.Discharges[Brush], ReasonBrushConductor, math.NaN(), math.NaN())
 	c, m := estimateCapacitance(ev, in)
@@ -607,7 +659,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 
 	r := in.Resistance
 	if !given(r) {
-		r = lim.NotEarthed
+		r = math.Inf(1)
 		ev.Assumed |= AssumedNotEarthed
 	}
 	ev.Resistance = r
@@ -625,9 +677,6 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	case in.Kind == Person:
 		i = WalkingCurrent
 		ev.Assumed |= AssumedWalkingCurrent
-	case given(in.Resistance):
-		i = lim.MaxChargingCurrent
-		ev.Assumed |= AssumedMaxCurrent
 	}
 	i = math.Abs(i)
 	ev.ChargingCurrent = i
@@ -636,31 +685,52 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	switch {
 	case measured:
 		v, ev.PotentialSource = math.Abs(in.SurfacePotential), PotentialMeasured
-	case in.Kind == Person && !given(in.Resistance) && !given(in.ChargingCurrent):
-		ev.NotAssessed |= MissingPersonPotential
-		markNotEvaluated(ev, Spark, Corona)
-		return
 	case given(i):
 		t := in.ChargingTime
 		if !given(t) {
 			ev.Assumed |= AssumedSteadyState
 		}
 		v, ev.PotentialSource = ConductorPotential(i, r, c, t), PotentialCharging
+	case given(in.Resistance) && lim.MaxChargingCurrent*in.Resistance < lim.SparkMinPotential:
+		// No charging mechanism on the row, but earthed well enough that even the
+		// worst-case industrial current keeps it below the spark floor (JNIOSH-TR).
+		bound := lim.MaxChargingCurrent * in.Resistance
+		setReason(&ev.Discharges[Spark], ReasonSparkEarthedBound, bound, in.Resistance)
+		ev.DecayTime = DecayTime(r, c)
+		return
+	case in.Kind == Powder:
+		// The receiving container of a powder row with no stream on the row: its
+		// spark is not evaluated (its earthing is judged), the powder still is.
+		markNotEvaluated(ev, Spark, Corona)
+		return
 	default:
 		ev.NotAssessed |= MissingConductorCharging
 		markNotEvaluated(ev, Spark, Corona)
 		return
 	}
 
-	// Caps: a person's estimated potential at the walking-test maximum; any other
-	// conductor at the corona onset of its radius.
+	// Caps on an estimated potential: a person's at the walking-test maximum, any
+	// other conductor's at the realistic plant maximum and at the corona onset of
+	// its radius. A measured potential is never capped.
 	capped := false
-	if in.Kind == Person {
-		if ev.PotentialSource != PotentialMeasured && v > lim.PersonMaxPotential {
-			v = lim.PersonMaxPotential
-			ev.Flags |= FlagCappedPerson
+	if ev.PotentialSource != PotentialMeasured {
+		if !given(in.Resistance) && v > 0 {
+			// The assumed (absent) leakage decides the size of the estimate.
+			ev.Flags |= FlagAssumedResistance
 		}
-	} else if positive(in.Diameter) && in.Kind != Liquid {
+		if in.Kind == Person {
+			if !(v <= lim.PersonMaxPotential) {
+				v = lim.PersonMaxPotential
+				ev.Flags |= FlagCappedPerson
+			}
+		} else if !(v <= lim.ConductorMaxPotential) {
+			v = lim.ConductorMaxPotential
+			ev.Flags |= FlagCappedConductor
+		}
+	} else if in.Kind != Person && v > lim.ConductorMaxPotential {
+		ev.Flags |= FlagMeasuredAboveMaximum
+	}
+	if in.Kind != Person && positive(in.Diameter) && in.Kind != Liquid {
 		rad := in.Diameter / 2
 		temp := env.Temperature
 		if !positive(temp) {
@@ -675,11 +745,12 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 		if v > ev.CoronaOnset {
 			if ev.PotentialSource == PotentialMeasured {
 				ev.Flags |= FlagSuspectReading
+			} else {
+				v, capped = ev.CoronaOnset, true
+				ev.Flags |= FlagCappedCorona
 			}
-			v, capped = ev.CoronaOnset, true
-			ev.Flags |= FlagCappedCorona
 		}
-	} else {
+	} else if in.Kind != Person {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
 	ev.Potential = v
@@ -732,12 +803,31 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		setReason(&ev.Discharges[Spark], ReasonSparkNoContainer, math.NaN(), math.NaN())
 	}
 
+	// Brush discharges from the charged powder, its cloud and its sack or liner
+	// (IEC TS 60079-32-1 treats powder into a flammable vapour separately;
+	// reference section 12): possible unless the row shows the powder does not
+	// charge (a measured charge-to-mass or charging current of zero). finish counts
+	// it only where a brush can ignite (gas, vapour, mist, hybrid, a dust below
+	// Limits.DustBrushMIE).
+	br := &ev.Discharges[Brush]
+	if (given(in.ChargeToMass) && in.ChargeToMass == 0) || (given(in.ChargingCurrent) && in.ChargingCurrent == 0) {
+		setReason(br, ReasonBrushPowderNoCharge, math.NaN(), math.NaN())
+	} else {
+		br.Possible, br.Energy = true, lim.BrushEnergy
+		setReason(br, ReasonBrushPowder, lim.BrushEnergy, math.NaN())
+	}
+
 	cone := &ev.Discharges[Cone]
 	rho := in.Material.VolumeResistivity
 	vol := math.NaN()
 	if positive(in.Diameter) && positive(in.Length) {
 		vol = math.Pi * in.Diameter * in.Diameter / 4 * in.Length
 	}
+	// Screens: a bulk resistivity below 1e10 ohm m (BG RCI FAQ 5.10, TRGS 727
+	// 6.2.3) or a charge-to-mass below 1 uC/kg (JNIOSH-TR) clears alone; a small
+	// container clears only together with a low measured heap field, as JNIOSH-TR
+	// states ("none expected if the heap-surface field is at most 500 kV/m and the
+	// container is below 0.25 m^3").
 	switch {
 	case given(rho) && rho < lim.ConeResistivity:
 		setReason(cone, ReasonConeLowResistivity, rho, lim.ConeResistivity)
@@ -745,11 +835,8 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	case given(qm) && qm < lim.ConeChargeToMass:
 		setReason(cone, ReasonConeLowCharge, qm, lim.ConeChargeToMass)
 		return
-	case given(vol) && vol < lim.ConeMinVolume:
-		setReason(cone, ReasonConeSmallVessel, vol, lim.ConeMinVolume)
-		return
-	case given(in.Field) && math.Abs(in.Field) <= lim.ConeField:
-		setReason(cone, ReasonConeLowField, math.Abs(in.Field), lim.ConeField)
+	case given(vol) && vol < lim.ConeMinVolume && given(in.Field) && math.Abs(in.Field) <= lim.ConeField:
+		setReason(cone, ReasonConeFieldAndVessel, math.Abs(in.Field), vol)
 		return
 	}
 	if !given(rho) {
@@ -764,7 +851,7 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		setReason(cone, ReasonConeSizeUnknown, math.NaN(), math.NaN())
 		return
 	}
-	w, ok := ConeDischargeEnergy(in.Diameter, in.ParticleSize)
+	w, ok := ConeEnergyAtRange(in.Diameter, in.ParticleSize)
 	cone.Energy = w
 	if ok {
 		setReason(cone, ReasonConePossible, in.Diameter, in.ParticleSize)

@@ -30,7 +30,7 @@ func ExampleEvaluate() {
 	// Output:
 	// spark 5 mJ
 	// An isolated conductor at 10 kV can spark with W = C V^2/2 = 5 mJ.
-	// assumed: resistance to earth not given: taken as not earthed
+	// assumed: resistance to earth not given: taken as not earthed (no leakage)
 }
 
 // Powder poured into an unearthed drum (derived: reference section 10.6).

@@ -31,7 +31,7 @@ type Limits struct {
 	SafePotential      float64 // V, a conductor below it is safe (100 V)
 	SparkMinPotential  float64 // V, Paschen floor (about 300 V)
 	AirBreakdown       float64 // V/m
-	NotEarthed         float64 // ohm, taken for an unknown resistance to earth
+	NotEarthed         float64 // ohm, an unknown resistance to earth as shown; the conductor recipe computes it as no leakage (+Inf)
 	PersonMaxPotential float64 // V, cap on an estimated body potential
 
 	// Liquids (IEC 60079-32-1 filling limits).
@@ -52,7 +52,7 @@ type Limits struct {
 	// Added with the first implementation of Evaluate (fields only appended).
 
 	PropagatingMaxEnergy float64 // J, upper bound of a propagating brush's energy
-	MaxChargingCurrent   float64 // A, worst-case industrial charging current when none is known
+	MaxChargingCurrent   float64 // A, worst-case industrial charging current: bounds the potential of an earthed conductor with no charging on its row
 	DissipativeSurface   float64 // ohm, surface resistance below which a surface is dissipative
 	DissipativeEarthing  float64 // ohm, earthing a dissipative surface needs to leak its charge
 	ConeResistivity      float64 // ohm m, bulk resistivity at or above which a cone can form
@@ -61,4 +61,11 @@ type Limits struct {
 	ConeMinVolume        float64 // m^3, container volume below which none is expected
 	BagDustLow           float64 // J, product MIE band edge (at or below: most sensitive band)
 	BagDustHigh          float64 // J, product MIE band edge (above: least sensitive band)
+
+	// Added with the rules of issue 11 (fields only appended).
+
+	ConductorMaxPotential   float64 // V, cap on an unmeasured conductor potential (corona at edges and bolts)
+	SmallPartCapacitance    float64 // F, an isolated metal part below it need not be earthed (IIA, IIB, Group III)
+	SmallPartCapacitanceIIC float64 // F, the same for IIC and EPL Ga (zone 0)
+	DustBrushMIE            float64 // J, a dust below this MIE is screened for brush discharges like a hybrid
 }

@@ -67,6 +67,11 @@ const (
 	ReasonPropReadingOverHumidity  // A density, B needed (C/m^2)
 	ReasonPropCurrentDensity       // A charging current density, B threshold (A/m^2)
 	ReasonPropPneumatic            // A energy (J)
+	// Added with the rules of issue 11 (codes only appended).
+	ReasonSparkEarthedBound   // A bound on the potential (V), B resistance (ohm)
+	ReasonBrushPowder         // A equivalent energy (J)
+	ReasonBrushPowderNoCharge //
+	ReasonConeFieldAndVessel  // A field (V/m), B volume (m^3)
 
 	numReasons
 )
@@ -151,7 +156,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonConePossible:
 		return fmt.Sprintf("Cone discharge energy by Glor's formula W = 5.22 D^3.36 d^1.462 mJ with D = %s and d = %s.", Quantity(a, "m"), Quantity(b, "m"))
 	case ReasonConeOutsideRange:
-		return fmt.Sprintf("Glor's formula is outside its range (D 0.5-3 m, d 0.1-3 mm) for D = %s and d = %s: the energy is extrapolated, treat it with caution.", Quantity(a, "m"), Quantity(b, "m"))
+		return fmt.Sprintf("Glor's formula is outside its range (D 0.5-3 m, d 0.1-3 mm) for D = %s and d = %s: the energy is taken at the nearest edge of the range, never less.", Quantity(a, "m"), Quantity(b, "m"))
 	case ReasonConeSizeUnknown:
 		return "A cone discharge is possible, but the silo diameter or the particle size is missing: its energy is unknown."
 	case ReasonBagAllowed:
@@ -187,6 +192,14 @@ func (r Reason) Text(a, b float64) string {
 		return fmt.Sprintf("The charging current density %s exceeds about %s: the process can charge the layer to a propagating brush whatever a field meter reads (BG RCI FAQ 1.12).", Quantity(a, "A/m^2"), Quantity(b, "A/m^2"))
 	case ReasonPropPneumatic:
 		return fmt.Sprintf("Pneumatic conveying through or over an insulating pipe, hose or liner can build a double layer that gives propagating brush discharges (from memory; taken at its upper estimate %s).", Quantity(a, "J"))
+	case ReasonSparkEarthedBound:
+		return fmt.Sprintf("No charging mechanism is on the row; earthed through %s, even the worst-case industrial 100 uA would hold it at %s, below the spark floor.", Quantity(b, "ohm"), Quantity(a, "V"))
+	case ReasonBrushPowder:
+		return fmt.Sprintf("The charged powder, its cloud and its sack or liner can give brush discharges (equivalent energy %s); they ignite gases, vapours and hybrid mixtures (IEC TS 60079-32-1).", Quantity(a, "J"))
+	case ReasonBrushPowderNoCharge:
+		return "The row shows the powder does not charge (charge-to-mass or charging current of zero): no brush discharge from it."
+	case ReasonConeFieldAndVessel:
+		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m^3: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
 	}
 	return "Unknown reason."
 }
@@ -273,6 +286,8 @@ const (
 	AssumedOverEarthFree
 	AssumedStricterGeometry
 	AssumedSurfaceCapacitanceFree
+	AssumedGroupIIC
+	AssumedVesselSize
 	numAssumptions = iota
 )
 
@@ -280,7 +295,7 @@ const (
 func assumptionTexts() [numAssumptions]string {
 	return [numAssumptions]string{
 		"capacitance not measured: estimated (see the capacitance model)",
-		"resistance to earth not given: taken as not earthed",
+		"resistance to earth not given: taken as not earthed (no leakage)",
 		"charging time not given: steady-state potential I R",
 		"charging current of a walking person taken as 1 uA (Jonassen)",
 		"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR)",
@@ -305,6 +320,8 @@ func assumptionTexts() [numAssumptions]string {
 		"distance to earth not small against the sheet: the parallel-plate split is outside its range, the free finite sheet is used",
 		"two geometries are plausible: the stricter (larger charge density) is used",
 		"capacitance of the conducting surface not measured: the isolated disc of equal area (8 eps0 r), the smaller and so stricter estimate for a charge read on it",
+		"gas group not given: assessed as IIC, the strictest group",
+		"vessel size not given: the largest class of the size table (1000 pF)",
 	}
 }
 
@@ -329,6 +346,9 @@ const (
 	FlagBagCurrentAboveQualified
 	FlagBreakdownContradiction
 	FlagHumidityContradiction
+	FlagCappedConductor
+	FlagAssumedResistance
+	FlagMeasuredAboveMaximum
 	numFlags = iota
 )
 
@@ -338,7 +358,7 @@ func flagTexts() [numFlags]string {
 		"reading beyond what air can hold: check the reading and its unit",
 		"potential capped at the corona onset of the conductor's radius",
 		"body potential capped at the documented walking-test maximum",
-		"Glor's formula used outside its validity range (D 0.5-3 m, d 0.1-3 mm): extrapolated",
+		"Glor's formula outside its validity range (D 0.5-3 m, d 0.1-3 mm): the value at the nearest edge of the range used, never less",
 		"the layer can support a propagating brush if charged to 2.5e-4 C/m^2",
 		"the dissipative surface decays more slowly than it reaches the hazard",
 		"stored energy above the shock threshold",
@@ -348,6 +368,9 @@ func flagTexts() [numFlags]string {
 		"charging current above the 3 uA the type C/D qualification assumes",
 		"the layer holds a voltage above its breakdown voltage: check the reading and its unit, the thickness and the breakdown value (a bulk strength understates a thin film's)",
 		"the reading shows charge above the screen although the humidity model finds the surface dissipative and earthed: the reading stands; check the surface resistivity at this RH, the earthing and the reading",
+		"unmeasured potential capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)",
+		"potential estimated with the resistance to earth unknown (no leakage): the energy is set by that assumption; measure the resistance or the potential",
+		"measured potential above the realistic plant maximum: check the reading, its unit and the object",
 	}
 }
 
@@ -380,7 +403,7 @@ func missingTexts() [numMissing]string {
 		"needs Field distance for the Field reading",
 		"needs Thickness of the layer on its earthed backing",
 		"needs Backing earthed with Thickness, or Distance to earth, to use a Surface potential",
-		"needs Surface potential, Charging current (or Mass flow and Charge-to-mass) or Resistance to earth",
+		"no charging mechanism on the row and not earthed within the limit: measure its Surface potential in operation, or its Charging current (or Mass flow and Charge-to-mass), and its Resistance to earth",
 		"needs Surface potential or Resistance to earth",
 		"needs Diameter and Particle size for the cone discharge energy",
 		"needs Speed and Diameter of the line, or Charging current",

@@ -203,6 +203,14 @@ func testAudit() *assess.Audit {
 		{ObjectID: "O7", StationID: "S3", Check: "insulating-area", Severity: assess.Marginal,
 			Message: "belt charge density 5 µC/m²; no atmosphere, requirement checked only", Mitigation: "Use a belt of dissipative rubber."},
 	}
+	for i := range f {
+		// Each finding carries the basis of its check, as the assessment writes it.
+		for k := assess.Check(0); k < assess.NumChecks; k++ {
+			if k.Name() == f[i].Check {
+				f[i].Basis = k.Basis()
+			}
+		}
+	}
 	byObj := func(id string) []assess.Finding {
 		var out []assess.Finding
 		for _, x := range f {

@@ -121,6 +121,7 @@ type jsonFinding struct {
 	Severity   string `json:"severity"`
 	Message    string `json:"message"`
 	Mitigation string `json:"mitigation"`
+	Basis      string `json:"basis"`
 }
 
 type jsonDefault struct {
@@ -175,6 +176,9 @@ type jsonObject struct {
 	EnergyJP05             *float64         `json:"energy_J_p05,omitempty"`
 	EnergyJP50             *float64         `json:"energy_J_p50,omitempty"`
 	EnergyJP95             *float64         `json:"energy_J_p95,omitempty"`
+	// EnergyNote qualifies energy_J where the number is not to be read as it
+	// stands: "at least the MIE (assumed resistance dominates)".
+	EnergyNote string `json:"energy_note,omitempty"`
 }
 
 type jsonProblem struct {
@@ -332,6 +336,9 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		if jo.EnergyJ != nil && *jo.EnergyJ > 0 {
 			jo.EffectiveDischarge = strPtr(e.Effective.String())
 		}
+		if assess.AssumedResistanceDominates(e, e.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
+			jo.EnergyNote = EnergyAtLeastMIE
+		}
 	}
 	for i, d := range e.Discharges {
 		// The array index is the type (fixed order of model.Evaluation.Discharges).
@@ -341,7 +348,7 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		})
 	}
 	for _, f := range o.Findings {
-		jo.Findings = append(jo.Findings, jsonFinding{f.Check, f.Severity.String(), f.Message, f.Mitigation})
+		jo.Findings = append(jo.Findings, jsonFinding{f.Check, f.Severity.String(), f.Message, f.Mitigation, f.Basis})
 	}
 	for _, d := range o.Defaults {
 		jo.Defaults = append(jo.Defaults, jsonDefault{d.Field, d.Value, d.Reason})

@@ -7,6 +7,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
+
+	"github.com/sparkmargin/sparkmargin/model"
 )
 
 func testInfo() RunInfo {
@@ -112,5 +114,23 @@ func TestWriteJSONNulls(t *testing.T) {
 	ds, _ := obj["O2"]["discharges"].([]any)
 	if len(ds) != 5 || ds[0].(map[string]any)["type"] != "spark" || ds[2].(map[string]any)["type"] != "propagating_brush" {
 		t.Errorf("discharges = %v, want the five types in contract order", ds)
+	}
+}
+
+// TestEnergyAtLeastMIE: a spark energy set by an unknown resistance (no leakage
+// assumed) that reaches the MIE is shown as "at least the MIE (assumed resistance
+// dominates)" beside the number in the JSON and instead of it on the Objects sheet,
+// not as the estimate (issue 11: no kilojoule sparks nobody would sign).
+func TestEnergyAtLeastMIE(t *testing.T) {
+	a := testAudit()
+	o := a.Objects[4] // O5: the drum sparking 113 mJ against 10 mJ (ratio 11.3)
+	o.Eval.Flags |= model.FlagAssumedResistance
+	jo := objectJSON(&o)
+	if jo.EnergyNote != EnergyAtLeastMIE {
+		t.Errorf("energy_note %q, want %q", jo.EnergyNote, EnergyAtLeastMIE)
+	}
+	o.Eval.Flags &^= model.FlagAssumedResistance
+	if jo := objectJSON(&o); jo.EnergyNote != "" {
+		t.Errorf("measured resistance: energy_note %q, want none", jo.EnergyNote)
 	}
 }

@@ -91,6 +91,8 @@ func siDisplayUnit(si string) Unit {
 		return UnitOhm
 	case "ohm m":
 		return UnitOhmM
+	case "F":
+		return UnitPF
 	case "S/m":
 		return UnitPSPerM
 	case "m^2/s":
@@ -113,50 +115,57 @@ func siDisplayUnit(si string) Unit {
 func limitLabel(name string) string {
 	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
 	labels := map[string]string{
-		"BrushChargeDensity":   "Brush discharge: charge-density screen",
-		"BrushEnergy":          "Brush discharge: equivalent energy",
-		"BrushArea":            "Brush discharge: area one discharge drains",
-		"TransferredCharge":    "Transferred charge, EPL Gb/Gc (zones 1, 2)",
-		"ZoneZeroChargeFactor": "Zone 0 factor on the transferred charge",
-		"AreaGa":               "Insulating area, EPL Ga (zone 0)",
-		"AreaGb":               "Insulating area, EPL Gb/Gc (zones 1, 2)",
-		"PropagatingDensity":   "Propagating brush: charge density it needs",
-		"PropagatingBreakdown": "Propagating brush: layer breakdown below which it is prevented",
-		"PropagatingThickness": "Propagating brush: thickness above which it is not expected",
-		"PropagatingMaxEnergy": "Propagating brush: upper bound of the energy",
-		"ConductorEarthing":    "Conductor resistance to earth",
-		"PersonEarthing":       "Person-to-earth resistance",
-		"PersonEarthingMIE":    "Person-to-earth limit applies at MIE up to",
-		"ShockEnergy":          "Shock energy to people",
-		"SafePotential":        "Safe conductor potential",
-		"SparkMinPotential":    "Spark minimum potential (Paschen)",
-		"AirBreakdown":         "Air breakdown field",
-		"NotEarthed":           "Resistance taken when not measured",
-		"PersonMaxPotential":   "Cap on an estimated body potential",
-		"LowConductivity":      "Liquid: low conductivity at or below",
-		"HighConductivity":     "Liquid: high conductivity above",
-		"VDHigh":               "Liquid filling: v·d limit above the conductivity bound",
-		"VDLow":                "Liquid filling: v·d limit at or below it, or unknown",
-		"VDKappa":              "Liquid filling: conductivity bound of the v·d limits",
-		"MaxVelocity":          "Liquid filling: maximum velocity",
-		"SlowStartVelocity":    "Liquid filling: velocity until the inlet is submerged",
-		"BagCToTab":            "Bag type C: any point to the earthing tab",
-		"BagTabToEarth":        "Bag type C: tab to plant earth",
-		"BagMinMIE":            "Bags C and D: lowest MIE of their qualification",
-		"BagMaxCurrent":        "Bags C and D: charging current of their qualification",
-		"MaxChargingCurrent":   "Largest charging current taken when none is known",
-		"DissipativeSurface":   "Surface resistance counted as dissipative",
-		"DissipativeEarthing":  "Earthing of a dissipative surface",
-		"ConeResistivity":      "Cone discharge: bulk resistivity needed",
-		"ConeChargeToMass":     "Cone discharge: charge-to-mass needed",
-		"ConeField":            "Cone discharge: heap field below which none is expected",
-		"ConeMinVolume":        "Cone discharge: container volume below which none is expected",
-		"BagDustLow":           "Bags: MIE band boundary (low)",
-		"BagDustHigh":          "Bags: MIE band boundary (high)",
+		"BrushChargeDensity":      "Brush discharge: charge-density screen",
+		"BrushEnergy":             "Brush discharge: equivalent energy",
+		"BrushArea":               "Brush discharge: area one discharge drains",
+		"TransferredCharge":       "Transferred charge, EPL Gb/Gc (zones 1, 2)",
+		"ZoneZeroChargeFactor":    "Zone 0 factor on the transferred charge",
+		"AreaGa":                  "Insulating area, EPL Ga (zone 0)",
+		"AreaGb":                  "Insulating area, EPL Gb/Gc (zones 1, 2)",
+		"PropagatingDensity":      "Propagating brush: charge density it needs",
+		"PropagatingBreakdown":    "Propagating brush: layer breakdown below which it is prevented",
+		"PropagatingThickness":    "Propagating brush: thickness above which it is not expected",
+		"PropagatingMaxEnergy":    "Propagating brush: upper bound of the energy",
+		"ConductorEarthing":       "Conductor resistance to earth",
+		"PersonEarthing":          "Person-to-earth resistance",
+		"PersonEarthingMIE":       "Person-to-earth limit applies at MIE up to",
+		"ShockEnergy":             "Shock energy to people",
+		"SafePotential":           "Safe conductor potential",
+		"SparkMinPotential":       "Spark minimum potential (Paschen)",
+		"AirBreakdown":            "Air breakdown field",
+		"NotEarthed":              "Resistance shown when not measured (the potential is computed with no leakage)",
+		"PersonMaxPotential":      "Cap on an estimated body potential",
+		"LowConductivity":         "Liquid: low conductivity at or below",
+		"HighConductivity":        "Liquid: high conductivity above",
+		"VDHigh":                  "Liquid filling: v·d limit above the conductivity bound",
+		"VDLow":                   "Liquid filling: v·d limit at or below it, or unknown",
+		"VDKappa":                 "Liquid filling: conductivity bound of the v·d limits",
+		"MaxVelocity":             "Liquid filling: maximum velocity",
+		"SlowStartVelocity":       "Liquid filling: velocity until the inlet is submerged",
+		"BagCToTab":               "Bag type C: any point to the earthing tab",
+		"BagTabToEarth":           "Bag type C: tab to plant earth",
+		"BagMinMIE":               "Bags C and D: lowest MIE of their qualification",
+		"BagMaxCurrent":           "Bags C and D: charging current of their qualification",
+		"MaxChargingCurrent":      "Largest charging current taken when none is known",
+		"DissipativeSurface":      "Surface resistance counted as dissipative",
+		"DissipativeEarthing":     "Earthing of a dissipative surface",
+		"ConeResistivity":         "Cone discharge: bulk resistivity needed",
+		"ConeChargeToMass":        "Cone discharge: charge-to-mass needed",
+		"ConeField":               "Cone discharge: heap field below which none is expected",
+		"ConeMinVolume":           "Cone discharge: container volume below which none is expected",
+		"BagDustLow":              "Bags: MIE band boundary (low)",
+		"BagDustHigh":             "Bags: MIE band boundary (high)",
+		"ConductorMaxPotential":   "Cap on an unmeasured conductor potential",
+		"SmallPartCapacitance":    "Small metal part exempt from earthing below",
+		"SmallPartCapacitanceIIC": "Small metal part exempt from earthing below (IIC, zone 0)",
+		"DustBrushMIE":            "Dust screened for brush discharges below MIE",
 	}
 	l, ok := labels[field]
 	if !ok {
 		l = field
+	}
+	if field == "TransferredCharge" && strings.HasPrefix(group, "III") {
+		l = "Transferred charge, dust (against propagating brush discharges)"
 	}
 	if indexed {
 		if group == "other" {
@@ -230,6 +239,16 @@ func (wb *workbook) method() error {
 	}
 	if a.Options.Samples > 0 {
 		if err := put(boldText("Uncertainty"), text(fmt.Sprintf("Monte Carlo, %d samples per object, seed %d", a.Options.Samples, a.Options.Seed))); err != nil {
+			return err
+		}
+	}
+	r++
+
+	if err := section("Principles", nil); err != nil {
+		return err
+	}
+	for _, p := range templates.Principles() {
+		if err := put(cell{v: p.Title, wrap: true, bold: true}, wrapText(p.Text)); err != nil {
 			return err
 		}
 	}

@@ -50,6 +50,10 @@ func dischargeReason(d model.Discharge) string {
 
 // hasDefault reports whether one of the object's assumed defaults stands for
 // the named quantity (case-insensitive, "Capacitance" matches "capacitance of the drum").
+// EnergyAtLeastMIE is how the audit shows an energy set by an assumed (unknown)
+// resistance to earth that reaches the MIE: not as the estimate's kilojoules.
+const EnergyAtLeastMIE = "at least the MIE (assumed resistance dominates)"
+
 func hasDefault(o *assess.ObjectResult, names ...string) bool {
 	for _, d := range o.Defaults {
 		f := strings.ToLower(d.Field)
@@ -157,6 +161,9 @@ func objectColumns(withProbability bool) []column[objRow] {
 			if o.Eval.NotAssessed != 0 {
 				return cell{numFmt: UnitMJ.NumFmt()}
 			}
+			if assess.AssumedResistanceDominates(&o.Eval, o.Eval.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
+				return wrapText(EnergyAtLeastMIE)
+			}
 			c := quantity(UnitMJ, o.Eval.EffectiveEnergy)
 			switch {
 			case o.Eval.EffectiveEnergy <= 0:
@@ -228,6 +235,9 @@ func objectColumns(withProbability bool) []column[objRow] {
 			}
 			if o.Atmosphere.GroupFromSubstance {
 				return code(o.Atmosphere.Group + " est.")
+			}
+			if o.Atmosphere.Group == "" && hasDefault(o, "group") {
+				return code(o.Environment.Group.String() + " est.")
 			}
 			return code(o.Atmosphere.Group)
 		}},

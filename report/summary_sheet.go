@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
 	"github.com/xuri/excelize/v2"
@@ -63,7 +64,7 @@ func (wb *workbook) summary() error {
 		{text("Site"), text(siteName(a))},
 		{text("Survey date"), text(dateText(a))},
 		{text("Surveyed by"), optText(site.SurveyedBy)},
-		{text(UnitPercentRH.Header("Relative humidity")), est(inQ(UnitPercentRH, site.RelativeHumidity), siteDefaulted(site.Defaults, "humidity"))},
+		{text(UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
 		{text(UnitCelsius.Header("Air temperature")), est(inQ(UnitCelsius, site.AirTemperature), siteDefaulted(site.Defaults, "temperature"))},
 		{text(UnitDimless.Header("Required margin")), est(inQ(UnitDimless, site.RequiredMargin), siteDefaulted(site.Defaults, "margin"))},
 		{text("Survey file"), optText(wb.info.file(a))},
@@ -290,4 +291,14 @@ func siteDefaulted(defaults []string, word string) bool {
 		}
 	}
 	return false
+}
+
+// siteHumidityCell shows the site's relative humidity, or, when the Site sheet
+// gives none (an error that check reports), the value the assessment used for
+// stations without their own, marked as estimated.
+func siteHumidityCell(site inventory.Site) cell {
+	if !site.RelativeHumidity.Known {
+		return est(quantity(UnitPercentRH, assess.DryDayHumidity), true)
+	}
+	return est(inQ(UnitPercentRH, site.RelativeHumidity), siteDefaulted(site.Defaults, "humidity"))
 }

@@ -52,6 +52,9 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 		total += a.Counts[v]
 	}
 	fmt.Fprintf(w, "\nObjects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
+	if a.Survey != nil && !a.Survey.Site.RelativeHumidity.Known {
+		fmt.Fprintf(w, "Warning: the Site sheet gives no relative humidity (an error for check): stations without their own were assessed at the dry-day %g %%RH, shown on the Summary sheet\n", assess.DryDayHumidity)
+	}
 	if sampled {
 		fmt.Fprintf(w, "Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet)\n", a.Options.Samples, a.Options.Seed)
 	}

@@ -5,6 +5,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -31,5 +32,24 @@ func TestWriteSummaryGolden(t *testing.T) {
 	}
 	if strings.Contains(s, "\x1b[") {
 		t.Error("summary holds terminal colour codes")
+	}
+}
+
+// TestWriteSummaryBlankSiteHumidity: a Site sheet without RH (an error for check)
+// is assessed at the dry-day value, and the terminal says so with the value used.
+func TestWriteSummaryBlankSiteHumidity(t *testing.T) {
+	a := testAudit()
+	s := *a.Survey
+	s.Site.RelativeHumidity = inventory.Quantity{}
+	a.Survey = &s
+	var b bytes.Buffer
+	if err := WriteSummary(&b, a); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(b.String(), "no relative humidity") || !strings.Contains(b.String(), "30 %RH") {
+		t.Errorf("no warning with the RH used:\n%s", b.String())
+	}
+	if c := siteHumidityCell(s.Site); c.v == nil || !c.est {
+		t.Errorf("Summary RH cell %+v, want the dry-day value marked est.", c)
 	}
 }

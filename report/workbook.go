@@ -401,6 +401,7 @@ func findingColumns() []column[findingRow] {
 		{"Check", 18, func(r findingRow) cell { return text(r.f.Check) }},
 		{"Finding", 50, func(r findingRow) cell { return wrapText(r.f.Message) }},
 		{"Mitigation", 50, func(r findingRow) cell { return wrapText(r.f.Mitigation) }},
+		{"Basis", 40, func(r findingRow) cell { return wrapText(r.f.Basis) }},
 		{"Action owner", 14, func(findingRow) cell { return cell{} }},
 		{"Due", 10, func(findingRow) cell { return cell{} }},
 		{"Status", 10, func(findingRow) cell { return cell{} }},

@@ -8,6 +8,29 @@ import (
 //go:embed method.txt
 var method string
 
+//go:embed principles.txt
+var principles string
+
+// Principle is one safety principle every rule of the assessment follows.
+type Principle struct {
+	Title string
+	Text  string
+}
+
+// Principles returns the safety principles, in the order of principles.txt.
+func Principles() []Principle {
+	var out []Principle
+	for _, l := range strings.Split(principles, "\n") {
+		l = strings.TrimSpace(l)
+		if l == "" || strings.HasPrefix(l, "#") {
+			continue
+		}
+		title, text, _ := strings.Cut(l, "|")
+		out = append(out, Principle{Title: strings.TrimSpace(title), Text: strings.TrimSpace(text)})
+	}
+	return out
+}
+
 // MethodNote is one formula of the Method sheet with where it applies and its source.
 type MethodNote struct {
 	Quantity  string

@@ -212,6 +212,14 @@ func (x *objectContext) environment(st *inventory.Station) (model.Environment, *
 	if a.GroupFromSubstance && a.Group != "" {
 		defs = append(defs, Default{Field: "Group", Value: a.Group, Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
 	}
+	if e, assumed := env.WithStrictGroup(); assumed {
+		// Unknown means the stricter case: the brush screen, transferred charge and area limits of IIC.
+		env = e
+		defs = append(defs, Default{Field: "Group", Value: env.Group.String(), Reason: fmt.Sprintf("atmosphere %s (%s) gives no gas group: assessed as IIC, the strictest group (common practice, no source)", a.ID, kind)})
+		if a.Group != "" {
+			defs[len(defs)-1].Reason = fmt.Sprintf("atmosphere %s (%s) gives only the dust group %s: its gas is assessed as IIC, the strictest group (common practice, no source)", a.ID, kind, a.Group)
+		}
+	}
 	if strings.TrimSpace(a.Zone) == "" {
 		// An unclassified area may have to be treated as the strictest zone (TRGS 723, reference section 11).
 		env.Zone = model.Zone0
@@ -334,7 +342,13 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 	}
 	earthingMatters := IsConductorRow(in, ev) || in.Kind == model.Person || (in.Kind == model.Bag && in.BagType == model.BagC)
 	if math.IsNaN(in.Resistance) && earthingMatters {
-		defs = append(defs, Default{Field: "Resistance to earth", Value: ohm(x.lim.NotEarthed), Reason: "not measured: taken as not earthed"})
+		defs = append(defs, Default{Field: "Resistance to earth", Value: "not earthed", Reason: "not measured: taken as not earthed, with no leakage (the stricter case for any measured resistance)"})
+	}
+	if IsConductorRow(in, ev) && SmallPartExempt(in, &r.Environment, x.lim) && !(in.Resistance <= x.lim.ConductorEarthing) {
+		defs = append(defs, Default{Field: "Earthing requirement", Value: "exempt", Reason: fmt.Sprintf("measured capacitance %s below the %s small-part exemption of IEC 60079-0 (from memory): it need not be earthed; its spark energy is still judged", pF(in.Capacitance), pF(SmallPartLimit(&r.Environment, x.lim)))})
+	}
+	if ev.Flags&model.FlagCappedConductor != 0 {
+		defs = append(defs, Default{Field: "Conductor potential", Value: kV(ev.Potential), Reason: "not measured: the estimate is capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)"})
 	}
 	if ev.Discharges[model.Brush].Possible {
 		defs = append(defs, Default{Field: "Brush discharge energy", Value: mJ(x.lim.BrushEnergy), Reason: "equivalent energy of a brush discharge: the upper end of the published 3-4 mJ (documented choice)"})

@@ -44,57 +44,70 @@ const (
 	CheckLayerBreakdown
 	// CheckReadingVsHumidity: a reading shows charge above the screen on a surface the humidity model finds dissipative and earthed.
 	CheckReadingVsHumidity
+	// CheckMeasuredAboveMaximum: a measured conductor potential above the realistic
+	// plant maximum, a contradiction between reading and model (the reading is kept).
+	CheckMeasuredAboveMaximum
 	// NumChecks is the number of checks.
 	NumChecks
 )
 
+// checkDef is one row of the check table: the stable name, the verdict the
+// check alone implies when it fails, and the ground it rests on (standard, clause
+// or table and edition, or a screening choice of this tool).
+type checkDef struct {
+	name     string
+	severity Verdict
+	basis    string
+}
+
+// checkTable is the one table that defines each check; adding a check touches it
+// and the constant list above.
+func checkTable() [NumChecks]checkDef {
+	return [NumChecks]checkDef{
+		CheckEnergyMIE:            {"energy-vs-mie", Incendive, "effective energy against the atmosphere's MIE: IEC TS 60079-32-1:2013+A1:2017; JNIOSH-TR (W = C V^2/2); brush 3-4 mJ equivalent, CLC/TR 50404 summaries"},
+		CheckEnergyMargin:         {"energy-vs-margin", Marginal, "the site's required margin below the MIE: a site choice (default 10), not a standard value"},
+		CheckTransferredCharge:    {"transferred-charge", Incendive, "IEC 60079-0:2017 cl. 7.4.2 transferred-charge limits (gas groups 60/25/10 nC; Group III 200 nC against propagating brush discharges; from memory), test method IEC 60079-32-2:2015"},
+		CheckInsulatingArea:       {"insulating-area", Marginal, "IEC 60079-0:2017 cl. 7.4 insulating surface area limits by EPL and group (from memory)"},
+		CheckConductorEarthing:    {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 Mohm; small parts below the IEC 60079-0:2017 capacitance exemption excepted"},
+		CheckPersonEarthing:       {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 Mohm in zones 0, 1, 20, 21 where the MIE is at most 10 mJ"},
+		CheckShockEnergy:          {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ"},
+		CheckFillingVelocity:      {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 filling limits, v d of 0.5 or 0.38 m^2/s by conductivity (road-tanker values)"},
+		CheckVelocityCeiling:      {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017: 7 m/s ceiling on filling velocity (from memory)"},
+		CheckSlowStart:            {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017: 1 m/s until the inlet is submerged (from memory)"},
+		CheckLowConductivity:      {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017: liquids at or below 50 pS/m keep their charge"},
+		CheckBagType:              {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types"},
+		CheckBagEarthing:          {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 Mohm while filling and emptying"},
+		CheckBagQualification:     {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 uA"},
+		CheckLayerBreakdown:       {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); a layer holding more than its breakdown is a contradiction between reading and model (a screening choice of this tool)"},
+		CheckReadingVsHumidity:    {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)"},
+		CheckMeasuredAboveMaximum: {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept"},
+	}
+}
+
 // Name returns the stable kebab-case name of the check, used in findings, JSON and mitigation keys.
 func (c Check) Name() string {
-	switch c {
-	case CheckEnergyMIE:
-		return "energy-vs-mie"
-	case CheckEnergyMargin:
-		return "energy-vs-margin"
-	case CheckTransferredCharge:
-		return "transferred-charge"
-	case CheckInsulatingArea:
-		return "insulating-area"
-	case CheckConductorEarthing:
-		return "conductor-earthing"
-	case CheckPersonEarthing:
-		return "person-earthing"
-	case CheckShockEnergy:
-		return "shock-energy"
-	case CheckFillingVelocity:
-		return "filling-velocity"
-	case CheckVelocityCeiling:
-		return "velocity-ceiling"
-	case CheckSlowStart:
-		return "slow-start"
-	case CheckLowConductivity:
-		return "low-conductivity"
-	case CheckBagType:
-		return "bag-type"
-	case CheckBagEarthing:
-		return "bag-earthing"
-	case CheckBagQualification:
-		return "bag-qualification"
-	case CheckLayerBreakdown:
-		return "layer-breakdown-contradiction"
-	case CheckReadingVsHumidity:
-		return "reading-vs-humidity"
+	if c >= NumChecks {
+		return "unknown"
 	}
-	return "unknown"
+	return checkTable()[c].name
 }
 
 // Severity returns the verdict the check alone implies when it fails: Incendive
 // for the energy reaching the MIE and for transferred charge, Marginal for the rest.
 func (c Check) Severity() Verdict {
-	switch c {
-	case CheckEnergyMIE, CheckTransferredCharge:
-		return Incendive
+	if c >= NumChecks {
+		return Marginal
 	}
-	return Marginal
+	return checkTable()[c].severity
+}
+
+// Basis returns the ground the check rests on: the standard, clause or table and
+// edition, or "a screening choice of this tool". Findings carry it.
+func (c Check) Basis() string {
+	if c >= NumChecks {
+		return ""
+	}
+	return checkTable()[c].basis
 }
 
 // CheckSet is a bit set of checks.
@@ -158,37 +171,49 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	c := Classification{Verdict: NonIncendive, Ratio: math.NaN(), Energy: math.NaN()}
 	hasAtm := env.Atmosphere != model.NoAtmosphere
 
+	// With inputs missing, the discharges the model could evaluate still give a
+	// lower bound on the effective energy: one that reaches the MIE (or the margin)
+	// is a finding whatever the missing inputs would add (a known hazard is never
+	// hidden behind "not assessed").
+	lowerBound := math.NaN()
 	if ev.NotAssessed != 0 {
 		c.Cause = CauseMissingInputs
-		// A discharge the model did judge is never hidden by an input it lacked
-		// for another one (e.g. the spark of an unearthed conducting surface):
-		// its energy is still compared with the MIE.
-		if e, d := EffectiveEnergy(env, ev); e > 0 {
-			c.Energy, c.Discharge = e, d
+		if e, _ := EffectiveEnergy(env, ev, lim); e > 0 {
+			lowerBound = e
 		}
 	} else {
-		c.Energy, c.Discharge = EffectiveEnergy(env, ev)
+		c.Energy, c.Discharge = EffectiveEnergy(env, ev, lim)
 		if math.IsNaN(c.Energy) {
 			c.Cause = CauseNoEnergy
 		}
 	}
 
 	if hasAtm {
-		if c.Cause == CauseNone || (c.Cause == CauseMissingInputs && c.Energy > 0) {
-			mie := env.MIE
-			if !(mie > 0) || math.IsInf(mie, 0) {
-				c.Cause = CauseNoMIE
-			} else {
+		mie := env.MIE
+		switch {
+		case c.Cause == CauseNone && (!(mie > 0) || math.IsInf(mie, 0)):
+			c.Cause = CauseNoMIE
+		case c.Cause == CauseNone:
+			c.Ratio = c.Energy / mie
+			switch {
+			case c.Energy >= mie:
+				c.Failed = c.Failed.Add(CheckEnergyMIE)
+			case margin > 0 && c.Energy >= mie/margin:
+				c.Failed = c.Failed.Add(CheckEnergyMargin)
+			}
+		case lowerBound > 0 && mie > 0:
+			switch {
+			case lowerBound >= mie:
+				c.Failed = c.Failed.Add(CheckEnergyMIE)
+			case margin > 0 && lowerBound >= mie/margin:
+				c.Failed = c.Failed.Add(CheckEnergyMargin)
+			}
+			if c.Failed.Has(CheckEnergyMIE) || c.Failed.Has(CheckEnergyMargin) {
+				c.Energy, c.Discharge = EffectiveEnergy(env, ev, lim)
 				c.Ratio = c.Energy / mie
-				switch {
-				case c.Energy >= mie:
-					c.Failed = c.Failed.Add(CheckEnergyMIE)
-				case margin > 0 && c.Energy >= mie/margin:
-					c.Failed = c.Failed.Add(CheckEnergyMargin)
-				}
 			}
 		}
-		if q, limQ := InsulatorCharge(ev), TransferredChargeLimit(env, lim); q > limQ {
+		if q, limQ := ChargeAgainstLimit(env, ev), TransferredChargeLimit(env, lim); q > limQ {
 			c.Failed = c.Failed.Add(CheckTransferredCharge)
 		}
 		// Type C and D bags are qualified by their own test, not by an area limit.
@@ -199,7 +224,7 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
-		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) {
+		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) && !SmallPartExempt(in, env, lim) {
 			c.Failed = c.Failed.Add(CheckConductorEarthing)
 		}
 		if PersonEarthingApplies(in, env, lim) && !(in.Resistance <= lim.PersonEarthing) {
@@ -245,6 +270,9 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	if ShockEnergy(in, ev) > lim.ShockEnergy {
 		c.Failed = c.Failed.Add(CheckShockEnergy)
 	}
+	if ev.Flags&model.FlagMeasuredAboveMaximum != 0 {
+		c.Failed = c.Failed.Add(CheckMeasuredAboveMaximum)
+	}
 
 	worst := -1
 	for k := Check(0); k < NumChecks; k++ {
@@ -261,10 +289,11 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 
 // EffectiveEnergy returns the largest energy among the possible discharges and its
 // type, from the model's result. A brush discharge is not compared with a pure dust
-// cloud (it does not ignite one: CCPS glossary, reference section 3); should the model
-// offer one there, the next largest discharge is taken instead. 0 when none is possible.
-func EffectiveEnergy(env *model.Environment, ev *model.Evaluation) (float64, model.DischargeType) {
-	if env.Atmosphere != model.Dust || ev.Effective != model.Brush || !(ev.EffectiveEnergy > 0) {
+// cloud of MIE at or above Limits.DustBrushMIE (it does not ignite one: CCPS
+// glossary, reference sections 3 and 12); should the model offer one there, the
+// next largest discharge is taken instead. 0 when none is possible.
+func EffectiveEnergy(env *model.Environment, ev *model.Evaluation, lim *model.Limits) (float64, model.DischargeType) {
+	if model.BrushIgnites(*env, *lim) || ev.Effective != model.Brush || !(ev.EffectiveEnergy > 0) {
 		return ev.EffectiveEnergy, ev.Effective
 	}
 	e, t := 0.0, model.Spark
@@ -278,6 +307,42 @@ func EffectiveEnergy(env *model.Environment, ev *model.Evaluation) (float64, mod
 		}
 	}
 	return e, t
+}
+
+// ChargeAgainstLimit returns the charge compared with the transferred-charge
+// limit: in a gas, vapour, mist or hybrid atmosphere the largest charge of a
+// possible brush or propagating brush discharge (InsulatorCharge); in a dust
+// atmosphere that of a possible propagating brush discharge only, the discharge
+// the Group III limit of IEC 60079-0 is set against (brush discharges do not ignite
+// dust clouds). NaN when none.
+func ChargeAgainstLimit(env *model.Environment, ev *model.Evaluation) float64 {
+	if env.Atmosphere != model.Dust {
+		return InsulatorCharge(ev)
+	}
+	if d := &ev.Discharges[model.PropagatingBrush]; d.Possible {
+		return d.Charge
+	}
+	return math.NaN()
+}
+
+// SmallPartExempt reports whether a conductor row is exempt from earthing as a
+// small isolated metal part: its measured capacitance is below the IEC 60079-0
+// exemption (Limits.SmallPartCapacitanceIIC, about 3 pF, for group IIC or zone 0
+// (EPL Ga); Limits.SmallPartCapacitance, about 10 pF, otherwise; from memory). Only
+// a measured capacitance exempts: an estimate may not clear a requirement. The
+// spark energy is still judged against the MIE.
+func SmallPartExempt(in *model.Input, env *model.Environment, lim *model.Limits) bool {
+	limC := SmallPartLimit(env, lim)
+	return in.Capacitance > 0 && !in.CapacitanceEstimated && in.Capacitance < limC
+}
+
+// SmallPartLimit returns the capacitance below which an isolated metal part need
+// not be earthed in the environment (see SmallPartExempt).
+func SmallPartLimit(env *model.Environment, lim *model.Limits) float64 {
+	if e, _ := env.WithStrictGroup(); e.Group == model.IIC || env.Zone == model.Zone0 {
+		return lim.SmallPartCapacitanceIIC
+	}
+	return lim.SmallPartCapacitance
 }
 
 // InsulatorCharge returns the largest charge (C) that a possible brush or
@@ -299,17 +364,28 @@ func InsulatorCharge(ev *model.Evaluation) float64 {
 }
 
 // TransferredChargeLimit returns the transferred-charge limit (C) for the
-// atmosphere's gas group: the EPL Gb/Gc value in zones 1 and 2 (and unzoned), times
-// ZoneZeroChargeFactor in zone 0; +Inf where none applies (dust groups, no group).
+// atmosphere's group: the EPL Gb/Gc value of the gas group in zones 1 and 2 (and
+// unzoned), times ZoneZeroChargeFactor in zone 0; for a dust atmosphere the Group
+// III value (200 nC, compared with propagating brush charges only, see
+// ChargeAgainstLimit); +Inf where none applies. A gas, vapour, mist or hybrid
+// atmosphere with no group is taken as IIC (model.Environment.WithStrictGroup).
 func TransferredChargeLimit(env *model.Environment, lim *model.Limits) float64 {
-	if env.Atmosphere == model.NoAtmosphere || !isGasGroup(env.Group) {
+	if env.Atmosphere == model.NoAtmosphere {
 		return math.Inf(1)
 	}
-	q := lim.TransferredCharge[env.Group]
+	e, _ := env.WithStrictGroup()
+	g := e.Group
+	if e.Atmosphere == model.Dust && !g.Dust() {
+		g = model.IIIA // the Group III limit is the same for IIIA, IIIB and IIIC
+	}
+	if !isGasGroup(g) && !g.Dust() {
+		return math.Inf(1)
+	}
+	q := lim.TransferredCharge[g]
 	if !(q > 0) {
 		return math.Inf(1)
 	}
-	if env.Zone == model.Zone0 && lim.ZoneZeroChargeFactor > 0 {
+	if isGasGroup(g) && e.Zone == model.Zone0 && lim.ZoneZeroChargeFactor > 0 {
 		q *= lim.ZoneZeroChargeFactor
 	}
 	return q
@@ -319,7 +395,13 @@ func TransferredChargeLimit(env *model.Environment, lim *model.Limits) float64 {
 // zone and gas group: EPL Ga in zone 0, Gb/Gc in zones 1 and 2; +Inf elsewhere
 // (dust zones have no area limit, since brush discharges do not ignite dust clouds).
 func InsulatingAreaLimit(env *model.Environment, lim *model.Limits) float64 {
-	if env.Atmosphere == model.NoAtmosphere || !isGasGroup(env.Group) {
+	if env.Atmosphere == model.NoAtmosphere {
+		return math.Inf(1)
+	}
+	if e, assumed := env.WithStrictGroup(); assumed {
+		env = &e // a blank gas group is assessed as IIC
+	}
+	if !isGasGroup(env.Group) {
 		return math.Inf(1)
 	}
 	var a float64

@@ -17,9 +17,11 @@
 //
 //	energy-vs-mie        effective energy >= MIE                                  incendive
 //	energy-vs-margin     MIE / required margin <= energy < MIE                    marginal
-//	transferred-charge   charge of one brush discharge > group limit (zone 0: x f) incendive
+//	transferred-charge   charge of one brush discharge > group limit (zone 0: x f;  incendive
+//	                     dust: a propagating brush's > 200 nC)
 //	insulating-area      insulating surface > EPL Ga (zone 0) / Gb (zones 1, 2)   marginal
-//	conductor-earthing   conductor to earth > 1e6 ohm, or not measured            marginal
+//	conductor-earthing   conductor to earth > 1e6 ohm, or not measured (small      marginal
+//	                     parts of measured C < 10 pF, 3 pF in IIC/zone 0, exempt)
 //	person-earthing      person to earth > 1e8 ohm, zones 0/1/20/21, MIE <= 10 mJ  marginal
 //	shock-energy         energy to a person touching it > 350 mJ                  marginal
 //	filling-velocity     liquid v d > 0.5 (kappa > 10 pS/m) or 0.38 m^2/s         marginal
@@ -29,13 +31,19 @@
 //	bag-type             bag type not allowed here (IEC 61340-4-4 usage table)     marginal
 //	bag-earthing         type C bag tab to earth > 1e6 ohm, or not measured       marginal
 //	bag-qualification    type C/D bag with MIE < 0.14 mJ or current > 3 uA        marginal
+//	measured-potential-above-maximum  measured potential > 50 kV: contradiction   marginal
+//
+// Each check's ground (standard, clause or table and edition, or a screening
+// choice of this tool) is in the same table (Check.Basis); every Finding carries it.
 //
 // # Verdicts
 //
 // Classify, pure and allocation-free, gives the worst severity among the failed
 // checks; with none failed, non-incendive, unless the energy could not be judged
 // (the model lacked inputs, or the atmosphere's MIE is unknown), which is "not
-// assessed". An object at a station with no flammable atmosphere has no ratio and
+// assessed". With inputs missing, the discharges the model could evaluate still
+// give a lower bound on the energy: one reaching the MIE or the margin is a
+// finding, never hidden behind "not assessed". An object at a station with no flammable atmosphere has no ratio and
 // is judged on the shock check alone.
 //
 // # Choices where the standards are silent
@@ -52,6 +60,10 @@
 //     describe their receiving container (Resistance or Capacitance given).
 //   - An atmosphere with no zone is assessed in the strictest zone (0, or 20 for
 //     dust), recorded as a default; an explicit zone "none" is taken as written.
+//     A gas, vapour, mist or hybrid atmosphere with no group is assessed as IIC
+//     (brush screen, transferred charge, area limits, bag rules), recorded as a default.
+//   - A blank site RH (an error for check) is assessed at DryDayHumidity, with a
+//     warning on the terminal and the value used on the Summary sheet.
 //   - The transferred-charge limits are applied to brush and propagating brush
 //     discharges (insulating surfaces, for which IEC 60079-0 sets them); sparks
 //     from conductors are judged by their energy (see InsulatorCharge).
@@ -93,7 +105,7 @@
 //	surface or body potential          ±10 %           normal, relative    Uncertainty surface potential [%]
 //	resistance to earth                ±0.5 decade     log-normal          Uncertainty resistance [decades]
 //	capacitance, measured              ±10 %           log-normal          Uncertainty measured capacitance [%]
-//	capacitance, estimated             ±30 %           log-normal          Uncertainty estimated capacitance [%]
+//	capacitance, estimated             ×/÷ 3           log-normal          Uncertainty estimated capacitance [factor]
 //	MIE, dust or hybrid                ×/÷ 2           log-normal          Uncertainty MIE dust [factor]
 //	MIE, gas, vapour or mist           ±20 %           log-normal          Uncertainty MIE gas [%]
 //	charging current                   ×/÷ 2           log-normal          Uncertainty charging current [factor]

@@ -31,6 +31,14 @@ func dischargeWords(t model.DischargeType) string {
 	return "discharge"
 }
 
+// AssumedResistanceDominates reports whether a spark's energy is set by the
+// assumption that an unmeasured resistance to earth leaks nothing: the audit
+// then says "at least the MIE (assumed resistance dominates)" instead of quoting
+// an estimate nobody would sign.
+func AssumedResistanceDominates(ev *model.Evaluation, d model.DischargeType) bool {
+	return d == model.Spark && ev.Flags&model.FlagAssumedResistance != 0
+}
+
 // findings writes one Finding per failed check, in check order.
 func (x *objectContext) findings(r *ObjectResult, c *Classification) []Finding {
 	if c.Failed == 0 {
@@ -49,6 +57,7 @@ func (x *objectContext) findings(r *ObjectResult, c *Classification) []Finding {
 			Severity:   k.Severity(),
 			Message:    msg,
 			Mitigation: mit,
+			Basis:      k.Basis(),
 		})
 	}
 	return out
@@ -106,10 +115,19 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 	switch k {
 	case CheckEnergyMIE:
 		msg = fmt.Sprintf("%s of %s reaches the MIE of %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), ratioText(c.Ratio))
+		if AssumedResistanceDominates(ev, c.Discharge) {
+			// The size of the estimate is an artefact of the unknown resistance: no kilojoules.
+			msg = fmt.Sprintf("%s energy of at least the MIE of %s (assumed resistance dominates: the resistance to earth is not measured, so no leakage is assumed); measure the resistance to earth and the potential in operation", dischargeWords(c.Discharge), mJ(env.MIE))
+		}
 	case CheckEnergyMargin:
 		msg = fmt.Sprintf("%s of %s is below the MIE of %s but reaches MIE / %s = %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), plain(x.margin), mJ(env.MIE/x.margin), ratioText(c.Ratio))
 	case CheckTransferredCharge:
-		msg = fmt.Sprintf("charge transferred by one %s, %s, exceeds the %s limit of %s in %s", dischargeWords(insulatorDischarge(ev)), nC(InsulatorCharge(ev)), env.Group, nC(TransferredChargeLimit(env, lim)), zoneWords(env.Zone))
+		q, grp := ChargeAgainstLimit(env, ev), env.Group.String()
+		d := insulatorDischarge(ev)
+		if env.Atmosphere == model.Dust {
+			d, grp = model.PropagatingBrush, "Group III"
+		}
+		msg = fmt.Sprintf("charge transferred by one %s, %s, exceeds the %s limit of %s in %s", dischargeWords(d), nC(q), grp, nC(TransferredChargeLimit(env, lim)), zoneWords(env.Zone))
 		if in.Kind == model.Bag {
 			mit = templates.Mitigation("transferred-charge.bag")
 		} else {
@@ -230,9 +248,15 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			msg = fmt.Sprintf("charging current %s exceeds the %s the type %s qualification assumes", uA(i), uA(lim.BagMaxCurrent), in.BagType)
 		}
 	}
+	if k == CheckMeasuredAboveMaximum {
+		msg = fmt.Sprintf("measured potential %s is above the realistic plant maximum of %s: a contradiction between reading and model; the reading is kept (W = %s)", kV(ev.Potential), kV(lim.ConductorMaxPotential), mJ(ev.StoredEnergy))
+	}
 	if k == CheckEnergyMIE || k == CheckEnergyMargin {
 		cls := mitigationClass(in, c.Discharge)
 		mit = templates.Mitigation("energy." + cls)
+		if cls == "conductor" && AssumedResistanceDominates(ev, c.Discharge) {
+			mit = templates.Mitigation("energy.conductor.assumed-resistance")
+		}
 		if cls == "insulator" {
 			mit += humiditySentence(in)
 		}

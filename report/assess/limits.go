@@ -42,6 +42,7 @@ const (
 	dimVD
 	dimConductivity
 	dimCurrent
+	dimCapacitance
 )
 
 // unitScale returns the factor from the unit to SI, or false for a unit the dimension does not take.
@@ -75,6 +76,8 @@ func unitScale(d unitDim, unit string) (float64, bool) {
 		t = map[string]float64{"ps/m": 1e-12, "ns/m": 1e-9, "us/m": 1e-6, "s/m": 1}
 	case dimCurrent:
 		t = map[string]float64{"ua": 1e-6, "na": 1e-9, "ma": 1e-3, "a": 1}
+	case dimCapacitance:
+		t = map[string]float64{"pf": 1e-12, "nf": 1e-9, "f": 1}
 	}
 	f, ok := t[u]
 	return f, ok
@@ -113,6 +116,13 @@ func LimitKeys() []LimitKey {
 		{Name: "bag c tab to earth", Unit: "Ω", Note: "BagTabToEarth: type C bag, tab to plant earth", dim: dimResistance, set: func(l *model.Limits, v float64) { l.BagTabToEarth = v }},
 		{Name: "bag minimum mie", Unit: "mJ", Note: "BagMinMIE: MIE the qualification of types C and D assumes", dim: dimEnergy, set: func(l *model.Limits, v float64) { l.BagMinMIE = v }},
 		{Name: "bag maximum current", Unit: "µA", Note: "BagMaxCurrent: charging current the qualification assumes", dim: dimCurrent, set: func(l *model.Limits, v float64) { l.BagMaxCurrent = v }},
+		{Name: "conductor maximum potential", Unit: "kV", Note: "ConductorMaxPotential: cap on an unmeasured conductor potential (a measured one is never capped)", dim: dimPotential, set: func(l *model.Limits, v float64) { l.ConductorMaxPotential = v }},
+		{Name: "small part capacitance", Unit: "pF", Note: "SmallPartCapacitance: a metal part of measured capacitance below it need not be earthed (IIA, IIB, Group III)", dim: dimCapacitance, set: func(l *model.Limits, v float64) { l.SmallPartCapacitance = v }},
+		{Name: "small part capacitance iic", Unit: "pF", Note: "SmallPartCapacitanceIIC: the same for IIC and zone 0", dim: dimCapacitance, set: func(l *model.Limits, v float64) { l.SmallPartCapacitanceIIC = v }},
+		{Name: "dust brush mie", Unit: "mJ", Note: "DustBrushMIE: a dust below this MIE is screened for brush discharges", dim: dimEnergy, set: func(l *model.Limits, v float64) { l.DustBrushMIE = v }},
+		{Name: "transferred charge group iii", Unit: "nC", Note: "TransferredCharge[IIIA-IIIC]: against propagating brush discharges", dim: dimCharge, set: func(l *model.Limits, v float64) {
+			l.TransferredCharge[model.IIIA], l.TransferredCharge[model.IIIB], l.TransferredCharge[model.IIIC] = v, v, v
+		}},
 	}
 	for _, g := range []model.Group{model.IIA, model.IIB, model.IIC} {
 		g := g

@@ -44,6 +44,10 @@ func assumptionField(a model.Assumption) string {
 		return "Charge-to-mass"
 	case model.AssumedProductMIE, model.AssumedProductMIEUnknown:
 		return "Product MIE"
+	case model.AssumedGroupIIC:
+		return "Group"
+	case model.AssumedVesselSize:
+		return "Vessel size"
 	}
 	return "Model assumption"
 }

@@ -270,6 +270,10 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	energies := s.energies[:0]
 	// Every draw overwrites the same fields, so the input is copied once.
 	in, env := r.Input, r.Environment
+	if math.IsNaN(r.Input.Capacitance) {
+		// A drawn capacitance stands for the estimate, never for a measurement.
+		in.CapacitanceEstimated = true
+	}
 	var fields [numTargets]*float64
 	for j := 0; j < plan.n; j++ {
 		fields[j] = plan.draws[j].target.field(&in, &env)

@@ -13,7 +13,7 @@ import (
 // principles require (derived). Each row is drawn over the ranges a survey can
 // give, with every input blank about a third of the time.
 
-func maybe(r *rand.Rand, v float64) float64 {
+func maybeBlank(r *rand.Rand, v float64) float64 {
 	if r.IntN(3) == 0 {
 		return math.NaN()
 	}
@@ -29,21 +29,21 @@ func randomSurface(r *rand.Rand) model.Input {
 	nan := math.NaN()
 	in := model.Input{
 		Kind:     []model.Kind{model.Sheet, model.Belt, model.Roller}[r.IntN(3)],
-		Material: model.Material{Name: "random", Permittivity: maybe(r, 1.5+3*r.Float64()), SurfaceResistivity: maybe(r, logU(r, 1e6, 1e16)), HumiditySlope: []float64{0, 0.3, 0.8, 1}[r.IntN(4)], VolumeResistivity: nan, BreakdownStrength: maybe(r, logU(r, 5e6, 600e6))},
-		Length:   maybe(r, logU(r, 0.05, 20)), Width: maybe(r, logU(r, 0.05, 3)), Diameter: nan,
-		Thickness:       maybe(r, logU(r, 10e-6, 20e-3)),
+		Material: model.Material{Name: "random", Permittivity: maybeBlank(r, 1.5+3*r.Float64()), SurfaceResistivity: maybeBlank(r, logU(r, 1e6, 1e16)), HumiditySlope: []float64{0, 0.3, 0.8, 1}[r.IntN(4)], VolumeResistivity: nan, BreakdownStrength: maybeBlank(r, logU(r, 5e6, 600e6))},
+		Length:   maybeBlank(r, logU(r, 0.05, 20)), Width: maybeBlank(r, logU(r, 0.05, 3)), Diameter: nan,
+		Thickness:       maybeBlank(r, logU(r, 10e-6, 20e-3)),
 		EarthedBacking:  r.IntN(3) == 0,
-		DistanceToEarth: maybe(r, logU(r, 1e-3, 5)),
+		DistanceToEarth: maybeBlank(r, logU(r, 1e-3, 5)),
 		Field:           nan, FieldDistance: logU(r, 0.01, 0.5), SurfacePotential: nan,
-		Speed:    maybe(r, logU(r, 0.01, 10)),
+		Speed:    maybeBlank(r, logU(r, 0.01, 10)),
 		MassFlow: nan, ChargeToMass: nan,
-		ChargingCurrent: maybe(r, logU(r, 1e-9, 1e-3)),
-		ChargingTime:    maybe(r, logU(r, 0.01, 100)),
+		ChargingCurrent: maybeBlank(r, logU(r, 1e-9, 1e-3)),
+		ChargingTime:    maybeBlank(r, logU(r, 0.01, 100)),
 		ParticleSize:    nan,
-		Resistance:      maybe(r, logU(r, 1e3, 1e14)),
-		Capacitance:     maybe(r, logU(r, 5e-12, 1e-9)),
+		Resistance:      maybeBlank(r, logU(r, 1e3, 1e14)),
+		Capacitance:     maybeBlank(r, logU(r, 5e-12, 1e-9)),
 		Conductivity:    nan, Permittivity: nan, ProductMIE: nan,
-		LayerBreakdown: maybe(r, logU(r, 1e3, 50e3)),
+		LayerBreakdown: maybeBlank(r, logU(r, 1e3, 50e3)),
 		Process:        model.Process(r.IntN(5)),
 	}
 	switch r.IntN(4) {
@@ -66,7 +66,7 @@ func randomSurface(r *rand.Rand) model.Input {
 	return in
 }
 
-func randomEnv(r *rand.Rand) model.Environment {
+func randomSurfaceEnv(r *rand.Rand) model.Environment {
 	atm := []model.AtmosphereKind{model.Gas, model.Vapour, model.Mist, model.Hybrid, model.Dust, model.NoAtmosphere}[r.IntN(6)]
 	env := model.Environment{RelativeHumidity: 10 + 80*r.Float64(), Temperature: 293.15, Atmosphere: atm, MIE: logU(r, 0.017e-3, 1)}
 	switch atm {
@@ -90,7 +90,7 @@ func TestPropertySurfaceReadingRaisesVerdict(t *testing.T) {
 	r := rand.New(rand.NewPCG(11, 1))
 	lim := model.DefaultLimits()
 	for n := 0; n < 5000; n++ {
-		in, env := randomSurface(r), randomEnv(r)
+		in, env := randomSurface(r), randomSurfaceEnv(r)
 		k := 1 + 9*r.Float64()
 		hi := in
 		switch r.IntN(3) {
@@ -126,7 +126,7 @@ func TestPropertyHumidityNeverLowersMeasuredHazard(t *testing.T) {
 	lim := model.DefaultLimits()
 	tested := 0
 	for n := 0; n < 20000 && tested < 4000; n++ {
-		in, env := randomSurface(r), randomEnv(r)
+		in, env := randomSurface(r), randomSurfaceEnv(r)
 		in.Material.Conductive = false
 		in.Material.SurfaceResistivity = logU(r, 1e6, 1e13)
 		in.Material.HumiditySlope = []float64{0.3, 0.8, 1.2}[r.IntN(3)]

@@ -54,6 +54,7 @@ type Finding struct {
 	Severity   Verdict // the verdict this check alone implies (Incendive or Marginal); shock findings are Marginal
 	Message    string  // one line with the numbers
 	Mitigation string  // in words of the trade, from templates
+	Basis      string  // the ground the check rests on: standard, clause or table and edition, or a screening choice (Check.Basis)
 }
 
 // Default is one assumed value that fed an object's result, shown beside the value.

@@ -151,7 +151,7 @@ func DefaultUncertainties() []Uncertainty {
 		{UncSurfacePotential, "Surface or body potential", "uncertainty surface potential", "%", NormalRelative, 0.10, "electrostatic voltmeter reading: " + documentedChoice, false},
 		{UncResistance, "Resistance to earth", "uncertainty resistance", "decades", LogNormal, 0.5 * math.Ln10, "contact, humidity and test voltage move a resistance by decades: " + documentedChoice, false},
 		{UncCapacitanceMeasured, "Capacitance, measured", "uncertainty measured capacitance", "%", LogNormal, ln(1.10), "capacitance meter in place: " + documentedChoice, false},
-		{UncCapacitanceEstimated, "Capacitance, estimated", "uncertainty estimated capacitance", "%", LogNormal, ln(1.30), "isolated-body and plate estimates against real surroundings: " + documentedChoice, false},
+		{UncCapacitanceEstimated, "Capacitance, estimated", "uncertainty estimated capacitance", "factor", LogNormal, ln(3), "size-table and typical values against real surroundings, a factor of about 3 either way (reference section 12): " + documentedChoice, false},
 		{UncMIEDust, "MIE, dust or hybrid", "uncertainty mie dust", "factor", LogNormal, ln(2), "dust MIE varies with particle size, moisture and the test apparatus: " + documentedChoice, false},
 		{UncMIEGas, "MIE, gas, vapour or mist", "uncertainty mie gas", "%", LogNormal, ln(1.20), "tabulated gas MIE at the most easily ignited mixture; spread between sources: " + documentedChoice, false},
 		{UncChargingCurrent, "Charging current", "uncertainty charging current", "factor", LogNormal, ln(2), "charging currents are known to within a factor: " + documentedChoice, false},

@@ -1,0 +1,174 @@
+package model
+
+import (
+	"math"
+	"testing"
+)
+
+// Hand-worked cases of the rules a practitioner signs (reference section 12).
+
+// TestBlankGroupIsIIC: a vapour with no group is screened with the IIC brush
+// screen (1 uC/m^2), the strictest. Source: reference section 12 (common practice,
+// no source); the screen values JNIOSH-TR (secondary summary), reference section 3.
+func TestBlankGroupIsIIC(t *testing.T) {
+	lim := DefaultLimits()
+	in := blank(Sheet)
+	// derived: infinite free sheet, sigma = 2 eps0 E = 2 x 8.854e-12 x 200e3 = 3.54 uC/m^2:
+	// above IIC's 1 uC/m^2, below IIA's 5 uC/m^2.
+	in.Field, in.FieldDistance = 200e3, 0.1
+	env := Environment{RelativeHumidity: 40, Temperature: 293.15, Atmosphere: Vapour, Zone: Zone1, MIE: 0.24e-3}
+	ev := Evaluate(in, env, lim)
+	if !ev.Discharges[Brush].Possible || ev.Assumed&AssumedGroupIIC == 0 {
+		t.Errorf("blank group: brush %s, assumed %b; want possible against the IIC screen", ev.Discharges[Brush].Reason(), ev.Assumed)
+	}
+	near(t, "IIC screen quoted", ev.Discharges[Brush].B, 1e-6, 1e-12)
+	env.Group = IIA
+	if ev := Evaluate(in, env, lim); ev.Discharges[Brush].Possible {
+		t.Error("IIA: 3.54 uC/m^2 should be below the 5 uC/m^2 screen")
+	}
+	// A dust with no group is not a gas: no IIC assumed.
+	dust := Environment{Atmosphere: Dust, Zone: Zone21, MIE: 10e-3}
+	if ev := Evaluate(in, dust, lim); ev.Assumed&AssumedGroupIIC != 0 {
+		t.Error("dust: IIC assumed")
+	}
+}
+
+// TestPowderIntoVapour: powder added to a vessel holding solvent vapour gives
+// brush discharges from the powder, its cloud and its sack: the 4 mJ equivalent
+// energy against the vapour's MIE, even where no cone can form. Source: IEC TS
+// 60079-32-1 (reference section 12 [C]); 4 mJ the upper end of 3-4 mJ (CLC/TR 50404
+// summaries, reference section 3).
+func TestPowderIntoVapour(t *testing.T) {
+	lim := DefaultLimits()
+	in := blank(Powder)
+	in.MassFlow, in.ChargeToMass, in.Diameter, in.Length, in.ParticleSize = 0.2, 1e-6, 1, 1, 0.1e-3
+	in.Material.VolumeResistivity = 1e8 // conductive enough that no cone forms (BG RCI FAQ 5.10)
+	vap := gasEnv(IIA, Zone1, 0.24e-3)
+	ev := Evaluate(in, vap, lim)
+	if ev.Discharges[Cone].Possible {
+		t.Error("cone should be screened out at 1e8 ohm m")
+	}
+	near(t, "powder brush into vapour", ev.EffectiveEnergy, 4e-3, 1e-12)
+	if ev.Effective != Brush {
+		t.Errorf("effective %v, want brush", ev.Effective)
+	}
+	// The same powder into a pure dust cloud of 10 mJ: brush does not count (CCPS glossary [C]).
+	dust := Environment{Atmosphere: Dust, Group: IIIB, Zone: Zone21, MIE: 10e-3}
+	if ev := Evaluate(in, dust, lim); ev.EffectiveEnergy != 0 {
+		t.Errorf("pure dust 10 mJ: effective %g, want 0", ev.EffectiveEnergy)
+	}
+	// A dust of MIE 0.5 mJ (below about 1 mJ) is screened like a hybrid: brush counts
+	// (reference section 12, from memory).
+	dust.MIE = 0.5e-3
+	near(t, "sensitive dust brush", Evaluate(in, dust, lim).EffectiveEnergy, 4e-3, 1e-12)
+	// Shown not to charge: a measured charge-to-mass of zero.
+	in.ChargeToMass = 0
+	if ev := Evaluate(in, vap, lim); ev.Discharges[Brush].Possible {
+		t.Error("powder shown not to charge: brush possible")
+	}
+}
+
+// TestConeNeverExtrapolatedIntoClearance: below Glor's range the energy is the
+// value at the nearest edge. Formula from memory (Glor), reference section 3;
+// arithmetic by hand (python3).
+func TestConeNeverExtrapolatedIntoClearance(t *testing.T) {
+	cases := []struct {
+		name string
+		d, p float64
+		want float64
+	}{
+		// D 0.3 m (below 0.5): 5.22 x 0.5^3.36 = 0.5084 mJ, not the formula's 0.0914 mJ.
+		{"silo below range", 0.3, 1e-3, 0.5084e-3},
+		// d 0.05 mm (below 0.1 mm): 5.22 x 0.1^1.462 = 0.1802 mJ, not 0.0654 mJ.
+		{"particles below range", 1, 0.05e-3, 0.1802e-3},
+		// D 5 m (above 3): the formula's own, larger value 5.22 x 5^3.36 = 1164.7 mJ.
+		{"silo above range", 5, 1e-3, 1.1647},
+		// Inside the range: 5.22 mJ (reference 10.7).
+		{"in range", 1, 1e-3, 5.22e-3},
+	}
+	for _, c := range cases {
+		w, ok := ConeEnergyAtRange(c.d, c.p)
+		near(t, c.name, w, c.want, 1e-3)
+		if ok != (c.name == "in range") {
+			t.Errorf("%s: inRange %v", c.name, ok)
+		}
+	}
+}
+
+// TestConductorNoChargingMechanism: no current is invented for an object with no
+// charging mechanism. Earthed within 1 Mohm it cannot reach the spark floor even at
+// the worst-case 100 uA (JNIOSH-TR [C], reference 10.5: 100 V); above, the spark is
+// not evaluated and the row says what to measure.
+func TestConductorNoChargingMechanism(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Part)
+	in.Resistance = 1e6
+	ev := Evaluate(in, env, lim)
+	if ev.Discharges[Spark].Possible || ev.Discharges[Spark].Code != ReasonSparkEarthedBound || ev.NotAssessed != 0 {
+		t.Errorf("earthed part: %s, missing %b", ev.Discharges[Spark].Reason(), ev.NotAssessed)
+	}
+	near(t, "earthed bound", ev.Discharges[Spark].A, 100, 1e-12)
+	if ev.Assumed&AssumedMaxCurrent != 0 || !math.IsNaN(ev.ChargingCurrent) {
+		t.Errorf("a charging current was invented: %g", ev.ChargingCurrent)
+	}
+	in.Resistance = 1e9
+	ev = Evaluate(in, env, lim)
+	if ev.NotAssessed&MissingConductorCharging == 0 || ev.Assumed&AssumedMaxCurrent != 0 {
+		t.Errorf("unearthed part with no charging: missing %b, assumed %b", ev.NotAssessed, ev.Assumed)
+	}
+}
+
+// TestPotentialCaps: an unmeasured estimate is capped at the realistic plant
+// maximum (50 kV, common practice, no source); a measured potential never is, and
+// one above the maximum is flagged as a contradiction.
+func TestPotentialCaps(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Container)
+	in.Capacitance, in.ChargingCurrent = 100e-12, 1e-6
+	ev := Evaluate(in, env, lim)
+	// derived: resistance unknown (no leakage), no charging time: unbounded, capped at
+	// 50 kV; W = 100 pF x (50 kV)^2 / 2 = 125 mJ (not the kilojoules of 1 uA x 1e13 ohm).
+	near(t, "capped potential", ev.Potential, 50e3, 1e-12)
+	near(t, "capped energy", ev.StoredEnergy, 0.125, 1e-12)
+	if ev.Flags&(FlagCappedConductor|FlagAssumedResistance) != FlagCappedConductor|FlagAssumedResistance {
+		t.Errorf("flags %b", ev.Flags)
+	}
+	// derived: with a charging time of 1 s and no leakage, V = I t / C = 1e-6 x 1 / 100e-12 = 10 kV.
+	in.ChargingTime = 1
+	near(t, "no leakage, 1 s", Evaluate(in, env, lim).Potential, 10e3, 1e-12)
+	// A measured 80 kV stays 80 kV: W = 100 pF x (80 kV)^2 / 2 = 320 mJ, flagged.
+	m := blank(Container)
+	m.Capacitance, m.SurfacePotential = 100e-12, 80e3
+	ev = Evaluate(m, env, lim)
+	near(t, "measured potential", ev.Potential, 80e3, 1e-12)
+	near(t, "measured energy", ev.StoredEnergy, 0.32, 1e-12)
+	if ev.Flags&FlagMeasuredAboveMaximum == 0 || ev.Flags&FlagCappedConductor != 0 {
+		t.Errorf("measured above the maximum: flags %b", ev.Flags)
+	}
+}
+
+// TestGroupIIIChargeLimit: the Group III limit, 200 nC against propagating brush
+// discharges (IEC 60079-0, from memory; reference section 12).
+func TestGroupIIIChargeLimit(t *testing.T) {
+	lim := DefaultLimits()
+	for _, g := range []Group{IIIA, IIIB, IIIC} {
+		near(t, "Group III limit "+g.String(), lim.TransferredCharge[g], 200e-9, 1e-12)
+	}
+}
+
+// TestHybridWithDustGroupOnlyIsIIC: a hybrid atmosphere that gives only its dust
+// group has an unknown gas group: IIC (reference section 12, common practice, no source).
+func TestHybridWithDustGroupOnlyIsIIC(t *testing.T) {
+	e, assumed := Environment{Atmosphere: Hybrid, Group: IIIB}.WithStrictGroup()
+	if !assumed || e.Group != IIC {
+		t.Errorf("hybrid IIIB: %v assumed %v, want IIC", e.Group, assumed)
+	}
+	if _, assumed := (Environment{Atmosphere: Dust, Group: IIIB}).WithStrictGroup(); assumed {
+		t.Error("pure dust: IIC assumed")
+	}
+	if e, assumed := (Environment{Atmosphere: Vapour, Group: IIB}).WithStrictGroup(); assumed || e.Group != IIB {
+		t.Error("vapour IIB changed")
+	}
+}
