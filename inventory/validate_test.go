@@ -159,6 +159,29 @@ func TestValidationRules(t *testing.T) {
 			cell: "Objects!Y10", errIs: ErrNotInList, reject: "Objects!10"},
 		{name: "unknown filling", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Filling", "sideways") },
 			cell: "Objects!Z9", errIs: ErrNotInList, reject: "Objects!9"},
+		// liquid transfer inputs (columns AA-AG)
+		{name: "unknown vessel class", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Vessel class", "barge") },
+			cell: "Objects!AB9", errIs: ErrNotInList, reject: "Objects!9"},
+		{name: "unknown vessel material", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Vessel material", "wood") },
+			cell: "Objects!AA9", errIs: ErrNotInList, reject: "Objects!9"},
+		{name: "unknown filter", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Filter", "sieve") },
+			cell: "Objects!AD9", errIs: ErrNotInList, reject: "Objects!9"},
+		{name: "unknown second phase", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Second phase", "foam") },
+			cell: "Objects!AF9", errIs: ErrNotInList, reject: "Objects!9"},
+		{name: "negative residence time", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Residence time", -5) },
+			cell: "Objects!AE9", errIs: ErrOutOfRange, reject: "Objects!9"},
+		{name: "negative inlet velocity", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Inlet velocity", -1) },
+			cell: "Objects!AG9", errIs: ErrOutOfRange, reject: "Objects!9"},
+		{name: "zero vessel diameter", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Vessel diameter", 0) },
+			cell: "Objects!AC9", errIs: ErrOutOfRange, reject: "Objects!9"},
+		{name: "liquid without vessel class is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Vessel class", nil) },
+			cell: "Objects!AB9", sev: Warning, errIs: ErrRequired, msgHas: "strictest class"},
+		{name: "liquid without vessel material is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Vessel material", nil) },
+			cell: "Objects!AA9", sev: Warning, errIs: ErrRequired, msgHas: "stricter of metal"},
+		{name: "fine filter without residence time is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Filter", "filter") },
+			cell: "Objects!AE9", sev: Warning, errIs: ErrRequired, msgHas: "taken as none"},
+		{name: "bottom fill without inlet velocity is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Inlet velocity", nil) },
+			cell: "Objects!AG9", sev: Warning, errIs: ErrRequired, msgHas: "line's Speed"},
 		{name: "unknown zone", mut: func(b utBook) utBook { return b.set(SheetAtmospheres, "A-DUST", "Zone", "23") },
 			cell: "Atmospheres!G3", errIs: ErrNotInList, reject: "Atmospheres!3"},
 		{name: "unknown group", mut: func(b utBook) utBook { return b.set(SheetAtmospheres, "A-DUST", "Group", "IIID") },
@@ -273,9 +296,9 @@ func TestHeaderFaults(t *testing.T) {
 		b[3].Rows[0] = append(b[3].Rows[0], "Colour")
 		b[3].Rows[1] = append(b[3].Rows[1], "blue")
 		s := utReadBook(t, b)
-		ps := utProblemsAt(s, "Objects!AB1")
+		ps := utProblemsAt(s, "Objects!AI1") // the column after AH, Notes
 		if len(ps) != 1 || ps[0].Severity != Warning || !errors.Is(ps[0], ErrUnknownColumn) {
-			t.Fatalf("problems at AB1: %+v\n%s", ps, utDump(s))
+			t.Fatalf("problems at AI1: %+v\n%s", ps, utDump(s))
 		}
 		if len(s.Errors()) != 0 {
 			t.Errorf("errors:\n%s", utDump(s))
@@ -294,9 +317,9 @@ func TestHeaderFaults(t *testing.T) {
 		b := utValidBook()
 		b[3].Rows[0] = append(b[3].Rows[0], "Field (kV/m)")
 		s := utReadBook(t, b)
-		ps := utProblemsAt(s, "Objects!AB1")
+		ps := utProblemsAt(s, "Objects!AI1")
 		if len(ps) != 1 || ps[0].Severity != Error || !errors.Is(ps[0], ErrDuplicateColumn) {
-			t.Fatalf("problems at AB1: %+v", ps)
+			t.Fatalf("problems at AI1: %+v", ps)
 		}
 	})
 	t.Run("missing ID column rejects every row", func(t *testing.T) {
@@ -374,7 +397,7 @@ func TestHeaderFaults(t *testing.T) {
 		if len(s.Objects) != 9 || len(s.Errors()) != 0 {
 			t.Fatalf("%d objects\n%s", len(s.Objects), utDump(s))
 		}
-		if ps := utProblemsAt(s, "Objects!AE2"); len(ps) != 1 || ps[0].Severity != Warning {
+		if ps := utProblemsAt(s, "Objects!AL2"); len(ps) != 1 || ps[0].Severity != Warning {
 			t.Errorf("no warning for the stray value: %+v\n%s", ps, utDump(s))
 		}
 	})

@@ -109,6 +109,15 @@ type Input struct {
 	// ProductMIE is the MIE (J) of the powder a bag holds; NaN: the station's
 	// dust MIE when its atmosphere is dust or hybrid, else the most sensitive band.
 	ProductMIE float64
+
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	VesselMaterial  VesselMaterial // receiving vessel's material; unknown: the stricter of metal and insulating
+	VesselClass     VesselClass    // receiving vessel's class; unknown: the strictest class
+	VesselDiameter  float64        // m, a fixed tank's diameter; NaN unknown (not a large tank)
+	Filter          Filter         // filter or strainer upstream of the vessel
+	FilterResidence float64        // s, residence time between the filter and the vessel; NaN unknown (none)
+	SecondPhase     SecondPhase    // second phase carried by the liquid
+	InletVelocity   float64        // m/s until the inlet is submerged; NaN: the line's Speed
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.
@@ -244,6 +253,16 @@ type Evaluation struct {
 	VelocityLimit     float64           // m/s, filling velocity limit for the line (liquids)
 	BagAllowed        bool              // bags: the type may be used here (type C: if earthed)
 	BagCode           Reason            // bags: why (Reason text)
+
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	RuleClass         ConductivityClass // class the filling rules use: low also for a second phase below Limits.SecondPhaseConductivity
+	LiquidBreaches    LiquidClause      // filling clauses not met, or not shown met for want of an input
+	VDLimit           float64           // m^2/s, the v d limit applied; +Inf none; NaN not applicable
+	VelocityCeiling   float64           // m/s, the velocity ceiling applied (the second-phase limit when lower)
+	InletVelocity     float64           // m/s until submerged, as judged (the line's Speed when not given)
+	FilterResidence   float64           // s, residence needed after a fine filter; NaN when there is none
+	ChargeFactor      float64           // factor on the plain-pipe streaming current (filter, second phase)
+	VesselCapacitance float64           // F, the typical capacitance of the vessel class taken; NaN when measured or not used
 }
 
 // CapModel says which model gave a capacitance.

@@ -16,6 +16,7 @@ func blank(k Kind) Input {
 		Field: n, FieldDistance: n, SurfacePotential: n,
 		Speed: n, MassFlow: n, ChargeToMass: n, ChargingCurrent: n, ChargingTime: n, ParticleSize: n,
 		Resistance: n, Capacitance: n, Conductivity: n, Permittivity: n, ProductMIE: n,
+		VesselDiameter: n, FilterResidence: n, InletVelocity: n,
 	}
 }
 
@@ -419,7 +420,10 @@ func TestEvaluateLiquidBranches(t *testing.T) {
 	in := blank(Liquid)
 	in.Speed, in.Diameter, in.Filling = 1, 0.05, FillTop
 	ev := Evaluate(in, env, lim)
-	if ev.Assumed&AssumedLowConductivity == 0 || ev.Flags&FlagSplashFilling == 0 || ev.Discharges[Brush].Code != ReasonBrushLiquidUnknown || ev.Discharges[Spark].Code != ReasonSparkNoContainer {
+	// Unknown conductivity, vessel, resistance: top filling breaks the splash clause, the
+	// brush is counted, and the vessel is judged as an unearthed conductor.
+	if ev.Assumed&AssumedLowConductivity == 0 || ev.Flags&FlagSplashFilling == 0 || ev.Discharges[Brush].Code != ReasonBrushLiquidBreach ||
+		!ev.LiquidBreaches.Has(ClauseSplash) || ev.Discharges[Spark].Code != ReasonSparkPossible || ev.Assumed&AssumedVesselCapacitance == 0 {
 		t.Errorf("unknown conductivity: assumed %b flags %b brush %s", ev.Assumed, ev.Flags, ev.Discharges[Brush].Reason())
 	}
 	// Source: reference section 8 (typical values, from memory): acetone 6e6 pS/m, epsr 21: relaxes.

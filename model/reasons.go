@@ -60,6 +60,13 @@ const (
 	ReasonBagNeverZone0or20
 	ReasonBagBelowQualifiedMIE
 
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	ReasonSparkInsulatingVessel
+	ReasonSparkLiquidIsolated // A potential (V), B energy (J)
+	ReasonBrushLiquidCompliant
+	ReasonBrushLiquidBreach // A conductivity (S/m; NaN unknown)
+	ReasonBrushLiquidNoSafeLimits
+
 	numReasons
 )
 
@@ -164,6 +171,19 @@ func (r Reason) Text(a, b float64) string {
 		return "No bag type is qualified for zone 0 or zone 20."
 	case ReasonBagBelowQualifiedMIE:
 		return "Types C and D are qualified only for an MIE at or above 0.14 mJ."
+	case ReasonSparkInsulatingVessel:
+		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
+	case ReasonSparkLiquidIsolated:
+		return fmt.Sprintf("The conductive liquid in an insulating, lined or unearthed vessel is an isolated conductor at %s and can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+	case ReasonBrushLiquidCompliant:
+		return "The fill meets every applicable filling clause of IEC TS 60079-32-1 for its vessel: no incendive brush from the liquid surface is expected (earthing still applies)."
+	case ReasonBrushLiquidBreach:
+		if math.IsNaN(a) {
+			return "The conductivity is not given, so the liquid is taken as low-conductivity, and a filling clause is not met: brush discharges from its surface are possible."
+		}
+		return fmt.Sprintf("A low-conductivity liquid (%s for the filling rules) keeps charge on its surface and a filling clause is not met: brush discharges from its surface are possible.", Quantity(a, "S/m"))
+	case ReasonBrushLiquidNoSafeLimits:
+		return "A low-conductivity liquid filled into an insulating vessel: the standard gives no safe filling limits for it, so brush discharges from its surface are counted."
 	}
 	return "Unknown reason."
 }
@@ -243,6 +263,14 @@ const (
 	AssumedBagCurrent
 	AssumedProductMIE
 	AssumedProductMIEUnknown
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	AssumedVesselMaterial
+	AssumedVesselClass
+	AssumedVesselCapacitance
+	AssumedNoFilter
+	AssumedNoSecondPhase
+	AssumedInletVelocity
+	AssumedFilterResidence
 	numAssumptions = iota
 )
 
@@ -271,6 +299,13 @@ func assumptionTexts() [numAssumptions]string {
 		"charging current not given: the 3 uA the bag qualification assumes",
 		"product MIE not given: the station's dust MIE",
 		"product MIE not given: the most sensitive band (<= 3 mJ)",
+		"vessel material not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) taken",
+		"vessel class not given: the strictest class's filling limits and the largest typical capacitance (1000 pF)",
+		"capacitance not measured: the typical value of the vessel class (from memory)",
+		"filter not stated: a plain line taken (write none to confirm)",
+		"second phase not stated: none taken (write none to confirm)",
+		"inlet velocity until submerged not given: the line's flow velocity taken",
+		"residence time after the filter not given: none taken",
 	}
 }
 
@@ -293,6 +328,8 @@ const (
 	FlagSplashFilling
 	FlagBagNotEarthed
 	FlagBagCurrentAboveQualified
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	FlagSecondPhaseLow
 	numFlags = iota
 )
 
@@ -310,6 +347,7 @@ func flagTexts() [numFlags]string {
 		"top (splash) filling of a low-conductivity liquid",
 		"type C bag not earthed (tab to earth unknown or above the limit)",
 		"charging current above the 3 uA the type C/D qualification assumes",
+		"a second phase below 1000 pS/m: the filling rules for low-conductivity liquids apply",
 	}
 }
 

@@ -24,6 +24,8 @@ func blankEval(k model.Kind) model.Evaluation {
 		ChargingCurrent: nan, StoredEnergy: nan, TransferredCharge: nan,
 		InsulatingArea: nan, SurfaceResistivity: nan, DecayTime: nan, TimeTo100V: nan,
 		RelaxationTime: nan, StreamingCurrent: nan, VelocityDiameter: nan,
+		ResidenceTime: nan, VelocityLimit: nan, Resistance: nan, CoronaOnset: nan,
+		VDLimit: nan, VelocityCeiling: nan, InletVelocity: nan, FilterResidence: nan, ChargeFactor: nan, VesselCapacitance: nan,
 	}
 	for i := range e.Discharges {
 		e.Discharges[i] = model.Discharge{Type: model.DischargeType(i), Energy: nan, Charge: nan}

@@ -159,6 +159,11 @@ type jsonObject struct {
 	RelaxationTimeS        *float64         `json:"relaxation_time_s"`
 	StreamingCurrentA      *float64         `json:"streaming_current_A"`
 	VelocityDiameterM2PerS *float64         `json:"velocity_diameter_m2_per_s"`
+	VDLimitM2PerS          *float64         `json:"vd_limit_m2_per_s,omitempty"`
+	VelocityLimitMPerS     *float64         `json:"velocity_limit_m_per_s,omitempty"`
+	ChargeFactor           *float64         `json:"charge_factor,omitempty"`
+	FilterResidenceS       *float64         `json:"filter_residence_needed_s,omitempty"`
+	FillingClausesNotMet   []string         `json:"filling_clauses_not_met,omitempty"`
 	Discharges             []jsonDischarge  `json:"discharges"`
 	Findings               []jsonFinding    `json:"findings"`
 	Defaults               []jsonDefault    `json:"defaults"`
@@ -301,6 +306,11 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		Discharges:             []jsonDischarge{},
 		Findings:               []jsonFinding{},
 		Defaults:               []jsonDefault{},
+	}
+	if e.Kind == model.Liquid {
+		jo.VDLimitM2PerS, jo.VelocityLimitMPerS = finite(e.VDLimit), finite(e.VelocityLimit)
+		jo.ChargeFactor, jo.FilterResidenceS = finite(e.ChargeFactor), finite(e.FilterResidence)
+		jo.FillingClausesNotMet = e.LiquidBreaches.Texts()
 	}
 	if e.NotAssessed == 0 {
 		jo.EnergyJ = finite(e.EffectiveEnergy)

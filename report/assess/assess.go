@@ -255,6 +255,13 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 	}
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)
+	in.VesselMaterial, _ = model.ParseVesselMaterial(o.VesselMaterial)
+	in.VesselClass, _ = model.ParseVesselClass(o.VesselClass)
+	in.VesselDiameter = o.VesselDiameter.OrNaN()
+	in.Filter, _ = model.ParseFilter(o.Filter)
+	in.FilterResidence = o.Residence.OrNaN()
+	in.SecondPhase, _ = model.ParseSecondPhase(o.SecondPhase)
+	in.InletVelocity = o.InletVelocity.OrNaN()
 	// The survey has no column for double-layer charge: the Notes say it.
 	if n := strings.ToLower(o.Notes); strings.Contains(n, "double-layer") || strings.Contains(n, "double layer") {
 		in.DoubleLayer = true
@@ -291,8 +298,34 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 		if in.Filling == model.FillUnknown {
 			defs = append(defs, Default{Field: "Filling", Value: "top", Reason: "not given: assessed as top filling without a dip pipe (the most restrictive case)"})
 		}
+		defs = append(defs, liquidDefaults(&in)...)
 	}
 	return in, mat, defs
+}
+
+// liquidDefaults records the liquid transfer inputs left blank and the stricter
+// case each is assessed as.
+func liquidDefaults(in *model.Input) []Default {
+	var defs []Default
+	if in.VesselMaterial == model.VesselMaterialUnknown {
+		defs = append(defs, Default{Field: "Vessel material", Value: "unknown", Reason: "not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) for each rule"})
+	}
+	if in.VesselClass == model.VesselUnknown {
+		defs = append(defs, Default{Field: "Vessel class", Value: "strictest", Reason: "not given: the strictest class's filling limits and the largest typical capacitance (1000 pF)"})
+	}
+	if in.Filter == model.FilterUnknown {
+		defs = append(defs, Default{Field: "Filter", Value: "none", Reason: "not stated: a plain line taken (a screening choice; write none to confirm, or strainer or filter)"})
+	}
+	if in.SecondPhase == model.PhaseUnknown {
+		defs = append(defs, Default{Field: "Second phase", Value: "none", Reason: "not stated: none taken (a screening choice; write none to confirm)"})
+	}
+	if in.Filter == model.FilterFine && math.IsNaN(in.FilterResidence) {
+		defs = append(defs, Default{Field: "Residence time", Value: "0 s", Reason: "not given after a fine filter: none taken (the stricter case)"})
+	}
+	if (in.Filling == model.FillBottom || in.Filling == model.FillDipPipe) && math.IsNaN(in.InletVelocity) {
+		defs = append(defs, Default{Field: "Inlet velocity", Value: "the line's Speed", Reason: "not given: the line's flow velocity taken until the inlet is submerged (the stricter case)"})
+	}
+	return defs
 }
 
 // liquidFromSubstance fills a liquid row's unknown conductivity and permittivity

@@ -26,13 +26,15 @@ const (
 	CheckPersonEarthing
 	// CheckShockEnergy: a discharge from the object to a person carries more than the shock energy.
 	CheckShockEnergy
-	// CheckFillingVelocity: a liquid's v d product exceeds the filling limit for its conductivity.
+	// CheckFillingVelocity: a low-conductivity liquid's v d exceeds the limit of its vessel class (model.ClauseVD).
 	CheckFillingVelocity
-	// CheckVelocityCeiling: a liquid's flow velocity exceeds the ceiling (7 m/s).
+	// CheckVelocityCeiling: a liquid's flow velocity exceeds the vessel class's ceiling, 7 m/s (model.ClauseCeiling).
 	CheckVelocityCeiling
-	// CheckSlowStart: top filling without a dip pipe, so the inlet is never submerged.
+	// CheckSlowStart: a bottom or dip-pipe fill of a low-conductivity liquid faster than 1 m/s until the inlet is submerged (model.ClauseSlowStart).
 	CheckSlowStart
-	// CheckLowConductivity: a low-conductivity liquid (or one of unknown conductivity) that keeps its charge.
+	// CheckLowConductivity: a low-conductivity liquid (or one of unknown conductivity) filled into an
+	// insulating or glass vessel (or one of unknown material), which the standard gives no safe limits for
+	// (model.ClauseInsulatingVessel).
 	CheckLowConductivity
 	// CheckBagType: the bulk bag's type is not allowed for the atmosphere (IEC 61340-4-4).
 	CheckBagType
@@ -40,6 +42,15 @@ const (
 	CheckBagEarthing
 	// CheckBagQualification: conditions outside the qualification of types C and D.
 	CheckBagQualification
+	// CheckSplashFilling: top (splash) filling of a low-conductivity liquid (model.ClauseSplash).
+	CheckSplashFilling
+	// CheckSecondPhase: a liquid with a second phase flows faster than 1 m/s (model.ClauseSecondPhase).
+	CheckSecondPhase
+	// CheckFilterResidence: too short a residence time after a fine filter (model.ClauseResidence).
+	CheckFilterResidence
+	// CheckIsolatedLiquid: a conductive liquid in an insulating, lined or unearthed vessel is not
+	// earthed through a dip pipe or rod (model.ClauseIsolatedLiquid).
+	CheckIsolatedLiquid
 	// NumChecks is the number of checks.
 	NumChecks
 )
@@ -75,6 +86,14 @@ func (c Check) Name() string {
 		return "bag-earthing"
 	case CheckBagQualification:
 		return "bag-qualification"
+	case CheckSplashFilling:
+		return "splash-filling"
+	case CheckSecondPhase:
+		return "second-phase-velocity"
+	case CheckFilterResidence:
+		return "filter-residence"
+	case CheckIsolatedLiquid:
+		return "isolated-liquid"
 	}
 	return "unknown"
 }
@@ -182,24 +201,19 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !ev.Dissipative && !qualifiedBag && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
-		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) {
+		isolatedLiquid := in.Kind == model.Liquid && ev.LiquidBreaches.Has(model.ClauseIsolatedLiquid)
+		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) && !isolatedLiquid {
 			c.Failed = c.Failed.Add(CheckConductorEarthing)
 		}
 		if PersonEarthingApplies(in, env, lim) && !(in.Resistance <= lim.PersonEarthing) {
 			c.Failed = c.Failed.Add(CheckPersonEarthing)
 		}
 		if in.Kind == model.Liquid {
-			if vd, limVD := VelocityDiameter(in, ev), FillingVDLimit(in.Conductivity, lim); vd > limVD {
-				c.Failed = c.Failed.Add(CheckFillingVelocity)
-			}
-			if in.Speed > lim.MaxVelocity {
-				c.Failed = c.Failed.Add(CheckVelocityCeiling)
-			}
-			if in.Filling == model.FillTop || in.Filling == model.FillUnknown {
-				c.Failed = c.Failed.Add(CheckSlowStart)
-			}
-			if !(in.Conductivity > lim.LowConductivity) {
-				c.Failed = c.Failed.Add(CheckLowConductivity)
+			// model.Evaluate judges the filling clauses of the vessel class; each clause not met is a check.
+			for _, lc := range liquidChecks {
+				if ev.LiquidBreaches.Has(lc.clause) {
+					c.Failed = c.Failed.Add(lc.check)
+				}
 			}
 		}
 		if in.Kind == model.Bag {
@@ -364,22 +378,37 @@ func ShockEnergy(in *model.Input, ev *model.Evaluation) float64 {
 	return e
 }
 
+// liquidChecks maps each liquid filling clause the model judges to its check.
+var liquidChecks = [...]struct {
+	clause model.LiquidClause
+	check  Check
+}{
+	{model.ClauseVD, CheckFillingVelocity},
+	{model.ClauseCeiling, CheckVelocityCeiling},
+	{model.ClauseSlowStart, CheckSlowStart},
+	{model.ClauseSplash, CheckSplashFilling},
+	{model.ClauseSecondPhase, CheckSecondPhase},
+	{model.ClauseResidence, CheckFilterResidence},
+	{model.ClauseInsulatingVessel, CheckLowConductivity},
+	{model.ClauseIsolatedLiquid, CheckIsolatedLiquid},
+}
+
+// LiquidClauseOf returns the model clause a liquid check judges; ok false for other checks.
+func LiquidClauseOf(k Check) (model.LiquidClause, bool) {
+	for _, lc := range liquidChecks {
+		if lc.check == k {
+			return lc.clause, true
+		}
+	}
+	return 0, false
+}
+
 // VelocityDiameter returns a liquid's v d product (m^2/s): the model's, or Speed x Diameter.
 func VelocityDiameter(in *model.Input, ev *model.Evaluation) float64 {
 	if !math.IsNaN(ev.VelocityDiameter) && ev.VelocityDiameter != 0 {
 		return ev.VelocityDiameter
 	}
 	return in.Speed * in.Diameter
-}
-
-// FillingVDLimit returns the v d limit (m^2/s) for filling with a liquid of
-// conductivity kappa (S/m): VDHigh above VDKappa, VDLow at or below it or when
-// unknown (IEC 60079-32-1: 0.5 and 0.38 m^2/s, 10 pS/m).
-func FillingVDLimit(kappa float64, lim *model.Limits) float64 {
-	if kappa > lim.VDKappa {
-		return lim.VDHigh
-	}
-	return lim.VDLow
 }
 
 // AssessedBagType returns the type a bag is assessed as: its own, or type A (the
