@@ -94,6 +94,8 @@ func objectFields(o *inventory.Object) []Field {
 		q("Resistance to earth", o.Resistance, "Ω"), q("Capacitance", o.Capacitance, "F"),
 		q("Conductivity", o.Conductivity, "S/m"), q("Relative permittivity", o.Permittivity, ""),
 		{"Bag type", o.BagType}, {"Filling", o.Filling},
+		{"Vessel material", o.VesselMaterial}, {"Vessel class", o.VesselClass}, q("Vessel diameter", o.VesselDiameter, "m"),
+		{"Filter", o.Filter}, q("Residence time", o.Residence, "s"), {"Second phase", o.SecondPhase}, q("Inlet velocity", o.InletVelocity, "m/s"),
 	}
 }
 
