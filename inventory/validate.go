@@ -1411,12 +1411,18 @@ func liquidNeeds(f *field, o *Object, who string) {
 	if o.VesselClass == "fixed tank" && !o.VesselDiameter.Known && f.text("Vessel diameter") == "" {
 		f.warnf("Vessel diameter", ErrRequired, "enter the tank's diameter", "%s: a fixed tank with no Vessel diameter is not taken as a large tank (the v·d limit applies)", who)
 	}
+	if blank("Filter", o.Filter) {
+		f.warnf("Filter", ErrRequired, "enter none, strainer or filter", "%s: no Filter; assessed as a fine filter with no residence time after it (the stricter case)", who)
+	}
+	if blank("Second phase", o.SecondPhase) {
+		f.warnf("Second phase", ErrRequired, "enter none, free water, suspended solids or immiscible liquid", "%s: no Second phase; assessed as present (the stricter case)", who)
+	}
 	if o.Filter == "filter" && !o.Residence.Known && f.text("Residence time") == "" {
 		f.warnf("Residence time", ErrRequired, "enter the time the liquid takes from the filter to the vessel", "%s: a fine filter with no Residence time; taken as none", who)
 	}
 	// The slow start concerns low-conductivity liquids; a second phase makes a liquid
 	// below 1000 pS/m one (IEC TS 60079-32-1, reference section 8 [C]).
-	twoPhase := o.SecondPhase != "" && o.SecondPhase != "none"
+	twoPhase := o.SecondPhase != "none" // not stated: taken as present
 	chargeable := !o.Conductivity.Known || o.Conductivity.Value <= 50e-12 || (twoPhase && o.Conductivity.Value < 1000e-12)
 	if chargeable && (o.Filling == "bottom" || o.Filling == "dip pipe") && !o.InletVelocity.Known && f.text("Inlet velocity") == "" {
 		f.warnf("Inlet velocity", ErrRequired, "enter the velocity at the inlet until it is submerged (at most 1 m/s for low-conductivity liquids)", "%s: no Inlet velocity; the line's Speed is taken until the inlet is submerged", who)

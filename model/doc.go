@@ -70,7 +70,8 @@
 //     second phase, a residence time after a fine filter, and no filling into an
 //     insulating vessel (no safe limits); medium and high: the ceiling only. An
 //     unknown vessel class takes the strictest class, an unknown material the
-//     stricter of metal and insulating, an unknown input is a clause not shown met.
+//     stricter of metal and insulating, a filter not stated a fine filter, a second
+//     phase not stated is present; an unknown input is a clause not shown met.
 //  4. Brush from the liquid surface (Limits.BrushEnergy) only where a clause is
 //     not met: a compliant fill is non-incendive for the liquid surface.
 //  5. Spark: the vessel (or a conductive liquid in an insulating, lined or

@@ -554,7 +554,8 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.Assumed |= AssumedLowConductivity
 	}
 	ev.RuleClass = ev.ConductivityClass
-	if in.SecondPhase.Present() && (ev.RuleClass == ConductivityMedium || ev.RuleClass == ConductivityHigh) && kappa < lim.SecondPhaseConductivity {
+	twoPhase, filter := in.SecondPhase.Assessed(), in.Filter.Assessed()
+	if twoPhase && (ev.RuleClass == ConductivityMedium || ev.RuleClass == ConductivityHigh) && kappa < lim.SecondPhaseConductivity {
 		ev.RuleClass = ConductivityLow
 		ev.Flags |= FlagSecondPhaseLow
 	}
@@ -608,7 +609,7 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	ceiling := FillingCeiling(class, lim)
 	ev.VelocityCeiling = ceiling
 	if low {
-		if in.SecondPhase.Present() && lim.SecondPhaseVelocity < ev.VelocityCeiling {
+		if twoPhase && lim.SecondPhaseVelocity < ev.VelocityCeiling {
 			ev.VelocityCeiling = lim.SecondPhaseVelocity
 		}
 		ev.VDLimit = FillingVDLimit(kappa, class, in.VesselDiameter, lim)
@@ -621,7 +622,7 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		if v > ceiling {
 			br |= ClauseCeiling
 		}
-		if in.SecondPhase.Present() && !(v <= lim.SecondPhaseVelocity) {
+		if twoPhase && !(v <= lim.SecondPhaseVelocity) {
 			br |= ClauseSecondPhase
 		}
 		switch in.Filling {
@@ -639,7 +640,7 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 			br |= ClauseSplash
 			ev.Flags |= FlagSplashFilling
 		}
-		if in.Filter == FilterFine {
+		if filter == FilterFine {
 			ev.FilterResidence = FilterResidence(ev.RelaxationTime, lim)
 			t := in.FilterResidence
 			if !given(t) {
@@ -675,17 +676,31 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	case !given(i):
 		ev.NotAssessed |= MissingLiquidFlow
 		markNotEvaluated(ev, Spark)
+	case positive(in.Capacitance):
+		evalConductor(ev, in, env, lim, i)
 	default:
+		// The typical capacitance of the class; for an unknown class each class's
+		// value, keeping the one that gives the largest spark energy: with a short
+		// charging time a small vessel charges higher (unknown means the stricter case).
+		base := *ev
 		cin := *in
-		if !positive(in.Capacitance) {
-			cin.Capacitance = VesselCapacitance(class)
-			ev.VesselCapacitance = cin.Capacitance
+		for k := VesselRoadTanker; k < NumVesselClasses; k++ {
+			if class != VesselUnknown {
+				k = class
+			}
+			cin.Capacitance = VesselCapacitance(k)
+			trial := base
+			evalConductor(&trial, &cin, env, lim, i)
+			trial.VesselCapacitance = cin.Capacitance
+			if k == class || k == VesselRoadTanker || trial.StoredEnergy > ev.StoredEnergy {
+				*ev = trial
+			}
+			if class != VesselUnknown {
+				break
+			}
 		}
-		evalConductor(ev, &cin, env, lim, i)
-		if !positive(in.Capacitance) {
-			ev.CapacitanceModel = CapTypical
-			ev.Assumed |= AssumedCapacitance | AssumedVesselCapacitance
-		}
+		ev.CapacitanceModel = CapTypical
+		ev.Assumed |= AssumedCapacitance | AssumedVesselCapacitance
 		if sp.Code == ReasonSparkPossible && conductive && (mat.Insulating() || mat == VesselMaterialUnknown) {
 			sp.Code = ReasonSparkLiquidIsolated
 		}

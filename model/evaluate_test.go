@@ -52,6 +52,7 @@ func samples() map[string]Input {
 
 	l := blank(Liquid) // derived: 5 m/s in 0.1 m, 1 pS/m, receiving tank 1e11 ohm, 100 pF.
 	l.Speed, l.Diameter, l.Conductivity, l.Resistance, l.Capacitance = 5, 0.1, 1e-12, 1e11, 100e-12
+	l.Filter, l.SecondPhase = FilterNone, PhaseNone // a plain pipe, single phase
 	m["liquid"] = l
 
 	bg := blank(Bag)

@@ -129,8 +129,9 @@ func (c VesselClass) String() string {
 // Filter is a charge generator upstream of the vessel.
 type Filter uint8
 
-// Filters; FilterUnknown (not stated) is assessed as a plain line and recorded
-// as an assumption (a screening choice: state "none" to confirm).
+// Filters; FilterUnknown (not stated) is assessed as a fine filter with no
+// residence time after it, the stricter case, and recorded as an assumption
+// (state "none" for a plain line).
 const (
 	FilterUnknown  Filter = iota
 	FilterNone            // stated: no filter or strainer
@@ -154,8 +155,8 @@ func (f Filter) String() string {
 // SecondPhase is a second phase carried by the liquid.
 type SecondPhase uint8
 
-// Second phases; PhaseUnknown (not stated) is assessed as none and recorded as an
-// assumption (a screening choice: state "none" to confirm).
+// Second phases; PhaseUnknown (not stated) is assessed as present, the stricter
+// case, and recorded as an assumption (state "none" when there is none).
 const (
 	PhaseUnknown SecondPhase = iota
 	PhaseNone
@@ -181,6 +182,19 @@ func (p SecondPhase) String() string {
 
 // Present reports whether a second phase is stated.
 func (p SecondPhase) Present() bool { return p >= PhaseWater }
+
+// Assessed reports whether the rules take a second phase as present: stated, or
+// not stated (unknown means the stricter case).
+func (p SecondPhase) Assessed() bool { return p == PhaseUnknown || p.Present() }
+
+// Assessed returns the filter the rules take: a fine filter when none is stated
+// (unknown means the stricter case).
+func (f Filter) Assessed() Filter {
+	if f == FilterUnknown {
+		return FilterFine
+	}
+	return f
+}
 
 func parseWord[T ~uint8](what, s string, first, last T, str func(T) string, aliases map[string]T) (T, error) {
 	t := strings.Join(strings.Fields(strings.ToLower(strings.NewReplacer("-", " ", "_", " ").Replace(s))), " ")
@@ -411,9 +425,11 @@ func FilterResidence(tau float64, lim *Limits) float64 {
 // it, never below the plain pipe that follows it: max(1, F exp(-t/tau)) (derived;
 // no relaxation when tau or t is unknown); a strainer lim.StrainerChargeFactor;
 // times lim.SecondPhaseChargeFactor with a second phase (a screening choice).
+// A filter or second phase not stated is taken as present (Filter.Assessed,
+// SecondPhase.Assessed).
 func LiquidChargeFactor(f Filter, t, tau float64, phase SecondPhase, lim *Limits) float64 {
 	k := 1.0
-	switch f {
+	switch f.Assessed() {
 	case FilterFine:
 		k = lim.FilterChargeFactor
 		if t > 0 && tau > 0 {
@@ -423,7 +439,7 @@ func LiquidChargeFactor(f Filter, t, tau float64, phase SecondPhase, lim *Limits
 	case FilterStrainer:
 		k = math.Max(1, lim.StrainerChargeFactor)
 	}
-	if phase.Present() {
+	if phase.Assessed() {
 		k *= math.Max(1, lim.SecondPhaseChargeFactor)
 	}
 	return k
@@ -445,16 +461,17 @@ func CurrentCase(in *Input, ev *Evaluation) string {
 		why = append(why, "a fine filter upstream")
 	case FilterStrainer:
 		why = append(why, "a strainer upstream")
+	case FilterUnknown:
+		why = append(why, "a fine filter (none stated: the stricter case)")
 	}
-	if in.SecondPhase.Present() {
+	switch {
+	case in.SecondPhase.Present():
 		why = append(why, "a second phase ("+in.SecondPhase.String()+")")
+	case in.SecondPhase == PhaseUnknown:
+		why = append(why, "a second phase (none stated: the stricter case)")
 	}
 	if len(why) == 0 {
-		s := "plain-pipe streaming current"
-		if in.Filter == FilterUnknown || in.SecondPhase == PhaseUnknown {
-			s += " (no filter or second phase stated)"
-		}
-		return s
+		return "plain-pipe streaming current"
 	}
 	if ev.ChargeFactor == 1 {
 		return "plain-pipe streaming current: the extra charge of " + strings.Join(why, " and ") + " relaxes before the vessel"

@@ -229,6 +229,45 @@ func TestIsolatedConductiveLiquid(t *testing.T) {
 	in.Conductivity, in.VesselClass, in.Resistance = 4.6e5*1e-12, VesselUnknown, math.NaN()
 	ev = Evaluate(in, env, lim)
 	near(t, "unknown class capacitance", ev.Capacitance, 1000e-12, 1e-12)
+	// With a 1 s charging time a small vessel charges higher. derived: 3.75 uA x 1e13 ohm;
+	// can 50 pF: V = 3.75e7 (1 - exp(-1/500)) = 74.9 kV, W = 0.140 J; 1000 pF:
+	// V = 3.75e7 (1 - exp(-1e-4)) = 3.75 kV, W = 7.0 mJ: the can's 50 pF is taken.
+	in.ChargingTime = 1
+	ev = Evaluate(in, env, lim)
+	near(t, "unknown class, 1 s: capacitance", ev.Capacitance, 50e-12, 1e-12)
+	near(t, "unknown class, 1 s: energy", ev.StoredEnergy, 0.5*50e-12*math.Pow(3.75e7*(1-math.Exp(-1.0/500)), 2), 1e-9)
+}
+
+// TestUnstatedFilterAndPhaseAreStricter: a filter or second phase not stated is
+// taken as present (unknown means the stricter case), and never gives a milder result.
+func TestUnstatedFilterAndPhaseAreStricter(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	base := fill(VesselRoadTanker, 5e-12, 3, 0.1) // compliant with none stated as none
+	blankFilter, blankPhase := base, base
+	blankFilter.Filter = FilterUnknown
+	blankPhase.SecondPhase = PhaseUnknown
+	// derived: a fine filter with no residence: 3 tau = 10.6 s not met; a second phase at 3 m/s > 1 m/s.
+	if ev := Evaluate(blankFilter, env, lim); ev.LiquidBreaches != ClauseResidence || ev.ChargeFactor != 100 || ev.Assumed&AssumedNoFilter == 0 {
+		t.Errorf("filter not stated: clauses %b factor %g", ev.LiquidBreaches, ev.ChargeFactor)
+	}
+	if ev := Evaluate(blankPhase, env, lim); ev.LiquidBreaches != ClauseSecondPhase || ev.ChargeFactor != 10 || ev.Assumed&AssumedNoSecondPhase == 0 {
+		t.Errorf("second phase not stated: clauses %b factor %g", ev.LiquidBreaches, ev.ChargeFactor)
+	}
+	// A medium liquid (500 pS/m) with no second phase stated is low for the rules (below 1000 pS/m).
+	m := blankPhase
+	m.Conductivity = 500e-12
+	if ev := Evaluate(m, env, lim); ev.RuleClass != ConductivityLow {
+		t.Errorf("500 pS/m, phase not stated: rule class %v", ev.RuleClass)
+	}
+	for _, f := range []Filter{FilterNone, FilterStrainer, FilterFine} {
+		for _, p := range []SecondPhase{PhaseNone, PhaseWater, PhaseSolids, PhaseImmiscible} {
+			k := LiquidChargeFactor(f, math.NaN(), 3.54, p, &lim)
+			if u := LiquidChargeFactor(FilterUnknown, math.NaN(), 3.54, PhaseUnknown, &lim); u < k {
+				t.Errorf("unknown factor %g below %v/%v's %g", u, f, p, k)
+			}
+		}
+	}
 }
 
 // TestParseLiquidWords: survey spellings and aliases; an unknown word is an error.

@@ -300,10 +300,10 @@ func assumptionTexts() [numAssumptions]string {
 		"product MIE not given: the station's dust MIE",
 		"product MIE not given: the most sensitive band (<= 3 mJ)",
 		"vessel material not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) taken",
-		"vessel class not given: the strictest class's filling limits and the largest typical capacitance (1000 pF)",
+		"vessel class not given: the strictest class's filling limits, and the typical capacitance of the class that gives the largest spark energy",
 		"capacitance not measured: the typical value of the vessel class (from memory)",
-		"filter not stated: a plain line taken (write none to confirm)",
-		"second phase not stated: none taken (write none to confirm)",
+		"filter not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)",
+		"second phase not stated: taken as present (the stricter case; write none when there is none)",
 		"inlet velocity until submerged not given: the line's flow velocity taken",
 		"residence time after the filter not given: none taken",
 	}
@@ -347,7 +347,7 @@ func flagTexts() [numFlags]string {
 		"top (splash) filling of a low-conductivity liquid",
 		"type C bag not earthed (tab to earth unknown or above the limit)",
 		"charging current above the 3 uA the type C/D qualification assumes",
-		"a second phase below 1000 pS/m: the filling rules for low-conductivity liquids apply",
+		"a second phase (stated, or not stated and so taken as present) below 1000 pS/m: the filling rules for low-conductivity liquids apply",
 	}
 }
 

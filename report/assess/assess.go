@@ -311,15 +311,15 @@ func liquidDefaults(in *model.Input) []Default {
 		defs = append(defs, Default{Field: "Vessel material", Value: "unknown", Reason: "not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) for each rule"})
 	}
 	if in.VesselClass == model.VesselUnknown {
-		defs = append(defs, Default{Field: "Vessel class", Value: "strictest", Reason: "not given: the strictest class's filling limits and the largest typical capacitance (1000 pF)"})
+		defs = append(defs, Default{Field: "Vessel class", Value: "strictest", Reason: "not given: the strictest class's filling limits, and the typical capacitance of the class that gives the largest spark energy"})
 	}
 	if in.Filter == model.FilterUnknown {
-		defs = append(defs, Default{Field: "Filter", Value: "none", Reason: "not stated: a plain line taken (a screening choice; write none to confirm, or strainer or filter)"})
+		defs = append(defs, Default{Field: "Filter", Value: "fine filter", Reason: "not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)"})
 	}
 	if in.SecondPhase == model.PhaseUnknown {
-		defs = append(defs, Default{Field: "Second phase", Value: "none", Reason: "not stated: none taken (a screening choice; write none to confirm)"})
+		defs = append(defs, Default{Field: "Second phase", Value: "present", Reason: "not stated: taken as present (the stricter case; write none when there is none)"})
 	}
-	if in.Filter == model.FilterFine && math.IsNaN(in.FilterResidence) {
+	if in.Filter.Assessed() == model.FilterFine && math.IsNaN(in.FilterResidence) {
 		defs = append(defs, Default{Field: "Residence time", Value: "0 s", Reason: "not given after a fine filter: none taken (the stricter case)"})
 	}
 	if (in.Filling == model.FillBottom || in.Filling == model.FillDipPipe) && math.IsNaN(in.InletVelocity) {

@@ -349,7 +349,11 @@ func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *mode
 		}
 		msg = fmt.Sprintf("%s of a liquid with %s: the free-falling jet splashes, makes mist and charges the surface, and the inlet is never submerged", how, cond)
 	case CheckSecondPhase:
-		msg = fmt.Sprintf("a second phase (%s) is carried, which makes a liquid below %s chargeable: flow velocity %s, limit %s", in.SecondPhase, pSm(lim.SecondPhaseConductivity), speed, mps(lim.SecondPhaseVelocity))
+		what := fmt.Sprintf("a second phase (%s) is carried", in.SecondPhase)
+		if in.SecondPhase == model.PhaseUnknown {
+			what = "no second phase is stated, so one is taken as carried (write none when there is none)"
+		}
+		msg = fmt.Sprintf("%s, which makes a liquid below %s chargeable: flow velocity %s, limit %s", what, pSm(lim.SecondPhaseConductivity), speed, mps(lim.SecondPhaseVelocity))
 	case CheckFilterResidence:
 		res := "not given (taken as none)"
 		if !math.IsNaN(in.FilterResidence) {
@@ -359,7 +363,11 @@ func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *mode
 		if ev.RelaxationTime > 0 {
 			need = fmt.Sprintf("%s, the smaller of %s τ = %s and %s", seconds(ev.FilterResidence), plain(lim.FilterResidenceFactor), seconds(lim.FilterResidenceFactor*ev.RelaxationTime), seconds(lim.FilterResidenceMax))
 		}
-		msg = fmt.Sprintf("residence time after the fine filter %s is shorter than the %s needed for the charge the filter adds to relax", res, need)
+		filter := "the fine filter"
+		if in.Filter == model.FilterUnknown {
+			filter = "the filter (none stated, so a fine filter is taken: write none for a plain line)"
+		}
+		msg = fmt.Sprintf("residence time after %s %s is shorter than the %s needed for the charge the filter adds to relax", filter, res, need)
 	case CheckLowConductivity:
 		where := withArticle(vesselWords(in))
 		if in.VesselMaterial == model.VesselMaterialUnknown {
