@@ -150,7 +150,7 @@ var objectColumns = []Column{
 	{Name: "Filter", Dim: Text, List: ListFilter, Hint: "Upstream of the vessel: none, strainer (coarse) or filter (fine or micro-filter) (liquid rows)"},
 	{Name: "Residence time", Unit: "s", Dim: Time, Hint: "Time the liquid takes from the filter to the vessel (liquid rows); blank: none"},
 	{Name: "Second phase", Dim: Text, List: ListSecondPhase, Hint: "none, free water, suspended solids or immiscible liquid (liquid rows)"},
-	{Name: "Inlet velocity", Unit: "m/s", Dim: Speed, Hint: "Velocity at the inlet until it is submerged (liquid rows); blank: the line's Speed"},
+	{Name: "Inlet velocity", Unit: "m/s", Dim: Speed, Hint: "Velocity at the inlet until it is submerged (liquid rows); blank: the slow start is not shown met"},
 	{Name: "Notes", Dim: Text, Hint: "Free text"},
 }
 

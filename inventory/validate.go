@@ -1425,7 +1425,7 @@ func liquidNeeds(f *field, o *Object, who string) {
 	twoPhase := o.SecondPhase != "none" // not stated: taken as present
 	chargeable := !o.Conductivity.Known || o.Conductivity.Value <= 50e-12 || (twoPhase && o.Conductivity.Value < 1000e-12)
 	if chargeable && (o.Filling == "bottom" || o.Filling == "dip pipe") && !o.InletVelocity.Known && f.text("Inlet velocity") == "" {
-		f.warnf("Inlet velocity", ErrRequired, "enter the velocity at the inlet until it is submerged (at most 1 m/s for low-conductivity liquids)", "%s: no Inlet velocity; the line's Speed is taken until the inlet is submerged", who)
+		f.warnf("Inlet velocity", ErrRequired, "enter the velocity at the inlet until it is submerged (at most 1 m/s for low-conductivity liquids)", "%s: no Inlet velocity; the slow start until the inlet is submerged is not shown met", who)
 	}
 }
 

@@ -185,7 +185,7 @@ func TestValidationRules(t *testing.T) {
 		{name: "liquid without second phase is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Second phase", nil) },
 			cell: "Objects!AF9", sev: Warning, errIs: ErrRequired, msgHas: "assessed as present"},
 		{name: "bottom fill without inlet velocity is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Inlet velocity", nil) },
-			cell: "Objects!AG9", sev: Warning, errIs: ErrRequired, msgHas: "line's Speed"},
+			cell: "Objects!AG9", sev: Warning, errIs: ErrRequired, msgHas: "not shown met"},
 		{name: "unknown zone", mut: func(b utBook) utBook { return b.set(SheetAtmospheres, "A-DUST", "Zone", "23") },
 			cell: "Atmospheres!G3", errIs: ErrNotInList, reject: "Atmospheres!3"},
 		{name: "unknown group", mut: func(b utBook) utBook { return b.set(SheetAtmospheres, "A-DUST", "Group", "IIID") },

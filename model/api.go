@@ -117,7 +117,7 @@ type Input struct {
 	Filter          Filter         // filter or strainer upstream of the vessel
 	FilterResidence float64        // s, residence time between the filter and the vessel; NaN unknown (none)
 	SecondPhase     SecondPhase    // second phase carried by the liquid
-	InletVelocity   float64        // m/s until the inlet is submerged; NaN: the line's Speed
+	InletVelocity   float64        // m/s until the inlet is submerged; NaN: unknown (the slow start not shown met)
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.
@@ -259,7 +259,7 @@ type Evaluation struct {
 	LiquidBreaches    LiquidClause      // filling clauses not met, or not shown met for want of an input
 	VDLimit           float64           // m^2/s, the v d limit applied; +Inf none; NaN not applicable
 	VelocityCeiling   float64           // m/s, the velocity ceiling applied (the second-phase limit when lower)
-	InletVelocity     float64           // m/s until submerged, as judged (the line's Speed when not given)
+	InletVelocity     float64           // m/s until submerged, as judged; NaN when not given or not applicable
 	FilterResidence   float64           // s, residence needed after a fine filter; NaN when there is none
 	ChargeFactor      float64           // factor on the plain-pipe streaming current (filter, second phase)
 	VesselCapacitance float64           // F, the typical capacitance of the vessel class taken; NaN when measured or not used

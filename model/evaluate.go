@@ -627,13 +627,14 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		}
 		switch in.Filling {
 		case FillBottom, FillDipPipe:
-			inlet := in.InletVelocity
-			if !positive(inlet) { // 0 from a zero Input reads as not given
-				inlet = v
+			// Not given (0 from a zero Input reads so): the slow start is not shown
+			// met; the line's velocity is no bound, a narrower inlet runs faster.
+			if positive(in.InletVelocity) {
+				ev.InletVelocity = in.InletVelocity
+			} else {
 				ev.Assumed |= AssumedInletVelocity
 			}
-			ev.InletVelocity = inlet
-			if !(inlet <= lim.SlowStartVelocity) {
+			if !(ev.InletVelocity <= lim.SlowStartVelocity) {
 				br |= ClauseSlowStart
 			}
 		default:

@@ -105,7 +105,8 @@ func TestLiquidClauseBoundaries(t *testing.T) {
 		// from memory (reference section 8 [M]): 1 m/s until the inlet is submerged.
 		{"slow start 0.99", with(func(in *Input) { in.InletVelocity = 0.99 }), 0},
 		{"slow start 1.01", with(func(in *Input) { in.InletVelocity = 1.01 }), ClauseSlowStart},
-		{"slow start not given: the line's 3 m/s", with(func(in *Input) { in.InletVelocity = math.NaN() }), ClauseSlowStart},
+		{"slow start not given: not shown met", with(func(in *Input) { in.InletVelocity = math.NaN() }), ClauseSlowStart},
+		{"slow start not given, line at 0.5 m/s: still not shown met", with(func(in *Input) { in.InletVelocity, in.Speed = math.NaN(), 0.5 }), ClauseSlowStart},
 		{"dip pipe 1.01", with(func(in *Input) { in.Filling, in.InletVelocity = FillDipPipe, 1.01 }), ClauseSlowStart},
 		// IEC TS 60079-32-1 (from memory): no splash filling of low-conductivity liquids.
 		{"top fill", with(func(in *Input) { in.Filling = FillTop }), ClauseSplash},

@@ -304,7 +304,7 @@ func assumptionTexts() [numAssumptions]string {
 		"capacitance not measured: the typical value of the vessel class (from memory)",
 		"filter not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)",
 		"second phase not stated: taken as present (the stricter case; write none when there is none)",
-		"inlet velocity until submerged not given: the line's flow velocity taken",
+		"inlet velocity until submerged not given: the slow start is not shown met",
 		"residence time after the filter not given: none taken",
 	}
 }

@@ -319,12 +319,8 @@ func liquidDefaults(in *model.Input) []Default {
 	if in.SecondPhase == model.PhaseUnknown {
 		defs = append(defs, Default{Field: "Second phase", Value: "present", Reason: "not stated: taken as present (the stricter case; write none when there is none)"})
 	}
-	if in.Filter.Assessed() == model.FilterFine && math.IsNaN(in.FilterResidence) {
-		defs = append(defs, Default{Field: "Residence time", Value: "0 s", Reason: "not given after a fine filter: none taken (the stricter case)"})
-	}
-	if (in.Filling == model.FillBottom || in.Filling == model.FillDipPipe) && math.IsNaN(in.InletVelocity) {
-		defs = append(defs, Default{Field: "Inlet velocity", Value: "the line's Speed", Reason: "not given: the line's flow velocity taken until the inlet is submerged (the stricter case)"})
-	}
+	// The residence time and the inlet velocity matter only where the model applies
+	// their clause: it records them as assumptions when it does.
 	return defs
 }
 

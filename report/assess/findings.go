@@ -334,12 +334,9 @@ func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *mode
 		if in.Filling == model.FillDipPipe {
 			how = "filling through a dip pipe"
 		}
-		switch {
-		case math.IsNaN(ev.InletVelocity):
+		if math.IsNaN(ev.InletVelocity) {
 			msg = fmt.Sprintf("%s of a low-conductivity liquid: inlet velocity until the inlet is submerged not given, so the %s slow start is not shown met", how, mps(lim.SlowStartVelocity))
-		case math.IsNaN(in.InletVelocity):
-			msg = fmt.Sprintf("%s of a low-conductivity liquid: no inlet velocity until submerged is given, so the line's %s is taken, above the %s slow start", how, mps(ev.InletVelocity), mps(lim.SlowStartVelocity))
-		default:
+		} else {
 			msg = fmt.Sprintf("%s of a low-conductivity liquid: inlet velocity %s until the inlet is submerged exceeds the %s slow start", how, mps(ev.InletVelocity), mps(lim.SlowStartVelocity))
 		}
 	case CheckSplashFilling:

@@ -1,6 +1,8 @@
 package assess
 
 import (
+	"math"
+	"math/rand/v2"
 	"strings"
 	"testing"
 
@@ -117,5 +119,85 @@ func TestLiquidSiteOverrides(t *testing.T) {
 	s.Site.Items = st.Items[:1]
 	if a := Assess(s, Options{}); !hasCheck(a.Objects[0], "filling-velocity") {
 		t.Errorf("v d 0.301 against a 0.3 override: findings %v", checks(a.Objects[0]))
+	}
+}
+
+// TestLiquidProperties: over thousands of random liquid rows, a blank transfer input
+// is never milder than any value it could have (unknown means the stricter case), and
+// raising the flow velocity never lowers the verdict.
+func TestLiquidProperties(t *testing.T) {
+	lim := model.DefaultLimits()
+	env := model.Environment{RelativeHumidity: 40, Temperature: 293.15, Atmosphere: model.Vapour, Group: model.IIA, Zone: model.Zone1, MIE: 0.24e-3}
+	rng := rand.New(rand.NewPCG(13, 13))
+	nan := math.NaN()
+	pick := func(xs ...float64) float64 { return xs[rng.IntN(len(xs))] }
+	verdict := func(in model.Input) int {
+		ev := model.Evaluate(in, env, lim)
+		return Classify(&in, &env, &ev, &lim, 10).Verdict.Severity()
+	}
+	for n := 0; n < 3000; n++ {
+		in := model.Input{Kind: model.Liquid, Material: model.Material{Permittivity: nan, SurfaceResistivity: nan, VolumeResistivity: nan, BreakdownStrength: nan},
+			Length: nan, Width: nan, Thickness: nan, DistanceToEarth: nan, Field: nan, FieldDistance: nan, SurfacePotential: nan,
+			MassFlow: nan, ChargeToMass: nan, ChargingCurrent: nan, ParticleSize: nan, ProductMIE: nan}
+		in.Speed = 0.2 + 8*rng.Float64()
+		in.Diameter = pick(0.025, 0.05, 0.1, 0.15, 0.2)
+		in.Conductivity = pick(nan, 0.1e-12, 5e-12, 20e-12, 200e-12, 2000e-12, 1e-6)
+		in.Permittivity = pick(nan, 2, 2.4, 6)
+		in.ChargingTime = pick(nan, 1, 60, 600)
+		in.Resistance = pick(nan, 10, 1e5, 1e9, 1e12)
+		in.Capacitance = pick(nan, nan, 100e-12)
+		in.VesselMaterial = model.VesselMaterial(rng.IntN(5))
+		in.VesselClass = model.VesselClass(rng.IntN(int(model.NumVesselClasses)))
+		in.VesselDiameter = pick(nan, 2, 15)
+		in.Filling = model.Filling(rng.IntN(4))
+		in.Filter = model.Filter(rng.IntN(4))
+		in.FilterResidence = pick(nan, 0.5, 20, 200)
+		in.SecondPhase = model.SecondPhase(rng.IntN(5))
+		in.InletVelocity = pick(nan, 0.5, 1.5)
+
+		// Each blank input against every value it could take.
+		blanks := []struct {
+			name   string
+			blank  func(*model.Input)
+			values []func(*model.Input)
+		}{
+			{"vessel material", func(x *model.Input) { x.VesselMaterial = 0 }, nil},
+			{"vessel class", func(x *model.Input) { x.VesselClass = 0 }, nil},
+			{"filling", func(x *model.Input) { x.Filling = 0 }, nil},
+			{"filter", func(x *model.Input) { x.Filter = 0; x.FilterResidence = nan }, nil},
+			{"second phase", func(x *model.Input) { x.SecondPhase = 0 }, nil},
+			{"inlet velocity", func(x *model.Input) { x.InletVelocity = nan }, nil},
+		}
+		setters := map[string][]func(*model.Input){
+			"vessel material": {func(x *model.Input) { x.VesselMaterial = model.VesselMetal }, func(x *model.Input) { x.VesselMaterial = model.VesselInsulating },
+				func(x *model.Input) { x.VesselMaterial = model.VesselLined }, func(x *model.Input) { x.VesselMaterial = model.VesselGlass }},
+			"filling": {func(x *model.Input) { x.Filling = model.FillTop }, func(x *model.Input) { x.Filling = model.FillBottom }, func(x *model.Input) { x.Filling = model.FillDipPipe }},
+			"filter": {func(x *model.Input) { x.Filter = model.FilterNone }, func(x *model.Input) { x.Filter = model.FilterStrainer },
+				func(x *model.Input) { x.Filter = model.FilterFine; x.FilterResidence = 200 }},
+			"second phase":   {func(x *model.Input) { x.SecondPhase = model.PhaseNone }, func(x *model.Input) { x.SecondPhase = model.PhaseWater }},
+			"inlet velocity": {func(x *model.Input) { x.InletVelocity = 0.5 }, func(x *model.Input) { x.InletVelocity = 1.5 }},
+		}
+		for c := model.VesselRoadTanker; c < model.NumVesselClasses; c++ {
+			c := c
+			setters["vessel class"] = append(setters["vessel class"], func(x *model.Input) { x.VesselClass = c })
+		}
+		for _, b := range blanks {
+			u := in
+			b.blank(&u)
+			vu := verdict(u)
+			for _, set := range setters[b.name] {
+				k := u
+				set(&k)
+				if vk := verdict(k); vk > vu {
+					t.Fatalf("row %d: blank %s gives severity %d, a value gives %d (%+v)", n, b.name, vu, vk, k)
+				}
+			}
+		}
+		// Raising the flow velocity never lowers the verdict.
+		faster := in
+		faster.Speed *= 1.5
+		if v0, v1 := verdict(in), verdict(faster); v1 < v0 {
+			t.Fatalf("row %d: speed %g -> %g lowers severity %d -> %d (%+v)", n, in.Speed, faster.Speed, v0, v1, in)
+		}
 	}
 }
