@@ -49,6 +49,9 @@ func TestLiquidRulesByVesselAndClass(t *testing.T) {
 		{"fixed tank 12 m no v d", func() Input { in := fill(VesselFixedTank, low, 6.99, 0.2); in.VesselDiameter = 12; return in }(), 0, math.Inf(1), false},
 		{"fixed tank 12 m ceiling", func() Input { in := fill(VesselFixedTank, low, 7.01, 0.2); in.VesselDiameter = 12; return in }(), ClauseCeiling, math.Inf(1), true},
 		{"fixed tank no diameter", fill(VesselFixedTank, low, 3.804, 0.1), ClauseVD, 0.38, true},
+		// The large-tank boundary (10 m, a screening choice): 9.99 m keeps the v d limit, 10 m drops it.
+		{"fixed tank 9.99 m", func() Input { in := fill(VesselFixedTank, low, 3.804, 0.1); in.VesselDiameter = 9.99; return in }(), ClauseVD, 0.38, true},
+		{"fixed tank 10 m", func() Input { in := fill(VesselFixedTank, low, 3.804, 0.1); in.VesselDiameter = 10; return in }(), 0, math.Inf(1), false},
 		{"IBC inside", fill(VesselIBC, low, 3.796, 0.1), 0, 0.38, false},
 		{"IBC outside", fill(VesselIBC, low, 3.804, 0.1), ClauseVD, 0.38, true},
 		// derived: 7.608 m/s in 50 mm breaks the v d limit (0.3804) and the 7 m/s ceiling.
@@ -153,6 +156,25 @@ func TestLiquidClauseBoundaries(t *testing.T) {
 	m.Conductivity = 2000e-12
 	if ev := Evaluate(m, env, lim); ev.RuleClass != ConductivityMedium || ev.LiquidBreaches != 0 {
 		t.Errorf("2000 pS/m with water: rule class %v clauses %b", ev.RuleClass, ev.LiquidBreaches)
+	}
+	// The 1000 pS/m boundary (reference section 8 [C]): 999 pS/m with water is low, 1000 is not.
+	m.Conductivity = 999e-12
+	if ev := Evaluate(m, env, lim); ev.RuleClass != ConductivityLow {
+		t.Errorf("999 pS/m with water: rule class %v", ev.RuleClass)
+	}
+	m.Conductivity = 1000e-12
+	if ev := Evaluate(m, env, lim); ev.RuleClass != ConductivityMedium {
+		t.Errorf("1000 pS/m with water: rule class %v", ev.RuleClass)
+	}
+	// The 50 pS/m class boundary (IEC TS 60079-32-1 [C]): 50 pS/m is low, 51 pS/m medium
+	// (no second phase: the 7 m/s ceiling only, so 5 m/s in 100 mm, v d 0.5, clears).
+	h := with(func(in *Input) { in.Conductivity, in.Speed = 50e-12, 5.01 })
+	if ev := Evaluate(h, env, lim); ev.RuleClass != ConductivityLow || !ev.LiquidBreaches.Has(ClauseVD) {
+		t.Errorf("50 pS/m: rule class %v clauses %b", ev.RuleClass, ev.LiquidBreaches)
+	}
+	h.Conductivity = 51e-12
+	if ev := Evaluate(h, env, lim); ev.RuleClass != ConductivityMedium || ev.LiquidBreaches != 0 {
+		t.Errorf("51 pS/m: rule class %v clauses %b", ev.RuleClass, ev.LiquidBreaches)
 	}
 }
 
