@@ -11,8 +11,9 @@ import "math"
 // conductive roller, container, part and person the conductor recipe; powder the
 // powder recipe (cone discharge, plus the receiving container as a conductor when
 // Resistance or Capacitance is on the row); liquid the liquid recipe (the
-// receiving container as a conductor charged by the streaming current when
-// Resistance or Capacitance is on the row, and a brush screen for its surface);
+// filling clauses of the vessel class, the receiving vessel or a conductive
+// liquid in an insulating vessel as a conductor charged by the streaming current,
+// and a brush from the liquid surface where a clause is not met);
 // bag the bag rules (BagTypeAllowed) and the discharges of its type.
 func Evaluate(in Input, env Environment, lim Limits) Evaluation {
 	ev := newEvaluation(in.Kind)
