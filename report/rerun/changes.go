@@ -432,7 +432,7 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		a.SIText = f.String()
 		a.Description = "filling method set to " + f.String()
 		if f != model.FillTop {
-			a.Description += " (the inlet velocity until submerged is the row's, or the line's speed when not given)"
+			a.Description += " (for a low-conductivity liquid the slow start needs the row's Inlet velocity; without one it is not shown met)"
 		}
 	case ChangeVesselMaterial:
 		m, err := model.ParseVesselMaterial(c.Value)
