@@ -80,6 +80,10 @@ func brokenSurveys() []brokenSurvey {
 			func(s *SurveySheets) { setObjectCell(*s, "BAG-B", "Bag type", "E") }},
 		{"bad-filling", "MIX-TOL2 filling pumped, not top, bottom or dip pipe",
 			func(s *SurveySheets) { setObjectCell(*s, "MIX-TOL2", "Filling", "pumped") }},
+		{"bad-vessel-class", "MIX-TOL2 vessel class barge, not one of the vessel classes",
+			func(s *SurveySheets) { setObjectCell(*s, "MIX-TOL2", "Vessel class", "barge") }},
+		{"negative-residence", "MIX-TOL2 residence time after the filter -5 s",
+			func(s *SurveySheets) { setObjectCell(*s, "MIX-TOL2", "Residence time", -5.0) }},
 	}
 }
 

@@ -59,6 +59,11 @@ const (
 	ListFilling        = "Filling"
 	ListSubstance      = "Substance"
 	ListProcess        = "Process"
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	ListVesselMaterial = "Vessel material"
+	ListVesselClass    = "Vessel class"
+	ListFilter         = "Filter"
+	ListSecondPhase    = "Second phase"
 )
 
 // FixedLists returns the values of the drop-down lists that do not depend on the survey.
@@ -73,6 +78,10 @@ func FixedLists() map[string][]string {
 		ListBagType:        {"A", "B", "C", "D"},
 		ListFilling:        {"top", "bottom", "dip pipe"},
 		ListProcess:        {"moving web", "belt", "pneumatic conveying", "fixed equipment"},
+		ListVesselMaterial: {"metal", "insulating", "lined", "glass"},
+		ListVesselClass:    {"road tanker", "rail tank car", "fixed tank", "IBC", "drum", "can"},
+		ListFilter:         {"none", "strainer", "filter"},
+		ListSecondPhase:    {"none", "free water", "suspended solids", "immiscible liquid"},
 	}
 }
 
@@ -135,10 +144,18 @@ var objectColumns = []Column{
 	{Name: "Conductivity", Unit: "pS/m", Dim: Conductivity, Hint: "Liquid conductivity (liquid rows)"},
 	{Name: "Relative permittivity", Dim: Dimensionless, Hint: "Of the liquid, when not from a material (liquid rows)"},
 	{Name: "Bag type", Dim: Text, List: ListBagType, Hint: "A, B, C or D (IEC 61340-4-4); blank: assessed as the most restrictive case"},
-	{Name: "Filling", Dim: Text, List: ListFilling, Hint: "top, bottom or dip pipe (liquid rows)"},
-	{Name: "Notes", Dim: Text, Hint: "Free text"},
+	{Name: "Filling", Dim: Text, List: ListFilling, Hint: "top (splash), bottom or dip pipe to the bottom (liquid rows); blank: top"},
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	{Name: "Vessel material", Dim: Text, List: ListVesselMaterial, Hint: "Receiving vessel: metal, insulating (plastic), lined (or coated) or glass (liquid rows); blank: the stricter case"},
+	{Name: "Vessel class", Dim: Text, List: ListVesselClass, Hint: "road tanker, rail tank car, fixed tank, IBC, drum or can (liquid rows); blank: the strictest class"},
+	{Name: "Vessel diameter", Unit: "m", Dim: Length, Hint: "Diameter of a fixed tank (liquid rows); blank: not a large tank"},
+	{Name: "Filter", Dim: Text, List: ListFilter, Hint: "Upstream of the vessel: none, strainer (coarse) or filter (fine or micro-filter) (liquid rows)"},
+	{Name: "Residence time", Unit: "s", Dim: Time, Hint: "Time the liquid takes from the filter to the vessel (liquid rows); blank: none"},
+	{Name: "Second phase", Dim: Text, List: ListSecondPhase, Hint: "none, free water, suspended solids or immiscible liquid (liquid rows)"},
+	{Name: "Inlet velocity", Unit: "m/s", Dim: Speed, Hint: "Velocity at the inlet until it is submerged (liquid rows); blank: the slow start is not shown met"},
 	{Name: "Layer breakdown", Unit: "kV", Dim: Potential, Hint: "Measured breakdown voltage of the insulating layer itself (IEC 60243-1 style); blank: taken above 4 kV. Only a measured value at or below 4 kV rules out a propagating brush"},
 	{Name: "Process", Dim: Text, List: ListProcess, Hint: "moving web, belt, pneumatic conveying (product through this insulating pipe, hose or liner) or fixed equipment; blank: a belt, or a sheet with a Speed, is process material; anything else fixed equipment (area limit)"},
+	{Name: "Notes", Dim: Text, Hint: "Free text"},
 }
 
 var materialColumns = []Column{

@@ -167,14 +167,14 @@ func corpusCases() []corpusCase {
 				st.Rows = append([][]any{{"Stations of line C2"}}, st.Rows...)
 			},
 			post: func(f *excelize.File) error { return f.MergeCell(SheetStations, "A1", "F1") }},
-		{name: "merged-header-cells", fault: "the Objects Notes header merged across AA1:AB1 (accepted: no problem)",
-			post: func(f *excelize.File) error { return f.MergeCell(SheetObjects, "AA1", "AB1") }},
-		{name: "duplicate-column", fault: "a second Field [kV/m] column at AB with other values",
+		{name: "merged-header-cells", fault: "the Objects Notes header merged across AH1:AI1 (accepted: no problem)",
+			post: func(f *excelize.File) error { return f.MergeCell(SheetObjects, "AH1", "AI1") }},
+		{name: "duplicate-column", fault: "a second Field [kV/m] column at AI with other values",
 			mutate: func(s *SurveySheets) {
 				addObjectColumn(*s, "Field [kV/m]", map[string]any{"COAT-WEB": 999.0})
-				// addObjectColumn puts the column at AB (after AA Notes).
+				// addObjectColumn puts the column at AI (after AH Notes).
 			}},
-		{name: "extra-columns", fault: "three extra Objects columns Shift, Operator, Checked at AB, AC, AD",
+		{name: "extra-columns", fault: "three extra Objects columns Shift, Operator, Checked at AI, AJ, AK",
 			mutate: func(s *SurveySheets) {
 				addObjectColumn(*s, "Shift", map[string]any{"COAT-WEB": "early"})
 				addObjectColumn(*s, "Operator", map[string]any{"COAT-WEB": "J. Doe"})

@@ -244,7 +244,7 @@ func demoAtmospheres() [][]any {
 	return [][]any{
 		headerRow(cols),
 		// Every value below is invented for the demo.
-		a("ID", "A-TOL1", "Description", "Toluene vapour at the coating head and at drum filling", "Substance", "toluene",
+		a("ID", "A-TOL1", "Description", "Toluene vapour at the coating head, drum filling and the loading bay", "Substance", "toluene",
 			"Kind", "vapour", "MIE", 0.24, "Group", "IIA", "Zone", "1", "Notes", "Site classification drawing HA-C2-01"), // invented for the demo
 		a("ID", "A-TOL2", "Description", "Toluene vapour around the drying tunnel, interleaf and rewind", "Substance", "toluene",
 			"Kind", "vapour", "Zone", "2", "Notes", "MIE and group left blank: taken from the built-in substance"), // invented for the demo
@@ -266,11 +266,12 @@ func demoStations() [][]any {
 		s("ID", "ST-DRY", "Name", "Drying tunnel exit", "Line", "Coating line C2", "Atmosphere", "A-TOL2"),     // invented for the demo
 		s("ID", "ST-LAM", "Name", "Paper interleaf", "Line", "Coating line C2", "Atmosphere", "A-TOL2", "Relative humidity", 65.0, // invented for the demo
 			"Notes", "Humidified enclosure"), // invented for the demo
-		s("ID", "ST-REW", "Name", "Rewind", "Line", "Coating line C2", "Atmosphere", "A-TOL2"),                // invented for the demo
-		s("ID", "ST-MIX", "Name", "Solvent charging, mixer M1", "Line", "Mixing room", "Atmosphere", "A-MIX"), // invented for the demo
-		s("ID", "ST-PWD", "Name", "Powder charging", "Line", "Mixing room", "Atmosphere", "A-RES"),            // invented for the demo
-		s("ID", "ST-BAG", "Name", "Bulk-bag emptying", "Line", "Mixing room", "Atmosphere", "A-RES"),          // invented for the demo
-		s("ID", "ST-DRM", "Name", "Drum filling", "Line", "Filling hall", "Atmosphere", "A-TOL1"),             // invented for the demo
+		s("ID", "ST-REW", "Name", "Rewind", "Line", "Coating line C2", "Atmosphere", "A-TOL2"),                   // invented for the demo
+		s("ID", "ST-MIX", "Name", "Solvent charging, mixer M1", "Line", "Mixing room", "Atmosphere", "A-MIX"),    // invented for the demo
+		s("ID", "ST-PWD", "Name", "Powder charging", "Line", "Mixing room", "Atmosphere", "A-RES"),               // invented for the demo
+		s("ID", "ST-BAG", "Name", "Bulk-bag emptying", "Line", "Mixing room", "Atmosphere", "A-RES"),             // invented for the demo
+		s("ID", "ST-DRM", "Name", "Drum filling", "Line", "Filling hall", "Atmosphere", "A-TOL1"),                // invented for the demo
+		s("ID", "ST-BAY", "Name", "Loading bay and IBC filling", "Line", "Filling hall", "Atmosphere", "A-TOL1"), // invented for the demo
 	}
 }
 
@@ -347,13 +348,16 @@ func demoObjects() [][]any {
 		// an unearthed wash tank and an operator on the painted floor are incendive.
 		o("MIX-TOL1", "ST-MIX", KindLiquid, "Toluene through the top nozzle (free fall), no additive", "",
 			"Diameter", 0.05, "Speed", 4.0, "Charging time", 600.0, "Resistance to earth", 50.0, "Capacitance", 1000.0,
-			"Conductivity", 1.0, "Relative permittivity", 2.4, "Filling", "top"), // invented for the demo
+			"Conductivity", 1.0, "Relative permittivity", 2.4, "Filling", "top",
+			"Vessel material", "metal", "Vessel class", "fixed tank", "Vessel diameter", 1.6, "Filter", "none", "Second phase", "none"), // invented for the demo
 		o("MIX-TOL2", "ST-MIX", KindLiquid, "Toluene with conductivity additive through the dip pipe", "",
 			"Diameter", 0.05, "Speed", 2.0, "Charging time", 900.0, "Resistance to earth", 50.0, "Capacitance", 1000.0,
-			"Conductivity", 150.0, "Relative permittivity", 2.4, "Filling", "dip pipe"), // invented for the demo
+			"Conductivity", 150.0, "Relative permittivity", 2.4, "Filling", "dip pipe",
+			"Vessel material", "metal", "Vessel class", "fixed tank", "Vessel diameter", 1.6, "Filter", "none", "Second phase", "none"), // invented for the demo
 		o("MIX-EA", "ST-MIX", KindLiquid, "Ethyl acetate into the mobile wash tank on plastic castors", "",
 			"Diameter", "25 mm", "Speed", 3.0, "Charging time", 120.0, "Resistance to earth", 1e11, "Capacitance", 300.0,
-			"Conductivity", 4.6e5, "Relative permittivity", 6.0, "Filling", "dip pipe"), // invented for the demo
+			"Conductivity", 4.6e5, "Relative permittivity", 6.0, "Filling", "dip pipe",
+			"Vessel material", "metal", "Vessel class", "IBC", "Filter", "none", "Second phase", "none"), // invented for the demo
 		o("MIX-VES", "ST-MIX", KindContainer, "Mixer vessel M1, 2 m³, stainless", "stainless steel",
 			"Diameter", 1.6, "Charging current", 0.15, "Resistance to earth", 50.0, "Capacitance", 1000.0), // invented for the demo
 		o("MIX-OP", "ST-MIX", KindPerson, "Operator at the manway, ordinary shoes on the painted floor", "",
@@ -407,6 +411,24 @@ func demoObjects() [][]any {
 			"Surface potential", 0.0, "Resistance to earth", 2.0, "Capacitance", 120.0), // invented for the demo
 		o("DRM-OP", "ST-DRM", KindPerson, "Filling operator, ESD shoes on the conductive floor", "",
 			"Resistance to earth", 1e7, "Capacitance", 200.0), // invented for the demo
+
+		// Loading bay and IBC filling (toluene, zone 1): a bottom-loaded tanker compartment
+		// that meets every clause clears; a compartment top-loaded through the drop tube too
+		// fast breaks the road-tanker v·d limit; toluene with conductivity additive pumped
+		// through a cartridge filter into a plastic IBC with no earthed dip pipe is an
+		// isolated conductor.
+		o("BAY-BOT", "ST-BAY", KindLiquid, "Toluene bottom-loaded into compartment 1, earth and overfill interlock", "",
+			"Diameter", 0.1, "Speed", 3.0, "Charging time", 1200.0, "Resistance to earth", 10.0,
+			"Conductivity", 1.0, "Relative permittivity", 2.4, "Filling", "bottom",
+			"Vessel material", "metal", "Vessel class", "road tanker", "Filter", "strainer", "Second phase", "none", "Inlet velocity", 0.8), // invented for the demo
+		o("BAY-TOP", "ST-BAY", KindLiquid, "Toluene top-loaded into compartment 2 through the swing-arm drop tube", "",
+			"Diameter", 0.1, "Speed", 4.5, "Charging time", 900.0, "Resistance to earth", 10.0,
+			"Conductivity", 1.0, "Relative permittivity", 2.4, "Filling", "dip pipe",
+			"Vessel material", "metal", "Vessel class", "road tanker", "Filter", "strainer", "Second phase", "none", "Inlet velocity", 1.0), // invented for the demo
+		o("BAY-IBC", "ST-BAY", KindLiquid, "Toluene with additive through a 10 µm cartridge filter into a plastic IBC, no earthing rod", "",
+			"Diameter", 0.05, "Speed", 2.0, "Charging time", 250.0,
+			"Conductivity", 150.0, "Relative permittivity", 2.4, "Filling", "top",
+			"Vessel material", "insulating", "Vessel class", "IBC", "Filter", "filter", "Residence time", 0.3, "Second phase", "none"), // invented for the demo
 	}
 }
 

@@ -127,7 +127,8 @@ func utValidBook() utBook {
 			utRow(SheetObjects, map[string]any{"ID": "P-1", "Station": "ST-1", "Kind": "part", "Charging current": 1}),
 			utRow(SheetObjects, map[string]any{"ID": "OP-1", "Station": "ST-1", "Kind": "person", "Resistance to earth": "1e8"}),
 			utRow(SheetObjects, map[string]any{"ID": "PW-1", "Station": "ST-2", "Kind": "powder", "Mass flow": 0.5, "Diameter": 1, "Particle size": 1}),
-			utRow(SheetObjects, map[string]any{"ID": "L-1", "Station": "ST-1", "Kind": "liquid", "Speed": 1, "Diameter": 0.05, "Conductivity": 1}),
+			utRow(SheetObjects, map[string]any{"ID": "L-1", "Station": "ST-1", "Kind": "liquid", "Speed": 1, "Diameter": 0.05, "Conductivity": 1,
+				"Filling": "bottom", "Vessel material": "metal", "Vessel class": "drum", "Inlet velocity": 0.5, "Filter": "none", "Second phase": "none"}),
 			utRow(SheetObjects, map[string]any{"ID": "BG-1", "Station": "ST-2", "Kind": "bag", "Bag type": "C", "Resistance to earth": "1e6"}),
 		}},
 		{SheetMaterials, [][]any{

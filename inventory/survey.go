@@ -148,6 +148,15 @@ type Object struct {
 	BagType      string   // "A","B","C","D" or ""
 	Filling      string   // "top","bottom","dip pipe" or ""
 
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	VesselMaterial string   // "metal","insulating","lined","glass" or ""
+	VesselClass    string   // "road tanker","rail tank car","fixed tank","IBC","drum","can" or ""
+	VesselDiameter Quantity // m, a fixed tank's diameter
+	Filter         string   // "none","strainer","filter" or ""
+	Residence      Quantity // s, residence time between the filter and the vessel
+	SecondPhase    string   // "none","free water","suspended solids","immiscible liquid" or ""
+	InletVelocity  Quantity // m/s until the inlet is submerged
+
 	Notes string
 	Row   int
 

@@ -164,7 +164,8 @@ const materialListRows = 200
 func writeLists(f *excelize.File, opts TemplateOptions) (listRanges, error) {
 	fixed := FixedLists()
 	names := []string{ListKind, ListBacking, ListZone, ListGroup, ListAtmosphereKind,
-		ListMaterialClass, ListBagType, ListFilling, ListSubstance, ListMaterial, ListProcess}
+		ListMaterialClass, ListBagType, ListFilling, ListSubstance, ListMaterial,
+		ListVesselMaterial, ListVesselClass, ListFilter, ListSecondPhase, ListProcess}
 	r := listRanges{
 		ListStation:    fmt.Sprintf("'%s'!$A$2:$A$%d", SheetStations, TemplateRows+1),
 		ListAtmosphere: fmt.Sprintf("'%s'!$A$2:$A$%d", SheetAtmospheres, TemplateRows+1),

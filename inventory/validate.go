@@ -1202,6 +1202,10 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	o.Backing = f.enumValue("Backing", op.lists[ListBacking], map[string]string{"grounded": "earthed", "earth": "earthed", "on earthed metal": "earthed", "no": "none", "free": "none"})
 	o.BagType = bagTypeValue(f, op.lists[ListBagType])
 	o.Filling = f.enumValue("Filling", op.lists[ListFilling], map[string]string{"dip tube": "dip pipe", "diptube": "dip pipe", "top fill": "top", "bottom fill": "bottom", "splash": "top"})
+	o.VesselMaterial = f.enumValue("Vessel material", op.lists[ListVesselMaterial], map[string]string{"plastic": "insulating", "steel": "metal", "stainless steel": "metal", "coated": "lined", "lined or coated": "lined", "conductive": "metal"})
+	o.VesselClass = f.enumValue("Vessel class", op.lists[ListVesselClass], map[string]string{"rail car": "rail tank car", "rail tanker": "rail tank car", "storage tank": "fixed tank", "fixed storage tank": "fixed tank", "tank": "fixed tank", "tanker": "road tanker", "small container": "can", "can or small container": "can", "barrel": "drum"})
+	o.Filter = f.enumValue("Filter", op.lists[ListFilter], map[string]string{"micro filter": "filter", "microfilter": "filter", "micro-filter": "filter", "fine filter": "filter", "coarse strainer": "strainer", "no": "none"})
+	o.SecondPhase = f.enumValue("Second phase", op.lists[ListSecondPhase], map[string]string{"water": "free water", "solids": "suspended solids", "immiscible": "immiscible liquid", "no": "none"})
 
 	// The cells are parsed in the order of the columns below (their problems
 	// come in that order); the Parsed of those checked for slips is kept.
@@ -1227,6 +1231,9 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	var pBreakdown Parsed
 	o.LayerBreakdown, pBreakdown = f.qty("Layer breakdown")
 	o.Process = f.enumValue("Process", op.lists[ListProcess], map[string]string{"web": "moving web", "film": "moving web", "moving film": "moving web", "conveyor belt": "belt", "pneumatic": "pneumatic conveying", "equipment": "fixed equipment"})
+	o.VesselDiameter, _ = f.qty("Vessel diameter")
+	o.Residence, _ = f.qty("Residence time")
+	o.InletVelocity, _ = f.qty("Inlet velocity")
 
 	// physical ranges
 	for _, n := range []struct {
@@ -1235,9 +1242,11 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	}{{"Length", o.Length}, {"Width", o.Width}, {"Diameter", o.Diameter}, {"Thickness", o.Thickness},
 		{"Distance to earth", o.DistanceToEarth}, {"Field distance", o.FieldDistance}, {"Particle size", o.ParticleSize},
 		{"Charging time", o.ChargingTime}, {"Resistance to earth", o.Resistance}, {"Capacitance", o.Capacitance},
-		{"Conductivity", o.Conductivity}, {"Layer breakdown", o.LayerBreakdown}} {
+		{"Conductivity", o.Conductivity}, {"Layer breakdown", o.LayerBreakdown}, {"Vessel diameter", o.VesselDiameter}} {
 		f.positive(n.name, n.q)
 	}
+	f.nonNegative("Residence time", o.Residence)
+	f.nonNegative("Inlet velocity", o.InletVelocity)
 	f.slip("Length", o.Length, pLength, MaxSize, "larger than any plant object")
 	f.slip("Width", o.Width, pWidth, MaxSize, "larger than any plant object")
 	f.slip("Diameter", o.Diameter, pDiameter, MaxSize, "larger than any plant object")
@@ -1274,6 +1283,9 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 			f.errorf("Station", ErrRequired, "give the station an Atmosphere (kind dust with the product's MIE, or kind none for a non-combustible product)",
 				"%s: station %s has no Atmosphere; the product's MIE decides which bag types may be used", who, o.Station)
 		}
+	}
+	if o.Kind == KindLiquid {
+		liquidNeeds(f, &o, who)
 	}
 	if (o.Kind == KindSheet || o.Kind == KindBelt) && o.Material == "" && f.text("Material") == "" {
 		f.warnf("Material", nil, "enter the material", "%s: no Material; the model takes default material properties", who)
@@ -1418,6 +1430,40 @@ func potentialGeometryNeed(f *field, o *Object, who string, given func(string, Q
 		"%s: a Surface potential on a free surface gives no charge density: needs Backing earthed with Thickness, or Distance to earth; not assessed until then", who)
 }
 
+// liquidNeeds warns about a liquid row's transfer inputs that are blank and so
+// assessed as the stricter case (the assessment says the same beside the value).
+func liquidNeeds(f *field, o *Object, who string) {
+	blank := func(name, v string) bool { return v == "" && f.text(name) == "" }
+	if blank("Vessel material", o.VesselMaterial) {
+		f.warnf("Vessel material", ErrRequired, "enter metal, insulating, lined or glass", "%s: no Vessel material; assessed as the stricter of metal (unearthed) and insulating (no safe filling limits)", who)
+	}
+	if blank("Vessel class", o.VesselClass) {
+		f.warnf("Vessel class", ErrRequired, "enter road tanker, rail tank car, fixed tank, IBC, drum or can", "%s: no Vessel class; the strictest class's filling limits and the largest typical capacitance are taken", who)
+	}
+	if blank("Filling", o.Filling) {
+		f.warnf("Filling", ErrRequired, "enter top, bottom or dip pipe", "%s: no Filling; assessed as top (splash) filling", who)
+	}
+	if o.VesselClass == "fixed tank" && !o.VesselDiameter.Known && f.text("Vessel diameter") == "" {
+		f.warnf("Vessel diameter", ErrRequired, "enter the tank's diameter", "%s: a fixed tank with no Vessel diameter is not taken as a large tank (the v·d limit applies)", who)
+	}
+	if blank("Filter", o.Filter) {
+		f.warnf("Filter", ErrRequired, "enter none, strainer or filter", "%s: no Filter; assessed as a fine filter with no residence time after it (the stricter case)", who)
+	}
+	if blank("Second phase", o.SecondPhase) {
+		f.warnf("Second phase", ErrRequired, "enter none, free water, suspended solids or immiscible liquid", "%s: no Second phase; assessed as present (the stricter case)", who)
+	}
+	if o.Filter == "filter" && !o.Residence.Known && f.text("Residence time") == "" {
+		f.warnf("Residence time", ErrRequired, "enter the time the liquid takes from the filter to the vessel", "%s: a fine filter with no Residence time; taken as none", who)
+	}
+	// The slow start concerns low-conductivity liquids; a second phase makes a liquid
+	// below 1000 pS/m one (IEC TS 60079-32-1, reference section 8 [C]).
+	twoPhase := o.SecondPhase != "none" // not stated: taken as present
+	chargeable := !o.Conductivity.Known || o.Conductivity.Value <= 50e-12 || (twoPhase && o.Conductivity.Value < 1000e-12)
+	if chargeable && (o.Filling == "bottom" || o.Filling == "dip pipe") && !o.InletVelocity.Known && f.text("Inlet velocity") == "" {
+		f.warnf("Inlet velocity", ErrRequired, "enter the velocity at the inlet until it is submerged (at most 1 m/s for low-conductivity liquids)", "%s: no Inlet velocity; the slow start until the inlet is submerged is not shown met", who)
+	}
+}
+
 func joinAnd(s []string) string {
 	switch len(s) {
 	case 0:
@@ -1520,7 +1566,7 @@ type builtinHit struct {
 
 // ChangeKinds lists the Change codes of the Changes sheet.
 func ChangeKinds() []string {
-	return []string{"rh", "station-rh", "earth", "material", "footwear", "margin", "speed", "conductivity", "bag-type"}
+	return []string{"rh", "station-rh", "earth", "material", "footwear", "margin", "speed", "conductivity", "bag-type", "filling", "vessel-material"}
 }
 
 func (v *validator) changes(t *table, stations, objs map[string]refState) {

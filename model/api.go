@@ -123,6 +123,14 @@ type Input struct {
 	// drawn about the model's estimate (uncertainty sampling): it may not clear a
 	// requirement that only a measured capacitance clears (small-part exemption).
 	CapacitanceEstimated bool
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	VesselMaterial  VesselMaterial // receiving vessel's material; unknown: the stricter of metal and insulating
+	VesselClass     VesselClass    // receiving vessel's class; unknown: the strictest class
+	VesselDiameter  float64        // m, a fixed tank's diameter; NaN unknown (not a large tank)
+	Filter          Filter         // filter or strainer upstream of the vessel
+	FilterResidence float64        // s, residence time between the filter and the vessel; NaN unknown (none)
+	SecondPhase     SecondPhase    // second phase carried by the liquid
+	InletVelocity   float64        // m/s until the inlet is submerged; NaN: unknown (the slow start not shown met)
 }
 
 // BagType is the flexible bulk container type of IEC 61340-4-4.
@@ -276,6 +284,15 @@ type Evaluation struct {
 	// resistivity at this RH, or of dissipative class) and is not earthed: it is
 	// assessed for a spark as an isolated conductor.
 	IsolatedConductor bool
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	RuleClass         ConductivityClass // class the filling rules use: low also for a second phase below Limits.SecondPhaseConductivity
+	LiquidBreaches    LiquidClause      // filling clauses not met, or not shown met for want of an input
+	VDLimit           float64           // m^2/s, the v d limit applied; +Inf none; NaN not applicable
+	VelocityCeiling   float64           // m/s, the velocity ceiling applied (the second-phase limit when lower)
+	InletVelocity     float64           // m/s until submerged, as judged; NaN when not given or not applicable
+	FilterResidence   float64           // s, residence needed after a fine filter; NaN when there is none
+	ChargeFactor      float64           // factor on the plain-pipe streaming current (filter, second phase)
+	VesselCapacitance float64           // F, the typical capacitance of the vessel class taken; NaN when measured or not used
 }
 
 // BreakdownSource says where Evaluation.LayerBreakdown came from.
@@ -306,7 +323,7 @@ type CapModel uint8
 type PotentialSource uint8
 
 // Assumption is a bit set of defaults the model applied.
-type Assumption uint32
+type Assumption uint64
 
 // Flag is a bit set of things the model noticed about the inputs or results.
 type Flag uint32

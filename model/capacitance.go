@@ -66,7 +66,7 @@ const (
 	CapTypical                        // documented typical value for the kind
 	CapDisc                           // isolated disc of the same area (conducting sheet)
 	CapSheetOverEarth                 // plate over earth eps0 A / h (conducting sheet near a floor)
-	CapSizeTable                      // vessel size table (VesselCapacitance)
+	CapSizeTable                      // vessel size table (VesselSizeCapacitance)
 )
 
 // String names the capacitance model.
@@ -92,37 +92,37 @@ func (m CapModel) String() string {
 	return "none"
 }
 
-// VesselClass is one row of the vessel size table.
-type VesselClass struct {
+// VesselSize is one row of the vessel size table.
+type VesselSize struct {
 	Name        string
 	MaxVolume   float64 // m^3, upper end of the class (Inf for the last)
 	MaxDiameter float64 // m, upper end when only the diameter is known
 	Capacitance float64 // F, the upper end of the class's published range
 }
 
-// VesselClasses returns the size table a conductive vessel's capacitance is
+// VesselSizes returns the size table a conductive vessel's capacitance is
 // estimated from when not measured, the upper end of each published range
 // (reference sections 2 and 12, from memory): bucket, can and drum up to 200 L,
 // 10-100 pF (a 200 L drum on a dry pallet measured 70 pF, BG RCI FAQ 7.15);
 // containers of 250-500 L, 50-300 pF; reaction vessels (100-1000 pF), IBCs and
 // road tankers (about 1000 pF): 1000 pF. The class edges by diameter (a 200 L drum
 // is about 0.6 m across) are a screening choice of this tool.
-func VesselClasses() []VesselClass {
-	return []VesselClass{
+func VesselSizes() []VesselSize {
+	return []VesselSize{
 		{"drum, can or bucket (up to 200 L)", 0.25, 0.65, 100e-12},
 		{"container of 250-500 L", 0.5, 0.9, 300e-12},
 		{"vessel, IBC or tanker (above 500 L)", math.Inf(1), math.Inf(1), 1000e-12},
 	}
 }
 
-// VesselCapacitance returns the estimated capacitance of a floor-standing
+// VesselSizeCapacitance returns the estimated capacitance of a floor-standing
 // conductive vessel of diameter d and height (Length) l from the size table
-// VesselClasses: by volume pi d^2 l / 4 when both are known, by diameter when only
+// VesselSizes: by volume pi d^2 l / 4 when both are known, by diameter when only
 // it is; an unknown size takes the largest class (the stricter case). The
 // isolated sphere of the vessel's size is taken when larger (very large tanks),
 // as a lower bound. It returns the value and the class used.
-func VesselCapacitance(d, l float64) (float64, VesselClass) {
-	classes := VesselClasses()
+func VesselSizeCapacitance(d, l float64) (float64, VesselSize) {
+	classes := VesselSizes()
 	cls := classes[len(classes)-1]
 	switch {
 	case positive(d) && positive(l):

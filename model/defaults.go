@@ -33,10 +33,7 @@ func DefaultLimits() Limits {
 
 		LowConductivity:   50e-12,
 		HighConductivity:  1e4 * 1e-12,
-		VDHigh:            0.5,
-		VDLow:             0.38,
 		VDKappa:           10e-12,
-		MaxVelocity:       7,
 		SlowStartVelocity: 1,
 
 		BagCToTab:     1e8,
@@ -59,6 +56,18 @@ func DefaultLimits() Limits {
 		SmallPartCapacitance:    10e-12,
 		SmallPartCapacitanceIIC: 3e-12,
 		DustBrushMIE:            1e-3,
+		// Liquid transfer by vessel class: unknown, road tanker, rail tank car, fixed tank, IBC, drum, can.
+		VesselVDLow:             [NumVesselClasses]float64{nan, 0.38, 0.75, 0.38, 0.38, 0.38, 0.38},
+		VesselVDHigh:            [NumVesselClasses]float64{nan, 0.5, 0.75, 0.5, 0.5, 0.5, 0.5},
+		VesselMaxVelocity:       [NumVesselClasses]float64{nan, 7, 7, 7, 7, 7, 7},
+		LargeTankDiameter:       10,
+		SecondPhaseVelocity:     1,
+		SecondPhaseConductivity: 1000e-12,
+		FilterResidenceFactor:   ResidenceFactor,
+		FilterResidenceMax:      100,
+		FilterChargeFactor:      100,
+		StrainerChargeFactor:    1,
+		SecondPhaseChargeFactor: 10,
 	}
 }
 
@@ -128,10 +137,7 @@ func LimitSources() []Citation {
 	add("PersonMaxPotential", l.PersonMaxPotential, "V", srcWalking, false)
 	add("LowConductivity", l.LowConductivity, "S/m", srcTS32, false)
 	add("HighConductivity", l.HighConductivity, "S/m", srcTS32, true)
-	add("VDHigh", l.VDHigh, "m^2/s", srcTS32+" (road-tanker filling)", false)
-	add("VDLow", l.VDLow, "m^2/s", srcTS32+" (road-tanker filling)", false)
 	add("VDKappa", l.VDKappa, "S/m", srcTS32, false)
-	add("MaxVelocity", l.MaxVelocity, "m/s", srcTS32, true)
 	add("SlowStartVelocity", l.SlowStartVelocity, "m/s", srcTS32, true)
 	add("BagCToTab", l.BagCToTab, "ohm", srcBags+" (1e7 ohm in the earlier edition and in "+srcTRGS+")", false)
 	add("BagTabToEarth", l.BagTabToEarth, "ohm", srcBags, false)
@@ -151,5 +157,21 @@ func LimitSources() []Citation {
 	add("SmallPartCapacitance", l.SmallPartCapacitance, "F", src0+" (small isolated metal parts exempt from earthing, IIA/IIB/Group III)", true)
 	add("SmallPartCapacitanceIIC", l.SmallPartCapacitanceIIC, "F", src0+" (small isolated metal parts exempt from earthing, IIC or EPL Ga)", true)
 	add("DustBrushMIE", l.DustBrushMIE, "J", srcChoice+": dusts below about 1 mJ behave like hybrids for brush discharges", true)
+	for c := VesselRoadTanker; c < NumVesselClasses; c++ {
+		r, _ := ClauseVD.Rule(c)
+		add("VesselVDLow["+c.String()+"]", l.VesselVDLow[c], "m^2/s", r.Ref, r.FromMemory)
+		add("VesselVDHigh["+c.String()+"]", l.VesselVDHigh[c], "m^2/s", r.Ref, r.FromMemory)
+	}
+	for c := VesselRoadTanker; c < NumVesselClasses; c++ {
+		add("VesselMaxVelocity["+c.String()+"]", l.VesselMaxVelocity[c], "m/s", srcTS32+", velocity ceiling", true)
+	}
+	add("LargeTankDiameter", l.LargeTankDiameter, "m", srcTS32+", large fixed tanks: velocity limits only (the diameter a screening choice)", true)
+	add("SecondPhaseVelocity", l.SecondPhaseVelocity, "m/s", srcTS32+", two-phase flow", true)
+	add("SecondPhaseConductivity", l.SecondPhaseConductivity, "S/m", srcTS32+", a second phase makes a liquid below it chargeable", false)
+	add("FilterResidenceFactor", l.FilterResidenceFactor, "1", srcTS32+", filters (3 relaxation times leave 5 % of the charge)", true)
+	add("FilterResidenceMax", l.FilterResidenceMax, "s", srcTS32+", filters", true)
+	add("FilterChargeFactor", l.FilterChargeFactor, "1", "micro-filters raise the charge 10-100 times; upper end taken", true)
+	add("StrainerChargeFactor", l.StrainerChargeFactor, "1", "coarse strainers add little charge to a pipe's", true)
+	add("SecondPhaseChargeFactor", l.SecondPhaseChargeFactor, "1", srcChoice+": an order of magnitude for free water, solids or a second liquid", true)
 	return out
 }

@@ -79,7 +79,7 @@
 //
 //  1. Capacitance: measured; else a container on an insulating layer as a
 //     parallel plate; a container (or a powder row's receiving vessel) from the
-//     vessel size table (VesselCapacitance: drum up to 200 L 100 pF, 250-500 L
+//     vessel size table (VesselSizeCapacitance: drum up to 200 L 100 pF, 250-500 L
 //     300 pF, larger vessel, IBC or tanker 1000 pF; size unknown 1000 pF), never
 //     the isolated sphere of a floor-standing vessel; a cylinder over earth when
 //     Diameter, Length and Distance to earth are given; else the typical value of
@@ -112,11 +112,30 @@
 // Glor's formula, outside D 0.5-3 m, d 0.1-3 mm the value at the nearest edge of
 // the range, never less (ConeEnergyAtRange), flagged.
 //
-// Liquid: conductivity class; relaxation time eps0 epsr/kappa and the residence
-// 3 tau; streaming current 3.75e-6 v^2 d^2 as the charging current of the
-// receiving container (conductor recipe when its Resistance or Capacitance is on
-// the row); filling velocity limit; a low or unknown conductivity liquid can give
-// a brush from its surface (4 mJ).
+// Liquid, judged operation by operation as IEC TS 60079-32-1 does (LiquidRules
+// lists each clause with its reference, edition and source mark):
+//
+//  1. Conductivity class (low <= 50 pS/m, high > 1e4 pS/m); the filling rules
+//     treat a liquid with a second phase below 1000 pS/m as low. Unknown: low.
+//  2. Relaxation time eps0 epsr/kappa; streaming current 3.75e-6 v^2 d^2 of a
+//     plain pipe, times LiquidChargeFactor for a fine filter (100, relaxed over
+//     the residence time after it, never below 1), a strainer (1) and a second
+//     phase (10); CurrentCase words which case was taken.
+//  3. The clauses of the vessel class, for low-conductivity liquids: v d at or
+//     below the class's limit (road tankers 0.38 / 0.5 m^2/s), the 7 m/s ceiling,
+//     1 m/s until the inlet is submerged, no top (splash) filling, 1 m/s with a
+//     second phase, a residence time after a fine filter, and no filling into an
+//     insulating vessel (no safe limits); medium and high: the ceiling only. An
+//     unknown vessel class takes the strictest class, an unknown material the
+//     stricter of metal and insulating, a filter not stated a fine filter, a second
+//     phase not stated is present; an unknown input is a clause not shown met.
+//  4. Brush from the liquid surface (Limits.BrushEnergy) only where a clause is
+//     not met: a compliant fill is non-incendive for the liquid surface.
+//  5. Spark: the vessel (or a conductive liquid in an insulating, lined or
+//     unearthed vessel) follows the conductor recipe, charged by the streaming
+//     current, with the measured or the vessel class's typical capacitance
+//     (VesselCapacitance); a low-conductivity liquid in an insulating vessel is no
+//     conductor.
 //
 // Bag: the type rule of IEC 61340-4-4 (BagTypeAllowed; gas or vapour present in
 // a dust zone, a hybrid included, takes the gas column); types A and B give brush

@@ -11,8 +11,9 @@ import "math"
 // conductive roller, container, part and person the conductor recipe; powder the
 // powder recipe (cone discharge, plus the receiving container as a conductor when
 // Resistance or Capacitance is on the row); liquid the liquid recipe (the
-// receiving container as a conductor charged by the streaming current when
-// Resistance or Capacitance is on the row, and a brush screen for its surface);
+// filling clauses of the vessel class, the receiving vessel or a conductive
+// liquid in an insulating vessel as a conductor charged by the streaming current,
+// and a brush from the liquid surface where a clause is not met);
 // bag the bag rules (BagTypeAllowed) and the discharges of its type.
 func Evaluate(in Input, env Environment, lim Limits) Evaluation {
 	ev := newEvaluation(in.Kind)
@@ -86,6 +87,12 @@ func newEvaluation(k Kind) Evaluation {
 		LayerVoltage:       nan,
 		LayerBreakdown:     nan,
 		ChargingDensity:    nan,
+		VDLimit:            nan,
+		VelocityCeiling:    nan,
+		InletVelocity:      nan,
+		FilterResidence:    nan,
+		ChargeFactor:       nan,
+		VesselCapacitance:  nan,
 	}
 	for i := range ev.Discharges {
 		ev.Discharges[i] = Discharge{Type: DischargeType(i), Energy: nan, Charge: nan, Code: ReasonNotApplicable, A: nan, B: nan}
@@ -598,7 +605,7 @@ func markNotEvaluated(ev *Evaluation, types ...DischargeType) {
 // estimateCapacitance returns the measured capacitance or the documented estimate.
 //
 // A container (and the receiving vessel of a powder row) takes the
-// size table VesselCapacitance: a floor-standing vessel is never estimated as an
+// size table VesselSizeCapacitance: a floor-standing vessel is never estimated as an
 // isolated sphere, since the floor raises its capacitance (reference section 12).
 func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 	if positive(in.Capacitance) {
@@ -620,7 +627,7 @@ func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 		return CylinderOverPlaneCapacitance(in.Length, r, in.DistanceToEarth+r), CapCylinderPlane
 	}
 	if vessel {
-		c, _ := VesselCapacitance(in.Diameter, in.Length)
+		c, _ := VesselSizeCapacitance(in.Diameter, in.Length)
 		if !positive(in.Diameter) {
 			ev.Assumed |= AssumedVesselSize
 		}
@@ -861,20 +868,39 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	}
 }
 
-// evalLiquid is the liquid recipe: conductivity class, relaxation, streaming
-// current, filling velocity limit, the receiving container as a conductor and the
-// brush screen of the liquid's surface.
+// evalLiquid is the liquid recipe, judged operation by operation as IEC TS
+// 60079-32-1 does: conductivity class (and the class the filling rules use),
+// relaxation, streaming current with its factor for a filter or second phase,
+// the filling clauses of the vessel class (LiquidRules), the receiving vessel or
+// the liquid as an isolated conductor, and the brush of the liquid's surface.
 //
-// Brush screen (a conservative choice): a liquid of low (<= 50 pS/m) or unknown
-// conductivity keeps charge on its surface, so a brush discharge of the
-// equivalent energy Limits.BrushEnergy is taken as possible whatever the flow;
-// medium and high conductivity liquids relax to the container and give none.
+// Brush: a low-conductivity liquid (or one of unknown conductivity, or below
+// Limits.SecondPhaseConductivity with a second phase) gives a brush of the
+// equivalent energy Limits.BrushEnergy only where a clause is not met (or not
+// shown met for want of an input) or the operation has no safe limits in the
+// standard (into an insulating vessel); a fill that meets every applicable
+// clause gives none. Medium and high conductivity liquids relax and give none.
+//
+// Spark: the receiving vessel (or, in an insulating, lined or unearthed vessel,
+// a conductive liquid itself) follows the conductor recipe charged by the
+// streaming current, with the measured capacitance or the typical one of the
+// vessel class (VesselCapacitance); a low-conductivity liquid in an insulating
+// or glass vessel is no conductor.
 func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	kappa := in.Conductivity
 	ev.ConductivityClass = ClassifyConductivity(kappa, *lim)
 	if ev.ConductivityClass == ConductivityUnknown {
 		ev.Assumed |= AssumedLowConductivity
 	}
+	ev.RuleClass = ev.ConductivityClass
+	twoPhase, filter := in.SecondPhase.Assessed(), in.Filter.Assessed()
+	if twoPhase && (ev.RuleClass == ConductivityMedium || ev.RuleClass == ConductivityHigh) && kappa < lim.SecondPhaseConductivity {
+		ev.RuleClass = ConductivityLow
+		ev.Flags |= FlagSecondPhaseLow
+	}
+	low := ev.RuleClass == ConductivityLow || ev.RuleClass == ConductivityUnknown
+	conductive := ev.ConductivityClass == ConductivityMedium || ev.ConductivityClass == ConductivityHigh
+
 	epsr := in.Permittivity
 	if !positive(epsr) {
 		epsr = in.Material.Permittivity
@@ -888,47 +914,150 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.ResidenceTime = ResidenceFactor * ev.RelaxationTime
 		ev.DecayTime = ev.RelaxationTime
 	}
+
+	mat, class := in.VesselMaterial, in.VesselClass
+	if mat == VesselMaterialUnknown {
+		ev.Assumed |= AssumedVesselMaterial
+	}
+	if class == VesselUnknown || class >= NumVesselClasses {
+		class = VesselUnknown
+		ev.Assumed |= AssumedVesselClass
+	}
+	if in.Filter == FilterUnknown {
+		ev.Assumed |= AssumedNoFilter
+	}
+	if in.SecondPhase == PhaseUnknown {
+		ev.Assumed |= AssumedNoSecondPhase
+	}
+
+	// Charging current: the plain-pipe correlation times the factor for what lies upstream.
 	v, d := in.Speed, in.Diameter
+	ev.ChargeFactor = LiquidChargeFactor(in.Filter, in.FilterResidence, ev.RelaxationTime, in.SecondPhase, lim)
 	if positive(v) && positive(d) {
 		ev.VelocityDiameter = v * d
 		ev.StreamingCurrent = StreamingCurrent(v, d)
-		ev.VelocityLimit = FillingVelocityLimit(kappa, d, *lim)
-		if v > ev.VelocityLimit {
-			ev.Flags |= FlagVelocityAboveLimit
-		}
 	}
-	i := ev.StreamingCurrent
+	i := ev.StreamingCurrent * ev.ChargeFactor
 	if given(in.ChargingCurrent) {
 		i = math.Abs(in.ChargingCurrent)
 	}
 	ev.ChargingCurrent = i
-	if !given(i) {
-		ev.NotAssessed |= MissingLiquidFlow
+
+	// The filling clauses.
+	var br LiquidClause
+	ceiling := FillingCeiling(class, lim)
+	ev.VelocityCeiling = ceiling
+	if low {
+		if twoPhase && lim.SecondPhaseVelocity < ev.VelocityCeiling {
+			ev.VelocityCeiling = lim.SecondPhaseVelocity
+		}
+		ev.VDLimit = FillingVDLimit(kappa, class, in.VesselDiameter, lim)
+		if positive(d) {
+			ev.VelocityLimit = math.Min(ev.VDLimit/d, ev.VelocityCeiling)
+		}
+		if !(ev.VelocityDiameter <= ev.VDLimit) {
+			br |= ClauseVD
+		}
+		if v > ceiling {
+			br |= ClauseCeiling
+		}
+		if twoPhase && !(v <= lim.SecondPhaseVelocity) {
+			br |= ClauseSecondPhase
+		}
+		switch in.Filling {
+		case FillBottom, FillDipPipe:
+			// Not given (0 from a zero Input reads so): the slow start is not shown
+			// met; the line's velocity is no bound, a narrower inlet runs faster.
+			if positive(in.InletVelocity) {
+				ev.InletVelocity = in.InletVelocity
+			} else {
+				ev.Assumed |= AssumedInletVelocity
+			}
+			if !(ev.InletVelocity <= lim.SlowStartVelocity) {
+				br |= ClauseSlowStart
+			}
+		default:
+			br |= ClauseSplash
+			ev.Flags |= FlagSplashFilling
+		}
+		if filter == FilterFine {
+			ev.FilterResidence = FilterResidence(ev.RelaxationTime, lim)
+			t := in.FilterResidence
+			if !given(t) {
+				t = 0
+				ev.Assumed |= AssumedFilterResidence
+			}
+			if t < ev.FilterResidence {
+				br |= ClauseResidence
+			}
+		}
+		if mat == VesselInsulating || mat == VesselGlass || mat == VesselMaterialUnknown {
+			br |= ClauseInsulatingVessel
+		}
+	} else {
+		ev.VelocityLimit = ceiling
+		if !(v <= ceiling) {
+			br |= ClauseCeiling
+		}
 	}
-	low := ev.ConductivityClass == ConductivityLow || ev.ConductivityClass == ConductivityUnknown
-	if in.Filling == FillTop && low {
-		ev.Flags |= FlagSplashFilling
+	if conductive && (mat.Insulating() || mat == VesselMaterialUnknown) && !(in.Resistance <= lim.ConductorEarthing) {
+		br |= ClauseIsolatedLiquid
+	}
+	ev.LiquidBreaches = br
+	if br&(ClauseVD|ClauseCeiling|ClauseSecondPhase) != 0 && given(v) {
+		ev.Flags |= FlagVelocityAboveLimit
 	}
 
+	// Spark: the vessel, or a conductive liquid in an insulating vessel.
+	sp := &ev.Discharges[Spark]
 	switch {
+	case !conductive && (mat == VesselInsulating || mat == VesselGlass):
+		setReason(sp, ReasonSparkInsulatingVessel, math.NaN(), math.NaN())
 	case !given(i):
+		ev.NotAssessed |= MissingLiquidFlow
 		markNotEvaluated(ev, Spark)
-	case given(in.Resistance) || given(in.Capacitance):
+	case positive(in.Capacitance):
 		evalConductor(ev, in, env, lim, i)
 	default:
-		setReason(&ev.Discharges[Spark], ReasonSparkNoContainer, math.NaN(), math.NaN())
+		// The typical capacitance of the class; for an unknown class each class's
+		// value, keeping the one that gives the largest spark energy: with a short
+		// charging time a small vessel charges higher (unknown means the stricter case).
+		base := *ev
+		cin := *in
+		for k := VesselRoadTanker; k < NumVesselClasses; k++ {
+			if class != VesselUnknown {
+				k = class
+			}
+			cin.Capacitance = VesselCapacitance(k)
+			trial := base
+			evalConductor(&trial, &cin, env, lim, i)
+			trial.VesselCapacitance = cin.Capacitance
+			if k == class || k == VesselRoadTanker || trial.StoredEnergy > ev.StoredEnergy {
+				*ev = trial
+			}
+			if class != VesselUnknown {
+				break
+			}
+		}
+		ev.CapacitanceModel = CapTypical
+		ev.Assumed |= AssumedCapacitance | AssumedVesselCapacitance
+		if sp.Code == ReasonSparkPossible && conductive && (mat.Insulating() || mat == VesselMaterialUnknown) {
+			sp.Code = ReasonSparkLiquidIsolated
+		}
 	}
 
-	br := &ev.Discharges[Brush]
-	switch ev.ConductivityClass {
-	case ConductivityLow:
-		br.Possible, br.Energy = true, lim.BrushEnergy
-		setReason(br, ReasonBrushLiquidSurface, kappa, lim.LowConductivity)
-	case ConductivityUnknown:
-		br.Possible, br.Energy = true, lim.BrushEnergy
-		setReason(br, ReasonBrushLiquidUnknown, math.NaN(), lim.LowConductivity)
+	b := &ev.Discharges[Brush]
+	switch {
+	case !low:
+		setReason(b, ReasonBrushLiquidRelaxes, kappa, lim.LowConductivity)
+	case br&^ClauseIsolatedLiquid == 0:
+		setReason(b, ReasonBrushLiquidCompliant, math.NaN(), math.NaN())
+	case br.Has(ClauseInsulatingVessel) && mat != VesselMaterialUnknown:
+		b.Possible, b.Energy = true, lim.BrushEnergy
+		setReason(b, ReasonBrushLiquidNoSafeLimits, math.NaN(), math.NaN())
 	default:
-		setReason(br, ReasonBrushLiquidRelaxes, kappa, lim.LowConductivity)
+		b.Possible, b.Energy = true, lim.BrushEnergy
+		setReason(b, ReasonBrushLiquidBreach, kappa, lim.LowConductivity)
 	}
 }
 

@@ -16,6 +16,7 @@ func blank(k Kind) Input {
 		Field: n, FieldDistance: n, SurfacePotential: n,
 		Speed: n, MassFlow: n, ChargeToMass: n, ChargingCurrent: n, ChargingTime: n, ParticleSize: n,
 		Resistance: n, Capacitance: n, Conductivity: n, Permittivity: n, ProductMIE: n, LayerBreakdown: n,
+		VesselDiameter: n, FilterResidence: n, InletVelocity: n,
 	}
 }
 
@@ -51,6 +52,7 @@ func samples() map[string]Input {
 
 	l := blank(Liquid) // derived: 5 m/s in 0.1 m, 1 pS/m, receiving tank 1e11 ohm, 100 pF.
 	l.Speed, l.Diameter, l.Conductivity, l.Resistance, l.Capacitance = 5, 0.1, 1e-12, 1e11, 100e-12
+	l.Filter, l.SecondPhase = FilterNone, PhaseNone // a plain pipe, single phase
 	m["liquid"] = l
 
 	bg := blank(Bag)
@@ -486,7 +488,10 @@ func TestEvaluateLiquidBranches(t *testing.T) {
 	in := blank(Liquid)
 	in.Speed, in.Diameter, in.Filling = 1, 0.05, FillTop
 	ev := Evaluate(in, env, lim)
-	if ev.Assumed&AssumedLowConductivity == 0 || ev.Flags&FlagSplashFilling == 0 || ev.Discharges[Brush].Code != ReasonBrushLiquidUnknown || ev.Discharges[Spark].Code != ReasonSparkNoContainer {
+	// Unknown conductivity, vessel, resistance: top filling breaks the splash clause, the
+	// brush is counted, and the vessel is judged as an unearthed conductor.
+	if ev.Assumed&AssumedLowConductivity == 0 || ev.Flags&FlagSplashFilling == 0 || ev.Discharges[Brush].Code != ReasonBrushLiquidBreach ||
+		!ev.LiquidBreaches.Has(ClauseSplash) || ev.Discharges[Spark].Code != ReasonSparkPossible || ev.Assumed&AssumedVesselCapacitance == 0 {
 		t.Errorf("unknown conductivity: assumed %b flags %b brush %s", ev.Assumed, ev.Flags, ev.Discharges[Brush].Reason())
 	}
 	// Source: reference section 8 (typical values, from memory): acetone 6e6 pS/m, epsr 21: relaxes.

@@ -43,9 +43,9 @@ func ExampleConductorPotential() {
 
 func ExampleFillingVelocityLimit() {
 	lim := model.DefaultLimits()
-	// Toluene (about 1 pS/m, from memory) through a 100 mm line.
+	// Toluene (about 1 pS/m, from memory) through a 100 mm line into a road tanker.
 	// Source: IEC TS 60079-32-1 v d <= 0.38 m^2/s at or below 10 pS/m (reference section 8).
-	fmt.Printf("%.1f m/s\n", model.FillingVelocityLimit(1e-12, 0.1, lim))
+	fmt.Printf("%.1f m/s\n", model.FillingVelocityLimit(1e-12, 0.1, model.VesselRoadTanker, math.NaN(), &lim))
 	// Output: 3.8 m/s
 }
 

@@ -73,10 +73,10 @@ func TestFormulaCheckValues(t *testing.T) {
 		// from memory (correlation), reference section 8: 5 m/s in 0.1 m -> 0.94 uA.
 		{"streaming current", StreamingCurrent(5, 0.1), 0.94e-6, 3e-3},
 		// Source: IEC TS 60079-32-1 via reference section 8 [C v d]: v d <= 0.38 at <= 10 pS/m, 0.5 above; 7 m/s [M].
-		{"filling limit low", FillingVelocityLimit(1e-12, 0.1, lim), 3.8, 1e-12},
-		{"filling limit unknown", FillingVelocityLimit(math.NaN(), 0.1, lim), 3.8, 1e-12},
-		{"filling limit high", FillingVelocityLimit(100e-12, 0.1, lim), 5, 1e-12},
-		{"filling limit ceiling", FillingVelocityLimit(100e-12, 0.05, lim), 7, 1e-12},
+		{"filling limit low", FillingVelocityLimit(1e-12, 0.1, VesselRoadTanker, math.NaN(), &lim), 3.8, 1e-12},
+		{"filling limit unknown", FillingVelocityLimit(math.NaN(), 0.1, VesselRoadTanker, math.NaN(), &lim), 3.8, 1e-12},
+		{"filling limit high", FillingVelocityLimit(20e-12, 0.1, VesselRoadTanker, math.NaN(), &lim), 5, 1e-12},
+		{"filling limit ceiling", FillingVelocityLimit(20e-12, 0.05, VesselRoadTanker, math.NaN(), &lim), 7, 1e-12},
 		// derived: I = sigma v w: 10 uC/m^2 at 2 m/s over 0.5 m -> 10 uA.
 		{"belt current", BeltCurrent(10e-6, 2, 0.5), 10e-6, 1e-12},
 		// derived: time from 10 kV to 100 V at tau 1 s is ln(100) s.

@@ -37,10 +37,7 @@ type Limits struct {
 	// Liquids (IEC 60079-32-1 filling limits).
 	LowConductivity   float64 // S/m, at or below: low conductivity
 	HighConductivity  float64 // S/m, above: high conductivity
-	VDHigh            float64 // m^2/s, v d limit above VDKappa
-	VDLow             float64 // m^2/s, v d limit at or below VDKappa or unknown
-	VDKappa           float64 // S/m
-	MaxVelocity       float64 // m/s
+	VDKappa           float64 // S/m, conductivity that selects VesselVDHigh over VesselVDLow
 	SlowStartVelocity float64 // m/s until the inlet is submerged
 
 	// Bags (IEC 61340-4-4).
@@ -68,4 +65,17 @@ type Limits struct {
 	SmallPartCapacitance    float64 // F, an isolated metal part below it need not be earthed (IIA, IIB, Group III)
 	SmallPartCapacitanceIIC float64 // F, the same for IIC and EPL Ga (zone 0)
 	DustBrushMIE            float64 // J, a dust below this MIE is screened for brush discharges like a hybrid
+	// Liquid transfer by vessel class (indexed by VesselClass; VesselUnknown
+	// unused: an unknown class takes the strictest class). LiquidRules cites each.
+	VesselVDLow             [NumVesselClasses]float64 // m^2/s, v d limit at or below VDKappa or unknown conductivity
+	VesselVDHigh            [NumVesselClasses]float64 // m^2/s, v d limit above VDKappa (low-conductivity liquids)
+	VesselMaxVelocity       [NumVesselClasses]float64 // m/s, velocity ceiling
+	LargeTankDiameter       float64                   // m, a fixed tank at or above it has no v d limit
+	SecondPhaseVelocity     float64                   // m/s, ceiling with a second phase
+	SecondPhaseConductivity float64                   // S/m, below it a liquid with a second phase is low-conductivity
+	FilterResidenceFactor   float64                   // relaxation times of residence after a fine filter
+	FilterResidenceMax      float64                   // s, residence after a fine filter that always suffices
+	FilterChargeFactor      float64                   // factor on the streaming current after a fine filter
+	StrainerChargeFactor    float64                   // factor on the streaming current after a strainer
+	SecondPhaseChargeFactor float64                   // factor on the streaming current with a second phase
 }

@@ -72,6 +72,12 @@ const (
 	ReasonBrushPowder         // A equivalent energy (J)
 	ReasonBrushPowderNoCharge //
 	ReasonConeFieldAndVessel  // A field (V/m), B volume (m^3)
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	ReasonSparkInsulatingVessel
+	ReasonSparkLiquidIsolated // A potential (V), B energy (J)
+	ReasonBrushLiquidCompliant
+	ReasonBrushLiquidBreach // A conductivity (S/m; NaN unknown)
+	ReasonBrushLiquidNoSafeLimits
 
 	numReasons
 )
@@ -200,6 +206,19 @@ func (r Reason) Text(a, b float64) string {
 		return "The row shows the powder does not charge (charge-to-mass or charging current of zero): no brush discharge from it."
 	case ReasonConeFieldAndVessel:
 		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m^3: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
+	case ReasonSparkInsulatingVessel:
+		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
+	case ReasonSparkLiquidIsolated:
+		return fmt.Sprintf("The conductive liquid in an insulating, lined or unearthed vessel is an isolated conductor at %s and can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+	case ReasonBrushLiquidCompliant:
+		return "The fill meets every applicable filling clause of IEC TS 60079-32-1 for its vessel: no incendive brush from the liquid surface is expected (earthing still applies)."
+	case ReasonBrushLiquidBreach:
+		if math.IsNaN(a) {
+			return "The conductivity is not given, so the liquid is taken as low-conductivity, and a filling clause is not met: brush discharges from its surface are possible."
+		}
+		return fmt.Sprintf("A low-conductivity liquid (%s for the filling rules) keeps charge on its surface and a filling clause is not met: brush discharges from its surface are possible.", Quantity(a, "S/m"))
+	case ReasonBrushLiquidNoSafeLimits:
+		return "A low-conductivity liquid filled into an insulating vessel: the standard gives no safe filling limits for it, so brush discharges from its surface are counted."
 	}
 	return "Unknown reason."
 }
@@ -288,6 +307,14 @@ const (
 	AssumedSurfaceCapacitanceFree
 	AssumedGroupIIC
 	AssumedVesselSize
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	AssumedVesselMaterial
+	AssumedVesselClass
+	AssumedVesselCapacitance
+	AssumedNoFilter
+	AssumedNoSecondPhase
+	AssumedInletVelocity
+	AssumedFilterResidence
 	numAssumptions = iota
 )
 
@@ -322,13 +349,20 @@ func assumptionTexts() [numAssumptions]string {
 		"capacitance of the conducting surface not measured: the isolated disc of equal area (8 eps0 r), the smaller and so stricter estimate for a charge read on it",
 		"gas group not given: assessed as IIC, the strictest group",
 		"vessel size not given: the largest class of the size table (1000 pF)",
+		"vessel material not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) taken",
+		"vessel class not given: the strictest class's filling limits, and the typical capacitance of the class that gives the largest spark energy",
+		"capacitance not measured: the typical value of the vessel class (from memory)",
+		"filter not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)",
+		"second phase not stated: taken as present (the stricter case; write none when there is none)",
+		"inlet velocity until submerged not given: the slow start is not shown met",
+		"residence time after the filter not given: none taken",
 	}
 }
 
 // Texts lists the assumptions in the set, in a fixed order (allocates; call on demand).
 func (a Assumption) Texts() []string {
 	t := assumptionTexts()
-	return bitTexts(uint32(a), t[:])
+	return bitTexts(uint64(a), t[:])
 }
 
 // Flags: what the model noticed.
@@ -349,6 +383,8 @@ const (
 	FlagCappedConductor
 	FlagAssumedResistance
 	FlagMeasuredAboveMaximum
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	FlagSecondPhaseLow
 	numFlags = iota
 )
 
@@ -371,13 +407,14 @@ func flagTexts() [numFlags]string {
 		"unmeasured potential capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)",
 		"potential estimated with the resistance to earth unknown (no leakage): the energy is set by that assumption; measure the resistance or the potential",
 		"measured potential above the realistic plant maximum: check the reading, its unit and the object",
+		"a second phase (stated, or not stated and so taken as present) below 1000 pS/m: the filling rules for low-conductivity liquids apply",
 	}
 }
 
 // Texts lists the flags in the set, in a fixed order (allocates; call on demand).
 func (f Flag) Texts() []string {
 	t := flagTexts()
-	return bitTexts(uint32(f), t[:])
+	return bitTexts(uint64(f), t[:])
 }
 
 // Missing inputs.
@@ -414,10 +451,10 @@ func missingTexts() [numMissing]string {
 // Texts lists what the object lacks, in a fixed order (allocates; call on demand).
 func (m Missing) Texts() []string {
 	t := missingTexts()
-	return bitTexts(uint32(m), t[:])
+	return bitTexts(uint64(m), t[:])
 }
 
-func bitTexts(set uint32, texts []string) []string {
+func bitTexts(set uint64, texts []string) []string {
 	var out []string
 	for i, t := range texts {
 		if set&(1<<i) != 0 {

@@ -41,7 +41,7 @@ func TestQuantity(t *testing.T) {
 }
 
 func TestBitTexts(t *testing.T) {
-	all := func(n int) uint32 { return uint32(1)<<n - 1 }
+	all := func(n int) uint64 { return uint64(1)<<n - 1 }
 	if got := len(Assumption(all(numAssumptions)).Texts()); got != numAssumptions {
 		t.Errorf("assumption texts %d, want %d", got, numAssumptions)
 	}

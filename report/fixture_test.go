@@ -25,6 +25,8 @@ func blankEval(k model.Kind) model.Evaluation {
 		InsulatingArea: nan, SurfaceResistivity: nan, DecayTime: nan, TimeTo100V: nan,
 		RelaxationTime: nan, StreamingCurrent: nan, VelocityDiameter: nan,
 		AirField: nan, LayerField: nan, LayerVoltage: nan, LayerBreakdown: nan, ChargingDensity: nan,
+		ResidenceTime: nan, VelocityLimit: nan, Resistance: nan, CoronaOnset: nan,
+		VDLimit: nan, VelocityCeiling: nan, InletVelocity: nan, FilterResidence: nan, ChargeFactor: nan, VesselCapacitance: nan,
 	}
 	for i := range e.Discharges {
 		e.Discharges[i] = model.Discharge{Type: model.DischargeType(i), Energy: nan, Charge: nan}

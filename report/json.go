@@ -169,6 +169,11 @@ type jsonObject struct {
 	ChargingDensityAPerM2  *float64         `json:"charging_current_density_A_per_m2"`
 	ProcessMaterial        *bool            `json:"process_material"`
 	IsolatedConductor      bool             `json:"isolated_conductor"`
+	VDLimitM2PerS          *float64         `json:"vd_limit_m2_per_s,omitempty"`
+	VelocityLimitMPerS     *float64         `json:"velocity_limit_m_per_s,omitempty"`
+	ChargeFactor           *float64         `json:"charge_factor,omitempty"`
+	FilterResidenceS       *float64         `json:"filter_residence_needed_s,omitempty"`
+	FillingClausesNotMet   []string         `json:"filling_clauses_not_met,omitempty"`
 	Discharges             []jsonDischarge  `json:"discharges"`
 	Findings               []jsonFinding    `json:"findings"`
 	Defaults               []jsonDefault    `json:"defaults"`
@@ -330,6 +335,11 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 			pm := e.ProcessMaterial
 			jo.ProcessMaterial = &pm
 		}
+	}
+	if e.Kind == model.Liquid {
+		jo.VDLimitM2PerS, jo.VelocityLimitMPerS = finite(e.VDLimit), finite(e.VelocityLimit)
+		jo.ChargeFactor, jo.FilterResidenceS = finite(e.ChargeFactor), finite(e.FilterResidence)
+		jo.FillingClausesNotMet = e.LiquidBreaches.Texts()
 	}
 	if e.NotAssessed == 0 {
 		jo.EnergyJ = finite(e.EffectiveEnergy)

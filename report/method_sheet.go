@@ -53,18 +53,20 @@ func limitField(rv reflect.Value, name string) (float64, bool) {
 		if f.Kind() != reflect.Array {
 			return 0, false
 		}
-		g := model.GroupNone
+		i := int(model.GroupNone)
 		if group != "other" {
-			pg, err := model.ParseGroup(group)
-			if err != nil {
+			if pg, err := model.ParseGroup(group); err == nil {
+				i = int(pg)
+			} else if vc, err := model.ParseVesselClass(group); err == nil && strings.HasPrefix(field, "Vessel") {
+				i = int(vc) // per-vessel-class liquid limits: "VesselVDLow[road tanker]"
+			} else {
 				return 0, false
 			}
-			g = pg
 		}
-		if int(g) >= f.Len() {
+		if i >= f.Len() {
 			return 0, false
 		}
-		f = f.Index(int(g))
+		f = f.Index(i)
 	}
 	if f.Kind() != reflect.Float64 {
 		return 0, false
@@ -107,6 +109,8 @@ func siDisplayUnit(si string) Unit {
 		return UnitUCPerKg
 	case "m^3":
 		return UnitCubicMetre
+	case "s":
+		return UnitSecond
 	}
 	return UnitDimless
 }
@@ -137,10 +141,7 @@ func limitLabel(name string) string {
 		"PersonMaxPotential":      "Cap on an estimated body potential",
 		"LowConductivity":         "Liquid: low conductivity at or below",
 		"HighConductivity":        "Liquid: high conductivity above",
-		"VDHigh":                  "Liquid filling: v·d limit above the conductivity bound",
-		"VDLow":                   "Liquid filling: v·d limit at or below it, or unknown",
 		"VDKappa":                 "Liquid filling: conductivity bound of the v·d limits",
-		"MaxVelocity":             "Liquid filling: maximum velocity",
 		"SlowStartVelocity":       "Liquid filling: velocity until the inlet is submerged",
 		"BagCToTab":               "Bag type C: any point to the earthing tab",
 		"BagTabToEarth":           "Bag type C: tab to plant earth",
@@ -159,6 +160,18 @@ func limitLabel(name string) string {
 		"SmallPartCapacitance":    "Small metal part exempt from earthing below",
 		"SmallPartCapacitanceIIC": "Small metal part exempt from earthing below (IIC, zone 0)",
 		"DustBrushMIE":            "Dust screened for brush discharges below MIE",
+
+		"VesselVDLow":             "Liquid filling: v·d limit at or below the conductivity bound, or unknown",
+		"VesselVDHigh":            "Liquid filling: v·d limit above the conductivity bound (low-conductivity liquids)",
+		"VesselMaxVelocity":       "Liquid filling: velocity ceiling",
+		"LargeTankDiameter":       "Liquid filling: fixed tank diameter with no v·d limit",
+		"SecondPhaseVelocity":     "Liquid filling: velocity ceiling with a second phase",
+		"SecondPhaseConductivity": "Liquid: with a second phase, low conductivity below",
+		"FilterResidenceFactor":   "Liquid: relaxation times of residence after a fine filter",
+		"FilterResidenceMax":      "Liquid: residence after a fine filter that always suffices",
+		"FilterChargeFactor":      "Liquid: streaming current factor after a fine filter",
+		"StrainerChargeFactor":    "Liquid: streaming current factor after a strainer",
+		"SecondPhaseChargeFactor": "Liquid: streaming current factor with a second phase",
 	}
 	l, ok := labels[field]
 	if !ok {
@@ -275,6 +288,24 @@ func (wb *workbook) method() error {
 		}
 	}
 	// The Applies-to text runs over C:D; merge them so it wraps over both.
+	r++
+
+	if err := section("Liquid filling rules", []string{"Clause", "Rule", "Vessel class", "Source mark", "Reference and edition"}); err != nil {
+		return err
+	}
+	for _, lr := range model.LiquidRules() {
+		vessel := "every class"
+		if lr.Vessel != model.VesselUnknown {
+			vessel = lr.Vessel.String()
+		}
+		mark := "confirmed"
+		if lr.FromMemory {
+			mark = "from memory, not confirmed"
+		}
+		if err := put(wrapText(strings.Join(lr.Clause.Texts(), "")), wrapText(lr.Rule), text(vessel), text(mark), wrapText(lr.Ref)); err != nil {
+			return err
+		}
+	}
 	r++
 
 	if err := section("Constants", []string{"Constant", "Value", "Unit", "", "Source"}); err != nil {

@@ -12,6 +12,14 @@ import (
 
 // enumText returns the text of a model enum or bit set: its String method when
 // it has one, "" for the zero value, else the number (until the model names it).
+// finiteOrNaN returns v, or NaN for an infinite v (a limit that does not apply shows blank).
+func finiteOrNaN(v float64) float64 {
+	if math.IsInf(v, 0) {
+		return math.NaN()
+	}
+	return v
+}
+
 func enumText(v any) string {
 	if t, ok := v.(interface{ Texts() []string }); ok {
 		return strings.Join(t.Texts(), "; ")
@@ -150,6 +158,15 @@ func objectColumns(withProbability bool) []column[objRow] {
 	ev := func(f func(e *model.Evaluation) float64, u Unit) func(objRow) cell {
 		return func(o objRow) cell { return quantity(u, f(&o.Eval)) }
 	}
+	// liq is ev for the liquid-only results: blank on other rows.
+	liq := func(f func(e *model.Evaluation) float64, u Unit) func(objRow) cell {
+		return func(o objRow) cell {
+			if o.Eval.Kind != model.Liquid {
+				return cell{numFmt: u.NumFmt()}
+			}
+			return quantity(u, f(&o.Eval))
+		}
+	}
 	cols := []column[objRow]{
 		{"Object", 12, func(o objRow) cell { return text(o.Object.ID) }},
 		{"Station", 10, func(o objRow) cell { return text(o.Object.Station) }},
@@ -209,6 +226,13 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{UnitDimless.Header("Liquid permittivity"), 9, func(o objRow) cell { return inQ(UnitDimless, o.Object.Permittivity) }},
 		{"Bag type", 7, func(o objRow) cell { return code(o.Object.BagType) }},
 		{"Filling", 9, func(o objRow) cell { return optText(o.Object.Filling) }},
+		{"Vessel material", 10, func(o objRow) cell { return optText(o.Object.VesselMaterial) }},
+		{"Vessel class", 10, func(o objRow) cell { return optText(o.Object.VesselClass) }},
+		{UnitMetre.Header("Vessel diameter"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.VesselDiameter) }},
+		{"Filter", 8, func(o objRow) cell { return optText(o.Object.Filter) }},
+		{UnitSecond.Header("Residence time"), 9, func(o objRow) cell { return inQ(UnitSecond, o.Object.Residence) }},
+		{"Second phase", 10, func(o objRow) cell { return optText(o.Object.SecondPhase) }},
+		{UnitMPerS.Header("Inlet velocity"), 9, func(o objRow) cell { return inQ(UnitMPerS, o.Object.InletVelocity) }},
 		{"Survey notes", 24, func(o objRow) cell { return wrapText(o.Object.Notes) }},
 
 		// Environment.
@@ -286,6 +310,11 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{UnitSecond.Header("Relaxation time"), 10, ev(func(e *model.Evaluation) float64 { return e.RelaxationTime }, UnitSecond)},
 		{UnitUA.Header("Streaming current"), 10, ev(func(e *model.Evaluation) float64 { return e.StreamingCurrent }, UnitUA)},
 		{UnitM2PerS.Header("Velocity × diameter"), 10, ev(func(e *model.Evaluation) float64 { return e.VelocityDiameter }, UnitM2PerS)},
+		{UnitM2PerS.Header("v·d limit"), 10, liq(func(e *model.Evaluation) float64 { return finiteOrNaN(e.VDLimit) }, UnitM2PerS)},
+		{UnitMPerS.Header("Velocity limit"), 10, liq(func(e *model.Evaluation) float64 { return finiteOrNaN(e.VelocityLimit) }, UnitMPerS)},
+		{UnitDimless.Header("Charge factor"), 9, liq(func(e *model.Evaluation) float64 { return e.ChargeFactor }, UnitDimless)},
+		{UnitSecond.Header("Residence needed after filter"), 10, liq(func(e *model.Evaluation) float64 { return e.FilterResidence }, UnitSecond)},
+		{"Filling clauses not met", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.LiquidBreaches)) }},
 		{"Model assumptions", 40, func(o objRow) cell { return wrapText(enumText(o.Eval.Assumed)) }},
 		{"Model notes", 36, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
 		{"Missing inputs", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.NotAssessed)) }},

@@ -3,6 +3,7 @@ package report
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"strconv"
 	"testing"
 
@@ -58,7 +59,8 @@ func TestPortfolioTwoDemoCopies(t *testing.T) {
 			t.Errorf("Stations row %d: %v", i+2, r)
 		}
 	}
-	if got, _ := strconv.ParseFloat(rows[1][ratio], 64); st[0].WorstRatio != nil && got != *st[0].WorstRatio {
+	// The cell holds the ratio to the 15 significant digits a spreadsheet keeps: compare relatively.
+	if got, _ := strconv.ParseFloat(rows[1][ratio], 64); st[0].WorstRatio != nil && math.Abs(got-*st[0].WorstRatio) > 1e-13*math.Abs(*st[0].WorstRatio) {
 		t.Errorf("worst ratio cell %q, want %v", rows[1][ratio], *st[0].WorstRatio)
 	}
 	srows := rowsOf(t, f, PortfolioSites)

@@ -13,6 +13,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
@@ -345,6 +346,25 @@ func BenchmarkWriteWorkbook10k(b *testing.B) {
 	}
 }
 
+// A per-vessel-class liquid limit overridden on the Site sheet shows its applied value.
+func TestLimitRowsVesselClass(t *testing.T) {
+	l := model.DefaultLimits()
+	l.VesselVDLow[model.VesselIBC] = 0.3 // invented for the test
+	found := false
+	for _, r := range limitRows(l) {
+		if strings.HasSuffix(r.name, ", IBC") && strings.Contains(r.name, "at or below") {
+			found = true
+			// Source: IEC TS 60079-32-1 road-tanker 0.38 m²/s taken for IBCs (reference section 8).
+			if r.value != 0.3 || r.def != 0.38 || !r.fromMemory {
+				t.Errorf("IBC v·d row %+v, want applied 0.3, default 0.38, from memory", r)
+			}
+		}
+	}
+	if !found {
+		t.Error("no IBC v·d row on the Method sheet")
+	}
+}
+
 func TestWorkbookMethod(t *testing.T) {
 	f := openWorkbook(t, testWorkbook(t))
 	flat := ""
@@ -358,6 +378,9 @@ func TestWorkbookMethod(t *testing.T) {
 		"Shock energy to people|350|mJ||TRGS 727",                                  // Source: TRGS 727 Annex D, 350 mJ
 		"Capacitance|200 pF|||typical human body (Saito 1963)",
 		"Charge density, earthed backing",
+		// The liquid filling rules, each with its vessel class, source mark and reference (model.LiquidRules).
+		"|road tanker|confirmed|IEC TS 60079-32-1:2013+A1:2017, clause 7 (liquids), road tankers",
+		"|rail tank car|from memory, not confirmed|IEC TS 60079-32-1:2013+A1:2017, clause 7 (liquids), rail tank cars",
 	} {
 		if !strings.Contains(flat, want) {
 			t.Errorf("Method lacks %q", want)

@@ -76,15 +76,17 @@ func newWhatifCmd() *cobra.Command {
 	c.Flags().StringVar(&o.json, "json", "", "also write the result as JSON to this file")
 	c.Flags().BoolVar(&o.noSheetChanges, "no-sheet-changes", false, "ignore the survey's Changes sheet")
 	help := map[string]string{
-		rerun.ChangeRH:           "site relative humidity in %, e.g. 55 (stations without their own RH)",
-		rerun.ChangeStationRH:    "a station's relative humidity, e.g. ST-LAM=60",
-		rerun.ChangeEarth:        "resistance to earth of an object or of every conductor at a station, e.g. DRM-DRUM=1e6, station:ST-PWD=1MΩ",
-		rerun.ChangeMaterial:     "material swap, e.g. COAT-WEB=PE",
-		rerun.ChangeFootwear:     "a person's resistance to earth through footwear and floor, e.g. MIX-OP=1e7 or station:ST-MIX=1e7",
-		rerun.ChangeMargin:       "required margin (energy below MIE / margin), e.g. 20",
-		rerun.ChangeSpeed:        "speed (liquid: flow velocity in the line), e.g. MIX-TOL1=1 or 1 m/s",
-		rerun.ChangeConductivity: "liquid conductivity (e.g. with an additive), e.g. MIX-TOL1=500pS/m",
-		rerun.ChangeBagType:      "bulk bag type A, B, C or D, e.g. BAG-A=C",
+		rerun.ChangeRH:             "site relative humidity in %, e.g. 55 (stations without their own RH)",
+		rerun.ChangeStationRH:      "a station's relative humidity, e.g. ST-LAM=60",
+		rerun.ChangeEarth:          "resistance to earth of an object or of every conductor at a station, e.g. DRM-DRUM=1e6, station:ST-PWD=1MΩ",
+		rerun.ChangeMaterial:       "material swap, e.g. COAT-WEB=PE",
+		rerun.ChangeFootwear:       "a person's resistance to earth through footwear and floor, e.g. MIX-OP=1e7 or station:ST-MIX=1e7",
+		rerun.ChangeMargin:         "required margin (energy below MIE / margin), e.g. 20",
+		rerun.ChangeSpeed:          "speed (liquid: flow velocity in the line), e.g. MIX-TOL1=1 or 1 m/s",
+		rerun.ChangeConductivity:   "liquid conductivity (e.g. with an additive), e.g. MIX-TOL1=500pS/m",
+		rerun.ChangeBagType:        "bulk bag type A, B, C or D, e.g. BAG-A=C",
+		rerun.ChangeFilling:        "liquid filling method top, bottom or dip pipe, e.g. MIX-TOL1=\"dip pipe\"",
+		rerun.ChangeVesselMaterial: "receiving vessel material metal, insulating, lined or glass, e.g. BAY-IBC=metal",
 	}
 	for _, k := range inventory.ChangeKinds() {
 		c.Flags().Var(changeFlag{kind: k, list: &o.flags}, k, help[k])

@@ -265,6 +265,13 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 	in.Process, _ = model.ParseProcess(o.Process)
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)
+	in.VesselMaterial, _ = model.ParseVesselMaterial(o.VesselMaterial)
+	in.VesselClass, _ = model.ParseVesselClass(o.VesselClass)
+	in.VesselDiameter = o.VesselDiameter.OrNaN()
+	in.Filter, _ = model.ParseFilter(o.Filter)
+	in.FilterResidence = o.Residence.OrNaN()
+	in.SecondPhase, _ = model.ParseSecondPhase(o.SecondPhase)
+	in.InletVelocity = o.InletVelocity.OrNaN()
 	// Double-layer charge is judged from the process (Process column, charging
 	// current density), never from words in the Notes.
 	var mat *inventory.Material
@@ -298,8 +305,30 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 		if in.Filling == model.FillUnknown {
 			defs = append(defs, Default{Field: "Filling", Value: "top", Reason: "not given: assessed as top filling without a dip pipe (the most restrictive case)"})
 		}
+		defs = append(defs, liquidDefaults(&in)...)
 	}
 	return in, mat, defs
+}
+
+// liquidDefaults records the liquid transfer inputs left blank and the stricter
+// case each is assessed as.
+func liquidDefaults(in *model.Input) []Default {
+	var defs []Default
+	if in.VesselMaterial == model.VesselMaterialUnknown {
+		defs = append(defs, Default{Field: "Vessel material", Value: "unknown", Reason: "not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) for each rule"})
+	}
+	if in.VesselClass == model.VesselUnknown {
+		defs = append(defs, Default{Field: "Vessel class", Value: "strictest", Reason: "not given: the strictest class's filling limits, and the typical capacitance of the class that gives the largest spark energy"})
+	}
+	if in.Filter == model.FilterUnknown {
+		defs = append(defs, Default{Field: "Filter", Value: "fine filter", Reason: "not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)"})
+	}
+	if in.SecondPhase == model.PhaseUnknown {
+		defs = append(defs, Default{Field: "Second phase", Value: "present", Reason: "not stated: taken as present (the stricter case; write none when there is none)"})
+	}
+	// The residence time and the inlet velocity matter only where the model applies
+	// their clause: it records them as assumptions when it does.
+	return defs
 }
 
 // liquidFromSubstance fills a liquid row's unknown conductivity and permittivity

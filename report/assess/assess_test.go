@@ -343,9 +343,10 @@ func TestLiquids(t *testing.T) {
 	// Source: reference section 8 (derived): tau = eps0 epsr / kappa = 8.854e-12 x 2 / 1e-12 = 17.7 s.
 	wantRel(t, "relaxation time", r.Eval.RelaxationTime, 8.8541878128e-12*2/1e-12)
 	// Source: IEC 60079-32-1 via reference section 8: v d <= 0.38 m^2/s at <= 10 pS/m;
-	// 8 m/s x 0.05 m = 0.4 (derived) fails, 8 m/s > 7 m/s fails; top filling fails slow start;
-	// 1 pS/m <= 50 pS/m is low conductivity.
-	for _, c := range []string{"filling-velocity", "velocity-ceiling", "slow-start", "low-conductivity"} {
+	// 8 m/s x 0.05 m = 0.4 (derived) fails, 8 m/s > 7 m/s fails; top filling of a
+	// low-conductivity liquid (1 pS/m <= 50 pS/m) is splash filling; the vessel material is
+	// not given, so it is taken as insulating, which has no safe limits (low-conductivity).
+	for _, c := range []string{"filling-velocity", "velocity-ceiling", "splash-filling", "low-conductivity"} {
 		if !hasCheck(r, c) {
 			t.Errorf("toluene fill: missing %q (findings %v)", c, checks(r))
 		}
@@ -368,12 +369,14 @@ func TestLiquids(t *testing.T) {
 		t.Errorf("ethyl acetate fill: verdict %v findings %v, want non-incendive and none (%s)", r.Verdict, checks(r), r.Reason)
 	}
 
-	// Filling not given: assessed as top filling, and recorded as a default.
+	// Filling not given: assessed as top filling, and recorded as a default; a
+	// high-conductivity liquid in an earthed vessel needs only the ceiling (reference
+	// section 12, from memory), so no finding.
 	noFill := good
 	noFill.Filling = ""
 	r = one(t, &atmEthylAcetate, noFill)
-	if !hasCheck(r, "slow-start") {
-		t.Errorf("unknown filling: findings %v, want slow-start", checks(r))
+	if len(r.Findings) != 0 {
+		t.Errorf("unknown filling, high conductivity: findings %v, want none", checks(r))
 	}
 	if !hasDefault(r, "Filling") {
 		t.Errorf("unknown filling not recorded as a default: %+v", r.Defaults)
@@ -423,7 +426,7 @@ func TestFillingVDLimit(t *testing.T) {
 		{math.NaN(), 0.38},
 	}
 	for _, tc := range tests {
-		if got := FillingVDLimit(tc.kappa, &lim); got != tc.want {
+		if got := model.FillingVDLimit(tc.kappa, model.VesselRoadTanker, math.NaN(), &lim); got != tc.want {
 			t.Errorf("FillingVDLimit(%g) = %g, want %g", tc.kappa, got, tc.want)
 		}
 	}

@@ -26,13 +26,15 @@ const (
 	CheckPersonEarthing
 	// CheckShockEnergy: a discharge from the object to a person carries more than the shock energy.
 	CheckShockEnergy
-	// CheckFillingVelocity: a liquid's v d product exceeds the filling limit for its conductivity.
+	// CheckFillingVelocity: a low-conductivity liquid's v d exceeds the limit of its vessel class (model.ClauseVD).
 	CheckFillingVelocity
-	// CheckVelocityCeiling: a liquid's flow velocity exceeds the ceiling (7 m/s).
+	// CheckVelocityCeiling: a liquid's flow velocity exceeds the vessel class's ceiling, 7 m/s (model.ClauseCeiling).
 	CheckVelocityCeiling
-	// CheckSlowStart: top filling without a dip pipe, so the inlet is never submerged.
+	// CheckSlowStart: a bottom or dip-pipe fill of a low-conductivity liquid faster than 1 m/s until the inlet is submerged (model.ClauseSlowStart).
 	CheckSlowStart
-	// CheckLowConductivity: a low-conductivity liquid (or one of unknown conductivity) that keeps its charge.
+	// CheckLowConductivity: a low-conductivity liquid (or one of unknown conductivity) filled into an
+	// insulating or glass vessel (or one of unknown material), which the standard gives no safe limits for
+	// (model.ClauseInsulatingVessel).
 	CheckLowConductivity
 	// CheckBagType: the bulk bag's type is not allowed for the atmosphere (IEC 61340-4-4).
 	CheckBagType
@@ -47,6 +49,15 @@ const (
 	// CheckMeasuredAboveMaximum: a measured conductor potential above the realistic
 	// plant maximum, a contradiction between reading and model (the reading is kept).
 	CheckMeasuredAboveMaximum
+	// CheckSplashFilling: top (splash) filling of a low-conductivity liquid (model.ClauseSplash).
+	CheckSplashFilling
+	// CheckSecondPhase: a liquid with a second phase flows faster than 1 m/s (model.ClauseSecondPhase).
+	CheckSecondPhase
+	// CheckFilterResidence: too short a residence time after a fine filter (model.ClauseResidence).
+	CheckFilterResidence
+	// CheckIsolatedLiquid: a conductive liquid in an insulating, lined or unearthed vessel is not
+	// earthed through a dip pipe or rod (model.ClauseIsolatedLiquid).
+	CheckIsolatedLiquid
 	// NumChecks is the number of checks.
 	NumChecks
 )
@@ -71,15 +82,19 @@ func checkTable() [NumChecks]checkDef {
 		CheckConductorEarthing:    {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 Mohm; small parts below the IEC 60079-0:2017 capacitance exemption excepted"},
 		CheckPersonEarthing:       {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 Mohm in zones 0, 1, 20, 21 where the MIE is at most 10 mJ"},
 		CheckShockEnergy:          {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ"},
-		CheckFillingVelocity:      {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 filling limits, v d of 0.5 or 0.38 m^2/s by conductivity (road-tanker values)"},
-		CheckVelocityCeiling:      {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017: 7 m/s ceiling on filling velocity (from memory)"},
-		CheckSlowStart:            {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017: 1 m/s until the inlet is submerged (from memory)"},
-		CheckLowConductivity:      {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017: liquids at or below 50 pS/m keep their charge"},
+		CheckFillingVelocity:      {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m^2/s at 10 pS/m confirmed; other classes from memory)"},
+		CheckVelocityCeiling:      {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), velocity ceiling 7 m/s (from memory)"},
+		CheckSlowStart:            {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), initial filling velocity 1 m/s until the inlet is submerged (from memory)"},
+		CheckLowConductivity:      {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), insulating containers: no safe filling limits for a low-conductivity liquid (<= 50 pS/m) (from memory)"},
 		CheckBagType:              {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types"},
 		CheckBagEarthing:          {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 Mohm while filling and emptying"},
 		CheckBagQualification:     {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 uA"},
 		CheckLayerBreakdown:       {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); a layer holding more than its breakdown is a contradiction between reading and model (a screening choice of this tool)"},
 		CheckReadingVsHumidity:    {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)"},
+		CheckSplashFilling:        {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)"},
+		CheckSecondPhase:          {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)"},
+		CheckFilterResidence:      {"filter-residence", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), filters: residence time after a fine filter (from memory)"},
+		CheckIsolatedLiquid:       {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod"},
 		CheckMeasuredAboveMaximum: {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept"},
 	}
 }
@@ -224,24 +239,19 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
-		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) && !SmallPartExempt(in, env, lim) {
+		isolatedLiquid := in.Kind == model.Liquid && ev.LiquidBreaches.Has(model.ClauseIsolatedLiquid)
+		if IsConductorRow(in, ev) && !(in.Resistance <= lim.ConductorEarthing) && !SmallPartExempt(in, env, lim) && !isolatedLiquid {
 			c.Failed = c.Failed.Add(CheckConductorEarthing)
 		}
 		if PersonEarthingApplies(in, env, lim) && !(in.Resistance <= lim.PersonEarthing) {
 			c.Failed = c.Failed.Add(CheckPersonEarthing)
 		}
 		if in.Kind == model.Liquid {
-			if vd, limVD := VelocityDiameter(in, ev), FillingVDLimit(in.Conductivity, lim); vd > limVD {
-				c.Failed = c.Failed.Add(CheckFillingVelocity)
-			}
-			if in.Speed > lim.MaxVelocity {
-				c.Failed = c.Failed.Add(CheckVelocityCeiling)
-			}
-			if in.Filling == model.FillTop || in.Filling == model.FillUnknown {
-				c.Failed = c.Failed.Add(CheckSlowStart)
-			}
-			if !(in.Conductivity > lim.LowConductivity) {
-				c.Failed = c.Failed.Add(CheckLowConductivity)
+			// model.Evaluate judges the filling clauses of the vessel class; each clause not met is a check.
+			for _, lc := range liquidChecks {
+				if ev.LiquidBreaches.Has(lc.clause) {
+					c.Failed = c.Failed.Add(lc.check)
+				}
 			}
 		}
 		// Contradictions between a reading and a model or a breakdown value
@@ -474,22 +484,37 @@ func ShockEnergy(in *model.Input, ev *model.Evaluation) float64 {
 	return e
 }
 
+// liquidChecks maps each liquid filling clause the model judges to its check.
+var liquidChecks = [...]struct {
+	clause model.LiquidClause
+	check  Check
+}{
+	{model.ClauseVD, CheckFillingVelocity},
+	{model.ClauseCeiling, CheckVelocityCeiling},
+	{model.ClauseSlowStart, CheckSlowStart},
+	{model.ClauseSplash, CheckSplashFilling},
+	{model.ClauseSecondPhase, CheckSecondPhase},
+	{model.ClauseResidence, CheckFilterResidence},
+	{model.ClauseInsulatingVessel, CheckLowConductivity},
+	{model.ClauseIsolatedLiquid, CheckIsolatedLiquid},
+}
+
+// LiquidClauseOf returns the model clause a liquid check judges; ok false for other checks.
+func LiquidClauseOf(k Check) (model.LiquidClause, bool) {
+	for _, lc := range liquidChecks {
+		if lc.check == k {
+			return lc.clause, true
+		}
+	}
+	return 0, false
+}
+
 // VelocityDiameter returns a liquid's v d product (m^2/s): the model's, or Speed x Diameter.
 func VelocityDiameter(in *model.Input, ev *model.Evaluation) float64 {
 	if !math.IsNaN(ev.VelocityDiameter) && ev.VelocityDiameter != 0 {
 		return ev.VelocityDiameter
 	}
 	return in.Speed * in.Diameter
-}
-
-// FillingVDLimit returns the v d limit (m^2/s) for filling with a liquid of
-// conductivity kappa (S/m): VDHigh above VDKappa, VDLow at or below it or when
-// unknown (IEC 60079-32-1: 0.5 and 0.38 m^2/s, 10 pS/m).
-func FillingVDLimit(kappa float64, lim *model.Limits) float64 {
-	if kappa > lim.VDKappa {
-		return lim.VDHigh
-	}
-	return lim.VDLow
 }
 
 // AssessedBagType returns the type a bag is assessed as: its own, or type A (the

@@ -119,6 +119,9 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			// The size of the estimate is an artefact of the unknown resistance: no kilojoules.
 			msg = fmt.Sprintf("%s energy of at least the MIE of %s (assumed resistance dominates: the resistance to earth is not measured, so no leakage is assumed); measure the resistance to earth and the potential in operation", dischargeWords(c.Discharge), mJ(env.MIE))
 		}
+		if in.Kind == model.Liquid && c.Discharge == model.Spark {
+			msg += " (" + model.CurrentCase(in, ev) + ")"
+		}
 	case CheckEnergyMargin:
 		msg = fmt.Sprintf("%s of %s is below the MIE of %s but reaches MIE / %s = %s (ratio %s)", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), plain(x.margin), mJ(env.MIE/x.margin), ratioText(c.Ratio))
 	case CheckTransferredCharge:
@@ -173,39 +176,9 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		if !math.IsNaN(ev.Potential) && !math.IsNaN(ev.Capacitance) && src == "stored energy" {
 			msg += fmt.Sprintf(" (%s at %s)", pF(ev.Capacitance), kV(ev.Potential))
 		}
-	case CheckFillingVelocity:
-		vd := VelocityDiameter(in, ev)
-		limVD := FillingVDLimit(in.Conductivity, lim)
-		cond := "unknown conductivity"
-		if !math.IsNaN(in.Conductivity) {
-			rel := "≤"
-			if in.Conductivity > lim.VDKappa {
-				rel = ">"
-			}
-			cond = fmt.Sprintf("conductivity %s (%s %s)", pSm(in.Conductivity), rel, pSm(lim.VDKappa))
-		}
-		msg = fmt.Sprintf("v·d of %s (%s in %s mm) exceeds %s for %s; at most %s in this line", m2ps(vd), mps(in.Speed), plain(in.Diameter*1e3), m2ps(limVD), cond, mps(model.FillingVelocityLimit(in.Conductivity, in.Diameter, *lim)))
-	case CheckVelocityCeiling:
-		msg = fmt.Sprintf("flow velocity %s exceeds the %s ceiling for filling", mps(in.Speed), mps(lim.MaxVelocity))
-	case CheckSlowStart:
-		how := "top filling without a dip pipe"
-		if in.Filling == model.FillUnknown {
-			how = "filling mode not given, so taken as top filling without a dip pipe"
-		}
-		msg = fmt.Sprintf("%s: the inlet is never submerged, so the %s slow-start limit would hold for the whole fill and the free-falling jet splashes and makes mist", how, mps(lim.SlowStartVelocity))
-		if !math.IsNaN(in.Speed) {
-			msg += fmt.Sprintf(" (flow %s)", mps(in.Speed))
-		}
-	case CheckLowConductivity:
-		tau := ev.RelaxationTime
-		if math.IsNaN(in.Conductivity) {
-			msg = fmt.Sprintf("conductivity not given, so taken as low (≤ %s): the liquid keeps its charge", pSm(lim.LowConductivity))
-		} else {
-			msg = fmt.Sprintf("conductivity %s is low (≤ %s)", pSm(in.Conductivity), pSm(lim.LowConductivity))
-			if tau > 0 {
-				msg += fmt.Sprintf(": relaxation time %s, so about %s (3 τ) of residence is needed after filters and pumps", seconds(tau), seconds(model.ResidenceFactor*tau))
-			}
-		}
+	case CheckFillingVelocity, CheckVelocityCeiling, CheckSlowStart, CheckLowConductivity,
+		CheckSplashFilling, CheckSecondPhase, CheckFilterResidence, CheckIsolatedLiquid:
+		msg = liquidFindingText(k, in, ev, lim)
 	case CheckBagType:
 		t := AssessedBagType(in.BagType)
 		where := env.Atmosphere.String() + " atmosphere"
@@ -299,11 +272,15 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 		return s + "."
 	}
 	mie := r.Environment.MIE
-	if !(c.Energy > 0) {
-		return fmt.Sprintf("Non-incendive: no discharge is possible, and every requirement is met (MIE %s).", mJ(mie))
+	fill := ""
+	if in := &r.Input; in.Kind == model.Liquid && r.Eval.Discharges[model.Brush].Code == model.ReasonBrushLiquidCompliant {
+		fill = "the fill meets every applicable filling clause of IEC TS 60079-32-1 for " + withArticle(vesselWords(in)) + ", so the liquid surface gives no incendive brush; "
 	}
-	return fmt.Sprintf("Non-incendive: the largest possible discharge, a %s of %s, stays below MIE / %s = %s (ratio %s), and every requirement is met.",
-		dischargeWords(c.Discharge), mJ(c.Energy), plain(x.margin), mJ(mie/x.margin), ratioText(c.Ratio))
+	if !(c.Energy > 0) {
+		return fmt.Sprintf("Non-incendive: %sno discharge is possible, and every requirement is met (MIE %s).", fill, mJ(mie))
+	}
+	return fmt.Sprintf("Non-incendive: %sthe largest possible discharge, a %s of %s, stays below MIE / %s = %s (ratio %s), and every requirement is met.",
+		fill, dischargeWords(c.Discharge), mJ(c.Energy), plain(x.margin), mJ(mie/x.margin), ratioText(c.Ratio))
 }
 
 func lowerFirst(s string) string {
@@ -318,4 +295,147 @@ func capitalise(s string) string {
 		return s
 	}
 	return string(s[0]-'a'+'A') + s[1:]
+}
+
+// vesselWords names a liquid row's receiving vessel: "metal road tanker",
+// "insulating IBC", "vessel of unknown class".
+func vesselWords(in *model.Input) string {
+	var w []string
+	if in.VesselMaterial != model.VesselMaterialUnknown {
+		w = append(w, in.VesselMaterial.String())
+	}
+	if in.VesselClass != model.VesselUnknown {
+		w = append(w, in.VesselClass.String())
+	} else {
+		w = append(w, "vessel of unknown class (the strictest class taken)")
+	}
+	return strings.Join(w, " ")
+}
+
+// clauseCite returns the reference of the clause a liquid check judges, for the
+// vessel class of the row, with its source mark: "IEC TS 60079-32-1:2013+A1:2017,
+// clause 7 (liquids), road tankers (0.38 / 0.5 m²/s)".
+func clauseCite(k Check, in *model.Input) string {
+	cl, ok := LiquidClauseOf(k)
+	if !ok {
+		return ""
+	}
+	r, ok := cl.Rule(in.VesselClass)
+	if !ok {
+		return ""
+	}
+	s := r.Ref
+	if r.FromMemory {
+		s += " [from memory: confirm]"
+	}
+	return s
+}
+
+// liquidFindingText returns the message of a failed liquid filling check: what
+// was found against which limit, ending with the clause it rests on.
+func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *model.Limits) string {
+	var msg string
+	cond := "unknown conductivity (taken as low)"
+	if !math.IsNaN(in.Conductivity) {
+		cond = "conductivity " + pSm(in.Conductivity)
+	}
+	speed := "not given"
+	if !math.IsNaN(in.Speed) {
+		speed = mps(in.Speed)
+	}
+	switch k {
+	case CheckFillingVelocity:
+		vd := ev.VelocityDiameter
+		if math.IsNaN(vd) {
+			msg = fmt.Sprintf("v·d not known (flow velocity %s, line diameter %s), so the %s limit for %s is not shown met", speed, optMM(in.Diameter), m2ps(ev.VDLimit), withArticle(vesselWords(in)))
+		} else {
+			rel := "≤"
+			if in.Conductivity > lim.VDKappa {
+				rel = ">"
+			}
+			msg = fmt.Sprintf("v·d of %s (%s in %s mm) exceeds the %s limit for %s with %s (%s %s)", m2ps(vd), mps(in.Speed), plain(in.Diameter*1e3), m2ps(ev.VDLimit), withArticle(vesselWords(in)), cond, rel, pSm(lim.VDKappa))
+			if ev.VelocityLimit > 0 {
+				msg += fmt.Sprintf("; at most %s in this line", mps(ev.VelocityLimit))
+			}
+		}
+	case CheckVelocityCeiling:
+		c := model.FillingCeiling(in.VesselClass, lim)
+		if math.IsNaN(in.Speed) {
+			msg = fmt.Sprintf("flow velocity not given, so the %s ceiling for %s is not shown met", mps(c), withArticle(vesselWords(in)))
+		} else {
+			msg = fmt.Sprintf("flow velocity %s exceeds the %s ceiling for %s", mps(in.Speed), mps(c), withArticle(vesselWords(in)))
+		}
+	case CheckSlowStart:
+		how := "bottom filling"
+		if in.Filling == model.FillDipPipe {
+			how = "filling through a dip pipe"
+		}
+		if math.IsNaN(ev.InletVelocity) {
+			msg = fmt.Sprintf("%s of a low-conductivity liquid: inlet velocity until the inlet is submerged not given, so the %s slow start is not shown met", how, mps(lim.SlowStartVelocity))
+		} else {
+			msg = fmt.Sprintf("%s of a low-conductivity liquid: inlet velocity %s until the inlet is submerged exceeds the %s slow start", how, mps(ev.InletVelocity), mps(lim.SlowStartVelocity))
+		}
+	case CheckSplashFilling:
+		how := "top (splash) filling"
+		if in.Filling == model.FillUnknown {
+			how = "filling mode not given, so taken as top (splash) filling"
+		}
+		msg = fmt.Sprintf("%s of a liquid with %s: the free-falling jet splashes, makes mist and charges the surface, and the inlet is never submerged", how, cond)
+	case CheckSecondPhase:
+		what := fmt.Sprintf("a second phase (%s) is carried", in.SecondPhase)
+		if in.SecondPhase == model.PhaseUnknown {
+			what = "no second phase is stated, so one is taken as carried (write none when there is none)"
+		}
+		msg = fmt.Sprintf("%s, which makes a liquid below %s chargeable: flow velocity %s, limit %s", what, pSm(lim.SecondPhaseConductivity), speed, mps(lim.SecondPhaseVelocity))
+	case CheckFilterResidence:
+		res := "not given (taken as none)"
+		if !math.IsNaN(in.FilterResidence) {
+			res = seconds(in.FilterResidence)
+		}
+		need := fmt.Sprintf("%s, the fixed time (relaxation time unknown)", seconds(ev.FilterResidence))
+		if ev.RelaxationTime > 0 {
+			need = fmt.Sprintf("%s, the smaller of %s τ = %s and %s", seconds(ev.FilterResidence), plain(lim.FilterResidenceFactor), seconds(lim.FilterResidenceFactor*ev.RelaxationTime), seconds(lim.FilterResidenceMax))
+		}
+		filter := "the fine filter"
+		if in.Filter == model.FilterUnknown {
+			filter = "the filter (none stated, so a fine filter is taken: write none for a plain line)"
+		}
+		msg = fmt.Sprintf("residence time after %s %s is shorter than the %s needed for the charge the filter adds to relax", filter, res, need)
+	case CheckLowConductivity:
+		where := withArticle(vesselWords(in))
+		if in.VesselMaterial == model.VesselMaterialUnknown {
+			where = "a vessel of unknown material (taken as insulating)"
+		}
+		msg = fmt.Sprintf("a low-conductivity liquid (%s) filled into %s: the standard gives no safe filling limits for this, so brush discharges from the liquid surface are counted", cond, where)
+	case CheckIsolatedLiquid:
+		what := withArticle(vesselWords(in))
+		if in.VesselMaterial == model.VesselMaterialUnknown {
+			what = "a vessel of unknown material (taken as insulating)"
+		}
+		if math.IsNaN(in.Resistance) {
+			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth through an earthed dip pipe or rod is not measured (limit %s)", cond, what, ohm(lim.ConductorEarthing))
+		} else {
+			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth %s exceeds %s", cond, what, ohm(in.Resistance), ohm(lim.ConductorEarthing))
+		}
+	}
+	if c := clauseCite(k, in); c != "" {
+		msg += " (" + c + ")"
+	}
+	return msg
+}
+
+// withArticle puts "a" or "an" before a noun phrase.
+func withArticle(s string) string {
+	if s != "" && strings.ContainsRune("aeiouAEIOU", rune(s[0])) {
+		return "an " + s
+	}
+	return "a " + s
+}
+
+// optMM formats a length in mm, or "not given".
+func optMM(v float64) string {
+	if math.IsNaN(v) {
+		return "not given"
+	}
+	return plain(v*1e3) + " mm"
 }

@@ -43,6 +43,7 @@ const (
 	dimConductivity
 	dimCurrent
 	dimCapacitance
+	dimTime
 )
 
 // unitScale returns the factor from the unit to SI, or false for a unit the dimension does not take.
@@ -78,6 +79,8 @@ func unitScale(d unitDim, unit string) (float64, bool) {
 		t = map[string]float64{"ua": 1e-6, "na": 1e-9, "ma": 1e-3, "a": 1}
 	case dimCapacitance:
 		t = map[string]float64{"pf": 1e-12, "nf": 1e-9, "f": 1}
+	case dimTime:
+		t = map[string]float64{"s": 1, "min": 60, "ms": 1e-3}
 	}
 	f, ok := t[u]
 	return f, ok
@@ -107,10 +110,14 @@ func LimitKeys() []LimitKey {
 		{Name: "person maximum potential", Unit: "kV", Note: "PersonMaxPotential: cap on an estimated body potential", dim: dimPotential, set: func(l *model.Limits, v float64) { l.PersonMaxPotential = v }},
 		{Name: "low conductivity", Unit: "pS/m", Note: "LowConductivity: at or below it a liquid is low-conductivity", dim: dimConductivity, set: func(l *model.Limits, v float64) { l.LowConductivity = v }},
 		{Name: "high conductivity", Unit: "pS/m", Note: "HighConductivity: above it a liquid is high-conductivity", dim: dimConductivity, set: func(l *model.Limits, v float64) { l.HighConductivity = v }},
-		{Name: "filling vd limit", Unit: "m²/s", Note: "VDHigh: v d limit above the v d conductivity", dim: dimVD, set: func(l *model.Limits, v float64) { l.VDHigh = v }},
-		{Name: "filling vd limit low conductivity", Unit: "m²/s", Note: "VDLow: v d limit at or below the v d conductivity or when unknown", dim: dimVD, set: func(l *model.Limits, v float64) { l.VDLow = v }},
+		{Name: "filling vd limit", Unit: "m²/s", Note: "VesselVDHigh[road tanker]: v d limit above the v d conductivity (see the per-class items)", dim: dimVD, set: func(l *model.Limits, v float64) { l.VesselVDHigh[model.VesselRoadTanker] = v }},
+		{Name: "filling vd limit low conductivity", Unit: "m²/s", Note: "VesselVDLow[road tanker]: v d limit at or below the v d conductivity or when unknown (see the per-class items)", dim: dimVD, set: func(l *model.Limits, v float64) { l.VesselVDLow[model.VesselRoadTanker] = v }},
 		{Name: "filling vd conductivity", Unit: "pS/m", Note: "VDKappa: conductivity that selects the v d limit", dim: dimConductivity, set: func(l *model.Limits, v float64) { l.VDKappa = v }},
-		{Name: "maximum filling velocity", Unit: "m/s", Note: "MaxVelocity: ceiling on filling velocity", dim: dimVelocity, set: func(l *model.Limits, v float64) { l.MaxVelocity = v }},
+		{Name: "maximum filling velocity", Unit: "m/s", Note: "VesselMaxVelocity[every class]: ceiling on filling velocity", dim: dimVelocity, set: func(l *model.Limits, v float64) {
+			for c := model.VesselRoadTanker; c < model.NumVesselClasses; c++ {
+				l.VesselMaxVelocity[c] = v
+			}
+		}},
 		{Name: "slow start velocity", Unit: "m/s", Note: "SlowStartVelocity: until the inlet is submerged", dim: dimVelocity, set: func(l *model.Limits, v float64) { l.SlowStartVelocity = v }},
 		{Name: "bag c point to tab", Unit: "Ω", Note: "BagCToTab: type C bag, any point to its earthing tab", dim: dimResistance, set: func(l *model.Limits, v float64) { l.BagCToTab = v }},
 		{Name: "bag c tab to earth", Unit: "Ω", Note: "BagTabToEarth: type C bag, tab to plant earth", dim: dimResistance, set: func(l *model.Limits, v float64) { l.BagTabToEarth = v }},
@@ -134,7 +141,33 @@ func LimitKeys() []LimitKey {
 			LimitKey{Name: "insulating area zone 1 " + gs, Unit: "cm²", Note: "AreaGb[" + g.String() + "]: EPL Gb/Gc (zones 1 and 2)", dim: dimArea, set: func(l *model.Limits, v float64) { l.AreaGb[g] = v }},
 		)
 	}
+	keys = append(keys, liquidLimitKeys()...)
 	return keys
+}
+
+// liquidLimitKeys returns the Site items of the liquid filling rules
+// (model.LiquidRules): the per-vessel-class limits, then the rest.
+func liquidLimitKeys() []LimitKey {
+	var keys []LimitKey
+	for c := model.VesselRoadTanker; c < model.NumVesselClasses; c++ {
+		c := c
+		cs := strings.ToLower(c.String())
+		keys = append(keys,
+			LimitKey{Name: "filling vd limit " + cs, Unit: "m²/s", Note: "VesselVDHigh[" + c.String() + "]: v d limit above the v d conductivity", dim: dimVD, set: func(l *model.Limits, v float64) { l.VesselVDHigh[c] = v }},
+			LimitKey{Name: "filling vd limit low conductivity " + cs, Unit: "m²/s", Note: "VesselVDLow[" + c.String() + "]: v d limit at or below the v d conductivity or unknown", dim: dimVD, set: func(l *model.Limits, v float64) { l.VesselVDLow[c] = v }},
+			LimitKey{Name: "maximum filling velocity " + cs, Unit: "m/s", Note: "VesselMaxVelocity[" + c.String() + "]: velocity ceiling", dim: dimVelocity, set: func(l *model.Limits, v float64) { l.VesselMaxVelocity[c] = v }},
+		)
+	}
+	return append(keys,
+		LimitKey{Name: "large tank diameter", Unit: "m", Note: "LargeTankDiameter: a fixed tank at or above it has no v d limit", dim: dimLength, set: func(l *model.Limits, v float64) { l.LargeTankDiameter = v }},
+		LimitKey{Name: "second phase velocity", Unit: "m/s", Note: "SecondPhaseVelocity: velocity ceiling with a second phase", dim: dimVelocity, set: func(l *model.Limits, v float64) { l.SecondPhaseVelocity = v }},
+		LimitKey{Name: "second phase conductivity", Unit: "pS/m", Note: "SecondPhaseConductivity: below it a liquid with a second phase is low-conductivity", dim: dimConductivity, set: func(l *model.Limits, v float64) { l.SecondPhaseConductivity = v }},
+		LimitKey{Name: "filter residence factor", Unit: "", Note: "FilterResidenceFactor: relaxation times of residence after a fine filter", dim: dimNone, set: func(l *model.Limits, v float64) { l.FilterResidenceFactor = v }},
+		LimitKey{Name: "filter residence time", Unit: "s", Note: "FilterResidenceMax: residence after a fine filter that always suffices", dim: dimTime, set: func(l *model.Limits, v float64) { l.FilterResidenceMax = v }},
+		LimitKey{Name: "filter charge factor", Unit: "", Note: "FilterChargeFactor: streaming current factor after a fine filter", dim: dimNone, set: func(l *model.Limits, v float64) { l.FilterChargeFactor = v }},
+		LimitKey{Name: "strainer charge factor", Unit: "", Note: "StrainerChargeFactor: streaming current factor after a strainer", dim: dimNone, set: func(l *model.Limits, v float64) { l.StrainerChargeFactor = v }},
+		LimitKey{Name: "second phase charge factor", Unit: "", Note: "SecondPhaseChargeFactor: streaming current factor with a second phase", dim: dimNone, set: func(l *model.Limits, v float64) { l.SecondPhaseChargeFactor = v }},
+	)
 }
 
 // LimitsFromSite returns base with the limits the Site sheet's extra items

@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 )
 
@@ -23,6 +24,9 @@ const (
 	ChangeSpeed        = "speed"
 	ChangeConductivity = "conductivity"
 	ChangeBagType      = "bag-type"
+	// Liquid transfer (appended with the operation-by-operation liquid rules).
+	ChangeFilling        = "filling"
+	ChangeVesselMaterial = "vessel-material"
 )
 
 // Sentinel errors of a change, usable with errors.Is on a *ChangeError.
@@ -149,6 +153,10 @@ func example(kind string) string {
 		return "MIX-TOL1=500pS/m"
 	case ChangeBagType:
 		return "BAG-A=C"
+	case ChangeFilling:
+		return "MIX-TOL1=dip pipe"
+	case ChangeVesselMaterial:
+		return "BAY-IBC=metal"
 	}
 	return "55"
 }
@@ -410,6 +418,35 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		}
 		a.SIText = t
 		a.Description = "bag type set to " + t
+	case ChangeFilling:
+		f, err := model.ParseFilling(c.Value)
+		if err != nil || f == model.FillUnknown {
+			return fail(ErrBadValue, "use top, bottom or dip pipe", "%q is not a filling method", c.Value)
+		}
+		if err := pick(func(o *inventory.Object) bool { return o.Kind == inventory.KindLiquid }, "liquid"); err != nil {
+			return a, err
+		}
+		for _, i := range targets {
+			s.Objects[i].Filling = f.String()
+		}
+		a.SIText = f.String()
+		a.Description = "filling method set to " + f.String()
+		if f != model.FillTop {
+			a.Description += " (for a low-conductivity liquid the slow start needs the row's Inlet velocity; without one it is not shown met)"
+		}
+	case ChangeVesselMaterial:
+		m, err := model.ParseVesselMaterial(c.Value)
+		if err != nil || m == model.VesselMaterialUnknown {
+			return fail(ErrBadValue, "use metal, insulating, lined or glass", "%q is not a vessel material", c.Value)
+		}
+		if err := pick(func(o *inventory.Object) bool { return o.Kind == inventory.KindLiquid }, "liquid"); err != nil {
+			return a, err
+		}
+		for _, i := range targets {
+			s.Objects[i].VesselMaterial = m.String()
+		}
+		a.SIText = m.String()
+		a.Description = "receiving vessel material set to " + m.String()
 	}
 	for _, i := range targets {
 		a.Objects = append(a.Objects, s.Objects[i].ID)

@@ -95,6 +95,8 @@ func objectFields(o *inventory.Object) []Field {
 		q("Conductivity", o.Conductivity, "S/m"), q("Relative permittivity", o.Permittivity, ""),
 		{"Bag type", o.BagType}, {"Filling", o.Filling},
 		q("Layer breakdown", o.LayerBreakdown, "V"), {"Process", o.Process},
+		{"Vessel material", o.VesselMaterial}, {"Vessel class", o.VesselClass}, q("Vessel diameter", o.VesselDiameter, "m"),
+		{"Filter", o.Filter}, q("Residence time", o.Residence, "s"), {"Second phase", o.SecondPhase}, q("Inlet velocity", o.InletVelocity, "m/s"),
 	}
 }
 

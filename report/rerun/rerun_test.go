@@ -270,6 +270,10 @@ func TestBadChanges(t *testing.T) {
 		{"conductivity", "COAT-WEB=500pS/m", ErrWrongTarget, "not a liquid"},
 		{"conductivity", "MIX-TOL1=500 V", ErrBadValue, "dimension of potential"},
 		{"bag-type", "BAG-A=E", ErrBadValue, "not a bag type"},
+		{"filling", "MIX-TOL1=sideways", ErrBadValue, "not a filling method"},
+		{"filling", "COAT-WEB=bottom", ErrWrongTarget, "not a liquid"},
+		{"vessel-material", "BAY-IBC=wood", ErrBadValue, "not a vessel material"},
+		{"vessel-material", "BAG-A=metal", ErrWrongTarget, "not a liquid"},
 		{"speed", "MIX-TOL1=fast", ErrBadValue, "not a number"},
 		{"hover", "X=1", ErrUnknownChange, "not known"},
 	}
@@ -335,6 +339,59 @@ func TestLiquidAndBagChanges(t *testing.T) {
 	if b := delta(t, w, "BAG-A"); b.After.Object.BagType != "C" {
 		t.Errorf("bag type after %q, want C", b.After.Object.BagType)
 	}
+}
+
+// The filling method and the vessel material reach the verdict as the liquid rules
+// say (IEC TS 60079-32-1 via reference sections 8 and 12; invented demo rows).
+func TestLiquidTransferChanges(t *testing.T) {
+	s := demo(t)
+	// BAY-BOT (demo): toluene bottom-loaded into a metal road tanker meeting every clause.
+	// Switched to top (splash) filling it breaks the splash clause: the 4 mJ brush counts
+	// against toluene's 0.24 mJ (reference sections 3 and 4).
+	w := run(t, s, [2]string{"filling", "BAY-BOT=top"})
+	d := delta(t, w, "BAY-BOT")
+	if d.Before.Verdict != assess.NonIncendive || d.After.Verdict != assess.Incendive {
+		t.Errorf("BAY-BOT top fill: %v → %v, want non-incendive → incendive (%s)", d.Before.Verdict, d.After.Verdict, d.Why)
+	}
+	if !strings.Contains(d.Why, "filling bottom → top") {
+		t.Errorf("why %q does not name the filling change", d.Why)
+	}
+	// MIX-TOL1 (demo): top filling of toluene into the mixer; through a dip pipe at the
+	// line's 4 m/s the slow start (1 m/s) is still broken, so it stays incendive with the
+	// slow-start finding instead of splash filling.
+	w = run(t, s, [2]string{"filling", "MIX-TOL1=dip pipe"})
+	d = delta(t, w, "MIX-TOL1")
+	if d.After.Object.Filling != "dip pipe" || !hasFinding(d.After, "slow-start") || hasFinding(d.After, "splash-filling") {
+		t.Errorf("MIX-TOL1 dip pipe: filling %q findings %v", d.After.Object.Filling, findingNames(d.After))
+	}
+	// BAY-IBC (demo): toluene with additive (150 pS/m) in a plastic IBC is an isolated
+	// conductor; in a metal IBC it is the vessel that is unearthed (no resistance given):
+	// the isolated-liquid finding gives way to the conductor-earthing one.
+	w = run(t, s, [2]string{"vessel-material", "BAY-IBC=metal"})
+	d = delta(t, w, "BAY-IBC")
+	if !hasFinding(d.Before, "isolated-liquid") || hasFinding(d.After, "isolated-liquid") || !hasFinding(d.After, "conductor-earthing") {
+		t.Errorf("BAY-IBC metal: before %v after %v", findingNames(d.Before), findingNames(d.After))
+	}
+	if !strings.Contains(d.Why, "vessel material insulating → metal") {
+		t.Errorf("why %q does not name the vessel material change", d.Why)
+	}
+}
+
+func hasFinding(r *assess.ObjectResult, check string) bool {
+	for _, f := range r.Findings {
+		if f.Check == check {
+			return true
+		}
+	}
+	return false
+}
+
+func findingNames(r *assess.ObjectResult) []string {
+	var out []string
+	for _, f := range r.Findings {
+		out = append(out, f.Check)
+	}
+	return out
 }
 
 // Compare two versions of the demo survey with known edits.
@@ -639,11 +696,3 @@ func withRH(s *inventory.Survey, v float64) *inventory.Survey {
 }
 
 // hasFinding reports whether the object result has a finding of the check.
-func hasFinding(r *assess.ObjectResult, check string) bool {
-	for _, f := range r.Findings {
-		if f.Check == check {
-			return true
-		}
-	}
-	return false
-}

@@ -166,6 +166,12 @@ func why(b, a *assess.ObjectResult, changed bool) string {
 	if b.Object.BagType != a.Object.BagType {
 		parts = append(parts, fmt.Sprintf("bag type %s → %s", orNone(b.Object.BagType), orNone(a.Object.BagType)))
 	}
+	if b.Object.Filling != a.Object.Filling {
+		parts = append(parts, fmt.Sprintf("filling %s → %s", orNone(b.Object.Filling), orNone(a.Object.Filling)))
+	}
+	if b.Object.VesselMaterial != a.Object.VesselMaterial {
+		parts = append(parts, fmt.Sprintf("vessel material %s → %s", orNone(b.Object.VesselMaterial), orNone(a.Object.VesselMaterial)))
+	}
 	if len(parts) == 0 && b.Verdict == a.Verdict && ratioEq(b.Ratio, a.Ratio) {
 		parts = append(parts, "the change does not alter this row's result")
 	}
