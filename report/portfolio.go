@@ -186,6 +186,10 @@ const (
 	sitesRatioCol = "F"
 )
 
+// PortfolioTitlePrefix begins the document title of every portfolio
+// workbook; a folder run knows its previous portfolio by it.
+const PortfolioTitlePrefix = "Electrostatic ignition screening portfolio: "
+
 // WritePortfolio writes the portfolio workbook: Summary (surveys assessed and
 // not, objects by verdict, the chart of each site's worst ratio), Sites
 // (surveys ranked worst first), Stations (every station ranked across the
@@ -256,7 +260,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	d := portfolioDate(p).Format("2006-01-02T15:04:05Z")
 	if err := f.SetDocProps(&excelize.DocProperties{
 		Creator: info.tool() + " " + info.ToolVersion, LastModifiedBy: info.tool(), Created: d, Modified: d,
-		Title: "Electrostatic ignition screening portfolio: " + name, Subject: "Screening estimates; see the Cautions sheet", Language: "en",
+		Title: PortfolioTitlePrefix + name, Subject: "Screening estimates; see the Cautions sheet", Language: "en",
 	}); err != nil {
 		return fmt.Errorf("write portfolio: document properties: %w", err)
 	}

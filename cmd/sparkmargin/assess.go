@@ -1,6 +1,8 @@
 package main
 
 import (
+	"archive/zip"
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
@@ -84,7 +86,8 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	if xlsx == "" {
 		xlsx = defaultAuditPath(o.survey)
 	}
-	if err := refuseSurveyPath(o.survey, xlsx, o.json, o.portfolio, o.portfolioJSON); err != nil {
+	if err := refuseClashes([]namedPath{{"the survey", o.survey}},
+		[]namedPath{{"the audit workbook", xlsx}, {"--json", o.json}, {"--portfolio", o.portfolio}, {"--portfolio-json", o.portfolioJSON}}); err != nil {
 		return err
 	}
 	prog := newProgress(errOut)
@@ -133,6 +136,10 @@ const streamBatch = 1024
 // kept. The outputs have the cells and bytes of the in-memory path
 // (assess.Assess, report.WriteWorkbook, report.WriteJSON).
 func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress) (a *assess.Audit, err error) {
+	if err := requireRegular(path); err != nil {
+		prog.end()
+		return nil, err
+	}
 	var (
 		st    *assess.Streamer
 		ww    *report.WorkbookWriter
@@ -240,13 +247,16 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 	if err != nil {
 		return err
 	}
-	for _, f := range files {
-		if err := refuseSurveyPath(f, portfolio, portfolioJSON); err != nil {
-			return err
-		}
+	inputs := make([]namedPath, len(files))
+	for i, f := range files {
+		inputs[i] = namedPath{"the survey", f}
+	}
+	if err := refuseClashes(inputs, []namedPath{{"the portfolio workbook", portfolio}, {"the portfolio JSON", portfolioJSON}}); err != nil {
+		return err
 	}
 	var p report.Portfolio
-	targets := map[string]string{}
+	var written []namedPath // the outputs of the surveys before, and the portfolio's
+	written = append(written, namedPath{"the portfolio workbook", portfolio}, namedPath{"the portfolio JSON", portfolioJSON})
 	failed := 0
 	for i, file := range files {
 		if i > 0 {
@@ -267,15 +277,16 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 			code = max(code, c)
 			failed++
 		}
-		if prev, dup := targets[xlsx]; dup {
-			fail(exitUsage, fmt.Errorf("its audit %s would overwrite the audit of %s; give the surveys different names", xlsx, prev))
-			continue
-		}
-		targets[xlsx] = file
-		if err := refuseSurveyPath(file, xlsx, jsonPath); err != nil {
+		mine := []namedPath{{"its audit workbook", xlsx}, {"its audit JSON", jsonPath}}
+		if err := refuseClashes(inputs, mine); err != nil {
 			fail(exitUsage, err)
 			continue
 		}
+		if err := refuseClashes(nil, append(append([]namedPath(nil), written...), mine...)); err != nil {
+			fail(exitUsage, fmt.Errorf("its outputs would overwrite another output of this run (%w); give the surveys different names", err))
+			continue
+		}
+		written = append(written, mine...)
 		prog := newProgress(errOut)
 		prog.begin(fmt.Sprintf("%s (survey %d of %d)", filepath.Base(file), i+1, len(files)))
 		o1 := o
@@ -353,7 +364,8 @@ func expandSurveys(errOut io.Writer, args []string, portfolio string) ([]string,
 				continue
 			}
 			p := filepath.Join(a, n)
-			if sameFile(p, portfolio) {
+			if sameTarget(p, portfolio, true, false) && isPortfolioWorkbook(p) {
+				// The previous run's portfolio; a survey named as -p is kept and refused below.
 				continue
 			}
 			found = append(found, p)
@@ -369,6 +381,33 @@ func expandSurveys(errOut io.Writer, args []string, portfolio string) ([]string,
 		return nil, code, withCode(exitUsage, errors.New("no survey to assess"))
 	}
 	return files, code, nil
+}
+
+// isPortfolioWorkbook reports whether the regular file at path is a
+// portfolio workbook this tool wrote (its document title says so); it reads
+// at most 64 KiB of the document properties part.
+func isPortfolioWorkbook(path string) bool {
+	if fi, err := os.Stat(path); err != nil || !fi.Mode().IsRegular() {
+		return false
+	}
+	zr, err := zip.OpenReader(path)
+	if err != nil {
+		return false
+	}
+	defer zr.Close()
+	for _, f := range zr.File {
+		if f.Name != "docProps/core.xml" {
+			continue
+		}
+		rc, err := f.Open()
+		if err != nil {
+			return false
+		}
+		defer rc.Close()
+		b, _ := io.ReadAll(io.LimitReader(rc, 64<<10))
+		return bytes.Contains(b, []byte(report.PortfolioTitlePrefix))
+	}
+	return false
 }
 
 // writePortfolio writes the portfolio workbook and, when jsonPath is set, its JSON.
@@ -397,14 +436,4 @@ func runInfo(s *inventory.Survey, args []string) report.RunInfo {
 		SurveySHA256: s.SHA256,
 		CommandLine:  strings.Join(args, " "),
 	}
-}
-
-// refuseSurveyPath refuses output paths that would overwrite the survey.
-func refuseSurveyPath(survey string, outputs ...string) error {
-	for _, p := range outputs {
-		if p != "" && sameFile(survey, p) {
-			return withCode(exitUsage, fmt.Errorf("refusing to write %s: it is the survey itself; choose another output name", p))
-		}
-	}
-	return nil
 }

@@ -52,6 +52,9 @@ func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".j
 func compareSide(path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
 	label := filepath.Base(path)
 	if isJSON(path) {
+		if err := requireRegular(path); err != nil {
+			return nil, nil, err
+		}
 		data, err := os.ReadFile(path)
 		if err != nil {
 			return nil, nil, withCode(exitUsage, fmt.Errorf("reading %s: %w", path, err))
@@ -82,10 +85,8 @@ func compareSide(path string, asJSON bool) (*rerun.Side, *inventory.Survey, erro
 }
 
 func runCompare(out io.Writer, o compareOptions) error {
-	for _, in := range []string{o.old, o.new} {
-		if err := refuseSurveyPath(in, o.output, o.json); err != nil {
-			return err
-		}
+	if err := refuseClashes([]namedPath{{"OLD", o.old}, {"NEW", o.new}}, []namedPath{{"-o", o.output}, {"--json", o.json}}); err != nil {
+		return err
 	}
 	asJSON := isJSON(o.old) || isJSON(o.new)
 	oldSide, _, err := compareSide(o.old, asJSON)

@@ -15,6 +15,9 @@ import (
 
 // loadSurvey reads and validates a survey; an unreadable file is a usage-class error (exit 2).
 func loadSurvey(path string) (*inventory.Survey, error) {
+	if err := requireRegular(path); err != nil {
+		return nil, err
+	}
 	s, err := inventory.ReadFile(path, inventory.ReadOptions{})
 	if err != nil {
 		if errors.Is(err, inventory.ErrUnreadable) {
@@ -23,22 +26,6 @@ func loadSurvey(path string) (*inventory.Survey, error) {
 		return nil, withCode(exitUsage, fmt.Errorf("reading %s: %w", path, err))
 	}
 	return s, nil
-}
-
-// sameFile reports whether two paths name the same file (after cleaning and resolving links where possible).
-func sameFile(a, b string) bool {
-	ca, errA := filepath.Abs(a)
-	cb, errB := filepath.Abs(b)
-	if errA != nil || errB != nil {
-		return a == b
-	}
-	if ra, err := filepath.EvalSymlinks(ca); err == nil {
-		ca = ra
-	}
-	if rb, err := filepath.EvalSymlinks(cb); err == nil {
-		cb = rb
-	}
-	return ca == cb
 }
 
 // refuseExisting refuses to replace an existing file unless force is set.

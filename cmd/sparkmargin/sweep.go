@@ -51,7 +51,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := refuseSurveyPath(o.survey, o.output, o.json); err != nil {
+	if err := refuseClashes([]namedPath{{"the survey", o.survey}}, []namedPath{{"-o", o.output}, {"--json", o.json}}); err != nil {
 		return err
 	}
 	if len(s.Objects) == 0 {

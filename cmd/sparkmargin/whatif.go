@@ -124,7 +124,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	if xlsx == "" {
 		xlsx = siblingPath(o.survey, "-whatif.xlsx")
 	}
-	if err := refuseSurveyPath(o.survey, xlsx, o.json); err != nil {
+	if err := refuseClashes([]namedPath{{"the survey", o.survey}}, []namedPath{{"the workbook", xlsx}, {"--json", o.json}}); err != nil {
 		return err
 	}
 	changes, err := whatifChanges(s, o)
