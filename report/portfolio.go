@@ -196,7 +196,7 @@ const PortfolioTitlePrefix = "Electrostatic ignition screening portfolio: "
 // portfolio: site, station, rank, verdict, worst ratio) and Cautions. The
 // package parts are in canonical order, so the same portfolio gives the same bytes.
 func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
-	f := excelize.NewFile()
+	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
 	name := fmt.Sprintf("portfolio of %d surveys", len(p.Surveys))
 	wb := &workbook{f: f, st: newStyles(f), info: info, a: &assess.Audit{Survey: &inventory.Survey{Site: inventory.Site{Name: name}}}}
@@ -264,7 +264,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	}); err != nil {
 		return fmt.Errorf("write portfolio: document properties: %w", err)
 	}
-	if err := writeCanonical(f, w); err != nil {
+	if err := writeCanonical(f, w, info.TmpDir); err != nil {
 		return fmt.Errorf("write portfolio: %w", err)
 	}
 	return nil

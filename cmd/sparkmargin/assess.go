@@ -20,6 +20,7 @@ import (
 )
 
 type assessOptions struct {
+	ws            *report.Workspace
 	survey        string
 	surveys       []string // several surveys or folders (survey is then empty)
 	output        string
@@ -33,8 +34,8 @@ type assessOptions struct {
 	args          []string // the command line, for the Method sheet
 }
 
-func newAssessCmd() *cobra.Command {
-	var o assessOptions
+func newAssessCmd(ws *report.Workspace) *cobra.Command {
+	o := assessOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "assess SURVEY.xlsx... | FOLDER",
 		Short: "Assess a survey: verdicts, findings, station ranking and the audit workbook",
@@ -104,7 +105,7 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	}
 	if o.portfolio != "" || o.portfolioJSON != "" {
 		p := report.Portfolio{Surveys: []report.PortfolioSurvey{report.PortfolioEntry(a, filepath.Base(o.survey), xlsx)}}
-		if err := writePortfolio(out, p, runInfo(s, o.args), o.portfolio, o.portfolioJSON); err != nil {
+		if err := writePortfolio(o.ws, out, p, runInfo(s, o.args), o.portfolio, o.portfolioJSON); err != nil {
 			return err
 		}
 	}
@@ -170,17 +171,21 @@ func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress
 		prog.set(st.Objects())
 		return nil
 	}
-	s, err := inventory.StreamFile(path, inventory.ReadOptions{}, func(s *inventory.Survey) error {
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return nil, withCode(exitUsage, err)
+	}
+	s, err := inventory.StreamFile(path, inventory.ReadOptions{TmpDir: tmp}, func(s *inventory.Survey) error {
 		lim, p1 := assess.LimitsFromSite(s.Site, model.DefaultLimits())
 		unc, p2 := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
 		extra = append(p1, p2...)
 		st = assess.NewStreamer(s, assess.Options{Limits: lim, Samples: o.samples, Seed: o.seed, Workers: o.workers, Uncertainties: unc})
 		var err error
-		if ww, err = report.NewWorkbookWriter(s, runInfo(s, o.args), o.samples > 0, ""); err != nil {
+		if ww, err = report.NewWorkbookWriter(s, runInfo(s, o.args), o.samples > 0, tmp); err != nil {
 			return err
 		}
 		if jsonPath != "" {
-			if jw, err = report.NewJSONWriter(""); err != nil {
+			if jw, err = report.NewJSONWriter(tmp); err != nil {
 				return err
 			}
 		}
@@ -206,16 +211,24 @@ func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress
 	s.Problems = append(s.Problems, extra...)
 	a = st.Finish()
 	a.Survey = s
+	// The workbook and the JSON are each written whole, then renamed into
+	// place together; the JSON records the workbook's name and SHA-256, so
+	// that a pair one of whose renames a kill prevented is told apart.
 	info := runInfo(s, o.args)
-	report.CleanStaleTemps(filepath.Dir(xlsx), filepath.Base(xlsx))
-	if err := report.WriteFileAtomic(xlsx, func(w io.Writer) error { return ww.Finish(a, w) }); err != nil {
+	pw, err := o.ws.Prepare(xlsx, func(w io.Writer) error { return ww.Finish(a, w) })
+	if err != nil {
 		return nil, withCode(exitUsage, fmt.Errorf("writing the audit workbook: %w", err))
 	}
+	var pj *report.Pending
 	if jsonPath != "" {
-		report.CleanStaleTemps(filepath.Dir(jsonPath), filepath.Base(jsonPath))
-		if err := report.WriteFileAtomic(jsonPath, func(w io.Writer) error { return jw.Finish(a, info, w) }); err != nil {
+		info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
+		if pj, err = o.ws.Prepare(jsonPath, func(w io.Writer) error { return jw.Finish(a, info, w) }); err != nil {
+			o.ws.Discard(pw)
 			return nil, withCode(exitUsage, fmt.Errorf("writing the audit JSON: %w", err))
 		}
+	}
+	if err := o.ws.Commit(pw, pj); err != nil {
+		return nil, withCode(exitUsage, fmt.Errorf("writing the audit: %w", err))
 	}
 	return a, nil
 }
@@ -320,7 +333,7 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 	}
 	fmt.Fprintln(out)
 	info := report.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
-	if err := writePortfolio(out, p, info, portfolio, portfolioJSON); err != nil {
+	if err := writePortfolio(o.ws, out, p, info, portfolio, portfolioJSON); err != nil {
 		return err
 	}
 	if code != exitOK {
@@ -411,19 +424,30 @@ func isPortfolioWorkbook(path string) bool {
 }
 
 // writePortfolio writes the portfolio workbook and, when jsonPath is set, its JSON.
-func writePortfolio(out io.Writer, p report.Portfolio, info report.RunInfo, xlsx, jsonPath string) error {
+func writePortfolio(ws *report.Workspace, out io.Writer, p report.Portfolio, info report.RunInfo, xlsx, jsonPath string) error {
+	var pw, pj *report.Pending
+	var err error
+	if info.TmpDir, err = ws.Dir(); err != nil {
+		return withCode(exitUsage, err)
+	}
 	if xlsx != "" {
-		report.CleanStaleTemps(filepath.Dir(xlsx), filepath.Base(xlsx))
-		if err := report.WriteFileAtomic(xlsx, func(w io.Writer) error { return report.WritePortfolio(w, p, info) }); err != nil {
+		if pw, err = ws.Prepare(xlsx, func(w io.Writer) error { return report.WritePortfolio(w, p, info) }); err != nil {
 			return withCode(exitUsage, fmt.Errorf("writing the portfolio workbook: %w", err))
 		}
+	}
+	if jsonPath != "" {
+		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return report.WritePortfolioJSON(w, p, info) }); err != nil {
+			ws.Discard(pw)
+			return withCode(exitUsage, fmt.Errorf("writing the portfolio JSON: %w", err))
+		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return withCode(exitUsage, fmt.Errorf("writing the portfolio: %w", err))
+	}
+	if xlsx != "" {
 		fmt.Fprintf(out, "Portfolio workbook: %s (%d site(s) ranked)\n", xlsx, len(p.Surveys))
 	}
 	if jsonPath != "" {
-		report.CleanStaleTemps(filepath.Dir(jsonPath), filepath.Base(jsonPath))
-		if err := report.WriteFileAtomic(jsonPath, func(w io.Writer) error { return report.WritePortfolioJSON(w, p, info) }); err != nil {
-			return withCode(exitUsage, fmt.Errorf("writing the portfolio JSON: %w", err))
-		}
 		fmt.Fprintf(out, "Portfolio JSON:     %s\n", jsonPath)
 	}
 	return nil

@@ -11,14 +11,19 @@ import (
 	"github.com/spf13/pflag"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
 )
 
 // loadSurvey reads and validates a survey; an unreadable file is a usage-class error (exit 2).
-func loadSurvey(path string) (*inventory.Survey, error) {
+func loadSurvey(ws *report.Workspace, path string) (*inventory.Survey, error) {
 	if err := requireRegular(path); err != nil {
 		return nil, err
 	}
-	s, err := inventory.ReadFile(path, inventory.ReadOptions{})
+	tmp, err := ws.Dir()
+	if err != nil {
+		return nil, withCode(exitUsage, err)
+	}
+	s, err := inventory.ReadFile(path, inventory.ReadOptions{TmpDir: tmp})
 	if err != nil {
 		if errors.Is(err, inventory.ErrUnreadable) {
 			return nil, withCode(exitUsage, err)
