@@ -70,8 +70,9 @@ func newRootCmd(stdout, stderr io.Writer, ws *report.Workspace) *cobra.Command {
 // removed on the way out and on SIGINT or SIGTERM (onInterrupt).
 func run(args []string, stdout, stderr io.Writer) int {
 	ws := report.NewWorkspace("")
-	defer ws.Close()
-	defer onInterrupt(ws, stderr)()
+	stop := onInterrupt(ws, stderr)
+	defer stop()     // second: the handler stays until the workspace is gone
+	defer ws.Close() // first
 	root := newRootCmd(stdout, stderr, ws)
 	root.SetArgs(args)
 	err := root.Execute()
