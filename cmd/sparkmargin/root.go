@@ -117,7 +117,11 @@ func onInterrupt(ws *report.Workspace, stderr io.Writer) (stop func()) {
 
 // interruptMessage says what an interrupt left: the previous outputs are kept.
 func interruptMessage(s os.Signal, written []string) string {
-	msg := fmt.Sprintf("\nsparkmargin: interrupted (%v); temporary files removed; ", s)
+	name := "SIGTERM"
+	if s == os.Interrupt {
+		name = "SIGINT"
+	}
+	msg := fmt.Sprintf("\nsparkmargin: interrupted (%s); temporary files removed; ", name)
 	if len(written) == 0 {
 		return msg + "nothing was replaced: the previous audit, if any, is kept as it was"
 	}
