@@ -456,12 +456,13 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 	}
 	doc := struct {
 		Tool     jsonTool          `json:"tool"`
+		Workbook *jsonSurvey       `json:"workbook,omitempty"` // the portfolio workbook written with this JSON
 		Objects  jsonVerdictCounts `json:"objects"`
 		Sites    []jsite           `json:"sites"`
 		Stations []jstation        `json:"stations"`
 		Failed   []jfail           `json:"not_assessed"`
 		Cautions []string          `json:"cautions"`
-	}{Tool: jsonTool{info.tool(), info.ToolVersion}, Objects: verdictCounts(p.totals()), Sites: []jsite{}, Stations: []jstation{}, Failed: []jfail{}, Cautions: templates.Cautions()}
+	}{Tool: jsonTool{info.tool(), info.ToolVersion}, Workbook: workbookRecord(info), Objects: verdictCounts(p.totals()), Sites: []jsite{}, Stations: []jstation{}, Failed: []jfail{}, Cautions: templates.Cautions()}
 	for _, s := range p.Sites() {
 		doc.Sites = append(doc.Sites, jsite{s.Rank, s.Site, s.File, s.SHA256, dateOf(s.SurveyDate), s.Audit, s.Verdict.String(),
 			s.WorstRatio, len(s.Stations), verdictCounts(s.Counts), s.Findings, s.Rejected})

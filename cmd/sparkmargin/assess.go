@@ -436,6 +436,9 @@ func writePortfolio(ws *report.Workspace, out io.Writer, p report.Portfolio, inf
 		}
 	}
 	if jsonPath != "" {
+		if pw != nil {
+			info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
+		}
 		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return report.WritePortfolioJSON(w, p, info) }); err != nil {
 			ws.Discard(pw)
 			return withCode(exitUsage, fmt.Errorf("writing the portfolio JSON: %w", err))

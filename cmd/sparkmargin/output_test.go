@@ -1,6 +1,9 @@
 package main
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
+	"encoding/json"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -116,4 +119,40 @@ func deadPID(t *testing.T) int {
 		t.Fatal(err)
 	}
 	return c.Process.Pid
+}
+
+// TestJSONRecordsItsWorkbook: in a folder run every audit JSON and the
+// portfolio JSON record the workbook written with them, by file name and
+// SHA-256, so that a reader can tell a JSON beside a workbook of another run.
+func TestJSONRecordsItsWorkbook(t *testing.T) {
+	dir := t.TempDir()
+	surveys := filepath.Join(dir, "surveys")
+	if err := os.Mkdir(surveys, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	writeDemo(t, surveys)
+	out := filepath.Join(dir, "out")
+	if code, _, errOut := runCLI(t, "assess", surveys, "-o", out, "--json", out); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for doc, book := range map[string]string{"survey-audit.json": "survey-audit.xlsx", "portfolio.json": "portfolio.xlsx"} {
+		b, err := os.ReadFile(filepath.Join(out, doc))
+		if err != nil {
+			t.Fatal(err)
+		}
+		var rec struct {
+			Workbook struct{ File, SHA256 string } `json:"workbook"`
+		}
+		if err := json.Unmarshal(b, &rec); err != nil {
+			t.Fatal(err)
+		}
+		wb, err := os.ReadFile(filepath.Join(out, book))
+		if err != nil {
+			t.Fatal(err)
+		}
+		sum := sha256.Sum256(wb)
+		if rec.Workbook.File != book || rec.Workbook.SHA256 != hex.EncodeToString(sum[:]) {
+			t.Errorf("%s records %+v, want %s with SHA-256 %x", doc, rec.Workbook, book, sum)
+		}
+	}
 }
