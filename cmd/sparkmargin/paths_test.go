@@ -158,3 +158,23 @@ func TestDemoRefusesAuditOverSurvey(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestMultiSurveyAuditReachesAnotherInput: with several surveys, one
+// survey's audit that would land on another survey of the same run is
+// refused (that survey fails, exit 2) and the other survey is kept.
+func TestMultiSurveyAuditReachesAnotherInput(t *testing.T) {
+	tr := newPathTricks(t)
+	other := filepath.Join(filepath.Dir(tr.survey), "s-audit.xlsx") // s.xlsx's audit name, given as a survey
+	if err := os.WriteFile(other, tr.data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, errOut := runCLI(t, "assess", tr.survey, other, "-o", filepath.Dir(tr.survey), "-p", filepath.Join(tr.dir, "p.xlsx"))
+	if code != exitUsage || !strings.Contains(errOut, "it is the survey itself") {
+		t.Fatalf("exit %d; stderr %q", code, errOut)
+	}
+	for _, p := range []string{tr.survey, other} {
+		if got, _ := os.ReadFile(p); !bytes.Equal(got, tr.data) {
+			t.Errorf("%s was changed", p)
+		}
+	}
+}
