@@ -44,7 +44,11 @@ var spreadsheetErrors = map[string]bool{
 // IsSpreadsheetError reports whether s (spaces trimmed, any letter case) is a
 // spreadsheet error value such as #N/A or #REF!.
 func IsSpreadsheetError(s string) bool {
-	return spreadsheetErrors[strings.ToUpper(strings.TrimSpace(s))]
+	s = strings.TrimSpace(s)
+	if len(s) < 4 || s[0] != '#' {
+		return false // every ID that is no error value, without allocating
+	}
+	return spreadsheetErrors[strings.ToUpper(s)]
 }
 
 // NormalizeText returns s in Unicode normalisation form C (s itself when it
