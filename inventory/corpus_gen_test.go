@@ -137,6 +137,29 @@ func corpusCases() []corpusCase {
 				renameStation(*s, "ST-COAT", "ST-BESCHICHTUNG-Ü")
 				setObjectCell(*s, "COAT-WEB", "ID", "BAHN-Ø1-µ")
 			}},
+		{name: "id-zero-width-space", fault: "DRY-TC ID is COAT-WEB with a zero-width space (U+200B) after COAT, looking the same as COAT-WEB",
+			mutate: cell("DRY-TC", "ID", "COAT\u200b-WEB")},
+		{name: "id-bidi-override", fault: "DRY-TC ID holds a right-to-left override (U+202E) before TC, so it shows as DRY-CT",
+			mutate: cell("DRY-TC", "ID", "DRY-\u202eTC")},
+		{name: "id-control-character", fault: "COAT-WEB ID holds the control character BEL (U+0007) between COAT and WEB, stored as the escape _x0007_ of an inline string",
+			raw: rawCell("A5", `<c r="A5" t="inlineStr"><is><t>COAT_x0007_WEB</t></is></c>`)},
+		{name: "id-normalisation-forms", fault: "station ST-COAT renamed ST-BESCHICHTUNG-\u00dc in composed form (NFC) and its objects' references written decomposed (NFD, U followed by U+0308); COAT-WEB renamed BAHN-\u00dc (NFC) and DRY-TC renamed the same in NFD",
+			mutate: func(s *SurveySheets) {
+				nfc, nfd := "ST-BESCHICHTUNG-\u00dc", "ST-BESCHICHTUNG-U\u0308"
+				renameStation(*s, "ST-COAT", nfc)
+				for _, r := range objects(*s).Rows[1:] {
+					if cellText(r, 1) == nfc {
+						r[1] = nfd
+					}
+				}
+				setObjectCell(*s, "COAT-WEB", "ID", "BAHN-\u00dc")
+				setObjectCell(*s, "DRY-TC", "ID", "BAHN-U\u0308")
+			}},
+		{name: "id-error-value", fault: "COAT-WEB ID is the text #N/A and DRY-TC ID the error cell #REF! (a formula whose reference was deleted)",
+			mutate: cell("COAT-WEB", "ID", "#N/A"),
+			raw:    rawCell("A13", `<c r="A13" t="e"><f>#REF!</f><v>#REF!</v></c>`)},
+		{name: "reference-zero-width-space", fault: "DRY-TC Station written ST-DRY followed by a zero-width space (U+200B)",
+			mutate: cell("DRY-TC", "Station", "ST-DRY\u200b")},
 		{name: "trailing-space-references", fault: "DRY-TC station written \"ST-DRY  \" and COAT-WEB material with a leading and trailing space (accepted: no problem)",
 			mutate: func(s *SurveySheets) {
 				setObjectCell(*s, "DRY-TC", "Station", "ST-DRY  ")

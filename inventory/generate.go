@@ -20,6 +20,8 @@ const MaxObjectRows = excelize.TotalRows - 1
 type GenerateOptions struct {
 	Objects           int // object rows, at most MaxObjectRows
 	ObjectsPerStation int // 0 takes GeneratedObjectsPerStation
+	// TmpDir is the folder for the stream writers' spill files ("" for the system's).
+	TmpDir string
 }
 
 // GeneratedSurvey returns the sheets of a large invented survey, for tests and
@@ -109,7 +111,7 @@ func GeneratedSurvey(opts GenerateOptions) (sheets SurveySheets, objectRows int,
 // same options give the same cells.
 func WriteGeneratedSurvey(w io.Writer, opts GenerateOptions) error {
 	sheets, rows, objectRow := GeneratedSurvey(opts)
-	f := excelize.NewFile()
+	f := excelize.NewFile(excelize.Options{TmpDir: opts.TmpDir})
 	defer f.Close()
 	date, err := f.NewStyle(&excelize.Style{NumFmt: 14})
 	if err != nil {

@@ -169,8 +169,11 @@ func (f *field) warnf(name string, err error, fix, format string, args ...any) {
 	f.add(Warning, name, err, fmt.Sprintf(format, args...), fix)
 }
 
+// text returns the trimmed text of the row's cell in column name, in Unicode
+// normalisation form C (ids.go), so that IDs and references typed in either
+// form match.
 func (f *field) text(name string) string {
-	return f.t.cellText(f.rr, name)
+	return NormalizeText(f.t.cellText(f.rr, name))
 }
 
 // qty parses a numeric cell; the returned Parsed keeps the written number for suggestions.
@@ -273,7 +276,7 @@ func (f *field) enumValue(name string, allowed []string, aliases map[string]stri
 	}
 	fix := "use one of: " + strings.Join(allowed, ", ")
 	if near := Nearest(raw, allowed); near != "" {
-		fix = fmt.Sprintf("did you mean %q? (%s)", near, fix)
+		fix = fmt.Sprintf("%s (%s)", didYouMean(raw, near), fix)
 	}
 	f.errorf(name, ErrNotInList, fix, "%q is not one of the %s values", short(raw, 60), name)
 	return ""
@@ -510,8 +513,15 @@ func (v *validator) unheaded(t *table, st *rowState, rr rawRow, seen map[int]boo
 func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]bool) *field {
 	st := v.newRow(t.Sheet, rr.Row)
 	f := &field{v: v, t: t, rr: rr, st: st}
-	st.id = f.text(idCol)
+	raw := f.text(idCol)
+	// A refused character is left out of the row's ID (checkID's message
+	// shows where it was), so that rows referring to the ID as it looks are
+	// told that it was rejected, and a second row that looks the same is a duplicate.
+	st.id = stripIDChars(raw)
 	st.shared = append(st.shared, t.Missing...)
+	if what := idWords[idCol]; what != "" && raw != "" {
+		f.checkID(idCol, what, raw)
+	}
 	if rr.Hidden {
 		f.warnf("", nil, "", "the row is hidden; it is read like any other")
 	}
@@ -530,6 +540,9 @@ func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]boo
 	v.unheaded(t, st, rr, seen)
 	return f
 }
+
+// idWords names the ID columns whose text is checked as an identifier (checkID).
+var idWords = map[string]string{"ID": "ID", "Name": "material name"}
 
 // idRegistry finds duplicate IDs (case-insensitively, spaces trimmed).
 type idRegistry map[string]int
@@ -555,6 +568,9 @@ type refState struct {
 // resolve looks up a reference among rows of another sheet: exact, then
 // case-insensitive (with a warning); records errors for unknown or rejected rows.
 func (f *field) resolve(col, ref string, targets map[string]refState, targetSheet string, present bool) (string, bool) {
+	if !f.checkID(col, strings.ToLower(col), ref) {
+		return "", false
+	}
 	if t, ok := targets[ref]; ok {
 		if !t.Accepted {
 			f.errorf(col, ErrRejectedReference, fmt.Sprintf("fix %s!%d first", targetSheet, t.Row),
@@ -581,7 +597,7 @@ func (f *field) resolve(col, ref string, targets map[string]refState, targetShee
 	sort.Strings(ids)
 	fix := fmt.Sprintf("use an ID from the %s sheet", targetSheet)
 	if near := Nearest(ref, ids); near != "" {
-		fix = fmt.Sprintf("did you mean %q?", near)
+		fix = didYouMean(ref, near)
 	}
 	where := fmt.Sprintf("is not an ID on the %s sheet", targetSheet)
 	if !present {
@@ -680,7 +696,7 @@ func (v *validator) applySite(ss *siteSheet) {
 			if near := Nearest(splitName(r.Item), columnNames(SiteItems())); near != "" && r.Item != "" {
 				st.probs = append(st.probs, Problem{Sheet: SheetSite, Row: r.Row, Column: "A", ID: r.Item, Severity: Warning, Err: ErrUnknownColumn,
 					Message: fmt.Sprintf("item %q is not a known Site item; it is kept as a site setting", short(r.Item, 60)),
-					Fix:     fmt.Sprintf("did you mean %q?", near)})
+					Fix:     didYouMean(splitName(r.Item), near)})
 			}
 			continue
 		}
@@ -1007,7 +1023,7 @@ func (v *validator) atmospheres(t *table) map[string]refState {
 				a.Substance = sub
 				fix := "give MIE and Group from the site's data"
 				if near := Nearest(sub, substanceNames()); near != "" {
-					fix = fmt.Sprintf("did you mean %q? (or give MIE and Group)", near)
+					fix = didYouMean(sub, near) + " (or give MIE and Group)"
 				}
 				if !mie.Known {
 					f.errorf("Substance", ErrUnknownReference, fix, "substance %q is not in the built-in list, and MIE is blank", short(sub, 60))
@@ -1494,6 +1510,9 @@ func bagTypeValue(f *field, types []string) string {
 // first, then the built-ins and their aliases.
 // cache remembers the look-ups on mats (see sheetMaterial).
 func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matState, cache map[string]matHit) string {
+	if !f.checkID("Material", "material", ref) {
+		return ""
+	}
 	if m, ok := sheetMaterial(ref, mats, cache); ok {
 		if !m.accepted {
 			f.errorf("Material", ErrRejectedReference, fmt.Sprintf("fix Materials!%d first", m.row),
@@ -1511,7 +1530,7 @@ func (v *validator) resolveMaterial(f *field, ref string, mats map[string]matSta
 	}
 	fix := "use a built-in material (sparkmargin library) or add it to the Materials sheet"
 	if near := Nearest(ref, names); near != "" {
-		fix = fmt.Sprintf("did you mean %q? (or add the material to the Materials sheet)", near)
+		fix = didYouMean(ref, near) + " (or add the material to the Materials sheet)"
 	}
 	f.errorf("Material", ErrUnknownReference, fix, "material %q is neither built in nor on the Materials sheet", short(ref, 60))
 	return ""

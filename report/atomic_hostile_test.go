@@ -225,3 +225,51 @@ func TestWriteFileAtomicKilled(t *testing.T) {
 	}
 	t.Logf("after the kills the target held: %v", seen)
 }
+
+// TestConcurrentRunKeepsOtherRunsTemp: while another process writes the same
+// target slowly, this process's stale clean-up and its own write of the
+// target leave the other's temporary file alone, and both writes succeed
+// (before, each run's clean-up deleted the other live run's file and its
+// rename failed with "no such file").
+func TestConcurrentRunKeepsOtherRunsTemp(t *testing.T) {
+	if testing.Short() {
+		t.Skip("-short: starts a child process")
+	}
+	dir := t.TempDir()
+	p := filepath.Join(dir, "audit.xlsx")
+	cmd := exec.Command(os.Args[0], "-test.run=^TestAtomicKillHelper$", "-test.count=1")
+	cmd.Env = append(os.Environ(), killHelperEnv+"="+p)
+	out, err := cmd.StdoutPipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	var childErr bytes.Buffer
+	cmd.Stderr = &childErr
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	buf := make([]byte, 8)
+	_, _ = out.Read(buf) // the child is writing
+	var theirs []string
+	for deadline := time.Now().Add(5 * time.Second); len(theirs) == 0 && time.Now().Before(deadline); {
+		theirs, _ = filepath.Glob(filepath.Join(dir, ".audit.xlsx.tmp-"+strconv.Itoa(cmd.Process.Pid)+"-*"))
+		time.Sleep(time.Millisecond)
+	}
+	if len(theirs) == 0 {
+		t.Fatal("the other process's temporary file never appeared")
+	}
+	CleanStaleTemps(dir, "audit.xlsx")
+	if err := WriteFileAtomic(p, func(w io.Writer) error { _, err := w.Write(workbookBytes(t, "mine", 3)); return err }); err != nil {
+		t.Fatal(err)
+	}
+	// Had its temporary file been removed, the other process's rename would
+	// fail ("no such file"); whichever rename came last, the target is whole.
+	_, _ = io.Copy(io.Discard, out)
+	if err := cmd.Wait(); err != nil {
+		t.Fatalf("the other process's write failed: %v\n%s", err, childErr.String())
+	}
+	if l := labelOf(t, p); l != "new" && l != "mine" {
+		t.Errorf("target holds %q, want one of the two writes whole", l)
+	}
+	assertNoTemps(t, dir)
+}

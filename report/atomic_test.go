@@ -4,9 +4,12 @@ import (
 	"errors"
 	"io"
 	"os"
+	"os/exec"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
+	"time"
 )
 
 func writeString(s string) func(io.Writer) error {
@@ -83,22 +86,67 @@ func TestWriteFileAtomicReadOnlyFolder(t *testing.T) {
 	}
 }
 
+// TestCleanStaleTemps: a temporary file beside a target is removed when the
+// process named in it is gone and nobody holds its lock; a live run's (this
+// process, the parent process, or a lock held) is kept; an earlier version's
+// file (no process id) only when an hour old; other targets' files are left.
 func TestCleanStaleTemps(t *testing.T) {
 	dir := t.TempDir()
-	for _, n := range []string{".audit.xlsx.tmp-123", ".audit.xlsx.tmp-abc", "audit.xlsx", ".other.tmp-1"} {
-		if err := os.WriteFile(filepath.Join(dir, n), nil, 0o644); err != nil {
+	dead := strconv.Itoa(deadPID(t))
+	old := time.Now().Add(-2 * time.Hour)
+	files := []struct {
+		name    string
+		old     bool
+		locked  bool
+		removed bool
+	}{
+		{".audit.xlsx.tmp-" + dead + "-123", false, false, true},
+		{".audit.xlsx.tmp-" + dead + "-124", false, true, false}, // a lock held: a live run in another pid namespace
+		{".audit.xlsx.tmp-" + strconv.Itoa(os.Getpid()) + "-5", false, false, false},
+		{".audit.xlsx.tmp-" + strconv.Itoa(os.Getppid()) + "-6", false, false, false},
+		{".audit.xlsx.tmp-123", true, false, true},   // an earlier version's, two hours old
+		{".audit.xlsx.tmp-abc", true, false, true},   // idem
+		{".audit.xlsx.tmp-456", false, false, false}, // an earlier version's, fresh: maybe live
+		{"audit.xlsx", false, false, false},
+		{".other.tmp-" + dead + "-1", false, false, false},
+	}
+	for _, f := range files {
+		p := filepath.Join(dir, f.name)
+		if err := os.WriteFile(p, nil, 0o644); err != nil {
 			t.Fatal(err)
+		}
+		if f.old {
+			if err := os.Chtimes(p, old, old); err != nil {
+				t.Fatal(err)
+			}
+		}
+		if f.locked {
+			h, err := os.Open(p)
+			if err != nil {
+				t.Fatal(err)
+			}
+			defer h.Close()
+			lockFile(h)
 		}
 	}
 	CleanStaleTemps(dir, "audit.xlsx")
-	var left []string
-	ents, _ := os.ReadDir(dir)
-	for _, e := range ents {
-		left = append(left, e.Name())
+	for _, f := range files {
+		_, err := os.Stat(filepath.Join(dir, f.name))
+		if gone := os.IsNotExist(err); gone != f.removed {
+			t.Errorf("%s: removed %v, want %v", f.name, gone, f.removed)
+		}
 	}
-	if strings.Join(left, ",") != ".other.tmp-1,audit.xlsx" {
-		t.Errorf("left %v, want .other.tmp-1 and audit.xlsx", left)
+}
+
+// deadPID returns the id of a process that has ended (a child started and
+// waited for; its id is not reused within a test).
+func deadPID(t *testing.T) int {
+	t.Helper()
+	c := exec.Command(os.Args[0], "-test.run=^$")
+	if err := c.Run(); err != nil {
+		t.Fatal(err)
 	}
+	return c.Process.Pid
 }
 
 func assertNoTemps(t *testing.T, dir string) {

@@ -111,9 +111,10 @@ func sortContentTypes(b []byte) []byte {
 }
 
 // writeCanonical writes the workbook package through a temporary file (big
-// audits stay out of memory) and copies it to w in canonical order.
-func writeCanonical(f *excelize.File, w io.Writer) error {
-	tmp, err := os.CreateTemp("", "sparkmargin-audit-*.xlsx")
+// audits stay out of memory) in tmpDir ("" for the system's temporary
+// folder) and copies it to w in canonical order.
+func writeCanonical(f *excelize.File, w io.Writer, tmpDir string) error {
+	tmp, err := os.CreateTemp(tmpDir, "sparkmargin-audit-*.xlsx")
 	if err != nil {
 		return err
 	}

@@ -20,6 +20,7 @@ type jsonAudit struct {
 	Tool     jsonTool      `json:"tool"`
 	Options  *jsonOptions  `json:"options,omitempty"`
 	Survey   jsonSurvey    `json:"survey"`
+	Workbook *jsonSurvey   `json:"workbook,omitempty"` // the audit workbook written with this JSON
 	Site     jsonSite      `json:"site"`
 	Counts   jsonCounts    `json:"counts"`
 	Stations []jsonStation `json:"stations"`
@@ -225,11 +226,20 @@ func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
 }
 
 // jsonDoc builds the JSON document of a, without its objects.
+// workbookRecord is the JSON's record of its audit workbook, nil when none was written with it.
+func workbookRecord(info RunInfo) *jsonSurvey {
+	if info.Workbook == "" {
+		return nil
+	}
+	return &jsonSurvey{File: info.Workbook, SHA256: info.WorkbookSHA256}
+}
+
 func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 	s := a.Survey
 	doc := jsonAudit{
-		Tool:   jsonTool{info.tool(), info.ToolVersion},
-		Survey: jsonSurvey{info.file(a), info.sha(a)},
+		Tool:     jsonTool{info.tool(), info.ToolVersion},
+		Survey:   jsonSurvey{info.file(a), info.sha(a)},
+		Workbook: workbookRecord(info),
 		Site: jsonSite{
 			Name:                s.Site.Name,
 			SurveyedBy:          s.Site.SurveyedBy,

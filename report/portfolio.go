@@ -186,13 +186,17 @@ const (
 	sitesRatioCol = "F"
 )
 
+// PortfolioTitlePrefix begins the document title of every portfolio
+// workbook; a folder run knows its previous portfolio by it.
+const PortfolioTitlePrefix = "Electrostatic ignition screening portfolio: "
+
 // WritePortfolio writes the portfolio workbook: Summary (surveys assessed and
 // not, objects by verdict, the chart of each site's worst ratio), Sites
 // (surveys ranked worst first), Stations (every station ranked across the
 // portfolio: site, station, rank, verdict, worst ratio) and Cautions. The
 // package parts are in canonical order, so the same portfolio gives the same bytes.
 func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
-	f := excelize.NewFile()
+	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
 	name := fmt.Sprintf("portfolio of %d surveys", len(p.Surveys))
 	wb := &workbook{f: f, st: newStyles(f), info: info, a: &assess.Audit{Survey: &inventory.Survey{Site: inventory.Site{Name: name}}}}
@@ -256,11 +260,11 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	d := portfolioDate(p).Format("2006-01-02T15:04:05Z")
 	if err := f.SetDocProps(&excelize.DocProperties{
 		Creator: info.tool() + " " + info.ToolVersion, LastModifiedBy: info.tool(), Created: d, Modified: d,
-		Title: "Electrostatic ignition screening portfolio: " + name, Subject: "Screening estimates; see the Cautions sheet", Language: "en",
+		Title: PortfolioTitlePrefix + name, Subject: "Screening estimates; see the Cautions sheet", Language: "en",
 	}); err != nil {
 		return fmt.Errorf("write portfolio: document properties: %w", err)
 	}
-	if err := writeCanonical(f, w); err != nil {
+	if err := writeCanonical(f, w, info.TmpDir); err != nil {
 		return fmt.Errorf("write portfolio: %w", err)
 	}
 	return nil
@@ -452,12 +456,13 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 	}
 	doc := struct {
 		Tool     jsonTool          `json:"tool"`
+		Workbook *jsonSurvey       `json:"workbook,omitempty"` // the portfolio workbook written with this JSON
 		Objects  jsonVerdictCounts `json:"objects"`
 		Sites    []jsite           `json:"sites"`
 		Stations []jstation        `json:"stations"`
 		Failed   []jfail           `json:"not_assessed"`
 		Cautions []string          `json:"cautions"`
-	}{Tool: jsonTool{info.tool(), info.ToolVersion}, Objects: verdictCounts(p.totals()), Sites: []jsite{}, Stations: []jstation{}, Failed: []jfail{}, Cautions: templates.Cautions()}
+	}{Tool: jsonTool{info.tool(), info.ToolVersion}, Workbook: workbookRecord(info), Objects: verdictCounts(p.totals()), Sites: []jsite{}, Stations: []jstation{}, Failed: []jfail{}, Cautions: templates.Cautions()}
 	for _, s := range p.Sites() {
 		doc.Sites = append(doc.Sites, jsite{s.Rank, s.Site, s.File, s.SHA256, dateOf(s.SurveyDate), s.Audit, s.Verdict.String(),
 			s.WorstRatio, len(s.Stations), verdictCounts(s.Counts), s.Findings, s.Rejected})

@@ -37,6 +37,14 @@ type RunInfo struct {
 	SurveyFile   string // the survey's file name as given on the command line
 	SurveySHA256 string // hex SHA-256 of the survey file; "" takes Survey.SHA256
 	CommandLine  string // the command as run, for the Method sheet
+	// Workbook and WorkbookSHA256 name the audit workbook written with the
+	// JSON and its hex SHA-256, recorded in the JSON ("workbook") so that a
+	// reader can tell a JSON from a workbook of another run; empty: no record.
+	Workbook       string
+	WorkbookSHA256 string
+	// TmpDir is the folder for the writers' temporary files (the run's
+	// private folder; "" for the system's). It is written nowhere.
+	TmpDir string
 }
 
 func (ri RunInfo) tool() string {
@@ -109,7 +117,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if a == nil || a.Survey == nil {
 		return errors.New("write workbook: no audit or no survey")
 	}
-	f := excelize.NewFile()
+	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
 	st := newStyles(f)
 	wb := &workbook{f: f, st: st, a: a, info: info}
@@ -132,7 +140,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if err := setDocProps(f, a, info); err != nil {
 		return err
 	}
-	if err := writeCanonical(f, w); err != nil {
+	if err := writeCanonical(f, w, info.TmpDir); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil

@@ -7,14 +7,21 @@
 // Usage:
 //
 //	go run ./cmd/gensurvey -n 1048575 -o /tmp/big.xlsx
+//
+// Its temporary files (spill files, and the survey before it is renamed into
+// place) belong to one report.Workspace, removed on exit and on SIGINT or SIGTERM.
 package main
 
 import (
 	"flag"
 	"fmt"
+	"io"
 	"os"
+	"os/signal"
+	"syscall"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
 )
 
 func main() {
@@ -26,33 +33,29 @@ func main() {
 		fmt.Fprintln(os.Stderr, "usage: gensurvey -n OBJECTS [-per-station K] -o FILE.xlsx")
 		os.Exit(2)
 	}
-	if err := write(*out, *n, *per); err != nil {
+	ws := report.NewWorkspace("")
+	sig := make(chan os.Signal, 1)
+	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
+	go func() {
+		<-sig
+		ws.Abort()
+		fmt.Fprintln(os.Stderr, "gensurvey: interrupted; temporary files removed")
+		os.Exit(130)
+	}()
+	err := write(ws, *out, *n, *per)
+	_ = ws.Close()
+	if err != nil {
 		fmt.Fprintln(os.Stderr, "gensurvey:", err)
 		os.Exit(1)
 	}
 }
 
-func write(path string, n, per int) error {
-	tmp, err := os.CreateTemp(dirOf(path), ".gensurvey-*.xlsx")
+func write(ws *report.Workspace, path string, n, per int) error {
+	tmp, err := ws.Dir()
 	if err != nil {
 		return err
 	}
-	defer os.Remove(tmp.Name())
-	if err := inventory.WriteGeneratedSurvey(tmp, inventory.GenerateOptions{Objects: n, ObjectsPerStation: per}); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Close(); err != nil {
-		return err
-	}
-	return os.Rename(tmp.Name(), path)
-}
-
-func dirOf(p string) string {
-	for i := len(p) - 1; i >= 0; i-- {
-		if p[i] == '/' || p[i] == os.PathSeparator {
-			return p[:i+1]
-		}
-	}
-	return "."
+	return ws.WriteFile(path, func(w io.Writer) error {
+		return inventory.WriteGeneratedSurvey(w, inventory.GenerateOptions{Objects: n, ObjectsPerStation: per, TmpDir: tmp})
+	})
 }

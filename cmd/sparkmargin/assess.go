@@ -1,6 +1,8 @@
 package main
 
 import (
+	"archive/zip"
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
@@ -18,6 +20,7 @@ import (
 )
 
 type assessOptions struct {
+	ws            *report.Workspace
 	survey        string
 	surveys       []string // several surveys or folders (survey is then empty)
 	output        string
@@ -31,8 +34,8 @@ type assessOptions struct {
 	args          []string // the command line, for the Method sheet
 }
 
-func newAssessCmd() *cobra.Command {
-	var o assessOptions
+func newAssessCmd(ws *report.Workspace) *cobra.Command {
+	o := assessOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "assess SURVEY.xlsx... | FOLDER",
 		Short: "Assess a survey: verdicts, findings, station ranking and the audit workbook",
@@ -84,7 +87,8 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	if xlsx == "" {
 		xlsx = defaultAuditPath(o.survey)
 	}
-	if err := refuseSurveyPath(o.survey, xlsx, o.json, o.portfolio, o.portfolioJSON); err != nil {
+	if err := refuseClashes([]namedPath{{"the survey", o.survey}},
+		[]namedPath{{"the audit workbook", xlsx}, {"--json", o.json}, {"--portfolio", o.portfolio}, {"--portfolio-json", o.portfolioJSON}}); err != nil {
 		return err
 	}
 	prog := newProgress(errOut)
@@ -101,7 +105,7 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	}
 	if o.portfolio != "" || o.portfolioJSON != "" {
 		p := report.Portfolio{Surveys: []report.PortfolioSurvey{report.PortfolioEntry(a, filepath.Base(o.survey), xlsx)}}
-		if err := writePortfolio(out, p, runInfo(s, o.args), o.portfolio, o.portfolioJSON); err != nil {
+		if err := writePortfolio(o.ws, out, p, runInfo(s, o.args), o.portfolio, o.portfolioJSON); err != nil {
 			return err
 		}
 	}
@@ -133,6 +137,10 @@ const streamBatch = 1024
 // kept. The outputs have the cells and bytes of the in-memory path
 // (assess.Assess, report.WriteWorkbook, report.WriteJSON).
 func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress) (a *assess.Audit, err error) {
+	if err := requireRegular(path); err != nil {
+		prog.end()
+		return nil, err
+	}
 	var (
 		st    *assess.Streamer
 		ww    *report.WorkbookWriter
@@ -163,17 +171,21 @@ func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress
 		prog.set(st.Objects())
 		return nil
 	}
-	s, err := inventory.StreamFile(path, inventory.ReadOptions{}, func(s *inventory.Survey) error {
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return nil, withCode(exitUsage, err)
+	}
+	s, err := inventory.StreamFile(path, inventory.ReadOptions{TmpDir: tmp}, func(s *inventory.Survey) error {
 		lim, p1 := assess.LimitsFromSite(s.Site, model.DefaultLimits())
 		unc, p2 := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
 		extra = append(p1, p2...)
 		st = assess.NewStreamer(s, assess.Options{Limits: lim, Samples: o.samples, Seed: o.seed, Workers: o.workers, Uncertainties: unc})
 		var err error
-		if ww, err = report.NewWorkbookWriter(s, runInfo(s, o.args), o.samples > 0, ""); err != nil {
+		if ww, err = report.NewWorkbookWriter(s, runInfo(s, o.args), o.samples > 0, tmp); err != nil {
 			return err
 		}
 		if jsonPath != "" {
-			if jw, err = report.NewJSONWriter(""); err != nil {
+			if jw, err = report.NewJSONWriter(tmp); err != nil {
 				return err
 			}
 		}
@@ -199,16 +211,24 @@ func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress
 	s.Problems = append(s.Problems, extra...)
 	a = st.Finish()
 	a.Survey = s
+	// The workbook and the JSON are each written whole, then renamed into
+	// place together; the JSON records the workbook's name and SHA-256, so
+	// that a pair one of whose renames a kill prevented is told apart.
 	info := runInfo(s, o.args)
-	report.CleanStaleTemps(filepath.Dir(xlsx), filepath.Base(xlsx))
-	if err := report.WriteFileAtomic(xlsx, func(w io.Writer) error { return ww.Finish(a, w) }); err != nil {
+	pw, err := o.ws.Prepare(xlsx, func(w io.Writer) error { return ww.Finish(a, w) })
+	if err != nil {
 		return nil, withCode(exitUsage, fmt.Errorf("writing the audit workbook: %w", err))
 	}
+	var pj *report.Pending
 	if jsonPath != "" {
-		report.CleanStaleTemps(filepath.Dir(jsonPath), filepath.Base(jsonPath))
-		if err := report.WriteFileAtomic(jsonPath, func(w io.Writer) error { return jw.Finish(a, info, w) }); err != nil {
+		info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
+		if pj, err = o.ws.Prepare(jsonPath, func(w io.Writer) error { return jw.Finish(a, info, w) }); err != nil {
+			o.ws.Discard(pw)
 			return nil, withCode(exitUsage, fmt.Errorf("writing the audit JSON: %w", err))
 		}
+	}
+	if err := o.ws.Commit(pw, pj); err != nil {
+		return nil, withCode(exitUsage, fmt.Errorf("writing the audit: %w", err))
 	}
 	return a, nil
 }
@@ -240,13 +260,16 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 	if err != nil {
 		return err
 	}
-	for _, f := range files {
-		if err := refuseSurveyPath(f, portfolio, portfolioJSON); err != nil {
-			return err
-		}
+	inputs := make([]namedPath, len(files))
+	for i, f := range files {
+		inputs[i] = namedPath{"the survey", f}
+	}
+	if err := refuseClashes(inputs, []namedPath{{"the portfolio workbook", portfolio}, {"the portfolio JSON", portfolioJSON}}); err != nil {
+		return err
 	}
 	var p report.Portfolio
-	targets := map[string]string{}
+	var written []namedPath // the outputs of the surveys before, and the portfolio's
+	written = append(written, namedPath{"the portfolio workbook", portfolio}, namedPath{"the portfolio JSON", portfolioJSON})
 	failed := 0
 	for i, file := range files {
 		if i > 0 {
@@ -267,15 +290,16 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 			code = max(code, c)
 			failed++
 		}
-		if prev, dup := targets[xlsx]; dup {
-			fail(exitUsage, fmt.Errorf("its audit %s would overwrite the audit of %s; give the surveys different names", xlsx, prev))
-			continue
-		}
-		targets[xlsx] = file
-		if err := refuseSurveyPath(file, xlsx, jsonPath); err != nil {
+		mine := []namedPath{{"its audit workbook", xlsx}, {"its audit JSON", jsonPath}}
+		if err := refuseClashes(inputs, mine); err != nil {
 			fail(exitUsage, err)
 			continue
 		}
+		if err := refuseClashes(nil, append(append([]namedPath(nil), written...), mine...)); err != nil {
+			fail(exitUsage, fmt.Errorf("its outputs would overwrite another output of this run (%w); give the surveys different names", err))
+			continue
+		}
+		written = append(written, mine...)
 		prog := newProgress(errOut)
 		prog.begin(fmt.Sprintf("%s (survey %d of %d)", filepath.Base(file), i+1, len(files)))
 		o1 := o
@@ -309,7 +333,7 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 	}
 	fmt.Fprintln(out)
 	info := report.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
-	if err := writePortfolio(out, p, info, portfolio, portfolioJSON); err != nil {
+	if err := writePortfolio(o.ws, out, p, info, portfolio, portfolioJSON); err != nil {
 		return err
 	}
 	if code != exitOK {
@@ -353,7 +377,8 @@ func expandSurveys(errOut io.Writer, args []string, portfolio string) ([]string,
 				continue
 			}
 			p := filepath.Join(a, n)
-			if sameFile(p, portfolio) {
+			if sameTarget(p, portfolio, true, false) && isPortfolioWorkbook(p) {
+				// The previous run's portfolio; a survey named as -p is kept and refused below.
 				continue
 			}
 			found = append(found, p)
@@ -371,20 +396,61 @@ func expandSurveys(errOut io.Writer, args []string, portfolio string) ([]string,
 	return files, code, nil
 }
 
+// isPortfolioWorkbook reports whether the regular file at path is a
+// portfolio workbook this tool wrote (its document title says so); it reads
+// at most 64 KiB of the document properties part.
+func isPortfolioWorkbook(path string) bool {
+	if fi, err := os.Stat(path); err != nil || !fi.Mode().IsRegular() {
+		return false
+	}
+	zr, err := zip.OpenReader(path)
+	if err != nil {
+		return false
+	}
+	defer zr.Close()
+	for _, f := range zr.File {
+		if f.Name != "docProps/core.xml" {
+			continue
+		}
+		rc, err := f.Open()
+		if err != nil {
+			return false
+		}
+		defer rc.Close()
+		b, _ := io.ReadAll(io.LimitReader(rc, 64<<10))
+		return bytes.Contains(b, []byte(report.PortfolioTitlePrefix))
+	}
+	return false
+}
+
 // writePortfolio writes the portfolio workbook and, when jsonPath is set, its JSON.
-func writePortfolio(out io.Writer, p report.Portfolio, info report.RunInfo, xlsx, jsonPath string) error {
+func writePortfolio(ws *report.Workspace, out io.Writer, p report.Portfolio, info report.RunInfo, xlsx, jsonPath string) error {
+	var pw, pj *report.Pending
+	var err error
+	if info.TmpDir, err = ws.Dir(); err != nil {
+		return withCode(exitUsage, err)
+	}
 	if xlsx != "" {
-		report.CleanStaleTemps(filepath.Dir(xlsx), filepath.Base(xlsx))
-		if err := report.WriteFileAtomic(xlsx, func(w io.Writer) error { return report.WritePortfolio(w, p, info) }); err != nil {
+		if pw, err = ws.Prepare(xlsx, func(w io.Writer) error { return report.WritePortfolio(w, p, info) }); err != nil {
 			return withCode(exitUsage, fmt.Errorf("writing the portfolio workbook: %w", err))
 		}
+	}
+	if jsonPath != "" {
+		if pw != nil {
+			info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
+		}
+		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return report.WritePortfolioJSON(w, p, info) }); err != nil {
+			ws.Discard(pw)
+			return withCode(exitUsage, fmt.Errorf("writing the portfolio JSON: %w", err))
+		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return withCode(exitUsage, fmt.Errorf("writing the portfolio: %w", err))
+	}
+	if xlsx != "" {
 		fmt.Fprintf(out, "Portfolio workbook: %s (%d site(s) ranked)\n", xlsx, len(p.Surveys))
 	}
 	if jsonPath != "" {
-		report.CleanStaleTemps(filepath.Dir(jsonPath), filepath.Base(jsonPath))
-		if err := report.WriteFileAtomic(jsonPath, func(w io.Writer) error { return report.WritePortfolioJSON(w, p, info) }); err != nil {
-			return withCode(exitUsage, fmt.Errorf("writing the portfolio JSON: %w", err))
-		}
 		fmt.Fprintf(out, "Portfolio JSON:     %s\n", jsonPath)
 	}
 	return nil
@@ -397,14 +463,4 @@ func runInfo(s *inventory.Survey, args []string) report.RunInfo {
 		SurveySHA256: s.SHA256,
 		CommandLine:  strings.Join(args, " "),
 	}
-}
-
-// refuseSurveyPath refuses output paths that would overwrite the survey.
-func refuseSurveyPath(survey string, outputs ...string) error {
-	for _, p := range outputs {
-		if p != "" && sameFile(survey, p) {
-			return withCode(exitUsage, fmt.Errorf("refusing to write %s: it is the survey itself; choose another output name", p))
-		}
-	}
-	return nil
 }

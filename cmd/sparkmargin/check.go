@@ -10,15 +10,17 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
 )
 
 type checkOptions struct {
+	ws     *report.Workspace
 	survey string
 	json   bool
 }
 
-func newCheckCmd() *cobra.Command {
-	var o checkOptions
+func newCheckCmd(ws *report.Workspace) *cobra.Command {
+	o := checkOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "check SURVEY.xlsx",
 		Short: "Read and validate a survey; list every problem with its cell",
@@ -36,7 +38,7 @@ func newCheckCmd() *cobra.Command {
 }
 
 func runCheck(out io.Writer, o checkOptions) error {
-	s, err := loadSurvey(o.survey)
+	s, err := loadSurvey(o.ws, o.survey)
 	if err != nil {
 		return err
 	}

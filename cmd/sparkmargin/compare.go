@@ -17,13 +17,14 @@ import (
 )
 
 type compareOptions struct {
+	ws       *report.Workspace
 	old, new string
 	output   string
 	json     string
 }
 
-func newCompareCmd() *cobra.Command {
-	var o compareOptions
+func newCompareCmd(ws *report.Workspace) *cobra.Command {
+	o := compareOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "compare OLD NEW [-o FILE.xlsx]",
 		Short: "Compare two surveys of the same floor (or two audit JSON files): added, removed, changed, ranks moved",
@@ -49,9 +50,12 @@ func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".j
 
 // compareSide loads one side: an audit JSON as it is, a survey assessed (and,
 // when the other side is JSON, turned into the audit JSON so both compare alike).
-func compareSide(path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
+func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
 	label := filepath.Base(path)
 	if isJSON(path) {
+		if err := requireRegular(path); err != nil {
+			return nil, nil, err
+		}
 		data, err := os.ReadFile(path)
 		if err != nil {
 			return nil, nil, withCode(exitUsage, fmt.Errorf("reading %s: %w", path, err))
@@ -62,7 +66,7 @@ func compareSide(path string, asJSON bool) (*rerun.Side, *inventory.Survey, erro
 		}
 		return side, nil, nil
 	}
-	s, err := loadSurvey(path)
+	s, err := loadSurvey(ws, path)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -82,22 +86,20 @@ func compareSide(path string, asJSON bool) (*rerun.Side, *inventory.Survey, erro
 }
 
 func runCompare(out io.Writer, o compareOptions) error {
-	for _, in := range []string{o.old, o.new} {
-		if err := refuseSurveyPath(in, o.output, o.json); err != nil {
-			return err
-		}
+	if err := refuseClashes([]namedPath{{"OLD", o.old}, {"NEW", o.new}}, []namedPath{{"-o", o.output}, {"--json", o.json}}); err != nil {
+		return err
 	}
 	asJSON := isJSON(o.old) || isJSON(o.new)
-	oldSide, _, err := compareSide(o.old, asJSON)
+	oldSide, _, err := compareSide(o.ws, o.old, asJSON)
 	if err != nil {
 		return err
 	}
-	newSide, newSurvey, err := compareSide(o.new, asJSON)
+	newSide, newSurvey, err := compareSide(o.ws, o.new, asJSON)
 	if err != nil {
 		return err
 	}
 	c := rerun.Compare(oldSide, newSide)
-	if err := writeRerun(o.output, o.json,
+	if err := writeRerun(o.ws, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey) },
 		func(w io.Writer) error { return rerun.WriteCompareJSON(w, c) }); err != nil {
 		return err

@@ -13,11 +13,12 @@ import (
 )
 
 type demoOptions struct {
+	ws  *report.Workspace
 	dir string
 }
 
-func newDemoCmd() *cobra.Command {
-	var o demoOptions
+func newDemoCmd(ws *report.Workspace) *cobra.Command {
+	o := demoOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "demo",
 		Short: "Write the embedded demo survey of an invented plant and its audit",
@@ -41,12 +42,12 @@ func runDemo(out, errOut io.Writer, o demoOptions) error {
 		return fmt.Errorf("building the demo survey: %w", err)
 	}
 	survey := filepath.Join(o.dir, "demo-survey.xlsx")
-	if err := report.WriteFileAtomic(survey, func(w io.Writer) error { _, err := w.Write(data); return err }); err != nil {
+	if err := o.ws.WriteFile(survey, func(w io.Writer) error { _, err := w.Write(data); return err }); err != nil {
 		return withCode(exitUsage, fmt.Errorf("writing the demo survey: %w", err))
 	}
 	xlsx := filepath.Join(o.dir, "demo-survey-audit.xlsx")
 	jsonPath := filepath.Join(o.dir, "demo-survey-audit.json")
 	fmt.Fprintf(out, "Demo survey of an invented plant: %s\n\n", survey)
-	return runAssess(out, errOut, assessOptions{survey: survey, output: xlsx, json: jsonPath,
+	return runAssess(out, errOut, assessOptions{ws: o.ws, survey: survey, output: xlsx, json: jsonPath,
 		args: []string{"sparkmargin", "demo", "-o", o.dir}})
 }

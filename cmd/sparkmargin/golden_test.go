@@ -1,6 +1,8 @@
 package main
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
 	"encoding/json"
 	"flag"
 	"fmt"
@@ -26,6 +28,18 @@ func TestDemoGolden(t *testing.T) {
 	got, err := os.ReadFile(filepath.Join(dir, "demo-survey-audit.json"))
 	if err != nil {
 		t.Fatal(err)
+	}
+	// The JSON records its workbook: the file written beside it, by name and SHA-256.
+	var rec struct {
+		Workbook struct{ File, SHA256 string } `json:"workbook"`
+	}
+	if err := json.Unmarshal(got, &rec); err != nil {
+		t.Fatal(err)
+	}
+	if wb, err := os.ReadFile(filepath.Join(dir, "demo-survey-audit.xlsx")); err != nil {
+		t.Fatal(err)
+	} else if sum := sha256.Sum256(wb); rec.Workbook.File != "demo-survey-audit.xlsx" || rec.Workbook.SHA256 != hex.EncodeToString(sum[:]) {
+		t.Errorf("the JSON records the workbook %+v, want demo-survey-audit.xlsx with SHA-256 %x", rec.Workbook, sum)
 	}
 	golden := filepath.Join("..", "..", "testdata", "demo", "demo-audit.golden.json")
 	if *update {
@@ -68,6 +82,9 @@ func compareJSON(path string, want, got any, diffs *[]string) {
 		}
 		for k, wv := range w {
 			if k == "version" { // the tool version changes with every release
+				continue
+			}
+			if path == "$.workbook" && k == "sha256" { // checked against the file in TestDemoGolden
 				continue
 			}
 			gv, ok := g[k]

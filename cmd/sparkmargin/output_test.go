@@ -1,8 +1,13 @@
 package main
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
+	"encoding/json"
 	"os"
+	"os/exec"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -66,16 +71,23 @@ func TestAssessOutputFaults(t *testing.T) {
 }
 
 // TestAssessCleansStaleTemps: temporary files a killed run left beside the
-// audit are removed by the next run, and the previous audit is replaced whole.
+// audit (its process gone) are removed by the next run, those of a live run
+// are kept, and the previous audit is replaced whole.
 func TestAssessCleansStaleTemps(t *testing.T) {
 	dir := t.TempDir()
 	survey := writeDemo(t, dir)
 	audit := filepath.Join(dir, "audit.xlsx")
-	stale := []string{filepath.Join(dir, ".audit.xlsx.tmp-123456"), filepath.Join(dir, ".audit.json.tmp-9")}
+	dead := strconv.Itoa(deadPID(t))
+	stale := []string{filepath.Join(dir, ".audit.xlsx.tmp-"+dead+"-123456"), filepath.Join(dir, ".audit.json.tmp-"+dead+"-9")}
 	for _, p := range stale {
 		if err := os.WriteFile(p, []byte("half an audit"), 0o600); err != nil {
 			t.Fatal(err)
 		}
+	}
+	// A live run's (this process's parent, which outlives the test).
+	live := filepath.Join(dir, ".audit.xlsx.tmp-"+strconv.Itoa(os.Getppid())+"-77")
+	if err := os.WriteFile(live, []byte("another run is writing this"), 0o600); err != nil {
+		t.Fatal(err)
 	}
 	if err := os.WriteFile(audit, []byte("previous"), 0o644); err != nil {
 		t.Fatal(err)
@@ -88,9 +100,59 @@ func TestAssessCleansStaleTemps(t *testing.T) {
 			t.Errorf("stale %s not removed", p)
 		}
 	}
+	if _, err := os.Stat(live); err != nil {
+		t.Errorf("a live run's temporary file was removed: %v", err)
+	}
 	f, err := excelize.OpenFile(audit)
 	if err != nil {
 		t.Fatalf("the new audit does not open: %v", err)
 	}
 	f.Close()
+}
+
+// deadPID returns the id of a process that has ended (a child started and
+// waited for; its id is not reused within a test).
+func deadPID(t *testing.T) int {
+	t.Helper()
+	c := exec.Command(os.Args[0], "-test.run=^$")
+	if err := c.Run(); err != nil {
+		t.Fatal(err)
+	}
+	return c.Process.Pid
+}
+
+// TestJSONRecordsItsWorkbook: in a folder run every audit JSON and the
+// portfolio JSON record the workbook written with them, by file name and
+// SHA-256, so that a reader can tell a JSON beside a workbook of another run.
+func TestJSONRecordsItsWorkbook(t *testing.T) {
+	dir := t.TempDir()
+	surveys := filepath.Join(dir, "surveys")
+	if err := os.Mkdir(surveys, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	writeDemo(t, surveys)
+	out := filepath.Join(dir, "out")
+	if code, _, errOut := runCLI(t, "assess", surveys, "-o", out, "--json", out); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for doc, book := range map[string]string{"survey-audit.json": "survey-audit.xlsx", "portfolio.json": "portfolio.xlsx"} {
+		b, err := os.ReadFile(filepath.Join(out, doc))
+		if err != nil {
+			t.Fatal(err)
+		}
+		var rec struct {
+			Workbook struct{ File, SHA256 string } `json:"workbook"`
+		}
+		if err := json.Unmarshal(b, &rec); err != nil {
+			t.Fatal(err)
+		}
+		wb, err := os.ReadFile(filepath.Join(out, book))
+		if err != nil {
+			t.Fatal(err)
+		}
+		sum := sha256.Sum256(wb)
+		if rec.Workbook.File != book || rec.Workbook.SHA256 != hex.EncodeToString(sum[:]) {
+			t.Errorf("%s records %+v, want %s with SHA-256 %x", doc, rec.Workbook, book, sum)
+		}
+	}
 }

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
 	"io"
 	"os"
 	"path/filepath"
@@ -179,6 +181,12 @@ func TestAssessStreamedSameCells(t *testing.T) {
 			}
 		}
 		var jb bytes.Buffer
+		wb, err := os.ReadFile(xlsx)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sum := sha256.Sum256(wb)
+		info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), hex.EncodeToString(sum[:])
 		if err := report.WriteJSON(&jb, a, info); err != nil {
 			t.Fatal(err)
 		}

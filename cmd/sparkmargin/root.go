@@ -4,8 +4,14 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"os"
+	"os/signal"
+	"strings"
+	"syscall"
 
 	"github.com/spf13/cobra"
+
+	"github.com/sparkmargin/sparkmargin/report"
 )
 
 // version is set at build time with -ldflags "-X main.version=..."; the default names the source tree.
@@ -16,6 +22,9 @@ const (
 	exitOK       = 0
 	exitProblems = 1 // the survey has problems (or nothing could be assessed)
 	exitUsage    = 2 // usage error or unreadable input
+	// exitInterrupted: stopped by SIGINT or SIGTERM; temporary files removed,
+	// the outputs not yet renamed into place keep their previous files.
+	exitInterrupted = 130
 )
 
 // exitError carries an exit code with the error message printed once.
@@ -38,7 +47,7 @@ func withCode(code int, err error) error {
 // silentExit asks for an exit code without printing anything more (the command printed its own report).
 func silentExit(code int) error { return &exitError{code: code} }
 
-func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
+func newRootCmd(stdout, stderr io.Writer, ws *report.Workspace) *cobra.Command {
 	root := &cobra.Command{
 		Use:           "sparkmargin",
 		Short:         "Screen static-electricity ignition hazards from a line-survey workbook",
@@ -49,16 +58,22 @@ func newRootCmd(stdout, stderr io.Writer) *cobra.Command {
 	}
 	root.SetOut(stdout)
 	root.SetErr(stderr)
-	root.AddCommand(newTemplateCmd(), newCheckCmd(), newAssessCmd(), newDemoCmd(), newLibraryCmd(), newWhatifCmd(), newSweepCmd(), newCompareCmd())
+	root.AddCommand(newTemplateCmd(ws), newCheckCmd(ws), newAssessCmd(ws), newDemoCmd(ws), newLibraryCmd(), newWhatifCmd(ws), newSweepCmd(ws), newCompareCmd(ws))
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
 		return withCode(exitUsage, fmt.Errorf("%w\nrun '%s --help' for usage", err, c.CommandPath()))
 	})
 	return root
 }
 
-// run executes the command line and returns the process exit code, printing any error once.
+// run executes the command line and returns the process exit code, printing
+// any error once. Every temporary file of the run belongs to one workspace,
+// removed on the way out and on SIGINT or SIGTERM (onInterrupt).
 func run(args []string, stdout, stderr io.Writer) int {
-	root := newRootCmd(stdout, stderr)
+	ws := report.NewWorkspace("")
+	stop := onInterrupt(ws, stderr)
+	defer stop()     // second: the handler stays until the workspace is gone
+	defer ws.Close() // first
+	root := newRootCmd(stdout, stderr, ws)
 	root.SetArgs(args)
 	err := root.Execute()
 	if err == nil {
@@ -74,4 +89,42 @@ func run(args []string, stdout, stderr io.Writer) int {
 	// cobra's own errors (unknown command, bad args) are usage errors.
 	fmt.Fprintln(stderr, "sparkmargin:", err)
 	return exitUsage
+}
+
+// onInterrupt makes SIGINT and SIGTERM stop the run cleanly: the handler
+// removes the run's temporary files (waiting for a pair of outputs being
+// renamed into place, so that a workbook and its JSON are replaced together),
+// says which outputs are kept, and exits with exitInterrupted. The returned
+// function stops the handling.
+func onInterrupt(ws *report.Workspace, stderr io.Writer) (stop func()) {
+	sig := make(chan os.Signal, 1)
+	done := make(chan struct{})
+	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
+	go func() {
+		select {
+		case s := <-sig:
+			written := ws.Abort()
+			fmt.Fprintln(stderr, interruptMessage(s, written))
+			os.Exit(exitInterrupted)
+		case <-done:
+		}
+	}()
+	return func() {
+		signal.Stop(sig)
+		close(done)
+	}
+}
+
+// interruptMessage says what an interrupt left: the previous outputs are kept.
+func interruptMessage(s os.Signal, written []string) string {
+	name := "SIGTERM"
+	if s == os.Interrupt {
+		name = "SIGINT"
+	}
+	msg := fmt.Sprintf("\nsparkmargin: interrupted (%s); temporary files removed; ", name)
+	if len(written) == 0 {
+		return msg + "nothing was replaced: the previous audit, if any, is kept as it was"
+	}
+	return msg + fmt.Sprintf("written whole before the interrupt: %s; the output in progress was not written and its previous file, if any, is kept as it was",
+		strings.Join(written, ", "))
 }

@@ -11,11 +11,19 @@ import (
 	"github.com/spf13/pflag"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
 )
 
 // loadSurvey reads and validates a survey; an unreadable file is a usage-class error (exit 2).
-func loadSurvey(path string) (*inventory.Survey, error) {
-	s, err := inventory.ReadFile(path, inventory.ReadOptions{})
+func loadSurvey(ws *report.Workspace, path string) (*inventory.Survey, error) {
+	if err := requireRegular(path); err != nil {
+		return nil, err
+	}
+	tmp, err := ws.Dir()
+	if err != nil {
+		return nil, withCode(exitUsage, err)
+	}
+	s, err := inventory.ReadFile(path, inventory.ReadOptions{TmpDir: tmp})
 	if err != nil {
 		if errors.Is(err, inventory.ErrUnreadable) {
 			return nil, withCode(exitUsage, err)
@@ -23,22 +31,6 @@ func loadSurvey(path string) (*inventory.Survey, error) {
 		return nil, withCode(exitUsage, fmt.Errorf("reading %s: %w", path, err))
 	}
 	return s, nil
-}
-
-// sameFile reports whether two paths name the same file (after cleaning and resolving links where possible).
-func sameFile(a, b string) bool {
-	ca, errA := filepath.Abs(a)
-	cb, errB := filepath.Abs(b)
-	if errA != nil || errB != nil {
-		return a == b
-	}
-	if ra, err := filepath.EvalSymlinks(ca); err == nil {
-		ca = ra
-	}
-	if rb, err := filepath.EvalSymlinks(cb); err == nil {
-		cb = rb
-	}
-	return ca == cb
 }
 
 // refuseExisting refuses to replace an existing file unless force is set.

@@ -7,10 +7,12 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
 type sweepOptions struct {
+	ws     *report.Workspace
 	survey string
 	rh     string
 	output string
@@ -18,8 +20,8 @@ type sweepOptions struct {
 	args   []string
 }
 
-func newSweepCmd() *cobra.Command {
-	var o sweepOptions
+func newSweepCmd(ws *report.Workspace) *cobra.Command {
+	o := sweepOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "sweep SURVEY.xlsx --rh FROM:TO:STEP [-o FILE.xlsx]",
 		Short: "Assess a survey over a range of relative humidity: counts, worst ratios, where each station clears",
@@ -47,11 +49,11 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	if err != nil {
 		return withCode(exitUsage, err)
 	}
-	s, err := loadSurvey(o.survey)
+	s, err := loadSurvey(o.ws, o.survey)
 	if err != nil {
 		return err
 	}
-	if err := refuseSurveyPath(o.survey, o.output, o.json); err != nil {
+	if err := refuseClashes([]namedPath{{"the survey", o.survey}}, []namedPath{{"-o", o.output}, {"--json", o.json}}); err != nil {
 		return err
 	}
 	if len(s.Objects) == 0 {
@@ -59,7 +61,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	}
 	sw := rerun.RunSweep(s, steps)
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
-	if err := writeRerun(o.output, o.json,
+	if err := writeRerun(o.ws, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteSweepWorkbook(w, sw, info) },
 		func(w io.Writer) error { return rerun.WriteSweepJSON(w, sw) }); err != nil {
 		return err

@@ -12,12 +12,13 @@ import (
 )
 
 type templateOptions struct {
+	ws    *report.Workspace
 	path  string
 	force bool
 }
 
-func newTemplateCmd() *cobra.Command {
-	var o templateOptions
+func newTemplateCmd(ws *report.Workspace) *cobra.Command {
+	o := templateOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "template FILE.xlsx",
 		Short: "Write a blank survey workbook to fill in on the floor",
@@ -44,7 +45,7 @@ func runTemplate(out io.Writer, o templateOptions) error {
 	for _, s := range inventory.BuiltinSubstances() {
 		subs = append(subs, s.Name)
 	}
-	err := report.WriteFileAtomic(o.path, func(w io.Writer) error {
+	err := o.ws.WriteFile(o.path, func(w io.Writer) error {
 		return inventory.WriteTemplate(w, inventory.TemplateOptions{Materials: mats, Substances: subs, Cautions: templates.Cautions()})
 	})
 	if err != nil {

@@ -15,6 +15,7 @@ import (
 )
 
 type whatifOptions struct {
+	ws             *report.Workspace
 	survey         string
 	output         string
 	json           string
@@ -52,8 +53,8 @@ func (f changeFlag) String() string {
 	return strings.Join(out, ",")
 }
 
-func newWhatifCmd() *cobra.Command {
-	var o whatifOptions
+func newWhatifCmd(ws *report.Workspace) *cobra.Command {
+	o := whatifOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "whatif SURVEY.xlsx [changes] -o FILE.xlsx",
 		Short: "Assess a survey before and after planned changes (humidity, earthing, material, footwear...)",
@@ -118,7 +119,7 @@ func whatifChanges(s *inventory.Survey, o whatifOptions) ([]rerun.Change, error)
 }
 
 func runWhatif(out io.Writer, o whatifOptions) error {
-	s, err := loadSurvey(o.survey)
+	s, err := loadSurvey(o.ws, o.survey)
 	if err != nil {
 		return err
 	}
@@ -126,7 +127,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	if xlsx == "" {
 		xlsx = siblingPath(o.survey, "-whatif.xlsx")
 	}
-	if err := refuseSurveyPath(o.survey, xlsx, o.json); err != nil {
+	if err := refuseClashes([]namedPath{{"the survey", o.survey}}, []namedPath{{"the workbook", xlsx}, {"--json", o.json}}); err != nil {
 		return err
 	}
 	changes, err := whatifChanges(s, o)
@@ -143,7 +144,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
-	if err := writeRerun(xlsx, o.json,
+	if err := writeRerun(o.ws, xlsx, o.json,
 		func(w io.Writer) error { return rerun.WriteWhatifWorkbook(w, x, info) },
 		func(w io.Writer) error { return rerun.WriteWhatifJSON(w, x) }); err != nil {
 		return err
@@ -165,19 +166,25 @@ func siblingPath(survey, suffix string) string {
 	return filepath.Join(dir, strings.TrimSuffix(base, filepath.Ext(base))+suffix)
 }
 
-// writeRerun writes a workbook (when xlsx is set) and a JSON (when jsonPath is set), each atomically.
-func writeRerun(xlsx, jsonPath string, book, doc func(io.Writer) error) error {
+// writeRerun writes a workbook (when xlsx is set) and a JSON (when jsonPath
+// is set), each whole into a temporary file first, then renames both into
+// place together.
+func writeRerun(ws *report.Workspace, xlsx, jsonPath string, book, doc func(io.Writer) error) error {
+	var pw, pj *report.Pending
+	var err error
 	if xlsx != "" {
-		report.CleanStaleTemps(filepath.Dir(xlsx), filepath.Base(xlsx))
-		if err := report.WriteFileAtomic(xlsx, book); err != nil {
+		if pw, err = ws.Prepare(xlsx, book); err != nil {
 			return withCode(exitUsage, fmt.Errorf("writing the workbook: %w", err))
 		}
 	}
 	if jsonPath != "" {
-		report.CleanStaleTemps(filepath.Dir(jsonPath), filepath.Base(jsonPath))
-		if err := report.WriteFileAtomic(jsonPath, doc); err != nil {
+		if pj, err = ws.Prepare(jsonPath, doc); err != nil {
+			ws.Discard(pw)
 			return withCode(exitUsage, fmt.Errorf("writing the JSON: %w", err))
 		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return withCode(exitUsage, fmt.Errorf("writing the outputs: %w", err))
 	}
 	return nil
 }
