@@ -284,7 +284,6 @@ func practitionerCases() []practitionerCase {
 			charge:     hwNear(2.9168661819e-8),
 			wantChecks: []string{"energy-vs-mie", "transferred-charge", "insulating-area"},
 			possible:   []model.DischargeType{model.Brush},
-			knownGap:   "issue 11: blank gas group (assess as IIC)",
 		},
 		{
 			id:  "HW-02 thin PET film on an earthed roller, breakdown unknown",
@@ -364,7 +363,6 @@ func practitionerCases() []practitionerCase {
 			charge:     hwNear(3.453133247e-8),
 			wantChecks: []string{"energy-vs-mie", "transferred-charge", "insulating-area"},
 			possible:   []model.DischargeType{model.Brush},
-			knownGap:   "issue 11: insulating rollers (cylinder geometry)",
 		},
 		{
 			id:  "HW-07 free sheet hung far above the floor",
@@ -381,7 +379,6 @@ func practitionerCases() []practitionerCase {
 			charge:     hwNear(4.11808922499e-8),
 			wantChecks: []string{"energy-vs-mie", "transferred-charge", "insulating-area"},
 			possible:   []model.DischargeType{model.Brush},
-			knownGap:   "issue 11: charge over earth at a distance",
 		},
 		{
 			id:  "HW-08 powder poured from a sack into a vessel holding toluene vapour",
@@ -394,7 +391,6 @@ func practitionerCases() []practitionerCase {
 			verdict:    Incendive,
 			energy:     hwNear(4e-3),
 			wantChecks: []string{"energy-vs-mie"},
-			knownGap:   "issue 11: powder into a gas, vapour or hybrid atmosphere (the verdict holds today only through a cone discharge outside Glor's particle-size range)",
 		},
 		{
 			id:  "HW-09 cone discharge, silo below Glor's range",
@@ -410,7 +406,6 @@ func practitionerCases() []practitionerCase {
 			wantChecks: []string{"energy-vs-margin"},
 			possible:   []model.DischargeType{model.Cone},
 			flags:      model.FlagConeOutsideRange,
-			knownGap:   "issue 11: never extrapolate into a clearance (Glor's formula below its range)",
 		},
 		{
 			id:   "HW-10 cone discharge, silo above Glor's range",
@@ -541,7 +536,6 @@ func practitionerCases() []practitionerCase {
 			charge:     hwNear(1.106070578611e-7),
 			wantChecks: []string{"energy-vs-mie"},
 			possible:   []model.DischargeType{model.Brush},
-			knownGap:   "issue 11: dusts with an MIE below about 1 mJ (brush discharges count)",
 		},
 		{
 			id:  "HW-20 acetone vapour, stoichiometric MIE against minimum MIE",
