@@ -385,6 +385,9 @@ const (
 	FlagMeasuredAboveMaximum
 	// Liquid transfer (appended with the operation-by-operation liquid rules).
 	FlagSecondPhaseLow
+	// Contradictions (appended with the follow-up checks).
+	FlagEarthingContradiction
+	FlagReadingAboveBreakdown
 	numFlags = iota
 )
 
@@ -408,6 +411,8 @@ func flagTexts() [numFlags]string {
 		"potential estimated with the resistance to earth unknown (no leakage): the energy is set by that assumption; measure the resistance or the potential",
 		"measured potential above the realistic plant maximum: check the reading, its unit and the object",
 		"a second phase (stated, or not stated and so taken as present) below 1000 pS/m: the filling rules for low-conductivity liquids apply",
+		"measured potential far above what the measured earthing allows under the worst-case charging current: the earthing path or the reading is wrong; the reading is kept",
+		"reading above what air can hold at the surface: the charge density is capped at the breakdown limit; check the meter's distance, unit and range",
 	}
 }
 
