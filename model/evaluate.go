@@ -494,7 +494,9 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 // dissipative class) that is not earthed as an isolated conductor (IEC TS
 // 60079-32-1: conductors must be earthed; reference section 12): its capacitance
 // measured or estimated, its potential measured, or from the charge sigma A the
-// reading shows, or from its charging current.
+// reading shows, or from its charging current. An estimated potential is capped
+// as any conductor's (Limits.ConductorMaxPotential, a roller's corona onset); a
+// measured one never is.
 func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigma float64) {
 	sp := &ev.Discharges[Spark]
 	conducts := conductingSurface(in, ev.Dissipative)
@@ -540,6 +542,28 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 		return
 	}
 	ev.Capacitance, ev.CapacitanceModel = c, m
+	// Caps on an estimated potential, as for any conductor (evalConductor): the
+	// realistic plant maximum, Limits.ConductorMaxPotential, and a roller's corona
+	// onset. A measured potential is never capped (above the maximum it is a
+	// contradiction, FlagMeasuredAboveMaximum).
+	if ev.PotentialSource != PotentialMeasured {
+		if ev.PotentialSource == PotentialCharging && !given(in.Resistance) && v > 0 {
+			// The assumed (absent) leakage decides the size of the estimate.
+			ev.Flags |= FlagAssumedResistance
+		}
+		if !(v <= lim.ConductorMaxPotential) {
+			if finite(v) {
+				ev.UncappedPotential = v
+			}
+			v = lim.ConductorMaxPotential
+			ev.Flags |= FlagCappedConductor
+		}
+	} else {
+		if v > lim.ConductorMaxPotential {
+			ev.Flags |= FlagMeasuredAboveMaximum
+		}
+		earthingContradiction(ev, in, lim, v)
+	}
 	if in.Kind == Roller && positive(in.Diameter) {
 		temp := env.Temperature
 		if !positive(temp) {
@@ -554,9 +578,10 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 		if v > ev.CoronaOnset {
 			if ev.PotentialSource == PotentialMeasured {
 				ev.Flags |= FlagSuspectReading
+			} else {
+				v = ev.CoronaOnset
+				ev.Flags |= FlagCappedCorona
 			}
-			v = ev.CoronaOnset
-			ev.Flags |= FlagCappedCorona
 		}
 	} else if ev.PotentialSource != PotentialMeasured {
 		ev.Assumed |= AssumedNoCoronaCap
@@ -753,6 +778,9 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 				ev.Flags |= FlagCappedPerson
 			}
 		} else if !(v <= lim.ConductorMaxPotential) {
+			if finite(v) {
+				ev.UncappedPotential = v
+			}
 			v = lim.ConductorMaxPotential
 			ev.Flags |= FlagCappedConductor
 		}

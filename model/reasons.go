@@ -148,6 +148,11 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonCoronaOnset:
 		return fmt.Sprintf("The potential is capped at the corona onset %s for a radius of %s; corona, well below 1 mJ, ignites only the most sensitive gases.", Quantity(a, "V"), Quantity(b, "m"))
 	case ReasonCoronaBelowOnset:
+		if b > coronaShownMax {
+			// A smooth body of large radius: its onset (MV) is no potential a plant
+			// conductor reaches, so it is not quoted.
+			return fmt.Sprintf("The potential %s stays below the corona onset of the object's radius (above %s: the body itself does not go into corona; its edges and bolts may).", Quantity(a, "V"), Quantity(coronaShownMax, "V"))
+		}
 		return fmt.Sprintf("The potential %s stays below the corona onset %s.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonCoronaBagD:
 		return "Type D bags discharge by corona, well below 1 mJ; keep the surface dry and clean and earthed conductors nearby."
@@ -252,6 +257,11 @@ func Quantity(v float64, unit string) string {
 	}
 	return fmt.Sprintf("%.3g %s", v, unit)
 }
+
+// coronaShownMax is the largest corona onset (V) a reason quotes: above it the
+// onset of a large smooth body is far beyond the potentials plant conductors
+// reach (reference section 12: tens of kV), and only the bound is said.
+const coronaShownMax = 100e3
 
 // Potential sources, as recorded in Evaluation.PotentialSource.
 const (

@@ -392,7 +392,11 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
 	}
 	if ev.IsolatedConductor && ev.PotentialSource == model.PotentialFromCharge {
-		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"})
+		why := "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"
+		if ev.Flags&model.FlagCappedConductor != 0 && !math.IsNaN(ev.UncappedPotential) {
+			why += fmt.Sprintf(" = %s, capped at the realistic plant maximum", kV(ev.UncappedPotential))
+		}
+		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: why})
 	}
 	defs = append(defs, modelAssumptions(ev)...)
 	return defs

@@ -313,3 +313,56 @@ func TestReadingAboveBreakdown(t *testing.T) {
 		})
 	}
 }
+
+// TestSurfaceSparkCapped: the estimated potential of an unearthed conducting
+// surface is capped at the 50 kV realistic plant maximum, as any conductor's
+// (reference section 12: an estimate in MV or a spark in kJ is an artefact);
+// a measured one never is.
+func TestSurfaceSparkCapped(t *testing.T) {
+	atm := &inventory.Atmosphere{ID: "A-EA", Substance: "ethyl acetate", Kind: "vapour", MIE: known(0.46e-3), Group: "IIA", Zone: "1"}
+	paper := inventory.Material{Name: "Paper", Class: "dissipative", Permittivity: 2.5, SurfaceResistivity: 7.36e6, HumiditySlope: 0.79, VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN(), Source: "hand-worked cases"}
+	tray := inventory.Material{Name: "Dissipative PP", Class: "dissipative", Permittivity: 2.3, SurfaceResistivity: 1e8, HumiditySlope: 0.3, VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN(), Source: "invented for the demo"}
+	t.Run("estimated from the reading's charge", func(t *testing.T) {
+		// Source: hand-worked case HW-04's web (free finite sheet: 8.0736 uC/m^2 over 2.4 m^2,
+		// 19.38 uC) on the disc of equal area, C = 8 eps0 sqrt(A/pi) = 61.91 pF: V = Q/C =
+		// 313.0 kV (derived), capped at 50 kV: W = C (50 kV)^2 / 2 = 77.39 mJ (derived).
+		o := inventory.Object{Kind: "sheet", Material: "Paper", Length: known(2.0), Width: known(1.2), Backing: "none", DistanceToEarth: known(0.5), Field: known(400e3), FieldDistance: known(0.10), Speed: known(3), Resistance: known(1e8)}
+		st := inventory.Station{ID: "ST-1", Name: "Station 1", Atmosphere: atm.ID, RelativeHumidity: known(65)}
+		o.Station, o.ID = st.ID, "WEB-1"
+		a := Assess(newSurvey([]inventory.Atmosphere{*atm}, []inventory.Station{st}, []inventory.Object{o}, []inventory.Material{paper}), Options{})
+		r := a.Objects[0]
+		if !scalar.EqualWithinRel(r.Eval.Potential, 50e3, relTol) || !scalar.EqualWithinRel(r.Eval.UncappedPotential, 312973.7086, relTol) {
+			t.Errorf("potential %g (uncapped %g), want 50 kV (313 kV)", r.Eval.Potential, r.Eval.UncappedPotential)
+		}
+		if !scalar.EqualWithinRel(r.Eval.Discharges[model.Spark].Energy, 77.389032e-3, relTol) {
+			t.Errorf("spark energy %g J, want 77.39 mJ", r.Eval.Discharges[model.Spark].Energy)
+		}
+		if r.Eval.Flags&model.FlagCappedConductor == 0 {
+			t.Errorf("flags %v lack the cap", r.Eval.Flags.Texts())
+		}
+		found := false
+		for _, d := range r.Defaults {
+			if d.Field == "Potential" && strings.Contains(d.Reason, "313 kV") && strings.Contains(d.Reason, "capped") {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("defaults %v do not show the capped estimate", r.Defaults)
+		}
+	})
+	t.Run("measured never capped", func(t *testing.T) {
+		// derived: a dissipative tray, not earthed (1e12 ohm), measured at 60 kV on 30 pF:
+		// W = 54 mJ, kept as measured; above 50 kV it is a contradiction finding.
+		o := inventory.Object{Kind: "sheet", Material: "Dissipative PP", Length: known(0.4), Width: known(0.3), Backing: "none", DistanceToEarth: known(0.05), SurfacePotential: known(60e3), Resistance: known(1e12), Capacitance: known(30e-12)}
+		r := one(t, atm, o, tray)
+		if !scalar.EqualWithinRel(r.Eval.Potential, 60e3, relTol) || r.Eval.Flags&model.FlagCappedConductor != 0 {
+			t.Errorf("potential %g, flags %v: a measured potential is never capped", r.Eval.Potential, r.Eval.Flags.Texts())
+		}
+		if !scalar.EqualWithinRel(r.Eval.Discharges[model.Spark].Energy, 54e-3, relTol) {
+			t.Errorf("spark energy %g, want 54 mJ", r.Eval.Discharges[model.Spark].Energy)
+		}
+		if !hasCheck(r, CheckMeasuredAboveMaximum.Name()) {
+			t.Errorf("findings %v lack the contradiction", r.Findings)
+		}
+	})
+}
