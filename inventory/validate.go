@@ -512,6 +512,7 @@ func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]boo
 	f := &field{v: v, t: t, rr: rr, st: st}
 	st.id = f.text(idCol)
 	st.shared = append(st.shared, t.Missing...)
+	st.probs = append(st.probs, t.rowFaults(rr, st.id)...)
 	if rr.Hidden {
 		f.warnf("", nil, "", "the row is hidden; it is read like any other")
 	}
@@ -613,7 +614,12 @@ type siteRow struct {
 // header row "Item | Value". Blank rows are skipped.
 func (r *reader) readSite(s *Survey) *siteSheet {
 	ss := &siteSheet{}
-	actual, ok := r.sheets[NormalizeName(SheetSite)]
+	if p, ok := r.ambiguous[NormalizeName(SheetSite)]; ok {
+		ss.Present = true
+		ss.Problem = append(ss.Problem, p)
+		return ss
+	}
+	sh, ok := r.sheets[NormalizeName(SheetSite)]
 	if !ok {
 		return ss
 	}
@@ -621,7 +627,12 @@ func (r *reader) readSite(s *Survey) *siteSheet {
 	ss.Date1904 = r.date1904
 	items := SiteItems()
 	first := true
-	err := r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+	r.streamRows(sh, func(rr rawRow) bool {
+		row, cells, hidden := rr.Row, rr.Cells, rr.Hidden
+		if ps := siteFaults(rr); len(ps) > 0 {
+			ss.Problem = append(ss.Problem, ps...)
+			return true
+		}
 		// Only columns A and B are read; notes beside them (the template's
 		// cautions in column D) are not survey data.
 		if blankRow(cells[:min(2, len(cells))]) {
@@ -646,11 +657,6 @@ func (r *reader) readSite(s *Survey) *siteSheet {
 		ss.Rows = append(ss.Rows, siteRow{Row: row, Item: item, Value: value, Match: m, Known: known, Hidden: hidden})
 		return true
 	})
-	if err != nil {
-		ss.Problem = append(ss.Problem, Problem{Sheet: SheetSite, Severity: Error, Err: err,
-			Message: "the sheet cannot be read to its end (" + short(err.Error(), 100) + ")",
-			Fix:     "open the workbook in a spreadsheet program and save it again"})
-	}
 	return ss
 }
 
