@@ -589,4 +589,3 @@ func otherDocument(zr *zip.Reader) string {
 	}
 	return "it is a zip file that holds no workbook (no workbook.xml part)"
 }
-

@@ -24,10 +24,10 @@ const maxFaultyRows = 1000
 type markKind uint8
 
 const (
-	markBool      markKind = iota + 1 // stored as a boolean (TRUE/FALSE)
-	markFormula                       // a formula without a stored result (text: the formula)
-	markDated                         // a number whose style shows a date
-	markFault                         // the cell cannot be read (text: why)
+	markBool    markKind = iota + 1 // stored as a boolean (TRUE/FALSE)
+	markFormula                     // a formula without a stored result (text: the formula)
+	markDated                       // a number whose style shows a date
+	markFault                       // the cell cannot be read (text: why)
 )
 
 // cellMark notes one cell of a row: a boolean, a formula without a result,
@@ -455,4 +455,3 @@ func (sc *sheetScan) mark(col int, kind markKind, text string) {
 	}
 	sc.marks = append(sc.marks, cellMark{col: col, kind: kind, text: text})
 }
-
