@@ -609,6 +609,11 @@ var ErrUnreadableRow = errors.New("row or cell cannot be read")
 // reports whether the row is to be read: it holds a value, or a fault, or a
 // known column's cell that is a formula without a result or unreadable.
 func (r *reader) dataRow(t *table, rr *rawRow) bool {
+	if rr.Fault != nil && blankRow(rr.Cells) {
+		// nothing of the row could be placed: its fault is the sheet's problem
+		t.Problems = append(t.Problems, Problem{Sheet: t.Sheet, Row: rr.Row, Severity: Error, Err: ErrUnreadableRow, Message: rr.Fault.msg, Fix: rr.Fault.fix})
+		return false
+	}
 	keep := rr.Fault != nil || !blankRow(rr.Cells)
 	for _, m := range rr.Marks {
 		cm, ok := t.Cols[m.col]
@@ -794,4 +799,18 @@ func siteFaults(rr rawRow) []Problem {
 		}
 	}
 	return ps
+}
+
+// cellFaulted reports whether the row's cell in column name cannot be read
+// (see rowFaults, which reports it).
+func (t *table) cellFaulted(rr rawRow, name string) bool {
+	if len(t.Fault) == 0 {
+		return false
+	}
+	i, ok := t.Index[name]
+	if !ok {
+		return false
+	}
+	_, bad := t.Fault[ColumnLetter(i)+strconv.Itoa(rr.Row)]
+	return bad
 }

@@ -40,7 +40,8 @@ type cellMark struct {
 
 // rowFault is why a whole row cannot be placed or trusted: out of order,
 // repeated, a bad row number, a cell with a bad reference or two cells at
-// one place. The row's cells are not read; the row is rejected.
+// one place. The row is rejected; its cells that could be placed are read,
+// so that its problems can name it.
 type rowFault struct {
 	msg, fix string
 }
@@ -144,9 +145,6 @@ func (sc *sheetScan) rowHasContent() bool {
 // rawRow hands the row over; its cells are the row's own.
 func (sc *sheetScan) rawRow() rawRow {
 	rr := rawRow{Row: sc.num, Cells: sc.cells, Hidden: sc.hidden, Marks: sc.marks, Fault: sc.fault}
-	if sc.fault != nil {
-		rr.Cells, rr.Marks = nil, nil
-	}
 	sc.cells, sc.marks = nil, nil
 	return rr
 }
@@ -210,7 +208,7 @@ func (sc *sheetScan) row() error {
 	sc.num = 0
 	if v, ok := x.attr("r"); ok {
 		if sc.num = parseRowNumber(v); sc.num == 0 {
-			sc.setFault(fmt.Sprintf("the row's number %q (after row %d) is not a row number of a sheet (1 to 1,048,576)", short(string(v), 20), sc.lastRow), "")
+			sc.setFault(fmt.Sprintf("a row numbered %q follows row %d; a sheet has rows 1 to 1,048,576 only, so it cannot be placed", short(string(v), 20), sc.lastRow), "")
 		}
 	}
 	numbered := sc.num > 0
@@ -247,11 +245,11 @@ func (sc *sheetScan) place(numbered bool) {
 			sc.setFault(fmt.Sprintf("a row follows row %d, the last a sheet has", sheetMaxRow), "")
 		}
 	} else if sc.num <= sc.lastRow && sc.fault == nil {
-		what := "out of order"
 		if sc.num == sc.lastRow {
-			what = "repeated"
+			sc.setFault(fmt.Sprintf("row %d appears twice in the sheet's file; the second is rejected, since which of the two is meant cannot be told", sc.num), "")
+		} else {
+			sc.setFault(fmt.Sprintf("row %d comes after row %d in the sheet's file (rows out of order); it is rejected, since where it belongs cannot be trusted", sc.num, sc.lastRow), "")
 		}
-		sc.setFault(fmt.Sprintf("row %d comes after row %d in the sheet's file (rows %s); its cells are not read, since which row they belong to cannot be told", sc.num, sc.lastRow, what), "")
 	}
 	// trailing blanks off, as a spreadsheet shows them
 	n := len(sc.cells)
@@ -410,7 +408,7 @@ func (sc *sheetScan) cell(numbered *bool) error {
 		}
 		i, err := strconv.Atoi(strings.TrimSpace(string(value)))
 		if err != nil || i < 0 || i >= sc.p.sst.len() {
-			sc.mark(col, markFault, fmt.Sprintf("the cell refers to shared string %q, which the workbook does not have (a damaged file); its value cannot be read", short(string(value), 20)))
+			sc.mark(col, markFault, fmt.Sprintf("the cell refers to shared string number %q, which the workbook does not have (a damaged file); its value cannot be read", short(string(value), 20)))
 			break
 		}
 		text = sc.p.sst.at(i)

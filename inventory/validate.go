@@ -157,6 +157,9 @@ func (f *field) idLetter() string {
 }
 
 func (f *field) add(sev Severity, name string, err error, msg, fix string) {
+	if f.t.cellFaulted(f.rr, name) {
+		return // the cell cannot be read, and its own problem says why
+	}
 	f.st.probs = append(f.st.probs, Problem{Sheet: f.t.Sheet, Row: f.rr.Row, Column: f.letter(name), Field: name,
 		ID: f.st.id, Severity: sev, Message: msg, Fix: fix, Err: err})
 }
