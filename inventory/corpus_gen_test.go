@@ -803,7 +803,6 @@ func checkGeneratedBytes(t *testing.T, path string, data []byte) {
 	}
 }
 
-
 // objectsXML edits the demo's Objects sheet part (xl/worksheets/sheet4.xml) as text.
 func objectsXML(edit func(s string) string) func(string, []byte) []byte {
 	return objectsXMLBytes(func(b []byte) []byte { return []byte(edit(string(b))) })

@@ -285,7 +285,10 @@ type rawRow struct {
 	Cells  []string
 	Hidden bool
 	Marks  []cellMark // cells of note (booleans, formulas without a result, dates, unreadable cells)
-	Fault  *rowFault  // why the row cannot be read at all (its cells are then nil)
+	Fault  *rowFault  // why the row cannot be placed or trusted (it is rejected)
+	// Unordered is true when a cell stood left of the one before it in the
+	// file (each is placed by its reference; the differential test uses it).
+	Unordered bool
 }
 
 // table is one table sheet as read: its header and its non-blank data rows.
@@ -325,6 +328,8 @@ type reader struct {
 	ambiguous map[string]Problem
 	// farRow is, per sheet, the first row with a value beyond maxColumns.
 	farRow map[string]int
+	// keptCells and keptText count what is kept of the rows read (see keep).
+	keptCells, keptText int64
 }
 
 // helperSheets are sheet names a template or a spreadsheet program may add that
@@ -461,7 +466,13 @@ const headerScanRows = 10
 // to its end stops the whole reading: the workbook is refused, and the
 // reason names the part and the last row read.
 func (r *reader) streamRows(sh wbSheet, fn func(rr rawRow) bool) {
-	far, err := r.p.scanSheet(sh.Name, sh.Part, fn)
+	streamed := r.rowHook != nil && NormalizeName(sh.Name) == NormalizeName(r.hookSheet)
+	far, err := r.p.scanSheet(sh.Name, sh.Part, func(rr rawRow) bool {
+		if !streamed {
+			r.keep(sh.Name, rr)
+		}
+		return fn(rr)
+	})
 	if far > 0 {
 		if r.farRow == nil {
 			r.farRow = map[string]int{}
@@ -470,6 +481,32 @@ func (r *reader) streamRows(sh wbSheet, fn func(rr rawRow) bool) {
 	}
 	if err != nil {
 		panic(err) // a *pkgFault, which readPackage turns into an UnreadableError
+	}
+}
+
+// Bounds of what the reader keeps of the rows it does not stream (every
+// sheet read by ReadFile; all but Objects by StreamFile), which grow with
+// the file's size: a real cell costs more than one byte of the compressed
+// file, and its text does not unpack to more than 16 times its compressed
+// size. A full survey of a million rows keeps some 30 million cells from a
+// file of about 50 MB. // common practice, no source
+const (
+	minKeptCells    = 1 << 22
+	minKeptText     = 64 << 20
+	keptTextPerByte = 16
+)
+
+// keep counts the cells and text of a row the reader may keep, and stops the
+// reading when a file holds far more than its size can really hold (a
+// hostile file of well-compressed cells).
+func (r *reader) keep(sheet string, rr rawRow) {
+	r.keptCells += int64(len(rr.Cells))
+	for _, c := range rr.Cells {
+		r.keptText += int64(len(c))
+	}
+	maxCells, maxText := max(minKeptCells, r.p.size), max(minKeptText, keptTextPerByte*r.p.size)
+	if r.keptCells > maxCells || r.keptText > maxText {
+		panic(&pkgFault{fmt.Sprintf("it holds more cells or text than a workbook of %s can really hold (more than %d cells or %s of text; reading stopped at row %d of sheet %s): a damaged or hostile file", sizeText(r.p.size), maxCells, sizeText(maxText), rr.Row, short(sheet, 60))})
 	}
 }
 

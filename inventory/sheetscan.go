@@ -14,6 +14,11 @@ const (
 	sheetMaxCol = 1 << 14
 )
 
+// maxCellBytes is the most text a cell may hold: 32,767 characters of at
+// most 4 bytes each in UTF-8. Source: Microsoft, "Excel specifications and
+// limits" (total number of characters that a cell can contain: 32,767).
+const maxCellBytes = 4 * 32767
+
 // maxFaultyRows is how many rows of one sheet may be out of order, repeated
 // or otherwise unplaceable before the sheet is refused: each one is kept as
 // a rejected row, and a hostile sheet could repeat one row without end.
@@ -66,7 +71,8 @@ type sheetScan struct {
 	cells     []string
 	set       []bool // columns given a cell in this row
 	marks     []cellMark
-	lastCol   int // the last column given a cell in this row (0-based), -1 at the start
+	lastCol   int  // the last column given a cell in this row (0-based), -1 at the start
+	unordered bool // a cell of the row stood left of the one before it
 	shared    map[string]string
 	rowsRead  int
 	stopAfter int // the last row handed over, for the message when reading stops
@@ -144,7 +150,7 @@ func (sc *sheetScan) rowHasContent() bool {
 
 // rawRow hands the row over; its cells are the row's own.
 func (sc *sheetScan) rawRow() rawRow {
-	rr := rawRow{Row: sc.num, Cells: sc.cells, Hidden: sc.hidden, Marks: sc.marks, Fault: sc.fault}
+	rr := rawRow{Row: sc.num, Cells: sc.cells, Hidden: sc.hidden, Marks: sc.marks, Fault: sc.fault, Unordered: sc.unordered}
 	sc.cells, sc.marks = nil, nil
 	return rr
 }
@@ -197,7 +203,7 @@ digits:
 // row reads one <row> element (its start tag just read).
 func (sc *sheetScan) row() error {
 	x := sc.x
-	sc.hidden, sc.fault, sc.lastCol = false, nil, -1
+	sc.hidden, sc.fault, sc.lastCol, sc.unordered = false, nil, -1, false
 	sc.cells, sc.marks = sc.cells[:0], sc.marks[:0]
 	for i := range sc.set {
 		sc.set[i] = false
@@ -380,7 +386,14 @@ func (sc *sheetScan) cell(numbered *bool) error {
 	if col < 0 {
 		return nil
 	}
+	if col <= sc.lastCol {
+		sc.unordered = true
+	}
 	sc.lastCol = col
+	if len(value) > maxCellBytes {
+		sc.mark(col, markFault, fmt.Sprintf("the cell holds %s of text, more than the 32,767 characters a spreadsheet cell can hold (a damaged or hostile file)", sizeText(int64(len(value)))))
+		value = nil
+	}
 	if col >= maxColumns {
 		if len(strings.TrimSpace(string(value))) > 0 || hasF {
 			if sc.far++; sc.far > maxFarCells {
