@@ -1147,6 +1147,9 @@ func KindRequirements() []KindRequirement {
 
 func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
 	p := v.newObjectPass(stations, mats)
+	if len(t.Rows) > 0 {
+		v.s.Objects = make([]Object, 0, len(t.Rows)) // an Object is large: no regrowing
+	}
 	for _, rr := range t.Rows {
 		_ = p.row(t, rr)
 	}
