@@ -425,16 +425,33 @@ func (p *xlsxPkg) scanPartTags(name string, fn func(x *xmlTok, end bool) error) 
 type sharedStrings struct {
 	text []byte
 	ends []uint32
+	// cache holds the strings already made, so that a string used in many
+	// cells is made once (nil until the first use).
+	cache []string
 }
+
+// maxSharedCache is the most shared strings whose made strings are kept
+// (16 bytes each beside their text). // common practice, no source
+const maxSharedCache = 1 << 20
 
 func (s *sharedStrings) len() int { return len(s.ends) }
 
 func (s *sharedStrings) at(i int) string {
+	if s.cache == nil && len(s.ends) <= maxSharedCache {
+		s.cache = make([]string, len(s.ends))
+	}
+	if s.cache != nil && s.cache[i] != "" {
+		return s.cache[i]
+	}
 	start := uint32(0)
 	if i > 0 {
 		start = s.ends[i-1]
 	}
-	return string(s.text[start:s.ends[i]])
+	c := string(s.text[start:s.ends[i]])
+	if s.cache != nil {
+		s.cache[i] = c
+	}
+	return c
 }
 
 // Bounds of the shared strings, which grow with the file's size: a string

@@ -1,6 +1,7 @@
 package inventory
 
 import (
+	"bytes"
 	"fmt"
 	"strconv"
 	"strings"
@@ -74,6 +75,8 @@ type sheetScan struct {
 	lastCol   int  // the last column given a cell in this row (0-based), -1 at the start
 	unordered bool // a cell of the row stood left of the one before it
 	shared    map[string]string
+	// buffers of a cell's value, formula and inline text, reused
+	vbuf, fbuf, ibuf []byte
 	rowsRead  int
 	stopAfter int // the last row handed over, for the message when reading stops
 }
@@ -323,13 +326,15 @@ func (sc *sheetScan) cell(numbered *bool) error {
 			sc.mark(col, markFault, fmt.Sprintf("the cell's style s=%q is not in the workbook's style table (a damaged file), so whether it shows a date cannot be told", short(string(v), 20)))
 		}
 	}
-	var value, formula []byte
+	value, formula := sc.vbuf[:0], sc.fbuf[:0]
+	defer func() { sc.vbuf, sc.fbuf = value[:0], formula[:0] }()
 	hasV, hasF, hasIS, sharedF := false, false, false, ""
 	if !x.empty {
 		depth := x.depth()
 		var isDepth, tDepth, phDepth = -1, -1, 0
 		var into *[]byte
-		var buf []byte
+		buf := sc.ibuf[:0]
+		defer func() { sc.ibuf = buf[:0] }()
 		for {
 			k, err := x.next()
 			if err != nil {
@@ -395,7 +400,7 @@ func (sc *sheetScan) cell(numbered *bool) error {
 		value = nil
 	}
 	if col >= maxColumns {
-		if len(strings.TrimSpace(string(value))) > 0 || hasF {
+		if len(bytes.TrimSpace(value)) > 0 || hasF {
 			if sc.far++; sc.far > maxFarCells {
 				return &xmlFault{msg: fmt.Sprintf("has more than %d cells beyond column %s, where no survey data goes (a damaged or hostile file)", maxFarCells, ColumnLetter(maxColumns-1))}
 			}
@@ -416,11 +421,12 @@ func (sc *sheetScan) cell(numbered *bool) error {
 	text := ""
 	switch typ {
 	case "s":
-		if !hasV || len(strings.TrimSpace(string(value))) == 0 {
+		v := bytes.TrimSpace(value)
+		if !hasV || len(v) == 0 {
 			break
 		}
-		i, err := strconv.Atoi(strings.TrimSpace(string(value)))
-		if err != nil || i < 0 || i >= sc.p.sst.len() {
+		i, ok := parseIndex(v)
+		if !ok || i >= sc.p.sst.len() {
 			sc.mark(col, markFault, fmt.Sprintf("the cell refers to shared string number %q, which the workbook does not have (a damaged file); its value cannot be read", short(string(value), 20)))
 			break
 		}
@@ -465,4 +471,19 @@ func (sc *sheetScan) mark(col int, kind markKind, text string) {
 		return
 	}
 	sc.marks = append(sc.marks, cellMark{col: col, kind: kind, text: text})
+}
+
+// parseIndex reads a shared-string index: decimal digits only.
+func parseIndex(b []byte) (int, bool) {
+	if len(b) == 0 || len(b) > 10 {
+		return 0, false
+	}
+	n := 0
+	for _, c := range b {
+		if c < '0' || c > '9' {
+			return 0, false
+		}
+		n = n*10 + int(c-'0')
+	}
+	return n, true
 }
