@@ -77,6 +77,9 @@ type sheetScan struct {
 	shared    map[string]string
 	// buffers of a cell's value, formula and inline text, reused
 	vbuf, fbuf, ibuf []byte
+	// the row's text block and the cells whose text lies in it (settleText)
+	rowText []byte
+	pend    []pendCell
 	rowsRead  int
 	stopAfter int // the last row handed over, for the message when reading stops
 }
@@ -208,6 +211,7 @@ func (sc *sheetScan) row() error {
 	x := sc.x
 	sc.hidden, sc.fault, sc.lastCol, sc.unordered = false, nil, -1, false
 	sc.cells, sc.marks = sc.cells[:0], sc.marks[:0]
+	sc.pend, sc.rowText = sc.pend[:0], sc.rowText[:0]
 	for i := range sc.set {
 		sc.set[i] = false
 	}
@@ -248,6 +252,7 @@ func (sc *sheetScan) row() error {
 // place settles the row's number: out of order or repeated rows are faults,
 // never merged into another row.
 func (sc *sheetScan) place(numbered bool) {
+	sc.settleText()
 	if sc.num == 0 {
 		sc.num = sc.lastRow + 1
 		if sc.fault == nil && sc.num > sheetMaxRow {
@@ -418,7 +423,9 @@ func (sc *sheetScan) cell(numbered *bool) error {
 		return nil
 	}
 	sc.set[col] = true
-	text := ""
+	// A cell's text is its shared string, or bytes of the row's text block
+	// (made into one string when the row ends: one allocation per row).
+	text, own, blank := "", []byte(nil), true
 	switch typ {
 	case "s":
 		v := bytes.TrimSpace(value)
@@ -431,26 +438,29 @@ func (sc *sheetScan) cell(numbered *bool) error {
 			break
 		}
 		text = sc.p.sst.at(i)
+		blank = strings.TrimSpace(text) == ""
 	case "inlineStr":
+		own = value
 		if hasIS {
-			text = string(unescapeXString(value))
-		} else {
-			text = string(value)
+			own = unescapeXString(value)
 		}
 	case "b":
-		text = string(value)
+		own = value
 		if hasV {
 			sc.mark(col, markBool, "")
 		}
 	case "", "n", "str", "e", "d":
-		text = string(value)
+		own = value
 		if (typ == "" || typ == "n") && style > 0 && styleOK && sc.p.styleDate[style] && hasV {
 			sc.mark(col, markDated, "")
 		}
 	default:
 		sc.mark(col, markFault, fmt.Sprintf("the cell's type t=%q is not one a workbook uses (a damaged file); its value cannot be read", short(typ, 20)))
 	}
-	if hasF && strings.TrimSpace(text) == "" {
+	if own != nil {
+		blank = len(bytes.TrimSpace(own)) == 0
+	}
+	if hasF && blank {
 		fm := string(formula)
 		if fm == "" && sharedF != "" {
 			fm = sc.shared[sharedF]
@@ -463,7 +473,26 @@ func (sc *sheetScan) cell(numbered *bool) error {
 		sc.cells = append(sc.cells, "")
 	}
 	sc.cells[col] = text
+	if len(own) > 0 {
+		sc.pend = append(sc.pend, pendCell{col: col, start: len(sc.rowText), end: len(sc.rowText) + len(own)})
+		sc.rowText = append(sc.rowText, own...)
+	}
 	return nil
+}
+
+// pendCell is a cell whose text lies in the row's text block.
+type pendCell struct{ col, start, end int }
+
+// settleText makes the row's text block one string and gives each cell its part.
+func (sc *sheetScan) settleText() {
+	if len(sc.pend) == 0 {
+		return
+	}
+	all := string(sc.rowText)
+	for _, p := range sc.pend {
+		sc.cells[p.col] = all[p.start:p.end]
+	}
+	sc.pend, sc.rowText = sc.pend[:0], sc.rowText[:0]
 }
 
 func (sc *sheetScan) mark(col int, kind markKind, text string) {
