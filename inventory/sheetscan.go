@@ -78,8 +78,8 @@ type sheetScan struct {
 	// buffers of a cell's value, formula and inline text, reused
 	vbuf, fbuf, ibuf []byte
 	// the row's text block and the cells whose text lies in it (settleText)
-	rowText []byte
-	pend    []pendCell
+	rowText   []byte
+	pend      []pendCell
 	rowsRead  int
 	stopAfter int // the last row handed over, for the message when reading stops
 }
