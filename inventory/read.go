@@ -53,11 +53,10 @@ type ReadOptions struct {
 	MaxFileSize int64
 	// UnzipSizeLimit caps the unpacked size of the whole workbook (default 2 GiB).
 	UnzipSizeLimit int64
-	// UnzipXMLSizeLimit caps one unpacked part kept in memory; larger parts go
-	// to temporary files in a private folder (default 16 MiB).
+	// UnzipXMLSizeLimit is no longer used: the reader keeps no part whole,
+	// in memory or on disk (it streams every part it reads).
 	UnzipXMLSizeLimit int64
-	// TmpDir is the folder in which a private temporary folder is made and
-	// removed again ("" for the system's).
+	// TmpDir is no longer used: the reader makes no temporary files.
 	TmpDir string
 	// MaxRows caps the rows read per sheet (default DefaultMaxRows, the
 	// sheet's own row limit); a sheet with more gets an error and the rest is
@@ -68,8 +67,8 @@ type ReadOptions struct {
 // Defaults of ReadOptions.
 const (
 	// A survey of a sheet's full 1,048,575 object rows is about 50 MiB and
-	// unpacks to about 0.5 GiB; parts above DefaultUnzipXMLSizeLimit are read
-	// from temporary files, so the unpack limit bounds disk, not memory.
+	// unpacks to about 0.5 GiB; every part is read as a stream, so the
+	// unpack limit bounds the work, not memory.
 	DefaultMaxFileSize       = 256 << 20
 	DefaultUnzipSizeLimit    = 2 << 30
 	DefaultUnzipXMLSizeLimit = 16 << 20
