@@ -81,6 +81,7 @@ type sheetScan struct {
 	rowText   []byte
 	pend      []pendCell
 	rowsRead  int
+	width     int // the widest row so far, the room a new row's cells get
 	stopAfter int // the last row handed over, for the message when reading stops
 }
 
@@ -271,6 +272,7 @@ func (sc *sheetScan) place(numbered bool) {
 		n--
 	}
 	sc.cells = sc.cells[:n:n]
+	sc.width = max(sc.width, n)
 	if sc.fault != nil {
 		sc.faultyRows++
 		switch {
@@ -298,18 +300,17 @@ func (sc *sheetScan) cell(numbered *bool) error {
 	x := sc.x
 	col := sc.lastCol + 1
 	ref, hasRef := x.attr("r")
-	refText := string(ref)
 	if hasRef {
 		c, r, ok := parseCellRef(ref)
 		switch {
 		case !ok:
-			sc.setFault(fmt.Sprintf("a cell of the row has the reference %q, which is no cell of a sheet (columns A to XFD, rows 1 to 1,048,576); its value cannot be placed", short(refText, 20)), "")
+			sc.setFault(fmt.Sprintf("a cell of the row has the reference %q, which is no cell of a sheet (columns A to XFD, rows 1 to 1,048,576); its value cannot be placed", short(string(ref), 20)), "")
 			col = -1
 		case !*numbered && sc.num == 0:
 			sc.num, *numbered = r, true
 			col = c
 		case r != sc.num:
-			sc.setFault(fmt.Sprintf("the cell %s lies in row %d's part of the sheet; its value cannot be placed", short(refText, 20), sc.num), "")
+			sc.setFault(fmt.Sprintf("the cell %s lies in row %d's part of the sheet; its value cannot be placed", short(string(ref), 20), sc.num), "")
 			col = -1
 		default:
 			col = c
@@ -319,7 +320,7 @@ func (sc *sheetScan) cell(numbered *bool) error {
 		sc.setFault("a cell of the row lies beyond column XFD, the last a sheet has", "")
 		col = -1
 	}
-	typ := string(attrOr(x, "t"))
+	typ := cellType(attrOr(x, "t"))
 	style, styleOK := 0, true
 	if v, ok := x.attr("s"); ok {
 		n, err := strconv.Atoi(string(v))
@@ -469,8 +470,16 @@ func (sc *sheetScan) cell(numbered *bool) error {
 			sc.mark(col, markFormula, fm)
 		}
 	}
-	for len(sc.cells) <= col {
-		sc.cells = append(sc.cells, "")
+	if col >= len(sc.cells) {
+		if col >= cap(sc.cells) {
+			grown := make([]string, col+1, max(2*cap(sc.cells), col+1, sc.width))
+			copy(grown, sc.cells)
+			sc.cells = grown
+		} else {
+			n := len(sc.cells)
+			sc.cells = sc.cells[:col+1]
+			clear(sc.cells[n:])
+		}
 	}
 	sc.cells[col] = text
 	if len(own) > 0 {
@@ -515,4 +524,29 @@ func parseIndex(b []byte) (int, bool) {
 		n = n*10 + int(c-'0')
 	}
 	return n, true
+}
+
+// cellType returns a cell's t attribute as one of the constant strings of
+// ECMA-376 Part 1, 18.18.11 (ST_CellType), without allocating; any other
+// value is returned as a new string.
+func cellType(b []byte) string {
+	switch string(b) {
+	case "":
+		return ""
+	case "s":
+		return "s"
+	case "n":
+		return "n"
+	case "b":
+		return "b"
+	case "str":
+		return "str"
+	case "inlineStr":
+		return "inlineStr"
+	case "e":
+		return "e"
+	case "d":
+		return "d"
+	}
+	return string(b)
 }
