@@ -7,6 +7,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"net/url"
 	"path"
 	"strconv"
 	"strings"
@@ -218,6 +219,11 @@ func resolveTarget(dir, target string) (string, bool) {
 	t := strings.ReplaceAll(target, `\`, "/")
 	if i := strings.IndexAny(t, "#?"); i >= 0 {
 		t = t[:i]
+	}
+	if strings.Contains(t, "%") { // a part name is a URI: "sheet%201.xml" is "sheet 1.xml"
+		if u, err := url.PathUnescape(t); err == nil {
+			t = u
+		}
 	}
 	if strings.Contains(t, "://") || strings.HasPrefix(strings.ToLower(t), "file:") || strings.HasPrefix(t, "//") {
 		return target, true
@@ -551,9 +557,11 @@ func unescapeXString(b []byte) []byte {
 	return append(out, b[last:]...)
 }
 
+// appendRuneOrReplacement appends r; a surrogate half, which is no
+// character, is dropped (as a spreadsheet program drops it).
 func appendRuneOrReplacement(b []byte, r rune) []byte {
 	if r >= 0xD800 && r <= 0xDFFF {
-		r = '\uFFFD'
+		return b
 	}
 	return append(b, string(r)...)
 }
