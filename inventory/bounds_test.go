@@ -11,15 +11,16 @@ import (
 	"runtime"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/xuri/excelize/v2"
 )
 
 // The cell-type checks (boolean, formula without a result, date) run on
 // every sheet size: a generated survey of 6000 objects, past the 5000 rows
-// the old whole-sheet check stopped at, with a TRUE at L5500 and a formula
-// without a stored result at U5600, both far below row 5000. Values
-// invented for the test.
+// the old whole-sheet check stopped at, with a TRUE at L5500, a formula
+// without a stored result at U5600 and a date at L5700, all below row 5000.
+// Values invented for the test.
 func TestCellChecksOnLargeSheet(t *testing.T) {
 	if testing.Short() {
 		t.Skip("-short: writes a 6000-object survey")
@@ -33,6 +34,9 @@ func TestCellChecksOnLargeSheet(t *testing.T) {
 		t.Fatal(err)
 	}
 	if err := f.SetCellBool(SheetObjects, "L5500", true); err != nil {
+		t.Fatal(err)
+	}
+	if err := f.SetCellValue(SheetObjects, "L5700", time.Date(2026, 1, 3, 0, 0, 0, 0, time.UTC)); err != nil {
 		t.Fatal(err)
 	}
 	if err := f.SetCellFormula(SheetObjects, "U5600", "1+1"); err != nil {
@@ -62,7 +66,7 @@ func TestCellChecksOnLargeSheet(t *testing.T) {
 		for _, p := range s.Errors() {
 			found[p.Cell()] = true
 		}
-		for _, cell := range []string{"Objects!L5500", "Objects!U5600"} {
+		for _, cell := range []string{"Objects!L5500", "Objects!U5600", "Objects!L5700"} {
 			if !found[cell] {
 				t.Errorf("%s: no error at %s", name, cell)
 			}
