@@ -72,6 +72,9 @@ const (
 	// maxDepth bounds the nesting of elements (a sheet nests six deep).
 	// // common practice, no source
 	maxDepth = 256
+	// maxNameLen bounds an element's name, which is kept while the element
+	// is open (a workbook's names are a few bytes). // common practice, no source
+	maxNameLen = 1024
 )
 
 // xmlFault is a part that is not the XML this reader reads.
@@ -571,6 +574,9 @@ func (x *xmlTok) startTag() (tokKind, error) {
 	end, local, ok := readName(tag, 0)
 	if !ok {
 		return tokNone, malformed("a bad element name")
+	}
+	if end > maxNameLen {
+		return tokNone, &xmlFault{msg: fmt.Sprintf("holds an element name longer than %d bytes (a damaged or hostile file)", maxNameLen)}
 	}
 	if x.depth() >= maxDepth {
 		return tokNone, &xmlFault{msg: fmt.Sprintf("nests elements more than %d deep (a damaged or hostile file)", maxDepth)}
