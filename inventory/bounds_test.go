@@ -155,3 +155,21 @@ func TestHostileInputsBounded(t *testing.T) {
 		})
 	}
 }
+
+// A sheet that cannot be read to its end stops StreamFile (as `assess`
+// reads) with an unreadable survey naming the part and the last row read,
+// after the objects before the fault were handed over: the caller writes
+// nothing. The corpus file's Objects part is cut after row 10.
+func TestStreamStopsAtDamagedSheet(t *testing.T) {
+	calls := 0
+	_, err := StreamFile(filepath.Join(corpusDir(), "sheet-part-elsewhere-truncated.xlsx"), ReadOptions{}, nil, func(Object) error {
+		calls++
+		return nil
+	})
+	if err == nil || !errors.Is(err, ErrUnreadable) || !strings.Contains(err.Error(), "xl/data/objects.xml is cut short; reading stopped after row 10 of sheet Objects") {
+		t.Fatalf("got %v, want an unreadable survey naming the part and row 10", err)
+	}
+	if calls > 9 {
+		t.Errorf("%d objects handed over; the sheet holds 9 rows before the cut", calls)
+	}
+}
