@@ -112,6 +112,10 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if fi.IsDir() {
 		return nil, &UnreadableError{Path: path, Reason: "it is a folder, not a file"}
 	}
+	if !fi.Mode().IsRegular() {
+		// A named pipe would block the open for ever; a device or socket is no workbook.
+		return nil, &UnreadableError{Path: path, Reason: notRegular(fi.Mode())}
+	}
 	if fi.Size() > opts.MaxFileSize {
 		return nil, &UnreadableError{Path: path, Reason: fmt.Sprintf("it is %s, larger than the %s a survey may be", sizeText(fi.Size()), sizeText(opts.MaxFileSize))}
 	}
@@ -119,10 +123,15 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if err != nil {
 		return nil, &UnreadableError{Path: path, Reason: "the file cannot be opened (" + plainOSError(err) + ")", Err: err}
 	}
+	defer fh.Close()
+	// The one open file is hashed and read: a path swapped between the check
+	// above and the open is refused, not read.
+	if ofi, err := fh.Stat(); err != nil || !ofi.Mode().IsRegular() || !os.SameFile(fi, ofi) {
+		return nil, &UnreadableError{Path: path, Reason: "the file changed while it was being opened; run again"}
+	}
 	h := sha256.New()
 	head := &headBuffer{max: 512}
 	n, err := io.Copy(io.MultiWriter(h, head), io.LimitReader(fh, opts.MaxFileSize+1))
-	fh.Close()
 	if err != nil {
 		return nil, &UnreadableError{Path: path, Reason: "reading it failed (" + plainOSError(err) + ")", Err: err}
 	}
@@ -132,16 +141,15 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if why := sniff(head.b, n); why != "" {
 		return nil, &UnreadableError{Path: path, Reason: why}
 	}
-	zr, err := zip.OpenReader(path)
+	zr, err := zip.NewReader(io.NewSectionReader(fh, 0, n), n)
 	if err != nil {
 		return nil, &UnreadableError{Path: path, Reason: zipFailure, Err: err}
 	}
-	defer zr.Close()
 	sum := hex.EncodeToString(h.Sum(nil))
 	if hooks != nil {
 		hooks.path, hooks.sha = path, sum
 	}
-	s, err := readPackage(path, &zr.Reader, n, opts, hooks)
+	s, err := readPackage(path, zr, n, opts, hooks)
 	if err != nil {
 		return nil, err
 	}
