@@ -302,27 +302,12 @@ func partFault(name string, err error, where string) error {
 
 // scanPart reads a whole part, calling start for every start tag.
 func (p *xlsxPkg) scanPart(name string, start func(x *xmlTok) error) error {
-	rc, err := p.openPart(name)
-	if err != nil {
-		return err
-	}
-	defer rc.Close()
-	x := p.tok
-	x.reset(rc)
-	for {
-		k, err := x.next()
-		if err != nil {
-			return partFault(name, err, "")
-		}
-		switch k {
-		case tokEOF:
+	return p.scanPartTags(name, func(x *xmlTok, end bool) error {
+		if end {
 			return nil
-		case tokStart:
-			if err := start(x); err != nil {
-				return err
-			}
 		}
-	}
+		return start(x)
+	})
 }
 
 // maxStyles bounds a workbook's cell formats (a spreadsheet program allows
