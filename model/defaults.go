@@ -70,6 +70,8 @@ func DefaultLimits() Limits {
 		SecondPhaseChargeFactor: 10,
 
 		EarthingContradictionFactor: 10,
+
+		SparkSurface: 1e12,
 	}
 }
 
@@ -176,5 +178,6 @@ func LimitSources() []Citation {
 	add("StrainerChargeFactor", l.StrainerChargeFactor, "1", "coarse strainers add little charge to a pipe's", true)
 	add("SecondPhaseChargeFactor", l.SecondPhaseChargeFactor, "1", srcChoice+": an order of magnitude for free water, solids or a second liquid", true)
 	add("EarthingContradictionFactor", l.EarthingContradictionFactor, "1", srcChoice+": a measured potential more than an order of magnitude above what the measured earthing allows under the worst-case charging current (I R) contradicts the earthing path", false)
+	add("SparkSurface", l.SparkSurface, "ohm", "ESD Association material classes: dissipative 1e5 to < 1e12 ohm/sq (reference section 6); a surface below it, or of dissipative class, sparks when not earthed (IEC TS 60079-32-1 principle: conductors must be earthed)", false)
 	return out
 }

@@ -203,7 +203,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	ev.Dissipative = dissipative
 	backed := in.EarthedBacking
 	ev.Earthed = backed || (given(in.Resistance) && in.Resistance <= lim.ConductorEarthing)
-	ev.IsolatedConductor = conductingSurface(in, dissipative) && !ev.Earthed
+	ev.IsolatedConductor = conductingSurface(in, ev, lim) && !ev.Earthed
 
 	epsr := in.Material.Permittivity
 	if backed && !positive(epsr) {
@@ -499,7 +499,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 // measured one never is.
 func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigma float64) {
 	sp := &ev.Discharges[Spark]
-	conducts := conductingSurface(in, ev.Dissipative)
+	conducts := conductingSurface(in, ev, lim)
 	if !ev.IsolatedConductor {
 		if conducts && ev.Earthed {
 			r := math.NaN()
@@ -603,13 +603,21 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	}
 }
 
-// conductingSurface reports whether a surface conducts well enough to spark: a
-// conductive material, a surface dissipative at this RH by its resistivity, or,
-// with no resistivity given, a material of dissipative class (the stricter
-// reading: it may conduct). A resistivity given and insulating at this RH wins
-// over the class.
-func conductingSurface(in *Input, dissipative bool) bool {
-	return in.Material.Conductive || dissipative || (in.Material.Dissipative && !given(in.Material.SurfaceResistivity))
+// conductingSurface reports whether a surface conducts well enough to spark as
+// an isolated conductor when it is not earthed: a conductive material, a material
+// of dissipative class whatever its resistivity (a library or model resistivity
+// may not clear the spark of a dissipative-class surface: principle 1), or a
+// surface whose resistivity at the station's RH is below the dissipative class
+// bound of ESD practice, Limits.SparkSurface (1e12 ohm/sq, reference section 6),
+// the stricter of the two tests. The 1e9 ohm area-exemption threshold
+// (Limits.DissipativeSurface) decides the insulating-area exemption only: used
+// here it would let the humidity model clear a spark. An insulating material at
+// 1e13 ohm stays an insulator.
+func conductingSurface(in *Input, ev *Evaluation, lim *Limits) bool {
+	if in.Material.Conductive || in.Material.Dissipative || ev.Dissipative {
+		return true
+	}
+	return given(ev.SurfaceResistivity) && ev.SurfaceResistivity < lim.SparkSurface
 }
 
 // surfaceCapacitance returns the measured capacitance of a conducting surface, or

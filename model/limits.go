@@ -85,4 +85,12 @@ type Limits struct {
 	// many times the bound its measured earthing allows (worst-case charging
 	// current x resistance to earth) contradicts the earthing path.
 	EarthingContradictionFactor float64
+
+	// Added with the review fixes (fields only appended).
+
+	// SparkSurface: surface resistance below which a surface conducts well
+	// enough to spark as an isolated conductor when it is not earthed: the
+	// dissipative class bound of ESD practice (below 1e12 ohm/sq), stricter than
+	// DissipativeSurface (1e9 ohm, which only decides the area exemption).
+	SparkSurface float64
 }

@@ -391,3 +391,46 @@ func TestHumidityClearsOnlyUnmeasuredProcessCharge(t *testing.T) {
 		t.Errorf("unknown decay cleared the process-driven brush: %s", ev.Discharges[PropagatingBrush].Reason())
 	}
 }
+
+// Review item 1: a library resistivity may not clear the spark of a
+// dissipative-class surface, and a surface conducts well enough to spark when
+// its resistivity at the station's RH is below the ESD dissipative class bound
+// of 1e12 ohm/sq (reference section 6, ESD Association definitions), at every RH.
+func TestUnearthedLibraryDissipativeSparksAtEveryRH(t *testing.T) {
+	lim := DefaultLimits()
+	// The built-in "antistatic PE": dissipative class, 1e10 ohm at 50 % RH, 0.5 decade per 10 % RH (from memory).
+	in := blank(Sheet)
+	in.Material.Dissipative, in.Material.SurfaceResistivity, in.Material.HumiditySlope = true, 1e10, 0.5
+	in.Length, in.Width, in.Speed, in.Field, in.FieldDistance = 1, 1, 1, 100e3, 0.05
+	// derived (python3): free 1 m x 1 m sheet, on-axis field at z = 0.05 m,
+	// E = sigma/(pi eps0) atan(a b/(z sqrt(a^2+b^2+z^2))), a = b = 0.5 -> sigma = 1.9452 uC/m^2;
+	// C = 8 eps0 sqrt(1/pi) = 39.964 pF (disc of equal area, reference section 2);
+	// V = sigma A / C = 48.68 kV; W = C V^2/2 = 47.34 mJ (the review's hand value 47 mJ at 48.7 kV).
+	for _, rh := range []float64{10, 30, 50, 80} {
+		env := gasEnv(IIA, Zone1, 0.24e-3)
+		env.RelativeHumidity = rh
+		ev := Evaluate(in, env, lim)
+		if !ev.IsolatedConductor || !ev.Discharges[Spark].Possible {
+			t.Fatalf("RH %v: antistatic PE unearthed: no spark (%s)", rh, ev.Discharges[Spark].Reason())
+		}
+		near(t, "potential", ev.Potential, 48675.54, 1e-4)
+		near(t, "spark energy", ev.Discharges[Spark].Energy, 0.0473430, 1e-4)
+	}
+	// No class, 1e11 ohm/sq at the RH (slope 0): below the 1e12 class bound, so it sparks
+	// although above the 1e9 ohm area-exemption threshold; at 1e13 it stays an insulator.
+	for _, c := range []struct {
+		rho   float64
+		spark bool
+	}{{1e11, true}, {9.9e11, true}, {1e12, false}, {1e13, false}} {
+		p := blank(Sheet)
+		p.Material.SurfaceResistivity = c.rho
+		p.Length, p.Width, p.Field, p.FieldDistance = 1, 1, 100e3, 0.05
+		ev := Evaluate(p, gasEnv(IIA, Zone1, 0.24e-3), lim)
+		if ev.IsolatedConductor != c.spark || ev.Discharges[Spark].Possible != c.spark {
+			t.Errorf("%g ohm/sq: isolated conductor %v, spark %v, want %v", c.rho, ev.IsolatedConductor, ev.Discharges[Spark].Possible, c.spark)
+		}
+		if ev.Dissipative {
+			t.Errorf("%g ohm/sq counted dissipative for the area exemption (threshold 1e9 ohm)", c.rho)
+		}
+	}
+}

@@ -174,6 +174,7 @@ func limitLabel(name string) string {
 		"SecondPhaseChargeFactor": "Liquid: streaming current factor with a second phase",
 
 		"EarthingContradictionFactor": "Measured potential above this many times the earthing bound I R: a contradiction",
+		"SparkSurface":                "Surface resistance below which an unearthed surface sparks as a conductor",
 	}
 	l, ok := labels[field]
 	if !ok {

@@ -138,6 +138,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		}
 	case CheckInsulatingArea:
 		msg = fmt.Sprintf("insulating surface of %s exceeds the %s limit of %s for %s", cm2(ev.InsulatingArea), zoneWords(env.Zone), cm2(InsulatingAreaLimit(env, lim)), env.Group)
+		if in.Material.Dissipative || ev.Dissipative {
+			// Already a dissipative material: what is missing is its earthing.
+			mit = templates.Mitigation("insulating-area.dissipative")
+		}
 		mit += humiditySentence(in)
 	case CheckConductorEarthing:
 		what := "resistance to earth"
