@@ -399,14 +399,16 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		}
 	}
 
-	// Layer breakdown: measured on the layer, else the bulk strength x thickness,
-	// which never clears but flags a layer holding more than it could.
+	// Layer breakdown: measured on the layer, else the thin-film upper strength
+	// x thickness (reference section 12: films hold up to about 600 kV/mm), a
+	// physics bound that never clears and flags only a layer holding more than
+	// any film could. A bulk (thick-plaque) strength x thickness does not apply to
+	// films (reference section 12) and is not used, not even for the contradiction.
 	if positive(in.Thickness) && (backed || in.DoubleLayer || in.Process == ProcessPneumatic) {
-		switch {
-		case positive(in.LayerBreakdown):
+		if positive(in.LayerBreakdown) {
 			ev.LayerBreakdown, ev.BreakdownSource = math.Abs(in.LayerBreakdown), BreakdownMeasured
-		case given(in.Material.BreakdownStrength):
-			ev.LayerBreakdown, ev.BreakdownSource = in.Material.BreakdownStrength*in.Thickness, BreakdownComputed
+		} else {
+			ev.LayerBreakdown, ev.BreakdownSource = ThinFilmStrength*in.Thickness, BreakdownThinFilm
 		}
 		if ev.LayerVoltage > ev.LayerBreakdown {
 			ev.Flags |= FlagBreakdownContradiction
@@ -430,7 +432,12 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		setReason(pb, ReasonPropThick, t, lim.PropagatingThickness)
 		return sigma
 	}
-	if ev.BreakdownSource == BreakdownMeasured && ev.LayerBreakdown <= lim.PropagatingBreakdown {
+	// A measured breakdown at or below 4 kV prevents it (TRGS 727 Annex C), unless
+	// the reading on the row shows the layer holding more than that breakdown: the
+	// reading beats the other value (principle 1), and above about 4 kV on the
+	// layer a propagating brush is possible (BG RCI FAQ 1.12).
+	overBreakdown := ev.BreakdownSource == BreakdownMeasured && ev.Flags&FlagBreakdownContradiction != 0
+	if ev.BreakdownSource == BreakdownMeasured && ev.LayerBreakdown <= lim.PropagatingBreakdown && !overBreakdown {
 		setReason(pb, ReasonPropLowBreakdown, ev.LayerBreakdown, lim.PropagatingBreakdown)
 		return sigma
 	}
@@ -481,10 +488,13 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		ev.Assumed |= AssumedPropagatingArea
 	}
 	pb.Possible, pb.Energy = true, w
-	if leaks {
+	switch {
+	case leaks:
 		ev.Flags |= FlagHumidityContradiction
 		setReason(pb, ReasonPropReadingOverHumidity, sigma, lim.PropagatingDensity)
-	} else {
+	case overBreakdown && ev.LayerBreakdown <= lim.PropagatingBreakdown:
+		setReason(pb, ReasonPropReadingOverBreakdown, ev.LayerVoltage, ev.LayerBreakdown)
+	default:
 		setReason(pb, ReasonPropPossible, sigma, w)
 	}
 	return sigma

@@ -207,7 +207,7 @@ func TestEvaluateBackedBelt(t *testing.T) {
 	// Source: reference section 12 [C]: a bulk strength (30 kV/mm x 0.1 mm = 3 kV)
 	// says nothing of a thin film, which holds 100-600 kV/mm: it never clears.
 	in.Material.BreakdownStrength = 30e6
-	if ev := Evaluate(in, gasEnv(IIA, Zone1, 0.24e-3), lim); !ev.Discharges[PropagatingBrush].Possible || ev.BreakdownSource != BreakdownComputed || ev.Assumed&AssumedBreakdownUnknown == 0 {
+	if ev := Evaluate(in, gasEnv(IIA, Zone1, 0.24e-3), lim); !ev.Discharges[PropagatingBrush].Possible || ev.BreakdownSource != BreakdownThinFilm || ev.Assumed&AssumedBreakdownUnknown == 0 {
 		t.Errorf("bulk 3 kV layer cleared: %s", ev.Discharges[PropagatingBrush].Reason())
 	}
 	// Source: TRGS 727 Annex C [C]: a measured layer breakdown <= 4 kV prevents it.

@@ -78,6 +78,9 @@ const (
 	ReasonBrushLiquidCompliant
 	ReasonBrushLiquidBreach // A conductivity (S/m; NaN unknown)
 	ReasonBrushLiquidNoSafeLimits
+	// Added with the review fixes (codes only appended).
+	ReasonPropReadingOverBreakdown // A voltage across the layer, B measured breakdown (V)
+	ReasonCoronaIgnites            // A corona equivalent energy bound (J)
 
 	numReasons
 )
@@ -222,6 +225,10 @@ func (r Reason) Text(a, b float64) string {
 			return "The conductivity is not given, so the liquid is taken as low-conductivity, and a filling clause is not met: brush discharges from its surface are possible."
 		}
 		return fmt.Sprintf("A low-conductivity liquid (%s for the filling rules) keeps charge on its surface and a filling clause is not met: brush discharges from its surface are possible.", Quantity(a, "S/m"))
+	case ReasonPropReadingOverBreakdown:
+		return fmt.Sprintf("The reading shows the layer holding %s, above its measured breakdown of %s: the reading is kept (a measurement beats the other value), so the propagating brush stays counted (possible once the layer holds more than about 4 kV, BG RCI FAQ 1.12); check the breakdown measurement and the reading.", Quantity(a, "V"), Quantity(b, "V"))
+	case ReasonCoronaIgnites:
+		return fmt.Sprintf("Corona from a sharp point or edge, taken at its equivalent energy bound of %s (screening choice; corona is below about 0.1-1 mJ), can ignite only the most sensitive gases such as hydrogen.", Quantity(a, "J"))
 	case ReasonBrushLiquidNoSafeLimits:
 		return "A low-conductivity liquid filled into an insulating vessel: the standard gives no safe filling limits for it, so brush discharges from its surface are counted."
 	}

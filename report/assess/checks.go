@@ -42,7 +42,7 @@ const (
 	CheckBagEarthing
 	// CheckBagQualification: conditions outside the qualification of types C and D.
 	CheckBagQualification
-	// CheckLayerBreakdown: a backed layer holds a voltage above its breakdown voltage (measured or computed): a contradiction to check.
+	// CheckLayerBreakdown: a backed layer holds a voltage above its measured breakdown voltage, or above the thin-film upper strength x thickness: a contradiction to check.
 	CheckLayerBreakdown
 	// CheckReadingVsHumidity: a reading shows charge above the screen on a surface the humidity model finds dissipative and earthed.
 	CheckReadingVsHumidity
@@ -95,7 +95,7 @@ func checkTable() [NumChecks]checkDef {
 		CheckBagType:               {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types"},
 		CheckBagEarthing:           {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 Mohm while filling and emptying"},
 		CheckBagQualification:      {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 uA"},
-		CheckLayerBreakdown:        {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); a layer holding more than its breakdown is a contradiction between reading and model (a screening choice of this tool)"},
+		CheckLayerBreakdown:        {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); thin films hold at most about 600 kV/mm (secondary sources; a bulk strength x thickness does not apply to films and is not used); a layer holding more than its measured breakdown or that bound is a contradiction between reading and model, the reading kept (a screening choice of this tool)"},
 		CheckReadingVsHumidity:     {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)"},
 		CheckSplashFilling:         {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)"},
 		CheckSecondPhase:           {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)"},

@@ -209,11 +209,11 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			msg = fmt.Sprintf("type C bag: earthing tab to plant earth %s exceeds %s", ohm(in.Resistance), ohm(lim.BagTabToEarth))
 		}
 	case CheckLayerBreakdown:
-		src := "computed from the material's bulk strength x thickness"
 		if ev.BreakdownSource == model.BreakdownMeasured {
-			src = "measured on the layer"
+			msg = fmt.Sprintf("the layer holds %s by its reading, above its breakdown voltage of %s measured on the layer: the reading or the breakdown measurement is wrong; the reading's hazard is kept, the propagating brush included", kV(ev.LayerVoltage), kV(ev.LayerBreakdown))
+		} else {
+			msg = fmt.Sprintf("the layer holds %s by its reading, above the %s that any film of its thickness holds (thin-film upper strength about 600 kV/mm x thickness): the reading, its unit or the thickness is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown))
 		}
-		msg = fmt.Sprintf("the layer holds %s by its reading, above its breakdown voltage of %s (%s): the reading, its unit, the thickness or the breakdown value is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown), src)
 	case CheckReadingVsHumidity:
 		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(ev.ChargeDensity), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
 	case CheckBagQualification:
