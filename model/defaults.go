@@ -72,6 +72,7 @@ func DefaultLimits() Limits {
 		EarthingContradictionFactor: 10,
 
 		SparkSurface: 1e12,
+		CoronaEnergy: 0.1e-3,
 	}
 }
 
@@ -179,5 +180,6 @@ func LimitSources() []Citation {
 	add("SecondPhaseChargeFactor", l.SecondPhaseChargeFactor, "1", srcChoice+": an order of magnitude for free water, solids or a second liquid", true)
 	add("EarthingContradictionFactor", l.EarthingContradictionFactor, "1", srcChoice+": a measured potential more than an order of magnitude above what the measured earthing allows under the worst-case charging current (I R) contradicts the earthing path", false)
 	add("SparkSurface", l.SparkSurface, "ohm", "ESD Association material classes: dissipative 1e5 to < 1e12 ohm/sq (reference section 6); a surface below it, or of dissipative class, sparks when not earthed (IEC TS 60079-32-1 principle: conductors must be earthed)", false)
+	add("CoronaEnergy", l.CoronaEnergy, "J", "screening choice of this tool: corona is below about 0.1-1 mJ and ignites only very sensitive gases such as hydrogen (reference section 3, < 1 mJ confirmed, the rest from memory); the lower end is taken as its equivalent energy and compared only with an MIE below it, so IIA and IIB atmospheres (MIE >= 0.14 mJ for the usual gases) are not judged on corona", true)
 	return out
 }

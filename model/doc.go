@@ -69,8 +69,8 @@
 //     sigma >= 2.5e-4 C/m^2 measured, or the process; energy the stored field
 //     energy of the layer, at most 1 J (a process-driven one at 1 J). A layer
 //     whose voltage exceeds its measured breakdown, or the thin-film upper
-//     strength ThinFilmStrength x thickness (about 600 kV/mm, reference section
-//     12) when none was measured, raises FlagBreakdownContradiction; a bulk
+//     strength ThinFilmStrength x thickness (about 600 kV/mm, reference
+//     section 12) when none was measured, raises FlagBreakdownContradiction; a bulk
 //     strength x thickness is not used. A reading above a measured breakdown of
 //     4 kV or less keeps the propagating brush (principle 1; BG RCI FAQ 1.12).
 //  7. Belts: charging current sigma v w (or the row's, the larger). Decay of a

@@ -122,6 +122,12 @@ func finish(ev *Evaluation, env *Environment, lim *Limits) {
 		if d.Type == Brush && !BrushIgnites(*env, *lim) {
 			continue // not incendive to a pure dust cloud of MIE at or above Limits.DustBrushMIE
 		}
+		if d.Type == Corona {
+			if !CoronaIgnites(*env, *lim) {
+				continue // corona ignites only the most sensitive gases (Limits.CoronaEnergy)
+			}
+			setReason(d, ReasonCoronaIgnites, d.Energy, env.MIE)
+		}
 		if d.Energy > ev.EffectiveEnergy {
 			ev.EffectiveEnergy, ev.Effective = d.Energy, d.Type
 		}
@@ -139,6 +145,17 @@ func (e Environment) WithStrictGroup() (Environment, bool) {
 		return e, true
 	}
 	return e, false
+}
+
+// CoronaIgnites reports whether a corona discharge is counted against the
+// environment's atmosphere: an atmosphere whose MIE is below the corona
+// equivalent energy bound Limits.CoronaEnergy (0.1 mJ, a screening choice:
+// reference section 3, corona below about 0.1-1 mJ ignites only very sensitive
+// gases such as hydrogen, MIE about 0.017 mJ). IIA and IIB atmospheres of the
+// usual MIE (0.14 mJ or more) are not judged on corona; an unknown MIE leaves the
+// verdict to "not assessed".
+func CoronaIgnites(env Environment, lim Limits) bool {
+	return env.Atmosphere != NoAtmosphere && env.MIE < lim.CoronaEnergy
 }
 
 // BrushIgnites reports whether a brush discharge can ignite the environment's
@@ -847,7 +864,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	co := &ev.Discharges[Corona]
 	switch {
 	case capped:
-		co.Possible = true
+		co.Possible, co.Energy = true, lim.CoronaEnergy
 		setReason(co, ReasonCoronaOnset, ev.CoronaOnset, in.Diameter/2)
 	case finite(ev.CoronaOnset):
 		setReason(co, ReasonCoronaBelowOnset, v, ev.CoronaOnset)
@@ -1220,7 +1237,7 @@ func evalBag(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		setReason(pb, ReasonBrushBagProtected, math.NaN(), math.NaN())
 		setReason(sp, ReasonSparkBagD, math.NaN(), math.NaN())
 		co := &ev.Discharges[Corona]
-		co.Possible = true
+		co.Possible, co.Energy = true, lim.CoronaEnergy
 		setReason(co, ReasonCoronaBagD, math.NaN(), math.NaN())
 	}
 }

@@ -93,4 +93,10 @@ type Limits struct {
 	// dissipative class bound of ESD practice (below 1e12 ohm/sq), stricter than
 	// DissipativeSurface (1e9 ohm, which only decides the area exemption).
 	SparkSurface float64
+	// CoronaEnergy: the equivalent energy bound of a corona discharge (from a
+	// sharp point or edge, a type D bag). Corona is compared with an atmosphere's
+	// MIE only where it can ignite one, an MIE below this bound (hydrogen-like
+	// gases); above it corona is not counted (reference section 3: corona below
+	// about 0.1-1 mJ ignites only very sensitive gases such as hydrogen).
+	CoronaEnergy float64
 }

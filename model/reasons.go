@@ -80,7 +80,7 @@ const (
 	ReasonBrushLiquidNoSafeLimits
 	// Added with the review fixes (codes only appended).
 	ReasonPropReadingOverBreakdown // A voltage across the layer, B measured breakdown (V)
-	ReasonCoronaIgnites            // A corona equivalent energy bound (J)
+	ReasonCoronaIgnites            // A corona equivalent energy bound (J), B MIE (J)
 
 	numReasons
 )
@@ -228,7 +228,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonPropReadingOverBreakdown:
 		return fmt.Sprintf("The reading shows the layer holding %s, above its measured breakdown of %s: the reading is kept (a measurement beats the other value), so the propagating brush stays counted (possible once the layer holds more than about 4 kV, BG RCI FAQ 1.12); check the breakdown measurement and the reading.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonCoronaIgnites:
-		return fmt.Sprintf("Corona from a sharp point or edge, taken at its equivalent energy bound of %s (screening choice; corona is below about 0.1-1 mJ), can ignite only the most sensitive gases such as hydrogen.", Quantity(a, "J"))
+		return fmt.Sprintf("Corona (from a sharp point or edge, or a type D bag), taken at its equivalent energy bound of %s (a screening choice: corona is below about 0.1-1 mJ), can ignite this atmosphere of MIE %s: only very sensitive gases such as hydrogen are ignited by corona.", Quantity(a, "J"), Quantity(b, "J"))
 	case ReasonBrushLiquidNoSafeLimits:
 		return "A low-conductivity liquid filled into an insulating vessel: the standard gives no safe filling limits for it, so brush discharges from its surface are counted."
 	}

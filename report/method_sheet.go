@@ -175,6 +175,7 @@ func limitLabel(name string) string {
 
 		"EarthingContradictionFactor": "Measured potential above this many times the earthing bound I R: a contradiction",
 		"SparkSurface":                "Surface resistance below which an unearthed surface sparks as a conductor",
+		"CoronaEnergy":                "Corona: equivalent energy bound (counted only against an MIE below it)",
 	}
 	l, ok := labels[field]
 	if !ok {

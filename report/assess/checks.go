@@ -328,7 +328,7 @@ func EffectiveEnergy(env *model.Environment, ev *model.Evaluation, lim *model.Li
 	e, t := 0.0, model.Spark
 	for i := range ev.Discharges {
 		d := &ev.Discharges[i]
-		if d.Type == model.Brush || !d.Possible {
+		if d.Type == model.Brush || !d.Possible || (d.Type == model.Corona && !model.CoronaIgnites(*env, *lim)) {
 			continue
 		}
 		if d.Energy > e {
