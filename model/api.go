@@ -305,6 +305,14 @@ type Evaluation struct {
 	// UncappedPotential is an estimated potential (V) before the cap at
 	// Limits.ConductorMaxPotential (FlagCappedConductor); NaN when not capped.
 	UncappedPotential float64
+
+	// Added with the review fixes (appended).
+	// BrushDensity is the charge density (C/m^2) a brush discharge can drain and
+	// the brush screen is applied to: ChargeDensity, except on a layer on an
+	// earthed backing, where only the air-side charge eps0 x the air-side field
+	// can leave in a brush (the bound charge facing the backing cannot). NaN when
+	// there is no reading.
+	BrushDensity float64
 }
 
 // BreakdownSource says where Evaluation.LayerBreakdown came from.

@@ -22,6 +22,26 @@ func PropagatingBrushEnergy(sigma, area, t, epsr, maxEnergy float64) float64 {
 	return math.Min(w, maxEnergy)
 }
 
+// PropagatingBrushCharge bounds the charge one propagating brush discharge
+// transfers (C): at most the charge on the layer, sigma x area, and at most the
+// charge that releases the discharge's energy w at the layer's voltage v,
+// Q = 2 w / v (W = Q V / 2, derived); an unknown voltage takes vmin, the 4 kV
+// below which a layer's breakdown prevents a propagating brush (TRGS 727 Annex
+// C), the larger charge. When w is the layer's whole stored energy (not capped)
+// the bound equals sigma x area. With the energy bound of 1 J (from memory)
+// this gives at most 500 uC: hundreds of uC, not the millicoulombs the whole
+// layer carries, most of which stays bound (a documented bound of this tool).
+func PropagatingBrushCharge(sigma, area, w, v, vmin float64) float64 {
+	q := sigma * area
+	if !(v > 0) || math.IsInf(v, 0) {
+		v = vmin
+	}
+	if b := 2 * w / v; !(q <= b) {
+		q = b
+	}
+	return q
+}
+
 // Glor's cone discharge formula: validity range.
 const (
 	ConeMinDiameter     = 0.5    // m

@@ -96,6 +96,7 @@ func newEvaluation(k Kind) Evaluation {
 		EarthingBound:      nan,
 		ReadingDensity:     nan,
 		UncappedPotential:  nan,
+		BrushDensity:       nan,
 	}
 	for i := range ev.Discharges {
 		ev.Discharges[i] = Discharge{Type: DischargeType(i), Energy: nan, Charge: nan, Code: ReasonNotApplicable, A: nan, B: nan}
@@ -358,6 +359,27 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	if oneSided {
 		ev.SurfaceField = OneSidedField(sigma)
 	}
+	// The density a brush drains. On a layer on an earthed backing most of the
+	// charge is bound by the backing; only the air-side charge eps0 x E_air can
+	// leave in a brush (Gauss's law, textbook; the hand-worked case HW-03 reasons
+	// the same way). The field read is that air-side field (capped at air
+	// breakdown), on a roller the cylinder's field at its surface. With a surface
+	// potential only, the air-side field is not known: the stricter case, the
+	// most air lets the surface hold on one side (principle 2). The surface field
+	// shown is then that air-side field, not the layer's internal field (shown apart).
+	brushSigma := sigma
+	if backed {
+		switch {
+		case given(in.Field) && roller:
+			brushSigma = DensityCylinder(math.Min(math.Abs(in.Field), lim.AirBreakdown), rad, in.FieldDistance)
+		case given(in.Field):
+			brushSigma = Eps0 * math.Min(math.Abs(in.Field), lim.AirBreakdown)
+		default:
+			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
+		}
+		ev.SurfaceField = OneSidedField(brushSigma)
+	}
+	ev.BrushDensity = brushSigma
 
 	// Charging current: a belt's sigma v w, or the row's (the larger when both).
 	if in.Kind == Belt && positive(in.Speed) && positive(in.Width) {
@@ -397,22 +419,22 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	br := &ev.Discharges[Brush]
 	screen := lim.BrushChargeDensity[groupIndex(env.Group)]
 	switch {
-	case !(sigma > screen):
+	case !(brushSigma > screen):
 		if leaks {
 			setReason(br, ReasonBrushLeaks, ev.SurfaceResistivity, nan)
 		} else {
-			setReason(br, ReasonBrushBelowScreen, sigma, screen)
+			setReason(br, ReasonBrushBelowScreen, brushSigma, screen)
 		}
 	default:
-		br.Possible, br.Energy, br.Charge = true, lim.BrushEnergy, sigma*lim.BrushArea
+		br.Possible, br.Energy, br.Charge = true, lim.BrushEnergy, brushSigma*lim.BrushArea
 		if leaks {
 			// The reading contradicts the humidity model: the model clears nothing
 			// more on this row (its propagating brush, its area exemption).
 			ev.Flags |= FlagHumidityContradiction
-			setReason(br, ReasonBrushReadingOverHumidity, sigma, screen)
+			setReason(br, ReasonBrushReadingOverHumidity, brushSigma, screen)
 			leaks = false
 		} else {
-			setReason(br, ReasonBrushPossible, sigma, screen)
+			setReason(br, ReasonBrushPossible, brushSigma, screen)
 		}
 	}
 
@@ -478,7 +500,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		// Process-driven: the density is not measured, so the upper estimate.
 		pb.Possible, pb.Energy = true, lim.PropagatingMaxEnergy
 		if positive(ev.InsulatingArea) {
-			pb.Charge = lim.PropagatingDensity * ev.InsulatingArea
+			pb.Charge = PropagatingBrushCharge(lim.PropagatingDensity, ev.InsulatingArea, lim.PropagatingMaxEnergy, nan, lim.PropagatingBreakdown)
 		}
 		if byCurrent {
 			setReason(pb, ReasonPropCurrentDensity, ev.ChargingDensity, PropagatingCurrentDensity)
@@ -491,7 +513,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	if process {
 		// The process can charge the layer beyond what was read: the upper estimate.
 		if positive(ev.InsulatingArea) {
-			pb.Charge = sigma * ev.InsulatingArea
+			pb.Charge = PropagatingBrushCharge(sigma, ev.InsulatingArea, w, nan, lim.PropagatingBreakdown)
 		}
 	} else if positive(ev.InsulatingArea) && positive(t) {
 		pe := epsr
@@ -500,7 +522,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 			ev.Assumed |= AssumedLayerPermittivity
 		}
 		w = PropagatingBrushEnergy(sigma, ev.InsulatingArea, t, pe, lim.PropagatingMaxEnergy)
-		pb.Charge = sigma * ev.InsulatingArea
+		pb.Charge = PropagatingBrushCharge(sigma, ev.InsulatingArea, w, sigma*t/(Eps0*pe), lim.PropagatingBreakdown)
 	} else {
 		ev.Assumed |= AssumedPropagatingArea
 	}

@@ -99,4 +99,10 @@ type Limits struct {
 	// gases); above it corona is not counted (reference section 3: corona below
 	// about 0.1-1 mJ ignites only very sensitive gases such as hydrogen).
 	CoronaEnergy float64
+	// CoatingThickness, CoatingThicknessIIC: an insulating layer on earthed
+	// metal no thicker than this (IIA, IIB; IIC) and of measured breakdown at
+	// most PropagatingBreakdown is a coating, not held to the insulating-area
+	// limit (IEC 60079-0).
+	CoatingThickness    float64
+	CoatingThicknessIIC float64
 }

@@ -244,7 +244,7 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		// The area limits are equipment-construction limits (IEC 60079-0): process
 		// material (moving webs, belts) is judged by its charge (IEC TS 60079-32-1),
 		// and only a dissipative surface that is also earthed is exempt (not when its reading contradicts the humidity model).
-		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
+		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && !CoatingExempt(in, env, ev, lim) && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
 		isolatedLiquid := in.Kind == model.Liquid && ev.LiquidBreaches.Has(model.ClauseIsolatedLiquid)
@@ -369,6 +369,24 @@ func EarthingRequired(in *model.Input, env *model.Environment, ev *model.Evaluat
 		return in.BagType == model.BagC
 	}
 	return IsConductorRow(in, ev) && !SmallPartExempt(in, env, lim)
+}
+
+// CoatingExempt reports whether an insulating layer on an earthed backing is a
+// coating that IEC 60079-0 does not hold to the insulating-area limit: no thicker
+// than Limits.CoatingThickness (2 mm, IIA and IIB) or CoatingThicknessIIC (0.2 mm,
+// IIC; from memory), and of breakdown voltage measured on the layer at most
+// Limits.PropagatingBreakdown (4 kV, IEC 60079-0:2017 foreword, confirmed). An
+// unmeasured breakdown never exempts (principle 2), nor one the row's reading
+// contradicts (principle 1). Its charge is still judged (brush, propagating brush).
+func CoatingExempt(in *model.Input, env *model.Environment, ev *model.Evaluation, lim *model.Limits) bool {
+	if !in.EarthedBacking || ev.BreakdownSource != model.BreakdownMeasured || ev.Flags&model.FlagBreakdownContradiction != 0 {
+		return false
+	}
+	limT := lim.CoatingThickness
+	if e, _ := env.WithStrictGroup(); e.Group == model.IIC {
+		limT = lim.CoatingThicknessIIC
+	}
+	return in.Thickness > 0 && in.Thickness <= limT && ev.LayerBreakdown <= lim.PropagatingBreakdown
 }
 
 // SmallPartExempt reports whether a conductor row is exempt from earthing as a

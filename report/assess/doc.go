@@ -100,7 +100,8 @@
 //     applies to fixed equipment surfaces only; process material (a belt, a sheet
 //     with a Speed, or Process "moving web" or "belt") is judged by its charge and
 //     discharges (IEC TS 60079-32-1). The area is shown either way. A surface is
-//     exempt only when dissipative at the RH and earthed.
+//     exempt only when dissipative at the RH and earthed, or as a coating on
+//     earthed metal (CoatingExempt: thin, breakdown measured at most 4 kV).
 //   - A conducting surface (conductive, dissipative, or of dissipative class) that
 //     is not earthed is a conductor row: conductor-earthing applies and its spark
 //     counts (model.Evaluation.IsolatedConductor).

@@ -31,6 +31,15 @@ func dischargeWords(t model.DischargeType) string {
 	return "discharge"
 }
 
+// brushDensity is the density the brush screen was applied to (a backed layer's
+// air side), or the charge density where the model gave none.
+func brushDensity(ev *model.Evaluation) float64 {
+	if !math.IsNaN(ev.BrushDensity) {
+		return ev.BrushDensity
+	}
+	return ev.ChargeDensity
+}
+
 // AssumedResistanceDominates reports whether a spark's energy is set by the
 // assumption that an unmeasured resistance to earth leaks nothing: the audit
 // then says "at least the MIE (assumed resistance dominates)" instead of quoting
@@ -215,7 +224,7 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			msg = fmt.Sprintf("the layer holds %s by its reading, above the %s that any film of its thickness holds (thin-film upper strength about 600 kV/mm x thickness): the reading, its unit or the thickness is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown))
 		}
 	case CheckReadingVsHumidity:
-		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(ev.ChargeDensity), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
+		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(brushDensity(ev)), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
 	case CheckBagQualification:
 		i := BagChargingCurrent(in, ev)
 		switch {

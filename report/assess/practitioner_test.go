@@ -360,19 +360,11 @@ func practitionerCases() []practitionerCase {
 			// backed layer, IEC 60079-0 coating thickness, from memory): non-incendive. The
 			// measured 2.5 kV is below the 3 kV breakdown: no contradiction.
 			//
-			// Accepted stricter: the tool screens the brush on the total density (1.42e-3 C/m^2,
-			// far above the IIA screen) and keeps the area limit, so it says incendive through a
-			// 4 mJ brush. The case itself calls that "too strict, not dangerous. Record it as a
-			// known difference"; it is accepted only with the propagating brush excluded by the
-			// measured breakdown (the point of the case) and the brush as the deciding discharge.
-			verdict:    NonIncendive,
-			alsoAccept: []Verdict{Incendive},
-			accept: func(r ObjectResult) string {
-				if r.Eval.Effective != model.Brush {
-					return fmt.Sprintf("when the brush decides it (got %v)", r.Eval.Effective)
-				}
-				return ""
-			},
+			// The tool now reasons the same way (review item 7): a backed layer's brush is
+			// screened on its air-side density, and a 50 um coating on earthed metal of
+			// measured breakdown at most 4 kV is not held to the area limit (IEC 60079-0,
+			// thickness from memory, 4 kV condition of the 2017 edition): no "stricter" mark.
+			verdict:     NonIncendive,
 			sigma:       hwNearTol(1.4175554688e-3, 0.15),
 			impossible:  []model.DischargeType{model.PropagatingBrush},
 			avoidChecks: []string{"layer-breakdown-contradiction"},
