@@ -313,6 +313,10 @@ type Evaluation struct {
 	// can leave in a brush (the bound charge facing the backing cannot). NaN when
 	// there is no reading.
 	BrushDensity float64
+	// ConeExtrapolated is Glor's formula evaluated beyond its range (J), shown
+	// as "not valid" beside the edge value used (the cone's Energy), when the
+	// silo diameter or particle size lies above the range (FlagConeAboveRange); NaN otherwise.
+	ConeExtrapolated float64
 }
 
 // BreakdownSource says where Evaluation.LayerBreakdown came from.

@@ -64,11 +64,13 @@ func ConeDischargeEnergy(diameter, particleSize float64) (energy float64, inRang
 }
 
 // ConeEnergyAtRange returns the cone discharge energy by Glor's formula, never
-// extrapolated into a clearance: outside the validity range (D 0.5-3 m, d 0.1-3 mm)
-// it is the larger of the formula's value and its value at the nearest edge of the
-// range (D and d clamped into it). Below the range this is the edge value (the
-// formula falls there and must not clear); above it the extrapolated value, which
-// is larger. inRange reports whether both lie in the range.
+// extrapolated: outside the validity range (D 0.5-3 m, d 0.1-3 mm) it is the
+// value at the nearest edge of the range (D and d clamped into it), as the words
+// beside it say (principle 3). Below the range the formula falls and the edge
+// value is an upper bound that must not clear; above it the formula is not valid
+// and the edge value is only a lower bound (the energy rises with D and d): the
+// assessment then keeps a finding so it is never a clearance (ConeAboveRange).
+// inRange reports whether both lie in the range.
 func ConeEnergyAtRange(diameter, particleSize float64) (energy float64, inRange bool) {
 	w, ok := ConeDischargeEnergy(diameter, particleSize)
 	if ok {
@@ -77,5 +79,11 @@ func ConeEnergyAtRange(diameter, particleSize float64) (energy float64, inRange 
 	dc := math.Min(math.Max(diameter, ConeMinDiameter), ConeMaxDiameter)
 	pc := math.Min(math.Max(particleSize, ConeMinParticleSize), ConeMaxParticleSize)
 	edge, _ := ConeDischargeEnergy(dc, pc)
-	return math.Max(w, edge), false
+	return edge, false
+}
+
+// ConeAboveRange reports whether the silo diameter or the particle size lies above
+// Glor's validity range (D > 3 m or d > 3 mm), where the edge value is a lower bound.
+func ConeAboveRange(diameter, particleSize float64) bool {
+	return diameter > ConeMaxDiameter || particleSize > ConeMaxParticleSize
 }

@@ -97,6 +97,7 @@ func newEvaluation(k Kind) Evaluation {
 		ReadingDensity:     nan,
 		UncappedPotential:  nan,
 		BrushDensity:       nan,
+		ConeExtrapolated:   nan,
 	}
 	for i := range ev.Discharges {
 		ev.Discharges[i] = Discharge{Type: DischargeType(i), Energy: nan, Charge: nan, Code: ReasonNotApplicable, A: nan, B: nan}
@@ -995,6 +996,10 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	cone.Energy = w
 	if ok {
 		setReason(cone, ReasonConePossible, in.Diameter, in.ParticleSize)
+	} else if ConeAboveRange(in.Diameter, in.ParticleSize) {
+		ev.Flags |= FlagConeOutsideRange | FlagConeAboveRange
+		ev.ConeExtrapolated, _ = ConeDischargeEnergy(in.Diameter, in.ParticleSize)
+		setReason(cone, ReasonConeAboveRange, in.Diameter, in.ParticleSize)
 	} else {
 		ev.Flags |= FlagConeOutsideRange
 		setReason(cone, ReasonConeOutsideRange, in.Diameter, in.ParticleSize)

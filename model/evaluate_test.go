@@ -423,7 +423,8 @@ func TestEvaluateCone(t *testing.T) {
 		{"volume alone", func(i *Input) { i.Diameter, i.Length = 0.5, 0.5 }, ReasonConePossible},
 		{"field alone", func(i *Input) { i.Field = 300e3 }, ReasonConePossible},
 		{"field and volume", func(i *Input) { i.Diameter, i.Length, i.Field = 0.5, 0.5, 300e3 }, ReasonConeFieldAndVessel},
-		{"range", func(i *Input) { i.Diameter = 5 }, ReasonConeOutsideRange},
+		{"range", func(i *Input) { i.Diameter = 5 }, ReasonConeAboveRange},
+		{"below range", func(i *Input) { i.Diameter = 0.3 }, ReasonConeOutsideRange},
 	}
 	for _, s := range screens {
 		x := in

@@ -64,6 +64,13 @@ const (
 	// CheckReadingAboveBreakdown: a reading above what air lets the surface hold
 	// (model.FlagReadingAboveBreakdown); the density used is capped at the breakdown limit.
 	CheckReadingAboveBreakdown
+	// CheckConeAboveRange: a cone discharge whose silo diameter or particle size lies
+	// above Glor's range: the edge value used is a lower bound, never a clearance
+	// (principle 3; model.FlagConeAboveRange).
+	CheckConeAboveRange
+	// CheckConeExtrapolated: above Glor's range the formula, not valid there, reaches
+	// the MIE: the cone is taken as able to ignite (the stricter case, principle 2).
+	CheckConeExtrapolated
 	// NumChecks is the number of checks.
 	NumChecks
 )
@@ -103,6 +110,8 @@ func checkTable() [NumChecks]checkDef {
 		CheckIsolatedLiquid:        {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod"},
 		CheckReadingVsEarthing:     {"reading-vs-earthing", Marginal, "a screening choice of this tool: a measurement beats the model (a measured potential more than \"earthing contradiction factor\" (10) times the I R its measured earthing allows under the worst-case charging current, 1 uA walking for a person (Jonassen), 100 uA otherwise (JNIOSH-TR), contradicts the earthing path; the reading's hazard is kept)"},
 		CheckReadingAboveBreakdown: {"reading-above-breakdown", Marginal, "air breaks down at about 3 MV/m, so a surface holds at most eps0 x 3 MV/m with its field on one side, twice that as a free sheet (CCPS glossary; AMS Glossary of Meteorology); a reading above it is a bad reading or unit: the charge density used is capped at that limit, a screening choice of this tool (the reading's hazard is kept)"},
+		CheckConeAboveRange:        {"cone-above-range", Marginal, "Glor's cone discharge formula (from memory), valid for silo diameters 0.5-3 m and median particle sizes 0.1-3 mm; outside its range the formula is not valid (BG RCI FAQ 5.10, TRGS 727:2016 6.2.3): the value at the edge of the range is used and, above the range, is a lower bound, so it never clears (a screening choice of this tool)"},
+		CheckConeExtrapolated:      {"cone-extrapolated-reaches-mie", Incendive, "Glor's cone discharge formula (from memory) evaluated beyond its range (D 0.5-3 m, d 0.1-3 mm), where it is not valid, reaches the MIE: as the energy rises with D and d, the discharge is taken as able to ignite (unknown means the stricter case; a screening choice of this tool)"},
 		CheckMeasuredAboveMaximum:  {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept"},
 	}
 }
@@ -301,6 +310,13 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	}
 	if ev.Flags&model.FlagReadingAboveBreakdown != 0 {
 		c.Failed = c.Failed.Add(CheckReadingAboveBreakdown)
+	}
+	// Above Glor's range the cone's edge value is a lower bound: never a clearance.
+	if hasAtm && ev.Flags&model.FlagConeAboveRange != 0 && ev.Discharges[model.Cone].Possible {
+		c.Failed = c.Failed.Add(CheckConeAboveRange)
+		if env.MIE > 0 && ev.ConeExtrapolated >= env.MIE {
+			c.Failed = c.Failed.Add(CheckConeExtrapolated)
+		}
 	}
 
 	worst := -1

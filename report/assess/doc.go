@@ -48,6 +48,10 @@
 //	reading-above-breakdown  reading inverts to more than air holds (eps0 x 3     marginal
 //	                     MV/m one-sided, twice that on a free sheet): the density
 //	                     used is capped there
+//	cone-above-range     silo D > 3 m or particle d > 3 mm: Glor's formula not    marginal
+//	                     valid, the edge value used is a lower bound
+//	cone-extrapolated-reaches-mie  above the range, the formula (not valid there) incendive
+//	                     reaches the MIE: taken as able to ignite
 //
 // Each check's ground (standard, clause or table and edition, or a screening
 // choice of this tool) is in the same table (Check.Basis); every Finding carries it.

@@ -223,6 +223,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		} else {
 			msg = fmt.Sprintf("the layer holds %s by its reading, above the %s that any film of its thickness holds (thin-film upper strength about 600 kV/mm x thickness): the reading, its unit or the thickness is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown))
 		}
+	case CheckConeAboveRange:
+		msg = fmt.Sprintf("the silo diameter (%s) or particle size (%s) lies above the range of Glor's formula (D 0.5-3 m, d 0.1-3 mm): the formula is not valid there; the cone energy %s is the value at the edge of the range, a lower bound", sig(in.Diameter)+" m", sig(in.ParticleSize*1e3)+" mm", mJ(ev.Discharges[model.Cone].Energy))
+	case CheckConeExtrapolated:
+		msg = fmt.Sprintf("beyond its range Glor's formula, not valid there, gives %s, at or above the MIE of %s (the edge value %s is a lower bound): the cone discharge is taken as able to ignite", mJ(ev.ConeExtrapolated), mJ(env.MIE), mJ(ev.Discharges[model.Cone].Energy))
 	case CheckReadingVsHumidity:
 		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(brushDensity(ev)), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
 	case CheckBagQualification:

@@ -478,9 +478,17 @@ func practitionerCases() []practitionerCase {
 			// the energy rises with D, so the edge value 378.7 mJ is only a floor; principle 2 on
 			// top of principle 3): incendive. Clamping to the edge gives marginal, milder than
 			// the reviewer would sign.
+			//
+			// Changed with the plant-engineer review (item 9): the energy shown is now the value
+			// the words beside it name, the edge value at D = 3 m, 5.22 x 3^3.36 x 1.5^1.462 =
+			// 378.7 mJ (the case's own figure), marked a lower bound ("formula not valid beyond
+			// D = 3 m"); the case's verdict is kept by a finding of its own: the formula beyond
+			// its range gives 995.5 mJ >= 500 mJ, so the cone is taken as able to ignite
+			// (cone-extrapolated-reaches-mie, incendive). The edge value alone reaches only
+			// MIE / 10 (energy-vs-margin).
 			verdict:    Incendive,
-			energy:     hwNear(995.4913589e-3),
-			wantChecks: []string{"energy-vs-mie"},
+			energy:     hwNear(378.6546893e-3),
+			wantChecks: []string{"cone-extrapolated-reaches-mie", "cone-above-range", "energy-vs-margin"},
 			possible:   []model.DischargeType{model.Cone},
 			flags:      model.FlagConeOutsideRange,
 		},
