@@ -66,7 +66,7 @@ func (x *objectContext) findings(r *ObjectResult, c *Classification) []Finding {
 			Severity:   k.Severity(),
 			Message:    msg,
 			Mitigation: mit,
-			Basis:      k.Basis(),
+			Basis:      k.BasisFor(c.Discharge),
 		})
 	}
 	return out

@@ -1,6 +1,7 @@
 package assess
 
 import (
+	"math"
 	"strings"
 	"testing"
 
@@ -84,5 +85,42 @@ func TestReviewCoronaInHydrogen(t *testing.T) {
 	r = one(t, &tol, inventory.Object{Kind: "bag", BagType: "D"})
 	if hasCheck(r, CheckEnergyMIE.Name()) || hasCheck(r, CheckEnergyMargin.Name()) || r.Eval.EffectiveEnergy != 0 {
 		t.Errorf("bag D in toluene: verdict %v, findings %v, energy %g", r.Verdict, checks(r), r.Eval.EffectiveEnergy)
+	}
+}
+
+// Review item 14: an energy finding names the ground of its own discharge.
+// Sources as cited in the check table: spark W = C V^2/2 (JNIOSH-TR); cone,
+// Glor's formula (from memory) and its range; propagating brush, TRGS 727 Annex C
+// and the 1 J bound from memory; corona, the 0.1 mJ screening choice.
+func TestReviewEnergyBasisPerDischarge(t *testing.T) {
+	want := map[model.DischargeType][]string{
+		model.Spark:            {"C V^2/2", "JNIOSH-TR"},
+		model.Brush:            {"3-4 mJ", "CLC/TR 50404", "screening choice"},
+		model.PropagatingBrush: {"TRGS 727:2016 Annex C", "from memory"},
+		model.Cone:             {"Glor", "from memory", "0.5-3 m", "0.1-3 mm"},
+		model.Corona:           {"0.1 mJ", "screening choice"},
+	}
+	for d, words := range want {
+		for _, k := range []Check{CheckEnergyMIE, CheckEnergyMargin} {
+			b := k.BasisFor(d)
+			for _, w := range words {
+				if !strings.Contains(b, w) {
+					t.Errorf("%s for %v: basis %q lacks %q", k.Name(), d, b, w)
+				}
+			}
+		}
+	}
+	// In a finding: the cone of HW-10 (silo D 4 m, d 1.5 mm, MIE 500 mJ) reaches MIE / 10.
+	atm := inventory.Atmosphere{ID: "A-D500", Substance: "coarse granulate", Kind: "dust", MIE: known(500e-3), Group: "IIIB", Zone: "20"} // invented for the demo
+	r := one(t, &atm, inventory.Object{Kind: "powder", Material: "granulate", Diameter: known(4.0), ParticleSize: known(1.5e-3), MassFlow: known(10), ChargeToMass: known(1.0e-6), Length: known(12), Resistance: known(5)},
+		inventory.Material{Name: "granulate", Class: "insulating", Permittivity: 2.5, SurfaceResistivity: math.NaN(), VolumeResistivity: 1e13, BreakdownStrength: math.NaN(), Source: "invented for the demo"})
+	found := false
+	for _, f := range r.Findings {
+		if f.Check == CheckEnergyMargin.Name() {
+			found = strings.Contains(f.Basis, "Glor")
+		}
+	}
+	if !found {
+		t.Errorf("cone energy finding without Glor's formula in its basis: %+v", r.Findings)
 	}
 }
