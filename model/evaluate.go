@@ -378,7 +378,10 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		default:
 			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
 		}
-		ev.SurfaceField = OneSidedField(brushSigma)
+		ev.SurfaceField = nan // the air-side field is not known from a potential
+		if given(in.Field) {
+			ev.SurfaceField = OneSidedField(brushSigma)
+		}
 	}
 	ev.BrushDensity = brushSigma
 

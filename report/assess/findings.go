@@ -158,7 +158,7 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			what = "resistance to earth of the receiving container and line"
 		}
 		if ev.IsolatedConductor && (in.Kind == model.Sheet || in.Kind == model.Belt || in.Kind == model.Roller) {
-			what = "the surface conducts (conductive, or dissipative at this humidity) so it is a conductor; its resistance to earth"
+			what = "the surface conducts (conductive, of dissipative class, or below the 1e12 Ω per square dissipative bound at this humidity) so it is a conductor; its resistance to earth"
 			mit = templates.Mitigation("conductor-earthing.surface")
 		}
 		if math.IsNaN(in.Resistance) {
