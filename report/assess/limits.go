@@ -127,6 +127,8 @@ func LimitKeys() []LimitKey {
 		{Name: "small part capacitance", Unit: "pF", Note: "SmallPartCapacitance: a metal part of measured capacitance below it need not be earthed (IIA, IIB, Group III)", dim: dimCapacitance, set: func(l *model.Limits, v float64) { l.SmallPartCapacitance = v }},
 		{Name: "small part capacitance iic", Unit: "pF", Note: "SmallPartCapacitanceIIC: the same for IIC and zone 0", dim: dimCapacitance, set: func(l *model.Limits, v float64) { l.SmallPartCapacitanceIIC = v }},
 		{Name: "earthing contradiction factor", Unit: "", Note: "EarthingContradictionFactor: a measured conductor potential above this many times the earthing bound (worst-case current x resistance) contradicts the earthing", dim: dimNone, set: func(l *model.Limits, v float64) { l.EarthingContradictionFactor = v }},
+		{Name: "spark surface resistance", Unit: "Ω", Note: "SparkSurface: an unearthed surface below it (or of dissipative class) sparks as a conductor", dim: dimResistance, set: func(l *model.Limits, v float64) { l.SparkSurface = v }},
+		{Name: "corona energy", Unit: "mJ", Note: "CoronaEnergy: corona's equivalent energy bound, compared only with an MIE below it", dim: dimEnergy, set: func(l *model.Limits, v float64) { l.CoronaEnergy = v }},
 		{Name: "dust brush mie", Unit: "mJ", Note: "DustBrushMIE: a dust below this MIE is screened for brush discharges", dim: dimEnergy, set: func(l *model.Limits, v float64) { l.DustBrushMIE = v }},
 		{Name: "transferred charge group iii", Unit: "nC", Note: "TransferredCharge[IIIA-IIIC]: against propagating brush discharges", dim: dimCharge, set: func(l *model.Limits, v float64) {
 			l.TransferredCharge[model.IIIA], l.TransferredCharge[model.IIIB], l.TransferredCharge[model.IIIC] = v, v, v
