@@ -313,6 +313,57 @@ func (f *field) slip(name string, q Quantity, p Parsed, limit float64, why strin
 	f.errorf(name, ErrUnitSlip, fix, "%s %s is %s; a likely unit slip", name, strings.TrimSpace(f.text(name)), why)
 }
 
+// readingSlip records a reading above what air or a plant object allows as a
+// WARNING: the row is kept and assessed (principle 1: a measurement beats a
+// default, and every row is assessed or listed). A field above air breakdown
+// is assessed at the breakdown limit with the reading-above-breakdown finding;
+// a potential or layer breakdown above the plausible maximum is used as read,
+// the stricter case. The fix names what to check and, when a smaller unit
+// brings the value within limit, says by how much it would shrink, without
+// offering it as the reading: following a unit suggestion blindly can clear
+// a charged object.
+func (f *field) readingSlip(name string, q Quantity, p Parsed, limit float64, why, kept string) {
+	if !q.Known || math.Abs(q.Value) <= limit {
+		return
+	}
+	m := f.t.Cols[f.t.Index[name]]
+	u, factor := smallerUnitFor(p, m, limit)
+	if u == "" {
+		// Not a reading in any unit a meter shows (e.g. 1e300 kV/m, or a
+		// number too large even in V/m): it cannot be assessed as a reading,
+		// so the row is rejected and listed with why.
+		f.errorf(name, ErrUnitSlip, "enter the reading as shown on the meter, with its unit, or leave the cell blank if it was not measured",
+			"%s %s is %s in every unit a meter shows: not a reading", name, short(strings.TrimSpace(f.text(name)), 40), why)
+		return
+	}
+	fix := fmt.Sprintf("check the meter distance, its range and the unit: if it was %s, the reading is %s times smaller", u, strconv.FormatFloat(factor, 'f', -1, 64))
+	f.warnf(name, ErrUnitSlip, fix, "%s %s is %s: a bad reading or a unit slip; %s", name, strings.TrimSpace(f.text(name)), why, kept)
+}
+
+// smallerUnitFor returns the first smaller unit of the column's dimension that
+// would bring the written number within limit, and how many times smaller the
+// reading would then be; "" when none does.
+func smallerUnitFor(p Parsed, m HeaderMatch, limit float64) (string, float64) {
+	written := p.Unit
+	if written == "" {
+		written = m.Unit
+	}
+	wu, err := ParseUnit(written, m.Column.Dim)
+	if err != nil || wu.Factor <= 0 {
+		return "", 0
+	}
+	for _, c := range smallerUnits(m.Column.Dim) {
+		u, err := ParseUnit(c, m.Column.Dim)
+		if err != nil || u.Factor >= wu.Factor {
+			continue
+		}
+		if v := math.Abs(p.Number * u.Factor); v <= limit && v > 0 {
+			return c, math.Round(wu.Factor / u.Factor)
+		}
+	}
+	return "", 0
+}
+
 // suggestReading proposes the written number in another unit of the column's
 // dimension that brings it within limit: the column's default unit first, then
 // the number divided by 1000 or 1e6 in the unit written.
@@ -1282,13 +1333,19 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	f.nonNegative("Speed", o.Speed)
 	f.slip("Speed", o.Speed, pSpeed, MaxSpeed, "faster than any web, belt or line flow")
 	f.nonNegative("Mass flow", o.MassFlow)
-	f.slip("Field", o.Field, pField, MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
+	// Readings above what air or a plant object allows are warnings, the row
+	// assessed (readingSlip); a size, speed, capacitance or MIE slip stays an
+	// error, since taken as written it could clear the object.
+	f.readingSlip("Field", o.Field, pField, MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)",
+		"the row is assessed with the charge density capped at the breakdown limit (finding reading-above-breakdown)")
 	thinBacked := o.Backing == "earthed" && o.Thickness.Known && o.Thickness.Value < ThinLayer
 	if !thinBacked {
-		f.slip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air")
+		f.readingSlip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air",
+			"the row is assessed with the reading as written (the stricter case; an insulator's density is capped at the breakdown limit)")
 	}
 	f.slip("Capacitance", o.Capacitance, pCapacitance, MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
-	f.slip("Layer breakdown", o.LayerBreakdown, pBreakdown, MaxSurfacePotential, "above what a plant layer holds (films hold 100-600 kV/mm)")
+	f.readingSlip("Layer breakdown", o.LayerBreakdown, pBreakdown, MaxSurfacePotential, "above what a plant layer holds (films hold 100-600 kV/mm)",
+		"the row is assessed with the layer able to give a propagating brush (the stricter case)")
 	if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
 		f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
 	}
