@@ -243,6 +243,11 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 	if k == CheckEnergyMIE || k == CheckEnergyMargin {
 		cls := mitigationClass(in, c.Discharge)
 		mit = templates.Mitigation("energy." + cls)
+		if cls == "powder" && env.Atmosphere.IgnitedByBrush() {
+			// Powder into flammable gas or vapour: its own treatment (IEC TS
+			// 60079-32-1; reference section 12), not the silo text.
+			mit = templates.Mitigation("energy.powder.vapour")
+		}
 		if cls == "conductor" && AssumedResistanceDominates(ev, c.Discharge) {
 			mit = templates.Mitigation("energy.conductor.assumed-resistance")
 		}

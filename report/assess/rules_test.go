@@ -366,3 +366,35 @@ func TestSurfaceSparkCapped(t *testing.T) {
 		}
 	})
 }
+
+// TestPowderIntoVapourMitigation: powder poured into a vessel holding flammable
+// vapour gets the powder-into-vapour mitigation (inerting, closed transfer, no
+// plastic sacks or liners, earthed equipment), which IEC TS 60079-32-1 treats
+// apart from silo filling (reference section 12); a pure dust silo keeps the
+// silo text. Source: review item 13; hand-worked case HW-08.
+func TestPowderIntoVapourMitigation(t *testing.T) {
+	o := inventory.Object{Kind: "powder", Diameter: known(1.5), MassFlow: known(0.5), ParticleSize: known(0.05e-3), Resistance: known(10), ChargingTime: known(50)}
+	r := one(t, &atmToluene, o)
+	var mit string
+	for _, f := range r.Findings {
+		if f.Check == CheckEnergyMIE.Name() {
+			mit = f.Mitigation
+		}
+	}
+	for _, want := range []string{"inert", "closed transfer", "no plastic sacks or liners", "earth"} {
+		if !strings.Contains(mit, want) {
+			t.Errorf("mitigation %q lacks %q", mit, want)
+		}
+	}
+	if strings.Contains(mit, "smaller receiving vessel") || strings.Contains(mit, "cone-discharge") {
+		t.Errorf("mitigation %q is the silo text", mit)
+	}
+	// A dust-only silo keeps the silo text (HW-09's atmosphere and granulate).
+	silo := inventory.Object{Kind: "powder", Material: "granulate", Diameter: known(4.0), ParticleSize: known(1.5e-3), MassFlow: known(10), ChargeToMass: known(1.0e-6), Length: known(12), Resistance: known(5)}
+	rs := one(t, hwAtmD10, silo, hwGranulate)
+	for _, f := range rs.Findings {
+		if strings.HasPrefix(f.Check, "energy-vs-") && strings.Contains(f.Mitigation, "closed transfer") {
+			t.Errorf("dust silo got the powder-into-vapour text: %q", f.Mitigation)
+		}
+	}
+}
