@@ -1207,7 +1207,7 @@ func KindRequirements() []KindRequirement {
 		{KindPart, "as container"},
 		{KindPerson, "Surface potential or Resistance to earth"},
 		{KindPowder, "Mass flow, Diameter (silo or container) and Particle size; Charge-to-mass optional"},
-		{KindLiquid, "Speed (flow velocity), Diameter (line inner diameter) and Conductivity"},
+		{KindLiquid, "Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid)"},
 		{KindBag, "a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
 	}
 }
@@ -1479,10 +1479,15 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		for _, n := range []struct {
 			name string
 			q    Quantity
-		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}, {"Conductivity", o.Conductivity}} {
+		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}} {
 			if !given(n.name, n.q) {
 				need = append(need, n.name)
 			}
+		}
+		if !given("Conductivity", o.Conductivity) {
+			// Unknown means the stricter case (principle 2): the row is assessed.
+			f.warnf("Conductivity", ErrRequired, "measure the liquid's conductivity (or name a substance the built-in list knows) and enter it in pS/m",
+				"%s: no Conductivity; the built-in substance list's typical value is used when the atmosphere names a substance it knows, otherwise the row is assessed as the stricter case of each rule: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid in an insulating or unearthed vessel", who)
 		}
 	}
 	if len(need) == 0 {

@@ -115,7 +115,7 @@ func TestValidationRules(t *testing.T) {
 		{name: "powder needs particle size", mut: func(b utBook) utBook { return b.set(SheetObjects, "PW-1", "Particle size", nil) },
 			cell: "Objects!A8", errIs: ErrRequired, msgHas: "needs Particle size", reject: "Objects!8"},
 		{name: "liquid needs conductivity", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Conductivity", nil) },
-			cell: "Objects!A9", errIs: ErrRequired, msgHas: "needs Conductivity", reject: "Objects!9"},
+			cell: "Objects!W9", sev: Warning, errIs: ErrRequired, msgHas: "stricter case"}, // review item 5: assessed, not rejected
 		{name: "bag without type is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "BG-1", "Bag type", nil) },
 			cell: "Objects!Y10", sev: Warning, errIs: ErrRequired, msgHas: "most restrictive"},
 		{name: "bag needs a station atmosphere", mut: func(b utBook) utBook { return b.set(SheetObjects, "BG-1", "Station", "ST-3") },
