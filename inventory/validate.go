@@ -56,11 +56,14 @@ const (
 
 // rowState collects the problems of one input row.
 type rowState struct {
-	sheet  string
-	row    int
-	id     string
-	probs  []Problem // reported in Survey.Problems
-	shared []Problem // reasons reported once elsewhere (a header problem), listed in Rejected only
+	sheet string
+	row   int
+	id    string
+	// station is the Station an Objects row names, when that reference was
+	// readable and resolved (a rejected row still marks its station).
+	station string
+	probs   []Problem // reported in Survey.Problems
+	shared  []Problem // reasons reported once elsewhere (a header problem), listed in Rejected only
 }
 
 func (r *rowState) rejected() bool {
@@ -490,7 +493,7 @@ func (v *validator) finish() {
 			c.Read++
 			if r.rejected() {
 				c.Rejected++
-				rej := Rejected{Sheet: sh, Row: r.row, ID: r.id}
+				rej := Rejected{Sheet: sh, Row: r.row, ID: r.id, Station: r.station}
 				rej.Problems = append(rej.Problems, r.shared...)
 				for _, p := range r.probs {
 					if p.Severity == Error {
@@ -1274,6 +1277,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		f.errorf("Station", ErrRequired, "enter the ID of the station the object is at", "%s needs a Station", who)
 	} else if id, ok := f.resolve("Station", ref, op.stations, SheetStations, op.stPresent); ok {
 		o.Station = id
+		f.st.station = id
 	}
 	if mref := f.text("Material"); mref != "" {
 		o.Material = v.resolveMaterial(f, mref, op.mats, op.matRefs)

@@ -257,13 +257,7 @@ func objectColumns(withProbability bool) []column[objRow] {
 			if o.Atmosphere == nil {
 				return cell{}
 			}
-			if o.Atmosphere.GroupFromSubstance {
-				return code(o.Atmosphere.Group + " est.")
-			}
-			if o.Atmosphere.Group == "" && hasDefault(o, "group") {
-				return code(o.Environment.Group.String() + " est.")
-			}
-			return code(o.Atmosphere.Group)
+			return code(assess.GroupText(o.Atmosphere)) // the assessed group, "est." when assumed
 		}},
 
 		// Computed quantities.

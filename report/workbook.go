@@ -341,7 +341,7 @@ func stationColumns(site inventory.Site, withProbability bool) []column[stationR
 			if s.Atmosphere == nil {
 				return cell{}
 			}
-			return code(s.Atmosphere.Group)
+			return code(assess.GroupText(s.Atmosphere)) // as on Objects: the assessed group, "est." when assumed
 		}},
 		{UnitPercentRH.Header("RH used"), 9, func(s stationRow) cell {
 			if s.Station.RelativeHumidity.Known {

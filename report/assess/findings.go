@@ -175,6 +175,14 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		}
 		if !math.IsNaN(ev.Potential) && !math.IsNaN(ev.Capacitance) && src == "stored energy" {
 			msg += fmt.Sprintf(" (%s at %s)", pF(ev.Capacitance), kV(ev.Potential))
+			if ev.Flags&model.FlagAssumedResistance != 0 {
+				// Review item 11: the size rests on no leakage being assumed.
+				msg += "; this rests on an assumed resistance to earth (not measured, so no leakage assumed)"
+				if ev.Flags&model.FlagCappedConductor != 0 {
+					msg += fmt.Sprintf(" and the %s cap on an estimated potential", kV(lim.ConductorMaxPotential))
+				}
+				msg += ": measure the resistance to earth and the potential in operation"
+			}
 		}
 	case CheckFillingVelocity, CheckVelocityCeiling, CheckSlowStart, CheckLowConductivity,
 		CheckSplashFilling, CheckSecondPhase, CheckFilterResidence, CheckIsolatedLiquid:
