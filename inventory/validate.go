@@ -608,8 +608,10 @@ type idRegistry map[string]int
 func (r idRegistry) check(f *field, col, id string) bool {
 	k := strings.ToLower(id)
 	if first, dup := r[k]; dup {
-		f.errorf(col, ErrDuplicateID, "give each row its own "+col,
-			"%s %q is already used in row %d; this row is rejected", col, short(id, 60), first)
+		// The first row keeps the ID (the order of the sheet is the only
+		// evidence); this one is rejected and listed, and its station marked.
+		f.errorf(col, ErrDuplicateID, fmt.Sprintf("give each row its own %s; if this row is the one the %s belongs to, rename row %d instead", col, col, first),
+			"%s %q is already used in row %d, which keeps it; this row is rejected and not assessed", col, short(id, 60), first)
 		return false
 	}
 	r[k] = f.rr.Row

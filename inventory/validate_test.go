@@ -563,3 +563,38 @@ func TestLayerBreakdownOnlyOnLayers(t *testing.T) {
 		}
 	}
 }
+
+// TestDuplicateIDKeepsFirst: of two Objects rows with the same ID the first
+// keeps it and the later one is rejected, listed with the row it clashes with
+// and the station it names, so that its station is marked incomplete (review
+// item 6).
+func TestDuplicateIDKeepsFirst(t *testing.T) {
+	b := utValidBook().addRow(SheetObjects, map[string]any{"ID": "OP-1", "Station": "ST-1", "Kind": "person", "Resistance to earth": 1e7})
+	s := utReadBook(t, b)
+	var rej *Rejected
+	for i := range s.Rejected {
+		if s.Rejected[i].ID == "OP-1" {
+			rej = &s.Rejected[i]
+		}
+	}
+	if rej == nil {
+		t.Fatalf("the later OP-1 is not rejected: %+v", s.Rejected)
+	}
+	if rej.Row != 11 || rej.Station != "ST-1" {
+		t.Errorf("rejected %+v, want row 11 at station ST-1", *rej)
+	}
+	kept := false
+	for _, o := range s.Objects {
+		kept = kept || (o.ID == "OP-1" && o.Row == 7)
+	}
+	if !kept {
+		t.Error("the first OP-1 (row 7) is not kept")
+	}
+	found := false
+	for _, p := range rej.Problems {
+		found = found || strings.Contains(p.Message, "row 7, which keeps it")
+	}
+	if !found {
+		t.Errorf("the rejection does not name the row kept: %+v", rej.Problems)
+	}
+}
