@@ -190,7 +190,9 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 	case CheckBagType:
 		t := AssessedBagType(in.BagType)
 		where := env.Atmosphere.String() + " atmosphere"
-		if env.Group != model.GroupNone {
+		if g := GroupText(r.Atmosphere); g != "" {
+			where += " " + g // as the Objects and Stations sheets show it (IIIB / gas IIC est.)
+		} else if env.Group != model.GroupNone {
 			where += " " + env.Group.String()
 		}
 		where += " in " + zoneWords(env.Zone)

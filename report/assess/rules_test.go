@@ -420,6 +420,14 @@ func TestGroupText(t *testing.T) {
 			t.Errorf("GroupText(%+v) = %q, want %q", c.atm, got, c.want)
 		}
 	}
+	// The bag-type finding names the group as the sheets do (invented for the demo).
+	hyb := inventory.Atmosphere{ID: "A-HYB", Kind: "hybrid", MIE: known(2), Group: "IIIB", Zone: "21"}
+	r := one(t, &hyb, inventory.Object{Kind: "bag", BagType: "B"})
+	for _, f := range r.Findings {
+		if f.Check == CheckBagType.Name() && !strings.Contains(f.Message, "IIIB / gas IIC est.") {
+			t.Errorf("bag-type finding %q does not show the assessed group", f.Message)
+		}
+	}
 }
 
 // TestRejectedRowsMarkStation: a rejected Objects row whose Station was readable
