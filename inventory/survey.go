@@ -251,9 +251,13 @@ func (p Problem) Unwrap() error { return p.Err }
 
 // Rejected is one input row that was not accepted, with every problem that rejected it.
 type Rejected struct {
-	Sheet    string
-	Row      int
-	ID       string
+	Sheet string
+	Row   int
+	ID    string
+	// Station is the station an Objects row names, when its Station cell was
+	// readable and names an accepted station ("" otherwise): the station's
+	// result is marked incomplete.
+	Station  string
 	Problems []Problem
 }
 

@@ -56,11 +56,14 @@ const (
 
 // rowState collects the problems of one input row.
 type rowState struct {
-	sheet  string
-	row    int
-	id     string
-	probs  []Problem // reported in Survey.Problems
-	shared []Problem // reasons reported once elsewhere (a header problem), listed in Rejected only
+	sheet string
+	row   int
+	id    string
+	// station is the Station an Objects row names, when that reference was
+	// readable and resolved (a rejected row still marks its station).
+	station string
+	probs   []Problem // reported in Survey.Problems
+	shared  []Problem // reasons reported once elsewhere (a header problem), listed in Rejected only
 }
 
 func (r *rowState) rejected() bool {
@@ -313,6 +316,57 @@ func (f *field) slip(name string, q Quantity, p Parsed, limit float64, why strin
 	f.errorf(name, ErrUnitSlip, fix, "%s %s is %s; a likely unit slip", name, strings.TrimSpace(f.text(name)), why)
 }
 
+// readingSlip records a reading above what air or a plant object allows as a
+// WARNING: the row is kept and assessed (principle 1: a measurement beats a
+// default, and every row is assessed or listed). A field above air breakdown
+// is assessed at the breakdown limit with the reading-above-breakdown finding;
+// a potential or layer breakdown above the plausible maximum is used as read,
+// the stricter case. The fix names what to check and, when a smaller unit
+// brings the value within limit, says by how much it would shrink, without
+// offering it as the reading: following a unit suggestion blindly can clear
+// a charged object.
+func (f *field) readingSlip(name string, q Quantity, p Parsed, limit float64, why, kept string) {
+	if !q.Known || math.Abs(q.Value) <= limit {
+		return
+	}
+	m := f.t.Cols[f.t.Index[name]]
+	u, factor := smallerUnitFor(p, m, limit)
+	if u == "" {
+		// Not a reading in any unit a meter shows (e.g. 1e300 kV/m, or a
+		// number too large even in V/m): it cannot be assessed as a reading,
+		// so the row is rejected and listed with why.
+		f.errorf(name, ErrUnitSlip, "enter the reading as shown on the meter, with its unit, or leave the cell blank if it was not measured",
+			"%s %s is %s in every unit a meter shows: not a reading", name, short(strings.TrimSpace(f.text(name)), 40), why)
+		return
+	}
+	fix := fmt.Sprintf("check the meter distance, its range and the unit: if it was %s, the reading is %s times smaller", u, strconv.FormatFloat(factor, 'f', -1, 64))
+	f.warnf(name, ErrUnitSlip, fix, "%s %s is %s: a bad reading or a unit slip; %s", name, strings.TrimSpace(f.text(name)), why, kept)
+}
+
+// smallerUnitFor returns the first smaller unit of the column's dimension that
+// would bring the written number within limit, and how many times smaller the
+// reading would then be; "" when none does.
+func smallerUnitFor(p Parsed, m HeaderMatch, limit float64) (string, float64) {
+	written := p.Unit
+	if written == "" {
+		written = m.Unit
+	}
+	wu, err := ParseUnit(written, m.Column.Dim)
+	if err != nil || wu.Factor <= 0 {
+		return "", 0
+	}
+	for _, c := range smallerUnits(m.Column.Dim) {
+		u, err := ParseUnit(c, m.Column.Dim)
+		if err != nil || u.Factor >= wu.Factor {
+			continue
+		}
+		if v := math.Abs(p.Number * u.Factor); v <= limit && v > 0 {
+			return c, math.Round(wu.Factor / u.Factor)
+		}
+	}
+	return "", 0
+}
+
 // suggestReading proposes the written number in another unit of the column's
 // dimension that brings it within limit: the column's default unit first, then
 // the number divided by 1000 or 1e6 in the unit written.
@@ -439,7 +493,7 @@ func (v *validator) finish() {
 			c.Read++
 			if r.rejected() {
 				c.Rejected++
-				rej := Rejected{Sheet: sh, Row: r.row, ID: r.id}
+				rej := Rejected{Sheet: sh, Row: r.row, ID: r.id, Station: r.station}
 				rej.Problems = append(rej.Problems, r.shared...)
 				for _, p := range r.probs {
 					if p.Severity == Error {
@@ -554,8 +608,10 @@ type idRegistry map[string]int
 func (r idRegistry) check(f *field, col, id string) bool {
 	k := strings.ToLower(id)
 	if first, dup := r[k]; dup {
-		f.errorf(col, ErrDuplicateID, "give each row its own "+col,
-			"%s %q is already used in row %d; this row is rejected", col, short(id, 60), first)
+		// The first row keeps the ID (the order of the sheet is the only
+		// evidence); this one is rejected and listed, and its station marked.
+		f.errorf(col, ErrDuplicateID, fmt.Sprintf("give each row its own %s; if this row is the one the %s belongs to, rename row %d instead", col, col, first),
+			"%s %q is already used in row %d, which keeps it; this row is rejected and not assessed", col, short(id, 60), first)
 		return false
 	}
 	r[k] = f.rr.Row
@@ -1156,7 +1212,7 @@ func KindRequirements() []KindRequirement {
 		{KindPart, "as container"},
 		{KindPerson, "Surface potential or Resistance to earth"},
 		{KindPowder, "Mass flow, Diameter (silo or container) and Particle size; Charge-to-mass optional"},
-		{KindLiquid, "Speed (flow velocity), Diameter (line inner diameter) and Conductivity"},
+		{KindLiquid, "Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid)"},
 		{KindBag, "a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
 	}
 }
@@ -1223,6 +1279,7 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 		f.errorf("Station", ErrRequired, "enter the ID of the station the object is at", "%s needs a Station", who)
 	} else if id, ok := f.resolve("Station", ref, op.stations, SheetStations, op.stPresent); ok {
 		o.Station = id
+		f.st.station = id
 	}
 	if mref := f.text("Material"); mref != "" {
 		o.Material = v.resolveMaterial(f, mref, op.mats, op.matRefs)
@@ -1282,13 +1339,19 @@ func (op *objectPass) row(t *table, rr rawRow) error {
 	f.nonNegative("Speed", o.Speed)
 	f.slip("Speed", o.Speed, pSpeed, MaxSpeed, "faster than any web, belt or line flow")
 	f.nonNegative("Mass flow", o.MassFlow)
-	f.slip("Field", o.Field, pField, MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)")
+	// Readings above what air or a plant object allows are warnings, the row
+	// assessed (readingSlip); a size, speed, capacitance or MIE slip stays an
+	// error, since taken as written it could clear the object.
+	f.readingSlip("Field", o.Field, pField, MaxAirField, "more than air can hold (it breaks down at about 3 MV/m)",
+		"the row is assessed with the charge density capped at the breakdown limit (finding reading-above-breakdown)")
 	thinBacked := o.Backing == "earthed" && o.Thickness.Known && o.Thickness.Value < ThinLayer
 	if !thinBacked {
-		f.slip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air")
+		f.readingSlip("Surface potential", o.SurfacePotential, pSurface, MaxSurfacePotential, "beyond what a plant object holds in air",
+			"the row is assessed with the reading as written (the stricter case; an insulator's density is capped at the breakdown limit)")
 	}
 	f.slip("Capacitance", o.Capacitance, pCapacitance, MaxCapacitance, "above 1 µF (a person is about 200 pF, a road tanker about 1 nF)")
-	f.slip("Layer breakdown", o.LayerBreakdown, pBreakdown, MaxSurfacePotential, "above what a plant layer holds (films hold 100-600 kV/mm)")
+	f.readingSlip("Layer breakdown", o.LayerBreakdown, pBreakdown, MaxSurfacePotential, "above what a plant layer holds (films hold 100-600 kV/mm)",
+		"the row is assessed with the layer able to give a propagating brush (the stricter case)")
 	if o.ChargingCurrent.Known && math.Abs(o.ChargingCurrent.Value) > MaxChargingCurrent {
 		f.warnf("Charging current", ErrUnitSlip, "check the unit: the column is in µA", "charging current %s is above 1 mA; industrial charging currents rarely exceed 100 µA", f.text("Charging current"))
 	}
@@ -1422,10 +1485,15 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		for _, n := range []struct {
 			name string
 			q    Quantity
-		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}, {"Conductivity", o.Conductivity}} {
+		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}} {
 			if !given(n.name, n.q) {
 				need = append(need, n.name)
 			}
+		}
+		if !given("Conductivity", o.Conductivity) {
+			// Unknown means the stricter case (principle 2): the row is assessed.
+			f.warnf("Conductivity", ErrRequired, "measure the liquid's conductivity (or name a substance the built-in list knows) and enter it in pS/m",
+				"%s: no Conductivity; the built-in substance list's typical value is used when the atmosphere names a substance it knows, otherwise the row is assessed as the stricter case of each rule: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid in an insulating or unearthed vessel", who)
 		}
 	}
 	if len(need) == 0 {

@@ -115,7 +115,7 @@ func TestValidationRules(t *testing.T) {
 		{name: "powder needs particle size", mut: func(b utBook) utBook { return b.set(SheetObjects, "PW-1", "Particle size", nil) },
 			cell: "Objects!A8", errIs: ErrRequired, msgHas: "needs Particle size", reject: "Objects!8"},
 		{name: "liquid needs conductivity", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Conductivity", nil) },
-			cell: "Objects!A9", errIs: ErrRequired, msgHas: "needs Conductivity", reject: "Objects!9"},
+			cell: "Objects!W9", sev: Warning, errIs: ErrRequired, msgHas: "stricter case"}, // review item 5: assessed, not rejected
 		{name: "bag without type is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "BG-1", "Bag type", nil) },
 			cell: "Objects!Y10", sev: Warning, errIs: ErrRequired, msgHas: "most restrictive"},
 		{name: "bag needs a station atmosphere", mut: func(b utBook) utBook { return b.set(SheetObjects, "BG-1", "Station", "ST-3") },
@@ -141,11 +141,17 @@ func TestValidationRules(t *testing.T) {
 		{name: "capacitance above 1 µF", mut: func(b utBook) utBook { return b.set(SheetObjects, "OP-1", "Capacitance", "200 F") },
 			cell: "Objects!V7", errIs: ErrUnitSlip, fixHas: "200 pF", reject: "Objects!7"},
 		{name: "field above air breakdown", mut: func(b utBook) utBook { return b.set(SheetObjects, "W-1", "Field", "12 kV/mm") },
-			cell: "Objects!L2", errIs: ErrUnitSlip, msgHas: "more than air can hold", fixHas: "did you mean 12 kV/m?", reject: "Objects!2"},
+			cell: "Objects!L2", sev: Warning, errIs: ErrUnitSlip, msgHas: "capped at the breakdown limit", fixHas: "if it was kV/m, the reading is 1000 times smaller"},
+		// A reading is never dropped: 3.5 MV/m (just above the 3 MV/m of air,
+		// CCPS glossary) keeps the row as a warning naming the checks.
+		{name: "field just above air breakdown", mut: func(b utBook) utBook { return b.set(SheetObjects, "W-1", "Field", "3500 kV/m") },
+			cell: "Objects!L2", sev: Warning, errIs: ErrUnitSlip, fixHas: "check the meter distance, its range and the unit: if it was V/m, the reading is 1000 times smaller"},
+		{name: "layer breakdown above plausible", mut: func(b utBook) utBook { return b.set(SheetObjects, "W-1", "Layer breakdown", "300 kV") },
+			cell: "Objects!AH2", sev: Warning, errIs: ErrUnitSlip, msgHas: "propagating brush"},
 		{name: "bare field number in V/m", mut: func(b utBook) utBook { return b.set(SheetObjects, "W-1", "Field", 12000) },
-			cell: "Objects!L2", errIs: ErrUnitSlip, fixHas: "12000 V/m", reject: "Objects!2"},
+			cell: "Objects!L2", sev: Warning, errIs: ErrUnitSlip, fixHas: "if it was V/m, the reading is 1000 times smaller"},
 		{name: "surface potential in V typed in kV column", mut: func(b utBook) utBook { return b.set(SheetObjects, "B-1", "Surface potential", 8000) },
-			cell: "Objects!N3", errIs: ErrUnitSlip, fixHas: "8000 V", reject: "Objects!3"},
+			cell: "Objects!N3", sev: Warning, errIs: ErrUnitSlip, fixHas: "if it was V, the reading is 1000 times smaller"},
 		{name: "diameter in mm typed in m column", mut: func(b utBook) utBook { return b.set(SheetObjects, "R-1", "Diameter", 200) },
 			cell: "Objects!H4", errIs: ErrUnitSlip, fixHas: "200 mm", reject: "Objects!4"},
 		{name: "speed in m/min", mut: func(b utBook) utBook { return b.set(SheetObjects, "B-1", "Speed", 120) },
@@ -555,5 +561,40 @@ func TestLayerBreakdownOnlyOnLayers(t *testing.T) {
 		if warned == layer {
 			t.Errorf("%s (%s): warned %v", o.ID, o.Kind, warned)
 		}
+	}
+}
+
+// TestDuplicateIDKeepsFirst: of two Objects rows with the same ID the first
+// keeps it and the later one is rejected, listed with the row it clashes with
+// and the station it names, so that its station is marked incomplete (review
+// item 6).
+func TestDuplicateIDKeepsFirst(t *testing.T) {
+	b := utValidBook().addRow(SheetObjects, map[string]any{"ID": "OP-1", "Station": "ST-1", "Kind": "person", "Resistance to earth": 1e7})
+	s := utReadBook(t, b)
+	var rej *Rejected
+	for i := range s.Rejected {
+		if s.Rejected[i].ID == "OP-1" {
+			rej = &s.Rejected[i]
+		}
+	}
+	if rej == nil {
+		t.Fatalf("the later OP-1 is not rejected: %+v", s.Rejected)
+	}
+	if rej.Row != 11 || rej.Station != "ST-1" {
+		t.Errorf("rejected %+v, want row 11 at station ST-1", *rej)
+	}
+	kept := false
+	for _, o := range s.Objects {
+		kept = kept || (o.ID == "OP-1" && o.Row == 7)
+	}
+	if !kept {
+		t.Error("the first OP-1 (row 7) is not kept")
+	}
+	found := false
+	for _, p := range rej.Problems {
+		found = found || strings.Contains(p.Message, "row 7, which keeps it")
+	}
+	if !found {
+		t.Errorf("the rejection does not name the row kept: %+v", rej.Problems)
 	}
 }

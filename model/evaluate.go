@@ -1056,7 +1056,10 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.Flags |= FlagSecondPhaseLow
 	}
 	low := ev.RuleClass == ConductivityLow || ev.RuleClass == ConductivityUnknown
-	conductive := ev.ConductivityClass == ConductivityMedium || ev.ConductivityClass == ConductivityHigh
+	// Unknown conductivity is the stricter case of each (principle 2): low for
+	// the filling clauses and the brush, conductive for the isolated liquid.
+	conductive := ev.ConductivityClass == ConductivityMedium || ev.ConductivityClass == ConductivityHigh ||
+		ev.ConductivityClass == ConductivityUnknown
 
 	epsr := in.Permittivity
 	if !positive(epsr) {

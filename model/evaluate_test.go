@@ -493,9 +493,10 @@ func TestEvaluateLiquidBranches(t *testing.T) {
 	in.Speed, in.Diameter, in.Filling = 1, 0.05, FillTop
 	ev := Evaluate(in, env, lim)
 	// Unknown conductivity, vessel, resistance: top filling breaks the splash clause, the
-	// brush is counted, and the vessel is judged as an unearthed conductor.
+	// brush is counted, and the liquid in the vessel of unknown material is judged as an
+	// isolated conductor (unknown conductivity: the stricter case of each rule, principle 2).
 	if ev.Assumed&AssumedLowConductivity == 0 || ev.Flags&FlagSplashFilling == 0 || ev.Discharges[Brush].Code != ReasonBrushLiquidBreach ||
-		!ev.LiquidBreaches.Has(ClauseSplash) || ev.Discharges[Spark].Code != ReasonSparkPossible || ev.Assumed&AssumedVesselCapacitance == 0 {
+		!ev.LiquidBreaches.Has(ClauseSplash) || !ev.LiquidBreaches.Has(ClauseIsolatedLiquid) || ev.Discharges[Spark].Code != ReasonSparkLiquidIsolated || ev.Assumed&AssumedVesselCapacitance == 0 {
 		t.Errorf("unknown conductivity: assumed %b flags %b brush %s", ev.Assumed, ev.Flags, ev.Discharges[Brush].Reason())
 	}
 	// Source: reference section 8 (typical values, from memory): acetone 6e6 pS/m, epsr 21: relaxes.
@@ -543,5 +544,31 @@ func BenchmarkEvaluate(b *testing.B) {
 				_ = Evaluate(in, env, lim)
 			}
 		})
+	}
+}
+
+// TestUnknownConductivityStricterOfBoth: a liquid of unknown conductivity in an
+// insulating vessel is judged both ways (principle 2; review item 5): low for the
+// filling clauses (no safe limits in an insulating vessel: brush) and conductive
+// for the spark, whose energy then equals that of a conductive liquid (the spark
+// of an isolated liquid depends on the current, capacitance and leakage, not on
+// the conductivity; derived from the conductor recipe).
+func TestUnknownConductivityStricterOfBoth(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Liquid)
+	in.Speed, in.Diameter, in.Filling = 1, 0.05, FillDipPipe
+	in.VesselMaterial = VesselInsulating
+	ev := Evaluate(in, env, lim)
+	if !ev.Discharges[Brush].Possible || !ev.LiquidBreaches.Has(ClauseInsulatingVessel) {
+		t.Errorf("unknown conductivity: no low-conductivity brush in an insulating vessel (%s)", ev.Discharges[Brush].Reason())
+	}
+	if !ev.Discharges[Spark].Possible || !ev.LiquidBreaches.Has(ClauseIsolatedLiquid) || ev.Discharges[Spark].Code != ReasonSparkLiquidIsolated {
+		t.Fatalf("unknown conductivity: no isolated-liquid spark (%s)", ev.Discharges[Spark].Reason())
+	}
+	in.Conductivity = 1e6 * 1e-12 // a conductive liquid, 1e6 pS/m (high class)
+	cond := Evaluate(in, env, lim)
+	if w, want := ev.Discharges[Spark].Energy, cond.Discharges[Spark].Energy; !(math.Abs(w-want) <= 1e-9*math.Abs(want)) {
+		t.Errorf("unknown conductivity spark %g J, conductive liquid %g J", w, want)
 	}
 }

@@ -107,6 +107,14 @@ type jsonStation struct {
 	Objects                 []string          `json:"objects"`
 	Counts                  jsonVerdictCounts `json:"counts"`
 	ProbabilityAnyIncendive *float64          `json:"probability_any_incendive,omitempty"`
+	// RejectedRows counts the Objects rows naming the station that were
+	// rejected: the station's verdict and rank rest on the others only.
+	RejectedRows int `json:"rejected_rows"`
+	// WorstRatioAssumedResistance: worst_ratio is an artefact of an assumed
+	// resistance to earth (read it as at least 1); the rank rests on it.
+	WorstRatioAssumedResistance bool `json:"worst_ratio_assumed_resistance"`
+	// GroupAssessed is the group the station was assessed with, "est." when assumed.
+	GroupAssessed string `json:"group_assessed,omitempty"`
 }
 
 type jsonDischarge struct {
@@ -185,6 +193,9 @@ type jsonObject struct {
 	// EnergyNote qualifies energy_J where the number is not to be read as it
 	// stands: "at least the MIE (assumed resistance dominates)".
 	EnergyNote string `json:"energy_note,omitempty"`
+	// RatioAssumedResistance: ratio is an artefact of an assumed resistance to
+	// earth (read it as at least 1, with energy_note).
+	RatioAssumedResistance bool `json:"ratio_assumed_resistance,omitempty"`
 }
 
 type jsonProblem struct {
@@ -282,6 +293,8 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 			Rank: st.Rank, Verdict: st.Verdict.String(), WorstRatio: finitePtr(st.WorstRatio),
 			Objects: append([]string{}, st.Objects...), Counts: verdictCounts(st.Counts),
 			ProbabilityAnyIncendive: finitePtr(st.ProbabilityAnyIncendive),
+			RejectedRows:            st.RejectedRows, WorstRatioAssumedResistance: st.WorstRatioAssumed,
+			GroupAssessed: assess.GroupText(st.Atmosphere),
 		}
 		if at := st.Atmosphere; at != nil {
 			js.Atmosphere = strPtr(at.ID)
@@ -358,6 +371,7 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		}
 		if assess.AssumedResistanceDominates(e, e.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
 			jo.EnergyNote = EnergyAtLeastMIE
+			jo.RatioAssumedResistance = true
 		}
 	}
 	for i, d := range e.Discharges {

@@ -173,7 +173,12 @@ func objectColumns(withProbability bool) []column[objRow] {
 		{"Kind", 10, func(o objRow) cell { return text(o.Object.Kind) }},
 		{"Description", 26, func(o objRow) cell { return wrapText(o.Object.Description) }},
 		{"Verdict", 14, func(o objRow) cell { return verdictCell(o.Verdict) }},
-		{UnitRatio.Header("Ratio E/MIE"), 10, func(o objRow) cell { return ratioCell(o.Ratio) }},
+		{UnitRatio.Header("Ratio E/MIE"), 10, func(o objRow) cell {
+			if o.RatioAssumed() {
+				return text(assess.RatioAssumedText) // beside "at least the MIE": no figure to read
+			}
+			return ratioCell(o.Ratio)
+		}},
 		{UnitMJ.Header("Effective energy"), 11, func(o objRow) cell {
 			if o.Eval.NotAssessed != 0 {
 				return cell{numFmt: UnitMJ.NumFmt()}
@@ -257,13 +262,7 @@ func objectColumns(withProbability bool) []column[objRow] {
 			if o.Atmosphere == nil {
 				return cell{}
 			}
-			if o.Atmosphere.GroupFromSubstance {
-				return code(o.Atmosphere.Group + " est.")
-			}
-			if o.Atmosphere.Group == "" && hasDefault(o, "group") {
-				return code(o.Environment.Group.String() + " est.")
-			}
-			return code(o.Atmosphere.Group)
+			return code(assess.GroupText(o.Atmosphere)) // the assessed group, "est." when assumed
 		}},
 
 		// Computed quantities.

@@ -146,9 +146,13 @@ func (wb *workbook) summary() error {
 	r++
 	for i := range a.Stations {
 		st := &a.Stations[i]
+		ratio := ratioCell(finitePtr(st.WorstRatio))
+		if st.WorstRatioAssumed {
+			ratio = text(assess.RatioAssumedText) // an artefact of an assumed resistance
+		}
 		if err := sink.row(r, []cell{
 			boldText(st.Station.ID), integer(st.Rank), wrapText(st.Station.Name), verdictCell(st.Verdict),
-			ratioCell(finitePtr(st.WorstRatio)), integer(len(st.Objects)),
+			ratio, integer(len(st.Objects)),
 			integer(st.Counts[assess.Incendive]), integer(st.Counts[assess.Marginal]),
 			integer(st.Counts[assess.NonIncendive]), integer(st.Counts[assess.NotAssessed]),
 		}, rowHeight(summaryWidths(), []cell{{}, {}, wrapText(st.Station.Name)})); err != nil {

@@ -24,6 +24,13 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 	if sampled {
 		header += "\tP(any incendive)"
 	}
+	noted := false // a Note column only when a station has one (incomplete, or ranked on an assumed resistance)
+	for i := range a.Stations {
+		noted = noted || len(a.Stations[i].Notes()) > 0
+	}
+	if noted {
+		header += "\tNote"
+	}
 	fmt.Fprintln(tw, header)
 	for i := range a.Stations {
 		s := &a.Stations[i]
@@ -31,7 +38,11 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 		if s.Station.Name != "" {
 			name += " " + s.Station.Name
 		}
-		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, FormatRatio(finitePtr(s.WorstRatio)),
+		ratio := FormatRatio(finitePtr(s.WorstRatio))
+		if s.WorstRatioAssumed {
+			ratio = assess.RatioAssumedText
+		}
+		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, ratio,
 			len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed])
 		if sampled {
 			p := "–"
@@ -39,6 +50,9 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 				p = fmt.Sprintf("%.3f", *s.ProbabilityAnyIncendive)
 			}
 			fmt.Fprint(tw, "\t"+p)
+		}
+		if noted {
+			fmt.Fprint(tw, "\t"+strings.Join(s.Notes(), "; "))
 		}
 		fmt.Fprintln(tw)
 	}

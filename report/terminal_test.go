@@ -2,10 +2,12 @@ package report
 
 import (
 	"bytes"
+	"encoding/json"
 	"strings"
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -51,5 +53,41 @@ func TestWriteSummaryBlankSiteHumidity(t *testing.T) {
 	}
 	if c := siteHumidityCell(s.Site); c.v == nil || !c.est {
 		t.Errorf("Summary RH cell %+v, want the dry-day value marked est.", c)
+	}
+}
+
+// TestStationNotes: a station with rejected object rows is marked incomplete,
+// and one ranked on an assumed resistance shows ">= 1 (assumed R)", on the
+// terminal and in the JSON (keys added, numbers kept) (review items 6 and 11).
+func TestStationNotes(t *testing.T) {
+	a := testAudit()
+	a.Stations[0].RejectedRows = 2
+	a.Stations[0].WorstRatioAssumed = true
+	var b bytes.Buffer
+	if err := WriteSummary(&b, a); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"Note", "incomplete: 2 object rows rejected, see Rejected", assess.RatioAssumedText, "rank rests on an assumed resistance"} {
+		if !strings.Contains(b.String(), want) {
+			t.Errorf("terminal lacks %q:\n%s", want, b.String())
+		}
+	}
+	b.Reset()
+	if err := WriteJSON(&b, a, testInfo()); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct {
+		Stations []struct {
+			RejectedRows int      `json:"rejected_rows"`
+			Assumed      bool     `json:"worst_ratio_assumed_resistance"`
+			WorstRatio   *float64 `json:"worst_ratio"`
+		} `json:"stations"`
+	}
+	if err := json.Unmarshal(b.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	st := doc.Stations[0]
+	if st.RejectedRows != 2 || !st.Assumed || (a.Stations[0].WorstRatio != nil && st.WorstRatio == nil) {
+		t.Errorf("JSON station %+v", st)
 	}
 }

@@ -20,7 +20,11 @@ func TestMethodUncertaintyAndJSONOptions(t *testing.T) {
 		// The default table's documented choices (report/assess DefaultUncertainties).
 		"Field reading|±10 %|normal (relative)|Uncertainty field [%]",
 		"Resistance to earth|±0.5 decade|log-normal|Uncertainty resistance [decades]",
-		"MIE, dust or hybrid|×/÷ 2|log-normal|Uncertainty MIE dust [factor]",
+		"MIE, dust or hybrid|×/÷ 2 (95 % band ×/÷ 3.89)|log-normal|Uncertainty MIE dust [factor]", // derived: 2^1.96
+		// Review item 10: the vessel's ×/÷ 3 as a 95 % band (reference section 12), the
+		// person's own 100-300 pF band (reference section 2, Saito 1963).
+		"Capacitance, estimated|×/÷ 1.75 (95 % band ×/÷ 3)|log-normal|Uncertainty estimated capacitance [factor]",            // derived: 3^(1/1.96)
+		"Capacitance of a person, estimated|×/÷ 1.23 (95 % band ×/÷ 1.5)|log-normal|Uncertainty person capacitance [factor]", // derived: 1.5^(1/1.96)
 		"Draws|1000 per object, seed 7",
 	} {
 		if !strings.Contains(flat, want) {

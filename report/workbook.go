@@ -341,7 +341,7 @@ func stationColumns(site inventory.Site, withProbability bool) []column[stationR
 			if s.Atmosphere == nil {
 				return cell{}
 			}
-			return code(s.Atmosphere.Group)
+			return code(assess.GroupText(s.Atmosphere)) // as on Objects: the assessed group, "est." when assumed
 		}},
 		{UnitPercentRH.Header("RH used"), 9, func(s stationRow) cell {
 			if s.Station.RelativeHumidity.Known {
@@ -351,12 +351,18 @@ func stationColumns(site inventory.Site, withProbability bool) []column[stationR
 			return est(inQ(UnitPercentRH, site.RelativeHumidity), true)
 		}},
 		{"Verdict", 14, func(s stationRow) cell { return verdictCell(s.Verdict) }},
-		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s stationRow) cell { return ratioCell(finitePtr(s.WorstRatio)) }},
+		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s stationRow) cell {
+			if s.WorstRatioAssumed {
+				return text(assess.RatioAssumedText) // its size is an artefact of an assumed resistance
+			}
+			return ratioCell(finitePtr(s.WorstRatio))
+		}},
 		{"Objects [count]", 9, func(s stationRow) cell { return integer(len(s.Objects)) }},
 		{"Incendive [count]", 10, count(assess.Incendive)},
 		{"Marginal [count]", 10, count(assess.Marginal)},
 		{"Non-incendive [count]", 11, count(assess.NonIncendive)},
 		{"Not assessed [count]", 10, count(assess.NotAssessed)},
+		{"Note", 30, func(s stationRow) cell { return wrapText(strings.Join(s.Notes(), "; ")) }},
 	}
 	if withProbability {
 		cols = append(cols, column[stationRow]{UnitProbability.Header("P(any incendive)"), 11, func(s stationRow) cell {

@@ -46,8 +46,9 @@ func newAssessCmd(ws *report.Workspace) *cobra.Command {
 			"files), give one audit per survey (-o and --json then name folders) and a portfolio workbook\n" +
 			"ranking the sites and stations across them (-p; default portfolio.xlsx in the -o folder, else in\n" +
 			"the current folder). Rows stream in and the Objects sheet streams out, so a survey of any size fits.\n" +
-			"Exit status: 0 assessed (rejected rows are counted in the summary), 1 nothing could be assessed\n" +
-			"(or, with --strict, any row rejected), 2 usage or unreadable input; with several surveys the worst\n" +
+			"Exit status: 0 assessed, 1 nothing could be assessed or an Objects row was rejected (the audit is\n" +
+			"written, its stations marked incomplete; with --strict, any row rejected), 2 usage or unreadable\n" +
+			"input; with several surveys the worst\n" +
 			"of them, every survey being tried.",
 		Args: cobra.MinimumNArgs(1),
 		RunE: func(c *cobra.Command, args []string) error {
@@ -112,10 +113,25 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	switch {
 	case objectCount(a) == 0:
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
+	case rejectedObjects(s) > 0:
+		return withCode(exitProblems, fmt.Errorf("%d object row(s) were rejected: the audit is written, but the stations marked incomplete are ranked without them; see the Rejected sheet", rejectedObjects(s)))
 	case o.strict && len(s.Rejected) > 0:
 		return withCode(exitProblems, fmt.Errorf("--strict: %d row(s) were rejected; see the Rejected sheet", len(s.Rejected)))
 	}
 	return nil
+}
+
+// rejectedObjects counts the rejected Objects rows: an object not assessed is
+// a hazard the audit does not cover, so assess exits 1 (the audit is still
+// written, its stations marked incomplete).
+func rejectedObjects(s *inventory.Survey) int {
+	n := 0
+	for _, r := range s.Rejected {
+		if r.Sheet == inventory.SheetObjects {
+			n++
+		}
+	}
+	return n
 }
 
 func objectCount(a *assess.Audit) int {
@@ -323,6 +339,10 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 		switch {
 		case objectCount(a) == 0:
 			fmt.Fprintf(errOut, "sparkmargin: %s: no object could be assessed: run 'sparkmargin check %s' for the problems\n", file, file)
+			code = max(code, exitProblems)
+			failed++
+		case rejectedObjects(a.Survey) > 0:
+			fmt.Fprintf(errOut, "sparkmargin: %s: %d object row(s) were rejected; see the Rejected sheet\n", file, rejectedObjects(a.Survey))
 			code = max(code, exitProblems)
 			failed++
 		case o.strict && len(a.Survey.Rejected) > 0:

@@ -347,7 +347,7 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 			in.Conductivity = sub.Conductivity
 			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity), Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
 		} else {
-			defs = append(defs, Default{Field: "Conductivity", Value: "low (≤ 50 pS/m)", Reason: "not given: assessed as a low-conductivity liquid, with the low-conductivity v d limit"})
+			defs = append(defs, Default{Field: "Conductivity", Value: "unknown: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid", Reason: "not given: the stricter case of each (principle 2): the low-conductivity filling limits and liquid-surface brush, and, in an insulating, lined, glass or unknown vessel not earthed, the spark of an isolated conductive liquid"})
 		}
 	}
 	if math.IsNaN(in.Permittivity) && !(in.Material.Permittivity > 0) && ok && sub.Permittivity > 0 {

@@ -188,6 +188,14 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		}
 		if !math.IsNaN(ev.Potential) && !math.IsNaN(ev.Capacitance) && src == "stored energy" {
 			msg += fmt.Sprintf(" (%s at %s)", pF(ev.Capacitance), kV(ev.Potential))
+			if ev.Flags&model.FlagAssumedResistance != 0 {
+				// Review item 11: the size rests on no leakage being assumed.
+				msg += "; this rests on an assumed resistance to earth (not measured, so no leakage assumed)"
+				if ev.Flags&model.FlagCappedConductor != 0 {
+					msg += fmt.Sprintf(" and the %s cap on an estimated potential", kV(lim.ConductorMaxPotential))
+				}
+				msg += ": measure the resistance to earth and the potential in operation"
+			}
 		}
 	case CheckFillingVelocity, CheckVelocityCeiling, CheckSlowStart, CheckLowConductivity,
 		CheckSplashFilling, CheckSecondPhase, CheckFilterResidence, CheckIsolatedLiquid:
@@ -195,7 +203,9 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 	case CheckBagType:
 		t := AssessedBagType(in.BagType)
 		where := env.Atmosphere.String() + " atmosphere"
-		if env.Group != model.GroupNone {
+		if g := GroupText(r.Atmosphere); g != "" {
+			where += " " + g // as the Objects and Stations sheets show it (IIIB / gas IIC est.)
+		} else if env.Group != model.GroupNone {
 			where += " " + env.Group.String()
 		}
 		where += " in " + zoneWords(env.Zone)
@@ -260,6 +270,11 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 	if k == CheckEnergyMIE || k == CheckEnergyMargin {
 		cls := mitigationClass(in, c.Discharge)
 		mit = templates.Mitigation("energy." + cls)
+		if cls == "powder" && env.Atmosphere.IgnitedByBrush() {
+			// Powder into flammable gas or vapour: its own treatment (IEC TS
+			// 60079-32-1; reference section 12), not the silo text.
+			mit = templates.Mitigation("energy.powder.vapour")
+		}
 		if cls == "conductor" && AssumedResistanceDominates(ev, c.Discharge) {
 			mit = templates.Mitigation("energy.conductor.assumed-resistance")
 		}

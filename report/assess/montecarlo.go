@@ -184,7 +184,11 @@ func planFor(r *ObjectResult, tab *[NumUncertainInputs]Uncertainty, siteRH inven
 		// The estimate is fixed from the point evaluation and drawn about it: the
 		// model takes a given capacitance as measured, which changes nothing else
 		// for a conductor row (it is one already).
-		p.add(tCapacitance, &tab[UncCapacitanceEstimated], r.Eval.Capacitance, 0)
+		row := &tab[UncCapacitanceEstimated]
+		if in.Kind == model.Person && cm == model.CapTypical {
+			row = &tab[UncCapacitancePerson] // the body's own 100-300 pF band
+		}
+		p.add(tCapacitance, row, r.Eval.Capacitance, 0)
 	}
 	p.add(tChargingCurrent, &tab[UncChargingCurrent], in.ChargingCurrent, o.ChargingCurrent.RelUncertainty)
 	p.add(tMassFlow, &tab[UncMassFlow], in.MassFlow, o.MassFlow.RelUncertainty)

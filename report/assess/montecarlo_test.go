@@ -340,7 +340,7 @@ func TestUncertaintyText(t *testing.T) {
 		{UncField, "±10 %"},
 		{UncFieldDistance, "±10 mm"},
 		{UncResistance, "±0.5 decade"},
-		{UncMIEDust, "×/÷ 2"},
+		{UncMIEDust, "×/÷ 2 (95 % band ×/÷ 3.89)"}, // derived: 2^1.96
 		{UncRelativeHumidity, "±5 %RH"},
 	} {
 		if got := tab[c.in].Text(); got != c.want {
@@ -580,4 +580,70 @@ func TestPrunedInputsFeedNothing(t *testing.T) {
 		t.Errorf("no input left out of the demo's draws (%d of %d drawn)", drawn, total)
 	}
 	t.Logf("%d of %d inputs drawn", drawn, total)
+}
+
+// onlyInputs is an uncertainty table that draws the given inputs alone.
+func onlyInputs(keep ...UncertainInput) []Uncertainty {
+	t := DefaultUncertainties()
+	for i := range t {
+		drawn := false
+		for _, k := range keep {
+			drawn = drawn || t[i].Input == k
+		}
+		if !drawn {
+			t[i].Spread = 0
+		}
+	}
+	return t
+}
+
+// TestMonteCarloCapacitanceBands: a person's typical 200 pF is drawn within the
+// body's own band and a vessel's size-table estimate within ×/÷ 3 read as a 95 %
+// band, not as one standard deviation (review item 10).
+func TestMonteCarloCapacitanceBands(t *testing.T) {
+	const n = 4000
+	cases := []struct {
+		name    string
+		obj     inventory.Object
+		w0      float64 // J, the point value
+		sigmaLn float64 // of ln C
+		maxP95  float64 // J, the sourced ceiling of the p95
+	}{
+		// Person at a measured 10 kV: W0 = 200 pF x (10 kV)^2 / 2 = 10 mJ. The body is
+		// 100-300 pF (reference section 2, Saito 1963): sigma(ln C) = ln 1.5 / 1.96 = 0.2069,
+		// p95 = 10 mJ x exp(1.645 x 0.2069) = 14.05 mJ, within the about 15 mJ a person
+		// stores at most (TRGS 727, reference section 10.3). Derived.
+		{"person 200 pF", inventory.Object{ID: "OP", Station: "S1", Kind: "person", SurfacePotential: known(10e3)}, 10e-3, math.Log(1.5) / 1.959964, 15e-3},
+		// Container of unknown size at a measured 8 kV: 1000 pF from the size table, W0 =
+		// 1 nF x (8 kV)^2 / 2 = 32 mJ; ×/÷ 3 as a 95 % band: sigma(ln C) = ln 3 / 1.96 = 0.5605,
+		// p95 = 32 mJ x exp(1.645 x 0.5605) = 80.4 mJ (one standard deviation gave 195 mJ). Derived.
+		{"vessel size table", inventory.Object{ID: "DR", Station: "S1", Kind: "container", SurfacePotential: known(8e3)}, 32e-3, math.Log(3) / 1.959964, 100e-3}, // ceiling: well below the 195 mJ of the one-sigma reading
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			s := newSurvey([]inventory.Atmosphere{atmToluene}, []inventory.Station{{ID: "S1", Atmosphere: atmToluene.ID}},
+				[]inventory.Object{tc.obj}, nil)
+			a := Assess(s, Options{Samples: n, Seed: 7, Uncertainties: onlyInputs(UncCapacitanceEstimated, UncCapacitancePerson)})
+			p := a.Objects[0].Probability
+			if p == nil {
+				t.Fatal("no probability")
+			}
+			zq := distuv.UnitNormal.Quantile(0.95)
+			want := tc.w0 * math.Exp(tc.sigmaLn*zq)
+			tol := 4 * tc.sigmaLn * math.Sqrt(0.95*0.05/n) / distuv.UnitNormal.Prob(zq)
+			if d := math.Abs(math.Log(p.EnergyP95 / want)); !(d <= tol) {
+				t.Errorf("energy p95 %.4g J, want %.4g J (ln ratio %.3f > %.3f)", p.EnergyP95, want, d, tol)
+			}
+			if p.EnergyP95 > tc.maxP95 {
+				t.Errorf("energy p95 %.4g J above %.4g J", p.EnergyP95, tc.maxP95)
+			}
+		})
+	}
+	tab := uncertaintyTable(DefaultUncertainties())
+	if got := tab[UncCapacitanceEstimated].Text(); got != "×/÷ 1.75 (95 % band ×/÷ 3)" {
+		t.Errorf("estimated capacitance shown as %q", got)
+	}
+	if got := tab[UncCapacitancePerson].Text(); got != "×/÷ 1.23 (95 % band ×/÷ 1.5)" {
+		t.Errorf("person capacitance shown as %q", got)
+	}
 }

@@ -41,8 +41,10 @@ func Rank(s *inventory.Survey, objs []ObjectResult) []StationResult {
 		if o.Ratio != nil && (sr.WorstRatio == nil || *o.Ratio > *sr.WorstRatio) {
 			r := *o.Ratio
 			sr.WorstRatio = &r
+			sr.WorstRatioAssumed = o.RatioAssumed()
 		}
 	}
+	markRejected(out, s)
 	slices.SortStableFunc(out, compareStations)
 	for i := range out {
 		out[i].Rank = i + 1
@@ -110,4 +112,26 @@ func orderFindings(objs []ObjectResult, stations []StationResult) []Finding {
 		out[i] = all[i].f
 	}
 	return out
+}
+
+// markRejected counts on each station the rejected Objects rows whose Station
+// was readable: the verdict and rank stand for what was assessed, the mark
+// (StationResult.IncompleteText) says what is missing.
+func markRejected(stations []StationResult, s *inventory.Survey) {
+	if s == nil {
+		return
+	}
+	index := make(map[string]int, len(stations))
+	for i := range stations {
+		stations[i].RejectedRows = 0
+		index[stations[i].Station.ID] = i
+	}
+	for _, r := range s.Rejected {
+		if r.Sheet != inventory.SheetObjects || r.Station == "" {
+			continue
+		}
+		if j, ok := index[r.Station]; ok {
+			stations[j].RejectedRows++
+		}
+	}
 }

@@ -149,6 +149,7 @@ func (st *Streamer) aggregate(o *ObjectResult) {
 	if o.Ratio != nil && (sr.WorstRatio == nil || *o.Ratio > *sr.WorstRatio) {
 		r := *o.Ratio
 		sr.WorstRatio = &r
+		sr.WorstRatioAssumed = o.RatioAssumed()
 	}
 	for k, f := range o.Findings {
 		if m, ok := st.mitigations[f.Mitigation]; ok {
@@ -201,6 +202,7 @@ func (st *Streamer) Objects() int { return st.seen }
 // is not to be used afterwards.
 func (st *Streamer) Finish() *Audit {
 	a := st.a
+	markRejected(st.stations, a.Survey)
 	slices.SortStableFunc(st.stations, compareStations)
 	for i := range st.stations {
 		st.stations[i].Rank = i + 1

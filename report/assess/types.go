@@ -5,6 +5,8 @@ package assess
 // added; existing names and meanings stay.
 
 import (
+	"fmt"
+
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
 )
@@ -106,8 +108,52 @@ type StationResult struct {
 	WorstRatio *float64
 	Objects    []string // object IDs at the station, in survey order
 	Counts     map[Verdict]int
+	// RejectedRows counts the Objects rows naming this station that were
+	// rejected (inventory.Rejected.Station): the verdict and rank rest on the
+	// objects assessed only, so the station is marked incomplete (IncompleteText).
+	RejectedRows int
+	// WorstRatioAssumed: the worst ratio is a spark energy dominated by an
+	// assumed (unmeasured) resistance to earth (ObjectResult.RatioAssumed): it
+	// says "at least 1", not its size, and the rank rests on that assumption.
+	WorstRatioAssumed bool
 	// ProbabilityAnyIncendive, filled only when Options.Samples > 0.
 	ProbabilityAnyIncendive *float64
+}
+
+// RatioAssumedText is shown instead of a ratio whose size is an artefact of an
+// assumed resistance to earth (the energy "at least the MIE").
+const RatioAssumedText = ">= 1 (assumed R)"
+
+// RatioAssumed reports whether the object's ratio is at least 1 only because no
+// leakage was assumed for an unmeasured resistance to earth: its size (the 50 kV
+// cap times the capacitance) is no figure to read or rank by (reference section 12).
+func (r *ObjectResult) RatioAssumed() bool {
+	return r.Ratio != nil && *r.Ratio >= 1 && AssumedResistanceDominates(&r.Eval, r.Eval.Effective)
+}
+
+// Notes returns the station's marks for the terminal and the Stations sheet:
+// incomplete (rejected object rows) and a rank resting on an assumed resistance.
+func (s StationResult) Notes() []string {
+	var out []string
+	if t := s.IncompleteText(); t != "" {
+		out = append(out, t)
+	}
+	if s.WorstRatioAssumed {
+		out = append(out, "rank rests on an assumed resistance to earth (worst ratio at least 1, its size not a figure)")
+	}
+	return out
+}
+
+// IncompleteText is the station's mark when object rows naming it were
+// rejected ("incomplete: 2 object rows rejected, see Rejected"); "" otherwise.
+func (s StationResult) IncompleteText() string {
+	switch {
+	case s.RejectedRows == 1:
+		return "incomplete: 1 object row rejected, see Rejected"
+	case s.RejectedRows > 1:
+		return fmt.Sprintf("incomplete: %d object rows rejected, see Rejected", s.RejectedRows)
+	}
+	return ""
 }
 
 // Options control an assessment.

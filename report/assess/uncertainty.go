@@ -29,8 +29,11 @@ const (
 	UncResistance
 	// UncCapacitanceMeasured: capacitance given on the row (Capacitance).
 	UncCapacitanceMeasured
-	// UncCapacitanceEstimated: capacitance the model estimated for a conductor.
+	// UncCapacitanceEstimated: capacitance the model estimated for a conductor
+	// other than a person.
 	UncCapacitanceEstimated
+	// UncCapacitancePerson: a person's typical capacitance (200 pF) when not measured.
+	UncCapacitancePerson
 	// UncMIEDust: MIE of a dust or hybrid atmosphere.
 	UncMIEDust
 	// UncMIEGas: MIE of a gas, vapour or mist atmosphere.
@@ -121,7 +124,7 @@ func (u Uncertainty) Text() string {
 	case "%":
 		return "±" + plain((math.Exp(u.Spread)-1)*100) + " % (×/÷ " + plain(math.Exp(u.Spread)) + ")"
 	}
-	return "×/÷ " + plain(math.Exp(u.Spread))
+	return "×/÷ " + plain(math.Exp(u.Spread)) + " (95 % band ×/÷ " + plain(math.Exp(z95*u.Spread)) + ")"
 }
 
 // CellSpread returns the spread a cell's relative standard uncertainty rel
@@ -140,6 +143,10 @@ func (u Uncertainty) CellSpread(rel float64) (Distribution, float64, bool) {
 
 const documentedChoice = "documented choice of this tool, not a standard value"
 
+// z95 is the two-sided 95 % point of the normal distribution: a spread read
+// as a range ("×/÷ 3") is taken as about a 95 % band, sigma = ln(factor) / z95.
+const z95 = 1.959963984540054
+
 // DefaultUncertainties returns the default uncertainty table, one row per
 // UncertainInput in order. Every value is a documented choice (a typical
 // field-survey spread), not a standard value; the Site sheet overrides any row.
@@ -151,7 +158,8 @@ func DefaultUncertainties() []Uncertainty {
 		{UncSurfacePotential, "Surface or body potential", "uncertainty surface potential", "%", NormalRelative, 0.10, "electrostatic voltmeter reading: " + documentedChoice, false},
 		{UncResistance, "Resistance to earth", "uncertainty resistance", "decades", LogNormal, 0.5 * math.Ln10, "contact, humidity and test voltage move a resistance by decades: " + documentedChoice, false},
 		{UncCapacitanceMeasured, "Capacitance, measured", "uncertainty measured capacitance", "%", LogNormal, ln(1.10), "capacitance meter in place: " + documentedChoice, false},
-		{UncCapacitanceEstimated, "Capacitance, estimated", "uncertainty estimated capacitance", "factor", LogNormal, ln(3), "size-table and typical values against real surroundings, a factor of about 3 either way (reference section 12): " + documentedChoice, false},
+		{UncCapacitanceEstimated, "Capacitance, estimated", "uncertainty estimated capacitance", "factor", LogNormal, ln(3) / z95, "size-table and typical values against real surroundings, a factor of about 3 either way (reference section 12), read as a range: about 95 % of draws within ×/÷ 3, so the standard deviation of ln C is ln 3 / 1.96: " + documentedChoice, false},
+		{UncCapacitancePerson, "Capacitance of a person, estimated", "uncertainty person capacitance", "factor", LogNormal, ln(1.5) / z95, "the human body is 100-300 pF (reference section 2, Saito 1963, from memory) about the 200 pF used: about 95 % of draws within ×/÷ 1.5 (133-300 pF), so at most about 15 mJ at 10 kV (TRGS 727, reference section 10.3): " + documentedChoice, false},
 		{UncMIEDust, "MIE, dust or hybrid", "uncertainty mie dust", "factor", LogNormal, ln(2), "dust MIE varies with particle size, moisture and the test apparatus: " + documentedChoice, false},
 		{UncMIEGas, "MIE, gas, vapour or mist", "uncertainty mie gas", "%", LogNormal, ln(1.20), "tabulated gas MIE at the most easily ignited mixture; spread between sources: " + documentedChoice, false},
 		{UncChargingCurrent, "Charging current", "uncertainty charging current", "factor", LogNormal, ln(2), "charging currents are known to within a factor: " + documentedChoice, false},
