@@ -17,6 +17,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 )
 
 type assessOptions struct {
@@ -98,13 +99,13 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 		return err
 	}
 	s := a.Survey
-	report.WriteSummary(out, a)
+	audit.WriteSummary(out, a)
 	fmt.Fprintf(out, "\nAudit workbook: %s\n", xlsx)
 	if o.json != "" {
 		fmt.Fprintf(out, "Audit JSON:     %s\n", o.json)
 	}
 	if o.portfolio != "" || o.portfolioJSON != "" {
-		p := report.Portfolio{Surveys: []report.PortfolioSurvey{report.PortfolioEntry(a, filepath.Base(o.survey), xlsx)}}
+		p := audit.Portfolio{Surveys: []audit.PortfolioSurvey{audit.PortfolioEntry(a, filepath.Base(o.survey), xlsx)}}
 		if err := writePortfolio(o.ws, out, p, runInfo(s, o.args), o.portfolio, o.portfolioJSON); err != nil {
 			return err
 		}
@@ -132,10 +133,10 @@ const streamBatch = 1024
 // assessStreamed reads, assesses and writes one survey in one pass: objects
 // are read row by row (inventory.StreamFile), assessed in batches
 // (assess.Streamer), and each batch's rows go straight to the audit
-// workbook's Objects sheet and the JSON (report.WorkbookWriter,
-// report.JSONWriter); only the station aggregates, findings and problems are
+// workbook's Objects sheet and the JSON (audit.WorkbookWriter,
+// audit.JSONWriter); only the station aggregates, findings and problems are
 // kept. The outputs have the cells and bytes of the in-memory path
-// (assess.Assess, report.WriteWorkbook, report.WriteJSON).
+// (assess.Assess, audit.WriteWorkbook, audit.WriteJSON).
 func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress) (a *assess.Audit, err error) {
 	if err := requireRegular(path); err != nil {
 		prog.end()
@@ -143,8 +144,8 @@ func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress
 	}
 	var (
 		st    *assess.Streamer
-		ww    *report.WorkbookWriter
-		jw    *report.JSONWriter
+		ww    *audit.WorkbookWriter
+		jw    *audit.JSONWriter
 		extra []inventory.Problem
 		batch = make([]inventory.Object, 0, streamBatch)
 	)
@@ -181,11 +182,11 @@ func assessStreamed(path, xlsx, jsonPath string, o assessOptions, prog *progress
 		extra = append(p1, p2...)
 		st = assess.NewStreamer(s, assess.Options{Limits: lim, Samples: o.samples, Seed: o.seed, Workers: o.workers, Uncertainties: unc})
 		var err error
-		if ww, err = report.NewWorkbookWriter(s, runInfo(s, o.args), o.samples > 0, tmp); err != nil {
+		if ww, err = audit.NewWorkbookWriter(s, runInfo(s, o.args), o.samples > 0, tmp); err != nil {
 			return err
 		}
 		if jsonPath != "" {
-			if jw, err = report.NewJSONWriter(tmp); err != nil {
+			if jw, err = audit.NewJSONWriter(tmp); err != nil {
 				return err
 			}
 		}
@@ -267,7 +268,7 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 	if err := refuseClashes(inputs, []namedPath{{"the portfolio workbook", portfolio}, {"the portfolio JSON", portfolioJSON}}); err != nil {
 		return err
 	}
-	var p report.Portfolio
+	var p audit.Portfolio
 	var written []namedPath // the outputs of the surveys before, and the portfolio's
 	written = append(written, namedPath{"the portfolio workbook", portfolio}, namedPath{"the portfolio JSON", portfolioJSON})
 	failed := 0
@@ -286,7 +287,7 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 		}
 		fail := func(c int, err error) {
 			fmt.Fprintf(errOut, "sparkmargin: %s: %v\n", file, err)
-			p.Failed = append(p.Failed, report.PortfolioFailure{File: file, Reason: err.Error()})
+			p.Failed = append(p.Failed, audit.PortfolioFailure{File: file, Reason: err.Error()})
 			code = max(code, c)
 			failed++
 		}
@@ -314,12 +315,12 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 			fail(c, err)
 			continue
 		}
-		report.WriteSummary(out, a)
+		audit.WriteSummary(out, a)
 		fmt.Fprintf(out, "\nAudit workbook: %s\n", xlsx)
 		if jsonPath != "" {
 			fmt.Fprintf(out, "Audit JSON:     %s\n", jsonPath)
 		}
-		p.Surveys = append(p.Surveys, report.PortfolioEntry(a, filepath.Base(file), xlsx))
+		p.Surveys = append(p.Surveys, audit.PortfolioEntry(a, filepath.Base(file), xlsx))
 		switch {
 		case objectCount(a) == 0:
 			fmt.Fprintf(errOut, "sparkmargin: %s: no object could be assessed: run 'sparkmargin check %s' for the problems\n", file, file)
@@ -332,7 +333,7 @@ func runPortfolio(out, errOut io.Writer, o assessOptions) error {
 		}
 	}
 	fmt.Fprintln(out)
-	info := report.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
+	info := audit.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
 	if err := writePortfolio(o.ws, out, p, info, portfolio, portfolioJSON); err != nil {
 		return err
 	}
@@ -418,20 +419,20 @@ func isPortfolioWorkbook(path string) bool {
 		}
 		defer rc.Close()
 		b, _ := io.ReadAll(io.LimitReader(rc, 64<<10))
-		return bytes.Contains(b, []byte(report.PortfolioTitlePrefix))
+		return bytes.Contains(b, []byte(audit.PortfolioTitlePrefix))
 	}
 	return false
 }
 
 // writePortfolio writes the portfolio workbook and, when jsonPath is set, its JSON.
-func writePortfolio(ws *report.Workspace, out io.Writer, p report.Portfolio, info report.RunInfo, xlsx, jsonPath string) error {
+func writePortfolio(ws *report.Workspace, out io.Writer, p audit.Portfolio, info audit.RunInfo, xlsx, jsonPath string) error {
 	var pw, pj *report.Pending
 	var err error
 	if info.TmpDir, err = ws.Dir(); err != nil {
 		return withCode(exitUsage, err)
 	}
 	if xlsx != "" {
-		if pw, err = ws.Prepare(xlsx, func(w io.Writer) error { return report.WritePortfolio(w, p, info) }); err != nil {
+		if pw, err = ws.Prepare(xlsx, func(w io.Writer) error { return audit.WritePortfolio(w, p, info) }); err != nil {
 			return withCode(exitUsage, fmt.Errorf("writing the portfolio workbook: %w", err))
 		}
 	}
@@ -439,7 +440,7 @@ func writePortfolio(ws *report.Workspace, out io.Writer, p report.Portfolio, inf
 		if pw != nil {
 			info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
 		}
-		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return report.WritePortfolioJSON(w, p, info) }); err != nil {
+		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return audit.WritePortfolioJSON(w, p, info) }); err != nil {
 			ws.Discard(pw)
 			return withCode(exitUsage, fmt.Errorf("writing the portfolio JSON: %w", err))
 		}
@@ -456,8 +457,8 @@ func writePortfolio(ws *report.Workspace, out io.Writer, p report.Portfolio, inf
 	return nil
 }
 
-func runInfo(s *inventory.Survey, args []string) report.RunInfo {
-	return report.RunInfo{
+func runInfo(s *inventory.Survey, args []string) audit.RunInfo {
+	return audit.RunInfo{
 		ToolVersion:  version,
 		SurveyFile:   filepath.Base(s.Path),
 		SurveySHA256: s.SHA256,

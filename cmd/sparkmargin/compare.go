@@ -13,6 +13,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
@@ -78,7 +79,7 @@ func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *
 		return rerun.SideFromAudit(label, a), s, nil
 	}
 	var buf bytes.Buffer
-	if err := report.WriteJSON(&buf, a, report.RunInfo{ToolVersion: version, SurveyFile: label}); err != nil {
+	if err := audit.WriteJSON(&buf, a, audit.RunInfo{ToolVersion: version, SurveyFile: label}); err != nil {
 		return nil, nil, withCode(exitUsage, err)
 	}
 	side, err := rerun.SideFromJSON(label, buf.Bytes())

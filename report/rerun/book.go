@@ -1,7 +1,7 @@
 package rerun
 
 // Workbook plumbing of the rerun workbooks. Cell styles, tables, print setup
-// and the Method, Cautions and Rejected sheets are package report's (report.Book),
+// and the Method, Cautions and Rejected sheets are package report's (audit.Book),
 // so the rerun workbooks look like the audit's and carry the audit's sheets.
 
 import (
@@ -11,8 +11,8 @@ import (
 	"time"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -23,24 +23,24 @@ type RunInfo struct {
 }
 
 // Short names of report's cell constructors, so the sheet code reads as rows.
-func tx(s string) report.Cell { return report.TextCell(s) }
-func ct(s string) report.Cell { return report.CodeCell(s) }
-func wr(s string) report.Cell { return report.WrapCell(s) }
-func in(n int) report.Cell    { return report.CountCell(n) }
+func tx(s string) audit.Cell { return audit.TextCell(s) }
+func ct(s string) audit.Cell { return audit.CodeCell(s) }
+func wr(s string) audit.Cell { return audit.WrapCell(s) }
+func in(n int) audit.Cell    { return audit.CountCell(n) }
 
 // vd is a verdict cell from the verdict's spelling ("" is an empty cell).
-func vd(v string) report.Cell {
+func vd(v string) audit.Cell {
 	for _, x := range []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed} {
 		if v == x.String() {
-			return report.VerdictCell(x)
+			return audit.VerdictCell(x)
 		}
 	}
-	return report.TextCell(v)
+	return audit.TextCell(v)
 }
 
 // book is one rerun workbook: report's Book plus the document properties.
 type book struct {
-	*report.Book
+	*audit.Book
 	f    *excelize.File
 	err  error
 	site string
@@ -58,7 +58,7 @@ func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
 	}
 	s := a.Survey
 	b := &book{f: excelize.NewFile(), site: "site not named", date: "not given"}
-	b.Book = report.NewBook(b.f, a, report.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine,
+	b.Book = audit.NewBook(b.f, a, audit.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine,
 		SurveyFile: s.Path, SurveySHA256: s.SHA256}, heading)
 	if s.Site.Name != "" {
 		b.site = s.Site.Name

@@ -1,4 +1,4 @@
-package report
+package audit
 
 // Benchmarks of scale: import, model, write and the whole streamed
 // assessment, per object, on generated surveys of 1k, 10k and 100k objects

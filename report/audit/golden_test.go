@@ -1,4 +1,4 @@
-package report
+package audit
 
 import (
 	"flag"
@@ -14,7 +14,7 @@ var update = flag.Bool("update", false, "rewrite the golden files in testdata/re
 // names the first differing line.
 func golden(t *testing.T, name string, got []byte) {
 	t.Helper()
-	p := filepath.Join("..", "testdata", "report", name)
+	p := filepath.Join("..", "..", "testdata", "report", name)
 	if *update {
 		if err := os.MkdirAll(filepath.Dir(p), 0o755); err != nil {
 			t.Fatal(err)
