@@ -165,7 +165,7 @@ func TestAssessStreamedSameCells(t *testing.T) {
 		n := map[string]int{"0": 0, "200": 200}[samples]
 		a := assess.Assess(s, assess.Options{Limits: lim, Samples: n, Seed: assess.DefaultSeed, Uncertainties: unc})
 		// The command line as the command records it (the Method sheet shows it).
-		info := runInfo(s, []string{"sparkmargin", "assess", "--json=" + js, "--output=" + xlsx, "--samples=" + samples, demo})
+		info := (&report.Run{ToolVersion: version, CommandLine: []string{"sparkmargin", "assess", "--json=" + js, "--output=" + xlsx, "--samples=" + samples, demo}}).Info(s)
 		want := filepath.Join(dir, "mem-"+samples+".xlsx")
 		if err := report.WriteFileAtomic(want, func(w io.Writer) error { return audit.WriteWorkbook(w, a, info) }); err != nil {
 			t.Fatal(err)

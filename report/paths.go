@@ -1,4 +1,4 @@
-package main
+package report
 
 import (
 	"fmt"
@@ -78,42 +78,52 @@ func sameTarget(a, b string, aIsInput, bIsInput bool) bool {
 	return errA == nil && errB == nil && os.SameFile(fa, fb)
 }
 
-// namedPath is one input or output of a run, with how the user named it.
-type namedPath struct {
-	role string // "the survey", "-o", "--json", ...
-	path string
+// NamedPath is one input or output of a run, with how the user named it.
+type NamedPath struct {
+	Role string // "the survey", "-o", "--json", ...
+	Path string
 }
 
-// refuseClashes refuses a run whose outputs reach one of its inputs, or
+// RefuseClashes refuses a run whose outputs reach one of its inputs, or
 // reach each other, after resolving symlinks and ".." as the kernel will and
 // comparing file identities (hard links). Empty paths are skipped.
-func refuseClashes(inputs, outputs []namedPath) error {
+func RefuseClashes(inputs, outputs []NamedPath) error {
 	for i, o := range outputs {
-		if o.path == "" {
+		if o.Path == "" {
 			continue
 		}
 		for _, in := range inputs {
-			if in.path != "" && sameTarget(o.path, in.path, false, true) {
-				return withCode(exitUsage, fmt.Errorf("refusing to write %s %s: it is %s itself (%s, the file %s); choose another output name",
-					o.role, o.path, in.role, in.path, inputPath(in.path)))
+			if in.Path != "" && sameTarget(o.Path, in.Path, false, true) {
+				return unusable(fmt.Errorf("refusing to write %s %s: it is %s itself (%s, the file %s); choose another output name",
+					o.Role, o.Path, in.Role, in.Path, inputPath(in.Path)))
 			}
 		}
 		for _, o2 := range outputs[:i] {
-			if o2.path != "" && sameTarget(o.path, o2.path, false, false) {
-				return withCode(exitUsage, fmt.Errorf("%s %s and %s %s name the same file (%s); give each output its own name",
-					o2.role, o2.path, o.role, o.path, kernelPath(o.path)))
+			if o2.Path != "" && sameTarget(o.Path, o2.Path, false, false) {
+				return unusable(fmt.Errorf("%s %s and %s %s name the same file (%s); give each output its own name",
+					o2.Role, o2.Path, o.Role, o.Path, kernelPath(o.Path)))
 			}
 		}
 	}
 	return nil
 }
 
-// requireRegular refuses, in one sentence (exit 2), an input that is not a
+// RequireRegular refuses, in one sentence (exit 2), an input that is not a
 // regular file: a named pipe would block the read for ever, a device or a
 // socket is no workbook. It looks with stat only and never opens the path.
-func requireRegular(path string) error {
-	if err := inventory.CheckRegularFile(path); err != nil {
-		return withCode(exitUsage, err)
-	}
-	return nil
+func RequireRegular(path string) error {
+	return unusable(inventory.CheckRegularFile(path))
+}
+
+// DefaultAuditPath is "<dir>/<name>-audit.xlsx" beside the survey.
+func DefaultAuditPath(survey string) string {
+	dir, base := filepath.Split(survey)
+	name := strings.TrimSuffix(base, filepath.Ext(base))
+	return filepath.Join(dir, name+"-audit.xlsx")
+}
+
+// SiblingPath is "<dir>/<name><suffix>" beside the survey.
+func SiblingPath(survey, suffix string) string {
+	dir, base := filepath.Split(survey)
+	return filepath.Join(dir, strings.TrimSuffix(base, filepath.Ext(base))+suffix)
 }
