@@ -53,9 +53,14 @@ type Site struct {
 	AirTemperature Quantity
 	// RequiredMargin: energy must stay below MIE / margin to be non-incendive. Default 10.
 	RequiredMargin Quantity
-	// Items holds every other Item/Value pair of the sheet, keyed by the
-	// normalised item name, for site-level overrides (limits, uncertainties).
+	// Items holds every other Item/Value pair of the sheet as written, keyed
+	// by the normalised item name. The overrides they give are validated into
+	// Limits and Uncertainties (sitesettings.go); read those, not Items.
 	Items []SiteItem
+	// Limits are the limit overrides of the Site sheet, in sheet order, SI units.
+	Limits []SiteLimit
+	// Uncertainties are the uncertainty-table overrides of the Site sheet, in sheet order.
+	Uncertainties []SiteUncertainty
 	// Defaults lists the site values that were defaulted, for the Method sheet.
 	Defaults []string
 }

@@ -692,12 +692,18 @@ func (v *validator) applySite(ss *siteSheet) {
 			add(Warning, nil, "the row is hidden; it is read like any other", "")
 		}
 		if !r.Known {
-			site.Items = append(site.Items, SiteItem{Key: NormalizeName(r.Item), Item: r.Item, Value: r.Value, Row: r.Row})
-			if near := Nearest(splitName(r.Item), columnNames(SiteItems())); near != "" && r.Item != "" {
-				st.probs = append(st.probs, Problem{Sheet: SheetSite, Row: r.Row, Column: "A", ID: r.Item, Severity: Warning, Err: ErrUnknownColumn,
-					Message: fmt.Sprintf("item %q is not a known Site item; it is kept as a site setting", short(r.Item, 60)),
-					Fix:     didYouMean(splitName(r.Item), near)})
+			// A limit or uncertainty override, validated here (sitesettings.go)
+			// so that check and assess see the same rows.
+			it := SiteItem{Key: NormalizeName(r.Item), Item: r.Item, Value: r.Value, Row: r.Row}
+			site.Items = append(site.Items, it)
+			lim, unc, probs := siteSetting(it)
+			if lim != nil {
+				site.Limits = append(site.Limits, *lim)
 			}
+			if unc != nil {
+				site.Uncertainties = append(site.Uncertainties, *unc)
+			}
+			st.probs = append(st.probs, probs...)
 			continue
 		}
 		name := r.Match.Column.Name

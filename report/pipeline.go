@@ -104,7 +104,6 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 		st    *assess.Streamer
 		ww    *audit.WorkbookWriter
 		jw    *audit.JSONWriter
-		extra []inventory.Problem
 		batch = make([]inventory.Object, 0, streamBatch)
 	)
 	defer func() {
@@ -135,9 +134,8 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 		return nil, unusable(err)
 	}
 	s, err := inventory.StreamFile(path, inventory.ReadOptions{TmpDir: tmp}, func(s *inventory.Survey) error {
-		lim, p1 := assess.LimitsFromSite(s.Site, model.DefaultLimits())
-		unc, p2 := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
-		extra = append(p1, p2...)
+		lim := assess.LimitsFromSite(s.Site, model.DefaultLimits())
+		unc := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
 		st = assess.NewStreamer(s, assess.Options{Limits: lim, Samples: r.Samples, Seed: r.Seed, Workers: r.Workers, Uncertainties: unc})
 		var err error
 		if ww, err = audit.NewWorkbookWriter(s, r.Info(s), r.Samples > 0, tmp); err != nil {
@@ -165,8 +163,6 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	if err := flush(); err != nil {
 		return nil, unusable(fmt.Errorf("assessing %s: %w", path, err))
 	}
-	// The Site's limit and uncertainty problems come after the reader's.
-	s.Problems = append(s.Problems, extra...)
 	a = st.Finish()
 	a.Survey = s
 	// The workbook and the JSON are each written whole, then renamed into

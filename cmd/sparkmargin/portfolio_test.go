@@ -159,9 +159,8 @@ func TestAssessStreamedSameCells(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		lim, p1 := assess.LimitsFromSite(s.Site, model.DefaultLimits())
-		unc, p2 := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
-		s.Problems = append(append(s.Problems, p1...), p2...)
+		lim := assess.LimitsFromSite(s.Site, model.DefaultLimits())
+		unc := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
 		n := map[string]int{"0": 0, "200": 200}[samples]
 		a := assess.Assess(s, assess.Options{Limits: lim, Samples: n, Seed: assess.DefaultSeed, Uncertainties: unc})
 		// The command line as the command records it (the Method sheet shows it).

@@ -9,7 +9,6 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report"
-	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
@@ -104,8 +103,6 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	if len(changes) == 0 {
 		return withCode(exitUsage, fmt.Errorf("no change given: pass e.g. --rh 55 or --earth ID=1e6, or add a Changes sheet to the survey; run 'sparkmargin whatif --help'"))
 	}
-	_, problems := assess.LimitsFromSite(s.Site, rerun.Limits(s))
-	s.Problems = append(s.Problems, problems...)
 	x, err := rerun.Run(s, changes)
 	if err != nil {
 		return withCode(exitUsage, err)

@@ -52,7 +52,7 @@ func Assess(s *inventory.Survey, opts Options) *Audit {
 			a.Options.Seed = DefaultSeed
 		}
 		if a.Options.Uncertainties == nil {
-			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
+			a.Options.Uncertainties = UncertaintiesFromSite(s.Site, DefaultUncertainties())
 		}
 		monteCarlo(a, margin)
 	}
@@ -66,7 +66,7 @@ func Assess(s *inventory.Survey, opts Options) *Audit {
 // the empty audit and the object context (shared by Assess and Streamer).
 func prepare(s *inventory.Survey, opts Options) (*Audit, objectContext) {
 	if opts.Limits == (model.Limits{}) {
-		opts.Limits, _ = LimitsFromSite(s.Site, model.DefaultLimits())
+		opts.Limits = LimitsFromSite(s.Site, model.DefaultLimits())
 	}
 	a := &Audit{Survey: s, Options: opts, Counts: map[Verdict]int{}}
 	for _, v := range []Verdict{Incendive, Marginal, NotAssessed, NonIncendive} {

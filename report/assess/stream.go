@@ -65,7 +65,7 @@ func NewStreamer(s *inventory.Survey, opts Options) *Streamer {
 			a.Options.Seed = DefaultSeed
 		}
 		if a.Options.Uncertainties == nil {
-			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
+			a.Options.Uncertainties = UncertaintiesFromSite(s.Site, DefaultUncertainties())
 		}
 	}
 	st := &Streamer{a: a, ctx: ctx, index: map[string]int{}, none: map[string]float64{}, mitigations: map[string]string{}}

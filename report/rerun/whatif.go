@@ -71,10 +71,9 @@ type Whatif struct {
 }
 
 // Limits returns the limits an assessment of s uses: the defaults with the Site
-// sheet's overrides (problems in the overrides are reported by assess and check).
+// sheet's overrides (the reader rejected the rows whose values cannot be used).
 func Limits(s *inventory.Survey) model.Limits {
-	lim, _ := assess.LimitsFromSite(s.Site, model.DefaultLimits())
-	return lim
+	return assess.LimitsFromSite(s.Site, model.DefaultLimits())
 }
 
 // Run assesses s, applies the changes to a deep copy and assesses it again.
