@@ -792,11 +792,11 @@ func (v *validator) applySite(ss *siteSheet) {
 	}
 	if !site.AirTemperature.Known {
 		site.AirTemperature = Quantity{Value: 293.15, Known: true}
-		site.Defaults = append(site.Defaults, "Air temperature 20 °C (default)")
+		site.Defaults = append(site.Defaults, SiteDefault{Item: SiteItemAirTemperature, Text: "Air temperature 20 °C (default)"})
 	}
 	if !site.RequiredMargin.Known {
 		site.RequiredMargin = Quantity{Value: 10, Known: true}
-		site.Defaults = append(site.Defaults, "Required margin 10 (default, a site choice)")
+		site.Defaults = append(site.Defaults, SiteDefault{Item: SiteItemRequiredMargin, Text: "Required margin 10 (default, a site choice)"})
 	}
 }
 

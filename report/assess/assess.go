@@ -73,33 +73,24 @@ func prepare(s *inventory.Survey, opts Options) (*Audit, objectContext) {
 		a.Counts[v] = 0
 	}
 	// Site values the reader defaulted (Site.Defaults) or that are still unknown.
-	defaulted := func(prefix string) bool {
-		for _, d := range s.Site.Defaults {
-			if strings.HasPrefix(strings.ToLower(d), strings.ToLower(prefix)) {
-				return true
-			}
-		}
-		return false
-	}
 	var site []Default
 	margin := DefaultMargin
 	if m := s.Site.RequiredMargin; m.Known && m.Value > 0 {
 		margin = m.Value
 	}
-	if m := s.Site.RequiredMargin; !(m.Known && m.Value > 0) || defaulted("Required margin") {
+	if m := s.Site.RequiredMargin; !(m.Known && m.Value > 0) || s.Site.Defaulted(inventory.SiteItemRequiredMargin) {
 		site = append(site, Default{Field: "Required margin", Value: plain(margin), Reason: "not given on the Site sheet: default site choice (energy must stay below MIE / margin)"})
 	}
 	temperature := DefaultTemperature
 	if t := s.Site.AirTemperature; t.Known && t.Value > 0 {
 		temperature = t.Value
 	}
-	if t := s.Site.AirTemperature; !(t.Known && t.Value > 0) || defaulted("Air temperature") {
+	if t := s.Site.AirTemperature; !(t.Known && t.Value > 0) || s.Site.Defaulted(inventory.SiteItemAirTemperature) {
 		site = append(site, Default{Field: "Air temperature", Value: celsius(temperature), Reason: "not given on the Site sheet: default"})
 	}
 	for _, d := range s.Site.Defaults {
-		l := strings.ToLower(d)
-		if !strings.HasPrefix(l, "required margin") && !strings.HasPrefix(l, "air temperature") {
-			site = append(site, Default{Field: "Site", Value: d, Reason: "Site sheet default"})
+		if d.Item != inventory.SiteItemRequiredMargin && d.Item != inventory.SiteItemAirTemperature {
+			site = append(site, Default{Field: "Site", Value: d.Text, Reason: "Site sheet default"})
 		}
 	}
 	return a, objectContext{survey: s, lim: &opts.Limits, margin: margin, temperature: temperature, siteDefaults: site}

@@ -615,7 +615,7 @@ func TestDefaultsRecorded(t *testing.T) {
 	s.Site.RequiredMargin = inventory.Quantity{}
 	// As the reader leaves it: the temperature filled in and listed as a default.
 	s.Site.AirTemperature = known(293.15)
-	s.Site.Defaults = []string{"Air temperature 20 °C (default)"}
+	s.Site.Defaults = []inventory.SiteDefault{{Item: inventory.SiteItemAirTemperature, Text: "Air temperature 20 °C (default)"}}
 	a := Assess(s, Options{})
 	p := a.Objects[0]
 	for _, f := range []string{"Capacitance", "Relative humidity", "Required margin", "Air temperature"} {

@@ -53,7 +53,7 @@ func testAudit() *assess.Audit {
 		SHA256: "5b1f0c0e6a8f2d9e3c4b7a6d5e4f3a2b1c0d9e8f7a6b5c4d3e2f1a0b9c8d7e6f", // invented for the demo
 		Site: inventory.Site{Name: "Riverside Films Works", SurveyDate: date, SurveyedBy: "J. Okafor",
 			RelativeHumidity: inventory.Known(40), AirTemperature: inventory.Known(293.15),
-			RequiredMargin: inventory.Known(10), Defaults: []string{"Air temperature (20 °C)"}},
+			RequiredMargin: inventory.Known(10), Defaults: []inventory.SiteDefault{{Item: inventory.SiteItemAirTemperature, Text: "Air temperature (20 °C)"}}},
 		Atmospheres: []inventory.Atmosphere{atmTol, atmDust},
 		Stations:    []inventory.Station{st1, st2, st3},
 		Materials:   []inventory.Material{pet},

@@ -246,7 +246,7 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 			RelativeHumidityPct: finite(s.Site.RelativeHumidity.OrNaN()),
 			AirTemperatureK:     finite(s.Site.AirTemperature.OrNaN()),
 			RequiredMargin:      finite(s.Site.RequiredMargin.OrNaN()),
-			Defaults:            append([]string{}, s.Site.Defaults...),
+			Defaults:            s.Site.DefaultTexts(),
 		},
 		Counts: jsonCounts{
 			Objects:  verdictCounts(a.Counts),

@@ -6,6 +6,7 @@ import (
 	"reflect"
 	"strings"
 
+	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
@@ -358,7 +359,7 @@ func (wb *workbook) method() error {
 			return err
 		}
 	}
-	if err := put(wrapText("Required margin on MIE (Site sheet)"), leftAligned(est(inQ(UnitDimless, site.RequiredMargin), siteDefaulted(site.Defaults, "margin"))), text("–"), cell{}, wrapText("the site's choice; default 10")); err != nil {
+	if err := put(wrapText("Required margin on MIE (Site sheet)"), leftAligned(est(inQ(UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))), text("–"), cell{}, wrapText("the site's choice; default 10")); err != nil {
 		return err
 	}
 	r++
@@ -377,14 +378,14 @@ func (wb *workbook) method() error {
 	for _, d := range site.Defaults {
 		listed := false
 		for _, m := range a.MethodDefaults {
-			if containsFold(d, m.Field) {
+			if d.Item == m.Field {
 				listed = true
 			}
 		}
 		if listed {
 			continue
 		}
-		if err := put(wrapText("Site sheet: "+d), cell{}, cell{}, cell{}, text("not given on the Site sheet: default used")); err != nil {
+		if err := put(wrapText("Site sheet: "+d.Text), cell{}, cell{}, cell{}, text("not given on the Site sheet: default used")); err != nil {
 			return err
 		}
 		nd++

@@ -65,8 +65,8 @@ func (wb *workbook) summary() error {
 		{text("Survey date"), text(dateText(a))},
 		{text("Surveyed by"), optText(site.SurveyedBy)},
 		{text(UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
-		{text(UnitCelsius.Header("Air temperature")), est(inQ(UnitCelsius, site.AirTemperature), siteDefaulted(site.Defaults, "temperature"))},
-		{text(UnitDimless.Header("Required margin")), est(inQ(UnitDimless, site.RequiredMargin), siteDefaulted(site.Defaults, "margin"))},
+		{text(UnitCelsius.Header("Air temperature")), est(inQ(UnitCelsius, site.AirTemperature), site.Defaulted(inventory.SiteItemAirTemperature))},
+		{text(UnitDimless.Header("Required margin")), est(inQ(UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))},
 		{text("Survey file"), optText(wb.info.file(a))},
 		{text("Survey SHA-256"), optText(wb.info.sha(a))},
 		{text("Tool"), text(wb.info.tool() + " " + wb.info.ToolVersion)},
@@ -282,17 +282,6 @@ func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 	return math.Max(lo, 1e-4), hi
 }
 
-// siteDefaulted reports whether the site value was defaulted (Site.Defaults
-// lists the defaulted items in words).
-func siteDefaulted(defaults []string, word string) bool {
-	for _, d := range defaults {
-		if containsFold(d, word) {
-			return true
-		}
-	}
-	return false
-}
-
 // siteHumidityCell shows the site's relative humidity, or, when the Site sheet
 // gives none (an error that check reports), the value the assessment used for
 // stations without their own, marked as estimated.
@@ -300,5 +289,5 @@ func siteHumidityCell(site inventory.Site) cell {
 	if !site.RelativeHumidity.Known {
 		return est(quantity(UnitPercentRH, assess.DryDayHumidity), true)
 	}
-	return est(inQ(UnitPercentRH, site.RelativeHumidity), siteDefaulted(site.Defaults, "humidity"))
+	return est(inQ(UnitPercentRH, site.RelativeHumidity), false)
 }
