@@ -86,7 +86,7 @@ type Outputs struct {
 }
 
 // streamBatch is the number of objects assessed (and sampled in parallel) at a time.
-const streamBatch = 1024
+const streamBatch = assess.AssessBatch
 
 // AssessFile reads, assesses and writes one survey in one pass: objects
 // are read row by row (inventory.StreamFile), assessed in batches

@@ -28,38 +28,34 @@ const DryDayHumidity = 30.0
 // RH, else the site's; NaN for every quantity not given), calls model.Evaluate,
 // classifies the result with Classify and writes a Finding for each failed check,
 // the one-sentence Reason and every Default that fed the result. Stations are
-// then ranked (see Rank) and the findings ordered by severity, station rank and
-// object order.
+// then ranked (worst first, see compareStations) and the findings ordered by
+// severity, station rank, object order and check order.
 //
-// With opts.Samples > 0 it then propagates the uncertainty table by Monte Carlo
+// With opts.Samples > 0 it also propagates the uncertainty table by Monte Carlo
 // (see montecarlo.go): every object gets a Probability and every station its
 // ProbabilityAnyIncendive; the seed (DefaultSeed when 0) and the table used are
 // recorded in Audit.Options.
 //
 // opts.Limits are used as given; a zero Limits takes model.DefaultLimits with the
 // Site sheet's overrides (LimitsFromSite) merged, and Audit.Options records them.
+//
+// Assess is the Streamer with every result collected: there is one engine,
+// whether the objects are held in memory or stream through.
 func Assess(s *inventory.Survey, opts Options) *Audit {
-	a, ctx := prepare(s, opts)
-	margin := ctx.margin
-	a.Objects = make([]ObjectResult, len(s.Objects))
-	for i := range s.Objects {
-		a.Objects[i] = ctx.assess(&s.Objects[i])
-		a.Counts[a.Objects[i].Verdict]++
+	st := NewStreamer(s, opts)
+	objs := make([]ObjectResult, 0, len(s.Objects))
+	for i := 0; i < len(s.Objects); i += AssessBatch {
+		objs = append(objs, st.Add(s.Objects[i:min(i+AssessBatch, len(s.Objects))])...)
 	}
-	a.Stations = Rank(s, a.Objects)
-	if a.Options.Samples > 0 {
-		if a.Options.Seed == 0 {
-			a.Options.Seed = DefaultSeed
-		}
-		if a.Options.Uncertainties == nil {
-			a.Options.Uncertainties = UncertaintiesFromSite(s.Site, DefaultUncertainties())
-		}
-		monteCarlo(a, margin)
-	}
-	a.Findings = orderFindings(a.Objects, a.Stations)
-	a.MethodDefaults = methodDefaults(a.Objects)
+	a := st.Finish()
+	a.Objects = objs
 	return a
 }
+
+// AssessBatch is the number of objects assessed (and sampled in parallel) at a
+// time by Assess; the streaming pipeline uses the same size. Results do not
+// depend on it.
+const AssessBatch = 1024
 
 // prepare resolves the options (limits from the Site sheet when none are
 // given) and the site-wide values every object is assessed with; it returns
@@ -403,30 +399,6 @@ func dedupeDefaults(ds []Default) []Default {
 	}
 	if len(out) == 0 {
 		return nil
-	}
-	return out
-}
-
-// methodDefaults lists each default once across the objects: by Field and
-// Reason, with the value where every object had the same, else "per object".
-func methodDefaults(objs []ObjectResult) []Default {
-	var out []Default
-	for i := range objs {
-		for _, d := range objs[i].Defaults {
-			found := false
-			for j := range out {
-				if out[j].Field == d.Field && out[j].Reason == d.Reason {
-					if out[j].Value != d.Value {
-						out[j].Value = "per object (see Objects)"
-					}
-					found = true
-					break
-				}
-			}
-			if !found {
-				out = append(out, d)
-			}
-		}
 	}
 	return out
 }

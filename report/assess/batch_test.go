@@ -6,11 +6,13 @@ import (
 	"testing"
 )
 
-// TestStreamerMatchesAssess: assessing the demo survey batch by batch gives
-// the audit Assess gives (stations, ranks, findings in order, counts,
-// defaults, options, probabilities) and the same object results in order,
-// whatever the batch size and with or without sampling.
-func TestStreamerMatchesAssess(t *testing.T) {
+// TestResultsIndependentOfBatchAndWorkers: the audit of the demo survey
+// (stations, ranks, findings in order, counts, defaults, options,
+// probabilities, and the object results in order) does not depend on the
+// size of the batches the objects arrive in nor on the number of Monte Carlo
+// workers, with or without sampling (derived: every object's draws come from
+// its own stream, and the ranking and finding order use survey positions).
+func TestResultsIndependentOfBatchAndWorkers(t *testing.T) {
 	s := demoSurvey(t)
 	for _, samples := range []int{0, 200} {
 		want := Assess(s, Options{Samples: samples, Workers: 2})
