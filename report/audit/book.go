@@ -6,6 +6,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -13,46 +14,46 @@ import (
 // (the rerun workbooks) that want the audit's look: its fonts, verdict colours
 // and number formats. Make one with the constructors below.
 type Cell struct {
-	c    cell
+	c    book.Cell
 	kind int // 0 a table cell, 1 title, 2 section, 3 caution
 }
 
 // TextCell is a plain text cell; "" is an empty cell.
-func TextCell(s string) Cell { return Cell{c: optText(s)} }
+func TextCell(s string) Cell { return Cell{c: book.OptText(s)} }
 
 // WrapCell is a text cell that wraps in its column.
-func WrapCell(s string) Cell { return Cell{c: wrapText(s)} }
+func WrapCell(s string) Cell { return Cell{c: book.WrapText(s)} }
 
 // BoldWrapCell is a bold text cell that wraps in its column.
-func BoldWrapCell(s string) Cell { return Cell{c: cell{v: s, wrap: true, bold: true}} }
+func BoldWrapCell(s string) Cell { return Cell{c: book.Cell{V: s, Wrap: true, Bold: true}} }
 
 // CodeCell is a short code or label, centred; "" is an empty cell.
-func CodeCell(s string) Cell { return Cell{c: code(s)} }
+func CodeCell(s string) Cell { return Cell{c: book.Code(s)} }
 
 // CountCell is a whole number (a count or a rank), centred.
-func CountCell(n int) Cell { return Cell{c: integer(n)} }
+func CountCell(n int) Cell { return Cell{c: book.Integer(n)} }
 
 // VerdictCell is a verdict in the audit's verdict colours.
 func VerdictCell(v assess.Verdict) Cell { return Cell{c: verdictCell(v)} }
 
 // QuantityCell is an SI value shown in unit u, with u's number format; a value
 // that is not finite is an empty cell.
-func QuantityCell(u Unit, si float64) Cell { return Cell{c: quantity(u, si)} }
+func QuantityCell(u book.Unit, si float64) Cell { return Cell{c: book.Quantity(u, si)} }
 
 // RatioCell is a ratio E/MIE in the audit's format; nil is an empty cell.
-func RatioCell(r *float64) Cell { return Cell{c: ratioCell(finitePtr(r))} }
+func RatioCell(r *float64) Cell { return Cell{c: ratioCell(book.FinitePtr(r))} }
 
 // EmptyCell is an empty, unstyled cell.
 func EmptyCell() Cell { return Cell{} }
 
 // TitleCell is a sheet title (16 pt bold).
-func TitleCell(s string) Cell { return Cell{c: text(s), kind: 1} }
+func TitleCell(s string) Cell { return Cell{c: book.Text(s), kind: 1} }
 
 // SectionCell is a section heading (12 pt bold, ruled under).
-func SectionCell(s string) Cell { return Cell{c: text(s), kind: 2} }
+func SectionCell(s string) Cell { return Cell{c: book.Text(s), kind: 2} }
 
 // CautionCell is a caution: bold, wrapped, on the audit's caution fill.
-func CautionCell(s string) Cell { return Cell{c: wrapText(s), kind: 3} }
+func CautionCell(s string) Cell { return Cell{c: book.WrapText(s), kind: 3} }
 
 // MethodNotes is a titled list of (topic, text) rows that a workbook built on
 // the audit adds to its Method sheet, after the audit identity: how the run
@@ -75,7 +76,7 @@ type Book struct {
 // NewBook starts a Book on f for audit a. heading is the page-header text
 // before the sheet name ("" is the audit's "Electrostatic screening audit").
 func NewBook(f *excelize.File, a *assess.Audit, info RunInfo, heading string) *Book {
-	b := &Book{wb: &workbook{f: f, st: newStyles(f), a: a, info: info, heading: heading}}
+	b := &Book{wb: &workbook{f: f, st: book.NewStyles(f), a: a, info: info, heading: heading}}
 	if a == nil || a.Survey == nil {
 		b.err = errors.New("workbook: no audit or no survey")
 	}
@@ -87,8 +88,8 @@ func (b *Book) Err() error {
 	if b.err != nil {
 		return b.err
 	}
-	if b.wb.st.err != nil {
-		return b.wb.st.err
+	if b.wb.st.Err() != nil {
+		return b.wb.st.Err()
 	}
 	return nil
 }
@@ -121,24 +122,24 @@ func (b *Book) Put(sheet string, col, row int, c Cell) {
 		if err != nil {
 			return err
 		}
-		if c.c.v != nil {
-			if err := b.wb.f.SetCellValue(sheet, ref, c.c.v); err != nil {
+		if c.c.V != nil {
+			if err := b.wb.f.SetCellValue(sheet, ref, c.c.V); err != nil {
 				return fmt.Errorf("cell %s: %w", ref, err)
 			}
 		}
 		var id int
 		switch c.kind {
 		case 1:
-			id = b.wb.st.title()
+			id = b.wb.st.Title()
 		case 2:
-			id = b.wb.st.section()
+			id = b.wb.st.Section()
 		case 3:
-			id = b.wb.st.caution()
+			id = b.wb.st.Caution()
 		default:
-			if c.c.v == nil && c.c.numFmt == "" && !c.c.verdict {
+			if !c.c.Styled() {
 				return nil
 			}
-			id = b.wb.st.of(c.c)
+			id = b.wb.st.Of(c.c)
 		}
 		return b.wb.f.SetCellStyle(sheet, ref, ref, id)
 	})
@@ -154,18 +155,18 @@ func (b *Book) Table(sheet string, at int, headers []string, widths []float64, r
 			return err
 		}
 		f := b.wb.f
-		if err := setWidths(f, sheet, widths); err != nil {
+		if err := book.SetWidths(f, sheet, widths); err != nil {
 			return err
 		}
-		sink := normalSink{f: f, sheet: sheet, st: b.wb.st}
-		if err := sink.header(at, headers); err != nil {
+		sink := book.NormalSink{F: f, Sheet: sheet, St: b.wb.st}
+		if err := sink.Header(at, headers); err != nil {
 			return err
 		}
-		hdr := make([]cell, len(headers))
+		hdr := make([]book.Cell, len(headers))
 		for i, h := range headers {
-			hdr[i] = wrapText(h)
+			hdr[i] = book.WrapText(h)
 		}
-		height := rowHeight(widths, hdr)
+		height := book.RowHeight(widths, hdr)
 		if at == 1 {
 			height = 42
 		}
@@ -175,11 +176,11 @@ func (b *Book) Table(sheet string, at int, headers []string, widths []float64, r
 			}
 		}
 		for i, row := range rows {
-			cells := make([]cell, len(row))
+			cells := make([]book.Cell, len(row))
 			for j, c := range row {
 				cells[j] = c.c
 			}
-			if err := sink.row(at+1+i, cells, rowHeight(widths, cells)); err != nil {
+			if err := sink.Row(at+1+i, cells, book.RowHeight(widths, cells)); err != nil {
 				return err
 			}
 		}
@@ -189,7 +190,7 @@ func (b *Book) Table(sheet string, at int, headers []string, widths []float64, r
 		if err := f.SetPanes(sheet, &excelize.Panes{Freeze: true, YSplit: 1, TopLeftCell: "A2", ActivePane: "bottomLeft"}); err != nil {
 			return err
 		}
-		return f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(headers)), len(rows)+1), nil)
+		return f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", book.LastCol(len(headers)), len(rows)+1), nil)
 	})
 	return at + 1 + len(rows)
 }

@@ -10,6 +10,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -243,9 +244,9 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 		Site: jsonSite{
 			Name:                s.Site.Name,
 			SurveyedBy:          s.Site.SurveyedBy,
-			RelativeHumidityPct: finite(s.Site.RelativeHumidity.OrNaN()),
-			AirTemperatureK:     finite(s.Site.AirTemperature.OrNaN()),
-			RequiredMargin:      finite(s.Site.RequiredMargin.OrNaN()),
+			RelativeHumidityPct: book.Finite(s.Site.RelativeHumidity.OrNaN()),
+			AirTemperatureK:     book.Finite(s.Site.AirTemperature.OrNaN()),
+			RequiredMargin:      book.Finite(s.Site.RequiredMargin.OrNaN()),
 			Defaults:            s.Site.DefaultTexts(),
 		},
 		Counts: jsonCounts{
@@ -279,13 +280,13 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 		st := &a.Stations[i]
 		js := jsonStation{
 			ID: st.Station.ID, Name: st.Station.Name, Line: st.Station.Line,
-			Rank: st.Rank, Verdict: st.Verdict.String(), WorstRatio: finitePtr(st.WorstRatio),
+			Rank: st.Rank, Verdict: st.Verdict.String(), WorstRatio: book.FinitePtr(st.WorstRatio),
 			Objects: append([]string{}, st.Objects...), Counts: verdictCounts(st.Counts),
-			ProbabilityAnyIncendive: finitePtr(st.ProbabilityAnyIncendive),
+			ProbabilityAnyIncendive: book.FinitePtr(st.ProbabilityAnyIncendive),
 		}
 		if at := st.Atmosphere; at != nil {
 			js.Atmosphere = strPtr(at.ID)
-			js.MIEJ = finite(at.MIE.OrNaN())
+			js.MIEJ = book.Finite(at.MIE.OrNaN())
 			if at.Zone != "" {
 				js.Zone = strPtr(at.Zone)
 			}
@@ -310,27 +311,27 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 	jo := jsonObject{
 		ID: o.Object.ID, Station: o.Object.Station, Kind: o.Object.Kind,
 		Verdict: o.Verdict.String(), Reason: o.Reason,
-		Ratio:                  finitePtr(o.Ratio),
-		PotentialV:             finite(e.Potential),
-		CapacitanceF:           finite(e.Capacitance),
+		Ratio:                  book.FinitePtr(o.Ratio),
+		PotentialV:             book.Finite(e.Potential),
+		CapacitanceF:           book.Finite(e.Capacitance),
 		CapacitanceMeasured:    o.Object.Capacitance.Known,
-		ChargeDensityCPerM2:    finite(e.ChargeDensity),
-		SurfaceFieldVPerM:      finite(e.SurfaceField),
-		ChargingCurrentA:       finite(e.ChargingCurrent),
-		StoredEnergyJ:          finite(e.StoredEnergy),
-		TransferredChargeC:     finite(e.TransferredCharge),
-		InsulatingAreaM2:       finite(e.InsulatingArea),
-		SurfaceResistivityOhm:  finite(e.SurfaceResistivity),
-		DecayTimeS:             finite(e.DecayTime),
-		TimeTo100VS:            finite(e.TimeTo100V),
-		RelaxationTimeS:        finite(e.RelaxationTime),
-		StreamingCurrentA:      finite(e.StreamingCurrent),
-		VelocityDiameterM2PerS: finite(e.VelocityDiameter),
-		AirFieldVPerM:          finite(e.AirField),
-		LayerFieldVPerM:        finite(e.LayerField),
-		LayerVoltageV:          finite(e.LayerVoltage),
-		LayerBreakdownV:        finite(e.LayerBreakdown),
-		ChargingDensityAPerM2:  finite(e.ChargingDensity),
+		ChargeDensityCPerM2:    book.Finite(e.ChargeDensity),
+		SurfaceFieldVPerM:      book.Finite(e.SurfaceField),
+		ChargingCurrentA:       book.Finite(e.ChargingCurrent),
+		StoredEnergyJ:          book.Finite(e.StoredEnergy),
+		TransferredChargeC:     book.Finite(e.TransferredCharge),
+		InsulatingAreaM2:       book.Finite(e.InsulatingArea),
+		SurfaceResistivityOhm:  book.Finite(e.SurfaceResistivity),
+		DecayTimeS:             book.Finite(e.DecayTime),
+		TimeTo100VS:            book.Finite(e.TimeTo100V),
+		RelaxationTimeS:        book.Finite(e.RelaxationTime),
+		StreamingCurrentA:      book.Finite(e.StreamingCurrent),
+		VelocityDiameterM2PerS: book.Finite(e.VelocityDiameter),
+		AirFieldVPerM:          book.Finite(e.AirField),
+		LayerFieldVPerM:        book.Finite(e.LayerField),
+		LayerVoltageV:          book.Finite(e.LayerVoltage),
+		LayerBreakdownV:        book.Finite(e.LayerBreakdown),
+		ChargingDensityAPerM2:  book.Finite(e.ChargingDensity),
 		IsolatedConductor:      e.IsolatedConductor,
 		Discharges:             []jsonDischarge{},
 		Findings:               []jsonFinding{},
@@ -347,12 +348,12 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		}
 	}
 	if e.Kind == model.Liquid {
-		jo.VDLimitM2PerS, jo.VelocityLimitMPerS = finite(e.VDLimit), finite(e.VelocityLimit)
-		jo.ChargeFactor, jo.FilterResidenceS = finite(e.ChargeFactor), finite(e.FilterResidence)
+		jo.VDLimitM2PerS, jo.VelocityLimitMPerS = book.Finite(e.VDLimit), book.Finite(e.VelocityLimit)
+		jo.ChargeFactor, jo.FilterResidenceS = book.Finite(e.ChargeFactor), book.Finite(e.FilterResidence)
 		jo.FillingClausesNotMet = e.LiquidBreaches.Texts()
 	}
 	if e.NotAssessed == 0 {
-		jo.EnergyJ = finite(e.EffectiveEnergy)
+		jo.EnergyJ = book.Finite(e.EffectiveEnergy)
 		if jo.EnergyJ != nil && *jo.EnergyJ > 0 {
 			jo.EffectiveDischarge = strPtr(e.Effective.String())
 		}
@@ -364,7 +365,7 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		// The array index is the type (fixed order of model.Evaluation.Discharges).
 		jo.Discharges = append(jo.Discharges, jsonDischarge{
 			Type: model.DischargeType(i).String(), Possible: d.Possible,
-			EnergyJ: finite(d.Energy), ChargeC: finite(d.Charge), Reason: dischargeReason(d),
+			EnergyJ: book.Finite(d.Energy), ChargeC: book.Finite(d.Charge), Reason: dischargeReason(d),
 		})
 	}
 	for _, f := range o.Findings {
@@ -375,9 +376,9 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 	}
 	if p := o.Probability; p != nil {
 		jo.Probability = &jsonProbability{p.Incendive, p.Marginal, p.NonIncendive, p.NotAssessed}
-		jo.EnergyJP05 = finite(p.EnergyP05)
-		jo.EnergyJP50 = finite(p.EnergyP50)
-		jo.EnergyJP95 = finite(p.EnergyP95)
+		jo.EnergyJP05 = book.Finite(p.EnergyP05)
+		jo.EnergyJP50 = book.Finite(p.EnergyP50)
+		jo.EnergyJP95 = book.Finite(p.EnergyP95)
 	}
 	return jo
 }

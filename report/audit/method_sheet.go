@@ -9,6 +9,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -21,7 +22,7 @@ type limitRow struct {
 	name       string
 	value      float64 // SI, as applied
 	def        float64 // SI, the model's default
-	unit       Unit
+	unit       book.Unit
 	source     string
 	fromMemory bool
 }
@@ -76,44 +77,44 @@ func limitField(rv reflect.Value, name string) (float64, bool) {
 }
 
 // siDisplayUnit maps the SI unit of a citation to the audit's display unit.
-func siDisplayUnit(si string) Unit {
+func siDisplayUnit(si string) book.Unit {
 	switch si {
 	case "C/m^2":
-		return UnitUCPerM2
+		return book.UnitUCPerM2
 	case "J":
-		return UnitMJ
+		return book.UnitMJ
 	case "m^2":
-		return UnitCM2
+		return book.UnitCM2
 	case "C":
-		return UnitNC
+		return book.UnitNC
 	case "V":
-		return UnitVolt
+		return book.UnitVolt
 	case "V/m":
-		return UnitKVPerM
+		return book.UnitKVPerM
 	case "ohm":
-		return UnitOhm
+		return book.UnitOhm
 	case "ohm m":
-		return UnitOhmM
+		return book.UnitOhmM
 	case "F":
-		return UnitPF
+		return book.UnitPF
 	case "S/m":
-		return UnitPSPerM
+		return book.UnitPSPerM
 	case "m^2/s":
-		return UnitM2PerS
+		return book.UnitM2PerS
 	case "m/s":
-		return UnitMPerS
+		return book.UnitMPerS
 	case "A":
-		return UnitUA
+		return book.UnitUA
 	case "m":
-		return UnitMillimetre
+		return book.UnitMillimetre
 	case "C/kg":
-		return UnitUCPerKg
+		return book.UnitUCPerKg
 	case "m^3":
-		return UnitCubicMetre
+		return book.UnitCubicMetre
 	case "s":
-		return UnitSecond
+		return book.UnitSecond
 	}
-	return UnitDimless
+	return book.UnitDimless
 }
 
 // limitLabel names a limit in words; an unknown field keeps its name.
@@ -192,11 +193,11 @@ func limitLabel(name string) string {
 
 // limitValue returns the display cell of a limit: empty when the limit is not
 // set (zero or NaN), since 0 would read as a limit of zero.
-func limitValue(r limitRow) cell {
+func limitValue(r limitRow) book.Cell {
 	if r.value == 0 || math.IsNaN(r.value) {
-		return cell{numFmt: r.unit.NumFmt()}
+		return book.Cell{NumFmt: r.unit.NumFmt()}
 	}
-	return quantity(r.unit, r.value)
+	return book.Quantity(r.unit, r.value)
 }
 
 // method writes the Method sheet: identity of the run, formulas with their
@@ -204,30 +205,30 @@ func limitValue(r limitRow) cell {
 func (wb *workbook) method() error {
 	f, s, a := wb.f, SheetMethod, wb.a
 	widths := []float64{36, 56, 30, 18, 50}
-	if err := setWidths(f, s, widths); err != nil {
+	if err := book.SetWidths(f, s, widths); err != nil {
 		return err
 	}
-	sink := normalSink{f: f, sheet: s, st: wb.st}
+	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
 	r := 1
 	section := func(title string, hdr []string) error {
 		ref := fmt.Sprintf("A%d", r)
 		if err := f.SetCellValue(s, ref, title); err != nil {
 			return err
 		}
-		if err := f.SetCellStyle(s, ref, fmt.Sprintf("E%d", r), wb.st.section()); err != nil {
+		if err := f.SetCellStyle(s, ref, fmt.Sprintf("E%d", r), wb.st.Section()); err != nil {
 			return err
 		}
 		r++
 		if hdr != nil {
-			if err := sink.header(r, hdr); err != nil {
+			if err := sink.Header(r, hdr); err != nil {
 				return err
 			}
 			r++
 		}
 		return nil
 	}
-	put := func(cells ...cell) error {
-		if err := sink.row(r, cells, rowHeight(widths, cells)); err != nil {
+	put := func(cells ...book.Cell) error {
+		if err := sink.Row(r, cells, book.RowHeight(widths, cells)); err != nil {
 			return err
 		}
 		r++
@@ -247,12 +248,12 @@ func (wb *workbook) method() error {
 		{"Survey date", dateText(a)},
 		{"Surveyed by", site.SurveyedBy},
 	} {
-		if err := put(boldText(kv[0]), optText(kv[1])); err != nil {
+		if err := put(book.BoldText(kv[0]), book.OptText(kv[1])); err != nil {
 			return err
 		}
 	}
 	if a.Options.Samples > 0 {
-		if err := put(boldText("Uncertainty"), text(fmt.Sprintf("Monte Carlo, %d samples per object, seed %d", a.Options.Samples, a.Options.Seed))); err != nil {
+		if err := put(book.BoldText("Uncertainty"), book.Text(fmt.Sprintf("Monte Carlo, %d samples per object, seed %d", a.Options.Samples, a.Options.Seed))); err != nil {
 			return err
 		}
 	}
@@ -262,7 +263,7 @@ func (wb *workbook) method() error {
 		return err
 	}
 	for _, p := range templates.Principles() {
-		if err := put(cell{v: p.Title, wrap: true, bold: true}, wrapText(p.Text)); err != nil {
+		if err := put(book.Cell{V: p.Title, Wrap: true, Bold: true}, book.WrapText(p.Text)); err != nil {
 			return err
 		}
 	}
@@ -273,7 +274,7 @@ func (wb *workbook) method() error {
 			return err
 		}
 		for _, kv := range n.Notes {
-			if err := put(cell{v: kv[0], wrap: true, bold: true}, wrapText(kv[1])); err != nil {
+			if err := put(book.Cell{V: kv[0], Wrap: true, Bold: true}, book.WrapText(kv[1])); err != nil {
 				return err
 			}
 		}
@@ -284,7 +285,7 @@ func (wb *workbook) method() error {
 		return err
 	}
 	for _, m := range templates.MethodNotes() {
-		if err := put(wrapText(m.Quantity), wrapText(m.Formula), wrapText(m.AppliesTo), cell{}, wrapText(m.Source)); err != nil {
+		if err := put(book.WrapText(m.Quantity), book.WrapText(m.Formula), book.WrapText(m.AppliesTo), book.Cell{}, book.WrapText(m.Source)); err != nil {
 			return err
 		}
 	}
@@ -303,7 +304,7 @@ func (wb *workbook) method() error {
 		if lr.FromMemory {
 			mark = "from memory, not confirmed"
 		}
-		if err := put(wrapText(strings.Join(lr.Clause.Texts(), "")), wrapText(lr.Rule), text(vessel), text(mark), wrapText(lr.Ref)); err != nil {
+		if err := put(book.WrapText(strings.Join(lr.Clause.Texts(), "")), book.WrapText(lr.Rule), book.Text(vessel), book.Text(mark), book.WrapText(lr.Ref)); err != nil {
 			return err
 		}
 	}
@@ -331,7 +332,7 @@ func (wb *workbook) method() error {
 		{"Corona onset, smooth cylinder r = 1 mm", 5860, "kV/m", "0", "Peek 1929: 30 δ m (1 + 0.301/√(δ r)) kV/cm, 58.6 kV/cm"},
 	}
 	for _, c := range consts {
-		if err := put(text(c.name), cell{v: c.v, numFmt: c.fmt, align: "left"}, text(c.unit), cell{}, wrapText(c.src)); err != nil {
+		if err := put(book.Text(c.name), book.Cell{V: c.v, NumFmt: c.fmt, Align: "left"}, book.Text(c.unit), book.Cell{}, book.WrapText(c.src)); err != nil {
 			return err
 		}
 	}
@@ -349,17 +350,17 @@ func (wb *workbook) method() error {
 		if l.fromMemory {
 			src += " (from memory, not confirmed)"
 		}
-		over := cell{}
+		over := book.Cell{}
 		if l.value != l.def && !(math.IsNaN(l.value) && math.IsNaN(l.def)) {
-			over = wrapText("yes; default " + l.unit.Text(l.def))
+			over = book.WrapText("yes; default " + l.unit.Text(l.def))
 		}
 		v := limitValue(l)
-		v.align = "left"
-		if err := put(wrapText(l.name), v, text(unit), over, wrapText(src)); err != nil {
+		v.Align = "left"
+		if err := put(book.WrapText(l.name), v, book.Text(unit), over, book.WrapText(src)); err != nil {
 			return err
 		}
 	}
-	if err := put(wrapText("Required margin on MIE (Site sheet)"), leftAligned(est(inQ(UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))), text("–"), cell{}, wrapText("the site's choice; default 10")); err != nil {
+	if err := put(book.WrapText("Required margin on MIE (Site sheet)"), leftAligned(est(inQ(book.UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))), book.Text("–"), book.Cell{}, book.WrapText("the site's choice; default 10")); err != nil {
 		return err
 	}
 	r++
@@ -369,7 +370,7 @@ func (wb *workbook) method() error {
 	}
 	nd := 0
 	for _, d := range a.MethodDefaults {
-		if err := put(wrapText(d.Field), wrapText(d.Value), cell{}, cell{}, wrapText(d.Reason)); err != nil {
+		if err := put(book.WrapText(d.Field), book.WrapText(d.Value), book.Cell{}, book.Cell{}, book.WrapText(d.Reason)); err != nil {
 			return err
 		}
 		nd++
@@ -385,13 +386,13 @@ func (wb *workbook) method() error {
 		if listed {
 			continue
 		}
-		if err := put(wrapText("Site sheet: "+d.Text), cell{}, cell{}, cell{}, text("not given on the Site sheet: default used")); err != nil {
+		if err := put(book.WrapText("Site sheet: "+d.Text), book.Cell{}, book.Cell{}, book.Cell{}, book.Text("not given on the Site sheet: default used")); err != nil {
 			return err
 		}
 		nd++
 	}
 	if nd == 0 {
-		if err := put(text("none: every value was measured or given")); err != nil {
+		if err := put(book.Text("none: every value was measured or given")); err != nil {
 			return err
 		}
 	}
@@ -404,7 +405,7 @@ func (wb *workbook) method() error {
 		r++
 	}
 
-	if err := section("Materials used", []string{"Material", "Class", UnitOhmSq.Header("Surface resistivity at 50 % RH"), "Slope [dec/10 %RH]", "Source"}); err != nil {
+	if err := section("Materials used", []string{"Material", "Class", book.UnitOhmSq.Header("Surface resistivity at 50 % RH"), "Slope [dec/10 %RH]", "Source"}); err != nil {
 		return err
 	}
 	used := map[string]bool{}
@@ -421,22 +422,22 @@ func (wb *workbook) method() error {
 		if !m.BuiltIn {
 			src = fmt.Sprintf("survey Materials sheet, row %d: %s", m.Row, m.Source)
 		}
-		if err := put(text(m.Name), text(m.Class), quantity(UnitOhmSq, m.SurfaceResistivity), quantity(UnitDimless, m.HumiditySlope), wrapText(src)); err != nil {
+		if err := put(book.Text(m.Name), book.Text(m.Class), book.Quantity(book.UnitOhmSq, m.SurfaceResistivity), book.Quantity(book.UnitDimless, m.HumiditySlope), book.WrapText(src)); err != nil {
 			return err
 		}
 	}
 	return wb.printSetup(s, 1, "", "")
 }
 
-func leftAligned(c cell) cell {
-	c.align = "left"
+func leftAligned(c book.Cell) book.Cell {
+	c.Align = "left"
 	return c
 }
 
 // methodUncertainty lists the uncertainty table the Monte Carlo drew from
 // (Audit.Options.Uncertainties; the defaults when the audit recorded none),
 // how a cell's own "±x %" is taken, and how the draws were made.
-func (wb *workbook) methodUncertainty(section func(string, []string) error, put func(...cell) error) error {
+func (wb *workbook) methodUncertainty(section func(string, []string) error, put func(...book.Cell) error) error {
 	a := wb.a
 	if err := section("Uncertainty (Monte Carlo)", []string{"Input", "Uncertainty (one standard deviation)", "Distribution", "Site item", "Why"}); err != nil {
 		return err
@@ -453,16 +454,16 @@ func (wb *workbook) methodUncertainty(section func(string, []string) error, put 
 		case u.Overridden:
 			v += " (Site sheet)"
 		}
-		if err := put(wrapText(u.Name), wrapText(v), text(u.Dist.String()), wrapText(u.SiteItem()), wrapText(u.Note)); err != nil {
+		if err := put(book.WrapText(u.Name), book.WrapText(v), book.Text(u.Dist.String()), book.WrapText(u.SiteItem()), book.WrapText(u.Note)); err != nil {
 			return err
 		}
 	}
-	if err := put(wrapText("A cell's own uncertainty"), wrapText("\"12 kV ±10%\" wins over the table"), text("relative"), cell{},
-		wrapText("a relative standard uncertainty; a log-normal row takes it as a factor 1 + x")); err != nil {
+	if err := put(book.WrapText("A cell's own uncertainty"), book.WrapText("\"12 kV ±10%\" wins over the table"), book.Text("relative"), book.Cell{},
+		book.WrapText("a relative standard uncertainty; a log-normal row takes it as a factor 1 + x")); err != nil {
 		return err
 	}
-	return put(wrapText("Draws"), wrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), cell{}, cell{},
-		wrapText("each object its own stream (seed and object ID): results depend neither on the number of workers nor on the row order; "+
+	return put(book.WrapText("Draws"), book.WrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), book.Cell{}, book.Cell{},
+		book.WrapText("each object its own stream (seed and object ID): results depend neither on the number of workers nor on the row order; "+
 			"inputs drawn independently, materials and limits not drawn; a station's P(any incendive) is 1 - Π(1 - P(incendive)) over its objects, "+
 			"taken as independent (an upper bound, since they share the MIE and humidity)"))
 }

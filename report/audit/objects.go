@@ -8,6 +8,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 )
 
 // enumText returns the text of a model enum or bit set: its String method when
@@ -94,7 +95,7 @@ func possibleDischarges(e *model.Evaluation) string {
 		}
 		s := model.DischargeType(i).String()
 		if !math.IsNaN(d.Energy) && !math.IsInf(d.Energy, 0) {
-			s += " " + UnitMJ.Text(d.Energy)
+			s += " " + book.UnitMJ.Text(d.Energy)
 		}
 		parts = append(parts, s)
 	}
@@ -102,16 +103,16 @@ func possibleDischarges(e *model.Evaluation) string {
 }
 
 // inQ returns the cell of a surveyed input quantity: empty when not measured.
-func inQ(u Unit, q inventory.Quantity) cell {
+func inQ(u book.Unit, q inventory.Quantity) book.Cell {
 	if !q.Known {
-		return cell{numFmt: u.NumFmt()}
+		return book.Cell{NumFmt: u.NumFmt()}
 	}
-	return quantity(u, q.Value)
+	return book.Quantity(u, q.Value)
 }
 
 // est marks a cell as fed by an assumed default.
-func est(c cell, assumed bool) cell {
-	c.est = assumed && c.v != nil
+func est(c book.Cell, assumed bool) book.Cell {
+	c.Est = assumed && c.V != nil
 	return c
 }
 
@@ -142,11 +143,11 @@ func atmosphereMIE(a *inventory.Atmosphere) float64 {
 	return a.MIE.OrNaN()
 }
 
-func ratioCell(r *float64) cell {
+func ratioCell(r *float64) book.Cell {
 	if r == nil {
-		return cell{numFmt: UnitRatio.NumFmt()}
+		return book.Cell{NumFmt: book.UnitRatio.NumFmt()}
 	}
-	return quantity(UnitRatio, *r)
+	return book.Quantity(book.UnitRatio, *r)
 }
 
 type objRow = *assess.ObjectResult
@@ -154,34 +155,34 @@ type objRow = *assess.ObjectResult
 // objectColumns returns the columns of the Objects sheet: identity and verdict
 // first, then every surveyed input, the environment and every computed
 // quantity; the probability columns when the assessment sampled.
-func objectColumns(withProbability bool) []column[objRow] {
-	ev := func(f func(e *model.Evaluation) float64, u Unit) func(objRow) cell {
-		return func(o objRow) cell { return quantity(u, f(&o.Eval)) }
+func objectColumns(withProbability bool) []book.Column[objRow] {
+	ev := func(f func(e *model.Evaluation) float64, u book.Unit) func(objRow) book.Cell {
+		return func(o objRow) book.Cell { return book.Quantity(u, f(&o.Eval)) }
 	}
 	// liq is ev for the liquid-only results: blank on other rows.
-	liq := func(f func(e *model.Evaluation) float64, u Unit) func(objRow) cell {
-		return func(o objRow) cell {
+	liq := func(f func(e *model.Evaluation) float64, u book.Unit) func(objRow) book.Cell {
+		return func(o objRow) book.Cell {
 			if o.Eval.Kind != model.Liquid {
-				return cell{numFmt: u.NumFmt()}
+				return book.Cell{NumFmt: u.NumFmt()}
 			}
-			return quantity(u, f(&o.Eval))
+			return book.Quantity(u, f(&o.Eval))
 		}
 	}
-	cols := []column[objRow]{
-		{"Object", 12, func(o objRow) cell { return text(o.Object.ID) }},
-		{"Station", 10, func(o objRow) cell { return text(o.Object.Station) }},
-		{"Kind", 10, func(o objRow) cell { return text(o.Object.Kind) }},
-		{"Description", 26, func(o objRow) cell { return wrapText(o.Object.Description) }},
-		{"Verdict", 14, func(o objRow) cell { return verdictCell(o.Verdict) }},
-		{UnitRatio.Header("Ratio E/MIE"), 10, func(o objRow) cell { return ratioCell(o.Ratio) }},
-		{UnitMJ.Header("Effective energy"), 11, func(o objRow) cell {
+	cols := []book.Column[objRow]{
+		{Header: "Object", Width: 12, Value: func(o objRow) book.Cell { return book.Text(o.Object.ID) }},
+		{Header: "Station", Width: 10, Value: func(o objRow) book.Cell { return book.Text(o.Object.Station) }},
+		{Header: "Kind", Width: 10, Value: func(o objRow) book.Cell { return book.Text(o.Object.Kind) }},
+		{Header: "Description", Width: 26, Value: func(o objRow) book.Cell { return book.WrapText(o.Object.Description) }},
+		{Header: "Verdict", Width: 14, Value: func(o objRow) book.Cell { return verdictCell(o.Verdict) }},
+		{Header: book.UnitRatio.Header("Ratio E/MIE"), Width: 10, Value: func(o objRow) book.Cell { return ratioCell(o.Ratio) }},
+		{Header: book.UnitMJ.Header("Effective energy"), Width: 11, Value: func(o objRow) book.Cell {
 			if o.Eval.NotAssessed != 0 {
-				return cell{numFmt: UnitMJ.NumFmt()}
+				return book.Cell{NumFmt: book.UnitMJ.NumFmt()}
 			}
 			if assess.AssumedResistanceDominates(&o.Eval, o.Eval.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
-				return wrapText(EnergyAtLeastMIE)
+				return book.WrapText(EnergyAtLeastMIE)
 			}
-			c := quantity(UnitMJ, o.Eval.EffectiveEnergy)
+			c := book.Quantity(book.UnitMJ, o.Eval.EffectiveEnergy)
 			switch {
 			case o.Eval.EffectiveEnergy <= 0:
 			case o.Eval.Effective == model.Brush:
@@ -193,189 +194,189 @@ func objectColumns(withProbability bool) []column[objRow] {
 			}
 			return c
 		}},
-		{"Effective discharge", 12, func(o objRow) cell {
+		{Header: "Effective discharge", Width: 12, Value: func(o objRow) book.Cell {
 			if o.Eval.NotAssessed != 0 || o.Eval.EffectiveEnergy == 0 || math.IsNaN(o.Eval.EffectiveEnergy) {
-				return cell{}
+				return book.Cell{}
 			}
-			return text(o.Eval.Effective.String())
+			return book.Text(o.Eval.Effective.String())
 		}},
-		{"Reason", 48, func(o objRow) cell { return wrapText(o.Reason) }},
-		{"Findings [count]", 9, func(o objRow) cell { return integer(len(o.Findings)) }},
-		{"Defaults applied (values marked est.; reasons on Method)", 48, func(o objRow) cell { return wrapText(defaultsText(o.Defaults)) }},
+		{Header: "Reason", Width: 48, Value: func(o objRow) book.Cell { return book.WrapText(o.Reason) }},
+		{Header: "Findings [count]", Width: 9, Value: func(o objRow) book.Cell { return book.Integer(len(o.Findings)) }},
+		{Header: "Defaults applied (values marked est.; reasons on Method)", Width: 48, Value: func(o objRow) book.Cell { return book.WrapText(defaultsText(o.Defaults)) }},
 
 		// Surveyed inputs.
-		{"Material", 14, func(o objRow) cell { return optText(o.Object.Material) }},
-		{UnitMetre.Header("Length"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.Length) }},
-		{UnitMetre.Header("Width"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.Width) }},
-		{UnitMetre.Header("Diameter"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.Diameter) }},
-		{UnitMillimetre.Header("Thickness"), 9, func(o objRow) cell { return inQ(UnitMillimetre, o.Object.Thickness) }},
-		{"Backing", 9, func(o objRow) cell { return optText(o.Object.Backing) }},
-		{UnitMetre.Header("Distance to earth"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.DistanceToEarth) }},
-		{UnitKVPerM.Header("Field reading"), 10, func(o objRow) cell { return inQ(UnitKVPerM, o.Object.Field) }},
-		{UnitMetre.Header("Reading distance"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.FieldDistance) }},
-		{UnitKV.Header("Surface potential reading"), 10, func(o objRow) cell { return inQ(UnitKV, o.Object.SurfacePotential) }},
-		{UnitMPerS.Header("Speed"), 9, func(o objRow) cell { return inQ(UnitMPerS, o.Object.Speed) }},
-		{UnitKgPerS.Header("Mass flow"), 9, func(o objRow) cell { return inQ(UnitKgPerS, o.Object.MassFlow) }},
-		{UnitUCPerKg.Header("Charge-to-mass"), 10, func(o objRow) cell { return inQ(UnitUCPerKg, o.Object.ChargeToMass) }},
-		{UnitUA.Header("Charging current given"), 10, func(o objRow) cell { return inQ(UnitUA, o.Object.ChargingCurrent) }},
-		{UnitSecond.Header("Charging time"), 9, func(o objRow) cell { return inQ(UnitSecond, o.Object.ChargingTime) }},
-		{UnitMillimetre.Header("Particle size"), 9, func(o objRow) cell { return inQ(UnitMillimetre, o.Object.ParticleSize) }},
-		{UnitOhm.Header("Resistance to earth"), 11, func(o objRow) cell { return inQ(UnitOhm, o.Object.Resistance) }},
-		{UnitPF.Header("Capacitance given"), 10, func(o objRow) cell { return inQ(UnitPF, o.Object.Capacitance) }},
-		{UnitPSPerM.Header("Conductivity"), 10, func(o objRow) cell { return inQ(UnitPSPerM, o.Object.Conductivity) }},
-		{UnitDimless.Header("Liquid permittivity"), 9, func(o objRow) cell { return inQ(UnitDimless, o.Object.Permittivity) }},
-		{"Bag type", 7, func(o objRow) cell { return code(o.Object.BagType) }},
-		{"Filling", 9, func(o objRow) cell { return optText(o.Object.Filling) }},
-		{"Vessel material", 10, func(o objRow) cell { return optText(o.Object.VesselMaterial) }},
-		{"Vessel class", 10, func(o objRow) cell { return optText(o.Object.VesselClass) }},
-		{UnitMetre.Header("Vessel diameter"), 9, func(o objRow) cell { return inQ(UnitMetre, o.Object.VesselDiameter) }},
-		{"Filter", 8, func(o objRow) cell { return optText(o.Object.Filter) }},
-		{UnitSecond.Header("Residence time"), 9, func(o objRow) cell { return inQ(UnitSecond, o.Object.Residence) }},
-		{"Second phase", 10, func(o objRow) cell { return optText(o.Object.SecondPhase) }},
-		{UnitMPerS.Header("Inlet velocity"), 9, func(o objRow) cell { return inQ(UnitMPerS, o.Object.InletVelocity) }},
-		{"Survey notes", 24, func(o objRow) cell { return wrapText(o.Object.Notes) }},
+		{Header: "Material", Width: 14, Value: func(o objRow) book.Cell { return book.OptText(o.Object.Material) }},
+		{Header: book.UnitMetre.Header("Length"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.Length) }},
+		{Header: book.UnitMetre.Header("Width"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.Width) }},
+		{Header: book.UnitMetre.Header("Diameter"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.Diameter) }},
+		{Header: book.UnitMillimetre.Header("Thickness"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMillimetre, o.Object.Thickness) }},
+		{Header: "Backing", Width: 9, Value: func(o objRow) book.Cell { return book.OptText(o.Object.Backing) }},
+		{Header: book.UnitMetre.Header("Distance to earth"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.DistanceToEarth) }},
+		{Header: book.UnitKVPerM.Header("Field reading"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitKVPerM, o.Object.Field) }},
+		{Header: book.UnitMetre.Header("Reading distance"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.FieldDistance) }},
+		{Header: book.UnitKV.Header("Surface potential reading"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitKV, o.Object.SurfacePotential) }},
+		{Header: book.UnitMPerS.Header("Speed"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMPerS, o.Object.Speed) }},
+		{Header: book.UnitKgPerS.Header("Mass flow"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitKgPerS, o.Object.MassFlow) }},
+		{Header: book.UnitUCPerKg.Header("Charge-to-mass"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitUCPerKg, o.Object.ChargeToMass) }},
+		{Header: book.UnitUA.Header("Charging current given"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitUA, o.Object.ChargingCurrent) }},
+		{Header: book.UnitSecond.Header("Charging time"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitSecond, o.Object.ChargingTime) }},
+		{Header: book.UnitMillimetre.Header("Particle size"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMillimetre, o.Object.ParticleSize) }},
+		{Header: book.UnitOhm.Header("Resistance to earth"), Width: 11, Value: func(o objRow) book.Cell { return inQ(book.UnitOhm, o.Object.Resistance) }},
+		{Header: book.UnitPF.Header("Capacitance given"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitPF, o.Object.Capacitance) }},
+		{Header: book.UnitPSPerM.Header("Conductivity"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitPSPerM, o.Object.Conductivity) }},
+		{Header: book.UnitDimless.Header("Liquid permittivity"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitDimless, o.Object.Permittivity) }},
+		{Header: "Bag type", Width: 7, Value: func(o objRow) book.Cell { return book.Code(o.Object.BagType) }},
+		{Header: "Filling", Width: 9, Value: func(o objRow) book.Cell { return book.OptText(o.Object.Filling) }},
+		{Header: "Vessel material", Width: 10, Value: func(o objRow) book.Cell { return book.OptText(o.Object.VesselMaterial) }},
+		{Header: "Vessel class", Width: 10, Value: func(o objRow) book.Cell { return book.OptText(o.Object.VesselClass) }},
+		{Header: book.UnitMetre.Header("Vessel diameter"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.VesselDiameter) }},
+		{Header: "Filter", Width: 8, Value: func(o objRow) book.Cell { return book.OptText(o.Object.Filter) }},
+		{Header: book.UnitSecond.Header("Residence time"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitSecond, o.Object.Residence) }},
+		{Header: "Second phase", Width: 10, Value: func(o objRow) book.Cell { return book.OptText(o.Object.SecondPhase) }},
+		{Header: book.UnitMPerS.Header("Inlet velocity"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMPerS, o.Object.InletVelocity) }},
+		{Header: "Survey notes", Width: 24, Value: func(o objRow) book.Cell { return book.WrapText(o.Object.Notes) }},
 
 		// Environment.
-		{UnitPercentRH.Header("RH used"), 8, func(o objRow) cell {
-			return est(quantity(UnitPercentRH, o.Environment.RelativeHumidity), hasDefault(o, "relative humidity", "rh"))
+		{Header: book.UnitPercentRH.Header("RH used"), Width: 8, Value: func(o objRow) book.Cell {
+			return est(book.Quantity(book.UnitPercentRH, o.Environment.RelativeHumidity), hasDefault(o, "relative humidity", "rh"))
 		}},
-		{"Atmosphere", 18, func(o objRow) cell { return wrapText(atmosphereText(o.Atmosphere)) }},
-		{UnitMJ.Header("MIE"), 9, func(o objRow) cell {
-			c := quantity(UnitMJ, atmosphereMIE(o.Atmosphere))
+		{Header: "Atmosphere", Width: 18, Value: func(o objRow) book.Cell { return book.WrapText(atmosphereText(o.Atmosphere)) }},
+		{Header: book.UnitMJ.Header("MIE"), Width: 9, Value: func(o objRow) book.Cell {
+			c := book.Quantity(book.UnitMJ, atmosphereMIE(o.Atmosphere))
 			return est(c, o.Atmosphere != nil && o.Atmosphere.MIEFromSubstance || hasDefault(o, "mie"))
 		}},
-		{"Zone", 7, func(o objRow) cell {
+		{Header: "Zone", Width: 7, Value: func(o objRow) book.Cell {
 			if o.Atmosphere == nil {
-				return cell{}
+				return book.Cell{}
 			}
 			if o.Atmosphere.Zone == "" && hasDefault(o, "zone") {
-				return code(o.Environment.Zone.String() + " est.")
+				return book.Code(o.Environment.Zone.String() + " est.")
 			}
-			return code(o.Atmosphere.Zone)
+			return book.Code(o.Atmosphere.Zone)
 		}},
-		{"Group", 7, func(o objRow) cell {
+		{Header: "Group", Width: 7, Value: func(o objRow) book.Cell {
 			if o.Atmosphere == nil {
-				return cell{}
+				return book.Cell{}
 			}
 			if o.Atmosphere.GroupFromSubstance {
-				return code(o.Atmosphere.Group + " est.")
+				return book.Code(o.Atmosphere.Group + " est.")
 			}
 			if o.Atmosphere.Group == "" && hasDefault(o, "group") {
-				return code(o.Environment.Group.String() + " est.")
+				return book.Code(o.Environment.Group.String() + " est.")
 			}
-			return code(o.Atmosphere.Group)
+			return book.Code(o.Atmosphere.Group)
 		}},
 
 		// Computed quantities.
-		{UnitPF.Header("Capacitance"), 10, func(o objRow) cell {
-			c := quantity(UnitPF, o.Eval.Capacitance)
+		{Header: book.UnitPF.Header("Capacitance"), Width: 10, Value: func(o objRow) book.Cell {
+			c := book.Quantity(book.UnitPF, o.Eval.Capacitance)
 			return est(c, !o.Object.Capacitance.Known || hasDefault(o, "capacitance"))
 		}},
-		{"Capacitance basis", 14, func(o objRow) cell {
+		{Header: "Capacitance basis", Width: 14, Value: func(o objRow) book.Cell {
 			if math.IsNaN(o.Eval.Capacitance) {
-				return cell{}
+				return book.Cell{}
 			}
 			if o.Object.Capacitance.Known {
-				return text("measured")
+				return book.Text("measured")
 			}
-			return text("est.: " + enumText(o.Eval.CapacitanceModel))
+			return book.Text("est.: " + enumText(o.Eval.CapacitanceModel))
 		}},
-		{UnitKV.Header("Potential"), 10, func(o objRow) cell {
-			return est(quantity(UnitKV, o.Eval.Potential), hasDefault(o, "body potential", "potential"))
+		{Header: book.UnitKV.Header("Potential"), Width: 10, Value: func(o objRow) book.Cell {
+			return est(book.Quantity(book.UnitKV, o.Eval.Potential), hasDefault(o, "body potential", "potential"))
 		}},
-		{"Potential source", 14, func(o objRow) cell {
+		{Header: "Potential source", Width: 14, Value: func(o objRow) book.Cell {
 			if math.IsNaN(o.Eval.Potential) {
-				return cell{}
+				return book.Cell{}
 			}
-			return optText(enumText(o.Eval.PotentialSource))
+			return book.OptText(enumText(o.Eval.PotentialSource))
 		}},
-		{UnitUCPerM2.Header("Charge density"), 10, ev(func(e *model.Evaluation) float64 { return e.ChargeDensity }, UnitUCPerM2)},
-		{UnitKVPerM.Header("Surface field"), 10, ev(func(e *model.Evaluation) float64 { return e.SurfaceField }, UnitKVPerM)},
-		{UnitUA.Header("Charging current"), 10, func(o objRow) cell {
-			return est(quantity(UnitUA, o.Eval.ChargingCurrent), hasDefault(o, "charging current"))
+		{Header: book.UnitUCPerM2.Header("Charge density"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.ChargeDensity }, book.UnitUCPerM2)},
+		{Header: book.UnitKVPerM.Header("Surface field"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.SurfaceField }, book.UnitKVPerM)},
+		{Header: book.UnitUA.Header("Charging current"), Width: 10, Value: func(o objRow) book.Cell {
+			return est(book.Quantity(book.UnitUA, o.Eval.ChargingCurrent), hasDefault(o, "charging current"))
 		}},
-		{UnitMJ.Header("Stored energy"), 10, ev(func(e *model.Evaluation) float64 { return e.StoredEnergy }, UnitMJ)},
-		{UnitNC.Header("Transferred charge"), 10, ev(func(e *model.Evaluation) float64 { return e.TransferredCharge }, UnitNC)},
-		{"Possible discharges", 22, func(o objRow) cell { return wrapText(possibleDischarges(&o.Eval)) }},
-		{UnitCM2.Header("Insulating area"), 10, ev(func(e *model.Evaluation) float64 { return e.InsulatingArea }, UnitCM2)},
-		{UnitOhmSq.Header("Surface resistivity at RH"), 11, ev(func(e *model.Evaluation) float64 { return e.SurfaceResistivity }, UnitOhmSq)},
-		{"Dissipative at RH", 9, func(o objRow) cell {
+		{Header: book.UnitMJ.Header("Stored energy"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.StoredEnergy }, book.UnitMJ)},
+		{Header: book.UnitNC.Header("Transferred charge"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.TransferredCharge }, book.UnitNC)},
+		{Header: "Possible discharges", Width: 22, Value: func(o objRow) book.Cell { return book.WrapText(possibleDischarges(&o.Eval)) }},
+		{Header: book.UnitCM2.Header("Insulating area"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.InsulatingArea }, book.UnitCM2)},
+		{Header: book.UnitOhmSq.Header("Surface resistivity at RH"), Width: 11, Value: ev(func(e *model.Evaluation) float64 { return e.SurfaceResistivity }, book.UnitOhmSq)},
+		{Header: "Dissipative at RH", Width: 9, Value: func(o objRow) book.Cell {
 			if math.IsNaN(o.Eval.SurfaceResistivity) {
-				return cell{}
+				return book.Cell{}
 			}
-			return text(boolText(o.Eval.Dissipative))
+			return book.Text(boolText(o.Eval.Dissipative))
 		}},
-		{UnitSecond.Header("Decay time"), 10, ev(func(e *model.Evaluation) float64 { return e.DecayTime }, UnitSecond)},
-		{UnitSecond.Header("Time to 100 V"), 10, ev(func(e *model.Evaluation) float64 { return e.TimeTo100V }, UnitSecond)},
-		{UnitSecond.Header("Relaxation time"), 10, ev(func(e *model.Evaluation) float64 { return e.RelaxationTime }, UnitSecond)},
-		{UnitUA.Header("Streaming current"), 10, ev(func(e *model.Evaluation) float64 { return e.StreamingCurrent }, UnitUA)},
-		{UnitM2PerS.Header("Velocity × diameter"), 10, ev(func(e *model.Evaluation) float64 { return e.VelocityDiameter }, UnitM2PerS)},
-		{UnitM2PerS.Header("v·d limit"), 10, liq(func(e *model.Evaluation) float64 { return finiteOrNaN(e.VDLimit) }, UnitM2PerS)},
-		{UnitMPerS.Header("Velocity limit"), 10, liq(func(e *model.Evaluation) float64 { return finiteOrNaN(e.VelocityLimit) }, UnitMPerS)},
-		{UnitDimless.Header("Charge factor"), 9, liq(func(e *model.Evaluation) float64 { return e.ChargeFactor }, UnitDimless)},
-		{UnitSecond.Header("Residence needed after filter"), 10, liq(func(e *model.Evaluation) float64 { return e.FilterResidence }, UnitSecond)},
-		{"Filling clauses not met", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.LiquidBreaches)) }},
-		{"Model assumptions", 40, func(o objRow) cell { return wrapText(enumText(o.Eval.Assumed)) }},
-		{"Model notes", 36, func(o objRow) cell { return wrapText(enumText(o.Eval.Flags)) }},
-		{"Missing inputs", 24, func(o objRow) cell { return wrapText(enumText(o.Eval.NotAssessed)) }},
+		{Header: book.UnitSecond.Header("Decay time"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.DecayTime }, book.UnitSecond)},
+		{Header: book.UnitSecond.Header("Time to 100 V"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.TimeTo100V }, book.UnitSecond)},
+		{Header: book.UnitSecond.Header("Relaxation time"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.RelaxationTime }, book.UnitSecond)},
+		{Header: book.UnitUA.Header("Streaming current"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.StreamingCurrent }, book.UnitUA)},
+		{Header: book.UnitM2PerS.Header("Velocity × diameter"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.VelocityDiameter }, book.UnitM2PerS)},
+		{Header: book.UnitM2PerS.Header("v·d limit"), Width: 10, Value: liq(func(e *model.Evaluation) float64 { return finiteOrNaN(e.VDLimit) }, book.UnitM2PerS)},
+		{Header: book.UnitMPerS.Header("Velocity limit"), Width: 10, Value: liq(func(e *model.Evaluation) float64 { return finiteOrNaN(e.VelocityLimit) }, book.UnitMPerS)},
+		{Header: book.UnitDimless.Header("Charge factor"), Width: 9, Value: liq(func(e *model.Evaluation) float64 { return e.ChargeFactor }, book.UnitDimless)},
+		{Header: book.UnitSecond.Header("Residence needed after filter"), Width: 10, Value: liq(func(e *model.Evaluation) float64 { return e.FilterResidence }, book.UnitSecond)},
+		{Header: "Filling clauses not met", Width: 24, Value: func(o objRow) book.Cell { return book.WrapText(enumText(o.Eval.LiquidBreaches)) }},
+		{Header: "Model assumptions", Width: 40, Value: func(o objRow) book.Cell { return book.WrapText(enumText(o.Eval.Assumed)) }},
+		{Header: "Model notes", Width: 36, Value: func(o objRow) book.Cell { return book.WrapText(enumText(o.Eval.Flags)) }},
+		{Header: "Missing inputs", Width: 24, Value: func(o objRow) book.Cell { return book.WrapText(enumText(o.Eval.NotAssessed)) }},
 
 		// Insulating surfaces (appended): the backed layer's fields apart, the
 		// breakdown it is compared with, and how the row was read.
-		{UnitKV.Header("Layer breakdown given"), 10, func(o objRow) cell { return inQ(UnitKV, o.Object.LayerBreakdown) }},
-		{"Process given", 12, func(o objRow) cell { return optText(o.Object.Process) }},
-		{UnitKVPerM.Header("Air-side field of the backed layer"), 11, ev(func(e *model.Evaluation) float64 { return e.AirField }, UnitKVPerM)},
-		{UnitKVPerM.Header("Field inside the backed layer"), 11, ev(func(e *model.Evaluation) float64 { return e.LayerField }, UnitKVPerM)},
-		{UnitKV.Header("Voltage across the layer"), 10, ev(func(e *model.Evaluation) float64 { return e.LayerVoltage }, UnitKV)},
-		{UnitKV.Header("Layer breakdown used"), 10, ev(func(e *model.Evaluation) float64 { return e.LayerBreakdown }, UnitKV)},
-		{"Layer breakdown basis", 16, func(o objRow) cell {
+		{Header: book.UnitKV.Header("Layer breakdown given"), Width: 10, Value: func(o objRow) book.Cell { return inQ(book.UnitKV, o.Object.LayerBreakdown) }},
+		{Header: "Process given", Width: 12, Value: func(o objRow) book.Cell { return book.OptText(o.Object.Process) }},
+		{Header: book.UnitKVPerM.Header("Air-side field of the backed layer"), Width: 11, Value: ev(func(e *model.Evaluation) float64 { return e.AirField }, book.UnitKVPerM)},
+		{Header: book.UnitKVPerM.Header("Field inside the backed layer"), Width: 11, Value: ev(func(e *model.Evaluation) float64 { return e.LayerField }, book.UnitKVPerM)},
+		{Header: book.UnitKV.Header("Voltage across the layer"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.LayerVoltage }, book.UnitKV)},
+		{Header: book.UnitKV.Header("Layer breakdown used"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.LayerBreakdown }, book.UnitKV)},
+		{Header: "Layer breakdown basis", Width: 16, Value: func(o objRow) book.Cell {
 			if o.Eval.Kind != model.Sheet && o.Eval.Kind != model.Belt && o.Eval.Kind != model.Roller {
-				return cell{}
+				return book.Cell{}
 			}
 			if math.IsNaN(o.Eval.LayerBreakdown) && math.IsNaN(o.Eval.LayerVoltage) {
-				return cell{}
+				return book.Cell{}
 			}
-			return wrapText(o.Eval.BreakdownSource.String())
+			return book.WrapText(o.Eval.BreakdownSource.String())
 		}},
-		{"Surface judged as", 14, func(o objRow) cell {
+		{Header: "Surface judged as", Width: 14, Value: func(o objRow) book.Cell {
 			switch {
 			case math.IsNaN(o.Eval.InsulatingArea) && o.Eval.Kind != model.Sheet && o.Eval.Kind != model.Belt:
-				return cell{}
+				return book.Cell{}
 			case o.Eval.Kind == model.Bag || o.Eval.Kind == model.Liquid || o.Eval.Kind == model.Powder:
-				return cell{}
+				return book.Cell{}
 			case o.Eval.ProcessMaterial:
-				return text("process material (charge screens, no area limit)")
+				return book.Text("process material (charge screens, no area limit)")
 			}
-			return text("fixed equipment (area limit)")
+			return book.Text("fixed equipment (area limit)")
 		}},
-		{"Unearthed conducting surface", 10, func(o objRow) cell {
+		{Header: "Unearthed conducting surface", Width: 10, Value: func(o objRow) book.Cell {
 			if !o.Eval.IsolatedConductor {
-				return cell{}
+				return book.Cell{}
 			}
-			return text("yes: assessed for a spark")
+			return book.Text("yes: assessed for a spark")
 		}},
 	}
 	if withProbability {
-		p := func(f func(*assess.Probability) float64, u Unit) func(objRow) cell {
-			return func(o objRow) cell {
+		p := func(f func(*assess.Probability) float64, u book.Unit) func(objRow) book.Cell {
+			return func(o objRow) book.Cell {
 				if o.Probability == nil {
-					return cell{numFmt: u.NumFmt()}
+					return book.Cell{NumFmt: u.NumFmt()}
 				}
-				return quantity(u, f(o.Probability))
+				return book.Quantity(u, f(o.Probability))
 			}
 		}
 		cols = append(cols,
-			column[objRow]{"Samples [count]", 9, func(o objRow) cell {
+			book.Column[objRow]{Header: "Samples [count]", Width: 9, Value: func(o objRow) book.Cell {
 				if o.Probability == nil {
-					return cell{}
+					return book.Cell{}
 				}
-				return integer(o.Probability.Samples)
+				return book.Integer(o.Probability.Samples)
 			}},
-			column[objRow]{UnitProbability.Header("P(incendive)"), 10, p(func(q *assess.Probability) float64 { return q.Incendive }, UnitProbability)},
-			column[objRow]{UnitProbability.Header("P(marginal)"), 10, p(func(q *assess.Probability) float64 { return q.Marginal }, UnitProbability)},
-			column[objRow]{UnitProbability.Header("P(non-incendive)"), 10, p(func(q *assess.Probability) float64 { return q.NonIncendive }, UnitProbability)},
-			column[objRow]{UnitMJ.Header("Energy P05"), 10, p(func(q *assess.Probability) float64 { return q.EnergyP05 }, UnitMJ)},
-			column[objRow]{UnitMJ.Header("Energy P50"), 10, p(func(q *assess.Probability) float64 { return q.EnergyP50 }, UnitMJ)},
-			column[objRow]{UnitMJ.Header("Energy P95"), 10, p(func(q *assess.Probability) float64 { return q.EnergyP95 }, UnitMJ)},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Incendive }, book.UnitProbability)},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(marginal)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Marginal }, book.UnitProbability)},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(non-incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.NonIncendive }, book.UnitProbability)},
+			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P05"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP05 }, book.UnitMJ)},
+			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P50"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP50 }, book.UnitMJ)},
+			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P95"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP95 }, book.UnitMJ)},
 		)
 	}
 	return cols

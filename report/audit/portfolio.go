@@ -10,6 +10,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 	"github.com/xuri/excelize/v2"
 )
@@ -70,7 +71,7 @@ func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 	for _, st := range a.Stations {
 		ps := PortfolioStation{ID: st.Station.ID, Name: st.Station.Name, Line: st.Station.Line, SiteRank: st.Rank,
 			Verdict: st.Verdict, Objects: len(st.Objects), Counts: map[assess.Verdict]int{}}
-		if r := finitePtr(st.WorstRatio); r != nil {
+		if r := book.FinitePtr(st.WorstRatio); r != nil {
 			v := *r
 			ps.WorstRatio = &v
 		}
@@ -199,7 +200,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
 	name := fmt.Sprintf("portfolio of %d surveys", len(p.Surveys))
-	wb := &workbook{f: f, st: newStyles(f), info: info, a: &assess.Audit{Survey: &inventory.Survey{Site: inventory.Site{Name: name}}}}
+	wb := &workbook{f: f, st: book.NewStyles(f), info: info, a: &assess.Audit{Survey: &inventory.Survey{Site: inventory.Site{Name: name}}}}
 	if err := f.SetSheetName("Sheet1", PortfolioSummary); err != nil {
 		return fmt.Errorf("write portfolio: %w", err)
 	}
@@ -209,37 +210,37 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		}
 	}
 	sites, stations := p.Sites(), p.Stations()
-	count := func(c map[assess.Verdict]int, v assess.Verdict) cell { return integer(c[v]) }
-	siteCols := []column[RankedSite]{
-		{"Rank", 6, func(s RankedSite) cell { return integer(s.Rank) }},
-		{"Site", 30, func(s RankedSite) cell { return wrapText(siteLabel(s.PortfolioSurvey)) }},
-		{"Survey file", 22, func(s RankedSite) cell { return wrapText(s.File) }},
-		{"Survey date", 11, func(s RankedSite) cell { return optText(dateOf(s.SurveyDate)) }},
-		{"Verdict", 14, func(s RankedSite) cell { return verdictCell(s.Verdict) }},
-		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s RankedSite) cell { return ratioCell(s.WorstRatio) }},
-		{"Stations [count]", 9, func(s RankedSite) cell { return integer(len(s.Stations)) }},
-		{"Objects [count]", 9, func(s RankedSite) cell { return integer(total(s.Counts)) }},
-		{"Incendive [count]", 10, func(s RankedSite) cell { return count(s.Counts, assess.Incendive) }},
-		{"Marginal [count]", 10, func(s RankedSite) cell { return count(s.Counts, assess.Marginal) }},
-		{"Non-incendive [count]", 11, func(s RankedSite) cell { return count(s.Counts, assess.NonIncendive) }},
-		{"Not assessed [count]", 10, func(s RankedSite) cell { return count(s.Counts, assess.NotAssessed) }},
-		{"Findings [count]", 9, func(s RankedSite) cell { return integer(s.Findings) }},
-		{"Rows rejected [count]", 10, func(s RankedSite) cell { return integer(s.Rejected) }},
-		{"Audit workbook", 30, func(s RankedSite) cell { return wrapText(s.Audit) }},
+	count := func(c map[assess.Verdict]int, v assess.Verdict) book.Cell { return book.Integer(c[v]) }
+	siteCols := []book.Column[RankedSite]{
+		{Header: "Rank", Width: 6, Value: func(s RankedSite) book.Cell { return book.Integer(s.Rank) }},
+		{Header: "Site", Width: 30, Value: func(s RankedSite) book.Cell { return book.WrapText(siteLabel(s.PortfolioSurvey)) }},
+		{Header: "Survey file", Width: 22, Value: func(s RankedSite) book.Cell { return book.WrapText(s.File) }},
+		{Header: "Survey date", Width: 11, Value: func(s RankedSite) book.Cell { return book.OptText(dateOf(s.SurveyDate)) }},
+		{Header: "Verdict", Width: 14, Value: func(s RankedSite) book.Cell { return verdictCell(s.Verdict) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell { return ratioCell(s.WorstRatio) }},
+		{Header: "Stations [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(len(s.Stations)) }},
+		{Header: "Objects [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(total(s.Counts)) }},
+		{Header: "Incendive [count]", Width: 10, Value: func(s RankedSite) book.Cell { return count(s.Counts, assess.Incendive) }},
+		{Header: "Marginal [count]", Width: 10, Value: func(s RankedSite) book.Cell { return count(s.Counts, assess.Marginal) }},
+		{Header: "Non-incendive [count]", Width: 11, Value: func(s RankedSite) book.Cell { return count(s.Counts, assess.NonIncendive) }},
+		{Header: "Not assessed [count]", Width: 10, Value: func(s RankedSite) book.Cell { return count(s.Counts, assess.NotAssessed) }},
+		{Header: "Findings [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(s.Findings) }},
+		{Header: "Rows rejected [count]", Width: 10, Value: func(s RankedSite) book.Cell { return book.Integer(s.Rejected) }},
+		{Header: "Audit workbook", Width: 30, Value: func(s RankedSite) book.Cell { return book.WrapText(s.Audit) }},
 	}
-	stationCols := []column[RankedStation]{
-		{"Rank", 6, func(s RankedStation) cell { return integer(s.Rank) }},
-		{"Site", 30, func(s RankedStation) cell { return wrapText(siteLabel(s.Site)) }},
-		{"Survey file", 22, func(s RankedStation) cell { return wrapText(s.Site.File) }},
-		{"Station", 10, func(s RankedStation) cell { return text(s.ID) }},
-		{"Name", 24, func(s RankedStation) cell { return wrapText(s.Name) }},
-		{"Line", 14, func(s RankedStation) cell { return wrapText(s.Line) }},
-		{"Rank in site", 8, func(s RankedStation) cell { return integer(s.SiteRank) }},
-		{"Verdict", 14, func(s RankedStation) cell { return verdictCell(s.Verdict) }},
-		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s RankedStation) cell { return ratioCell(s.WorstRatio) }},
-		{"Objects [count]", 9, func(s RankedStation) cell { return integer(s.Objects) }},
-		{"Incendive [count]", 10, func(s RankedStation) cell { return count(s.Counts, assess.Incendive) }},
-		{"Marginal [count]", 10, func(s RankedStation) cell { return count(s.Counts, assess.Marginal) }},
+	stationCols := []book.Column[RankedStation]{
+		{Header: "Rank", Width: 6, Value: func(s RankedStation) book.Cell { return book.Integer(s.Rank) }},
+		{Header: "Site", Width: 30, Value: func(s RankedStation) book.Cell { return book.WrapText(siteLabel(s.Site)) }},
+		{Header: "Survey file", Width: 22, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Site.File) }},
+		{Header: "Station", Width: 10, Value: func(s RankedStation) book.Cell { return book.Text(s.ID) }},
+		{Header: "Name", Width: 24, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Name) }},
+		{Header: "Line", Width: 14, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Line) }},
+		{Header: "Rank in site", Width: 8, Value: func(s RankedStation) book.Cell { return book.Integer(s.SiteRank) }},
+		{Header: "Verdict", Width: 14, Value: func(s RankedStation) book.Cell { return verdictCell(s.Verdict) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedStation) book.Cell { return ratioCell(s.WorstRatio) }},
+		{Header: "Objects [count]", Width: 9, Value: func(s RankedStation) book.Cell { return book.Integer(s.Objects) }},
+		{Header: "Incendive [count]", Width: 10, Value: func(s RankedStation) book.Cell { return count(s.Counts, assess.Incendive) }},
+		{Header: "Marginal [count]", Width: 10, Value: func(s RankedStation) book.Cell { return count(s.Counts, assess.Marginal) }},
 	}
 	if err := tableSheetNormal(wb, PortfolioSites, siteCols, sites); err != nil {
 		return fmt.Errorf("write portfolio: sheet %s: %w", PortfolioSites, err)
@@ -253,8 +254,8 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	if err := portfolioSummary(wb, p, sites, info); err != nil {
 		return fmt.Errorf("write portfolio: sheet %s: %w", PortfolioSummary, err)
 	}
-	if wb.st.err != nil {
-		return fmt.Errorf("write portfolio: %w", wb.st.err)
+	if wb.st.Err() != nil {
+		return fmt.Errorf("write portfolio: %w", wb.st.Err())
 	}
 	f.SetActiveSheet(0)
 	d := portfolioDate(p).Format("2006-01-02T15:04:05Z")
@@ -264,7 +265,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	}); err != nil {
 		return fmt.Errorf("write portfolio: document properties: %w", err)
 	}
-	if err := writeCanonical(f, w, info.TmpDir); err != nil {
+	if err := book.WriteCanonical(f, w, info.TmpDir); err != nil {
 		return fmt.Errorf("write portfolio: %w", err)
 	}
 	return nil
@@ -318,22 +319,22 @@ func portfolioCautions(wb *workbook) error {
 	for i, s := range rows {
 		cs[i] = crow{i + 1, s}
 	}
-	return tableSheetNormal(wb, PortfolioCautions, []column[crow]{
-		{"#", 5, func(c crow) cell { return integer(c.n) }},
-		{"Caution", 120, func(c crow) cell { return wrapText(c.s) }},
+	return tableSheetNormal(wb, PortfolioCautions, []book.Column[crow]{
+		{Header: "#", Width: 5, Value: func(c crow) book.Cell { return book.Integer(c.n) }},
+		{Header: "Caution", Width: 120, Value: func(c crow) book.Cell { return book.WrapText(c.s) }},
 	}, cs)
 }
 
 func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInfo) error {
 	f, s := wb.f, PortfolioSummary
-	if err := setWidths(f, s, []float64{30, 14, 40, 14, 12, 10, 10, 10, 10, 10}); err != nil {
+	if err := book.SetWidths(f, s, []float64{30, 14, 40, 14, 12, 10, 10, 10, 10, 10}); err != nil {
 		return err
 	}
-	sink := normalSink{f: f, sheet: s, st: wb.st}
+	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
 	if err := f.SetCellValue(s, "A1", "Electrostatic ignition screening portfolio"); err != nil {
 		return err
 	}
-	if err := f.SetCellStyle(s, "A1", "A1", wb.st.title()); err != nil {
+	if err := f.SetCellStyle(s, "A1", "A1", wb.st.Title()); err != nil {
 		return err
 	}
 	if err := f.MergeCell(s, "A2", "J2"); err != nil {
@@ -342,45 +343,45 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
 		return err
 	}
-	if err := f.SetCellStyle(s, "A2", "J2", wb.st.caution()); err != nil {
+	if err := f.SetCellStyle(s, "A2", "J2", wb.st.Caution()); err != nil {
 		return err
 	}
 	if err := f.SetRowHeight(s, 2, 30); err != nil {
 		return err
 	}
 	r := 4
-	kv := func(k string, v cell) error {
-		v.align = "left"
-		err := sink.row(r, []cell{boldText(k), v}, 0)
+	kv := func(k string, v book.Cell) error {
+		v.Align = "left"
+		err := sink.Row(r, []book.Cell{book.BoldText(k), v}, 0)
 		r++
 		return err
 	}
 	tot := p.totals()
-	if err := kv("Surveys assessed", integer(len(p.Surveys))); err != nil {
+	if err := kv("Surveys assessed", book.Integer(len(p.Surveys))); err != nil {
 		return err
 	}
-	if err := kv("Surveys not assessed", integer(len(p.Failed))); err != nil {
+	if err := kv("Surveys not assessed", book.Integer(len(p.Failed))); err != nil {
 		return err
 	}
-	if err := kv("Objects [count]", integer(total(tot))); err != nil {
+	if err := kv("Objects [count]", book.Integer(total(tot))); err != nil {
 		return err
 	}
 	for _, v := range verdictOrder() {
-		if err := kv(v.String()+" [count]", integer(tot[v])); err != nil {
+		if err := kv(v.String()+" [count]", book.Integer(tot[v])); err != nil {
 			return err
 		}
 	}
-	if err := kv("Tool", text(info.tool()+" "+info.ToolVersion)); err != nil {
+	if err := kv("Tool", book.Text(info.tool()+" "+info.ToolVersion)); err != nil {
 		return err
 	}
 	if len(p.Failed) > 0 {
 		r++
-		if err := sink.header(r, []string{"Survey not assessed", "", "Why"}); err != nil {
+		if err := sink.Header(r, []string{"Survey not assessed", "", "Why"}); err != nil {
 			return err
 		}
 		r++
 		for _, fl := range p.Failed {
-			if err := sink.row(r, []cell{wrapText(fl.File), {}, wrapText(fl.Reason)}, wrappedHeight(fl.Reason, 40)); err != nil {
+			if err := sink.Row(r, []book.Cell{book.WrapText(fl.File), {}, book.WrapText(fl.Reason)}, wrappedHeight(fl.Reason, 40)); err != nil {
 				return err
 			}
 			r++

@@ -12,6 +12,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -30,7 +31,7 @@ type WorkbookWriter struct {
 	tmp     string
 	sampled bool
 	objects *tableStream[objRow]
-	cols    []column[objRow]
+	cols    []book.Column[objRow]
 	n       int
 	// materials used by the objects, for the Method sheet, first use first.
 	materials []assess.ObjectResult
@@ -52,7 +53,7 @@ func NewWorkbookWriter(s *inventory.Survey, info RunInfo, sampled bool, tmpDir s
 	}
 	f := excelize.NewFile(excelize.Options{TmpDir: tmp})
 	w := &WorkbookWriter{tmp: tmp, sampled: sampled, matSeen: map[string]bool{}}
-	w.wb = &workbook{f: f, st: newStyles(f), a: &assess.Audit{Survey: s}, info: info}
+	w.wb = &workbook{f: f, st: book.NewStyles(f), a: &assess.Audit{Survey: s}, info: info}
 	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
 		w.Close()
 		return nil, fmt.Errorf("write workbook: %w", err)
@@ -87,7 +88,7 @@ func (w *WorkbookWriter) Add(rs []assess.ObjectResult) error {
 				return err
 			}
 		}
-		if err := w.objects.row(r); err != nil {
+		if err := w.objects.Row(r); err != nil {
 			return fmt.Errorf("write workbook: sheet %s: %w", SheetObjects, err)
 		}
 		w.n++
@@ -131,7 +132,7 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 			return err
 		}
 	}
-	if err := f.AutoFilter(SheetObjects, fmt.Sprintf("A1:%s%d", lastCol(len(w.cols)), w.n+1), nil); err != nil {
+	if err := f.AutoFilter(SheetObjects, fmt.Sprintf("A1:%s%d", book.LastCol(len(w.cols)), w.n+1), nil); err != nil {
 		return fmt.Errorf("write workbook: sheet %s: %w", SheetObjects, err)
 	}
 	if err := w.objects.sw.Flush(); err != nil {
@@ -140,8 +141,8 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if err := wb.writeSheets(false); err != nil {
 		return err
 	}
-	if wb.st.err != nil {
-		return fmt.Errorf("write workbook: %w", wb.st.err)
+	if wb.st.Err() != nil {
+		return fmt.Errorf("write workbook: %w", wb.st.Err())
 	}
 	// No SetActiveSheet: the Summary (the new file's first sheet, renamed) is
 	// already the active one, and SetActiveSheet would load every sheet,
@@ -167,7 +168,7 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
-	if err := canonicalZip(tmp, n, out); err != nil {
+	if err := book.CanonicalZip(tmp, n, out); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil

@@ -6,6 +6,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 	"github.com/xuri/excelize/v2"
 )
@@ -18,15 +19,15 @@ func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10,
 func (wb *workbook) summary() error {
 	f, s, a := wb.f, SheetSummary, wb.a
 	site := a.Survey.Site
-	if err := setWidths(f, s, summaryWidths()); err != nil {
+	if err := book.SetWidths(f, s, summaryWidths()); err != nil {
 		return err
 	}
-	sink := normalSink{f: f, sheet: s, st: wb.st}
+	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
 	r := 1
 	if err := f.SetCellValue(s, "A1", "Electrostatic ignition screening audit"); err != nil {
 		return err
 	}
-	if err := f.SetCellStyle(s, "A1", "A1", wb.st.title()); err != nil {
+	if err := f.SetCellStyle(s, "A1", "A1", wb.st.Title()); err != nil {
 		return err
 	}
 	if err := f.SetRowHeight(s, 1, 24); err != nil {
@@ -40,7 +41,7 @@ func (wb *workbook) summary() error {
 	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
 		return err
 	}
-	if err := f.SetCellStyle(s, "A2", "J2", wb.st.caution()); err != nil {
+	if err := f.SetCellStyle(s, "A2", "J2", wb.st.Caution()); err != nil {
 		return err
 	}
 	if err := f.SetRowHeight(s, 2, 30); err != nil {
@@ -52,7 +53,7 @@ func (wb *workbook) summary() error {
 		if err := f.SetCellValue(s, ref, title); err != nil {
 			return err
 		}
-		return f.SetCellStyle(s, ref, fmt.Sprintf("J%d", row), wb.st.section())
+		return f.SetCellStyle(s, ref, fmt.Sprintf("J%d", row), wb.st.Section())
 	}
 
 	r = 4
@@ -60,21 +61,21 @@ func (wb *workbook) summary() error {
 		return err
 	}
 	r++
-	ident := [][2]cell{
-		{text("Site"), text(siteName(a))},
-		{text("Survey date"), text(dateText(a))},
-		{text("Surveyed by"), optText(site.SurveyedBy)},
-		{text(UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
-		{text(UnitCelsius.Header("Air temperature")), est(inQ(UnitCelsius, site.AirTemperature), site.Defaulted(inventory.SiteItemAirTemperature))},
-		{text(UnitDimless.Header("Required margin")), est(inQ(UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))},
-		{text("Survey file"), optText(wb.info.file(a))},
-		{text("Survey SHA-256"), optText(wb.info.sha(a))},
-		{text("Tool"), text(wb.info.tool() + " " + wb.info.ToolVersion)},
+	ident := [][2]book.Cell{
+		{book.Text("Site"), book.Text(siteName(a))},
+		{book.Text("Survey date"), book.Text(dateText(a))},
+		{book.Text("Surveyed by"), book.OptText(site.SurveyedBy)},
+		{book.Text(book.UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
+		{book.Text(book.UnitCelsius.Header("Air temperature")), est(inQ(book.UnitCelsius, site.AirTemperature), site.Defaulted(inventory.SiteItemAirTemperature))},
+		{book.Text(book.UnitDimless.Header("Required margin")), est(inQ(book.UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))},
+		{book.Text("Survey file"), book.OptText(wb.info.file(a))},
+		{book.Text("Survey SHA-256"), book.OptText(wb.info.sha(a))},
+		{book.Text("Tool"), book.Text(wb.info.tool() + " " + wb.info.ToolVersion)},
 	}
 	for _, kv := range ident {
-		kv[0].bold = true
-		kv[1].align = "left"
-		if err := sink.row(r, []cell{kv[0], kv[1]}, 0); err != nil {
+		kv[0].Bold = true
+		kv[1].Align = "left"
+		if err := sink.Row(r, []book.Cell{kv[0], kv[1]}, 0); err != nil {
 			return err
 		}
 		r++
@@ -86,7 +87,7 @@ func (wb *workbook) summary() error {
 		return err
 	}
 	r++
-	if err := sink.header(r, []string{"Verdict", "Objects [count]", "Findings [count]"}); err != nil {
+	if err := sink.Header(r, []string{"Verdict", "Objects [count]", "Findings [count]"}); err != nil {
 		return err
 	}
 	r++
@@ -98,12 +99,12 @@ func (wb *workbook) summary() error {
 	for _, v := range verdictOrder() {
 		n := a.Counts[v]
 		total += n
-		if err := sink.row(r, []cell{verdictCell(v), integer(n), integer(findingsBy[v])}, 0); err != nil {
+		if err := sink.Row(r, []book.Cell{verdictCell(v), book.Integer(n), book.Integer(findingsBy[v])}, 0); err != nil {
 			return err
 		}
 		r++
 	}
-	if err := sink.row(r, []cell{boldText("All objects"), integer(total), integer(len(a.Findings))}, 0); err != nil {
+	if err := sink.Row(r, []book.Cell{book.BoldText("All objects"), book.Integer(total), book.Integer(len(a.Findings))}, 0); err != nil {
 		return err
 	}
 	r += 2
@@ -113,18 +114,18 @@ func (wb *workbook) summary() error {
 		return err
 	}
 	r++
-	if err := sink.header(r, []string{"Survey sheet", "Read [rows]", "Accepted [rows]", "Rejected [rows]"}); err != nil {
+	if err := sink.Header(r, []string{"Survey sheet", "Read [rows]", "Accepted [rows]", "Rejected [rows]"}); err != nil {
 		return err
 	}
 	r++
 	for _, c := range a.Survey.Counts {
-		if err := sink.row(r, []cell{text(c.Sheet), integer(c.Read), integer(c.Accepted), integer(c.Rejected)}, 0); err != nil {
+		if err := sink.Row(r, []book.Cell{book.Text(c.Sheet), book.Integer(c.Read), book.Integer(c.Accepted), book.Integer(c.Rejected)}, 0); err != nil {
 			return err
 		}
 		r++
 	}
 	if n := len(a.Survey.Warnings()); n > 0 {
-		if err := sink.row(r, []cell{text(fmt.Sprintf("%d warning(s) on accepted rows: see the Rejected sheet", n))}, 0); err != nil {
+		if err := sink.Row(r, []book.Cell{book.Text(fmt.Sprintf("%d warning(s) on accepted rows: see the Rejected sheet", n))}, 0); err != nil {
 			return err
 		}
 		r++
@@ -136,7 +137,7 @@ func (wb *workbook) summary() error {
 		return err
 	}
 	r++
-	if err := sink.header(r, []string{"Station", "Rank", "Name", "Verdict", UnitRatio.Header("Worst ratio E/MIE"),
+	if err := sink.Header(r, []string{"Station", "Rank", "Name", "Verdict", book.UnitRatio.Header("Worst ratio E/MIE"),
 		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}); err != nil {
 		return err
 	}
@@ -146,12 +147,12 @@ func (wb *workbook) summary() error {
 	r++
 	for i := range a.Stations {
 		st := &a.Stations[i]
-		if err := sink.row(r, []cell{
-			boldText(st.Station.ID), integer(st.Rank), wrapText(st.Station.Name), verdictCell(st.Verdict),
-			ratioCell(finitePtr(st.WorstRatio)), integer(len(st.Objects)),
-			integer(st.Counts[assess.Incendive]), integer(st.Counts[assess.Marginal]),
-			integer(st.Counts[assess.NonIncendive]), integer(st.Counts[assess.NotAssessed]),
-		}, rowHeight(summaryWidths(), []cell{{}, {}, wrapText(st.Station.Name)})); err != nil {
+		if err := sink.Row(r, []book.Cell{
+			book.BoldText(st.Station.ID), book.Integer(st.Rank), book.WrapText(st.Station.Name), verdictCell(st.Verdict),
+			ratioCell(book.FinitePtr(st.WorstRatio)), book.Integer(len(st.Objects)),
+			book.Integer(st.Counts[assess.Incendive]), book.Integer(st.Counts[assess.Marginal]),
+			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]),
+		}, book.RowHeight(summaryWidths(), []book.Cell{{}, {}, book.WrapText(st.Station.Name)})); err != nil {
 			return err
 		}
 		r++
@@ -173,7 +174,7 @@ func (wb *workbook) summary() error {
 			return err
 		}
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
-		if err := sink.row(r, []cell{wrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
+		if err := sink.Row(r, []book.Cell{book.WrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
 			"A station whose worst ratio is 0 (no discharge possible) has no bar; stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
 			return err
 		}
@@ -199,7 +200,7 @@ func (wb *workbook) summary() error {
 		if err := f.MergeCell(s, ref, fmt.Sprintf("J%d", r)); err != nil {
 			return err
 		}
-		if err := f.SetCellStyle(s, ref, ref, wb.st.of(wrapText(""))); err != nil {
+		if err := f.SetCellStyle(s, ref, ref, wb.st.Of(book.WrapText(""))); err != nil {
 			return err
 		}
 		if err := f.SetRowHeight(s, r, wrappedHeight(c, sum(summaryWidths()))); err != nil {
@@ -268,7 +269,7 @@ func (wb *workbook) chart(at string, rows int) error {
 func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 	lo, hi = 0.1, 10
 	for i := range stations {
-		r := finitePtr(stations[i].WorstRatio)
+		r := book.FinitePtr(stations[i].WorstRatio)
 		if r == nil || *r <= 0 {
 			continue
 		}
@@ -285,9 +286,9 @@ func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 // siteHumidityCell shows the site's relative humidity, or, when the Site sheet
 // gives none (an error that check reports), the value the assessment used for
 // stations without their own, marked as estimated.
-func siteHumidityCell(site inventory.Site) cell {
+func siteHumidityCell(site inventory.Site) book.Cell {
 	if !site.RelativeHumidity.Known {
-		return est(quantity(UnitPercentRH, assess.DryDayHumidity), true)
+		return est(book.Quantity(book.UnitPercentRH, assess.DryDayHumidity), true)
 	}
-	return est(inQ(UnitPercentRH, site.RelativeHumidity), false)
+	return est(inQ(book.UnitPercentRH, site.RelativeHumidity), false)
 }

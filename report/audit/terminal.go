@@ -7,6 +7,7 @@ import (
 	"text/tabwriter"
 
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -31,7 +32,7 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 		if s.Station.Name != "" {
 			name += " " + s.Station.Name
 		}
-		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, FormatRatio(finitePtr(s.WorstRatio)),
+		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, book.FormatRatio(book.FinitePtr(s.WorstRatio)),
 			len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed])
 		if sampled {
 			p := "–"

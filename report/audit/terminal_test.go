@@ -49,7 +49,7 @@ func TestWriteSummaryBlankSiteHumidity(t *testing.T) {
 	if !strings.Contains(b.String(), "no relative humidity") || !strings.Contains(b.String(), "30 %RH") {
 		t.Errorf("no warning with the RH used:\n%s", b.String())
 	}
-	if c := siteHumidityCell(s.Site); c.v == nil || !c.est {
+	if c := siteHumidityCell(s.Site); c.V == nil || !c.Est {
 		t.Errorf("Summary RH cell %+v, want the dry-day value marked est.", c)
 	}
 }

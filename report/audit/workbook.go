@@ -9,6 +9,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 	"github.com/xuri/excelize/v2"
 )
@@ -119,7 +120,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	}
 	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
-	st := newStyles(f)
+	st := book.NewStyles(f)
 	wb := &workbook{f: f, st: st, a: a, info: info}
 
 	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
@@ -133,14 +134,14 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if err := wb.writeSheets(true); err != nil {
 		return err
 	}
-	if st.err != nil {
-		return fmt.Errorf("write workbook: %w", st.err)
+	if st.Err() != nil {
+		return fmt.Errorf("write workbook: %w", st.Err())
 	}
 	f.SetActiveSheet(0)
 	if err := setDocProps(f, a, info); err != nil {
 		return err
 	}
-	if err := writeCanonical(f, w, info.TmpDir); err != nil {
+	if err := book.WriteCanonical(f, w, info.TmpDir); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil
@@ -148,7 +149,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 
 type workbook struct {
 	f    *excelize.File
-	st   *styles
+	st   *book.Styles
 	a    *assess.Audit
 	info RunInfo
 	// stationRows is the last data row of the Stations sheet, for the chart.
@@ -217,21 +218,21 @@ func (wb *workbook) printSetup(sheet string, pagesWide int, titleRows, titleCols
 
 // tableSheetNormal writes a whole normal-mode table: header row 1, rows from 2,
 // frozen header, autofilter and print setup.
-func tableSheetNormal[T any](wb *workbook, sheet string, cols []column[T], rows []T) error {
-	sink := normalSink{f: wb.f, sheet: sheet, st: wb.st}
-	if err := setWidths(wb.f, sheet, widthsOf(cols)); err != nil {
+func tableSheetNormal[T any](wb *workbook, sheet string, cols []book.Column[T], rows []T) error {
+	sink := book.NormalSink{F: wb.f, Sheet: sheet, St: wb.st}
+	if err := book.SetWidths(wb.f, sheet, book.WidthsOf(cols)); err != nil {
 		return err
 	}
-	if err := sink.header(1, headers(cols)); err != nil {
+	if err := sink.Header(1, book.Headers(cols)); err != nil {
 		return err
 	}
 	if err := wb.f.SetRowHeight(sheet, 1, 42); err != nil {
 		return err
 	}
-	widths := widthsOf(cols)
+	widths := book.WidthsOf(cols)
 	for i, r := range rows {
-		cells := rowCells(cols, r)
-		if err := sink.row(i+2, cells, rowHeight(widths, cells)); err != nil {
+		cells := book.RowCells(cols, r)
+		if err := sink.Row(i+2, cells, book.RowHeight(widths, cells)); err != nil {
 			return err
 		}
 	}
@@ -239,7 +240,7 @@ func tableSheetNormal[T any](wb *workbook, sheet string, cols []column[T], rows 
 		return err
 	}
 	last := len(rows) + 1
-	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(cols)), last), nil); err != nil {
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", book.LastCol(len(cols)), last), nil); err != nil {
 		return err
 	}
 	return wb.printSetup(sheet, 1, "$1:$1", "")
@@ -247,13 +248,13 @@ func tableSheetNormal[T any](wb *workbook, sheet string, cols []column[T], rows 
 
 // tableSheetStream writes a table through a StreamWriter; the autofilter and
 // print setup are made on the empty sheet first, which the stream keeps.
-func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int, row func(i int) T, pagesWide int, titleCols string, freezeCols int) error {
+func tableSheetStream[T any](wb *workbook, sheet string, cols []book.Column[T], n int, row func(i int) T, pagesWide int, titleCols string, freezeCols int) error {
 	ts, err := openTableStream(wb, sheet, cols, n, pagesWide, titleCols, freezeCols)
 	if err != nil {
 		return err
 	}
 	for i := 0; i < n; i++ {
-		if err := ts.row(row(i)); err != nil {
+		if err := ts.Row(row(i)); err != nil {
 			return err
 		}
 	}
@@ -263,8 +264,8 @@ func tableSheetStream[T any](wb *workbook, sheet string, cols []column[T], n int
 // tableStream is a table sheet being written through a StreamWriter.
 type tableStream[T any] struct {
 	sw     *excelize.StreamWriter
-	sink   streamSink
-	cols   []column[T]
+	sink   book.StreamSink
+	cols   []book.Column[T]
 	widths []float64
 	next   int // sheet row of the next data row
 }
@@ -272,9 +273,9 @@ type tableStream[T any] struct {
 // openTableStream sets up a streamed table sheet for n data rows (the
 // autofilter range; see the WorkbookWriter for a count known only at the end)
 // and writes its header row.
-func openTableStream[T any](wb *workbook, sheet string, cols []column[T], n int, pagesWide int, titleCols string, freezeCols int) (*tableStream[T], error) {
+func openTableStream[T any](wb *workbook, sheet string, cols []book.Column[T], n int, pagesWide int, titleCols string, freezeCols int) (*tableStream[T], error) {
 	last := n + 1
-	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", lastCol(len(cols)), last), nil); err != nil {
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", book.LastCol(len(cols)), last), nil); err != nil {
 		return nil, err
 	}
 	if err := wb.printSetup(sheet, pagesWide, "$1:$1", titleCols); err != nil {
@@ -285,7 +286,7 @@ func openTableStream[T any](wb *workbook, sheet string, cols []column[T], n int,
 		return nil, err
 	}
 	for i, c := range cols {
-		if err := sw.SetColWidth(i+1, i+1, c.width); err != nil {
+		if err := sw.SetColWidth(i+1, i+1, c.Width); err != nil {
 			return nil, err
 		}
 	}
@@ -297,17 +298,17 @@ func openTableStream[T any](wb *workbook, sheet string, cols []column[T], n int,
 	if err := sw.SetPanes(&excelize.Panes{Freeze: true, XSplit: freezeCols, YSplit: 1, TopLeftCell: top, ActivePane: pane}); err != nil {
 		return nil, err
 	}
-	ts := &tableStream[T]{sw: sw, sink: streamSink{sw: sw, st: wb.st}, cols: cols, widths: widthsOf(cols), next: 2}
-	if err := ts.sink.header(1, headers(cols)); err != nil {
+	ts := &tableStream[T]{sw: sw, sink: book.StreamSink{SW: sw, St: wb.st}, cols: cols, widths: book.WidthsOf(cols), next: 2}
+	if err := ts.sink.Header(1, book.Headers(cols)); err != nil {
 		return nil, err
 	}
 	return ts, nil
 }
 
 // row writes the next data row.
-func (ts *tableStream[T]) row(v T) error {
-	cells := rowCells(ts.cols, v)
-	if err := ts.sink.row(ts.next, cells, rowHeight(ts.widths, cells)); err != nil {
+func (ts *tableStream[T]) Row(v T) error {
+	cells := book.RowCells(ts.cols, v)
+	if err := ts.sink.Row(ts.next, cells, book.RowHeight(ts.widths, cells)); err != nil {
 		return err
 	}
 	ts.next++
@@ -318,52 +319,52 @@ func (ts *tableStream[T]) row(v T) error {
 
 type stationRow = *assess.StationResult
 
-func stationColumns(site inventory.Site, withProbability bool) []column[stationRow] {
-	count := func(v assess.Verdict) func(stationRow) cell {
-		return func(s stationRow) cell { return integer(s.Counts[v]) }
+func stationColumns(site inventory.Site, withProbability bool) []book.Column[stationRow] {
+	count := func(v assess.Verdict) func(stationRow) book.Cell {
+		return func(s stationRow) book.Cell { return book.Integer(s.Counts[v]) }
 	}
-	cols := []column[stationRow]{
-		{"Rank", 6, func(s stationRow) cell { return integer(s.Rank) }},
-		{"Station", 10, func(s stationRow) cell { return text(s.Station.ID) }},
-		{"Name", 24, func(s stationRow) cell { return wrapText(s.Station.Name) }},
-		{"Line", 14, func(s stationRow) cell { return wrapText(s.Station.Line) }},
-		{"Atmosphere", 24, func(s stationRow) cell { return wrapText(atmosphereText(s.Atmosphere)) }},
-		{UnitMJ.Header("MIE"), 9, func(s stationRow) cell {
-			return est(quantity(UnitMJ, atmosphereMIE(s.Atmosphere)), s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance)
+	cols := []book.Column[stationRow]{
+		{Header: "Rank", Width: 6, Value: func(s stationRow) book.Cell { return book.Integer(s.Rank) }},
+		{Header: "Station", Width: 10, Value: func(s stationRow) book.Cell { return book.Text(s.Station.ID) }},
+		{Header: "Name", Width: 24, Value: func(s stationRow) book.Cell { return book.WrapText(s.Station.Name) }},
+		{Header: "Line", Width: 14, Value: func(s stationRow) book.Cell { return book.WrapText(s.Station.Line) }},
+		{Header: "Atmosphere", Width: 24, Value: func(s stationRow) book.Cell { return book.WrapText(atmosphereText(s.Atmosphere)) }},
+		{Header: book.UnitMJ.Header("MIE"), Width: 9, Value: func(s stationRow) book.Cell {
+			return est(book.Quantity(book.UnitMJ, atmosphereMIE(s.Atmosphere)), s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance)
 		}},
-		{"Zone", 7, func(s stationRow) cell {
+		{Header: "Zone", Width: 7, Value: func(s stationRow) book.Cell {
 			if s.Atmosphere == nil {
-				return cell{}
+				return book.Cell{}
 			}
-			return code(s.Atmosphere.Zone)
+			return book.Code(s.Atmosphere.Zone)
 		}},
-		{"Group", 7, func(s stationRow) cell {
+		{Header: "Group", Width: 7, Value: func(s stationRow) book.Cell {
 			if s.Atmosphere == nil {
-				return cell{}
+				return book.Cell{}
 			}
-			return code(s.Atmosphere.Group)
+			return book.Code(s.Atmosphere.Group)
 		}},
-		{UnitPercentRH.Header("RH used"), 9, func(s stationRow) cell {
+		{Header: book.UnitPercentRH.Header("RH used"), Width: 9, Value: func(s stationRow) book.Cell {
 			if s.Station.RelativeHumidity.Known {
-				return inQ(UnitPercentRH, s.Station.RelativeHumidity)
+				return inQ(book.UnitPercentRH, s.Station.RelativeHumidity)
 			}
 			// The station gives none: the site's RH is used (marked est.).
-			return est(inQ(UnitPercentRH, site.RelativeHumidity), true)
+			return est(inQ(book.UnitPercentRH, site.RelativeHumidity), true)
 		}},
-		{"Verdict", 14, func(s stationRow) cell { return verdictCell(s.Verdict) }},
-		{UnitRatio.Header("Worst ratio E/MIE"), 11, func(s stationRow) cell { return ratioCell(finitePtr(s.WorstRatio)) }},
-		{"Objects [count]", 9, func(s stationRow) cell { return integer(len(s.Objects)) }},
-		{"Incendive [count]", 10, count(assess.Incendive)},
-		{"Marginal [count]", 10, count(assess.Marginal)},
-		{"Non-incendive [count]", 11, count(assess.NonIncendive)},
-		{"Not assessed [count]", 10, count(assess.NotAssessed)},
+		{Header: "Verdict", Width: 14, Value: func(s stationRow) book.Cell { return verdictCell(s.Verdict) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s stationRow) book.Cell { return ratioCell(book.FinitePtr(s.WorstRatio)) }},
+		{Header: "Objects [count]", Width: 9, Value: func(s stationRow) book.Cell { return book.Integer(len(s.Objects)) }},
+		{Header: "Incendive [count]", Width: 10, Value: count(assess.Incendive)},
+		{Header: "Marginal [count]", Width: 10, Value: count(assess.Marginal)},
+		{Header: "Non-incendive [count]", Width: 11, Value: count(assess.NonIncendive)},
+		{Header: "Not assessed [count]", Width: 10, Value: count(assess.NotAssessed)},
 	}
 	if withProbability {
-		cols = append(cols, column[stationRow]{UnitProbability.Header("P(any incendive)"), 11, func(s stationRow) cell {
+		cols = append(cols, book.Column[stationRow]{Header: book.UnitProbability.Header("P(any incendive)"), Width: 11, Value: func(s stationRow) book.Cell {
 			if s.ProbabilityAnyIncendive == nil {
-				return cell{numFmt: UnitProbability.NumFmt()}
+				return book.Cell{NumFmt: book.UnitProbability.NumFmt()}
 			}
-			return quantity(UnitProbability, *s.ProbabilityAnyIncendive)
+			return book.Quantity(book.UnitProbability, *s.ProbabilityAnyIncendive)
 		}})
 	}
 	return cols
@@ -400,19 +401,19 @@ type findingRow struct {
 	f *assess.Finding
 }
 
-func findingColumns() []column[findingRow] {
-	return []column[findingRow]{
-		{"#", 5, func(r findingRow) cell { return integer(r.n) }},
-		{"Severity", 12, func(r findingRow) cell { return verdictCell(r.f.Severity) }},
-		{"Station", 10, func(r findingRow) cell { return code(r.f.StationID) }},
-		{"Object", 12, func(r findingRow) cell { return code(r.f.ObjectID) }},
-		{"Check", 18, func(r findingRow) cell { return text(r.f.Check) }},
-		{"Finding", 50, func(r findingRow) cell { return wrapText(r.f.Message) }},
-		{"Mitigation", 50, func(r findingRow) cell { return wrapText(r.f.Mitigation) }},
-		{"Basis", 40, func(r findingRow) cell { return wrapText(r.f.Basis) }},
-		{"Action owner", 14, func(findingRow) cell { return cell{} }},
-		{"Due", 10, func(findingRow) cell { return cell{} }},
-		{"Status", 10, func(findingRow) cell { return cell{} }},
+func findingColumns() []book.Column[findingRow] {
+	return []book.Column[findingRow]{
+		{Header: "#", Width: 5, Value: func(r findingRow) book.Cell { return book.Integer(r.n) }},
+		{Header: "Severity", Width: 12, Value: func(r findingRow) book.Cell { return verdictCell(r.f.Severity) }},
+		{Header: "Station", Width: 10, Value: func(r findingRow) book.Cell { return book.Code(r.f.StationID) }},
+		{Header: "Object", Width: 12, Value: func(r findingRow) book.Cell { return book.Code(r.f.ObjectID) }},
+		{Header: "Check", Width: 18, Value: func(r findingRow) book.Cell { return book.Text(r.f.Check) }},
+		{Header: "Finding", Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Message) }},
+		{Header: "Mitigation", Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Mitigation) }},
+		{Header: "Basis", Width: 40, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Basis) }},
+		{Header: "Action owner", Width: 14, Value: func(findingRow) book.Cell { return book.Cell{} }},
+		{Header: "Due", Width: 10, Value: func(findingRow) book.Cell { return book.Cell{} }},
+		{Header: "Status", Width: 10, Value: func(findingRow) book.Cell { return book.Cell{} }},
 	}
 }
 
@@ -425,17 +426,17 @@ func (wb *workbook) findings() error {
 
 func (wb *workbook) cautions() error {
 	f, s := wb.f, SheetCautions
-	if err := setWidths(f, s, []float64{5, 120}); err != nil {
+	if err := book.SetWidths(f, s, []float64{5, 120}); err != nil {
 		return err
 	}
-	sink := normalSink{f: f, sheet: s, st: wb.st}
-	if err := sink.header(1, []string{"#", "Caution"}); err != nil {
+	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
+	if err := sink.Header(1, []string{"#", "Caution"}); err != nil {
 		return err
 	}
 	for i, c := range templates.Cautions() {
 		r := i + 2
-		cells := []cell{integer(i + 1), wrapText(c)}
-		if err := sink.row(r, cells, rowHeight([]float64{5, 120}, cells)); err != nil {
+		cells := []book.Cell{book.Integer(i + 1), book.WrapText(c)}
+		if err := sink.Row(r, cells, book.RowHeight([]float64{5, 120}, cells)); err != nil {
 			return err
 		}
 	}
@@ -448,7 +449,7 @@ func (wb *workbook) cautions() error {
 // wrappedHeight returns the row height (points) of a wrapped text in a column
 // of the given width (characters).
 func wrappedHeight(s string, width float64) float64 {
-	return lineHeight*float64(wrappedLines(s, width)) + 2
+	return book.LineHeight*float64(book.WrappedLines(s, width)) + 2
 }
 
 // ---- Rejected ----
@@ -458,22 +459,22 @@ type problemRow struct {
 	status string
 }
 
-func problemColumns() []column[problemRow] {
-	return []column[problemRow]{
-		{"Severity", 9, func(r problemRow) cell { return code(r.p.Severity.String()) }},
-		{"Row status", 16, func(r problemRow) cell { return text(r.status) }},
-		{"Sheet", 12, func(r problemRow) cell { return text(r.p.Sheet) }},
-		{"Row", 6, func(r problemRow) cell {
+func problemColumns() []book.Column[problemRow] {
+	return []book.Column[problemRow]{
+		{Header: "Severity", Width: 9, Value: func(r problemRow) book.Cell { return book.Code(r.p.Severity.String()) }},
+		{Header: "Row status", Width: 16, Value: func(r problemRow) book.Cell { return book.Text(r.status) }},
+		{Header: "Sheet", Width: 12, Value: func(r problemRow) book.Cell { return book.Text(r.p.Sheet) }},
+		{Header: "Row", Width: 6, Value: func(r problemRow) book.Cell {
 			if r.p.Row <= 0 {
-				return cell{}
+				return book.Cell{}
 			}
-			return integer(r.p.Row)
+			return book.Integer(r.p.Row)
 		}},
-		{"Cell", 14, func(r problemRow) cell { return text(r.p.Cell()) }},
-		{"Field", 16, func(r problemRow) cell { return optText(r.p.Field) }},
-		{"ID", 12, func(r problemRow) cell { return optText(r.p.ID) }},
-		{"Message", 50, func(r problemRow) cell { return wrapText(r.p.Message) }},
-		{"Fix", 40, func(r problemRow) cell { return wrapText(r.p.Fix) }},
+		{Header: "Cell", Width: 14, Value: func(r problemRow) book.Cell { return book.Text(r.p.Cell()) }},
+		{Header: "Field", Width: 16, Value: func(r problemRow) book.Cell { return book.OptText(r.p.Field) }},
+		{Header: "ID", Width: 12, Value: func(r problemRow) book.Cell { return book.OptText(r.p.ID) }},
+		{Header: "Message", Width: 50, Value: func(r problemRow) book.Cell { return book.WrapText(r.p.Message) }},
+		{Header: "Fix", Width: 40, Value: func(r problemRow) book.Cell { return book.WrapText(r.p.Fix) }},
 	}
 }
 

@@ -38,8 +38,8 @@ func vd(v string) audit.Cell {
 	return audit.TextCell(v)
 }
 
-// book is one rerun workbook: report's Book plus the document properties.
-type book struct {
+// rerunBook is one rerun workbook: report's Book plus the document properties.
+type rerunBook struct {
 	*audit.Book
 	f    *excelize.File
 	err  error
@@ -49,7 +49,7 @@ type book struct {
 
 // newBook starts a workbook whose first sheet is first. Audit a gives the site,
 // the survey date and the Method sheet; heading is the page-header text.
-func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
+func newBook(a *assess.Audit, info RunInfo, first, heading string) *rerunBook {
 	if a == nil {
 		a = &assess.Audit{}
 	}
@@ -57,7 +57,7 @@ func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
 		a = &assess.Audit{Survey: &inventory.Survey{}}
 	}
 	s := a.Survey
-	b := &book{f: excelize.NewFile(), site: "site not named", date: "not given"}
+	b := &rerunBook{f: excelize.NewFile(), site: "site not named", date: "not given"}
 	b.Book = audit.NewBook(b.f, a, audit.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine,
 		SurveyFile: s.Path, SurveySHA256: s.SHA256}, heading)
 	if s.Site.Name != "" {
@@ -74,13 +74,13 @@ func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
 	return b
 }
 
-func (b *book) check(err error) {
+func (b *rerunBook) check(err error) {
 	if err != nil && b.err == nil {
 		b.err = err
 	}
 }
 
-func (b *book) write(w io.Writer) error {
+func (b *rerunBook) write(w io.Writer) error {
 	defer b.f.Close()
 	if b.err == nil {
 		b.err = b.Err()

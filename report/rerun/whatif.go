@@ -8,7 +8,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
-	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/book"
 )
 
 // Outcome is what a change did to one object's or station's hazard. An object or
@@ -260,10 +260,10 @@ func orNone(s string) string {
 	return s
 }
 
-// fmtSig formats v with 3 significant digits (audit.FormatSig), trailing zeros
+// fmtSig formats v with 3 significant digits (book.FormatSig), trailing zeros
 // of the mantissa dropped: "55", "1e6", "0.156".
 func fmtSig(v float64) string {
-	s := audit.FormatSig(v, 3)
+	s := book.FormatSig(v, 3)
 	mant, exp, hasExp := strings.Cut(s, "e")
 	if strings.Contains(mant, ".") {
 		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")

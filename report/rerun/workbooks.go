@@ -9,6 +9,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -167,7 +168,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	}
 	var rows [][]audit.Cell
 	for _, st := range sw.Steps {
-		row := []audit.Cell{audit.QuantityCell(audit.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
+		row := []audit.Cell{audit.QuantityCell(book.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
 		for _, x := range st.Stations {
 			row = append(row, audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
 		}
@@ -223,7 +224,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 
 	rows = nil
 	for _, c := range sw.Clearances {
-		clears := audit.QuantityCell(audit.UnitPercentRH, c.ClearsAt)
+		clears := audit.QuantityCell(book.UnitPercentRH, c.ClearsAt)
 		first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
 		var fv, lv string
 		for j := range first.Stations {

@@ -1,4 +1,4 @@
-package audit
+package book
 
 import (
 	"math"
@@ -47,8 +47,8 @@ func TestUnitUndefined(t *testing.T) {
 		if s := UnitKV.Text(v); s != "–" {
 			t.Errorf("Text(%v) = %q, want –", v, s)
 		}
-		if p := finite(v); p != nil {
-			t.Errorf("finite(%v) = %v, want nil", v, *p)
+		if p := Finite(v); p != nil {
+			t.Errorf("Finite(%v) = %v, want nil", v, *p)
 		}
 	}
 	if c := UnitMJ.Cell(0); c != 0.0 {
@@ -103,10 +103,10 @@ func TestHeaders(t *testing.T) {
 }
 
 func TestEstFormat(t *testing.T) {
-	if got, want := estFormat("0.0"), `0.0" est."`; got != want {
+	if got, want := EstFormat("0.0"), `0.0" est."`; got != want {
 		t.Errorf("estFormat = %q, want %q", got, want)
 	}
-	if got, want := estFormat(fmtWide2), `[=0]0" est.";[<0.01]0.0E+00" est.";0.00" est."`; got != want {
+	if got, want := EstFormat(fmtWide2), `[=0]0" est.";[<0.01]0.0E+00" est.";0.00" est."`; got != want {
 		t.Errorf("estFormat = %q, want %q", got, want)
 	}
 }

@@ -1,4 +1,4 @@
-package audit
+package book
 
 import (
 	"math"
@@ -232,19 +232,19 @@ func FormatRatio(r *float64) string {
 	return FormatSig(*r, 3)
 }
 
-// finite returns a pointer to v, or nil when v is NaN or infinite: the JSON
+// Finite returns a pointer to v, or nil when v is NaN or infinite: the JSON
 // null of "not defined".
-func finite(v float64) *float64 {
+func Finite(v float64) *float64 {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return nil
 	}
 	return &v
 }
 
-// finitePtr returns p unless it points at NaN or Inf.
-func finitePtr(p *float64) *float64 {
+// FinitePtr returns p unless it points at NaN or Inf.
+func FinitePtr(p *float64) *float64 {
 	if p == nil {
 		return nil
 	}
-	return finite(*p)
+	return Finite(*p)
 }

@@ -1,4 +1,4 @@
-package audit
+package book
 
 import (
 	"archive/zip"
@@ -12,11 +12,11 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
-// canonicalZip copies the zip package in r to w with its entries in a fixed
+// CanonicalZip copies the zip package in r to w with its entries in a fixed
 // order ([Content_Types].xml, then _rels/.rels, then by name) and a fixed
 // modification time, so that the same cells give the same bytes: excelize
 // writes its parts in map order.
-func canonicalZip(r io.ReaderAt, size int64, w io.Writer) error {
+func CanonicalZip(r io.ReaderAt, size int64, w io.Writer) error {
 	zr, err := zip.NewReader(r, size)
 	if err != nil {
 		return err
@@ -110,10 +110,10 @@ func sortContentTypes(b []byte) []byte {
 	return append(out, b[prev:]...)
 }
 
-// writeCanonical writes the workbook package through a temporary file (big
+// WriteCanonical writes the workbook package through a temporary file (big
 // audits stay out of memory) in tmpDir ("" for the system's temporary
 // folder) and copies it to w in canonical order.
-func writeCanonical(f *excelize.File, w io.Writer, tmpDir string) error {
+func WriteCanonical(f *excelize.File, w io.Writer, tmpDir string) error {
 	tmp, err := os.CreateTemp(tmpDir, "sparkmargin-audit-*.xlsx")
 	if err != nil {
 		return err
@@ -126,5 +126,5 @@ func writeCanonical(f *excelize.File, w io.Writer, tmpDir string) error {
 	if err != nil {
 		return err
 	}
-	return canonicalZip(tmp, n, w)
+	return CanonicalZip(tmp, n, w)
 }
