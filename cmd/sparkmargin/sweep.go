@@ -60,7 +60,11 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
 	}
 	sw := rerun.RunSweep(s, steps)
-	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return withCode(exitUsage, err)
+	}
+	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
 	if err := report.WriteOutputs(o.ws, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteSweepWorkbook(w, sw, info) },
 		func(w io.Writer) error { return rerun.WriteSweepJSON(w, sw) }); err != nil {

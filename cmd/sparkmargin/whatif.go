@@ -107,7 +107,11 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	if err != nil {
 		return withCode(exitUsage, err)
 	}
-	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return withCode(exitUsage, err)
+	}
+	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
 	if err := report.WriteOutputs(o.ws, xlsx, o.json,
 		func(w io.Writer) error { return rerun.WriteWhatifWorkbook(w, x, info) },
 		func(w io.Writer) error { return rerun.WriteWhatifJSON(w, x) }); err != nil {

@@ -13,6 +13,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -20,6 +21,9 @@ import (
 type RunInfo struct {
 	ToolVersion string
 	CommandLine string
+	// TmpDir is the folder of the temporary file the workbook is written
+	// through before its canonical copy ("" for the system's).
+	TmpDir string
 }
 
 // Short names of report's cell constructors, so the sheet code reads as rows.
@@ -41,10 +45,11 @@ func vd(v string) audit.Cell {
 // rerunBook is one rerun workbook: report's Book plus the document properties.
 type rerunBook struct {
 	*audit.Book
-	f    *excelize.File
-	err  error
-	site string
-	date string
+	f      *excelize.File
+	err    error
+	site   string
+	date   string
+	tmpDir string
 }
 
 // newBook starts a workbook whose first sheet is first. Audit a gives the site,
@@ -57,7 +62,7 @@ func newBook(a *assess.Audit, info RunInfo, first, heading string) *rerunBook {
 		a = &assess.Audit{Survey: &inventory.Survey{}}
 	}
 	s := a.Survey
-	b := &rerunBook{f: excelize.NewFile(), site: "site not named", date: "not given"}
+	b := &rerunBook{f: excelize.NewFile(), site: "site not named", date: "not given", tmpDir: info.TmpDir}
 	b.Book = audit.NewBook(b.f, a, audit.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine,
 		SurveyFile: s.Path, SurveySHA256: s.SHA256}, heading)
 	if s.Site.Name != "" {
@@ -89,7 +94,8 @@ func (b *rerunBook) write(w io.Writer) error {
 		return fmt.Errorf("workbook: %w", b.err)
 	}
 	b.f.SetActiveSheet(0)
-	if _, err := b.f.WriteTo(w); err != nil {
+	// Canonical order, as the audit: the same rerun gives the same bytes.
+	if err := book.WriteCanonical(b.f, w, b.tmpDir); err != nil {
 		return fmt.Errorf("workbook: %w", err)
 	}
 	return nil
