@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strconv"
 	"strings"
 )
 
@@ -347,11 +346,12 @@ func siteItemProblem(it SiteItem, column string, sev Severity, message, fix stri
 	}
 }
 
-// splitValue splits "400 mJ" into "400" and "mJ".
+// splitValue splits "400 mJ" into "400" and "mJ" ("1,5 mJ" into "1,5" and
+// "mJ": the number is read by ParseNumber, as a survey cell's).
 func splitValue(raw string) (string, string) {
 	raw = strings.TrimSpace(raw)
 	if i := strings.IndexFunc(raw, func(r rune) bool {
-		return !(r >= '0' && r <= '9' || r == '.' || r == 'e' || r == 'E' || r == '+' || r == '-')
+		return !(r >= '0' && r <= '9' || r == '.' || r == ',' || r == 'e' || r == 'E' || r == '+' || r == '-')
 	}); i >= 0 {
 		return strings.TrimSpace(raw[:i]), strings.TrimSpace(raw[i:])
 	}
@@ -365,7 +365,7 @@ func parseLimitValue(raw, keyUnit string, key LimitItem) (float64, error) {
 		return 0, errors.New("no value given")
 	}
 	num, valUnit := splitValue(raw)
-	v, err := strconv.ParseFloat(num, 64)
+	v, err := parseNumber(num)
 	if err != nil {
 		return 0, fmt.Errorf("%q is not a number", raw)
 	}
@@ -428,7 +428,7 @@ func parseSpread(raw, keyUnit string, u UncertaintyItem) (float64, string, error
 	if num == "" {
 		return 0, "", errors.New("no value given")
 	}
-	v, err := strconv.ParseFloat(num, 64)
+	v, err := parseNumber(num)
 	if err != nil {
 		return 0, "", fmt.Errorf("%q is not a number", raw)
 	}
