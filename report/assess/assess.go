@@ -224,31 +224,28 @@ func (x *objectContext) environment(st *inventory.Station) (model.Environment, *
 func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Material, []Default) {
 	var defs []Default
 	kind, _ := model.ParseKind(o.Kind)
-	in := model.Input{
-		Kind:             kind,
-		Material:         unknownMaterial(),
-		Length:           o.Length.OrNaN(),
-		Width:            o.Width.OrNaN(),
-		Diameter:         o.Diameter.OrNaN(),
-		Thickness:        o.Thickness.OrNaN(),
-		EarthedBacking:   strings.EqualFold(strings.TrimSpace(o.Backing), "earthed"),
-		DistanceToEarth:  o.DistanceToEarth.OrNaN(),
-		Field:            o.Field.OrNaN(),
-		FieldDistance:    o.FieldDistance.OrNaN(),
-		SurfacePotential: o.SurfacePotential.OrNaN(),
-		Speed:            o.Speed.OrNaN(),
-		MassFlow:         o.MassFlow.OrNaN(),
-		ChargeToMass:     o.ChargeToMass.OrNaN(),
-		ChargingCurrent:  o.ChargingCurrent.OrNaN(),
-		ChargingTime:     o.ChargingTime.OrNaN(),
-		ParticleSize:     o.ParticleSize.OrNaN(),
-		Resistance:       o.Resistance.OrNaN(),
-		Capacitance:      o.Capacitance.OrNaN(),
-		Conductivity:     o.Conductivity.OrNaN(),
-		Permittivity:     o.Permittivity.OrNaN(),
-		ProductMIE:       math.NaN(), // no survey column: the model takes the station's dust MIE
-		LayerBreakdown:   o.LayerBreakdown.OrNaN(),
-	}
+	in := model.NewInput(kind) // every quantity not given until read from the row
+	in.Length = o.Length.OrNaN()
+	in.Width = o.Width.OrNaN()
+	in.Diameter = o.Diameter.OrNaN()
+	in.Thickness = o.Thickness.OrNaN()
+	in.EarthedBacking = strings.EqualFold(strings.TrimSpace(o.Backing), "earthed")
+	in.DistanceToEarth = o.DistanceToEarth.OrNaN()
+	in.Field = o.Field.OrNaN()
+	in.FieldDistance = o.FieldDistance.OrNaN()
+	in.SurfacePotential = o.SurfacePotential.OrNaN()
+	in.Speed = o.Speed.OrNaN()
+	in.MassFlow = o.MassFlow.OrNaN()
+	in.ChargeToMass = o.ChargeToMass.OrNaN()
+	in.ChargingCurrent = o.ChargingCurrent.OrNaN()
+	in.ChargingTime = o.ChargingTime.OrNaN()
+	in.ParticleSize = o.ParticleSize.OrNaN()
+	in.Resistance = o.Resistance.OrNaN()
+	in.Capacitance = o.Capacitance.OrNaN()
+	in.Conductivity = o.Conductivity.OrNaN()
+	in.Permittivity = o.Permittivity.OrNaN()
+	in.LayerBreakdown = o.LayerBreakdown.OrNaN()
+	// ProductMIE stays NaN: no survey column, the model takes the station's dust MIE.
 	in.Process, _ = model.ParseProcess(o.Process)
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)
@@ -344,10 +341,7 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 	return defs
 }
 
-func unknownMaterial() model.Material {
-	nan := math.NaN()
-	return model.Material{Permittivity: nan, SurfaceResistivity: nan, VolumeResistivity: nan, BreakdownStrength: nan}
-}
+func unknownMaterial() model.Material { return model.UnknownMaterial() }
 
 // evalDefaults lists the defaults the model's result rests on.
 func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
