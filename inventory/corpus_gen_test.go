@@ -17,6 +17,7 @@ import (
 	"strings"
 	"testing"
 	"time"
+	"unicode/utf16"
 
 	"github.com/xuri/excelize/v2"
 )
@@ -283,6 +284,153 @@ func corpusCases() []corpusCase {
 				s = s[:j+2] + decl + s[j+2:]
 				re := regexp.MustCompile(`<c r="D5"[^>]*>.*?</c>`)
 				return []byte(re.ReplaceAllString(s, `<c r="D5" t="inlineStr"><is><t>&xxe;</t></is></c>`))
+			}},
+		// Misread sheet XML: every cell where its reference says, every row
+		// where its number says (or a located problem).
+		{name: "cell-out-of-order", fault: "COAT-WEB's cells written in the order L5, A5, B5, ... (out of column order, as some programs write them): read by their references, no problem",
+			raw: objectsXML(func(s string) string {
+				row := rowXML(s, "5")
+				l := regexp.MustCompile(`<c r="L5"[^>]*>.*?</c>`).FindString(row)
+				moved := strings.Replace(strings.Replace(row, l, "", 1), `<row r="5">`, `<row r="5">`+l, 1)
+				return strings.Replace(s, row, moved, 1)
+			})},
+		{name: "shared-string-index-text", fault: "COAT-WEB Station and DRY-TC Kind refer to shared strings by the texts abc and #REF! instead of numbers",
+			raw: objectsXML(func(s string) string {
+				s = replaceCell(s, "B5", `<c r="B5" t="s"><v>abc</v></c>`)
+				return replaceCell(s, "C13", `<c r="C13" t="s"><v>#REF!</v></c>`)
+			})},
+		{name: "shared-string-index-range", fault: "COAT-WEB Kind refers to shared string 99999 (there are about 200) and DRY-TC Station to shared string -1",
+			raw: objectsXML(func(s string) string {
+				s = replaceCell(s, "C5", `<c r="C5" t="s"><v>99999</v></c>`)
+				return replaceCell(s, "B13", `<c r="B13" t="s"><v>-1</v></c>`)
+			})},
+		{name: "bad-style", fault: "COAT-WEB Field has the style s=\"abc\" and REW-BELT Field the style s=\"9999\", neither in the style table",
+			raw: objectsXML(func(s string) string {
+				s = replaceCell(s, "L5", `<c r="L5" s="abc"><v>400</v></c>`)
+				return replaceCell(s, "L21", `<c r="L21" s="9999"><v>10</v></c>`)
+			})},
+		{name: "rows-out-of-order", fault: "Objects rows 12 and 13 written in the order 13, 12 in the sheet's XML",
+			raw: objectsXML(func(s string) string {
+				r12, r13 := rowXML(s, "12"), rowXML(s, "13")
+				return strings.Replace(s, r12+r13, r13+r12, 1)
+			})},
+		{name: "row-repeated", fault: "Objects row 13 (DRY-TC) written twice in the sheet's XML, one after the other",
+			raw: objectsXML(func(s string) string {
+				r13 := rowXML(s, "13")
+				return strings.Replace(s, r13, r13+r13, 1)
+			})},
+		{name: "row-number-invalid", fault: "two rows numbered 0 and -3 after the last Objects row, each with an ID in a cell A0 and A-3",
+			raw: objectsXML(func(s string) string {
+				extra := `<row r="0"><c r="A0" t="inlineStr"><is><t>EXTRA-0</t></is></c></row>` +
+					`<row r="-3"><c r="A-3" t="inlineStr"><is><t>EXTRA-3</t></is></c></row>`
+				return strings.Replace(s, "</sheetData>", extra+"</sheetData>", 1)
+			})},
+		{name: "cell-ref-bad", fault: "the Description cells of COAT-WEB, DRY-TC and REW-BELT referenced as D0, ZZZZZ13 and D1048577",
+			raw: objectsXML(func(s string) string {
+				s = strings.Replace(s, `<c r="D5" `, `<c r="D0" `, 1)
+				s = strings.Replace(s, `<c r="D13" `, `<c r="ZZZZZ13" `, 1)
+				return strings.Replace(s, `<c r="D21" `, `<c r="D1048577" `, 1)
+			})},
+		{name: "sheet-part-elsewhere", fault: "the Objects sheet's part stored as xl/data/objects.xml (its relationship says where): read as usual, no problem",
+			file: moveObjectsPart(demoBytes, "xl/data/objects.xml", nil)},
+		{name: "sheet-part-elsewhere-truncated", fault: "the Objects sheet's part stored as xl/data/objects.xml and cut after row 10",
+			file: moveObjectsPart(demoBytes, "xl/data/objects.xml", func(b []byte) []byte {
+				return b[:bytes.Index(b, []byte(`<row r="11"`))]
+			})},
+		{name: "sheet-names-case-twice", fault: "a second sheet named OBJECTS beside Objects, showing the same part",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/workbook.xml" {
+					return b
+				}
+				return bytes.Replace(b, []byte("</sheets>"), []byte(`<sheet name="OBJECTS" sheetId="6" r:id="rId7"></sheet></sheets>`), 1)
+			}},
+		{name: "sheet-names-space-twice", fault: "a second sheet named \"Obj ects\" beside Objects, showing the same part",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/workbook.xml" {
+					return b
+				}
+				return bytes.Replace(b, []byte("</sheets>"), []byte(`<sheet name="Obj ects" sheetId="6" r:id="rId7"></sheet></sheets>`), 1)
+			}},
+		{name: "boolean-with-far-stray", fault: "COAT-WEB Width is the boolean TRUE and COAT-WEB has a stray value in column XFD",
+			post: func(f *excelize.File) error {
+				if err := f.SetCellBool(SheetObjects, "G5", true); err != nil {
+					return err
+				}
+				return f.SetCellValue(SheetObjects, "XFD5", "stray")
+			}},
+		{name: "styles-long-text", fault: "the style part holds 1 MiB of text in an extension element (read as usual, no problem)",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/styles.xml" {
+					return b
+				}
+				ext := `<extLst><ext uri="x">` + strings.Repeat("styles ", (1<<20)/7) + `</ext></extLst>`
+				return bytes.Replace(b, []byte("</styleSheet>"), []byte(ext+"</styleSheet>"), 1)
+			}},
+		{name: "shared-strings-flood", fault: "2,000,000 empty shared strings appended to the shared-strings part",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/sharedStrings.xml" {
+					return b
+				}
+				return bytes.Replace(b, []byte("</sst>"), append(bytes.Repeat([]byte("<si/>"), 2000000), "</sst>"...), 1)
+			}},
+		{name: "media-zeros", fault: "a media part xl/media/image1.png of 1 GiB of zeros, declared honestly (never unpacked: read as usual, no problem)", transient: true,
+			write: func(t testing.TB, path string) { writeExtraBomb(t, demoBytes(), path, "xl/media/image1.png", 1<<30) }},
+		// Package faults: refused with a sentence that says what the file is.
+		{name: "zip-duplicate-entry", fault: "the zip holds the Objects sheet's part twice under one name, the second copy without COAT-WEB",
+			file: func() []byte {
+				return editZip(demoBytes(), func(zw *zip.Writer, name string, b []byte) {
+					if name == "xl/worksheets/sheet4.xml" {
+						writeZipPart(zw, name, regexp.MustCompile(`<row r="5".*?</row>`).ReplaceAll(b, nil))
+					}
+				}, nil)
+			}},
+		{name: "part-shorter-than-declared", fault: "the zip header of the Objects sheet's part declares 100 bytes more than it holds",
+			file: func() []byte {
+				return editZip(demoBytes(), nil, func(name string, h *zip.FileHeader, b []byte) []byte {
+					if name == "xl/worksheets/sheet4.xml" {
+						h.UncompressedSize64 = uint64(len(b) + 100)
+					}
+					return b
+				})
+			}},
+		{name: "utf16-sheet", fault: "the Objects sheet's part re-encoded as UTF-16 (little-endian with a byte-order mark), which is valid XML",
+			raw: objectsXMLBytes(func(b []byte) []byte {
+				s := strings.Replace(string(b), `encoding="UTF-8"`, `encoding="UTF-16"`, 1)
+				out := []byte{0xFF, 0xFE}
+				for _, r := range utf16.Encode([]rune(s)) {
+					out = append(out, byte(r), byte(r>>8))
+				}
+				return out
+			})},
+		{name: "compression-unsupported", fault: "the Objects sheet's part stored with compression method 12 (bzip2), which the zip format allows",
+			file: func() []byte {
+				return editZip(demoBytes(), nil, func(name string, h *zip.FileHeader, b []byte) []byte {
+					if name == "xl/worksheets/sheet4.xml" {
+						h.Method = 12
+					}
+					return b
+				})
+			}},
+		{name: "relationship-outside", fault: "the workbook's relationship for the Objects sheet points to ../../../etc/passwd",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/_rels/workbook.xml.rels" {
+					return b
+				}
+				return bytes.Replace(b, []byte(`Target="worksheets/sheet4.xml"`), []byte(`Target="../../../etc/passwd"`), 1)
+			}},
+		{name: "workbook-xml-malformed", fault: "the workbook part xl/workbook.xml has a sheet element closed by the wrong tag",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/workbook.xml" {
+					return b
+				}
+				return bytes.Replace(b, []byte("</sheets>"), []byte("</sheet>"), 1)
+			}},
+		{name: "styles-xml-malformed", fault: "the style part xl/styles.xml cut in half",
+			raw: func(name string, b []byte) []byte {
+				if name != "xl/styles.xml" {
+					return b
+				}
+				return b[:len(b)/2]
 			}},
 		// Files that are no survey workbook.
 		{name: "empty", fault: "an empty file", file: func() []byte { return []byte{} }},
@@ -675,5 +823,182 @@ func checkGeneratedBytes(t *testing.T, path string, data []byte) {
 	old, ok := readGenerated(t, path, data)
 	if ok && !bytes.Equal(old, data) {
 		t.Errorf("%s is out of date with its Go source (run go test ./inventory -update)", path)
+	}
+}
+
+// objectsXML edits the demo's Objects sheet part (xl/worksheets/sheet4.xml) as text.
+func objectsXML(edit func(s string) string) func(string, []byte) []byte {
+	return objectsXMLBytes(func(b []byte) []byte { return []byte(edit(string(b))) })
+}
+
+// objectsXMLBytes edits the demo's Objects sheet part.
+func objectsXMLBytes(edit func(b []byte) []byte) func(string, []byte) []byte {
+	return func(name string, b []byte) []byte {
+		if name != "xl/worksheets/sheet4.xml" {
+			return b
+		}
+		return edit(b)
+	}
+}
+
+// rowXML returns the <row> element of row r in a sheet part.
+func rowXML(s, r string) string {
+	row := regexp.MustCompile(`<row r="` + r + `".*?</row>`).FindString(s)
+	if row == "" {
+		panic("corpus: no row " + r)
+	}
+	return row
+}
+
+// replaceCell replaces the cell element ref of a sheet part.
+func replaceCell(s, ref, xml string) string {
+	re := regexp.MustCompile(`<c r="` + ref + `"[^>]*>.*?</c>`)
+	if !re.MatchString(s) {
+		panic("corpus: no cell " + ref)
+	}
+	return re.ReplaceAllLiteralString(s, xml)
+}
+
+// moveObjectsPart returns the demo survey with the Objects sheet's part
+// stored under the name to (edited by edit when not nil), its relationship
+// and content type pointing there.
+func moveObjectsPart(demo func() []byte, to string, edit func([]byte) []byte) func() []byte {
+	return func() []byte {
+		zr, err := zip.NewReader(bytes.NewReader(demo()), int64(len(demo())))
+		if err != nil {
+			panic(err)
+		}
+		var buf bytes.Buffer
+		zw := zip.NewWriter(&buf)
+		for _, zf := range zr.File {
+			rc, err := zf.Open()
+			if err != nil {
+				panic(err)
+			}
+			b, _ := io.ReadAll(rc)
+			rc.Close()
+			name := zf.Name
+			switch name {
+			case "xl/worksheets/sheet4.xml":
+				name = to
+				if edit != nil {
+					b = edit(b)
+				}
+			case "xl/_rels/workbook.xml.rels":
+				b = bytes.Replace(b, []byte(`Target="worksheets/sheet4.xml"`), []byte(`Target="/`+to+`"`), 1)
+			case "[Content_Types].xml":
+				b = bytes.Replace(b, []byte(`/xl/worksheets/sheet4.xml`), []byte(`/`+to), 1)
+			}
+			writeZipPart(zw, name, b)
+		}
+		if err := zw.Close(); err != nil {
+			panic(err)
+		}
+		return buf.Bytes()
+	}
+}
+
+// editZip copies a zip: add may write extra entries after each part (it is
+// called with each part's name and bytes), and header may change a part's
+// header and bytes, which are then written raw (stored, not compressed),
+// so that a header may declare what the bytes are not.
+func editZip(data []byte, add func(zw *zip.Writer, name string, b []byte), header func(name string, h *zip.FileHeader, b []byte) []byte) []byte {
+	zr, err := zip.NewReader(bytes.NewReader(data), int64(len(data)))
+	if err != nil {
+		panic(err)
+	}
+	var buf bytes.Buffer
+	zw := zip.NewWriter(&buf)
+	for _, zf := range zr.File {
+		rc, err := zf.Open()
+		if err != nil {
+			panic(err)
+		}
+		b, err := io.ReadAll(rc)
+		rc.Close()
+		if err != nil {
+			panic(err)
+		}
+		if header != nil {
+			h := &zip.FileHeader{Name: zf.Name, Method: zip.Store, Modified: zf.Modified, CRC32: crc32.ChecksumIEEE(b), UncompressedSize64: uint64(len(b))}
+			b = header(zf.Name, h, b)
+			h.CompressedSize64 = uint64(len(b))
+			w, err := zw.CreateRaw(h)
+			if err != nil {
+				panic(err)
+			}
+			w.Write(b)
+		} else {
+			writeZipPart(zw, zf.Name, b)
+		}
+		if add != nil {
+			add(zw, zf.Name, b)
+		}
+	}
+	if err := zw.Close(); err != nil {
+		panic(err)
+	}
+	return buf.Bytes()
+}
+
+// writeZipPart writes one deflated entry.
+func writeZipPart(zw *zip.Writer, name string, b []byte) {
+	w, err := zw.CreateHeader(&zip.FileHeader{Name: name, Method: zip.Deflate, Modified: time.Date(2026, 2, 10, 0, 0, 0, 0, time.UTC)})
+	if err != nil {
+		panic(err)
+	}
+	w.Write(b)
+}
+
+// writeExtraBomb writes the demo survey with an extra part of size zero
+// bytes (a multiple of 1 MiB), deflated as writeBomb does, its size declared
+// honestly.
+func writeExtraBomb(t testing.TB, demo []byte, path, part string, size uint64) {
+	t.Helper()
+	const chunk = 1 << 20
+	zeros := make([]byte, chunk)
+	var both bytes.Buffer
+	fw, _ := flate.NewWriter(&both, flate.BestCompression)
+	fw.Write(zeros)
+	fw.Flush()
+	n1 := both.Len()
+	fw.Write(zeros)
+	fw.Flush()
+	block := append([]byte(nil), both.Bytes()[n1:]...)
+	fw.Close()
+	tail := append([]byte(nil), both.Bytes()[n1+len(block):]...)
+	var stream bytes.Buffer
+	stream.Write(both.Bytes()[:n1])
+	for i := uint64(1); i < size/chunk; i++ {
+		stream.Write(block)
+	}
+	stream.Write(tail)
+	h := crc32.NewIEEE()
+	for i := uint64(0); i < size/chunk; i++ {
+		h.Write(zeros)
+	}
+	zr, err := zip.NewReader(bytes.NewReader(demo), int64(len(demo)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := os.Create(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer out.Close()
+	zw := zip.NewWriter(out)
+	for _, zf := range zr.File {
+		if err := zw.Copy(zf); err != nil {
+			t.Fatal(err)
+		}
+	}
+	w, err := zw.CreateRaw(&zip.FileHeader{Name: part, Method: zip.Deflate, CRC32: h.Sum32(),
+		CompressedSize64: uint64(stream.Len()), UncompressedSize64: size, Modified: time.Date(2026, 2, 10, 0, 0, 0, 0, time.UTC)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w.Write(stream.Bytes())
+	if err := zw.Close(); err != nil {
+		t.Fatal(err)
 	}
 }

@@ -14,32 +14,49 @@
 // opened; its bytes are hashed (Survey.SHA256) and sniffed, so an empty file,
 // a CSV or text file, an encrypted (password-protected) workbook or old .xls,
 // a truncated zip and random bytes each get one sentence. The workbook is
-// opened with excelize's unzip limits and a private temporary folder that is
-// removed afterwards; a panic inside the reader becomes an UnreadableError.
-// Before excelize reads them, the worksheet and shared-strings parts are
-// streamed once through a check (partscan.go): parts declaring more than the
-// unzip limit in total, a part that unpacks to more than its zip header says,
-// a run of over 4 MiB without markup (a bomb of zeros under the limit, which
-// excelize's XML decoder would hold in memory whole), or XML that is
-// malformed or cut short (excelize's row iterator stops silently at a syntax
-// error, so rows would be lost unseen) make the file unreadable. Entities are
-// never resolved. Parts over 64 MiB are checked for their closing tag and text
-// runs only, not token by token. A zip without a workbook part says what it
-// is (OpenDocument, .docx, .pptx). Rows are kept up to their last non-blank
-// cell and at most to column AMJ (1024): values beyond get one warning per
-// sheet, and a sheet part with more than 200 cells beyond AMJ is refused
-// (excelize would make each such row a slice of up to 16384 cells).
-// Rows are streamed with raw cell values (numbers unformatted; a formula gives
-// its cached value; formulas are never calculated). After streaming, on
-// sheets of up to 5000 rows, a cell reading 0 or 1 in a numeric column is
-// asked for its type, so a TRUE/FALSE cell is an error rather than 1 or 0; a
-// number in a numeric column whose format shows a date is an error (its
-// serial, e.g. 46025, would pass for a value); a blank cell of a known column
-// holding a formula without a stored result is an error (not "not measured").
+// read by the package's own reader (pkg.go, xmltok.go, sheetscan.go), not by
+// a spreadsheet library: the zip's directory is indexed (two entries of one
+// name, or parts declaring more than the unzip limit in total, refuse the
+// file); the workbook part is found through the package relationships, its
+// sheets, date system and relationships read, and each sheet's part is the
+// one its relationship points to, wherever it is stored (a relationship that
+// points outside the package is refused and never followed). Every part the
+// reader needs is unpacked once, as a stream, and read once by xmlTok, a
+// tokenizer that is also the part's check: XML that is malformed or cut
+// short, a DOCTYPE (entities are never declared or expanded), a text
+// encoding other than UTF-8 (a UTF-16 part is named as such), a tag over
+// 1 MiB, a text run over 4 MiB, nesting over 256 deep, a part that unpacks
+// to another size than its zip header states, or a compression method the
+// zip reader does not know each refuse the file with one sentence naming the
+// part (and, for a sheet, the last row read). Parts the reader does not need
+// (media, themes) are never unpacked. The style table is read for which cell
+// formats show dates; the shared strings are kept as one block of text, at
+// most 1,048,576 of them or one per byte of the file, whichever is more.
+// No temporary file is made.
+//
+// A sheet is scanned row by row: every cell is placed by its reference (in
+// any order); a row out of order or repeated, with a bad row number, a cell
+// reference that is no cell (A0, ZZZZZ5, a row past 1,048,576), a cell outside
+// its row or two cells at one place is an error at that row and the row is
+// rejected, never merged into another; a cell whose shared-string index or
+// style is not in the workbook, or whose type is unknown, is an error at the
+// cell. Rows are kept up to their last non-blank cell and at most to column
+// AMJ (1024): values beyond get one warning per sheet, and a sheet part with
+// more than 200 of them is refused. What is kept of rows that are not
+// streamed is bounded by the file's size (cells and text), and a cell holds
+// at most 32,767 characters. Raw cell values are read (numbers unformatted;
+// a formula gives its cached value; formulas are never calculated), and on
+// every row of every sheet, whatever its size: a TRUE/FALSE cell in a
+// numeric column is an error rather than 1 or 0; a number in a numeric
+// column whose format shows a date is an error (its serial, e.g. 46025,
+// would pass for a value); a cell of a known column holding a formula
+// without a stored result is an error (not "not measured").
 // Hidden rows and sheets are read like any other, with a warning.
 //
-// Sheet names match case-insensitively. Sheets outside the contract get a
-// warning, except helper sheets (Lists, Help, Read me, Instructions, About).
+// Sheet names match case-insensitively. Two sheets whose names differ only
+// in case or spaces ("Objects", "OBJECTS", "Obj ects") and match one survey
+// sheet are an error on that sheet, and neither is read. Sheets outside the
+// contract get a warning, except helper sheets (Lists, Help, Read me, Instructions, About).
 // Missing Site, Stations or Objects sheets are errors; Atmospheres, Materials
 // and Changes are optional.
 //

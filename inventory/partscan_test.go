@@ -33,27 +33,6 @@ func TestDateFormatCode(t *testing.T) {
 	}
 }
 
-func TestClosesRoot(t *testing.T) {
-	tests := []struct {
-		tail string
-		want bool
-	}{
-		{"</sheetData></worksheet>", true},
-		{"</sheetData></worksheet>\r\n", true},
-		{"</x:worksheet>", true},
-		{"<t>a</t></si></sst>", true},
-		{"</row>", false},
-		{"<row r=\"11\"", false},
-		{"", false},
-		{"<worksheet/>", false}, // self-closed roots are told by the XML check, which the tail check is not
-	}
-	for _, tc := range tests {
-		if got := closesRoot([]byte(tc.tail)); got != tc.want {
-			t.Errorf("closesRoot(%q) = %v, want %v", tc.tail, got, tc.want)
-		}
-	}
-}
-
 // A shared-strings part with no strings may be a self-closed root: complete.
 func TestCheckPartsSelfClosedRoot(t *testing.T) {
 	data, err := DemoSurveyBytes()
@@ -72,7 +51,65 @@ func TestCheckPartsSelfClosedRoot(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if why := checkParts(zr, ReadOptions{}.withDefaults()); why != "" {
-		t.Errorf("checkParts: %s", why)
+	if _, err := openPkg(zr, int64(len(b)), ReadOptions{}.withDefaults()); err != nil {
+		t.Errorf("openPkg: %v", err)
+	}
+}
+
+// Relationship targets resolve against the folder of their part, absolute
+// ones against the package root; a URL or a path above the root is outside.
+// Source: ECMA-376 Part 2, 9.3 (relationships) and RFC 3986, 5.2 (resolving
+// a relative reference).
+func TestResolveTarget(t *testing.T) {
+	tests := []struct {
+		dir, target, want string
+		outside           bool
+	}{
+		{"xl", "worksheets/sheet1.xml", "xl/worksheets/sheet1.xml", false},
+		{"xl", "/xl/data/objects.xml", "xl/data/objects.xml", false},
+		{"xl", "../data/s.xml", "data/s.xml", false},
+		{"xl", "worksheets/sheet%201.xml", "xl/worksheets/sheet 1.xml", false},
+		{"", "xl/workbook.xml", "xl/workbook.xml", false},
+		{"xl", "../../etc/passwd", "../../etc/passwd", true},
+		{"xl", "file:///etc/passwd", "file:///etc/passwd", true},
+		{"xl", "http://example.invalid/s.xml", "http://example.invalid/s.xml", true},
+	}
+	for _, tc := range tests {
+		got, outside := resolveTarget(tc.dir, tc.target)
+		if got != tc.want || outside != tc.outside {
+			t.Errorf("resolveTarget(%q, %q) = %q, %v; want %q, %v", tc.dir, tc.target, got, outside, tc.want, tc.outside)
+		}
+	}
+}
+
+// Cell references: columns A to XFD, rows 1 to 1,048,576. Source: ECMA-376
+// Part 1, 18.18.62 (ST_Ref) and the sheet limits of 18.3.1.
+func TestParseCellRef(t *testing.T) {
+	tests := []struct {
+		ref      string
+		col, row int
+		ok       bool
+	}{
+		{"A1", 0, 1, true}, {"L5", 11, 5, true}, {"XFD1048576", 16383, 1048576, true}, {"aa10", 26, 10, true},
+		{"A0", 0, 0, false}, {"ZZZZZ5", 0, 0, false}, {"XFE1", 0, 0, false}, {"A1048577", 0, 0, false},
+		{"5", 0, 0, false}, {"A", 0, 0, false}, {"A-3", 0, 0, false}, {"A1B", 0, 0, false}, {"", 0, 0, false},
+	}
+	for _, tc := range tests {
+		col, row, ok := parseCellRef([]byte(tc.ref))
+		if ok != tc.ok || ok && (col != tc.col || row != tc.row) {
+			t.Errorf("parseCellRef(%q) = %d, %d, %v; want %d, %d, %v", tc.ref, col, row, ok, tc.col, tc.row, tc.ok)
+		}
+	}
+}
+
+// Shared and inline strings decode the _xHHHH_ escapes of ST_Xstring.
+// Source: ECMA-376 Part 1, 22.9.2.19 (ST_Xstring).
+func TestUnescapeXString(t *testing.T) {
+	for in, want := range map[string]string{
+		"plain": "plain", "a_x000D_b": "a\rb", "_x005F_x000D_": "_x000D_", "_x00e9_": "é", "_x12_": "_x12_", "_xZZZZ_": "_xZZZZ_",
+	} {
+		if got := string(unescapeXString([]byte(in))); got != want {
+			t.Errorf("unescapeXString(%q) = %q, want %q", in, got, want)
+		}
 	}
 }

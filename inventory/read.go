@@ -53,11 +53,10 @@ type ReadOptions struct {
 	MaxFileSize int64
 	// UnzipSizeLimit caps the unpacked size of the whole workbook (default 2 GiB).
 	UnzipSizeLimit int64
-	// UnzipXMLSizeLimit caps one unpacked part kept in memory; larger parts go
-	// to temporary files in a private folder (default 16 MiB).
+	// UnzipXMLSizeLimit is no longer used: the reader keeps no part whole,
+	// in memory or on disk (it streams every part it reads).
 	UnzipXMLSizeLimit int64
-	// TmpDir is the folder in which a private temporary folder is made and
-	// removed again ("" for the system's).
+	// TmpDir is no longer used: the reader makes no temporary files.
 	TmpDir string
 	// MaxRows caps the rows read per sheet (default DefaultMaxRows, the
 	// sheet's own row limit); a sheet with more gets an error and the rest is
@@ -68,8 +67,8 @@ type ReadOptions struct {
 // Defaults of ReadOptions.
 const (
 	// A survey of a sheet's full 1,048,575 object rows is about 50 MiB and
-	// unpacks to about 0.5 GiB; parts above DefaultUnzipXMLSizeLimit are read
-	// from temporary files, so the unpack limit bounds disk, not memory.
+	// unpacks to about 0.5 GiB; every part is read as a stream, so the
+	// unpack limit bounds the work, not memory.
 	DefaultMaxFileSize       = 256 << 20
 	DefaultUnzipSizeLimit    = 2 << 30
 	DefaultUnzipXMLSizeLimit = 16 << 20
@@ -113,6 +112,10 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if fi.IsDir() {
 		return nil, &UnreadableError{Path: path, Reason: "it is a folder, not a file"}
 	}
+	if !fi.Mode().IsRegular() {
+		// A named pipe would block the open for ever; a device or socket is no workbook.
+		return nil, &UnreadableError{Path: path, Reason: notRegular(fi.Mode())}
+	}
 	if fi.Size() > opts.MaxFileSize {
 		return nil, &UnreadableError{Path: path, Reason: fmt.Sprintf("it is %s, larger than the %s a survey may be", sizeText(fi.Size()), sizeText(opts.MaxFileSize))}
 	}
@@ -120,10 +123,15 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if err != nil {
 		return nil, &UnreadableError{Path: path, Reason: "the file cannot be opened (" + plainOSError(err) + ")", Err: err}
 	}
+	defer fh.Close()
+	// The one open file is hashed and read: a path swapped between the check
+	// above and the open is refused, not read.
+	if ofi, err := fh.Stat(); err != nil || !ofi.Mode().IsRegular() || !os.SameFile(fi, ofi) {
+		return nil, &UnreadableError{Path: path, Reason: "the file changed while it was being opened; run again"}
+	}
 	h := sha256.New()
 	head := &headBuffer{max: 512}
 	n, err := io.Copy(io.MultiWriter(h, head), io.LimitReader(fh, opts.MaxFileSize+1))
-	fh.Close()
 	if err != nil {
 		return nil, &UnreadableError{Path: path, Reason: "reading it failed (" + plainOSError(err) + ")", Err: err}
 	}
@@ -133,27 +141,26 @@ func readFile(path string, opts ReadOptions, hooks *streamHooks) (*Survey, error
 	if why := sniff(head.b, n); why != "" {
 		return nil, &UnreadableError{Path: path, Reason: why}
 	}
-	if zr, err := zip.OpenReader(path); err == nil {
-		why := checkParts(&zr.Reader, opts)
-		zr.Close()
-		if why != "" {
-			return nil, &UnreadableError{Path: path, Reason: why}
-		}
+	zr, err := zip.NewReader(io.NewSectionReader(fh, 0, n), n)
+	if err != nil {
+		return nil, &UnreadableError{Path: path, Reason: zipFailure, Err: err}
 	}
 	sum := hex.EncodeToString(h.Sum(nil))
 	if hooks != nil {
 		hooks.path, hooks.sha = path, sum
 	}
-	s, err := openAndRead(path, opts, func(o excelize.Options) (*excelize.File, error) {
-		return excelize.OpenFile(path, o)
-	}, hooks)
+	s, err := readPackage(path, zr, n, opts, hooks)
 	if err != nil {
-		return s, err
+		return nil, err
 	}
 	s.Path = path
 	s.SHA256 = sum
 	return s, nil
 }
+
+// zipFailure is the reason given for a file that starts as a zip but whose
+// zip directory cannot be read.
+const zipFailure = "it is a damaged or truncated .xlsx (the zip container cannot be read)"
 
 // Read reads and validates a survey workbook held in memory (as ReadFile does;
 // name is used in messages only).
@@ -165,14 +172,11 @@ func Read(data []byte, name string, opts ReadOptions) (*Survey, error) {
 	if why := sniff(data, int64(len(data))); why != "" {
 		return nil, &UnreadableError{Path: name, Reason: why}
 	}
-	if zr, err := zip.NewReader(bytes.NewReader(data), int64(len(data))); err == nil {
-		if why := checkParts(zr, opts); why != "" {
-			return nil, &UnreadableError{Path: name, Reason: why}
-		}
+	zr, err := zip.NewReader(bytes.NewReader(data), int64(len(data)))
+	if err != nil {
+		return nil, &UnreadableError{Path: name, Reason: zipFailure, Err: err}
 	}
-	s, err := openAndRead(name, opts, func(o excelize.Options) (*excelize.File, error) {
-		return excelize.OpenReader(bytes.NewReader(data), o)
-	}, nil)
+	s, err := readPackage(name, zr, int64(len(data)), opts, nil)
 	if err != nil {
 		return nil, err
 	}
@@ -181,53 +185,30 @@ func Read(data []byte, name string, opts ReadOptions) (*Survey, error) {
 	return s, nil
 }
 
-// openAndRead opens the workbook in a private temporary folder, reads it and
-// turns a panic inside excelize or the reader into an UnreadableError.
-func openAndRead(name string, opts ReadOptions, open func(excelize.Options) (*excelize.File, error), hooks *streamHooks) (s *Survey, err error) {
-	tmp, err := os.MkdirTemp(opts.TmpDir, "sparkmargin-read-")
-	if err != nil {
-		return nil, fmt.Errorf("making a temporary folder for reading %s: %w", name, err)
-	}
-	defer os.RemoveAll(tmp)
+// readPackage reads the workbook in zr (of size bytes) and turns a fault of
+// a part, or a panic inside the reader, into an UnreadableError. The reader
+// unpacks every part it reads as a stream and keeps no part whole, in memory
+// or on disk: it makes no temporary files.
+func readPackage(name string, zr *zip.Reader, size int64, opts ReadOptions, hooks *streamHooks) (s *Survey, err error) {
 	defer func() {
 		if r := recover(); r != nil {
+			if pf, ok := r.(*pkgFault); ok {
+				s, err = nil, &UnreadableError{Path: name, Reason: pf.reason, Err: pf}
+				return
+			}
 			s = nil
 			err = &UnreadableError{Path: name, Reason: fmt.Sprintf("the workbook is malformed and reading it failed (%v)", short(fmt.Sprint(r), 120))}
 		}
 	}()
-	f, err := open(excelize.Options{
-		UnzipSizeLimit:    opts.UnzipSizeLimit,
-		UnzipXMLSizeLimit: opts.UnzipXMLSizeLimit,
-		TmpDir:            tmp,
-	})
+	p, err := openPkg(zr, size, opts)
 	if err != nil {
-		if f != nil {
-			f.Close()
-		}
-		return nil, &UnreadableError{Path: name, Reason: openFailure(err, opts), Err: err}
+		return nil, &UnreadableError{Path: name, Reason: err.Error(), Err: err}
 	}
-	defer f.Close()
-	r := &reader{f: f, opts: opts}
+	r := &reader{p: p, opts: opts}
 	if hooks != nil {
 		return r.stream(hooks)
 	}
-	s = r.read()
-	return s, nil
-}
-
-// openFailure words an excelize open error for a surveyor.
-func openFailure(err error, opts ReadOptions) string {
-	msg := err.Error()
-	switch {
-	case errors.Is(err, excelize.ErrWorkbookFileFormat), errors.Is(err, excelize.ErrWorkbookPassword):
-		return "it is password-protected (encrypted) or an old-format .xls; save it as an unprotected .xlsx"
-	case strings.Contains(msg, "unzip size"):
-		return fmt.Sprintf("its contents unpack to more than the %s limit (a damaged or hostile file)", sizeText(opts.UnzipSizeLimit))
-	case strings.Contains(msg, "zip"):
-		return "it is a damaged or truncated .xlsx (the zip container cannot be read)"
-	default:
-		return "it is not a valid .xlsx workbook (" + short(msg, 100) + ")"
-	}
+	return r.read(), nil
 }
 
 // sniff looks at the first bytes and returns a reason when the file is plainly no .xlsx.
@@ -310,6 +291,11 @@ type rawRow struct {
 	Row    int
 	Cells  []string
 	Hidden bool
+	Marks  []cellMark // cells of note (booleans, formulas without a result, dates, unreadable cells)
+	Fault  *rowFault  // why the row cannot be placed or trusted (it is rejected)
+	// Unordered is true when a cell stood left of the one before it in the
+	// file (each is placed by its reference; the differential test uses it).
+	Unordered bool
 }
 
 // table is one table sheet as read: its header and its non-blank data rows.
@@ -323,6 +309,7 @@ type table struct {
 	Bool      map[string]bool     // A1 references of cells stored as booleans in numeric columns
 	Formula   map[string]string   // A1 references of formula cells without a stored result, with the formula
 	Dated     map[string]string   // A1 references of numbers formatted as dates in numeric columns, with the date shown
+	Fault     map[string]string   // A1 references of cells of known columns that cannot be read, with why
 	Index     map[string]int      // column name -> index (first occurrence)
 	BadUnit   map[string]Problem  // numeric columns whose header unit is wrong
 	Missing   []Problem           // missing required columns (reject every row)
@@ -335,18 +322,21 @@ type table struct {
 
 // reader holds one open workbook while it is read.
 type reader struct {
-	f    *excelize.File
+	p    *xlsxPkg
 	opts ReadOptions
 	// rowHook, when set, receives the data rows of hookSheet below its header
 	// instead of Rows; it returns false to stop reading the sheet.
 	rowHook   func(t *table, rr rawRow) bool
 	hookSheet string
 	date1904  bool
-	sheets    map[string]string // normalised name -> actual
-	// dateStyles caches whether a style index shows dates (see dateStyled).
-	dateStyles map[int]bool
+	sheets    map[string]wbSheet // normalised name -> the one sheet of that name
+	// ambiguous holds the survey sheets that more than one sheet of the
+	// workbook matches (the problem to report for each); none of them is read.
+	ambiguous map[string]Problem
 	// farRow is, per sheet, the first row with a value beyond maxColumns.
 	farRow map[string]int
+	// keptCells and keptText count what is kept of the rows read (see keep).
+	keptCells, keptText int64
 }
 
 // helperSheets are sheet names a template or a spreadsheet program may add that
@@ -365,37 +355,86 @@ func (r *reader) read() *Survey {
 	return s
 }
 
+// ErrAmbiguousSheet marks a survey sheet that more than one sheet of the
+// workbook matches (names that differ only in case or spaces): none of them
+// is read, since which one is meant cannot be told.
+var ErrAmbiguousSheet = errors.New("two sheets match one survey sheet")
+
+// compactName is a sheet name without case and spaces, to find sheets that
+// a reader could take for one another ("Objects", "OBJECTS", "Obj ects").
+func compactName(name string) string {
+	return strings.ReplaceAll(NormalizeName(name), " ", "")
+}
+
 // readSheets lists the workbook's sheets (warning about unknown and hidden
-// ones) and reads the Site sheet.
+// ones, refusing two that match one survey sheet), checks the parts of the
+// sheets that are not read, and reads the Site sheet.
 func (r *reader) readSheets() (*Survey, *siteSheet) {
 	s := &Survey{}
-	if p, err := r.f.GetWorkbookProps(); err == nil && p.Date1904 != nil {
-		r.date1904 = *p.Date1904
-	}
-	r.sheets = map[string]string{}
-	known := map[string]bool{}
+	r.date1904 = r.p.date1904
+	r.sheets = map[string]wbSheet{}
+	r.ambiguous = map[string]Problem{}
+	known := map[string]string{} // compact name -> normalised contract name
 	for _, n := range append(Sheets(), SheetChanges) {
-		known[NormalizeName(n)] = true
+		known[compactName(n)] = NormalizeName(n)
 	}
-	for _, name := range r.f.GetSheetList() {
-		n := NormalizeName(name)
+	groups := map[string][]string{}
+	for _, sh := range r.p.sheets {
+		if c := compactName(sh.Name); known[c] != "" {
+			groups[c] = append(groups[c], sh.Name)
+		}
+	}
+	for c, names := range groups {
+		if len(names) > 1 {
+			n := known[c]
+			quoted := make([]string, len(names))
+			for i, name := range names {
+				quoted[i] = fmt.Sprintf("%q", short(name, 40))
+			}
+			r.ambiguous[n] = Problem{Sheet: contractSheetName(n), Severity: Error, Err: ErrAmbiguousSheet,
+				Message: fmt.Sprintf("the workbook has %d sheets that match the %s sheet (%s); which one holds the survey cannot be told, so none of them is read", len(names), contractSheetName(n), strings.Join(quoted, ", ")),
+				Fix:     "delete or rename all but one of them"}
+		}
+	}
+	for _, sh := range r.p.sheets {
+		n := NormalizeName(sh.Name)
+		if _, amb := r.ambiguous[known[compactName(n)]]; amb {
+			continue // reported once above
+		}
+		isKnown := known[compactName(n)] == n
 		if _, dup := r.sheets[n]; dup {
 			continue
 		}
-		r.sheets[n] = name
-		if !known[n] && !helperSheets()[n] {
-			s.Problems = append(s.Problems, Problem{Sheet: name, Severity: Warning,
-				Message: fmt.Sprintf("sheet %q is not part of the survey and is not read", short(name, 60)),
+		if isKnown {
+			r.sheets[n] = sh
+		} else if !helperSheets()[n] {
+			s.Problems = append(s.Problems, Problem{Sheet: sh.Name, Severity: Warning,
+				Message: fmt.Sprintf("sheet %q is not part of the survey and is not read", short(sh.Name, 60)),
 				Fix:     "rename it to one of Site, Atmospheres, Stations, Objects, Materials, Changes if it holds survey data"})
 		}
-		if known[n] {
-			if vis, err := r.f.GetSheetVisible(name); err == nil && !vis {
-				s.Problems = append(s.Problems, Problem{Sheet: contractSheetName(n), Severity: Warning,
-					Message: "the sheet is hidden; it is read like any other"})
-			}
+		if isKnown && (sh.State == "hidden" || sh.State == "veryHidden") {
+			s.Problems = append(s.Problems, Problem{Sheet: contractSheetName(n), Severity: Warning,
+				Message: "the sheet is hidden; it is read like any other"})
 		}
 	}
+	r.checkUnread()
 	return s, r.readSite(s)
+}
+
+// checkUnread reads the part of every sheet that is not read as survey data
+// (other sheets, helper sheets, sheets of an ambiguous name) to its end, so
+// that a damaged or hostile part is refused wherever it is.
+func (r *reader) checkUnread() {
+	read := map[string]bool{}
+	for _, sh := range r.sheets {
+		read[partKey(sh.Part)] = true
+	}
+	for _, sh := range r.p.sheets {
+		if k := partKey(sh.Part); !read[k] {
+			read[k] = true
+			r.streamRows(sh, func(rawRow) bool { return true })
+		}
+	}
 }
 
 // contractSheetName returns the contract spelling of a normalised sheet name.
@@ -429,27 +468,53 @@ func requiredColumns(sheet string) []string {
 // row or two above it are allowed).
 const headerScanRows = 10
 
-// streamRows calls fn for every row of a sheet with its 1-based number and its
-// raw cell values (numbers unformatted; formulas give their cached value).
-func (r *reader) streamRows(actual string, fn func(row int, cells []string, hidden bool) bool) error {
-	rows, err := r.f.Rows(actual)
+// streamRows calls fn for every row of a sheet that holds a cell or a
+// fault (see scanSheet), until fn returns false. A part that cannot be read
+// to its end stops the whole reading: the workbook is refused, and the
+// reason names the part and the last row read.
+func (r *reader) streamRows(sh wbSheet, fn func(rr rawRow) bool) {
+	streamed := r.rowHook != nil && NormalizeName(sh.Name) == NormalizeName(r.hookSheet)
+	far, err := r.p.scanSheet(sh.Name, sh.Part, func(rr rawRow) bool {
+		if !streamed {
+			r.keep(sh.Name, rr)
+		}
+		return fn(rr)
+	})
+	if far > 0 {
+		if r.farRow == nil {
+			r.farRow = map[string]int{}
+		}
+		r.farRow[sh.Name] = far
+	}
 	if err != nil {
-		return err
+		panic(err) // a *pkgFault, which readPackage turns into an UnreadableError
 	}
-	defer rows.Close()
-	n := 0
-	for rows.Next() {
-		n++
-		cells, err := rows.Columns(excelize.Options{RawCellValue: true})
-		if err != nil {
-			return err
-		}
-		cells = r.boundCells(actual, n, cells)
-		if !fn(n, cells, rows.GetRowOpts().Hidden) {
-			break
-		}
+}
+
+// Bounds of what the reader keeps of the rows it does not stream (every
+// sheet read by ReadFile; all but Objects by StreamFile), which grow with
+// the file's size: a real cell costs more than one byte of the compressed
+// file, and its text does not unpack to more than 16 times its compressed
+// size. A full survey of a million rows keeps some 30 million cells from a
+// file of about 50 MB. // common practice, no source
+const (
+	minKeptCells    = 1 << 22
+	minKeptText     = 64 << 20
+	keptTextPerByte = 16
+)
+
+// keep counts the cells and text of a row the reader may keep, and stops the
+// reading when a file holds far more than its size can really hold (a
+// hostile file of well-compressed cells).
+func (r *reader) keep(sheet string, rr rawRow) {
+	r.keptCells += int64(len(rr.Cells))
+	for _, c := range rr.Cells {
+		r.keptText += int64(len(c))
 	}
-	return rows.Error()
+	maxCells, maxText := max(minKeptCells, r.p.size), max(minKeptText, keptTextPerByte*r.p.size)
+	if r.keptCells > maxCells || r.keptText > maxText {
+		panic(&pkgFault{fmt.Sprintf("it holds more cells or text than a workbook of %s can really hold (more than %d cells or %s of text; reading stopped at row %d of sheet %s): a damaged or hostile file", sizeText(r.p.size), maxCells, sizeText(maxText), rr.Row, short(sheet, 60))})
+	}
 }
 
 // maxColumns is the widest row the reader keeps: a survey has some thirty
@@ -457,25 +522,10 @@ func (r *reader) streamRows(actual string, fn func(row int, cells []string, hidd
 // make every row a slice of 16384 cells.
 const maxColumns = 1024
 
-// boundCells drops a row's trailing blank cells (styled but empty cells far to
-// the right are common) and cuts it at maxColumns, noting the first row of the
-// sheet that had a value beyond.
-func (r *reader) boundCells(sheet string, row int, cells []string) []string {
-	n := len(cells)
-	for n > 0 && strings.TrimSpace(cells[n-1]) == "" {
-		n--
-	}
-	if n > maxColumns {
-		if r.farRow == nil {
-			r.farRow = map[string]int{}
-		}
-		if _, seen := r.farRow[sheet]; !seen {
-			r.farRow[sheet] = row
-		}
-		n = maxColumns
-	}
-	return cells[:n:n]
-}
+// maxFarCells is how many cells beyond column maxColumns a sheet part may
+// have: a handful of stray values are warned about and not read; more make
+// the file one that is refused as damaged or hostile.
+const maxFarCells = 200
 
 func blankRow(cells []string) bool {
 	for _, c := range cells {
@@ -489,38 +539,60 @@ func blankRow(cells []string) bool {
 // readTable reads a table sheet: finds the header row (the first row within
 // the first headerScanRows rows in which at least two cells, or every column
 // of a sheet with fewer, match the contract's columns), matches its headers,
-// and collects the non-blank rows below it.
+// and collects the non-blank rows below it, noting the cells of known
+// columns that are booleans, formulas without a result, dates or unreadable.
+// A sheet without a header has every non-blank row read and rejected.
 func (r *reader) readTable(sheet string) *table {
-	t := &table{Sheet: sheet, Cols: map[int]HeaderMatch{}, Headed: map[int]bool{}, Index: map[string]int{}, BadUnit: map[string]Problem{}}
-	actual, ok := r.sheets[NormalizeName(sheet)]
+	t := &table{Sheet: sheet, Cols: map[int]HeaderMatch{}, Headed: map[int]bool{}, Index: map[string]int{}, BadUnit: map[string]Problem{},
+		Bool: map[string]bool{}, Formula: map[string]string{}, Dated: map[string]string{}, Fault: map[string]string{}}
+	n := NormalizeName(sheet)
+	if p, ok := r.ambiguous[n]; ok {
+		t.Present = true
+		t.Problems = append(t.Problems, p)
+		t.Missing = append(t.Missing, p)
+		return t
+	}
+	sh, ok := r.sheets[n]
 	if !ok {
 		return t
 	}
-	t.Present, t.Actual = true, actual
+	t.Present, t.Actual = true, sh.Name
 	cols := SheetColumns(sheet)
 	need := min(2, len(cols))
-	var above []int
-	limited := false
-	err := r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+	var above []rawRow // non-blank rows before the header, or every one of a sheet without
+	limited, noHeader := false, false
+	r.streamRows(sh, func(rr rawRow) bool {
+		if t.HeaderRow == 0 && rr.Row > headerScanRows {
+			noHeader = true
+		}
+		if noHeader {
+			if !blankRow(rr.Cells) || rr.Fault != nil {
+				if len(above) >= r.opts.MaxRows {
+					return false
+				}
+				above = append(above, rr)
+			}
+			return true
+		}
 		if t.HeaderRow == 0 {
-			if blankRow(cells) {
-				return row < headerScanRows
+			if rr.Fault == nil && blankRow(rr.Cells) {
+				return true
 			}
 			hits := 0
-			for _, c := range cells {
+			for _, c := range rr.Cells {
 				if _, ok, _ := MatchHeader(c, cols); ok {
 					hits++
 				}
 			}
-			if hits >= need {
-				t.HeaderRow = row
-				r.matchHeaderRow(t, cols, cells)
+			if hits >= need && rr.Fault == nil {
+				t.HeaderRow = rr.Row
+				r.matchHeaderRow(t, cols, rr.Cells)
 				return true
 			}
-			above = append(above, row)
-			return row < headerScanRows
+			above = append(above, rr)
+			return true
 		}
-		if blankRow(cells) {
+		if !r.dataRow(t, &rr) {
 			return true
 		}
 		if t.rowsSeen >= r.opts.MaxRows {
@@ -528,19 +600,13 @@ func (r *reader) readTable(sheet string) *table {
 			return false
 		}
 		t.rowsSeen++
-		rr := rawRow{Row: row, Cells: cells, Hidden: hidden}
 		if r.rowHook != nil && r.hookSheet == sheet {
 			return r.rowHook(t, rr)
 		}
 		t.Rows = append(t.Rows, rr)
 		return true
 	})
-	if err != nil {
-		t.Problems = append(t.Problems, Problem{Sheet: sheet, Severity: Error, Err: err,
-			Message: "the sheet cannot be read to its end (" + short(err.Error(), 100) + "); rows after the fault are not read",
-			Fix:     "open the workbook in a spreadsheet program and save it again"})
-	}
-	if row, ok := r.farRow[actual]; ok {
+	if row, ok := r.farRow[sh.Name]; ok {
 		t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: row, Severity: Warning,
 			Message: fmt.Sprintf("values beyond column %s are not read (the first is on row %d)", ColumnLetter(maxColumns-1), row),
 			Fix:     "move survey data into the template's columns"})
@@ -552,15 +618,7 @@ func (r *reader) readTable(sheet string) *table {
 	}
 	if t.HeaderRow == 0 {
 		// Every non-blank row is read and rejected: nothing is lost.
-		_ = r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
-			if !blankRow(cells) {
-				if len(t.Rows) >= r.opts.MaxRows {
-					return false
-				}
-				t.Rows = append(t.Rows, rawRow{Row: row, Cells: cells, Hidden: hidden})
-			}
-			return true
-		})
+		t.Rows = above
 		if len(t.Rows) > 0 {
 			p := Problem{Sheet: sheet, Row: t.Rows[0].Row, Severity: Error, Err: ErrMissingColumn,
 				Message: fmt.Sprintf("no header row found in the first %d rows (a header names at least two columns such as %s)", headerScanRows, strings.Join(requiredColumns(sheet), ", ")),
@@ -570,107 +628,96 @@ func (r *reader) readTable(sheet string) *table {
 		}
 		return t
 	}
-	r.findBooleans(t)
-	if len(above) > 0 {
-		t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: above[0], Severity: Warning,
-			Message: fmt.Sprintf("rows above the header (row %d) are taken as a title and not read as data", t.HeaderRow)})
+	titled := false
+	for _, rr := range above {
+		if rr.Fault != nil {
+			t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: rr.Row, Severity: Error, Err: ErrUnreadableRow,
+				Message: rr.Fault.msg, Fix: rr.Fault.fix})
+			continue
+		}
+		if !titled {
+			titled = true
+			t.Problems = append(t.Problems, Problem{Sheet: sheet, Row: rr.Row, Severity: Warning,
+				Message: fmt.Sprintf("rows above the header (row %d) are taken as a title and not read as data", t.HeaderRow)})
+		}
 	}
 	return t
 }
 
-// maxBoolCheckRows bounds the sheets in which cells reading 0 or 1 are checked
-// for being booleans: the check loads the whole sheet, which a survey-sized
-// sheet affords and a hostile one need not be given.
-const maxBoolCheckRows = 5000
+// ErrUnreadableRow marks a row or cell that cannot be read: out of order or
+// repeated, a bad reference, a shared string or style the workbook does not
+// have (a damaged file).
+var ErrUnreadableRow = errors.New("row or cell cannot be read")
 
-// maxBoolCheckCells bounds rows x widest row of a sheet checked cell by cell
-// (5000 rows of the template's columns, with room to spare).
-const maxBoolCheckCells = 5000 * 64
-
-// findBooleans marks numeric cells stored as booleans (TRUE/FALSE), which the
-// streaming reader returns as 1 and 0, and formula cells of known columns
-// that hold no stored result, which it returns as blank (the reader never
-// calculates a formula, so such a cell has no value; it must not pass for
-// "not measured"). Only cells reading exactly 0 or 1, or blank, are asked
-// about, after the rows are streamed. A formula without a result in a numeric
-// column gets "=formula" as its text, so that the cell counts as given.
-func (r *reader) findBooleans(t *table) {
-	t.Bool = map[string]bool{}
-	t.Formula = map[string]string{}
-	t.Dated = map[string]string{}
-	if len(t.Rows) > maxBoolCheckRows {
-		return
+// dataRow notes the marked cells of a data row in the table's maps, and
+// reports whether the row is to be read: it holds a value, or a fault, or a
+// known column's cell that is a formula without a result or unreadable.
+func (r *reader) dataRow(t *table, rr *rawRow) bool {
+	if rr.Fault != nil && blankRow(rr.Cells) {
+		// nothing of the row could be placed: its fault is the sheet's problem
+		t.Problems = append(t.Problems, Problem{Sheet: t.Sheet, Row: rr.Row, Severity: Error, Err: ErrUnreadableRow, Message: rr.Fault.msg, Fix: rr.Fault.fix})
+		return false
 	}
-	// The per-cell questions load the whole sheet, which excelize fills out to
-	// its widest row: bound rows x width too.
-	width := 0
-	for _, rr := range t.Rows {
-		width = max(width, len(rr.Cells))
-	}
-	if len(t.Rows)*width > maxBoolCheckCells {
-		return
-	}
-	for _, rr := range t.Rows {
-		for i, m := range t.Cols {
-			c := ""
-			if i < len(rr.Cells) {
-				c = rr.Cells[i]
+	keep := rr.Fault != nil || !blankRow(rr.Cells)
+	for _, m := range rr.Marks {
+		cm, ok := t.Cols[m.col]
+		if !ok {
+			continue
+		}
+		ref := ColumnLetter(m.col) + strconv.Itoa(rr.Row)
+		numeric := cm.Column.Dim != Text && cm.Column.Dim != Date
+		c := ""
+		if m.col < len(rr.Cells) {
+			c = strings.TrimSpace(rr.Cells[m.col])
+		}
+		switch m.kind {
+		case markBool:
+			if numeric {
+				t.Bool[ref] = true
 			}
-			ref := fmt.Sprintf("%s%d", ColumnLetter(i), rr.Row)
-			numeric := m.Column.Dim != Text && m.Column.Dim != Date
-			if strings.TrimSpace(c) == "" {
-				if fm, err := r.f.GetCellFormula(t.Actual, ref); err == nil && strings.TrimSpace(fm) != "" {
-					t.Formula[ref] = fm
-					if numeric && i < len(rr.Cells) {
-						rr.Cells[i] = "=" + fm
-					}
+		case markFormula:
+			keep = true
+			t.Formula[ref] = m.text
+			if numeric {
+				for len(rr.Cells) <= m.col {
+					rr.Cells = append(rr.Cells, "")
 				}
-				continue
+				rr.Cells[m.col] = "=" + m.text // the cell counts as given
 			}
-			if !numeric {
-				continue
-			}
-			if v, err := strconv.ParseFloat(c, 64); err == nil && r.dateStyled(t.Actual, ref) {
+		case markDated:
+			if v, err := strconv.ParseFloat(c, 64); err == nil && numeric {
 				t.Dated[ref] = c
 				if d, err := excelize.ExcelDateToTime(v, r.date1904); err == nil {
 					t.Dated[ref] = d.Format("2006-01-02")
 				}
 			}
-			if c != "0" && c != "1" {
-				continue
-			}
-			if ct, err := r.f.GetCellType(t.Actual, ref); err == nil && ct == excelize.CellTypeBool {
-				t.Bool[ref] = true
-			}
+		case markFault:
+			keep = true
+			t.Fault[ref] = m.text
 		}
 	}
+	return keep
 }
 
-// dateStyled reports whether a cell's number format shows a date or time (a
-// spreadsheet turns "1.3" or "3-5" typed in some locales into a date, whose
-// serial number would otherwise be read as a plausible number).
-func (r *reader) dateStyled(sheet, ref string) bool {
-	idx, err := r.f.GetCellStyle(sheet, ref)
-	if err != nil || idx == 0 {
-		return false
+// rowFaults returns the errors of a row that cannot be read, or of its cells
+// in known columns that cannot be read, for the validator.
+func (t *table) rowFaults(rr rawRow, id string) []Problem {
+	var ps []Problem
+	if rr.Fault != nil {
+		ps = append(ps, Problem{Sheet: t.Sheet, Row: rr.Row, ID: id, Severity: Error, Err: ErrUnreadableRow, Message: rr.Fault.msg, Fix: rr.Fault.fix})
 	}
-	if r.dateStyles == nil {
-		r.dateStyles = map[int]bool{}
-	}
-	if d, ok := r.dateStyles[idx]; ok {
-		return d
-	}
-	d := false
-	if st, err := r.f.GetStyle(idx); err == nil {
-		switch {
-		case st.CustomNumFmt != nil:
-			d = dateFormatCode(*st.CustomNumFmt)
-		case st.NumFmt >= 14 && st.NumFmt <= 22, st.NumFmt >= 27 && st.NumFmt <= 36, st.NumFmt >= 45 && st.NumFmt <= 47, st.NumFmt >= 50 && st.NumFmt <= 58:
-			d = true // the built-in date and time formats (ECMA-376 Part 1, 18.8.30)
+	for _, m := range rr.Marks {
+		if m.kind != markFault {
+			continue
 		}
+		cm, ok := t.Cols[m.col]
+		if !ok {
+			continue
+		}
+		ps = append(ps, Problem{Sheet: t.Sheet, Row: rr.Row, Column: ColumnLetter(m.col), Field: cm.Column.Name, ID: id, Severity: Error, Err: ErrUnreadableRow,
+			Message: m.text, Fix: "open the workbook in a spreadsheet program, check the cell and save it again"})
 	}
-	r.dateStyles[idx] = d
-	return d
+	return ps
 }
 
 // dateFormatCode reports whether a number format code shows a date or time:
@@ -780,4 +827,34 @@ func (t *table) headerUnit(i int, unit string, dim Dimension) (Unit, error) {
 	}
 	t.units[i] = u
 	return u, nil
+}
+
+// siteFaults returns the errors of a Site row that cannot be read, or whose
+// item or value cell (columns A and B) cannot be read; such a row is not read.
+func siteFaults(rr rawRow) []Problem {
+	var ps []Problem
+	if rr.Fault != nil {
+		ps = append(ps, Problem{Sheet: SheetSite, Row: rr.Row, Severity: Error, Err: ErrUnreadableRow, Message: rr.Fault.msg, Fix: rr.Fault.fix})
+	}
+	for _, m := range rr.Marks {
+		if m.kind == markFault && m.col < 2 {
+			ps = append(ps, Problem{Sheet: SheetSite, Row: rr.Row, Column: ColumnLetter(m.col), Severity: Error, Err: ErrUnreadableRow,
+				Message: m.text, Fix: "open the workbook in a spreadsheet program, check the cell and save it again"})
+		}
+	}
+	return ps
+}
+
+// cellFaulted reports whether the row's cell in column name cannot be read
+// (see rowFaults, which reports it).
+func (t *table) cellFaulted(rr rawRow, name string) bool {
+	if len(t.Fault) == 0 {
+		return false
+	}
+	i, ok := t.Index[name]
+	if !ok {
+		return false
+	}
+	_, bad := t.Fault[ColumnLetter(i)+strconv.Itoa(rr.Row)]
+	return bad
 }

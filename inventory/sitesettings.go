@@ -177,6 +177,7 @@ func LimitItems() []LimitItem {
 		{"conductor maximum potential", "kV", "ConductorMaxPotential: cap on an unmeasured conductor potential (a measured one is never capped)", dimPotential},
 		{"small part capacitance", "pF", "SmallPartCapacitance: a metal part of measured capacitance below it need not be earthed (IIA, IIB, Group III)", dimCapacitance},
 		{"small part capacitance iic", "pF", "SmallPartCapacitanceIIC: the same for IIC and zone 0", dimCapacitance},
+		{"earthing contradiction factor", "", "EarthingContradictionFactor: a measured conductor potential above this many times the earthing bound (worst-case current x resistance) contradicts the earthing", dimNone},
 		{"dust brush mie", "mJ", "DustBrushMIE: a dust below this MIE is screened for brush discharges", dimEnergy},
 		{"transferred charge group iii", "nC", "TransferredCharge[IIIA-IIIC]: against propagating brush discharges", dimCharge},
 	}

@@ -11,9 +11,6 @@ type streamHooks struct {
 	begin     func(*Survey) error
 	each      func(Object) error
 	path, sha string
-	// holdBack is how many Objects rows are held back for the boolean check
-	// (maxBoolCheckRows; tests lower it to reach the row-by-row path quickly).
-	holdBack int
 }
 
 // call runs fn and turns a panic in it into an error, so that a fault in the
@@ -45,7 +42,7 @@ func StreamFile(path string, opts ReadOptions, begin func(*Survey) error, each f
 	if begin == nil {
 		begin = func(*Survey) error { return nil }
 	}
-	return readFile(path, opts, &streamHooks{begin: begin, each: each, holdBack: maxBoolCheckRows})
+	return readFile(path, opts, &streamHooks{begin: begin, each: each})
 }
 
 // stream reads the workbook with the Objects rows validated as they come.
@@ -76,8 +73,7 @@ func (r *reader) stream(h *streamHooks) (*Survey, error) {
 	p.each = func(o Object) error { return call(func() error { return h.each(o) }) }
 	tables[SheetObjects] = t
 	v.tableProblems(SheetObjects)
-	// Rows still held back (a sheet of at most maxBoolCheckRows rows), or the
-	// rows of a sheet without a header (every one rejected).
+	// The rows of a sheet without a header (every one rejected).
 	for _, b := range t.Rows {
 		if err := p.row(t, b); err != nil {
 			return nil, err
@@ -143,24 +139,7 @@ func (r *reader) streamObjects(p *objectPass, h *streamHooks) (*table, error) {
 			}
 			return nil
 		}
-		// The first maxBoolCheckRows rows are held back so that a survey-sized
-		// sheet gets the same check for booleans as ReadFile gives it; a larger
-		// sheet gets none (as with ReadFile) and its rows go through one by one.
-		buffering := true
 		r.rowHook, r.hookSheet = func(t *table, rr rawRow) bool {
-			if buffering {
-				if len(t.Rows) < h.holdBack {
-					t.Rows = append(t.Rows, rr)
-					return true
-				}
-				buffering = false
-				for _, b := range t.Rows {
-					if p.row(t, b) != nil {
-						return false
-					}
-				}
-				t.Rows = nil
-			}
 			return p.row(t, rr) == nil
 		}, SheetObjects
 		res.t = r.readTable(SheetObjects)

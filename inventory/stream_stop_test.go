@@ -30,7 +30,7 @@ func TestStreamFileStopsAtEachsError(t *testing.T) {
 	for _, stopAt := range []int{1, objectBatch, objectBatch + 1, 700} {
 		for _, panics := range []bool{false, true} {
 			calls := 0
-			_, err := readFile(p, ReadOptions{}, &streamHooks{holdBack: 50, begin: func(*Survey) error { return nil }, each: func(Object) error {
+			_, err := readFile(p, ReadOptions{}, &streamHooks{begin: func(*Survey) error { return nil }, each: func(Object) error {
 				calls++
 				if calls == stopAt {
 					if panics {

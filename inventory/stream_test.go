@@ -10,11 +10,11 @@ import (
 )
 
 // streamed reads path with StreamFile, collecting the objects handed over.
-func streamed(t *testing.T, path string, holdBack int) (*Survey, []Object) {
+func streamed(t *testing.T, path string) (*Survey, []Object) {
 	t.Helper()
 	var objs []Object
 	began := false
-	s, err := readFile(path, ReadOptions{}, &streamHooks{holdBack: holdBack, begin: func(s *Survey) error {
+	s, err := readFile(path, ReadOptions{}, &streamHooks{begin: func(s *Survey) error {
 		began = true
 		if s.Path != path || s.SHA256 == "" {
 			t.Errorf("begin: survey path %q sha %q", s.Path, s.SHA256)
@@ -57,11 +57,7 @@ func TestStreamFileMatchesReadFile(t *testing.T) {
 			if err != nil {
 				t.Skipf("unreadable: %v", err)
 			}
-			holdBack := maxBoolCheckRows
-			if p == big {
-				holdBack = 50
-			}
-			got, objs := streamed(t, p, holdBack)
+			got, objs := streamed(t, p)
 			if !reflect.DeepEqual(objs, want.Objects) && !(len(objs) == 0 && len(want.Objects) == 0) {
 				t.Errorf("objects: streamed %d, read %d (or they differ)", len(objs), len(want.Objects))
 			}

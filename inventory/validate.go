@@ -157,6 +157,9 @@ func (f *field) idLetter() string {
 }
 
 func (f *field) add(sev Severity, name string, err error, msg, fix string) {
+	if f.t.cellFaulted(f.rr, name) {
+		return // the cell cannot be read, and its own problem says why
+	}
 	f.st.probs = append(f.st.probs, Problem{Sheet: f.t.Sheet, Row: f.rr.Row, Column: f.letter(name), Field: name,
 		ID: f.st.id, Severity: sev, Message: msg, Fix: fix, Err: err})
 }
@@ -519,6 +522,7 @@ func (v *validator) beginRow(t *table, rr rawRow, idCol string, seen map[int]boo
 	// told that it was rejected, and a second row that looks the same is a duplicate.
 	st.id = stripIDChars(raw)
 	st.shared = append(st.shared, t.Missing...)
+	st.probs = append(st.probs, t.rowFaults(rr, st.id)...)
 	if what := idWords[idCol]; what != "" && raw != "" {
 		f.checkID(idCol, what, raw)
 	}
@@ -629,7 +633,12 @@ type siteRow struct {
 // header row "Item | Value". Blank rows are skipped.
 func (r *reader) readSite(s *Survey) *siteSheet {
 	ss := &siteSheet{}
-	actual, ok := r.sheets[NormalizeName(SheetSite)]
+	if p, ok := r.ambiguous[NormalizeName(SheetSite)]; ok {
+		ss.Present = true
+		ss.Problem = append(ss.Problem, p)
+		return ss
+	}
+	sh, ok := r.sheets[NormalizeName(SheetSite)]
 	if !ok {
 		return ss
 	}
@@ -637,7 +646,12 @@ func (r *reader) readSite(s *Survey) *siteSheet {
 	ss.Date1904 = r.date1904
 	items := SiteItems()
 	first := true
-	err := r.streamRows(actual, func(row int, cells []string, hidden bool) bool {
+	r.streamRows(sh, func(rr rawRow) bool {
+		row, cells, hidden := rr.Row, rr.Cells, rr.Hidden
+		if ps := siteFaults(rr); len(ps) > 0 {
+			ss.Problem = append(ss.Problem, ps...)
+			return true
+		}
 		// Only columns A and B are read; notes beside them (the template's
 		// cautions in column D) are not survey data.
 		if blankRow(cells[:min(2, len(cells))]) {
@@ -662,11 +676,6 @@ func (r *reader) readSite(s *Survey) *siteSheet {
 		ss.Rows = append(ss.Rows, siteRow{Row: row, Item: item, Value: value, Match: m, Known: known, Hidden: hidden})
 		return true
 	})
-	if err != nil {
-		ss.Problem = append(ss.Problem, Problem{Sheet: SheetSite, Severity: Error, Err: err,
-			Message: "the sheet cannot be read to its end (" + short(err.Error(), 100) + ")",
-			Fix:     "open the workbook in a spreadsheet program and save it again"})
-	}
 	return ss
 }
 
@@ -1160,6 +1169,9 @@ func KindRequirements() []KindRequirement {
 
 func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
 	p := v.newObjectPass(stations, mats)
+	if len(t.Rows) > 0 {
+		v.s.Objects = make([]Object, 0, len(t.Rows)) // an Object is large: no regrowing
+	}
 	for _, rr := range t.Rows {
 		_ = p.row(t, rr)
 	}

@@ -293,6 +293,18 @@ type Evaluation struct {
 	FilterResidence   float64           // s, residence needed after a fine filter; NaN when there is none
 	ChargeFactor      float64           // factor on the plain-pipe streaming current (filter, second phase)
 	VesselCapacitance float64           // F, the typical capacitance of the vessel class taken; NaN when measured or not used
+	// Contradictions between a reading and the model (appended).
+	// EarthingBound is the highest potential (V) the measured resistance to earth
+	// allows a conductor under the worst-case charging current (I R); NaN when the
+	// resistance is not measured or the potential is not measured.
+	EarthingBound float64
+	// ReadingDensity is the charge density (C/m^2) the reading inverts to when it
+	// exceeds what air lets the surface hold (FlagReadingAboveBreakdown); the
+	// density used (ChargeDensity) is then capped at the breakdown limit. NaN otherwise.
+	ReadingDensity float64
+	// UncappedPotential is an estimated potential (V) before the cap at
+	// Limits.ConductorMaxPotential (FlagCappedConductor); NaN when not capped.
+	UncappedPotential float64
 }
 
 // BreakdownSource says where Evaluation.LayerBreakdown came from.

@@ -68,6 +68,8 @@ func DefaultLimits() Limits {
 		FilterChargeFactor:      100,
 		StrainerChargeFactor:    1,
 		SecondPhaseChargeFactor: 10,
+
+		EarthingContradictionFactor: 10,
 	}
 }
 
@@ -173,5 +175,6 @@ func LimitSources() []Citation {
 	add("FilterChargeFactor", l.FilterChargeFactor, "1", "micro-filters raise the charge 10-100 times; upper end taken", true)
 	add("StrainerChargeFactor", l.StrainerChargeFactor, "1", "coarse strainers add little charge to a pipe's", true)
 	add("SecondPhaseChargeFactor", l.SecondPhaseChargeFactor, "1", srcChoice+": an order of magnitude for free water, solids or a second liquid", true)
+	add("EarthingContradictionFactor", l.EarthingContradictionFactor, "1", srcChoice+": a measured potential more than an order of magnitude above what the measured earthing allows under the worst-case charging current (I R) contradicts the earthing path", false)
 	return out
 }

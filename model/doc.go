@@ -44,8 +44,12 @@
 //     unknown sides infinite). Or from a surface potential V: eps0 epsr V/t backed,
 //     eps0 V/h over earth (the larger of it and the disc of equal area outside the
 //     split's validity; for a roller the larger of it and the cylinder over a
-//     plane). A density above what air can hold is flagged as a suspect reading,
-//     except on thin earthed-backed layers.
+//     plane). A reading above air breakdown, or a density above what air can
+//     hold (eps0 x 3 MV/m with all the field on one side, twice that on a free
+//     sheet), is a bad reading: flagged (FlagSuspectReading,
+//     FlagReadingAboveBreakdown), the raw inversion kept in ReadingDensity and the
+//     density used capped at that limit (a thin earthed-backed layer, which holds
+//     its field inside the layer, is not capped).
 //  3. Surface field sigma/eps0 (backed, cylinder, split) or sigma/(2 eps0) (free).
 //     A backed layer also gets its air-side field (the reading), its internal
 //     field E z/t and the voltage across it E z (AirField, LayerField,
@@ -73,7 +77,11 @@
 //     Limits.ConductorEarthing) is an isolated conductor (IsolatedConductor): its
 //     spark W = C V^2/2 with V measured, or sigma A / C from the reading, or from
 //     its charging current; C measured, else the disc of equal area 8 eps0 r
-//     (the stricter for a charge read on it) or eps0 A/h when larger.
+//     (the stricter for a charge read on it) or eps0 A/h when larger. An
+//     estimated V is capped as a conductor's (Limits.ConductorMaxPotential, a
+//     roller's corona onset; UncappedPotential keeps the estimate); a measured V
+//     never is (above the maximum: FlagMeasuredAboveMaximum; far above what a
+//     measured earthing allows: FlagEarthingContradiction).
 //
 // Conductors (conductive roller, container, part, person):
 //
@@ -93,7 +101,10 @@
 //     is not evaluated (MissingConductorCharging says what to measure) and only its
 //     earthing is judged.
 //  4. Potential: measured (never capped; above Limits.ConductorMaxPotential it is
-//     flagged as a contradiction, FlagMeasuredAboveMaximum); else V(t) = I R
+//     flagged as a contradiction, FlagMeasuredAboveMaximum; above
+//     Limits.EarthingContradictionFactor times the I R its measured resistance
+//     allows under the worst-case current, 1 uA walking for a person, 100 uA
+//     otherwise, FlagEarthingContradiction, EarthingBound); else V(t) = I R
 //     (1 - exp(-t/RC)) (steady state I R when no charging time; with no leakage
 //     I t / C, or unbounded), capped at Limits.ConductorMaxPotential (50 kV,
 //     common practice, no source) and at Peek's corona onset of the object's

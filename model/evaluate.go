@@ -93,6 +93,9 @@ func newEvaluation(k Kind) Evaluation {
 		FilterResidence:    nan,
 		ChargeFactor:       nan,
 		VesselCapacitance:  nan,
+		EarthingBound:      nan,
+		ReadingDensity:     nan,
+		UncappedPotential:  nan,
 	}
 	for i := range ev.Discharges {
 		ev.Discharges[i] = Discharge{Type: DischargeType(i), Energy: nan, Charge: nan, Code: ReasonNotApplicable, A: nan, B: nan}
@@ -230,10 +233,20 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 			return nan
 		}
 		e := math.Abs(in.Field)
+		// A reading above air breakdown is a bad reading or unit, not a bigger
+		// hazard: the density is computed from the breakdown field, the highest
+		// reading air allows (every inversion is linear in E), and the raw
+		// inversion kept in ReadingDensity for the finding.
+		read := e
+		if e > lim.AirBreakdown {
+			ev.Flags |= FlagSuspectReading | FlagReadingAboveBreakdown
+			e = lim.AirBreakdown
+		}
 		switch {
 		case backed:
 			sigma = DensityBacked(e, z, in.Thickness, epsr)
 			ev.AirField, ev.LayerField = BackedLayerFields(e, z, in.Thickness)
+			ev.AirField = read // the air-side field shown is the reading itself
 			ev.LayerVoltage = e * z
 			ev.Potential, ev.PotentialSource = e*z, PotentialFromField
 			if roller {
@@ -270,8 +283,8 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 				}
 			}
 		}
-		if e > lim.AirBreakdown {
-			ev.Flags |= FlagSuspectReading
+		if read > e {
+			ev.ReadingDensity = sigma * read / e
 		}
 	case given(in.SurfacePotential):
 		v := math.Abs(in.SurfacePotential)
@@ -306,18 +319,27 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		markNotEvaluated(ev, Brush, PropagatingBrush)
 		return nan
 	}
-	ev.ChargeDensity = sigma
-
-	// Surface field and the breakdown cap on the density.
+	// The breakdown cap on the density: air holds at most eps0 x 3 MV/m on a
+	// surface with all its field on one side, twice that on a free sheet (CCPS
+	// glossary, reference section 3; derived). A reading that inverts to more is
+	// flagged and the density used is capped there (a thin backed layer holds its
+	// field inside the layer and is not capped).
 	maxSigma := MaxDensityTwoSided(lim.AirBreakdown)
-	ev.SurfaceField = IsolatedSheetField(sigma)
 	if oneSided {
 		maxSigma = MaxDensityOneSided(lim.AirBreakdown)
-		ev.SurfaceField = OneSidedField(sigma)
 	}
 	thinBacked := backed && in.Thickness < lim.PropagatingThickness
 	if sigma > maxSigma && !thinBacked {
-		ev.Flags |= FlagSuspectReading
+		ev.Flags |= FlagSuspectReading | FlagReadingAboveBreakdown
+		if !given(ev.ReadingDensity) {
+			ev.ReadingDensity = sigma
+		}
+		sigma = maxSigma
+	}
+	ev.ChargeDensity = sigma
+	ev.SurfaceField = IsolatedSheetField(sigma)
+	if oneSided {
+		ev.SurfaceField = OneSidedField(sigma)
 	}
 
 	// Charging current: a belt's sigma v w, or the row's (the larger when both).
@@ -472,7 +494,9 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 // dissipative class) that is not earthed as an isolated conductor (IEC TS
 // 60079-32-1: conductors must be earthed; reference section 12): its capacitance
 // measured or estimated, its potential measured, or from the charge sigma A the
-// reading shows, or from its charging current.
+// reading shows, or from its charging current. An estimated potential is capped
+// as any conductor's (Limits.ConductorMaxPotential, a roller's corona onset); a
+// measured one never is.
 func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigma float64) {
 	sp := &ev.Discharges[Spark]
 	conducts := conductingSurface(in, ev.Dissipative)
@@ -518,6 +542,28 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 		return
 	}
 	ev.Capacitance, ev.CapacitanceModel = c, m
+	// Caps on an estimated potential, as for any conductor (evalConductor): the
+	// realistic plant maximum, Limits.ConductorMaxPotential, and a roller's corona
+	// onset. A measured potential is never capped (above the maximum it is a
+	// contradiction, FlagMeasuredAboveMaximum).
+	if ev.PotentialSource != PotentialMeasured {
+		if ev.PotentialSource == PotentialCharging && !given(in.Resistance) && v > 0 {
+			// The assumed (absent) leakage decides the size of the estimate.
+			ev.Flags |= FlagAssumedResistance
+		}
+		if !(v <= lim.ConductorMaxPotential) {
+			if finite(v) {
+				ev.UncappedPotential = v
+			}
+			v = lim.ConductorMaxPotential
+			ev.Flags |= FlagCappedConductor
+		}
+	} else {
+		if v > lim.ConductorMaxPotential {
+			ev.Flags |= FlagMeasuredAboveMaximum
+		}
+		earthingContradiction(ev, in, lim, v)
+	}
 	if in.Kind == Roller && positive(in.Diameter) {
 		temp := env.Temperature
 		if !positive(temp) {
@@ -532,9 +578,10 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 		if v > ev.CoronaOnset {
 			if ev.PotentialSource == PotentialMeasured {
 				ev.Flags |= FlagSuspectReading
+			} else {
+				v = ev.CoronaOnset
+				ev.Flags |= FlagCappedCorona
 			}
-			v = ev.CoronaOnset
-			ev.Flags |= FlagCappedCorona
 		}
 	} else if ev.PotentialSource != PotentialMeasured {
 		ev.Assumed |= AssumedNoCoronaCap
@@ -731,11 +778,17 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 				ev.Flags |= FlagCappedPerson
 			}
 		} else if !(v <= lim.ConductorMaxPotential) {
+			if finite(v) {
+				ev.UncappedPotential = v
+			}
 			v = lim.ConductorMaxPotential
 			ev.Flags |= FlagCappedConductor
 		}
-	} else if in.Kind != Person && v > lim.ConductorMaxPotential {
-		ev.Flags |= FlagMeasuredAboveMaximum
+	} else {
+		if in.Kind != Person && v > lim.ConductorMaxPotential {
+			ev.Flags |= FlagMeasuredAboveMaximum
+		}
+		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind != Person && positive(in.Diameter) && in.Kind != Liquid {
 		rad := in.Diameter / 2
@@ -786,6 +839,29 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	ev.TimeTo100V = TimeToPotential(v, lim.SafePotential, ev.DecayTime)
 	if w > lim.ShockEnergy {
 		ev.Flags |= FlagShock
+	}
+}
+
+// earthingContradiction compares a measured potential v with what the measured
+// resistance to earth allows under the worst-case charging current (principle 1:
+// a measurement beats the model): the bound is I R with I the worst case of the
+// kind (a person walking, WalkingCurrent, Jonassen; any other conductor
+// Limits.MaxChargingCurrent, JNIOSH-TR). The row's own current does not enter it,
+// so that raising a reading never removes the finding. A reading above
+// Limits.EarthingContradictionFactor times the bound that can also spark (at or
+// above Limits.SparkMinPotential) contradicts the earthing path:
+// FlagEarthingContradiction. The reading is kept (a screening choice of this tool).
+func earthingContradiction(ev *Evaluation, in *Input, lim *Limits, v float64) {
+	if !given(in.Resistance) || !(in.Resistance >= 0) {
+		return
+	}
+	worst := lim.MaxChargingCurrent
+	if in.Kind == Person {
+		worst = WalkingCurrent
+	}
+	ev.EarthingBound = worst * in.Resistance
+	if v >= lim.SparkMinPotential && v > lim.EarthingContradictionFactor*ev.EarthingBound {
+		ev.Flags |= FlagEarthingContradiction
 	}
 }
 

@@ -78,4 +78,11 @@ type Limits struct {
 	FilterChargeFactor      float64                   // factor on the streaming current after a fine filter
 	StrainerChargeFactor    float64                   // factor on the streaming current after a strainer
 	SecondPhaseChargeFactor float64                   // factor on the streaming current with a second phase
+
+	// Added with the follow-up contradiction checks (fields only appended).
+
+	// EarthingContradictionFactor: a measured conductor potential more than this
+	// many times the bound its measured earthing allows (worst-case charging
+	// current x resistance to earth) contradicts the earthing path.
+	EarthingContradictionFactor float64
 }

@@ -148,6 +148,11 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonCoronaOnset:
 		return fmt.Sprintf("The potential is capped at the corona onset %s for a radius of %s; corona, well below 1 mJ, ignites only the most sensitive gases.", Quantity(a, "V"), Quantity(b, "m"))
 	case ReasonCoronaBelowOnset:
+		if b > coronaShownMax {
+			// A smooth body of large radius: its onset (MV) is no potential a plant
+			// conductor reaches, so it is not quoted.
+			return fmt.Sprintf("The potential %s stays below the corona onset of the object's radius (above %s: the body itself does not go into corona; its edges and bolts may).", Quantity(a, "V"), Quantity(coronaShownMax, "V"))
+		}
 		return fmt.Sprintf("The potential %s stays below the corona onset %s.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonCoronaBagD:
 		return "Type D bags discharge by corona, well below 1 mJ; keep the surface dry and clean and earthed conductors nearby."
@@ -252,6 +257,11 @@ func Quantity(v float64, unit string) string {
 	}
 	return fmt.Sprintf("%.3g %s", v, unit)
 }
+
+// coronaShownMax is the largest corona onset (V) a reason quotes: above it the
+// onset of a large smooth body is far beyond the potentials plant conductors
+// reach (reference section 12: tens of kV), and only the bound is said.
+const coronaShownMax = 100e3
 
 // Potential sources, as recorded in Evaluation.PotentialSource.
 const (
@@ -385,6 +395,9 @@ const (
 	FlagMeasuredAboveMaximum
 	// Liquid transfer (appended with the operation-by-operation liquid rules).
 	FlagSecondPhaseLow
+	// Contradictions (appended with the follow-up checks).
+	FlagEarthingContradiction
+	FlagReadingAboveBreakdown
 	numFlags = iota
 )
 
@@ -408,6 +421,8 @@ func flagTexts() [numFlags]string {
 		"potential estimated with the resistance to earth unknown (no leakage): the energy is set by that assumption; measure the resistance or the potential",
 		"measured potential above the realistic plant maximum: check the reading, its unit and the object",
 		"a second phase (stated, or not stated and so taken as present) below 1000 pS/m: the filling rules for low-conductivity liquids apply",
+		"measured potential far above what the measured earthing allows under the worst-case charging current: the earthing path or the reading is wrong; the reading is kept",
+		"reading above what air can hold at the surface: the charge density is capped at the breakdown limit; check the meter's distance, unit and range",
 	}
 }
 

@@ -357,6 +357,9 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 	if IsConductorRow(in, ev) && SmallPartExempt(in, &r.Environment, x.lim) && !(in.Resistance <= x.lim.ConductorEarthing) {
 		defs = append(defs, Default{Field: "Earthing requirement", Value: "exempt", Reason: fmt.Sprintf("measured capacitance %s below the %s small-part exemption of IEC 60079-0 (from memory): it need not be earthed; its spark energy is still judged", pF(in.Capacitance), pF(SmallPartLimit(&r.Environment, x.lim)))})
 	}
+	if ev.Flags&model.FlagReadingAboveBreakdown != 0 && !math.IsNaN(ev.ReadingDensity) {
+		defs = append(defs, Default{Field: "Charge density", Value: uCm2(ev.ChargeDensity), Reason: fmt.Sprintf("the reading inverts to %s, more than air lets the surface hold: capped at the breakdown limit (CCPS glossary; a screening choice of this tool), the reading to be checked", uCm2(ev.ReadingDensity))})
+	}
 	if ev.Flags&model.FlagCappedConductor != 0 {
 		defs = append(defs, Default{Field: "Conductor potential", Value: kV(ev.Potential), Reason: "not measured: the estimate is capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)"})
 	}
@@ -370,7 +373,11 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
 	}
 	if ev.IsolatedConductor && ev.PotentialSource == model.PotentialFromCharge {
-		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"})
+		why := "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"
+		if ev.Flags&model.FlagCappedConductor != 0 && !math.IsNaN(ev.UncappedPotential) {
+			why += fmt.Sprintf(" = %s, capped at the realistic plant maximum", kV(ev.UncappedPotential))
+		}
+		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: why})
 	}
 	defs = append(defs, modelAssumptions(ev)...)
 	return defs

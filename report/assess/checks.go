@@ -58,6 +58,12 @@ const (
 	// CheckIsolatedLiquid: a conductive liquid in an insulating, lined or unearthed vessel is not
 	// earthed through a dip pipe or rod (model.ClauseIsolatedLiquid).
 	CheckIsolatedLiquid
+	// CheckReadingVsEarthing: a measured conductor potential far above what its measured
+	// earthing allows under the worst-case charging current (model.FlagEarthingContradiction).
+	CheckReadingVsEarthing
+	// CheckReadingAboveBreakdown: a reading above what air lets the surface hold
+	// (model.FlagReadingAboveBreakdown); the density used is capped at the breakdown limit.
+	CheckReadingAboveBreakdown
 	// NumChecks is the number of checks.
 	NumChecks
 )
@@ -75,27 +81,29 @@ type checkDef struct {
 // and the constant list above.
 func checkTable() [NumChecks]checkDef {
 	return [NumChecks]checkDef{
-		CheckEnergyMIE:            {"energy-vs-mie", Incendive, "effective energy against the atmosphere's MIE: IEC TS 60079-32-1:2013+A1:2017; JNIOSH-TR (W = C V^2/2); brush 3-4 mJ equivalent, CLC/TR 50404 summaries"},
-		CheckEnergyMargin:         {"energy-vs-margin", Marginal, "the site's required margin below the MIE: a site choice (default 10), not a standard value"},
-		CheckTransferredCharge:    {"transferred-charge", Incendive, "IEC 60079-0:2017 cl. 7.4.2 transferred-charge limits (gas groups 60/25/10 nC; Group III 200 nC against propagating brush discharges; from memory), test method IEC 60079-32-2:2015"},
-		CheckInsulatingArea:       {"insulating-area", Marginal, "IEC 60079-0:2017 cl. 7.4 insulating surface area limits by EPL and group (from memory)"},
-		CheckConductorEarthing:    {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 Mohm; small parts below the IEC 60079-0:2017 capacitance exemption excepted"},
-		CheckPersonEarthing:       {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 Mohm in zones 0, 1, 20, 21 where the MIE is at most 10 mJ"},
-		CheckShockEnergy:          {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ"},
-		CheckFillingVelocity:      {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m^2/s at 10 pS/m confirmed; other classes from memory)"},
-		CheckVelocityCeiling:      {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), velocity ceiling 7 m/s (from memory)"},
-		CheckSlowStart:            {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), initial filling velocity 1 m/s until the inlet is submerged (from memory)"},
-		CheckLowConductivity:      {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), insulating containers: no safe filling limits for a low-conductivity liquid (<= 50 pS/m) (from memory)"},
-		CheckBagType:              {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types"},
-		CheckBagEarthing:          {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 Mohm while filling and emptying"},
-		CheckBagQualification:     {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 uA"},
-		CheckLayerBreakdown:       {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); a layer holding more than its breakdown is a contradiction between reading and model (a screening choice of this tool)"},
-		CheckReadingVsHumidity:    {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)"},
-		CheckSplashFilling:        {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)"},
-		CheckSecondPhase:          {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)"},
-		CheckFilterResidence:      {"filter-residence", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), filters: residence time after a fine filter (from memory)"},
-		CheckIsolatedLiquid:       {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod"},
-		CheckMeasuredAboveMaximum: {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept"},
+		CheckEnergyMIE:             {"energy-vs-mie", Incendive, "effective energy against the atmosphere's MIE: IEC TS 60079-32-1:2013+A1:2017; JNIOSH-TR (W = C V^2/2); brush 3-4 mJ equivalent, CLC/TR 50404 summaries"},
+		CheckEnergyMargin:          {"energy-vs-margin", Marginal, "the site's required margin below the MIE: a site choice (default 10), not a standard value"},
+		CheckTransferredCharge:     {"transferred-charge", Incendive, "IEC 60079-0:2017 cl. 7.4.2 transferred-charge limits (gas groups 60/25/10 nC; Group III 200 nC against propagating brush discharges; from memory), test method IEC 60079-32-2:2015"},
+		CheckInsulatingArea:        {"insulating-area", Marginal, "IEC 60079-0:2017 cl. 7.4 insulating surface area limits by EPL and group (from memory)"},
+		CheckConductorEarthing:     {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 Mohm; small parts below the IEC 60079-0:2017 capacitance exemption excepted"},
+		CheckPersonEarthing:        {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 Mohm in zones 0, 1, 20, 21 where the MIE is at most 10 mJ"},
+		CheckShockEnergy:           {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ"},
+		CheckFillingVelocity:       {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m^2/s at 10 pS/m confirmed; other classes from memory)"},
+		CheckVelocityCeiling:       {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), velocity ceiling 7 m/s (from memory)"},
+		CheckSlowStart:             {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), initial filling velocity 1 m/s until the inlet is submerged (from memory)"},
+		CheckLowConductivity:       {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), insulating containers: no safe filling limits for a low-conductivity liquid (<= 50 pS/m) (from memory)"},
+		CheckBagType:               {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types"},
+		CheckBagEarthing:           {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 Mohm while filling and emptying"},
+		CheckBagQualification:      {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 uA"},
+		CheckLayerBreakdown:        {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); a layer holding more than its breakdown is a contradiction between reading and model (a screening choice of this tool)"},
+		CheckReadingVsHumidity:     {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)"},
+		CheckSplashFilling:         {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)"},
+		CheckSecondPhase:           {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)"},
+		CheckFilterResidence:       {"filter-residence", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), filters: residence time after a fine filter (from memory)"},
+		CheckIsolatedLiquid:        {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod"},
+		CheckReadingVsEarthing:     {"reading-vs-earthing", Marginal, "a screening choice of this tool: a measurement beats the model (a measured potential more than \"earthing contradiction factor\" (10) times the I R its measured earthing allows under the worst-case charging current, 1 uA walking for a person (Jonassen), 100 uA otherwise (JNIOSH-TR), contradicts the earthing path; the reading's hazard is kept)"},
+		CheckReadingAboveBreakdown: {"reading-above-breakdown", Marginal, "air breaks down at about 3 MV/m, so a surface holds at most eps0 x 3 MV/m with its field on one side, twice that as a free sheet (CCPS glossary; AMS Glossary of Meteorology); a reading above it is a bad reading or unit: the charge density used is capped at that limit, a screening choice of this tool (the reading's hazard is kept)"},
+		CheckMeasuredAboveMaximum:  {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept"},
 	}
 }
 
@@ -280,8 +288,19 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	if ShockEnergy(in, ev) > lim.ShockEnergy {
 		c.Failed = c.Failed.Add(CheckShockEnergy)
 	}
+	// Readings that contradict the model or physics (principle 1: the reading's
+	// hazard is kept, the contradiction reported wherever the object is).
 	if ev.Flags&model.FlagMeasuredAboveMaximum != 0 {
 		c.Failed = c.Failed.Add(CheckMeasuredAboveMaximum)
+	}
+	// The earthing contradiction only where an unknown resistance would itself be a
+	// finding (an earthing requirement applies), so that an unknown resistance is
+	// never milder than a measured one.
+	if ev.Flags&model.FlagEarthingContradiction != 0 && EarthingRequired(in, env, ev, lim) {
+		c.Failed = c.Failed.Add(CheckReadingVsEarthing)
+	}
+	if ev.Flags&model.FlagReadingAboveBreakdown != 0 {
+		c.Failed = c.Failed.Add(CheckReadingAboveBreakdown)
 	}
 
 	worst := -1
@@ -333,6 +352,23 @@ func ChargeAgainstLimit(env *model.Environment, ev *model.Evaluation) float64 {
 		return d.Charge
 	}
 	return math.NaN()
+}
+
+// EarthingRequired reports whether an earthing requirement applies to the row, so
+// that an unknown resistance to earth is itself a finding: a conductor row (not a
+// small part exempt by its measured capacitance) or a type C bag where the station
+// has an atmosphere, or a person where PersonEarthingApplies.
+func EarthingRequired(in *model.Input, env *model.Environment, ev *model.Evaluation, lim *model.Limits) bool {
+	if env.Atmosphere == model.NoAtmosphere {
+		return false
+	}
+	switch {
+	case PersonEarthingApplies(in, env, lim):
+		return true
+	case in.Kind == model.Bag:
+		return in.BagType == model.BagC
+	}
+	return IsConductorRow(in, ev) && !SmallPartExempt(in, env, lim)
 }
 
 // SmallPartExempt reports whether a conductor row is exempt from earthing as a

@@ -26,12 +26,28 @@
 //	shock-energy         energy to a person touching it > 350 mJ                  marginal
 //	filling-velocity     liquid v d > 0.5 (kappa > 10 pS/m) or 0.38 m^2/s         marginal
 //	velocity-ceiling     liquid flow velocity > 7 m/s                             marginal
-//	slow-start           top filling without a dip pipe (or filling not given)    marginal
-//	low-conductivity     liquid <= 50 pS/m, or conductivity not given             marginal
+//	slow-start           bottom or dip-pipe fill > 1 m/s until the inlet is       marginal
+//	                     submerged, or inlet velocity not given
+//	low-conductivity     liquid <= 50 pS/m (or not given) into an insulating or   marginal
+//	                     glass vessel (or material not given)
+//	splash-filling       top (splash) filling of a low-conductivity liquid        marginal
+//	second-phase-velocity  second phase (or not stated) and flow > 1 m/s          marginal
+//	filter-residence     residence after a fine filter (or not stated) too short  marginal
+//	isolated-liquid      conductive liquid in an insulating or unearthed vessel   marginal
+//	                     not earthed through a dip pipe or rod
 //	bag-type             bag type not allowed here (IEC 61340-4-4 usage table)     marginal
 //	bag-earthing         type C bag tab to earth > 1e6 ohm, or not measured       marginal
 //	bag-qualification    type C/D bag with MIE < 0.14 mJ or current > 3 uA        marginal
+//	layer-breakdown-contradiction  layer holds more than its breakdown voltage    marginal
+//	reading-vs-humidity  reading above the screen on a surface the humidity       marginal
+//	                     model finds dissipative and earthed
 //	measured-potential-above-maximum  measured potential > 50 kV: contradiction   marginal
+//	reading-vs-earthing  measured potential >= 300 V and > 10 x the I R its       marginal
+//	                     measured earthing allows (I: 1 uA for a person walking,
+//	                     100 uA otherwise), where an earthing requirement applies
+//	reading-above-breakdown  reading inverts to more than air holds (eps0 x 3     marginal
+//	                     MV/m one-sided, twice that on a free sheet): the density
+//	                     used is capped there
 //
 // Each check's ground (standard, clause or table and edition, or a screening
 // choice of this tool) is in the same table (Check.Basis); every Finding carries it.
@@ -88,9 +104,11 @@
 //   - A conducting surface (conductive, dissipative, or of dissipative class) that
 //     is not earthed is a conductor row: conductor-earthing applies and its spark
 //     counts (model.Evaluation.IsolatedConductor).
-//   - A reading that contradicts the humidity model or the layer's breakdown
-//     voltage keeps its hazard and adds a marginal finding
-//     (reading-vs-humidity, layer-breakdown-contradiction).
+//   - A reading that contradicts the humidity model, the layer's breakdown
+//     voltage, the measured earthing or air breakdown keeps its hazard and adds a
+//     marginal finding (reading-vs-humidity, layer-breakdown-contradiction,
+//     reading-vs-earthing, reading-above-breakdown); a reading above air
+//     breakdown is used at the breakdown limit, never above.
 //
 // # Uncertainty (Options.Samples > 0)
 //

@@ -221,6 +221,22 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			msg = fmt.Sprintf("charging current %s exceeds the %s the type %s qualification assumes", uA(i), uA(lim.BagMaxCurrent), in.BagType)
 		}
 	}
+	if k == CheckReadingVsEarthing {
+		worst := "the worst-case industrial charging current"
+		if in.Kind == model.Person {
+			worst = "a walking person's charging current"
+		}
+		msg = fmt.Sprintf("measured potential %s is far above the %s its measured resistance to earth (%s) allows under %s (I R): the earthing path does not work as measured (an insulating glove, a dirty sole, a broken bond) or the reading is wrong; the reading is kept (W = %s)", kV(ev.Potential), volts(ev.EarthingBound), ohm(in.Resistance), worst, mJ(ev.StoredEnergy))
+	}
+	if k == CheckReadingAboveBreakdown {
+		what := "the reading"
+		if !math.IsNaN(in.Field) {
+			what = fmt.Sprintf("the field reading of %s at %s", sig(math.Abs(in.Field)/1e3)+" kV/m", sig(in.FieldDistance)+" m")
+		} else if !math.IsNaN(in.SurfacePotential) {
+			what = "the surface potential reading of " + kV(math.Abs(in.SurfacePotential))
+		}
+		msg = fmt.Sprintf("%s inverts to %s, more than air lets the surface hold (air breaks down at %s): a bad reading or unit, not a bigger hazard; check the meter's distance, unit and range and repeat it; the charge density used is capped at the breakdown limit, %s", what, uCm2(ev.ReadingDensity), sig(lim.AirBreakdown/1e3)+" kV/m", uCm2(ev.ChargeDensity))
+	}
 	if k == CheckMeasuredAboveMaximum {
 		msg = fmt.Sprintf("measured potential %s is above the realistic plant maximum of %s: a contradiction between reading and model; the reading is kept (W = %s)", kV(ev.Potential), kV(lim.ConductorMaxPotential), mJ(ev.StoredEnergy))
 	}

@@ -37,15 +37,16 @@ func limitSetters() map[string]func(l *model.Limits, v float64) {
 				l.VesselMaxVelocity[c] = v
 			}
 		},
-		"slow start velocity":         func(l *model.Limits, v float64) { l.SlowStartVelocity = v },
-		"bag c point to tab":          func(l *model.Limits, v float64) { l.BagCToTab = v },
-		"bag c tab to earth":          func(l *model.Limits, v float64) { l.BagTabToEarth = v },
-		"bag minimum mie":             func(l *model.Limits, v float64) { l.BagMinMIE = v },
-		"bag maximum current":         func(l *model.Limits, v float64) { l.BagMaxCurrent = v },
-		"conductor maximum potential": func(l *model.Limits, v float64) { l.ConductorMaxPotential = v },
-		"small part capacitance":      func(l *model.Limits, v float64) { l.SmallPartCapacitance = v },
-		"small part capacitance iic":  func(l *model.Limits, v float64) { l.SmallPartCapacitanceIIC = v },
-		"dust brush mie":              func(l *model.Limits, v float64) { l.DustBrushMIE = v },
+		"slow start velocity":           func(l *model.Limits, v float64) { l.SlowStartVelocity = v },
+		"bag c point to tab":            func(l *model.Limits, v float64) { l.BagCToTab = v },
+		"bag c tab to earth":            func(l *model.Limits, v float64) { l.BagTabToEarth = v },
+		"bag minimum mie":               func(l *model.Limits, v float64) { l.BagMinMIE = v },
+		"bag maximum current":           func(l *model.Limits, v float64) { l.BagMaxCurrent = v },
+		"conductor maximum potential":   func(l *model.Limits, v float64) { l.ConductorMaxPotential = v },
+		"small part capacitance":        func(l *model.Limits, v float64) { l.SmallPartCapacitance = v },
+		"small part capacitance iic":    func(l *model.Limits, v float64) { l.SmallPartCapacitanceIIC = v },
+		"earthing contradiction factor": func(l *model.Limits, v float64) { l.EarthingContradictionFactor = v },
+		"dust brush mie":                func(l *model.Limits, v float64) { l.DustBrushMIE = v },
 		"transferred charge group iii": func(l *model.Limits, v float64) {
 			l.TransferredCharge[model.IIIA], l.TransferredCharge[model.IIIB], l.TransferredCharge[model.IIIC] = v, v, v
 		},

@@ -212,3 +212,157 @@ func TestBagInHybridUsesGasColumn(t *testing.T) {
 		}
 	}
 }
+
+// TestReadingVsEarthing: a measured conductor potential far above what its
+// measured earthing allows under the worst-case charging current is a
+// contradiction finding; the reading is kept (principle 1).
+func TestReadingVsEarthing(t *testing.T) {
+	atm := &inventory.Atmosphere{ID: "A-T", Substance: "toluene", Kind: "vapour", MIE: known(0.24e-3), Group: "IIA", Zone: "1"}
+	for _, tc := range []struct {
+		name  string
+		obj   inventory.Object
+		bound float64 // V, NaN: not judged
+		want  bool
+	}{
+		// Source: hand-worked case HW-16: 1 uA walking (Jonassen, reference section 7) x 1e7 ohm = 10 V
+		// against a measured 4 kV (400 times the bound, factor 10 a screening choice).
+		{"person on dissipative footwear at 4 kV", inventory.Object{Kind: "person", Resistance: known(1e7), SurfacePotential: known(4e3)}, 10, true},
+		// derived: 1 uA x 1e9 ohm = 1 kV; 4 kV is 4 times the bound, not more than 10.
+		{"person at 1e9 ohm at 4 kV", inventory.Object{Kind: "person", Resistance: known(1e9), SurfacePotential: known(4e3)}, 1e3, false},
+		// derived: 100 uA (JNIOSH-TR, reference section 6) x 1e6 ohm = 100 V; 1 kV is exactly 10 times: not above.
+		{"container at the factor", inventory.Object{Kind: "container", Capacitance: known(100e-12), Resistance: known(1e6), SurfacePotential: known(1e3)}, 100, false},
+		// derived: just above 10 x 100 V.
+		{"container just above the factor", inventory.Object{Kind: "container", Capacitance: known(100e-12), Resistance: known(1e6), SurfacePotential: known(1.01e3)}, 100, true},
+		// derived: 100 uA x 1e3 ohm = 0.1 V; 250 V is below the ~300 V spark floor (Paschen): no hazard to contradict.
+		{"below the spark floor", inventory.Object{Kind: "part", Capacitance: known(20e-12), Resistance: known(1e3), SurfacePotential: known(250)}, 0.1, false},
+		// derived: the row's own current does not enter the bound (raising a reading never
+		// removes a finding): 100 uA x 1e6 ohm = 100 V; 1.5 kV > 10 x 100 V.
+		{"row current not in the bound", inventory.Object{Kind: "part", Capacitance: known(20e-12), Resistance: known(1e6), ChargingCurrent: known(200e-6), SurfacePotential: known(1.5e3)}, 100, true},
+		// resistance not measured: no bound (the earthing finding speaks instead).
+		{"resistance not measured", inventory.Object{Kind: "container", Capacitance: known(100e-12), SurfacePotential: known(8e3)}, math.NaN(), false},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			r := one(t, atm, tc.obj)
+			if got := r.Eval.EarthingBound; math.IsNaN(tc.bound) != math.IsNaN(got) || (!math.IsNaN(got) && !scalar.EqualWithinRel(got, tc.bound, relTol)) {
+				t.Errorf("earthing bound %g V, want %g V", got, tc.bound)
+			}
+			if got := hasCheck(r, CheckReadingVsEarthing.Name()); got != tc.want {
+				t.Errorf("reading-vs-earthing = %v, want %v (findings %v)", got, tc.want, r.Findings)
+			}
+			if !scalar.EqualWithinRel(r.Eval.Potential, math.Abs(tc.obj.SurfacePotential.Value), relTol) {
+				t.Errorf("potential %g, the measured %g must be kept", r.Eval.Potential, tc.obj.SurfacePotential.Value)
+			}
+			if tc.want && r.Verdict.Severity() < Marginal.Severity() {
+				t.Errorf("verdict %v, want at least marginal", r.Verdict)
+			}
+		})
+	}
+}
+
+// TestReadingAboveBreakdown: a reading that inverts to more than air lets the
+// surface hold is a finding, and the density used is capped at the breakdown
+// limit of the geometry (reference section 3: eps0 x 3 MV/m one-sided, CCPS
+// glossary; twice that on a free sheet, derived).
+func TestReadingAboveBreakdown(t *testing.T) {
+	atm := &inventory.Atmosphere{ID: "A-T", Substance: "toluene", Kind: "vapour", MIE: known(0.24e-3), Group: "IIA", Zone: "1"}
+	pe := inventory.Material{Name: "PE film", Class: "insulating", Permittivity: 2.3, SurfaceResistivity: 1e14, VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN(), Source: "from memory"}
+	ptfe := inventory.Material{Name: "PTFE", Class: "insulating", Permittivity: 2.1, SurfaceResistivity: 1e15, VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN(), Source: "from memory"}
+	for _, tc := range []struct {
+		name      string
+		obj       inventory.Object
+		mat       inventory.Material
+		want      bool
+		sigma     float64 // C/m^2 used
+		raw       float64 // C/m^2 the reading inverts to; NaN when not capped
+		wantFlags model.Flag
+	}{
+		// Source: hand-worked case HW-25: 5 MV/m at 0.05 m from a free 9 x 9 cm sheet inverts to
+		// 299.75 uC/m^2 (derived); capped at 2 eps0 x 3 MV/m = 53.125 uC/m^2 (derived).
+		{"field above air breakdown, free sheet", inventory.Object{Kind: "sheet", Material: "PE film", Length: known(0.09), Width: known(0.09), Backing: "none", Field: known(5000e3), FieldDistance: known(0.05)}, pe, true, 5.31251268768e-5, 2.99754883522e-4, model.FlagSuspectReading | model.FlagReadingAboveBreakdown},
+		// derived: cylinder R = 0.05 m read at z = 0.1 m with 2 MV/m (below breakdown):
+		// eps0 E (R + z) / R = 53.125 uC/m^2, above the one-sided 26.56 uC/m^2: capped there.
+		{"cylinder above the one-sided limit", inventory.Object{Kind: "roller", Material: "PTFE", Diameter: known(0.10), Length: known(1.0), Backing: "none", Field: known(2000e3), FieldDistance: known(0.10)}, ptfe, true, 2.65625634384e-5, 5.31251268768e-5, model.FlagReadingAboveBreakdown},
+		// Source: hand-worked case HW-06: 130 kV/m gives 3.453 uC/m^2, far below the limit: no finding.
+		{"plausible reading", inventory.Object{Kind: "roller", Material: "PTFE", Diameter: known(0.10), Length: known(1.0), Backing: "none", Field: known(130e3), FieldDistance: known(0.10)}, ptfe, false, 3.453133247e-6, math.NaN(), 0},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			r := one(t, atm, tc.obj, tc.mat)
+			if got := hasCheck(r, CheckReadingAboveBreakdown.Name()); got != tc.want {
+				t.Errorf("reading-above-breakdown = %v, want %v (findings %v)", got, tc.want, r.Findings)
+			}
+			if !scalar.EqualWithinRel(r.Eval.ChargeDensity, tc.sigma, relTol) {
+				t.Errorf("density used %g, want %g", r.Eval.ChargeDensity, tc.sigma)
+			}
+			if got := r.Eval.ReadingDensity; math.IsNaN(tc.raw) != math.IsNaN(got) || (!math.IsNaN(got) && !scalar.EqualWithinRel(got, tc.raw, relTol)) {
+				t.Errorf("raw density %g, want %g", got, tc.raw)
+			}
+			if r.Eval.Flags&tc.wantFlags != tc.wantFlags {
+				t.Errorf("flags %v lack %v", r.Eval.Flags.Texts(), (tc.wantFlags &^ r.Eval.Flags).Texts())
+			}
+			if tc.want {
+				// The hazard of the capped reading stays (brush 4 mJ >= 0.24 mJ).
+				if r.Verdict != Incendive {
+					t.Errorf("verdict %v, want incendive (the capped density is still above the screen)", r.Verdict)
+				}
+				for _, f := range r.Findings {
+					if f.Check == CheckReadingAboveBreakdown.Name() && (!strings.Contains(f.Message, "distance") || !strings.Contains(f.Message, "unit") || !strings.Contains(f.Message, "range") || !strings.Contains(f.Message, "capped")) {
+						t.Errorf("finding %q does not say what to check and that the density is capped", f.Message)
+					}
+				}
+			}
+		})
+	}
+}
+
+// TestSurfaceSparkCapped: the estimated potential of an unearthed conducting
+// surface is capped at the 50 kV realistic plant maximum, as any conductor's
+// (reference section 12: an estimate in MV or a spark in kJ is an artefact);
+// a measured one never is.
+func TestSurfaceSparkCapped(t *testing.T) {
+	atm := &inventory.Atmosphere{ID: "A-EA", Substance: "ethyl acetate", Kind: "vapour", MIE: known(0.46e-3), Group: "IIA", Zone: "1"}
+	paper := inventory.Material{Name: "Paper", Class: "dissipative", Permittivity: 2.5, SurfaceResistivity: 7.36e6, HumiditySlope: 0.79, VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN(), Source: "hand-worked cases"}
+	tray := inventory.Material{Name: "Dissipative PP", Class: "dissipative", Permittivity: 2.3, SurfaceResistivity: 1e8, HumiditySlope: 0.3, VolumeResistivity: math.NaN(), BreakdownStrength: math.NaN(), Source: "invented for the demo"}
+	t.Run("estimated from the reading's charge", func(t *testing.T) {
+		// Source: hand-worked case HW-04's web (free finite sheet: 8.0736 uC/m^2 over 2.4 m^2,
+		// 19.38 uC) on the disc of equal area, C = 8 eps0 sqrt(A/pi) = 61.91 pF: V = Q/C =
+		// 313.0 kV (derived), capped at 50 kV: W = C (50 kV)^2 / 2 = 77.39 mJ (derived).
+		o := inventory.Object{Kind: "sheet", Material: "Paper", Length: known(2.0), Width: known(1.2), Backing: "none", DistanceToEarth: known(0.5), Field: known(400e3), FieldDistance: known(0.10), Speed: known(3), Resistance: known(1e8)}
+		st := inventory.Station{ID: "ST-1", Name: "Station 1", Atmosphere: atm.ID, RelativeHumidity: known(65)}
+		o.Station, o.ID = st.ID, "WEB-1"
+		a := Assess(newSurvey([]inventory.Atmosphere{*atm}, []inventory.Station{st}, []inventory.Object{o}, []inventory.Material{paper}), Options{})
+		r := a.Objects[0]
+		if !scalar.EqualWithinRel(r.Eval.Potential, 50e3, relTol) || !scalar.EqualWithinRel(r.Eval.UncappedPotential, 312973.7086, relTol) {
+			t.Errorf("potential %g (uncapped %g), want 50 kV (313 kV)", r.Eval.Potential, r.Eval.UncappedPotential)
+		}
+		if !scalar.EqualWithinRel(r.Eval.Discharges[model.Spark].Energy, 77.389032e-3, relTol) {
+			t.Errorf("spark energy %g J, want 77.39 mJ", r.Eval.Discharges[model.Spark].Energy)
+		}
+		if r.Eval.Flags&model.FlagCappedConductor == 0 {
+			t.Errorf("flags %v lack the cap", r.Eval.Flags.Texts())
+		}
+		found := false
+		for _, d := range r.Defaults {
+			if d.Field == "Potential" && strings.Contains(d.Reason, "313 kV") && strings.Contains(d.Reason, "capped") {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("defaults %v do not show the capped estimate", r.Defaults)
+		}
+	})
+	t.Run("measured never capped", func(t *testing.T) {
+		// derived: a dissipative tray, not earthed (1e12 ohm), measured at 60 kV on 30 pF:
+		// W = 54 mJ, kept as measured; above 50 kV it is a contradiction finding.
+		o := inventory.Object{Kind: "sheet", Material: "Dissipative PP", Length: known(0.4), Width: known(0.3), Backing: "none", DistanceToEarth: known(0.05), SurfacePotential: known(60e3), Resistance: known(1e12), Capacitance: known(30e-12)}
+		r := one(t, atm, o, tray)
+		if !scalar.EqualWithinRel(r.Eval.Potential, 60e3, relTol) || r.Eval.Flags&model.FlagCappedConductor != 0 {
+			t.Errorf("potential %g, flags %v: a measured potential is never capped", r.Eval.Potential, r.Eval.Flags.Texts())
+		}
+		if !scalar.EqualWithinRel(r.Eval.Discharges[model.Spark].Energy, 54e-3, relTol) {
+			t.Errorf("spark energy %g, want 54 mJ", r.Eval.Discharges[model.Spark].Energy)
+		}
+		if !hasCheck(r, CheckMeasuredAboveMaximum.Name()) {
+			t.Errorf("findings %v lack the contradiction", r.Findings)
+		}
+	})
+}

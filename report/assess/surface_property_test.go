@@ -24,7 +24,9 @@ func logU(r *rand.Rand, lo, hi float64) float64 {
 	return math.Pow(10, math.Log10(lo)+r.Float64()*(math.Log10(hi)-math.Log10(lo)))
 }
 
-// randomSurface draws a sheet, belt or insulating roller row with a reading.
+// randomSurface draws a sheet, belt or insulating roller row with a reading. The
+// ranges are invented for the test: plausible plant sizes, thicknesses, speeds,
+// currents and capacitances spanning a few decades each, blanks included.
 func randomSurface(r *rand.Rand) model.Input {
 	nan := math.NaN()
 	in := model.Input{

@@ -174,6 +174,8 @@ func limitLabel(name string) string {
 		"FilterChargeFactor":      "Liquid: streaming current factor after a fine filter",
 		"StrainerChargeFactor":    "Liquid: streaming current factor after a strainer",
 		"SecondPhaseChargeFactor": "Liquid: streaming current factor with a second phase",
+
+		"EarthingContradictionFactor": "Measured potential above this many times the earthing bound I R: a contradiction",
 	}
 	l, ok := labels[field]
 	if !ok {
