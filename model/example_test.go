@@ -52,7 +52,7 @@ func ExampleBagTypeAllowed() {
 	}
 	// Output:
 	// B false Only types C and D may be used with flammable gas or vapour (zones 1 and 2, groups IIA and IIB).
-	// C true Type C may be used here only while earthed: tab to earth below 1 Mohm, every point to the tab below 100 Mohm.
+	// C true Type C may be used here only while earthed: tab to earth below 1 MΩ, every point to the tab below 100 MΩ.
 }
 
 // From memory (Glor's formula, reference section 10.7): D 1 m, d 1 mm -> 5.22 mJ.
