@@ -332,7 +332,9 @@ func demoObjects() [][]any {
 		o("LAM-KNF", "ST-LAM", KindPart, "Slitter knife holder, earthed through the frame", "steel",
 			"Surface potential", 0.0, "Resistance to earth", 1e4, "Capacitance", 20.0), // invented for the demo
 
-		// Rewind (zone 2): low fields; the rewind shaft fails the earthing requirement (marginal).
+		// Rewind (zone 2): low fields, but the site film is of dissipative class and not
+		// earthed: the web and the wound roll are isolated conductors that spark (incendive);
+		// the rewind shaft fails the earthing requirement.
 		o("REW-WEB", "ST-REW", KindSheet, "Coated web into the rewind nip", "Coated PET C2",
 			"Length", 1.2, "Width", 1.32, "Thickness", 0.025, "Backing", "none", "Field", 25.0, "Field distance", 0.1, "Speed", 3.5), // invented for the demo
 		o("REW-ROLL", "ST-REW", KindRoller, "Wound roll of coated film on the rewind shaft", "Coated PET C2",

@@ -178,6 +178,8 @@ func LimitItems() []LimitItem {
 		{"small part capacitance", "pF", "SmallPartCapacitance: a metal part of measured capacitance below it need not be earthed (IIA, IIB, Group III)", dimCapacitance},
 		{"small part capacitance iic", "pF", "SmallPartCapacitanceIIC: the same for IIC and zone 0", dimCapacitance},
 		{"earthing contradiction factor", "", "EarthingContradictionFactor: a measured conductor potential above this many times the earthing bound (worst-case current x resistance) contradicts the earthing", dimNone},
+		{"spark surface resistance", "Ω", "SparkSurface: an unearthed surface below it (or of dissipative class) sparks as a conductor", dimResistance},
+		{"corona energy", "mJ", "CoronaEnergy: corona's equivalent energy bound, compared only with an MIE below it", dimEnergy},
 		{"dust brush mie", "mJ", "DustBrushMIE: a dust below this MIE is screened for brush discharges", dimEnergy},
 		{"transferred charge group iii", "nC", "TransferredCharge[IIIA-IIIC]: against propagating brush discharges", dimCharge},
 	}

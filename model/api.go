@@ -271,7 +271,7 @@ type Evaluation struct {
 	AirField        float64 // V/m, air-side field of a backed layer: the reading (parallel-plate split); NaN otherwise
 	LayerField      float64 // V/m, field inside a backed layer, V / t; NaN otherwise
 	LayerVoltage    float64 // V across a backed layer: measured surface potential or E z; NaN otherwise
-	LayerBreakdown  float64 // V, breakdown the layer is compared with: measured, else bulk strength x thickness; NaN unknown
+	LayerBreakdown  float64 // V, breakdown the layer is compared with: measured, else the thin-film upper strength x thickness (ThinFilmStrength, a physics bound that never clears); NaN unknown
 	BreakdownSource BreakdownSource
 	ChargingDensity float64 // A/m^2, charging current over the surface's area; NaN unknown
 	// ProcessMaterial: the surface is process material (IsProcessMaterial), judged by
@@ -305,6 +305,18 @@ type Evaluation struct {
 	// UncappedPotential is an estimated potential (V) before the cap at
 	// Limits.ConductorMaxPotential (FlagCappedConductor); NaN when not capped.
 	UncappedPotential float64
+
+	// Added with the review fixes (appended).
+	// BrushDensity is the charge density (C/m^2) a brush discharge can drain and
+	// the brush screen is applied to: ChargeDensity, except on a layer on an
+	// earthed backing, where only the air-side charge eps0 x the air-side field
+	// can leave in a brush (the bound charge facing the backing cannot). NaN when
+	// there is no reading.
+	BrushDensity float64
+	// ConeExtrapolated is Glor's formula evaluated beyond its range (J), shown
+	// as "not valid" beside the edge value used (the cone's Energy), when the
+	// silo diameter or particle size lies above the range (FlagConeAboveRange); NaN otherwise.
+	ConeExtrapolated float64
 }
 
 // BreakdownSource says where Evaluation.LayerBreakdown came from.
@@ -314,7 +326,7 @@ type BreakdownSource uint8
 const (
 	BreakdownUnknown  BreakdownSource = iota
 	BreakdownMeasured                 // Input.LayerBreakdown, measured on the layer
-	BreakdownComputed                 // bulk breakdown strength x thickness: never clears, used only to flag a contradiction
+	BreakdownThinFilm                 // not measured: the thin-film upper strength x thickness, a physics bound used only to flag a contradiction (the breakdown is taken above 4 kV)
 )
 
 // String says where the layer breakdown voltage came from.
@@ -322,8 +334,8 @@ func (b BreakdownSource) String() string {
 	switch b {
 	case BreakdownMeasured:
 		return "measured on the layer"
-	case BreakdownComputed:
-		return "computed from the bulk strength x thickness (a lower bound for thin films; never used to clear)"
+	case BreakdownThinFilm:
+		return "not measured: taken above 4 kV; the value is the thin-film upper strength (about 600 kV/mm) x thickness, the most a film holds, used only to flag a reading above it (a bulk strength x thickness does not apply to films and is not used)"
 	}
 	return "not known: taken above 4 kV"
 }

@@ -70,6 +70,12 @@ func DefaultLimits() Limits {
 		SecondPhaseChargeFactor: 10,
 
 		EarthingContradictionFactor: 10,
+
+		SparkSurface: 1e12,
+		CoronaEnergy: 0.1e-3,
+
+		CoatingThickness:    2e-3,
+		CoatingThicknessIIC: 0.2e-3,
 	}
 }
 
@@ -176,5 +182,9 @@ func LimitSources() []Citation {
 	add("StrainerChargeFactor", l.StrainerChargeFactor, "1", "coarse strainers add little charge to a pipe's", true)
 	add("SecondPhaseChargeFactor", l.SecondPhaseChargeFactor, "1", srcChoice+": an order of magnitude for free water, solids or a second liquid", true)
 	add("EarthingContradictionFactor", l.EarthingContradictionFactor, "1", srcChoice+": a measured potential more than an order of magnitude above what the measured earthing allows under the worst-case charging current (I R) contradicts the earthing path", false)
+	add("SparkSurface", l.SparkSurface, "ohm", "ESD Association material classes: dissipative 1e5 to < 1e12 ohm/sq (reference section 6); a surface below it, or of dissipative class, sparks when not earthed (IEC TS 60079-32-1 principle: conductors must be earthed)", false)
+	add("CoronaEnergy", l.CoronaEnergy, "J", "screening choice of this tool: corona is below about 0.1-1 mJ and ignites only very sensitive gases such as hydrogen (reference section 3, < 1 mJ confirmed, the rest from memory); the lower end is taken as its equivalent energy and compared only with an MIE below it, so IIA and IIB atmospheres (MIE >= 0.14 mJ for the usual gases) are not judged on corona", true)
+	add("CoatingThickness", l.CoatingThickness, "m", src0+" coatings on earthed metal (IIA, IIB), with a breakdown voltage of at most 4 kV measured on the layer (the 4 kV condition confirmed in the 2017 foreword)", true)
+	add("CoatingThicknessIIC", l.CoatingThicknessIIC, "m", src0+" coatings on earthed metal (IIC), with a breakdown voltage of at most 4 kV measured on the layer", true)
 	return out
 }

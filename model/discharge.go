@@ -22,6 +22,26 @@ func PropagatingBrushEnergy(sigma, area, t, epsr, maxEnergy float64) float64 {
 	return math.Min(w, maxEnergy)
 }
 
+// PropagatingBrushCharge bounds the charge one propagating brush discharge
+// transfers (C): at most the charge on the layer, sigma x area, and at most the
+// charge that releases the discharge's energy w at the layer's voltage v,
+// Q = 2 w / v (W = Q V / 2, derived); an unknown voltage takes vmin, the 4 kV
+// below which a layer's breakdown prevents a propagating brush (TRGS 727 Annex
+// C), the larger charge. When w is the layer's whole stored energy (not capped)
+// the bound equals sigma x area. With the energy bound of 1 J (from memory)
+// this gives at most 500 uC: hundreds of uC, not the millicoulombs the whole
+// layer carries, most of which stays bound (a documented bound of this tool).
+func PropagatingBrushCharge(sigma, area, w, v, vmin float64) float64 {
+	q := sigma * area
+	if !(v > 0) || math.IsInf(v, 0) {
+		v = vmin
+	}
+	if b := 2 * w / v; !(q <= b) {
+		q = b
+	}
+	return q
+}
+
 // Glor's cone discharge formula: validity range.
 const (
 	ConeMinDiameter     = 0.5    // m
@@ -44,11 +64,13 @@ func ConeDischargeEnergy(diameter, particleSize float64) (energy float64, inRang
 }
 
 // ConeEnergyAtRange returns the cone discharge energy by Glor's formula, never
-// extrapolated into a clearance: outside the validity range (D 0.5-3 m, d 0.1-3 mm)
-// it is the larger of the formula's value and its value at the nearest edge of the
-// range (D and d clamped into it). Below the range this is the edge value (the
-// formula falls there and must not clear); above it the extrapolated value, which
-// is larger. inRange reports whether both lie in the range.
+// extrapolated: outside the validity range (D 0.5-3 m, d 0.1-3 mm) it is the
+// value at the nearest edge of the range (D and d clamped into it), as the words
+// beside it say (principle 3). Below the range the formula falls and the edge
+// value is an upper bound that must not clear; above it the formula is not valid
+// and the edge value is only a lower bound (the energy rises with D and d): the
+// assessment then keeps a finding so it is never a clearance (ConeAboveRange).
+// inRange reports whether both lie in the range.
 func ConeEnergyAtRange(diameter, particleSize float64) (energy float64, inRange bool) {
 	w, ok := ConeDischargeEnergy(diameter, particleSize)
 	if ok {
@@ -57,5 +79,11 @@ func ConeEnergyAtRange(diameter, particleSize float64) (energy float64, inRange 
 	dc := math.Min(math.Max(diameter, ConeMinDiameter), ConeMaxDiameter)
 	pc := math.Min(math.Max(particleSize, ConeMinParticleSize), ConeMaxParticleSize)
 	edge, _ := ConeDischargeEnergy(dc, pc)
-	return math.Max(w, edge), false
+	return edge, false
+}
+
+// ConeAboveRange reports whether the silo diameter or the particle size lies above
+// Glor's validity range (D > 3 m or d > 3 mm), where the edge value is a lower bound.
+func ConeAboveRange(diameter, particleSize float64) bool {
+	return diameter > ConeMaxDiameter || particleSize > ConeMaxParticleSize
 }

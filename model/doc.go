@@ -68,12 +68,16 @@
 //     bulk strength x thickness never clears: thin films hold 100-600 kV/mm), and
 //     sigma >= 2.5e-4 C/m^2 measured, or the process; energy the stored field
 //     energy of the layer, at most 1 J (a process-driven one at 1 J). A layer
-//     whose voltage exceeds its breakdown (measured, else computed from the bulk
-//     strength) raises FlagBreakdownContradiction.
+//     whose voltage exceeds its measured breakdown, or the thin-film upper
+//     strength ThinFilmStrength x thickness (about 600 kV/mm, reference
+//     section 12) when none was measured, raises FlagBreakdownContradiction; a bulk
+//     strength x thickness is not used. A reading above a measured breakdown of
+//     4 kV or less keeps the propagating brush (principle 1; BG RCI FAQ 1.12).
 //  7. Belts: charging current sigma v w (or the row's, the larger). Decay of a
 //     strip earthed at its edges tau = rho_s c w^2/pi^2.
-//  8. A conducting surface (conductive, dissipative, or of dissipative class)
-//     not earthed (no earthed backing, resistance blank or above
+//  8. A conducting surface (conductive, of dissipative class whatever its
+//     resistivity, or below the ESD dissipative class bound Limits.SparkSurface,
+//     1e12 ohm/sq, at the station's RH: reference section 6) not earthed (no earthed backing, resistance blank or above
 //     Limits.ConductorEarthing) is an isolated conductor (IsolatedConductor): its
 //     spark W = C V^2/2 with V measured, or sigma A / C from the reading, or from
 //     its charging current; C measured, else the disc of equal area 8 eps0 r

@@ -96,6 +96,8 @@ func newEvaluation(k Kind) Evaluation {
 		EarthingBound:      nan,
 		ReadingDensity:     nan,
 		UncappedPotential:  nan,
+		BrushDensity:       nan,
+		ConeExtrapolated:   nan,
 	}
 	for i := range ev.Discharges {
 		ev.Discharges[i] = Discharge{Type: DischargeType(i), Energy: nan, Charge: nan, Code: ReasonNotApplicable, A: nan, B: nan}
@@ -122,6 +124,12 @@ func finish(ev *Evaluation, env *Environment, lim *Limits) {
 		if d.Type == Brush && !BrushIgnites(*env, *lim) {
 			continue // not incendive to a pure dust cloud of MIE at or above Limits.DustBrushMIE
 		}
+		if d.Type == Corona {
+			if !CoronaIgnites(*env, *lim) {
+				continue // corona ignites only the most sensitive gases (Limits.CoronaEnergy)
+			}
+			setReason(d, ReasonCoronaIgnites, d.Energy, env.MIE)
+		}
 		if d.Energy > ev.EffectiveEnergy {
 			ev.EffectiveEnergy, ev.Effective = d.Energy, d.Type
 		}
@@ -139,6 +147,17 @@ func (e Environment) WithStrictGroup() (Environment, bool) {
 		return e, true
 	}
 	return e, false
+}
+
+// CoronaIgnites reports whether a corona discharge is counted against the
+// environment's atmosphere: an atmosphere whose MIE is below the corona
+// equivalent energy bound Limits.CoronaEnergy (0.1 mJ, a screening choice:
+// reference section 3, corona below about 0.1-1 mJ ignites only very sensitive
+// gases such as hydrogen, MIE about 0.017 mJ). IIA and IIB atmospheres of the
+// usual MIE (0.14 mJ or more) are not judged on corona; an unknown MIE leaves the
+// verdict to "not assessed".
+func CoronaIgnites(env Environment, lim Limits) bool {
+	return env.Atmosphere != NoAtmosphere && env.MIE < lim.CoronaEnergy
 }
 
 // BrushIgnites reports whether a brush discharge can ignite the environment's
@@ -203,7 +222,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	ev.Dissipative = dissipative
 	backed := in.EarthedBacking
 	ev.Earthed = backed || (given(in.Resistance) && in.Resistance <= lim.ConductorEarthing)
-	ev.IsolatedConductor = conductingSurface(in, dissipative) && !ev.Earthed
+	ev.IsolatedConductor = conductingSurface(in, ev, lim) && !ev.Earthed
 
 	epsr := in.Material.Permittivity
 	if backed && !positive(epsr) {
@@ -341,6 +360,30 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	if oneSided {
 		ev.SurfaceField = OneSidedField(sigma)
 	}
+	// The density a brush drains. On a layer on an earthed backing most of the
+	// charge is bound by the backing; only the air-side charge eps0 x E_air can
+	// leave in a brush (Gauss's law, textbook; the hand-worked case HW-03 reasons
+	// the same way). The field read is that air-side field (capped at air
+	// breakdown), on a roller the cylinder's field at its surface. With a surface
+	// potential only, the air-side field is not known: the stricter case, the
+	// most air lets the surface hold on one side (principle 2). The surface field
+	// shown is then that air-side field, not the layer's internal field (shown apart).
+	brushSigma := sigma
+	if backed {
+		switch {
+		case given(in.Field) && roller:
+			brushSigma = DensityCylinder(math.Min(math.Abs(in.Field), lim.AirBreakdown), rad, in.FieldDistance)
+		case given(in.Field):
+			brushSigma = Eps0 * math.Min(math.Abs(in.Field), lim.AirBreakdown)
+		default:
+			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
+		}
+		ev.SurfaceField = nan // the air-side field is not known from a potential
+		if given(in.Field) {
+			ev.SurfaceField = OneSidedField(brushSigma)
+		}
+	}
+	ev.BrushDensity = brushSigma
 
 	// Charging current: a belt's sigma v w, or the row's (the larger when both).
 	if in.Kind == Belt && positive(in.Speed) && positive(in.Width) {
@@ -380,33 +423,35 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	br := &ev.Discharges[Brush]
 	screen := lim.BrushChargeDensity[groupIndex(env.Group)]
 	switch {
-	case !(sigma > screen):
+	case !(brushSigma > screen):
 		if leaks {
 			setReason(br, ReasonBrushLeaks, ev.SurfaceResistivity, nan)
 		} else {
-			setReason(br, ReasonBrushBelowScreen, sigma, screen)
+			setReason(br, ReasonBrushBelowScreen, brushSigma, screen)
 		}
 	default:
-		br.Possible, br.Energy, br.Charge = true, lim.BrushEnergy, sigma*lim.BrushArea
+		br.Possible, br.Energy, br.Charge = true, lim.BrushEnergy, brushSigma*lim.BrushArea
 		if leaks {
 			// The reading contradicts the humidity model: the model clears nothing
 			// more on this row (its propagating brush, its area exemption).
 			ev.Flags |= FlagHumidityContradiction
-			setReason(br, ReasonBrushReadingOverHumidity, sigma, screen)
+			setReason(br, ReasonBrushReadingOverHumidity, brushSigma, screen)
 			leaks = false
 		} else {
-			setReason(br, ReasonBrushPossible, sigma, screen)
+			setReason(br, ReasonBrushPossible, brushSigma, screen)
 		}
 	}
 
-	// Layer breakdown: measured on the layer, else the bulk strength x thickness,
-	// which never clears but flags a layer holding more than it could.
+	// Layer breakdown: measured on the layer, else the thin-film upper strength
+	// x thickness (reference section 12: films hold up to about 600 kV/mm), a
+	// physics bound that never clears and flags only a layer holding more than
+	// any film could. A bulk (thick-plaque) strength x thickness does not apply to
+	// films (reference section 12) and is not used, not even for the contradiction.
 	if positive(in.Thickness) && (backed || in.DoubleLayer || in.Process == ProcessPneumatic) {
-		switch {
-		case positive(in.LayerBreakdown):
+		if positive(in.LayerBreakdown) {
 			ev.LayerBreakdown, ev.BreakdownSource = math.Abs(in.LayerBreakdown), BreakdownMeasured
-		case given(in.Material.BreakdownStrength):
-			ev.LayerBreakdown, ev.BreakdownSource = in.Material.BreakdownStrength*in.Thickness, BreakdownComputed
+		} else {
+			ev.LayerBreakdown, ev.BreakdownSource = ThinFilmStrength*in.Thickness, BreakdownThinFilm
 		}
 		if ev.LayerVoltage > ev.LayerBreakdown {
 			ev.Flags |= FlagBreakdownContradiction
@@ -430,7 +475,12 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		setReason(pb, ReasonPropThick, t, lim.PropagatingThickness)
 		return sigma
 	}
-	if ev.BreakdownSource == BreakdownMeasured && ev.LayerBreakdown <= lim.PropagatingBreakdown {
+	// A measured breakdown at or below 4 kV prevents it (TRGS 727 Annex C), unless
+	// the reading on the row shows the layer holding more than that breakdown: the
+	// reading beats the other value (principle 1), and above about 4 kV on the
+	// layer a propagating brush is possible (BG RCI FAQ 1.12).
+	overBreakdown := ev.BreakdownSource == BreakdownMeasured && ev.Flags&FlagBreakdownContradiction != 0
+	if ev.BreakdownSource == BreakdownMeasured && ev.LayerBreakdown <= lim.PropagatingBreakdown && !overBreakdown {
 		setReason(pb, ReasonPropLowBreakdown, ev.LayerBreakdown, lim.PropagatingBreakdown)
 		return sigma
 	}
@@ -454,7 +504,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		// Process-driven: the density is not measured, so the upper estimate.
 		pb.Possible, pb.Energy = true, lim.PropagatingMaxEnergy
 		if positive(ev.InsulatingArea) {
-			pb.Charge = lim.PropagatingDensity * ev.InsulatingArea
+			pb.Charge = PropagatingBrushCharge(lim.PropagatingDensity, ev.InsulatingArea, lim.PropagatingMaxEnergy, nan, lim.PropagatingBreakdown)
 		}
 		if byCurrent {
 			setReason(pb, ReasonPropCurrentDensity, ev.ChargingDensity, PropagatingCurrentDensity)
@@ -467,7 +517,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	if process {
 		// The process can charge the layer beyond what was read: the upper estimate.
 		if positive(ev.InsulatingArea) {
-			pb.Charge = sigma * ev.InsulatingArea
+			pb.Charge = PropagatingBrushCharge(sigma, ev.InsulatingArea, w, nan, lim.PropagatingBreakdown)
 		}
 	} else if positive(ev.InsulatingArea) && positive(t) {
 		pe := epsr
@@ -476,15 +526,18 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 			ev.Assumed |= AssumedLayerPermittivity
 		}
 		w = PropagatingBrushEnergy(sigma, ev.InsulatingArea, t, pe, lim.PropagatingMaxEnergy)
-		pb.Charge = sigma * ev.InsulatingArea
+		pb.Charge = PropagatingBrushCharge(sigma, ev.InsulatingArea, w, sigma*t/(Eps0*pe), lim.PropagatingBreakdown)
 	} else {
 		ev.Assumed |= AssumedPropagatingArea
 	}
 	pb.Possible, pb.Energy = true, w
-	if leaks {
+	switch {
+	case leaks:
 		ev.Flags |= FlagHumidityContradiction
 		setReason(pb, ReasonPropReadingOverHumidity, sigma, lim.PropagatingDensity)
-	} else {
+	case overBreakdown && ev.LayerBreakdown <= lim.PropagatingBreakdown:
+		setReason(pb, ReasonPropReadingOverBreakdown, ev.LayerVoltage, ev.LayerBreakdown)
+	default:
 		setReason(pb, ReasonPropPossible, sigma, w)
 	}
 	return sigma
@@ -499,7 +552,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 // measured one never is.
 func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigma float64) {
 	sp := &ev.Discharges[Spark]
-	conducts := conductingSurface(in, ev.Dissipative)
+	conducts := conductingSurface(in, ev, lim)
 	if !ev.IsolatedConductor {
 		if conducts && ev.Earthed {
 			r := math.NaN()
@@ -603,13 +656,21 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	}
 }
 
-// conductingSurface reports whether a surface conducts well enough to spark: a
-// conductive material, a surface dissipative at this RH by its resistivity, or,
-// with no resistivity given, a material of dissipative class (the stricter
-// reading: it may conduct). A resistivity given and insulating at this RH wins
-// over the class.
-func conductingSurface(in *Input, dissipative bool) bool {
-	return in.Material.Conductive || dissipative || (in.Material.Dissipative && !given(in.Material.SurfaceResistivity))
+// conductingSurface reports whether a surface conducts well enough to spark as
+// an isolated conductor when it is not earthed: a conductive material, a material
+// of dissipative class whatever its resistivity (a library or model resistivity
+// may not clear the spark of a dissipative-class surface: principle 1), or a
+// surface whose resistivity at the station's RH is below the dissipative class
+// bound of ESD practice, Limits.SparkSurface (1e12 ohm/sq, reference section 6),
+// the stricter of the two tests. The 1e9 ohm area-exemption threshold
+// (Limits.DissipativeSurface) decides the insulating-area exemption only: used
+// here it would let the humidity model clear a spark. An insulating material at
+// 1e13 ohm stays an insulator.
+func conductingSurface(in *Input, ev *Evaluation, lim *Limits) bool {
+	if in.Material.Conductive || in.Material.Dissipative || ev.Dissipative {
+		return true
+	}
+	return given(ev.SurfaceResistivity) && ev.SurfaceResistivity < lim.SparkSurface
 }
 
 // surfaceCapacitance returns the measured capacitance of a conducting surface, or
@@ -829,7 +890,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	co := &ev.Discharges[Corona]
 	switch {
 	case capped:
-		co.Possible = true
+		co.Possible, co.Energy = true, lim.CoronaEnergy
 		setReason(co, ReasonCoronaOnset, ev.CoronaOnset, in.Diameter/2)
 	case finite(ev.CoronaOnset):
 		setReason(co, ReasonCoronaBelowOnset, v, ev.CoronaOnset)
@@ -938,6 +999,10 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	cone.Energy = w
 	if ok {
 		setReason(cone, ReasonConePossible, in.Diameter, in.ParticleSize)
+	} else if ConeAboveRange(in.Diameter, in.ParticleSize) {
+		ev.Flags |= FlagConeOutsideRange | FlagConeAboveRange
+		ev.ConeExtrapolated, _ = ConeDischargeEnergy(in.Diameter, in.ParticleSize)
+		setReason(cone, ReasonConeAboveRange, in.Diameter, in.ParticleSize)
 	} else {
 		ev.Flags |= FlagConeOutsideRange
 		setReason(cone, ReasonConeOutsideRange, in.Diameter, in.ParticleSize)
@@ -1202,7 +1267,7 @@ func evalBag(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		setReason(pb, ReasonBrushBagProtected, math.NaN(), math.NaN())
 		setReason(sp, ReasonSparkBagD, math.NaN(), math.NaN())
 		co := &ev.Discharges[Corona]
-		co.Possible = true
+		co.Possible, co.Energy = true, lim.CoronaEnergy
 		setReason(co, ReasonCoronaBagD, math.NaN(), math.NaN())
 	}
 }

@@ -85,4 +85,24 @@ type Limits struct {
 	// many times the bound its measured earthing allows (worst-case charging
 	// current x resistance to earth) contradicts the earthing path.
 	EarthingContradictionFactor float64
+
+	// Added with the review fixes (fields only appended).
+
+	// SparkSurface: surface resistance below which a surface conducts well
+	// enough to spark as an isolated conductor when it is not earthed: the
+	// dissipative class bound of ESD practice (below 1e12 ohm/sq), stricter than
+	// DissipativeSurface (1e9 ohm, which only decides the area exemption).
+	SparkSurface float64
+	// CoronaEnergy: the equivalent energy bound of a corona discharge (from a
+	// sharp point or edge, a type D bag). Corona is compared with an atmosphere's
+	// MIE only where it can ignite one, an MIE below this bound (hydrogen-like
+	// gases); above it corona is not counted (reference section 3: corona below
+	// about 0.1-1 mJ ignites only very sensitive gases such as hydrogen).
+	CoronaEnergy float64
+	// CoatingThickness, CoatingThicknessIIC: an insulating layer on earthed
+	// metal no thicker than this (IIA, IIB; IIC) and of measured breakdown at
+	// most PropagatingBreakdown is a coating, not held to the insulating-area
+	// limit (IEC 60079-0).
+	CoatingThickness    float64
+	CoatingThicknessIIC float64
 }

@@ -79,6 +79,10 @@ const (
 	ReasonBrushLiquidCompliant
 	ReasonBrushLiquidBreach // A conductivity (S/m; NaN unknown)
 	ReasonBrushLiquidNoSafeLimits
+	// Added with the review fixes (codes only appended).
+	ReasonPropReadingOverBreakdown // A voltage across the layer, B measured breakdown (V)
+	ReasonCoronaIgnites            // A corona equivalent energy bound (J), B MIE (J)
+	ReasonConeAboveRange           // A silo diameter, B particle size (m)
 
 	numReasons
 )
@@ -169,6 +173,8 @@ func (r Reason) Text(a, b float64) string {
 		return fmt.Sprintf("Cone discharge energy by Glor's formula W = 5.22 D^3.36 d^1.462 mJ with D = %s and d = %s.", Quantity(a, "m"), Quantity(b, "m"))
 	case ReasonConeOutsideRange:
 		return fmt.Sprintf("Glor's formula is outside its range (D 0.5-3 m, d 0.1-3 mm) for D = %s and d = %s: the energy is taken at the nearest edge of the range, never less.", Quantity(a, "m"), Quantity(b, "m"))
+	case ReasonConeAboveRange:
+		return fmt.Sprintf("Glor's formula is not valid beyond D = 3 m or d = 3 mm (here D = %s, d = %s): the energy shown is the value at the edge of the range, a lower bound (the energy rises with D and d), so it never clears on its own.", Quantity(a, "m"), Quantity(b, "m"))
 	case ReasonConeSizeUnknown:
 		return "A cone discharge is possible, but the silo diameter or the particle size is missing: its energy is unknown."
 	case ReasonBagAllowed:
@@ -223,6 +229,10 @@ func (r Reason) Text(a, b float64) string {
 			return "The conductivity is not given, so the liquid is taken as low-conductivity, and a filling clause is not met: brush discharges from its surface are possible."
 		}
 		return fmt.Sprintf("A low-conductivity liquid (%s for the filling rules) keeps charge on its surface and a filling clause is not met: brush discharges from its surface are possible.", Quantity(a, "S/m"))
+	case ReasonPropReadingOverBreakdown:
+		return fmt.Sprintf("The reading shows the layer holding %s, above its measured breakdown of %s: the reading is kept (a measurement beats the other value), so the propagating brush stays counted (possible once the layer holds more than about 4 kV, BG RCI FAQ 1.12); check the breakdown measurement and the reading.", Quantity(a, "V"), Quantity(b, "V"))
+	case ReasonCoronaIgnites:
+		return fmt.Sprintf("Corona (from a sharp point or edge, or a type D bag), taken at its equivalent energy bound of %s (a screening choice: corona is below about 0.1-1 mJ), can ignite this atmosphere of MIE %s: only very sensitive gases such as hydrogen are ignited by corona.", Quantity(a, "J"), Quantity(b, "J"))
 	case ReasonBrushLiquidNoSafeLimits:
 		return "A low-conductivity liquid filled into an insulating vessel: the standard gives no safe filling limits for it, so brush discharges from its surface are counted."
 	}
@@ -407,6 +417,8 @@ const (
 	// Contradictions (appended with the follow-up checks).
 	FlagEarthingContradiction
 	FlagReadingAboveBreakdown
+	// Review fixes (appended).
+	FlagConeAboveRange
 	numFlags = iota
 )
 
@@ -416,7 +428,7 @@ func flagTexts() [numFlags]string {
 		"reading beyond what air can hold: check the reading and its unit",
 		"potential capped at the corona onset of the conductor's radius",
 		"body potential capped at the documented walking-test maximum",
-		"Glor's formula outside its validity range (D 0.5-3 m, d 0.1-3 mm): the value at the nearest edge of the range used, never less",
+		"Glor's formula outside its validity range (D 0.5-3 m, d 0.1-3 mm): the value at the nearest edge of the range used",
 		"the layer can support a propagating brush if charged to 2.5e-4 C/m²",
 		"the dissipative surface decays more slowly than it reaches the hazard",
 		"stored energy above the shock threshold",
@@ -424,7 +436,7 @@ func flagTexts() [numFlags]string {
 		"top (splash) filling of a low-conductivity liquid",
 		"type C bag not earthed (tab to earth unknown or above the limit)",
 		"charging current above the 3 µA the type C/D qualification assumes",
-		"the layer holds a voltage above its breakdown voltage: check the reading and its unit, the thickness and the breakdown value (a bulk strength understates a thin film's)",
+		"the layer holds a voltage above its measured breakdown voltage, or above what any film of its thickness holds: check the reading and its unit, the thickness and the breakdown value",
 		"the reading shows charge above the screen although the humidity model finds the surface dissipative and earthed: the reading stands; check the surface resistivity at this RH, the earthing and the reading",
 		"unmeasured potential capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)",
 		"potential estimated with the resistance to earth unknown (no leakage): the energy is set by that assumption; measure the resistance or the potential",
@@ -432,6 +444,7 @@ func flagTexts() [numFlags]string {
 		"a second phase (stated, or not stated and so taken as present) below 1000 pS/m: the filling rules for low-conductivity liquids apply",
 		"measured potential far above what the measured earthing allows under the worst-case charging current: the earthing path or the reading is wrong; the reading is kept",
 		"reading above what air can hold at the surface: the charge density is capped at the breakdown limit; check the meter's distance, unit and range",
+		"silo diameter or particle size above Glor's range: formula not valid there, the edge value is a lower bound (never a clearance)",
 	}
 }
 

@@ -2,6 +2,7 @@ package model
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -81,8 +82,12 @@ func TestConeNeverExtrapolatedIntoClearance(t *testing.T) {
 		{"silo below range", 0.3, 1e-3, 0.5084e-3},
 		// d 0.05 mm (below 0.1 mm): 5.22 x 0.1^1.462 = 0.1802 mJ, not 0.0654 mJ.
 		{"particles below range", 1, 0.05e-3, 0.1802e-3},
-		// D 5 m (above 3): the formula's own, larger value 5.22 x 5^3.36 = 1164.7 mJ.
-		{"silo above range", 5, 1e-3, 1.1647},
+		// D 5 m (above 3): the value at the edge D = 3 m, 5.22 x 3^3.36 = 209.3 mJ (derived),
+		// a lower bound (the formula, not valid there, gives 1164.7 mJ): reference section 3,
+		// "outside the formula's validity range say 'formula not valid' rather than extrapolate".
+		{"silo above range", 5, 1e-3, 0.2093},
+		// d 5 mm (above 3 mm), D 1.5 m (the review's SILO-C): 5.22 x 1.5^3.36 x 3^1.462 = 101.6 mJ.
+		{"particles above range", 1.5, 5e-3, 0.1016},
 		// Inside the range: 5.22 mJ (reference 10.7).
 		{"in range", 1, 1e-3, 5.22e-3},
 	}
@@ -91,6 +96,9 @@ func TestConeNeverExtrapolatedIntoClearance(t *testing.T) {
 		near(t, c.name, w, c.want, 1e-3)
 		if ok != (c.name == "in range") {
 			t.Errorf("%s: inRange %v", c.name, ok)
+		}
+		if above := ConeAboveRange(c.d, c.p); above != strings.Contains(c.name, "above") {
+			t.Errorf("%s: above range %v", c.name, above)
 		}
 	}
 }

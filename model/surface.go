@@ -85,6 +85,14 @@ func IsProcessMaterial(in Input) bool {
 // field meter reads: about 1 mA/m^2 (BG RCI FAQ 1.12, confirmed, reference section 3).
 const PropagatingCurrentDensity = 1e-3
 
+// ThinFilmStrength is the upper dielectric strength of thin insulating films and
+// liners (0.02-0.2 mm): about 600 kV/mm (PET with self-healing electrodes; films
+// hold 100-600 kV/mm). Source: reference section 12 [C, secondary]. Times the
+// thickness it bounds what a layer can hold, so that only a reading above it, or
+// above a measured breakdown, is a contradiction; a mm-thick plaque's bulk
+// strength (PET ~60 kV/mm) does not apply to films and is never used.
+const ThinFilmStrength = 600e6
+
 // OverEarthValidity is the largest ratio of (h + z), the gaps to earth and to the
 // meter, to the sheet's smaller side for which the parallel-plate split
 // sigma = eps0 E (1 + z/h) is used: a fifth (a screening choice of this tool; the

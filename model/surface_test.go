@@ -75,46 +75,69 @@ func TestSurfaceReadingPaths(t *testing.T) {
 		t.Errorf("double layer: assumed %b", ev.Assumed)
 	}
 	// Issue 11: a dissipative class with no resistivity does not count as
-	// dissipative for clearing: the 134 uC/m^2 reading keeps its brush; on its
-	// earthed backing it is earthed, so no spark.
+	// dissipative for clearing: the 1 MV/m reading (air side eps0 E = 8.85 uC/m^2,
+	// derived) keeps its brush; on its earthed backing it is earthed, so no spark.
 	c := blank(Belt)
-	c.Material.Dissipative, c.EarthedBacking, c.Thickness, c.Field, c.FieldDistance = true, true, 1e-3, 1e5, 0.05
+	c.Material.Dissipative, c.EarthedBacking, c.Thickness, c.Field, c.FieldDistance = true, true, 1e-3, 1e6, 0.05
 	ev = Evaluate(c, Environment{RelativeHumidity: 50, Atmosphere: Gas, Group: IIA, Zone: Zone1}, lim)
 	if !ev.Discharges[Brush].Possible || ev.Dissipative || ev.Assumed&AssumedDissipativeClass == 0 || ev.Discharges[Spark].Code != ReasonSparkSurfaceEarthed {
 		t.Errorf("dissipative-class belt: %s; %s", ev.Discharges[Brush].Reason(), ev.Discharges[Spark].Reason())
 	}
 }
 
-// Issue 11, item 1: a bulk strength never clears a propagating brush; a layer
-// holding more than its breakdown is a contradiction.
+// Issue 11, item 1, and review items 2 and 8: a bulk strength never clears a
+// propagating brush nor raises a contradiction; a layer holding more than its
+// measured breakdown (or than any film holds) is a contradiction, and a reading
+// above a measured breakdown of 4 kV or less keeps the propagating brush.
 func TestLayerBreakdownContradiction(t *testing.T) {
 	lim := DefaultLimits()
 	env := gasEnv(IIA, Zone1, 0.24e-3)
 	in := blank(Sheet)
-	// 50 um film, epsr 3, bulk strength 20 kV/mm (a thick-plaque value) -> computed 1 kV (derived).
+	// 50 um film, epsr 3, bulk strength 20 kV/mm (a thick-plaque value: 1 kV, not used).
 	in.EarthedBacking, in.Thickness, in.Material.Permittivity, in.Material.BreakdownStrength = true, 50e-6, 3, 20e6
-	in.Length, in.Width, in.Field, in.FieldDistance = 1, 0.5, 50e3, 0.05
+	in.Length, in.Width, in.Field, in.FieldDistance = 1, 0.5, 200e3, 0.05
 	ev := Evaluate(in, env, lim)
-	// derived: the layer holds V = E z = 50 kV/m x 0.05 m = 2.5 kV (parallel-plate split).
-	near(t, "layer voltage", ev.LayerVoltage, 2.5e3, 1e-12)
-	near(t, "computed breakdown", ev.LayerBreakdown, 1e3, 1e-12)
-	// derived: sigma = eps0 x 5e4 x (1 + 3 x 0.05 / 5e-5) = 1.33e-3 C/m^2 >= 2.5e-4 (TRGS 727 Annex C).
-	near(t, "density", ev.ChargeDensity, Eps0*5e4*3001, 1e-12)
-	if ev.Flags&FlagBreakdownContradiction == 0 || !ev.Discharges[PropagatingBrush].Possible || ev.BreakdownSource != BreakdownComputed {
-		t.Errorf("computed 1 kV under 2.5 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	// derived: the layer holds V = E z = 200 kV/m x 0.05 m = 10 kV (the review's FILM-NOBD).
+	near(t, "layer voltage", ev.LayerVoltage, 10e3, 1e-12)
+	// Source: reference section 12 [C, secondary]: films hold up to about 600 kV/mm,
+	// so 50 um holds up to 600e6 x 50e-6 = 30 kV: 10 kV (200 kV/mm) is plausible.
+	near(t, "thin-film bound", ev.LayerBreakdown, 30e3, 1e-12)
+	// derived: sigma = eps0 x 2e5 x (1 + 3 x 0.05 / 5e-5) = eps0 x 2e5 x 3001 >= 2.5e-4 (TRGS 727 Annex C).
+	near(t, "density", ev.ChargeDensity, Eps0*2e5*3001, 1e-12)
+	if ev.Flags&FlagBreakdownContradiction != 0 || !ev.Discharges[PropagatingBrush].Possible || ev.BreakdownSource != BreakdownThinFilm {
+		t.Errorf("10 kV on 50 um, breakdown not measured: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
 	}
-	// A measured 2 kV (<= 4 kV) clears the propagating brush (TRGS 727 Annex C [C]),
-	// but 2.5 kV held above 2 kV is still a contradiction.
-	in.LayerBreakdown = 2e3
-	ev = Evaluate(in, env, lim)
-	if ev.Discharges[PropagatingBrush].Possible || ev.Flags&FlagBreakdownContradiction == 0 || ev.BreakdownSource != BreakdownMeasured {
-		t.Errorf("measured 2 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	// Above the thin-film bound: 40 kV on 50 um (800 kV/mm) is a contradiction
+	// (derived: 40 kV > 30 kV); the propagating brush stays.
+	in.Field, in.FieldDistance = 400e3, 0.1
+	if ev = Evaluate(in, env, lim); ev.Flags&FlagBreakdownContradiction == 0 || !ev.Discharges[PropagatingBrush].Possible {
+		t.Errorf("40 kV on 50 um: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
 	}
-	// Measured 10 kV: no contradiction, and above 4 kV the brush stays possible.
-	in.LayerBreakdown = 10e3
+	// Measured 3 kV (<= 4 kV) but the reading shows 10 kV across the layer (the
+	// review's FILMD-BD): the contradiction stands and the propagating brush stays
+	// counted (principle 1; BG RCI FAQ 1.12: possible above about 4 kV on the layer).
+	in.Field, in.FieldDistance, in.LayerBreakdown = 200e3, 0.05, 3e3
 	ev = Evaluate(in, env, lim)
-	if !ev.Discharges[PropagatingBrush].Possible || ev.Flags&FlagBreakdownContradiction != 0 {
-		t.Errorf("measured 10 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	pb := ev.Discharges[PropagatingBrush]
+	if ev.Flags&FlagBreakdownContradiction == 0 || !pb.Possible || pb.Code != ReasonPropReadingOverBreakdown || ev.BreakdownSource != BreakdownMeasured {
+		t.Errorf("measured 3 kV under a 10 kV reading: flags %b, %s", ev.Flags, pb.Reason())
+	}
+	// The same with a measured surface potential of 8 kV (the review's FILMD-V).
+	v := in
+	v.Field, v.FieldDistance, v.SurfacePotential = math.NaN(), math.NaN(), 8e3
+	if ev = Evaluate(v, env, lim); ev.Flags&FlagBreakdownContradiction == 0 || !ev.Discharges[PropagatingBrush].Possible {
+		t.Errorf("measured 3 kV under 8 kV read: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	}
+	// Measured 3 kV and a reading of 2.5 kV across the layer (50 kV/m at 0.05 m):
+	// no contradiction, and the measured breakdown clears it (TRGS 727 Annex C [C]).
+	in.Field = 50e3
+	if ev = Evaluate(in, env, lim); ev.Discharges[PropagatingBrush].Possible || ev.Flags&FlagBreakdownContradiction != 0 || ev.Discharges[PropagatingBrush].Code != ReasonPropLowBreakdown {
+		t.Errorf("measured 3 kV, 2.5 kV read: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
+	}
+	// Measured 12 kV under a 10 kV reading: no contradiction, above 4 kV the brush stays possible.
+	in.Field, in.LayerBreakdown = 200e3, 12e3
+	if ev = Evaluate(in, env, lim); !ev.Discharges[PropagatingBrush].Possible || ev.Flags&FlagBreakdownContradiction != 0 {
+		t.Errorf("measured 12 kV: flags %b, %s", ev.Flags, ev.Discharges[PropagatingBrush].Reason())
 	}
 }
 
@@ -338,12 +361,17 @@ func TestSurfacePotentialGeometries(t *testing.T) {
 	// Close to earth (h = 5 mm): the plate, eps0 V / h = 2e6 eps0 (textbook).
 	s.DistanceToEarth = 5e-3
 	near(t, "sheet close over earth", Evaluate(s, env, lim).ChargeDensity, Eps0*1e4/5e-3, 1e-12)
-	// A measured potential on a backed layer above its breakdown is a contradiction:
-	// 3 kV on 50 um of 20 kV/mm (computed 1 kV, derived).
+	// A measured potential on a backed layer above its measured breakdown is a
+	// contradiction: 3 kV on a layer measured to break down at 1 kV. A bulk strength
+	// (20 kV/mm x 50 um = 1 kV) is not used: reference section 12.
 	b := blank(Sheet)
 	b.EarthedBacking, b.Thickness, b.Material.Permittivity, b.Material.BreakdownStrength, b.SurfacePotential = true, 50e-6, 3, 20e6, 3e3
+	if ev := Evaluate(b, env, lim); ev.Flags&FlagBreakdownContradiction != 0 || ev.LayerVoltage != 3e3 {
+		t.Errorf("backed 3 kV, bulk 1 kV: flags %b, layer voltage %g", ev.Flags, ev.LayerVoltage)
+	}
+	b.LayerBreakdown = 1e3
 	if ev := Evaluate(b, env, lim); ev.Flags&FlagBreakdownContradiction == 0 || ev.LayerVoltage != 3e3 {
-		t.Errorf("backed 3 kV: flags %b, layer voltage %g", ev.Flags, ev.LayerVoltage)
+		t.Errorf("backed 3 kV, measured 1 kV: flags %b, layer voltage %g", ev.Flags, ev.LayerVoltage)
 	}
 }
 
@@ -389,5 +417,91 @@ func TestHumidityClearsOnlyUnmeasuredProcessCharge(t *testing.T) {
 	in.Width = math.NaN() // decay unknown: not cleared
 	if ev = Evaluate(in, env, lim); !ev.Discharges[PropagatingBrush].Possible {
 		t.Errorf("unknown decay cleared the process-driven brush: %s", ev.Discharges[PropagatingBrush].Reason())
+	}
+}
+
+// Review item 1: a library resistivity may not clear the spark of a
+// dissipative-class surface, and a surface conducts well enough to spark when
+// its resistivity at the station's RH is below the ESD dissipative class bound
+// of 1e12 ohm/sq (reference section 6, ESD Association definitions), at every RH.
+func TestUnearthedLibraryDissipativeSparksAtEveryRH(t *testing.T) {
+	lim := DefaultLimits()
+	// The built-in "antistatic PE": dissipative class, 1e10 ohm at 50 % RH, 0.5 decade per 10 % RH (from memory).
+	in := blank(Sheet)
+	in.Material.Dissipative, in.Material.SurfaceResistivity, in.Material.HumiditySlope = true, 1e10, 0.5
+	in.Length, in.Width, in.Speed, in.Field, in.FieldDistance = 1, 1, 1, 100e3, 0.05
+	// derived (python3): free 1 m x 1 m sheet, on-axis field at z = 0.05 m,
+	// E = sigma/(pi eps0) atan(a b/(z sqrt(a^2+b^2+z^2))), a = b = 0.5 -> sigma = 1.9452 uC/m^2;
+	// C = 8 eps0 sqrt(1/pi) = 39.964 pF (disc of equal area, reference section 2);
+	// V = sigma A / C = 48.68 kV; W = C V^2/2 = 47.34 mJ (the review's hand value 47 mJ at 48.7 kV).
+	for _, rh := range []float64{10, 30, 50, 80} {
+		env := gasEnv(IIA, Zone1, 0.24e-3)
+		env.RelativeHumidity = rh
+		ev := Evaluate(in, env, lim)
+		if !ev.IsolatedConductor || !ev.Discharges[Spark].Possible {
+			t.Fatalf("RH %v: antistatic PE unearthed: no spark (%s)", rh, ev.Discharges[Spark].Reason())
+		}
+		near(t, "potential", ev.Potential, 48675.54, 1e-4)
+		near(t, "spark energy", ev.Discharges[Spark].Energy, 0.0473430, 1e-4)
+	}
+	// No class, 1e11 ohm/sq at the RH (slope 0): below the 1e12 class bound, so it sparks
+	// although above the 1e9 ohm area-exemption threshold; at 1e13 it stays an insulator.
+	for _, c := range []struct {
+		rho   float64
+		spark bool
+	}{{1e11, true}, {9.9e11, true}, {1e12, false}, {1e13, false}} {
+		p := blank(Sheet)
+		p.Material.SurfaceResistivity = c.rho
+		p.Length, p.Width, p.Field, p.FieldDistance = 1, 1, 100e3, 0.05
+		ev := Evaluate(p, gasEnv(IIA, Zone1, 0.24e-3), lim)
+		if ev.IsolatedConductor != c.spark || ev.Discharges[Spark].Possible != c.spark {
+			t.Errorf("%g ohm/sq: isolated conductor %v, spark %v, want %v", c.rho, ev.IsolatedConductor, ev.Discharges[Spark].Possible, c.spark)
+		}
+		if ev.Dissipative {
+			t.Errorf("%g ohm/sq counted dissipative for the area exemption (threshold 1e9 ohm)", c.rho)
+		}
+	}
+}
+
+// Review item 7: a brush from a layer on an earthed backing drains only the
+// air-side charge, and a propagating brush transfers the charge of its energy
+// bound, not the whole layer's.
+func TestBackedLayerBrushAndPropagatingCharge(t *testing.T) {
+	lim := DefaultLimits()
+	in := blank(Sheet)
+	// 50 um film, epsr 3, on an earthed roller, 1 m x 1 m, read at 200 kV/m at 0.05 m (the review's FILM-NOBD).
+	in.EarthedBacking, in.Thickness, in.Material.Permittivity = true, 50e-6, 3
+	in.Length, in.Width, in.Field, in.FieldDistance = 1, 1, 200e3, 0.05
+	ev := Evaluate(in, gasEnv(IIA, Zone1, 0.24e-3), lim)
+	// derived (Gauss's law): air side sigma = eps0 x 200 kV/m = 1.771 uC/m^2; one brush
+	// drains 100 cm^2 (screening choice): 17.7 nC, not sigma_total x 100 cm^2 (53 uC).
+	near(t, "brush density", ev.BrushDensity, Eps0*2e5, 1e-12)
+	near(t, "surface field", ev.SurfaceField, 2e5, 1e-12)
+	// 1.77 uC/m^2 is below the IIA screen of 5 uC/m^2 (JNIOSH-TR): no brush in IIA ...
+	if ev.Discharges[Brush].Possible {
+		t.Errorf("IIA: brush on the air side 1.77 uC/m^2: %s", ev.Discharges[Brush].Reason())
+	}
+	// ... but above the IIC screen of 1 uC/m^2: a brush of 17.7 nC.
+	ev = Evaluate(in, gasEnv(IIC, Zone1, 0.017e-3), lim)
+	if !ev.Discharges[Brush].Possible {
+		t.Fatalf("IIC: %s", ev.Discharges[Brush].Reason())
+	}
+	near(t, "brush charge", ev.Discharges[Brush].Charge, Eps0*2e5*0.01, 1e-12)
+	// derived (python3): sigma_total = eps0 2e5 (1 + 3 x 0.05 / 5e-5) = 5.314 mC/m^2;
+	// stored energy sigma^2 A t / (2 eps0 epsr) = 26.6 J, bounded at 1 J (from memory);
+	// layer voltage sigma t / (eps0 epsr) = 10.0 kV; charge of the bound Q = 2 W / V =
+	// 199.9 uC (W = Q V / 2), not sigma A = 5.3 mC.
+	pb := ev.Discharges[PropagatingBrush]
+	near(t, "propagating energy", pb.Energy, 1, 1e-12)
+	near(t, "propagating charge", pb.Charge, 2/(2e5*3001*50e-6/3), 1e-9)
+	// Process-driven (pneumatic, no reading): 2.5e-4 C/m^2 x 1 m^2 = 250 uC, above the
+	// bound at the 4 kV onset, 2 x 1 J / 4 kV = 500 uC: 250 uC (derived).
+	p := blank(Sheet)
+	p.Process, p.Thickness, p.Length, p.Width = ProcessPneumatic, 50e-6, 1, 1
+	p.Field, p.FieldDistance = 1e3, 0.1
+	if ev := Evaluate(p, gasEnv(IIA, Zone1, 0.24e-3), lim); ev.Discharges[PropagatingBrush].Possible {
+		near(t, "process charge", ev.Discharges[PropagatingBrush].Charge, 250e-6, 1e-9)
+	} else {
+		t.Errorf("pneumatic: %s", ev.Discharges[PropagatingBrush].Reason())
 	}
 }

@@ -42,7 +42,7 @@ const (
 	CheckBagEarthing
 	// CheckBagQualification: conditions outside the qualification of types C and D.
 	CheckBagQualification
-	// CheckLayerBreakdown: a backed layer holds a voltage above its breakdown voltage (measured or computed): a contradiction to check.
+	// CheckLayerBreakdown: a backed layer holds a voltage above its measured breakdown voltage, or above the thin-film upper strength x thickness: a contradiction to check.
 	CheckLayerBreakdown
 	// CheckReadingVsHumidity: a reading shows charge above the screen on a surface the humidity model finds dissipative and earthed.
 	CheckReadingVsHumidity
@@ -64,6 +64,13 @@ const (
 	// CheckReadingAboveBreakdown: a reading above what air lets the surface hold
 	// (model.FlagReadingAboveBreakdown); the density used is capped at the breakdown limit.
 	CheckReadingAboveBreakdown
+	// CheckConeAboveRange: a cone discharge whose silo diameter or particle size lies
+	// above Glor's range: the edge value used is a lower bound, never a clearance
+	// (principle 3; model.FlagConeAboveRange).
+	CheckConeAboveRange
+	// CheckConeExtrapolated: above Glor's range the formula, not valid there, reaches
+	// the MIE: the cone is taken as able to ignite (the stricter case, principle 2).
+	CheckConeExtrapolated
 	// NumChecks is the number of checks.
 	NumChecks
 )
@@ -75,35 +82,64 @@ type checkDef struct {
 	name     string
 	severity Verdict
 	basis    string
+	// basisOf, where set, gives the ground of a finding from the discharge it
+	// judges (the energy checks: each discharge rests on its own source).
+	basisOf func(model.DischargeType) string
+}
+
+// dischargeGround is the source each discharge's energy rests on, for the
+// energy checks' basis.
+func dischargeGround(d model.DischargeType) string {
+	switch d {
+	case model.Spark:
+		return "spark energy W = C V^2/2 (textbook; JNIOSH-TR)"
+	case model.Brush:
+		return "brush discharge equivalent energy 3-4 mJ (CLC/TR 50404 summaries; CCPS glossary), the 4 mJ upper end a screening choice of this tool"
+	case model.PropagatingBrush:
+		return "propagating brush discharge: 2.5e-4 C/m² and the 4 kV layer breakdown criterion (TRGS 727:2016 Annex C; JNIOSH-TR); its energy the layer's stored energy, bounded at 1 J (published range hundreds of mJ to J, from memory)"
+	case model.Cone:
+		return "cone discharge energy by Glor's formula W = 5.22 D^3.36 d^1.462 mJ (from memory), valid for silo diameters 0.5-3 m and particle sizes 0.1-3 mm, the edge value outside it; preconditions BG RCI FAQ 5.10, TRGS 727:2016 6.2.3, JNIOSH-TR"
+	case model.Corona:
+		return "corona equivalent energy bound 0.1 mJ, a screening choice of this tool (corona below about 0.1-1 mJ ignites only very sensitive gases such as hydrogen; below 1 mJ confirmed, the rest from memory)"
+	}
+	return "IEC TS 60079-32-1:2013+A1:2017"
 }
 
 // checkTable is the one table that defines each check; adding a check touches it
 // and the constant list above.
 func checkTable() [NumChecks]checkDef {
 	return [NumChecks]checkDef{
-		CheckEnergyMIE:             {"energy-vs-mie", Incendive, "effective energy against the atmosphere's MIE: IEC TS 60079-32-1:2013+A1:2017; JNIOSH-TR (W = C V^2/2); brush 3-4 mJ equivalent, CLC/TR 50404 summaries"},
-		CheckEnergyMargin:          {"energy-vs-margin", Marginal, "the site's required margin below the MIE: a site choice (default 10), not a standard value"},
-		CheckTransferredCharge:     {"transferred-charge", Incendive, "IEC 60079-0:2017 cl. 7.4.2 transferred-charge limits (gas groups 60/25/10 nC; Group III 200 nC against propagating brush discharges; from memory), test method IEC 60079-32-2:2015"},
-		CheckInsulatingArea:        {"insulating-area", Marginal, "IEC 60079-0:2017 cl. 7.4 insulating surface area limits by EPL and group (from memory)"},
-		CheckConductorEarthing:     {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 MΩ; small parts below the IEC 60079-0:2017 capacitance exemption excepted"},
-		CheckPersonEarthing:        {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 MΩ in zones 0, 1, 20, 21 where the MIE is at most 10 mJ"},
-		CheckShockEnergy:           {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ"},
-		CheckFillingVelocity:       {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m²/s at 10 pS/m confirmed; other classes from memory)"},
-		CheckVelocityCeiling:       {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), velocity ceiling 7 m/s (from memory)"},
-		CheckSlowStart:             {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), initial filling velocity 1 m/s until the inlet is submerged (from memory)"},
-		CheckLowConductivity:       {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), insulating containers: no safe filling limits for a low-conductivity liquid (<= 50 pS/m) (from memory)"},
-		CheckBagType:               {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types"},
-		CheckBagEarthing:           {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 MΩ while filling and emptying"},
-		CheckBagQualification:      {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 µA"},
-		CheckLayerBreakdown:        {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); a layer holding more than its breakdown is a contradiction between reading and model (a screening choice of this tool)"},
-		CheckReadingVsHumidity:     {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)"},
-		CheckSplashFilling:         {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)"},
-		CheckSecondPhase:           {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)"},
-		CheckFilterResidence:       {"filter-residence", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), filters: residence time after a fine filter (from memory)"},
-		CheckIsolatedLiquid:        {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod"},
-		CheckReadingVsEarthing:     {"reading-vs-earthing", Marginal, "a screening choice of this tool: a measurement beats the model (a measured potential more than \"earthing contradiction factor\" (10) times the I R its measured earthing allows under the worst-case charging current, 1 uA walking for a person (Jonassen), 100 uA otherwise (JNIOSH-TR), contradicts the earthing path; the reading's hazard is kept)"},
-		CheckReadingAboveBreakdown: {"reading-above-breakdown", Marginal, "air breaks down at about 3 MV/m, so a surface holds at most eps0 x 3 MV/m with its field on one side, twice that as a free sheet (CCPS glossary; AMS Glossary of Meteorology); a reading above it is a bad reading or unit: the charge density used is capped at that limit, a screening choice of this tool (the reading's hazard is kept)"},
-		CheckMeasuredAboveMaximum:  {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept"},
+		CheckEnergyMIE: {"energy-vs-mie", Incendive, "effective energy against the atmosphere's MIE: IEC TS 60079-32-1:2013+A1:2017; the discharge's energy on its own ground",
+			func(d model.DischargeType) string {
+				return "effective energy against the atmosphere's MIE (IEC TS 60079-32-1:2013+A1:2017); " + dischargeGround(d)
+			}},
+		CheckEnergyMargin: {"energy-vs-margin", Marginal, "the site's required margin below the MIE: a site choice (default 10), not a standard value",
+			func(d model.DischargeType) string {
+				return "the site's required margin below the MIE: a site choice (default 10), not a standard value; " + dischargeGround(d)
+			}},
+		CheckTransferredCharge:     {"transferred-charge", Incendive, "IEC 60079-0:2017 cl. 7.4.2 transferred-charge limits (gas groups 60/25/10 nC; Group III 200 nC against propagating brush discharges; from memory), test method IEC 60079-32-2:2015", nil},
+		CheckInsulatingArea:        {"insulating-area", Marginal, "IEC 60079-0:2017 cl. 7.4 insulating surface area limits by EPL and group (from memory)", nil},
+		CheckConductorEarthing:     {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 MΩ; small parts below the IEC 60079-0:2017 capacitance exemption excepted", nil},
+		CheckPersonEarthing:        {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 MΩ in zones 0, 1, 20, 21 where the MIE is at most 10 mJ", nil},
+		CheckShockEnergy:           {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ", nil},
+		CheckFillingVelocity:       {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m²/s at 10 pS/m confirmed; other classes from memory)", nil},
+		CheckVelocityCeiling:       {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), velocity ceiling 7 m/s (from memory)", nil},
+		CheckSlowStart:             {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), initial filling velocity 1 m/s until the inlet is submerged (from memory)", nil},
+		CheckLowConductivity:       {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), insulating containers: no safe filling limits for a low-conductivity liquid (<= 50 pS/m) (from memory)", nil},
+		CheckBagType:               {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types", nil},
+		CheckBagEarthing:           {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 MΩ while filling and emptying", nil},
+		CheckBagQualification:      {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 µA", nil},
+		CheckLayerBreakdown:        {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); thin films hold at most about 600 kV/mm (secondary sources; a bulk strength x thickness does not apply to films and is not used); a layer holding more than its measured breakdown or that bound is a contradiction between reading and model, the reading kept (a screening choice of this tool)", nil},
+		CheckReadingVsHumidity:     {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)", nil},
+		CheckSplashFilling:         {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)", nil},
+		CheckSecondPhase:           {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)", nil},
+		CheckFilterResidence:       {"filter-residence", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), filters: residence time after a fine filter (from memory)", nil},
+		CheckIsolatedLiquid:        {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod", nil},
+		CheckReadingVsEarthing:     {"reading-vs-earthing", Marginal, "a screening choice of this tool: a measurement beats the model (a measured potential more than \"earthing contradiction factor\" (10) times the I R its measured earthing allows under the worst-case charging current, 1 µA walking for a person (Jonassen), 100 µA otherwise (JNIOSH-TR), contradicts the earthing path; the reading's hazard is kept)", nil},
+		CheckReadingAboveBreakdown: {"reading-above-breakdown", Marginal, "air breaks down at about 3 MV/m, so a surface holds at most eps0 x 3 MV/m with its field on one side, twice that as a free sheet (CCPS glossary; AMS Glossary of Meteorology); a reading above it is a bad reading or unit: the charge density used is capped at that limit, a screening choice of this tool (the reading's hazard is kept)", nil},
+		CheckConeAboveRange:        {"cone-above-range", Marginal, "Glor's cone discharge formula (from memory), valid for silo diameters 0.5-3 m and median particle sizes 0.1-3 mm; outside its range the formula is not valid (BG RCI FAQ 5.10, TRGS 727:2016 6.2.3): the value at the edge of the range is used and, above the range, is a lower bound, so it never clears (a screening choice of this tool)", nil},
+		CheckConeExtrapolated:      {"cone-extrapolated-reaches-mie", Incendive, "Glor's cone discharge formula (from memory) evaluated beyond its range (D 0.5-3 m, d 0.1-3 mm), where it is not valid, reaches the MIE: as the energy rises with D and d, the discharge is taken as able to ignite (unknown means the stricter case; a screening choice of this tool)", nil},
+		CheckMeasuredAboveMaximum:  {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic plant maximum (about 50 kV, common practice, no source) contradicts what air lets a plant conductor hold; the reading is kept", nil},
 	}
 }
 
@@ -131,6 +167,22 @@ func (c Check) Basis() string {
 		return ""
 	}
 	return checkTable()[c].basis
+}
+
+// BasisFor returns the ground a finding of the check rests on when it judges
+// discharge d: the energy checks name the discharge's own source (a spark's W =
+// C V^2/2, a brush's 3-4 mJ, a propagating brush's TRGS 727 criterion and its
+// energy bound from memory, Glor's formula and its range for a cone, the corona
+// bound); the others their fixed basis.
+func (c Check) BasisFor(d model.DischargeType) string {
+	if c >= NumChecks {
+		return ""
+	}
+	def := checkTable()[c]
+	if def.basisOf != nil {
+		return def.basisOf(d)
+	}
+	return def.basis
 }
 
 // CheckSet is a bit set of checks.
@@ -244,7 +296,7 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 		// The area limits are equipment-construction limits (IEC 60079-0): process
 		// material (moving webs, belts) is judged by its charge (IEC TS 60079-32-1),
 		// and only a dissipative surface that is also earthed is exempt (not when its reading contradicts the humidity model).
-		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && a > limA {
+		if a, limA := ev.InsulatingArea, InsulatingAreaLimit(env, lim); !(ev.Dissipative && ev.Earthed && ev.Flags&model.FlagHumidityContradiction == 0) && !ev.ProcessMaterial && !qualifiedBag && !CoatingExempt(in, env, ev, lim) && a > limA {
 			c.Failed = c.Failed.Add(CheckInsulatingArea)
 		}
 		isolatedLiquid := in.Kind == model.Liquid && ev.LiquidBreaches.Has(model.ClauseIsolatedLiquid)
@@ -302,6 +354,13 @@ func Classify(in *model.Input, env *model.Environment, ev *model.Evaluation, lim
 	if ev.Flags&model.FlagReadingAboveBreakdown != 0 {
 		c.Failed = c.Failed.Add(CheckReadingAboveBreakdown)
 	}
+	// Above Glor's range the cone's edge value is a lower bound: never a clearance.
+	if hasAtm && ev.Flags&model.FlagConeAboveRange != 0 && ev.Discharges[model.Cone].Possible {
+		c.Failed = c.Failed.Add(CheckConeAboveRange)
+		if env.MIE > 0 && ev.ConeExtrapolated >= env.MIE {
+			c.Failed = c.Failed.Add(CheckConeExtrapolated)
+		}
+	}
 
 	worst := -1
 	for k := Check(0); k < NumChecks; k++ {
@@ -328,7 +387,7 @@ func EffectiveEnergy(env *model.Environment, ev *model.Evaluation, lim *model.Li
 	e, t := 0.0, model.Spark
 	for i := range ev.Discharges {
 		d := &ev.Discharges[i]
-		if d.Type == model.Brush || !d.Possible {
+		if d.Type == model.Brush || !d.Possible || (d.Type == model.Corona && !model.CoronaIgnites(*env, *lim)) {
 			continue
 		}
 		if d.Energy > e {
@@ -369,6 +428,24 @@ func EarthingRequired(in *model.Input, env *model.Environment, ev *model.Evaluat
 		return in.BagType == model.BagC
 	}
 	return IsConductorRow(in, ev) && !SmallPartExempt(in, env, lim)
+}
+
+// CoatingExempt reports whether an insulating layer on an earthed backing is a
+// coating that IEC 60079-0 does not hold to the insulating-area limit: no thicker
+// than Limits.CoatingThickness (2 mm, IIA and IIB) or CoatingThicknessIIC (0.2 mm,
+// IIC; from memory), and of breakdown voltage measured on the layer at most
+// Limits.PropagatingBreakdown (4 kV, IEC 60079-0:2017 foreword, confirmed). An
+// unmeasured breakdown never exempts (principle 2), nor one the row's reading
+// contradicts (principle 1). Its charge is still judged (brush, propagating brush).
+func CoatingExempt(in *model.Input, env *model.Environment, ev *model.Evaluation, lim *model.Limits) bool {
+	if !in.EarthedBacking || ev.BreakdownSource != model.BreakdownMeasured || ev.Flags&model.FlagBreakdownContradiction != 0 {
+		return false
+	}
+	limT := lim.CoatingThickness
+	if e, _ := env.WithStrictGroup(); e.Group == model.IIC {
+		limT = lim.CoatingThicknessIIC
+	}
+	return in.Thickness > 0 && in.Thickness <= limT && ev.LayerBreakdown <= lim.PropagatingBreakdown
 }
 
 // SmallPartExempt reports whether a conductor row is exempt from earthing as a

@@ -48,6 +48,10 @@
 //	reading-above-breakdown  reading inverts to more than air holds (eps0 x 3     marginal
 //	                     MV/m one-sided, twice that on a free sheet): the density
 //	                     used is capped there
+//	cone-above-range     silo D > 3 m or particle d > 3 mm: Glor's formula not    marginal
+//	                     valid, the edge value used is a lower bound
+//	cone-extrapolated-reaches-mie  above the range, the formula (not valid there) incendive
+//	                     reaches the MIE: taken as able to ignite
 //
 // Each check's ground (standard, clause or table and edition, or a screening
 // choice of this tool) is in the same table (Check.Basis); every Finding carries it.
@@ -100,7 +104,8 @@
 //     applies to fixed equipment surfaces only; process material (a belt, a sheet
 //     with a Speed, or Process "moving web" or "belt") is judged by its charge and
 //     discharges (IEC TS 60079-32-1). The area is shown either way. A surface is
-//     exempt only when dissipative at the RH and earthed.
+//     exempt only when dissipative at the RH and earthed, or as a coating on
+//     earthed metal (CoatingExempt: thin, breakdown measured at most 4 kV).
 //   - A conducting surface (conductive, dissipative, or of dissipative class) that
 //     is not earthed is a conductor row: conductor-earthing applies and its spark
 //     counts (model.Evaluation.IsolatedConductor).

@@ -31,6 +31,15 @@ func dischargeWords(t model.DischargeType) string {
 	return "discharge"
 }
 
+// brushDensity is the density the brush screen was applied to (a backed layer's
+// air side), or the charge density where the model gave none.
+func brushDensity(ev *model.Evaluation) float64 {
+	if !math.IsNaN(ev.BrushDensity) {
+		return ev.BrushDensity
+	}
+	return ev.ChargeDensity
+}
+
 // AssumedResistanceDominates reports whether a spark's energy is set by the
 // assumption that an unmeasured resistance to earth leaks nothing: the audit
 // then says "at least the MIE (assumed resistance dominates)" instead of quoting
@@ -57,7 +66,7 @@ func (x *objectContext) findings(r *ObjectResult, c *Classification) []Finding {
 			Severity:   k.Severity(),
 			Message:    msg,
 			Mitigation: mit,
-			Basis:      k.Basis(),
+			Basis:      k.BasisFor(c.Discharge),
 		})
 	}
 	return out
@@ -138,6 +147,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		}
 	case CheckInsulatingArea:
 		msg = fmt.Sprintf("insulating surface of %s exceeds the %s limit of %s for %s", cm2(ev.InsulatingArea), zoneWords(env.Zone), cm2(InsulatingAreaLimit(env, lim)), env.Group)
+		if in.Material.Dissipative || ev.Dissipative {
+			// Already a dissipative material: what is missing is its earthing.
+			mit = templates.Mitigation("insulating-area.dissipative")
+		}
 		mit += humiditySentence(in)
 	case CheckConductorEarthing:
 		what := "resistance to earth"
@@ -145,7 +158,7 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			what = "resistance to earth of the receiving container and line"
 		}
 		if ev.IsolatedConductor && (in.Kind == model.Sheet || in.Kind == model.Belt || in.Kind == model.Roller) {
-			what = "the surface conducts (conductive, or dissipative at this humidity) so it is a conductor; its resistance to earth"
+			what = "the surface conducts (conductive, of dissipative class, or below the 1e12 Ω per square dissipative bound at this humidity) so it is a conductor; its resistance to earth"
 			mit = templates.Mitigation("conductor-earthing.surface")
 		}
 		if math.IsNaN(in.Resistance) {
@@ -205,13 +218,17 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 			msg = fmt.Sprintf("type C bag: earthing tab to plant earth %s exceeds %s", ohm(in.Resistance), ohm(lim.BagTabToEarth))
 		}
 	case CheckLayerBreakdown:
-		src := "computed from the material's bulk strength x thickness"
 		if ev.BreakdownSource == model.BreakdownMeasured {
-			src = "measured on the layer"
+			msg = fmt.Sprintf("the layer holds %s by its reading, above its breakdown voltage of %s measured on the layer: the reading or the breakdown measurement is wrong; the reading's hazard is kept, the propagating brush included", kV(ev.LayerVoltage), kV(ev.LayerBreakdown))
+		} else {
+			msg = fmt.Sprintf("the layer holds %s by its reading, above the %s that any film of its thickness holds (thin-film upper strength about 600 kV/mm x thickness): the reading, its unit or the thickness is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown))
 		}
-		msg = fmt.Sprintf("the layer holds %s by its reading, above its breakdown voltage of %s (%s): the reading, its unit, the thickness or the breakdown value is wrong; the reading's hazard is kept", kV(ev.LayerVoltage), kV(ev.LayerBreakdown), src)
+	case CheckConeAboveRange:
+		msg = fmt.Sprintf("the silo diameter (%s) or particle size (%s) lies above the range of Glor's formula (D 0.5-3 m, d 0.1-3 mm): the formula is not valid there; the cone energy %s is the value at the edge of the range, a lower bound", sig(in.Diameter)+" m", sig(in.ParticleSize*1e3)+" mm", mJ(ev.Discharges[model.Cone].Energy))
+	case CheckConeExtrapolated:
+		msg = fmt.Sprintf("beyond its range Glor's formula, not valid there, gives %s, at or above the MIE of %s (the edge value %s is a lower bound): the cone discharge is taken as able to ignite", mJ(ev.ConeExtrapolated), mJ(env.MIE), mJ(ev.Discharges[model.Cone].Energy))
 	case CheckReadingVsHumidity:
-		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(ev.ChargeDensity), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
+		msg = fmt.Sprintf("the reading gives %s, above the screen, although at %s the humidity model finds the surface dissipative (%s per square) and earthed: the reading is kept; check the material's surface resistivity and humidity slope, its earthing, and repeat the reading", uCm2(brushDensity(ev)), percent(env.RelativeHumidity), ohm(ev.SurfaceResistivity))
 	case CheckBagQualification:
 		i := BagChargingCurrent(in, ev)
 		switch {

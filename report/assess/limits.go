@@ -46,6 +46,8 @@ func limitSetters() map[string]func(l *model.Limits, v float64) {
 		"small part capacitance":        func(l *model.Limits, v float64) { l.SmallPartCapacitance = v },
 		"small part capacitance iic":    func(l *model.Limits, v float64) { l.SmallPartCapacitanceIIC = v },
 		"earthing contradiction factor": func(l *model.Limits, v float64) { l.EarthingContradictionFactor = v },
+		"spark surface resistance":      func(l *model.Limits, v float64) { l.SparkSurface = v },
+		"corona energy":                 func(l *model.Limits, v float64) { l.CoronaEnergy = v },
 		"dust brush mie":                func(l *model.Limits, v float64) { l.DustBrushMIE = v },
 		"transferred charge group iii": func(l *model.Limits, v float64) {
 			l.TransferredCharge[model.IIIA], l.TransferredCharge[model.IIIB], l.TransferredCharge[model.IIIC] = v, v, v

@@ -136,7 +136,8 @@ func TestPropertyHumidityNeverLowersMeasuredHazard(t *testing.T) {
 		off.Material.SurfaceResistivity, off.Material.Dissipative = math.NaN(), false
 		cOff, evOff := verdictOf(off, env, &lim)
 		screen := lim.BrushChargeDensity[env.Group]
-		if env.Group == model.GroupNone || !(evOff.ChargeDensity > screen) {
+		// The screen applies to the density a brush drains (a backed layer's air side).
+		if env.Group == model.GroupNone || !(evOff.BrushDensity > screen) {
 			continue
 		}
 		tested++
@@ -145,7 +146,7 @@ func TestPropertyHumidityNeverLowersMeasuredHazard(t *testing.T) {
 			t.Fatalf("row %d: the humidity model lowered %s to %s (RH %.0f %%, rho_s %g)\n%+v\n%+v", n, cOff.Verdict, cOn.Verdict, env.RelativeHumidity, evOn.SurfaceResistivity, in, evOn)
 		}
 		if !evOn.Discharges[model.Brush].Possible {
-			t.Fatalf("row %d: brush cleared though the reading %g is above the screen %g", n, evOn.ChargeDensity, screen)
+			t.Fatalf("row %d: brush cleared though the reading %g is above the screen %g", n, evOn.BrushDensity, screen)
 		}
 	}
 	if tested < 1000 {

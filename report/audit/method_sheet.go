@@ -176,6 +176,10 @@ func limitLabel(name string) string {
 		"SecondPhaseChargeFactor": "Liquid: streaming current factor with a second phase",
 
 		"EarthingContradictionFactor": "Measured potential above this many times the earthing bound I R: a contradiction",
+		"SparkSurface":                "Surface resistance below which an unearthed surface sparks as a conductor",
+		"CoronaEnergy":                "Corona: equivalent energy bound (counted only against an MIE below it)",
+		"CoatingThickness":            "Coating on earthed metal exempt from the area limit up to (with breakdown at most 4 kV)",
+		"CoatingThicknessIIC":         "Coating on earthed metal exempt from the area limit up to, IIC (with breakdown at most 4 kV)",
 	}
 	l, ok := labels[field]
 	if !ok {

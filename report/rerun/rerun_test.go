@@ -213,17 +213,15 @@ func TestSweepMonotonicOnDemo(t *testing.T) {
 			}
 		}
 	}
-	// The paper interleaf web (paper, built-in 1e10 ohm/sq at 50 %, 0.8 decade per
-	// 10 %RH) reaches the 1e9 ohm dissipative limit at 50 + 10 x 1/0.8 = 62.5 % (derived):
-	// from the 65 % step on it is a dissipative web with no resistance to earth, so
-	// it sparks (0.45 mJ against toluene's 0.24 mJ): ST-LAM is non-incendive up to
-	// 60 % and incendive from 65 %.
+	// The paper interleaf web (paper, built-in: dissipative class, 1e10 ohm/sq at 50 %)
+	// has no resistance to earth: a dissipative-class surface that is not earthed is
+	// an isolated conductor at every RH (reference section 12; the class decides, a
+	// library resistivity may not clear the spark: review item 1), so it sparks
+	// (0.45 mJ against toluene's 0.24 mJ) and ST-LAM is incendive at every step: the
+	// humidity no longer makes it worse.
 	for _, st := range sw.Steps {
 		for _, x := range st.Stations {
-			if x.ID != "ST-LAM" {
-				continue
-			}
-			if want := st.RH >= 65; (x.Verdict == assess.Incendive) != want {
+			if x.ID == "ST-LAM" && x.Verdict != assess.Incendive {
 				t.Errorf("ST-LAM at %g %%: %s", st.RH, x.Verdict)
 			}
 		}
