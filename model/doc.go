@@ -59,7 +59,12 @@
 //     the hazard leaks its charge; this clears only what was not measured: a
 //     reading above a screen keeps its discharge and raises FlagHumidityContradiction.
 //  5. Brush: possible when sigma exceeds the group's screen; equivalent energy
-//     Limits.BrushEnergy (4 mJ); charge sigma x Limits.BrushArea (100 cm^2).
+//     Limits.BrushEnergy (4 mJ); charge sigma x Limits.BrushArea (100 cm^2). On a
+//     layer on earthed metal sigma is the charge a brush can drain: within the
+//     coating thickness of IEC 60079-0 (Limits.CoatingThickness, 0.2 mm in IIC)
+//     the air-side charge eps0 E the meter sees; a thicker layer min(sigma,
+//     eps0 Eb), the most an earthed electrode closer than the meter could draw
+//     before air breaks down (AssumedElectrodeDraw; the stricter case).
 //  6. Propagating brush: needs an earthed backing or a process that builds a
 //     double layer (charging current density above PropagatingCurrentDensity,
 //     about 1 mA/m^2, BG RCI FAQ 1.12; or Process pneumatic conveying, from

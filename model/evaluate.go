@@ -368,15 +368,31 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	// potential only, the air-side field is not known: the stricter case, the
 	// most air lets the surface hold on one side (principle 2). The surface field
 	// shown is then that air-side field, not the layer's internal field (shown apart).
+	//
+	// The air-side charge is what the meter sees; an earthed electrode brought
+	// closer than the meter draws more of the bound charge. IEC 60079-0 treats
+	// a coating on earthed metal no thicker than Limits.CoatingThickness (0.2 mm
+	// in IIC; from memory) as no brush hazard, so there the air-side charge is
+	// screened. A thicker layer is screened on the most an electrode could draw
+	// before air breaks down, min(sigma, eps0 Eb) (a screening choice of this
+	// tool: the electrode's approach is unknown, so the stricter case).
 	brushSigma := sigma
 	if backed {
+		coatT := lim.CoatingThickness
+		if env.Group == IIC {
+			coatT = lim.CoatingThicknessIIC
+		}
+		thin := in.Thickness <= coatT
 		switch {
-		case given(in.Field) && roller:
+		case given(in.Field) && roller && thin:
 			brushSigma = DensityCylinder(math.Min(math.Abs(in.Field), lim.AirBreakdown), rad, in.FieldDistance)
-		case given(in.Field):
+		case given(in.Field) && thin:
 			brushSigma = Eps0 * math.Min(math.Abs(in.Field), lim.AirBreakdown)
 		default:
 			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
+			if given(in.Field) {
+				ev.Assumed |= AssumedElectrodeDraw // a layer thicker than a coating
+			}
 		}
 		ev.SurfaceField = nan // the air-side field is not known from a potential
 		if given(in.Field) {

@@ -344,6 +344,7 @@ const (
 	AssumedNoSecondPhase
 	AssumedInletVelocity
 	AssumedFilterResidence
+	AssumedElectrodeDraw
 	numAssumptions = iota
 )
 
@@ -385,6 +386,7 @@ func assumptionTexts() [numAssumptions]string {
 		"second phase not stated: taken as present (the stricter case; write none when there is none)",
 		"inlet velocity until submerged not given: the slow start is not shown met",
 		"residence time after the filter not given: none taken",
+		"layer on earthed metal thicker than a coating: its brush screened on the most an earthed electrode could draw before air breaks down, min(sigma, eps0 Eb), not on the air-side charge the meter sees (the electrode's approach is unknown: the stricter case)",
 	}
 }
 
