@@ -53,11 +53,47 @@ type Site struct {
 	AirTemperature Quantity
 	// RequiredMargin: energy must stay below MIE / margin to be non-incendive. Default 10.
 	RequiredMargin Quantity
-	// Items holds every other Item/Value pair of the sheet, keyed by the
-	// normalised item name, for site-level overrides (limits, uncertainties).
+	// Items holds every other Item/Value pair of the sheet as written, keyed
+	// by the normalised item name. The overrides they give are validated into
+	// Limits and Uncertainties (sitesettings.go); read those, not Items.
 	Items []SiteItem
+	// Limits are the limit overrides of the Site sheet, in sheet order, SI units.
+	Limits []SiteLimit
+	// Uncertainties are the uncertainty-table overrides of the Site sheet, in sheet order.
+	Uncertainties []SiteUncertainty
 	// Defaults lists the site values that were defaulted, for the Method sheet.
-	Defaults []string
+	Defaults []SiteDefault
+}
+
+// Site items that the reader may default (SiteDefault.Item).
+const (
+	SiteItemAirTemperature = "Air temperature"
+	SiteItemRequiredMargin = "Required margin"
+)
+
+// SiteDefault is a Site value the reader set because the sheet gave none.
+type SiteDefault struct {
+	Item string // the item defaulted, as SiteItems names it (SiteItemAirTemperature, ...)
+	Text string // the value and why, as the Method sheet shows it: "Air temperature 20 °C (default)"
+}
+
+// Defaulted reports whether the reader defaulted the Site item (a SiteItem* name).
+func (s Site) Defaulted(item string) bool {
+	for _, d := range s.Defaults {
+		if d.Item == item {
+			return true
+		}
+	}
+	return false
+}
+
+// DefaultTexts returns the texts of the defaults, in order.
+func (s Site) DefaultTexts() []string {
+	out := make([]string, len(s.Defaults))
+	for i, d := range s.Defaults {
+		out[i] = d.Text
+	}
+	return out
 }
 
 // SiteItem is one extra Item/Value row of the Site sheet.

@@ -543,6 +543,13 @@ func splitNumberUnit(s string) (string, string) {
 
 func isDigit(b byte) bool { return b >= '0' && b <= '9' }
 
+// ParseNumber is the number grammar every input shares (survey cells, Site
+// items, the Changes sheet and command-line values such as sweep's --rh): a
+// number written with a decimal point, or a decimal comma when it is the only
+// comma and there is no point ("1,5" is 1.5); an exponent is allowed. It fails
+// with ErrNotANumber or ErrNotFinite.
+func ParseNumber(t string) (float64, error) { return parseNumber(t) }
+
 // parseNumber parses a number written with a decimal point, or a decimal comma
 // when it is the only comma and there is no point.
 func parseNumber(t string) (float64, error) {

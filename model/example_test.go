@@ -10,15 +10,8 @@ import (
 // A person of measured 100 pF at 10 kV in a IIA vapour zone (reference
 // section 10.1 [C]: 5 mJ).
 func ExampleEvaluate() {
-	nan := math.NaN()
-	in := model.Input{
-		Kind:     model.Person,
-		Material: model.Material{Permittivity: nan, SurfaceResistivity: nan, VolumeResistivity: nan, BreakdownStrength: nan},
-		Length:   nan, Width: nan, Diameter: nan, Thickness: nan, DistanceToEarth: nan,
-		Field: nan, FieldDistance: nan, SurfacePotential: 10e3,
-		Speed: nan, MassFlow: nan, ChargeToMass: nan, ChargingCurrent: nan, ChargingTime: nan, ParticleSize: nan,
-		Resistance: nan, Capacitance: 100e-12, Conductivity: nan, Permittivity: nan, ProductMIE: nan,
-	}
+	in := model.NewInput(model.Person) // every quantity not given
+	in.SurfacePotential, in.Capacitance = 10e3, 100e-12
 	env := model.Environment{RelativeHumidity: 35, Temperature: 293.15, Atmosphere: model.Vapour,
 		Group: model.IIA, Zone: model.Zone1, MIE: 0.24e-3}
 	ev := model.Evaluate(in, env, model.DefaultLimits())
@@ -59,7 +52,7 @@ func ExampleBagTypeAllowed() {
 	}
 	// Output:
 	// B false Only types C and D may be used with flammable gas or vapour (zones 1 and 2, groups IIA and IIB).
-	// C true Type C may be used here only while earthed: tab to earth below 1 Mohm, every point to the tab below 100 Mohm.
+	// C true Type C may be used here only while earthed: tab to earth below 1 MΩ, every point to the tab below 100 MΩ.
 }
 
 // From memory (Glor's formula, reference section 10.7): D 1 m, d 1 mm -> 5.22 mJ.

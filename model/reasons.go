@@ -3,6 +3,7 @@ package model
 import (
 	"fmt"
 	"math"
+	"strings"
 )
 
 // Reason codes of Discharge.Code and Evaluation.BagCode. Text formats each as one
@@ -136,7 +137,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonBrushBagProtected:
 		return "Type C and D fabrics are made so that brush discharges are not expected."
 	case ReasonPropNoLayer:
-		return "No earthed backing and no charging process that builds a double layer (pneumatic conveying, or a charging current density above about 1 mA/m^2): no propagating brush."
+		return "No earthed backing and no charging process that builds a double layer (pneumatic conveying, or a charging current density above about 1 mA/m²): no propagating brush."
 	case ReasonPropThick:
 		return fmt.Sprintf("The layer thickness %s is at or above %s: no propagating brush expected.", Quantity(a, "m"), Quantity(b, "m"))
 	case ReasonPropLowBreakdown:
@@ -179,7 +180,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonBagAllowed:
 		return "This bag type may be used with this product in these surroundings."
 	case ReasonBagCAllowedIfEarthed:
-		return "Type C may be used here only while earthed: tab to earth below 1 Mohm, every point to the tab below 100 Mohm."
+		return "Type C may be used here only while earthed: tab to earth below 1 MΩ, every point to the tab below 100 MΩ."
 	case ReasonBagUnknownAllowed:
 		return "The bag type is not given: assessed as type A, which may be used here (non-flammable surroundings, product above 1000 mJ)."
 	case ReasonBagUnknownNotAllowed:
@@ -210,13 +211,13 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonPropPneumatic:
 		return fmt.Sprintf("Pneumatic conveying through or over an insulating pipe, hose or liner can build a double layer that gives propagating brush discharges (from memory; taken at its upper estimate %s).", Quantity(a, "J"))
 	case ReasonSparkEarthedBound:
-		return fmt.Sprintf("No charging mechanism is on the row; earthed through %s, even the worst-case industrial 100 uA would hold it at %s, below the spark floor.", Quantity(b, "ohm"), Quantity(a, "V"))
+		return fmt.Sprintf("No charging mechanism is on the row; earthed through %s, even the worst-case industrial 100 µA would hold it at %s, below the spark floor.", Quantity(b, "ohm"), Quantity(a, "V"))
 	case ReasonBrushPowder:
 		return fmt.Sprintf("The charged powder, its cloud and its sack or liner can give brush discharges (equivalent energy %s); they ignite gases, vapours and hybrid mixtures (IEC TS 60079-32-1).", Quantity(a, "J"))
 	case ReasonBrushPowderNoCharge:
 		return "The row shows the powder does not charge (charge-to-mass or charging current of zero): no brush discharge from it."
 	case ReasonConeFieldAndVessel:
-		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m^3: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
+		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m³: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
 	case ReasonSparkInsulatingVessel:
 		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
 	case ReasonSparkLiquidIsolated:
@@ -238,23 +239,31 @@ func (r Reason) Text(a, b float64) string {
 	return "Unknown reason."
 }
 
+// unitSpelling writes a unit code ("ohm", "C/m^2") as the audit spells it
+// ("Ω", "C/m²"): one spelling of Ω, µ, ² and ³ in every output.
+var unitSpelling = strings.NewReplacer("ohm m", "Ω·m", "ohm", "Ω", "^2", "²", "^3", "³")
+
 // Quantity formats an SI value with an engineering prefix and its unit, three
-// significant figures: Quantity(4e-3, "J") is "4 mJ"; NaN is "unknown".
+// significant figures: Quantity(4e-3, "J") is "4 mJ", Quantity(2.5e-4,
+// "C/m^2") is "250 µC/m²"; NaN is "unknown". The unit may be given in ASCII
+// ("ohm", "^2"); it is written as the audit spells it.
 func Quantity(v float64, unit string) string {
 	if math.IsNaN(v) {
 		return "unknown"
 	}
+	code := unit
+	unit = unitSpelling.Replace(unit)
 	if v == 0 || math.IsInf(v, 0) {
 		return fmt.Sprintf("%g %s", v, unit)
 	}
 	prefixes := []struct {
 		f float64
 		p string
-	}{{1e12, "T"}, {1e9, "G"}, {1e6, "M"}, {1e3, "k"}, {1, ""}, {1e-3, "m"}, {1e-6, "u"}, {1e-9, "n"}, {1e-12, "p"}, {1e-15, "f"}}
-	if unit == "m" || unit == "m^3" || unit == "ohm m" {
+	}{{1e12, "T"}, {1e9, "G"}, {1e6, "M"}, {1e3, "k"}, {1, ""}, {1e-3, "m"}, {1e-6, "µ"}, {1e-9, "n"}, {1e-12, "p"}, {1e-15, "f"}}
+	if code == "m" || code == "m^3" || code == "ohm m" {
 		// Lengths, volumes and resistivities read better without prefixes
 		// (mm is fine, but Mohm m and km are rare in the trade).
-		if unit == "m" && math.Abs(v) < 1 {
+		if code == "m" && math.Abs(v) < 1 {
 			return fmt.Sprintf("%.3g mm", v*1e3)
 		}
 		return fmt.Sprintf("%.3g %s", v, unit)
@@ -345,8 +354,8 @@ func assumptionTexts() [numAssumptions]string {
 		"capacitance not measured: estimated (see the capacitance model)",
 		"resistance to earth not given: taken as not earthed (no leakage)",
 		"charging time not given: steady-state potential I R",
-		"charging current of a walking person taken as 1 uA (Jonassen)",
-		"charging current not given: the worst-case industrial 100 uA (JNIOSH-TR)",
+		"charging current of a walking person taken as 1 µA (Jonassen)",
+		"charging current not given: the worst-case industrial 100 µA (JNIOSH-TR)",
 		"air temperature not given: 20 °C",
 		"size not given: potential not capped at corona onset",
 		"layer permittivity not given: 3 (common polymers)",
@@ -356,12 +365,12 @@ func assumptionTexts() [numAssumptions]string {
 		"layer breakdown voltage not measured: taken above 4 kV (thin films hold 100-600 kV/mm; a bulk strength never clears)",
 		"insulating area not given: propagating brush energy taken at its upper bound",
 		"double-layer thickness not given: taken as thin",
-		"powder volume resistivity not given: taken as high (>= 1e10 ohm m)",
+		"powder volume resistivity not given: taken as high (>= 1e10 Ω·m)",
 		"powder charge not given: cone discharge taken as possible",
 		"liquid conductivity not given: taken as low",
 		"liquid permittivity not given: 2",
 		"bag type not given: assessed as type A, the most restrictive case",
-		"charging current not given: the 3 uA the bag qualification assumes",
+		"charging current not given: the 3 µA the bag qualification assumes",
 		"product MIE not given: the station's dust MIE",
 		"product MIE not given: the most sensitive band (<= 3 mJ)",
 		"not recognised as process material (no Process, no Speed): a fixed equipment surface, held to the insulating-area limit (the stricter reading)",
@@ -422,13 +431,13 @@ func flagTexts() [numFlags]string {
 		"potential capped at the corona onset of the conductor's radius",
 		"body potential capped at the documented walking-test maximum",
 		"Glor's formula outside its validity range (D 0.5-3 m, d 0.1-3 mm): the value at the nearest edge of the range used",
-		"the layer can support a propagating brush if charged to 2.5e-4 C/m^2",
+		"the layer can support a propagating brush if charged to 2.5e-4 C/m²",
 		"the dissipative surface decays more slowly than it reaches the hazard",
 		"stored energy above the shock threshold",
 		"flow velocity above the filling limit",
 		"top (splash) filling of a low-conductivity liquid",
 		"type C bag not earthed (tab to earth unknown or above the limit)",
-		"charging current above the 3 uA the type C/D qualification assumes",
+		"charging current above the 3 µA the type C/D qualification assumes",
 		"the layer holds a voltage above its measured breakdown voltage, or above what any film of its thickness holds: check the reading and its unit, the thickness and the breakdown value",
 		"the reading shows charge above the screen although the humidity model finds the surface dissipative and earthed: the reading stands; check the surface resistivity at this RH, the earthing and the reading",
 		"unmeasured potential capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)",

@@ -29,8 +29,10 @@ func TestQuantity(t *testing.T) {
 		unit string
 		want string
 	}{
-		{4e-3, "J", "4 mJ"}, {47.58e3, "V", "47.6 kV"}, {1e13, "ohm", "10 Tohm"}, {50e-12, "S/m", "50 pS/m"},
-		{2.5e-4, "C/m^2", "250 uC/m^2"}, {1e-3, "m", "1 mm"}, {2, "m", "2 m"}, {1e10, "ohm m", "1e+10 ohm m"},
+		// derived: engineering prefixes; units spelt as the audit spells them (Ω, µ, ², ³).
+		{4e-3, "J", "4 mJ"}, {47.58e3, "V", "47.6 kV"}, {1e13, "ohm", "10 TΩ"}, {50e-12, "S/m", "50 pS/m"},
+		{2.5e-4, "C/m^2", "250 µC/m²"}, {1e-3, "m", "1 mm"}, {2, "m", "2 m"}, {1e10, "ohm m", "1e+10 Ω·m"},
+		{0.3, "m^3", "0.3 m³"}, {5e-6, "A", "5 µA"}, {1e-3, "A/m^2", "1 mA/m²"},
 		{math.NaN(), "V", "unknown"}, {0, "V", "0 V"}, {1e-18, "C", "1e-18 C"}, {-300, "V", "-300 V"},
 	}
 	for _, c := range cases {

@@ -271,3 +271,26 @@ func staleFile(p, tail string, legacyAge time.Duration) bool {
 	}
 	return !lockHeld(p)
 }
+
+// WriteOutputs writes a workbook (when xlsx is set) and a JSON (when
+// jsonPath is set) of one run, each whole into a temporary file of ws first,
+// then renames both into place together. A failure is Unusable.
+func WriteOutputs(ws *Workspace, xlsx, jsonPath string, book, doc func(io.Writer) error) error {
+	var pw, pj *Pending
+	var err error
+	if xlsx != "" {
+		if pw, err = ws.Prepare(xlsx, book); err != nil {
+			return unusable(fmt.Errorf("writing the workbook: %w", err))
+		}
+	}
+	if jsonPath != "" {
+		if pj, err = ws.Prepare(jsonPath, doc); err != nil {
+			ws.Discard(pw)
+			return unusable(fmt.Errorf("writing the JSON: %w", err))
+		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return unusable(fmt.Errorf("writing the outputs: %w", err))
+	}
+	return nil
+}

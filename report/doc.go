@@ -1,11 +1,13 @@
-// Package report writes the outputs of an assessment: the audit workbook
-// (WriteWorkbook), the JSON file of the output contract (WriteJSON) and the
-// short ranked table for the terminal (WriteSummary). Files are written through
-// WriteFileAtomic, so a killed run never leaves a half-written audit in place.
+// Package report runs the pipeline of one survey or many: read the survey
+// (inventory), judge it (report/assess) and write the audit (report/audit), in
+// one pass, with progress reported through a callback and typed errors that
+// the command maps to exit codes. It also owns safe file writing: every output
+// is written to a temporary file of the run's Workspace and renamed into place
+// (WriteFileAtomic, Workspace.Prepare and Commit), so a killed run never
+// leaves a half-written audit in place and the survey is never written to.
 //
-// Every quantity arrives in SI units (report/assess.Audit); this package alone
-// converts them to the engineering units people read (kV, pF, mJ, µC/m², kV/m,
-// nC), using the unit table of format.go for both the workbook and the terminal.
-// A quantity that is not defined for an object (NaN in the model) is an empty
-// cell in the workbook and null in the JSON, never 0 and never "NaN".
+// The stages live below it, each in its own package: report/assess (the one
+// judging engine), report/audit (the audit workbook, JSON, terminal summary
+// and portfolio) and report/rerun (whatif, sweep, compare). None of them
+// imports this package.
 package report

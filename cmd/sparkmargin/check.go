@@ -1,16 +1,12 @@
 package main
 
 import (
-	"encoding/json"
-	"fmt"
 	"io"
-	"sort"
-	"text/tabwriter"
 
 	"github.com/spf13/cobra"
 
-	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 )
 
 type checkOptions struct {
@@ -43,124 +39,14 @@ func runCheck(out io.Writer, o checkOptions) error {
 		return err
 	}
 	if o.json {
-		if err := writeCheckJSON(out, s); err != nil {
+		if err := audit.WriteCheckJSON(out, s); err != nil {
 			return err
 		}
 	} else {
-		writeCheckText(out, s)
+		audit.WriteCheckText(out, s)
 	}
 	if len(s.Errors()) > 0 {
 		return silentExit(exitProblems)
 	}
 	return nil
-}
-
-func kindCounts(s *inventory.Survey) map[string]int {
-	m := map[string]int{}
-	for _, o := range s.Objects {
-		m[o.Kind]++
-	}
-	return m
-}
-
-func writeCheckText(out io.Writer, s *inventory.Survey) {
-	fmt.Fprintf(out, "Survey %s", s.Path)
-	if s.Site.Name != "" {
-		fmt.Fprintf(out, " (%s", s.Site.Name)
-		if !s.Site.SurveyDate.IsZero() {
-			fmt.Fprintf(out, ", %s", s.Site.SurveyDate.Format("2006-01-02"))
-		}
-		fmt.Fprint(out, ")")
-	}
-	fmt.Fprintln(out)
-	tw := tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "Sheet\tRows read\tAccepted\tRejected")
-	for _, c := range s.Counts {
-		fmt.Fprintf(tw, "%s\t%d\t%d\t%d\n", c.Sheet, c.Read, c.Accepted, c.Rejected)
-	}
-	tw.Flush()
-	kc := kindCounts(s)
-	if len(kc) > 0 {
-		fmt.Fprint(out, "Accepted objects by kind:")
-		for _, k := range inventory.Kinds() {
-			if n := kc[k]; n > 0 {
-				fmt.Fprintf(out, " %s %d", k, n)
-			}
-		}
-		fmt.Fprintln(out)
-	}
-	errs, warns := len(s.Errors()), len(s.Warnings())
-	if errs+warns == 0 {
-		fmt.Fprintln(out, "No problems found.")
-		return
-	}
-	fmt.Fprintf(out, "%d error(s), %d warning(s):\n", errs, warns)
-	for _, p := range s.Problems {
-		fmt.Fprintf(out, "  %-7s %s\n", p.Severity.String(), p.Error())
-	}
-}
-
-type checkJSON struct {
-	Survey   string             `json:"survey"`
-	SHA256   string             `json:"sha256"`
-	Site     string             `json:"site"`
-	Date     string             `json:"survey_date"`
-	Sheets   []checkSheetJSON   `json:"sheets"`
-	Kinds    []checkKindJSON    `json:"kinds"`
-	Errors   int                `json:"errors"`
-	Warnings int                `json:"warnings"`
-	Problems []checkProblemJSON `json:"problems"`
-}
-
-type checkSheetJSON struct {
-	Sheet    string `json:"sheet"`
-	Read     int    `json:"read"`
-	Accepted int    `json:"accepted"`
-	Rejected int    `json:"rejected"`
-}
-
-type checkKindJSON struct {
-	Kind  string `json:"kind"`
-	Count int    `json:"count"`
-}
-
-type checkProblemJSON struct {
-	Severity string `json:"severity"`
-	Sheet    string `json:"sheet"`
-	Row      int    `json:"row"`
-	Column   string `json:"column"`
-	Field    string `json:"field"`
-	ID       string `json:"id"`
-	Message  string `json:"message"`
-	Fix      string `json:"fix"`
-}
-
-func writeCheckJSON(out io.Writer, s *inventory.Survey) error {
-	j := checkJSON{Survey: s.Path, SHA256: s.SHA256, Site: s.Site.Name, Sheets: []checkSheetJSON{}, Kinds: []checkKindJSON{}, Problems: []checkProblemJSON{}}
-	if !s.Site.SurveyDate.IsZero() {
-		j.Date = s.Site.SurveyDate.Format("2006-01-02")
-	}
-	for _, c := range s.Counts {
-		j.Sheets = append(j.Sheets, checkSheetJSON{c.Sheet, c.Read, c.Accepted, c.Rejected})
-	}
-	kc := kindCounts(s)
-	kinds := make([]string, 0, len(kc))
-	for k := range kc {
-		kinds = append(kinds, k)
-	}
-	sort.Strings(kinds)
-	for _, k := range kinds {
-		j.Kinds = append(j.Kinds, checkKindJSON{k, kc[k]})
-	}
-	for _, p := range s.Problems {
-		if p.Severity == inventory.Error {
-			j.Errors++
-		} else {
-			j.Warnings++
-		}
-		j.Problems = append(j.Problems, checkProblemJSON{p.Severity.String(), p.Sheet, p.Row, p.Column, p.Field, p.ID, p.Message, p.Fix})
-	}
-	enc := json.NewEncoder(out)
-	enc.SetIndent("", "  ")
-	return enc.Encode(j)
 }

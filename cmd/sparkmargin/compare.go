@@ -13,6 +13,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
@@ -53,7 +54,7 @@ func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".j
 func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
 	label := filepath.Base(path)
 	if isJSON(path) {
-		if err := requireRegular(path); err != nil {
+		if err := report.RequireRegular(path); err != nil {
 			return nil, nil, err
 		}
 		data, err := os.ReadFile(path)
@@ -78,7 +79,7 @@ func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *
 		return rerun.SideFromAudit(label, a), s, nil
 	}
 	var buf bytes.Buffer
-	if err := report.WriteJSON(&buf, a, report.RunInfo{ToolVersion: version, SurveyFile: label}); err != nil {
+	if err := audit.WriteJSON(&buf, a, audit.RunInfo{ToolVersion: version, SurveyFile: label}); err != nil {
 		return nil, nil, withCode(exitUsage, err)
 	}
 	side, err := rerun.SideFromJSON(label, buf.Bytes())
@@ -86,7 +87,7 @@ func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *
 }
 
 func runCompare(out io.Writer, o compareOptions) error {
-	if err := refuseClashes([]namedPath{{"OLD", o.old}, {"NEW", o.new}}, []namedPath{{"-o", o.output}, {"--json", o.json}}); err != nil {
+	if err := report.RefuseClashes([]report.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, []report.NamedPath{{Role: "-o", Path: o.output}, {Role: "--json", Path: o.json}}); err != nil {
 		return err
 	}
 	asJSON := isJSON(o.old) || isJSON(o.new)
@@ -99,7 +100,7 @@ func runCompare(out io.Writer, o compareOptions) error {
 		return err
 	}
 	c := rerun.Compare(oldSide, newSide)
-	if err := writeRerun(o.ws, o.output, o.json,
+	if err := report.WriteOutputs(o.ws, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey) },
 		func(w io.Writer) error { return rerun.WriteCompareJSON(w, c) }); err != nil {
 		return err

@@ -13,6 +13,7 @@ import (
 	"github.com/xuri/excelize/v2"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 )
 
 // corpusGolden is a hand-written expected outcome of testdata/corpus (format in
@@ -81,7 +82,7 @@ func readCorpusGolden(t *testing.T, path string) corpusGolden {
 // matches reports whether a problem of check --json is the golden's line
 // (a row without column stands for any column of the row; a bare sheet for a
 // sheet-level problem; the field is compared without its unit).
-func (w corpusProblem) matches(p checkProblemJSON) bool {
+func (w corpusProblem) matches(p audit.CheckProblem) bool {
 	if p.Severity != w.severity {
 		return false
 	}
@@ -164,7 +165,7 @@ func TestCorpusCheck(t *testing.T) {
 				}
 				return
 			}
-			var j checkJSON
+			var j audit.CheckReport
 			if err := json.Unmarshal([]byte(out), &j); err != nil {
 				t.Fatalf("check --json: %v\n%s", err, out)
 			}

@@ -10,7 +10,6 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
-	"github.com/sparkmargin/sparkmargin/report/assess"
 )
 
 func newLibraryCmd() *cobra.Command {
@@ -64,7 +63,7 @@ func writeLibrary(out io.Writer) {
 	fmt.Fprintln(out, "\nSite sheet items that override a limit (Item | Value; the unit may be given in the item or the value)")
 	tw = tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "Item\tDefault unit\tSets")
-	for _, k := range assess.LimitKeys() {
+	for _, k := range inventory.LimitItems() {
 		fmt.Fprintf(tw, "%s\t%s\t%s\n", k.Name, k.Unit, k.Note)
 	}
 	tw.Flush()

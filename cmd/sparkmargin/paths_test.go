@@ -60,29 +60,6 @@ func newPathTricks(t *testing.T) pathTricks {
 	return tr
 }
 
-// TestKernelPath: the lexical clean of B/l/../s.xlsx is B/s.xlsx, but the
-// kernel follows B/l first and reaches S/s.xlsx.
-func TestKernelPath(t *testing.T) {
-	tr := newPathTricks(t)
-	real, err := filepath.EvalSymlinks(tr.survey)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if lexical := filepath.Clean(tr.viaDotDot); lexical == real {
-		t.Fatalf("the trick is no trick: %s cleans to the survey", tr.viaDotDot)
-	}
-	for _, p := range []string{tr.viaDotDot, tr.twice} {
-		if got := kernelPath(p); got != real {
-			t.Errorf("kernelPath(%s) = %s, want %s", p, got, real)
-		}
-	}
-	// A missing folder keeps the missing part as written.
-	missing := filepath.Join(tr.dir, "B", "l", "nowhere", "a.xlsx")
-	if got, want := kernelPath(missing), filepath.Join(filepath.Dir(real), "sub", "nowhere", "a.xlsx"); got != want {
-		t.Errorf("kernelPath(%s) = %s, want %s", missing, got, want)
-	}
-}
-
 // TestOutputReachesInput: every command that writes refuses an output that
 // reaches one of its inputs (through a symlinked folder and "..", a symlink
 // to the survey, a hard link, or the same path spelled twice) or another

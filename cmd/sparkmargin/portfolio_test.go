@@ -17,6 +17,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 )
 
 func copyFile(t *testing.T, from, to string) {
@@ -72,11 +73,11 @@ func TestAssessFolderPortfolio(t *testing.T) {
 	if strings.Contains(stdout, "old-audit") || strings.Contains(stdout, "~$") {
 		t.Error("an audit or a lock file was assessed as a survey")
 	}
-	sites := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), report.PortfolioSites)
+	sites := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), audit.PortfolioSites)
 	if len(sites) != 3 {
 		t.Fatalf("Sites sheet has %d rows, want a header and 2 sites", len(sites))
 	}
-	stations := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), report.PortfolioStations)
+	stations := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), audit.PortfolioStations)
 	s, err := inventory.ReadFile(demo, inventory.ReadOptions{})
 	if err != nil {
 		t.Fatal(err)
@@ -134,7 +135,7 @@ func TestAssessSeveralExitCodes(t *testing.T) {
 				}
 			}
 			if c.ranked > 0 {
-				if rows := sheetRows(t, filepath.Join(o, "portfolio.xlsx"), report.PortfolioSites); len(rows) != 1+c.ranked {
+				if rows := sheetRows(t, filepath.Join(o, "portfolio.xlsx"), audit.PortfolioSites); len(rows) != 1+c.ranked {
 					t.Errorf("portfolio ranks %d sites, want %d", len(rows)-1, c.ranked)
 				}
 			}
@@ -158,18 +159,17 @@ func TestAssessStreamedSameCells(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		lim, p1 := assess.LimitsFromSite(s.Site, model.DefaultLimits())
-		unc, p2 := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
-		s.Problems = append(append(s.Problems, p1...), p2...)
+		lim := assess.LimitsFromSite(s.Site, model.DefaultLimits())
+		unc := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
 		n := map[string]int{"0": 0, "200": 200}[samples]
 		a := assess.Assess(s, assess.Options{Limits: lim, Samples: n, Seed: assess.DefaultSeed, Uncertainties: unc})
 		// The command line as the command records it (the Method sheet shows it).
-		info := runInfo(s, []string{"sparkmargin", "assess", "--json=" + js, "--output=" + xlsx, "--samples=" + samples, demo})
+		info := (&report.Run{ToolVersion: version, CommandLine: []string{"sparkmargin", "assess", "--json=" + js, "--output=" + xlsx, "--samples=" + samples, demo}}).Info(s)
 		want := filepath.Join(dir, "mem-"+samples+".xlsx")
-		if err := report.WriteFileAtomic(want, func(w io.Writer) error { return report.WriteWorkbook(w, a, info) }); err != nil {
+		if err := report.WriteFileAtomic(want, func(w io.Writer) error { return audit.WriteWorkbook(w, a, info) }); err != nil {
 			t.Fatal(err)
 		}
-		for _, sh := range report.Sheets() {
+		for _, sh := range audit.Sheets() {
 			g, w := sheetRows(t, xlsx, sh), sheetRows(t, want, sh)
 			if !reflect.DeepEqual(g, w) {
 				for i := range w {
@@ -187,7 +187,7 @@ func TestAssessStreamedSameCells(t *testing.T) {
 		}
 		sum := sha256.Sum256(wb)
 		info.Workbook, info.WorkbookSHA256 = filepath.Base(xlsx), hex.EncodeToString(sum[:])
-		if err := report.WriteJSON(&jb, a, info); err != nil {
+		if err := audit.WriteJSON(&jb, a, info); err != nil {
 			t.Fatal(err)
 		}
 		if got, _ := os.ReadFile(js); !bytes.Equal(got, jb.Bytes()) {

@@ -36,15 +36,15 @@ func newProgress(w io.Writer) *progress {
 	return p
 }
 
-// begin starts the count of one survey (label names it).
-func (p *progress) begin(label string) {
+// Begin starts the count of one survey (label names it).
+func (p *progress) Begin(label string) {
 	p.label = label
 	p.start = p.now()
 	p.last = time.Time{}
 }
 
-// set reports n objects assessed so far.
-func (p *progress) set(n int) {
+// Set reports n objects assessed so far.
+func (p *progress) Set(n int) {
 	if !p.enabled {
 		return
 	}
@@ -62,8 +62,8 @@ func (p *progress) set(n int) {
 	fmt.Fprint(p.w, "\r"+line+pad)
 }
 
-// end blanks the line, if one was written.
-func (p *progress) end() {
+// End blanks the line, if one was written.
+func (p *progress) End() {
 	if p.width > 0 {
 		fmt.Fprint(p.w, "\r"+strings.Repeat(" ", p.width)+"\r")
 		p.width = 0

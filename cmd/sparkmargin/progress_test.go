@@ -16,16 +16,16 @@ func TestProgress(t *testing.T) {
 	}
 	clock := time.Date(2026, 1, 1, 0, 0, 0, 0, time.UTC)
 	p := &progress{w: &buf, enabled: true, now: func() time.Time { return clock }}
-	p.begin("big.xlsx")
+	p.Begin("big.xlsx")
 	for i := 0; i < 100; i++ { // 0.99 s in steps of 10 ms (timings invented for the test)
-		p.set(i * 1000)
+		p.Set(i * 1000)
 		clock = clock.Add(10 * time.Millisecond)
 	}
 	if buf.Len() != 0 {
 		t.Fatalf("wrote %q within the first second", buf.String())
 	}
 	for i := 0; i < 200; i++ { // 2 s more in steps of 10 ms
-		p.set(1048575)
+		p.Set(1048575)
 		clock = clock.Add(10 * time.Millisecond)
 	}
 	n := strings.Count(buf.String(), "\r")
@@ -35,7 +35,7 @@ func TestProgress(t *testing.T) {
 	if !strings.Contains(buf.String(), "assessing big.xlsx: 1 048 575 objects") {
 		t.Errorf("line %q", buf.String())
 	}
-	p.end()
+	p.End()
 	if !strings.HasSuffix(buf.String(), "\r") {
 		t.Error("the line was not blanked at the end")
 	}

@@ -44,6 +44,14 @@ func withCode(code int, err error) error {
 	return &exitError{code: code, err: err}
 }
 
+// exitCodeOf maps the report pipeline's failure classes to exit codes.
+func exitCodeOf(k report.Failure) int {
+	if k == report.Problems {
+		return exitProblems
+	}
+	return exitUsage
+}
+
 // silentExit asks for an exit code without printing anything more (the command printed its own report).
 func silentExit(code int) error { return &exitError{code: code} }
 
@@ -85,6 +93,11 @@ func run(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintln(stderr, "sparkmargin:", ee.err)
 		}
 		return ee.code
+	}
+	var re *report.Error
+	if errors.As(err, &re) {
+		fmt.Fprintln(stderr, "sparkmargin:", err)
+		return exitCodeOf(re.Kind)
 	}
 	// cobra's own errors (unknown command, bad args) are usage errors.
 	fmt.Fprintln(stderr, "sparkmargin:", err)

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"os"
-	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -16,7 +15,7 @@ import (
 
 // loadSurvey reads and validates a survey; an unreadable file is a usage-class error (exit 2).
 func loadSurvey(ws *report.Workspace, path string) (*inventory.Survey, error) {
-	if err := requireRegular(path); err != nil {
+	if err := report.RequireRegular(path); err != nil {
 		return nil, err
 	}
 	tmp, err := ws.Dir()
@@ -42,13 +41,6 @@ func refuseExisting(path string, force bool) error {
 		return withCode(exitUsage, fmt.Errorf("%s already exists; choose another name or pass --force", path))
 	}
 	return nil
-}
-
-// defaultAuditPath is "<dir>/<name>-audit.xlsx" beside the survey.
-func defaultAuditPath(survey string) string {
-	dir, base := filepath.Split(survey)
-	name := strings.TrimSuffix(base, filepath.Ext(base))
-	return filepath.Join(dir, name+"-audit.xlsx")
 }
 
 // commandLine rebuilds the command as run, for the Method sheet: the command path,

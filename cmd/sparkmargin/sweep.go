@@ -53,15 +53,19 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := refuseClashes([]namedPath{{"the survey", o.survey}}, []namedPath{{"-o", o.output}, {"--json", o.json}}); err != nil {
+	if err := report.RefuseClashes([]report.NamedPath{{Role: "the survey", Path: o.survey}}, []report.NamedPath{{Role: "-o", Path: o.output}, {Role: "--json", Path: o.json}}); err != nil {
 		return err
 	}
 	if len(s.Objects) == 0 {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
 	}
 	sw := rerun.RunSweep(s, steps)
-	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " ")}
-	if err := writeRerun(o.ws, o.output, o.json,
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return withCode(exitUsage, err)
+	}
+	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
+	if err := report.WriteOutputs(o.ws, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteSweepWorkbook(w, sw, info) },
 		func(w io.Writer) error { return rerun.WriteSweepJSON(w, sw) }); err != nil {
 		return err

@@ -28,78 +28,65 @@ const DryDayHumidity = 30.0
 // RH, else the site's; NaN for every quantity not given), calls model.Evaluate,
 // classifies the result with Classify and writes a Finding for each failed check,
 // the one-sentence Reason and every Default that fed the result. Stations are
-// then ranked (see Rank) and the findings ordered by severity, station rank and
-// object order.
+// then ranked (worst first, see compareStations) and the findings ordered by
+// severity, station rank, object order and check order.
 //
-// With opts.Samples > 0 it then propagates the uncertainty table by Monte Carlo
+// With opts.Samples > 0 it also propagates the uncertainty table by Monte Carlo
 // (see montecarlo.go): every object gets a Probability and every station its
 // ProbabilityAnyIncendive; the seed (DefaultSeed when 0) and the table used are
 // recorded in Audit.Options.
 //
 // opts.Limits are used as given; a zero Limits takes model.DefaultLimits with the
 // Site sheet's overrides (LimitsFromSite) merged, and Audit.Options records them.
+//
+// Assess is the Streamer with every result collected: there is one engine,
+// whether the objects are held in memory or stream through.
 func Assess(s *inventory.Survey, opts Options) *Audit {
-	a, ctx := prepare(s, opts)
-	margin := ctx.margin
-	a.Objects = make([]ObjectResult, len(s.Objects))
-	for i := range s.Objects {
-		a.Objects[i] = ctx.assess(&s.Objects[i])
-		a.Counts[a.Objects[i].Verdict]++
+	st := NewStreamer(s, opts)
+	objs := make([]ObjectResult, 0, len(s.Objects))
+	for i := 0; i < len(s.Objects); i += AssessBatch {
+		objs = append(objs, st.Add(s.Objects[i:min(i+AssessBatch, len(s.Objects))])...)
 	}
-	a.Stations = Rank(s, a.Objects)
-	if a.Options.Samples > 0 {
-		if a.Options.Seed == 0 {
-			a.Options.Seed = DefaultSeed
-		}
-		if a.Options.Uncertainties == nil {
-			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
-		}
-		monteCarlo(a, margin)
-	}
-	a.Findings = orderFindings(a.Objects, a.Stations)
-	a.MethodDefaults = methodDefaults(a.Objects)
+	a := st.Finish()
+	a.Objects = objs
 	return a
 }
+
+// AssessBatch is the number of objects assessed (and sampled in parallel) at a
+// time by Assess; the streaming pipeline uses the same size. Results do not
+// depend on it.
+const AssessBatch = 1024
 
 // prepare resolves the options (limits from the Site sheet when none are
 // given) and the site-wide values every object is assessed with; it returns
 // the empty audit and the object context (shared by Assess and Streamer).
 func prepare(s *inventory.Survey, opts Options) (*Audit, objectContext) {
 	if opts.Limits == (model.Limits{}) {
-		opts.Limits, _ = LimitsFromSite(s.Site, model.DefaultLimits())
+		opts.Limits = LimitsFromSite(s.Site, model.DefaultLimits())
 	}
 	a := &Audit{Survey: s, Options: opts, Counts: map[Verdict]int{}}
 	for _, v := range []Verdict{Incendive, Marginal, NotAssessed, NonIncendive} {
 		a.Counts[v] = 0
 	}
 	// Site values the reader defaulted (Site.Defaults) or that are still unknown.
-	defaulted := func(prefix string) bool {
-		for _, d := range s.Site.Defaults {
-			if strings.HasPrefix(strings.ToLower(d), strings.ToLower(prefix)) {
-				return true
-			}
-		}
-		return false
-	}
 	var site []Default
 	margin := DefaultMargin
 	if m := s.Site.RequiredMargin; m.Known && m.Value > 0 {
 		margin = m.Value
 	}
-	if m := s.Site.RequiredMargin; !(m.Known && m.Value > 0) || defaulted("Required margin") {
+	if m := s.Site.RequiredMargin; !(m.Known && m.Value > 0) || s.Site.Defaulted(inventory.SiteItemRequiredMargin) {
 		site = append(site, Default{Field: "Required margin", Value: plain(margin), Reason: "not given on the Site sheet: default site choice (energy must stay below MIE / margin)"})
 	}
 	temperature := DefaultTemperature
 	if t := s.Site.AirTemperature; t.Known && t.Value > 0 {
 		temperature = t.Value
 	}
-	if t := s.Site.AirTemperature; !(t.Known && t.Value > 0) || defaulted("Air temperature") {
+	if t := s.Site.AirTemperature; !(t.Known && t.Value > 0) || s.Site.Defaulted(inventory.SiteItemAirTemperature) {
 		site = append(site, Default{Field: "Air temperature", Value: celsius(temperature), Reason: "not given on the Site sheet: default"})
 	}
 	for _, d := range s.Site.Defaults {
-		l := strings.ToLower(d)
-		if !strings.HasPrefix(l, "required margin") && !strings.HasPrefix(l, "air temperature") {
-			site = append(site, Default{Field: "Site", Value: d, Reason: "Site sheet default"})
+		if d.Item != inventory.SiteItemRequiredMargin && d.Item != inventory.SiteItemAirTemperature {
+			site = append(site, Default{Field: "Site", Value: d.Text, Reason: "Site sheet default"})
 		}
 	}
 	return a, objectContext{survey: s, lim: &opts.Limits, margin: margin, temperature: temperature, siteDefaults: site}
@@ -237,31 +224,28 @@ func (x *objectContext) environment(st *inventory.Station) (model.Environment, *
 func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Material, []Default) {
 	var defs []Default
 	kind, _ := model.ParseKind(o.Kind)
-	in := model.Input{
-		Kind:             kind,
-		Material:         unknownMaterial(),
-		Length:           o.Length.OrNaN(),
-		Width:            o.Width.OrNaN(),
-		Diameter:         o.Diameter.OrNaN(),
-		Thickness:        o.Thickness.OrNaN(),
-		EarthedBacking:   strings.EqualFold(strings.TrimSpace(o.Backing), "earthed"),
-		DistanceToEarth:  o.DistanceToEarth.OrNaN(),
-		Field:            o.Field.OrNaN(),
-		FieldDistance:    o.FieldDistance.OrNaN(),
-		SurfacePotential: o.SurfacePotential.OrNaN(),
-		Speed:            o.Speed.OrNaN(),
-		MassFlow:         o.MassFlow.OrNaN(),
-		ChargeToMass:     o.ChargeToMass.OrNaN(),
-		ChargingCurrent:  o.ChargingCurrent.OrNaN(),
-		ChargingTime:     o.ChargingTime.OrNaN(),
-		ParticleSize:     o.ParticleSize.OrNaN(),
-		Resistance:       o.Resistance.OrNaN(),
-		Capacitance:      o.Capacitance.OrNaN(),
-		Conductivity:     o.Conductivity.OrNaN(),
-		Permittivity:     o.Permittivity.OrNaN(),
-		ProductMIE:       math.NaN(), // no survey column: the model takes the station's dust MIE
-		LayerBreakdown:   o.LayerBreakdown.OrNaN(),
-	}
+	in := model.NewInput(kind) // every quantity not given until read from the row
+	in.Length = o.Length.OrNaN()
+	in.Width = o.Width.OrNaN()
+	in.Diameter = o.Diameter.OrNaN()
+	in.Thickness = o.Thickness.OrNaN()
+	in.EarthedBacking = strings.EqualFold(strings.TrimSpace(o.Backing), "earthed")
+	in.DistanceToEarth = o.DistanceToEarth.OrNaN()
+	in.Field = o.Field.OrNaN()
+	in.FieldDistance = o.FieldDistance.OrNaN()
+	in.SurfacePotential = o.SurfacePotential.OrNaN()
+	in.Speed = o.Speed.OrNaN()
+	in.MassFlow = o.MassFlow.OrNaN()
+	in.ChargeToMass = o.ChargeToMass.OrNaN()
+	in.ChargingCurrent = o.ChargingCurrent.OrNaN()
+	in.ChargingTime = o.ChargingTime.OrNaN()
+	in.ParticleSize = o.ParticleSize.OrNaN()
+	in.Resistance = o.Resistance.OrNaN()
+	in.Capacitance = o.Capacitance.OrNaN()
+	in.Conductivity = o.Conductivity.OrNaN()
+	in.Permittivity = o.Permittivity.OrNaN()
+	in.LayerBreakdown = o.LayerBreakdown.OrNaN()
+	// ProductMIE stays NaN: no survey column, the model takes the station's dust MIE.
 	in.Process, _ = model.ParseProcess(o.Process)
 	in.BagType, _ = model.ParseBagType(o.BagType)
 	in.Filling, _ = model.ParseFilling(o.Filling)
@@ -357,10 +341,7 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 	return defs
 }
 
-func unknownMaterial() model.Material {
-	nan := math.NaN()
-	return model.Material{Permittivity: nan, SurfaceResistivity: nan, VolumeResistivity: nan, BreakdownStrength: nan}
-}
+func unknownMaterial() model.Material { return model.UnknownMaterial() }
 
 // evalDefaults lists the defaults the model's result rests on.
 func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
@@ -419,30 +400,6 @@ func dedupeDefaults(ds []Default) []Default {
 	}
 	if len(out) == 0 {
 		return nil
-	}
-	return out
-}
-
-// methodDefaults lists each default once across the objects: by Field and
-// Reason, with the value where every object had the same, else "per object".
-func methodDefaults(objs []ObjectResult) []Default {
-	var out []Default
-	for i := range objs {
-		for _, d := range objs[i].Defaults {
-			found := false
-			for j := range out {
-				if out[j].Field == d.Field && out[j].Reason == d.Reason {
-					if out[j].Value != d.Value {
-						out[j].Value = "per object (see Objects)"
-					}
-					found = true
-					break
-				}
-			}
-			if !found {
-				out = append(out, d)
-			}
-		}
 	}
 	return out
 }

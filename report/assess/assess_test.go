@@ -615,7 +615,7 @@ func TestDefaultsRecorded(t *testing.T) {
 	s.Site.RequiredMargin = inventory.Quantity{}
 	// As the reader leaves it: the temperature filled in and listed as a default.
 	s.Site.AirTemperature = known(293.15)
-	s.Site.Defaults = []string{"Air temperature 20 °C (default)"}
+	s.Site.Defaults = []inventory.SiteDefault{{Item: inventory.SiteItemAirTemperature, Text: "Air temperature 20 °C (default)"}}
 	a := Assess(s, Options{})
 	p := a.Objects[0]
 	for _, f := range []string{"Capacitance", "Relative humidity", "Required margin", "Air temperature"} {
@@ -653,7 +653,8 @@ func TestLimitsFromSite(t *testing.T) {
 		{Key: "safe potential [kv]", Item: "Safe potential [kV]", Value: "-1", Row: 15},
 		{Key: "brush area [kv]", Item: "Brush area [kV]", Value: "5", Row: 16},
 	}}
-	lim, probs := LimitsFromSite(st, base)
+	st, probs := siteWith(st.Items)
+	lim := LimitsFromSite(st, base)
 	// The overrides, converted to SI (derived: unit arithmetic).
 	wantRel(t, "ShockEnergy", lim.ShockEnergy, 0.4)
 	wantRel(t, "ConductorEarthing", lim.ConductorEarthing, 1e5)
@@ -686,7 +687,8 @@ func TestLimitsFromSite(t *testing.T) {
 	// The overrides reach the assessment: a 400 pF part at 50 kV (500 mJ, reference
 	// section 10.2) stays a shock hazard at 400 mJ but not at 600 mJ.
 	s := newSurvey(nil, []inventory.Station{{ID: "S"}}, []inventory.Object{{ID: "X", Station: "S", Kind: "part", Capacitance: known(400e-12), SurfacePotential: known(50e3)}}, nil)
-	s.Site.Items = []inventory.SiteItem{{Key: "shock energy [mj]", Item: "Shock energy [mJ]", Value: "600", Row: 8}}
+	ss, _ := siteWith([]inventory.SiteItem{{Key: "shock energy [mj]", Item: "Shock energy [mJ]", Value: "600", Row: 8}})
+	s.Site.Items, s.Site.Limits, s.Site.Uncertainties = ss.Items, ss.Limits, ss.Uncertainties
 	if a := Assess(s, Options{}); a.Objects[0].Verdict != NonIncendive {
 		t.Errorf("shock limit 600 mJ: verdict %v, want non-incendive", a.Objects[0].Verdict)
 	}
@@ -791,7 +793,8 @@ func FuzzLimitsFromSite(f *testing.F) {
 	f.Add("whatever", "")
 	f.Fuzz(func(t *testing.T, key, value string) {
 		base := model.DefaultLimits()
-		lim, probs := LimitsFromSite(inventory.Site{Items: []inventory.SiteItem{{Key: key, Item: key, Value: value, Row: 9}}}, base)
+		st, probs := siteWith([]inventory.SiteItem{{Key: key, Item: key, Value: value, Row: 9}})
+		lim := LimitsFromSite(st, base)
 		if len(probs) > 1 {
 			t.Fatalf("one item gave %d problems", len(probs))
 		}

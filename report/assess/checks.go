@@ -96,7 +96,7 @@ func dischargeGround(d model.DischargeType) string {
 	case model.Brush:
 		return "brush discharge equivalent energy 3-4 mJ (CLC/TR 50404 summaries; CCPS glossary), the 4 mJ upper end a screening choice of this tool"
 	case model.PropagatingBrush:
-		return "propagating brush discharge: 2.5e-4 C/m^2 and the 4 kV layer breakdown criterion (TRGS 727:2016 Annex C; JNIOSH-TR); its energy the layer's stored energy, bounded at 1 J (published range hundreds of mJ to J, from memory)"
+		return "propagating brush discharge: 2.5e-4 C/m² and the 4 kV layer breakdown criterion (TRGS 727:2016 Annex C; JNIOSH-TR); its energy the layer's stored energy, bounded at 1 J (published range hundreds of mJ to J, from memory)"
 	case model.Cone:
 		return "cone discharge energy by Glor's formula W = 5.22 D^3.36 d^1.462 mJ (from memory), valid for silo diameters 0.5-3 m and particle sizes 0.1-3 mm, the edge value outside it; preconditions BG RCI FAQ 5.10, TRGS 727:2016 6.2.3, JNIOSH-TR"
 	case model.Corona:
@@ -119,23 +119,23 @@ func checkTable() [NumChecks]checkDef {
 			}},
 		CheckTransferredCharge:     {"transferred-charge", Incendive, "IEC 60079-0:2017 cl. 7.4.2 transferred-charge limits (gas groups 60/25/10 nC; Group III 200 nC against propagating brush discharges; from memory), test method IEC 60079-32-2:2015", nil},
 		CheckInsulatingArea:        {"insulating-area", Marginal, "IEC 60079-0:2017 cl. 7.4 insulating surface area limits by EPL and group (from memory)", nil},
-		CheckConductorEarthing:     {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 Mohm; small parts below the IEC 60079-0:2017 capacitance exemption excepted", nil},
-		CheckPersonEarthing:        {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 Mohm in zones 0, 1, 20, 21 where the MIE is at most 10 mJ", nil},
+		CheckConductorEarthing:     {"conductor-earthing", Marginal, "TRGS 727:2016 cl. 8.3 and IEC TS 60079-32-1:2013+A1:2017: conductors to earth below 1 MΩ; small parts below the IEC 60079-0:2017 capacitance exemption excepted", nil},
+		CheckPersonEarthing:        {"person-earthing", Marginal, "TRGS 727:2016 cl. 7.2: person to earth at most 100 MΩ in zones 0, 1, 20, 21 where the MIE is at most 10 mJ", nil},
 		CheckShockEnergy:           {"shock-energy", Marginal, "TRGS 727:2016 Annex D: shock hazard to people above 350 mJ", nil},
-		CheckFillingVelocity:       {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m^2/s at 10 pS/m confirmed; other classes from memory)", nil},
+		CheckFillingVelocity:       {"filling-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), v d limits by vessel class (road tanker 0.38/0.5 m²/s at 10 pS/m confirmed; other classes from memory)", nil},
 		CheckVelocityCeiling:       {"velocity-ceiling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), velocity ceiling 7 m/s (from memory)", nil},
 		CheckSlowStart:             {"slow-start", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), initial filling velocity 1 m/s until the inlet is submerged (from memory)", nil},
 		CheckLowConductivity:       {"low-conductivity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), insulating containers: no safe filling limits for a low-conductivity liquid (<= 50 pS/m) (from memory)", nil},
 		CheckBagType:               {"bag-type", Marginal, "IEC 61340-4-4:2018 usage table of bulk bag types", nil},
-		CheckBagEarthing:           {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 Mohm while filling and emptying", nil},
-		CheckBagQualification:      {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 uA", nil},
+		CheckBagEarthing:           {"bag-earthing", Marginal, "IEC 61340-4-4:2018: type C bag tab to earth below 1 MΩ while filling and emptying", nil},
+		CheckBagQualification:      {"bag-qualification", Marginal, "IEC 61340-4-4:2018: type C and D qualification assumes MIE >= 0.14 mJ and charging current <= 3 µA", nil},
 		CheckLayerBreakdown:        {"layer-breakdown-contradiction", Marginal, "TRGS 727:2016 Annex C (4 kV layer breakdown criterion, measured on the layer); thin films hold at most about 600 kV/mm (secondary sources; a bulk strength x thickness does not apply to films and is not used); a layer holding more than its measured breakdown or that bound is a contradiction between reading and model, the reading kept (a screening choice of this tool)", nil},
 		CheckReadingVsHumidity:     {"reading-vs-humidity", Marginal, "a screening choice of this tool: a measurement beats the humidity model (the reading's hazard is kept until the reading is checked)", nil},
 		CheckSplashFilling:         {"splash-filling", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), top and splash filling of low-conductivity liquids (from memory)", nil},
 		CheckSecondPhase:           {"second-phase-velocity", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), two-phase flow: 1 m/s (from memory; 1000 pS/m confirmed)", nil},
 		CheckFilterResidence:       {"filter-residence", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), filters: residence time after a fine filter (from memory)", nil},
 		CheckIsolatedLiquid:        {"isolated-liquid", Marginal, "IEC TS 60079-32-1:2013+A1:2017 clause 7 (liquids), conductive liquids in insulating containers: earth through a dip pipe or rod", nil},
-		CheckReadingVsEarthing:     {"reading-vs-earthing", Marginal, "a screening choice of this tool: a measurement beats the model (a measured potential more than \"earthing contradiction factor\" (10) times the I R its measured earthing allows under the worst-case charging current, 1 uA walking for a person (Jonassen), 100 uA otherwise (JNIOSH-TR), contradicts the earthing path; the reading's hazard is kept)", nil},
+		CheckReadingVsEarthing:     {"reading-vs-earthing", Marginal, "a screening choice of this tool: a measurement beats the model (a measured potential more than \"earthing contradiction factor\" (10) times the I R its measured earthing allows under the worst-case charging current, 1 µA walking for a person (Jonassen), 100 µA otherwise (JNIOSH-TR), contradicts the earthing path; the reading's hazard is kept)", nil},
 		CheckReadingAboveBreakdown: {"reading-above-breakdown", Marginal, "air breaks down at about 3 MV/m, so a surface holds at most eps0 x 3 MV/m with its field on one side, twice that as a free sheet (CCPS glossary; AMS Glossary of Meteorology); a reading above it is a bad reading or unit: the charge density used is capped at that limit, a screening choice of this tool (the reading's hazard is kept)", nil},
 		CheckConeAboveRange:        {"cone-above-range", Marginal, "Glor's cone discharge formula (from memory), valid for silo diameters 0.5-3 m and median particle sizes 0.1-3 mm; outside its range the formula is not valid (BG RCI FAQ 5.10, TRGS 727:2016 6.2.3): the value at the edge of the range is used and, above the range, is a lower bound, so it never clears (a screening choice of this tool)", nil},
 		CheckConeExtrapolated:      {"cone-extrapolated-reaches-mie", Incendive, "Glor's cone discharge formula (from memory) evaluated beyond its range (D 0.5-3 m, d 0.1-3 mm), where it is not valid, reaches the MIE: as the energy rises with D and d, the discharge is taken as able to ignite (unknown means the stricter case; a screening choice of this tool)", nil},

@@ -5,7 +5,7 @@
 // it ranks the stations.
 //
 //	survey := inventory.ReadFile("line3.xlsx", inventory.ReadOptions{})
-//	lim, problems := assess.LimitsFromSite(survey.Site, model.DefaultLimits())
+//	lim := assess.LimitsFromSite(survey.Site, model.DefaultLimits()) // the Site sheet's overrides, validated by inventory
 //	audit := assess.Assess(survey, assess.Options{Limits: lim})
 //	audit.Stations[0]   // the worst station: Rank 1, Verdict, WorstRatio
 //	audit.Findings[0]   // e.g. {Check: "energy-vs-mie", Message: "spark of 5 mJ reaches the MIE of 0.24 mJ (ratio 20.8)", ...}

@@ -96,7 +96,8 @@ func TestLiquidSiteOverrides(t *testing.T) {
 		{Key: "second phase conductivity [ps/m]", Item: "Second phase conductivity [pS/m]", Value: "2000", Row: 11},
 		{Key: "filter charge factor", Item: "Filter charge factor", Value: "50", Row: 12},
 	}}
-	lim, probs := LimitsFromSite(st, model.DefaultLimits())
+	st, probs := siteWith(st.Items)
+	lim := LimitsFromSite(st, model.DefaultLimits())
 	if len(probs) != 0 {
 		t.Fatalf("problems %+v", probs)
 	}
@@ -116,7 +117,8 @@ func TestLiquidSiteOverrides(t *testing.T) {
 	o := compliantFill()
 	o.ID, o.Station, o.Speed = "F-1", "ST-1", known(3.01)
 	s.Objects = []inventory.Object{o}
-	s.Site.Items = st.Items[:1]
+	ss, _ := siteWith(st.Items[:1])
+	s.Site.Items, s.Site.Limits, s.Site.Uncertainties = ss.Items, ss.Limits, ss.Uncertainties
 	if a := Assess(s, Options{}); !hasCheck(a.Objects[0], "filling-velocity") {
 		t.Errorf("v d 0.301 against a 0.3 override: findings %v", checks(a.Objects[0]))
 	}

@@ -3,9 +3,6 @@ package assess
 import (
 	"math"
 	"math/rand/v2"
-	"runtime"
-	"sync"
-	"sync/atomic"
 	"unsafe"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -473,52 +470,4 @@ func (d *drawSpec) draw(rng *rand.Rand) float64 {
 		x = math.Max(2*d.upper-x, 0)
 	}
 	return x
-}
-
-// monteCarlo fills the Probability of every object and the stations'
-// ProbabilityAnyIncendive; opts.Samples > 0, opts.Seed and opts.Uncertainties resolved.
-func monteCarlo(a *Audit, margin float64) {
-	opts := &a.Options
-	tab := uncertaintyTable(opts.Uncertainties)
-	probs := make([]Probability, len(a.Objects))
-	workers := opts.Workers
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
-	workers = min(workers, len(a.Objects))
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for w := 0; w < workers; w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			s := newSampler(opts.Seed, opts.Samples, &opts.Limits, margin, &tab, a.Survey.Site.RelativeHumidity)
-			for {
-				i := int(next.Add(1) - 1)
-				if i >= len(a.Objects) {
-					return
-				}
-				probs[i] = s.object(&a.Objects[i])
-			}
-		}()
-	}
-	wg.Wait()
-	none := make(map[string]float64, len(a.Stations))
-	for i := range a.Objects {
-		a.Objects[i].Probability = &probs[i]
-		id := a.Objects[i].Object.Station
-		if _, ok := none[id]; !ok {
-			none[id] = 1
-		}
-		none[id] *= 1 - probs[i].Incendive
-	}
-	for k := range a.Stations {
-		st := &a.Stations[k]
-		q, ok := none[st.Station.ID]
-		if !ok {
-			q = 1 // a station with no object
-		}
-		any := 1 - q
-		st.ProbabilityAnyIncendive = &any
-	}
 }

@@ -282,8 +282,8 @@ func TestUncertaintiesFromSite(t *testing.T) {
 	for i := range items {
 		items[i].Key = inventory.NormalizeName(items[i].Item)
 	}
-	site := inventory.Site{Items: items}
-	tab, probs := UncertaintiesFromSite(site, DefaultUncertainties())
+	site, probs := siteWith(items)
+	tab := UncertaintiesFromSite(site, DefaultUncertainties())
 	byInput := uncertaintyTable(tab)
 	// derived: conversions of the units documented on UncertaintiesFromSite.
 	checks := []struct {
@@ -321,10 +321,7 @@ func TestUncertaintiesFromSite(t *testing.T) {
 		}
 	}
 	// LimitsFromSite leaves the uncertainty items alone and still reads the limit.
-	lim, lprobs := LimitsFromSite(site, model.DefaultLimits())
-	if len(lprobs) != 0 {
-		t.Errorf("LimitsFromSite problems %v, want none", lprobs)
-	}
+	lim := LimitsFromSite(site, model.DefaultLimits())
 	if !scalar.EqualWithinRel(lim.ShockEnergy, 0.3, 1e-12) {
 		t.Errorf("shock energy %v, want 0.3 J", lim.ShockEnergy)
 	}
@@ -357,7 +354,8 @@ func TestUncertaintyText(t *testing.T) {
 	// Each listed item, written on a Site sheet, is read back onto its own row.
 	for i, k := range keys {
 		it := inventory.SiteItem{Item: k, Key: inventory.NormalizeName(k), Value: "1", Row: i + 2}
-		tab, probs := UncertaintiesFromSite(inventory.Site{Items: []inventory.SiteItem{it}}, DefaultUncertainties())
+		site, probs := siteWith([]inventory.SiteItem{it})
+		tab := UncertaintiesFromSite(site, DefaultUncertainties())
 		if len(probs) != 0 || !tab[i].Overridden {
 			t.Errorf("item %q: problems %v, overridden %v", k, probs, tab[i].Overridden)
 		}
@@ -511,9 +509,12 @@ func TestMonteCarloSiteOverride(t *testing.T) {
 	// is marginal (unearthed) in every draw.
 	s := newSurvey([]inventory.Atmosphere{atmToluene}, []inventory.Station{{ID: "S1", Atmosphere: atmToluene.ID}},
 		[]inventory.Object{chargedPart("P1", known(1e9))}, nil)
+	var items []inventory.SiteItem
 	for i, k := range UncertaintyKeys() {
-		s.Site.Items = append(s.Site.Items, inventory.SiteItem{Item: k, Key: inventory.NormalizeName(k), Value: "0", Row: i + 5})
+		items = append(items, inventory.SiteItem{Item: k, Key: inventory.NormalizeName(k), Value: "0", Row: i + 5})
 	}
+	ss, _ := siteWith(items)
+	s.Site.Items, s.Site.Limits, s.Site.Uncertainties = ss.Items, ss.Limits, ss.Uncertainties
 	a := Assess(s, Options{Samples: 100})
 	p := a.Objects[0].Probability
 	if p.Marginal != 1 || !scalar.EqualWithinRel(p.EnergyP05, 50e-6, 1e-9) || !scalar.EqualWithinRel(p.EnergyP95, 50e-6, 1e-9) {

@@ -13,9 +13,10 @@ import (
 // keeps only what grows with the stations and findings: the station
 // aggregates (counts, worst ratio, the object IDs at each station), the
 // findings, the defaults applied and, when sampling, each station's
-// probability that no object is incendive. It gives the same results as
-// Assess (stations, ranks, findings and their order, counts, defaults,
-// probabilities), for surveys too large to hold every ObjectResult.
+// probability that no object is incendive. It is the one assessment engine:
+// Assess is the Streamer with every result collected, and the streaming
+// pipeline hands each batch's results to the writers instead, for surveys too
+// large to hold every ObjectResult.
 //
 // Use: NewStreamer with the survey as far as it is known before its objects
 // (Site, Atmospheres, Stations, Materials: what inventory.StreamFile gives its
@@ -65,7 +66,7 @@ func NewStreamer(s *inventory.Survey, opts Options) *Streamer {
 			a.Options.Seed = DefaultSeed
 		}
 		if a.Options.Uncertainties == nil {
-			a.Options.Uncertainties, _ = UncertaintiesFromSite(s.Site, DefaultUncertainties())
+			a.Options.Uncertainties = UncertaintiesFromSite(s.Site, DefaultUncertainties())
 		}
 	}
 	st := &Streamer{a: a, ctx: ctx, index: map[string]int{}, none: map[string]float64{}, mitigations: map[string]string{}}

@@ -1,18 +1,11 @@
 package assess
 
 import (
-	"errors"
-	"fmt"
 	"math"
-	"strconv"
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 )
-
-// ErrUncertaintyValue is the cause of a Site item that names an uncertainty but
-// whose value cannot be used.
-var ErrUncertaintyValue = errors.New("unusable uncertainty value")
 
 // UncertainInput names one group of measured inputs that share a default uncertainty.
 type UncertainInput uint8
@@ -173,50 +166,26 @@ func DefaultUncertainties() []Uncertainty {
 	}
 }
 
-// UncertaintiesFromSite returns base with the rows the Site sheet's items
-// override. An item is written "Uncertainty field [%]" (the unit optional: the
-// row's Unit when absent; the value may carry its own, "0.5 decades"). A normal
-// relative row takes %; an absolute length row mm, cm or m; humidity %RH; a
-// log-normal row % (a standard uncertainty of ±x % is a factor 1 + x/100),
-// decades or factor. 0 turns the row off (so does a factor of 1). An item that names a row but whose
-// value cannot be used is an Error and the row keeps its base value. Items
-// that start with "uncertainty" but name no row are Warnings. Other items are
-// left to LimitsFromSite.
-func UncertaintiesFromSite(site inventory.Site, base []Uncertainty) ([]Uncertainty, []inventory.Problem) {
+// UncertaintiesFromSite returns base with the rows the Site sheet overrides
+// (site.Uncertainties, validated by the inventory reader: an item is written
+// "Uncertainty field [%]", see inventory.UncertaintyItems for the units each
+// row takes; 0 turns the row off).
+func UncertaintiesFromSite(site inventory.Site, base []Uncertainty) []Uncertainty {
 	out := append([]Uncertainty(nil), base...)
-	var probs []inventory.Problem
-	for _, it := range site.Items {
-		name, keyUnit := siteItemName(it)
-		if !isUncertaintyItem(name) {
-			continue
-		}
-		var u *Uncertainty
+	for _, su := range site.Uncertainties {
 		for i := range out {
-			if out[i].SiteKey == name {
-				u = &out[i]
-				break
+			u := &out[i]
+			if u.SiteKey != su.Name {
+				continue
 			}
-		}
-		if u == nil {
-			probs = append(probs, siteItemProblem(it, "A", inventory.Warning, fmt.Sprintf("item %q names no uncertainty; it is ignored", it.Item), "use one of the uncertainty items listed on the Method sheet (e.g. \"Uncertainty field [%]\")", ErrUnknownSiteItem))
-			continue
-		}
-		v, err := parseSpread(it.Value, keyUnit, u)
-		if err != nil {
-			probs = append(probs, siteItemProblem(it, "B", inventory.Error, fmt.Sprintf("uncertainty %q: %v; the default %s is kept", it.Item, err, u.Text()), fmt.Sprintf("give a number >= 0 in %s, e.g. \"%s [%s] = 10\"", u.Unit, it.Item, u.Unit), fmt.Errorf("%w: %w", ErrUncertaintyValue, err)))
-			continue
-		}
-		u.Spread, u.Overridden = v, true
-		if unit := spreadUnit(it.Value, keyUnit); u.Dist == LogNormal && unit != "" {
-			u.Unit = unit // shown in the unit it was written in
+			u.Spread, u.Overridden = su.Spread, true
+			if u.Dist == LogNormal && su.Unit != "" {
+				u.Unit = su.Unit // shown in the unit it was written in
+			}
+			break
 		}
 	}
-	return out, probs
-}
-
-// isUncertaintyItem reports whether a normalised Site item name is an uncertainty item.
-func isUncertaintyItem(name string) bool {
-	return name == "uncertainty" || strings.HasPrefix(name, "uncertainty ")
+	return out
 }
 
 // UncertaintyKeys returns the Site-sheet items that override the uncertainty
@@ -237,108 +206,6 @@ func (u Uncertainty) SiteItem() string {
 	}
 	name := strings.ReplaceAll(" "+u.SiteKey+" ", " mie ", " MIE ")
 	return strings.ToUpper(name[1:2]) + strings.TrimSpace(name[2:]) + " [" + u.Unit + "]"
-}
-
-// spreadUnit is the canonical unit the value or the item names ("%", "decades", "factor").
-func spreadUnit(raw, keyUnit string) string {
-	_, u := splitValue(raw)
-	if u == "" {
-		u = keyUnit
-	}
-	switch canonSpreadUnit(u) {
-	case "%":
-		return "%"
-	case "dec":
-		return "decades"
-	case "x":
-		return "factor"
-	}
-	return ""
-}
-
-func canonSpreadUnit(u string) string {
-	u = strings.ToLower(strings.TrimSpace(u))
-	switch u {
-	case "%", "percent", "pct":
-		return "%"
-	case "decade", "decades", "dec":
-		return "dec"
-	case "factor", "x", "×":
-		return "x"
-	case "mm", "cm", "m":
-		return u
-	case "%rh", "% rh", "rh":
-		return "%rh"
-	}
-	return u
-}
-
-func splitValue(raw string) (string, string) {
-	raw = strings.TrimSpace(raw)
-	if i := strings.IndexFunc(raw, func(r rune) bool {
-		return !(r >= '0' && r <= '9' || r == '.' || r == 'e' || r == 'E' || r == '+' || r == '-')
-	}); i >= 0 {
-		return strings.TrimSpace(raw[:i]), strings.TrimSpace(raw[i:])
-	}
-	return raw, ""
-}
-
-// parseSpread reads a Site value into the row's internal spread.
-func parseSpread(raw, keyUnit string, u *Uncertainty) (float64, error) {
-	num, valUnit := splitValue(raw)
-	if num == "" {
-		return 0, errors.New("no value given")
-	}
-	v, err := strconv.ParseFloat(num, 64)
-	if err != nil {
-		return 0, fmt.Errorf("%q is not a number", raw)
-	}
-	if !(v >= 0) || math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q is not a finite value >= 0", raw)
-	}
-	unit := u.Unit
-	switch {
-	case valUnit != "":
-		unit = valUnit
-	case keyUnit != "":
-		unit = keyUnit
-	}
-	cu := canonSpreadUnit(unit)
-	bad := fmt.Errorf("unit %q does not fit %s (want %s)", unit, strings.ToLower(u.Name), u.Unit)
-	switch u.Dist {
-	case NormalRelative:
-		if cu != "%" {
-			return 0, bad
-		}
-		return v / 100, nil
-	case NormalAbsolute:
-		if u.Unit == "%RH" {
-			if cu != "%rh" && cu != "%" {
-				return 0, bad
-			}
-			return v, nil
-		}
-		f, ok := map[string]float64{"mm": 1e-3, "cm": 1e-2, "m": 1}[cu]
-		if !ok {
-			return 0, bad
-		}
-		return v * f, nil
-	}
-	switch cu {
-	case "%":
-		return math.Log1p(v / 100), nil
-	case "dec":
-		return v * math.Ln10, nil
-	case "x":
-		if v == 0 {
-			return 0, nil // off, as for the other units
-		}
-		if v < 1 {
-			return 0, fmt.Errorf("a factor must be at least 1, got %q", raw)
-		}
-		return math.Log(v), nil
-	}
-	return 0, bad
 }
 
 // uncertaintyTable indexes a table by input; rows missing from t take the default.

@@ -1,7 +1,7 @@
 package rerun
 
 // Workbook plumbing of the rerun workbooks. Cell styles, tables, print setup
-// and the Method, Cautions and Rejected sheets are package report's (report.Book),
+// and the Method, Cautions and Rejected sheets are package report's (audit.Book),
 // so the rerun workbooks look like the audit's and carry the audit's sheets.
 
 import (
@@ -11,8 +11,9 @@ import (
 	"time"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -20,36 +21,40 @@ import (
 type RunInfo struct {
 	ToolVersion string
 	CommandLine string
+	// TmpDir is the folder of the temporary file the workbook is written
+	// through before its canonical copy ("" for the system's).
+	TmpDir string
 }
 
 // Short names of report's cell constructors, so the sheet code reads as rows.
-func tx(s string) report.Cell { return report.TextCell(s) }
-func ct(s string) report.Cell { return report.CodeCell(s) }
-func wr(s string) report.Cell { return report.WrapCell(s) }
-func in(n int) report.Cell    { return report.CountCell(n) }
+func tx(s string) audit.Cell { return audit.TextCell(s) }
+func ct(s string) audit.Cell { return audit.CodeCell(s) }
+func wr(s string) audit.Cell { return audit.WrapCell(s) }
+func in(n int) audit.Cell    { return audit.CountCell(n) }
 
 // vd is a verdict cell from the verdict's spelling ("" is an empty cell).
-func vd(v string) report.Cell {
+func vd(v string) audit.Cell {
 	for _, x := range []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed} {
 		if v == x.String() {
-			return report.VerdictCell(x)
+			return audit.VerdictCell(x)
 		}
 	}
-	return report.TextCell(v)
+	return audit.TextCell(v)
 }
 
-// book is one rerun workbook: report's Book plus the document properties.
-type book struct {
-	*report.Book
-	f    *excelize.File
-	err  error
-	site string
-	date string
+// rerunBook is one rerun workbook: report's Book plus the document properties.
+type rerunBook struct {
+	*audit.Book
+	f      *excelize.File
+	err    error
+	site   string
+	date   string
+	tmpDir string
 }
 
 // newBook starts a workbook whose first sheet is first. Audit a gives the site,
 // the survey date and the Method sheet; heading is the page-header text.
-func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
+func newBook(a *assess.Audit, info RunInfo, first, heading string) *rerunBook {
 	if a == nil {
 		a = &assess.Audit{}
 	}
@@ -57,8 +62,8 @@ func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
 		a = &assess.Audit{Survey: &inventory.Survey{}}
 	}
 	s := a.Survey
-	b := &book{f: excelize.NewFile(), site: "site not named", date: "not given"}
-	b.Book = report.NewBook(b.f, a, report.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine,
+	b := &rerunBook{f: excelize.NewFile(), site: "site not named", date: "not given", tmpDir: info.TmpDir}
+	b.Book = audit.NewBook(b.f, a, audit.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine,
 		SurveyFile: s.Path, SurveySHA256: s.SHA256}, heading)
 	if s.Site.Name != "" {
 		b.site = s.Site.Name
@@ -74,13 +79,13 @@ func newBook(a *assess.Audit, info RunInfo, first, heading string) *book {
 	return b
 }
 
-func (b *book) check(err error) {
+func (b *rerunBook) check(err error) {
 	if err != nil && b.err == nil {
 		b.err = err
 	}
 }
 
-func (b *book) write(w io.Writer) error {
+func (b *rerunBook) write(w io.Writer) error {
 	defer b.f.Close()
 	if b.err == nil {
 		b.err = b.Err()
@@ -89,7 +94,8 @@ func (b *book) write(w io.Writer) error {
 		return fmt.Errorf("workbook: %w", b.err)
 	}
 	b.f.SetActiveSheet(0)
-	if _, err := b.f.WriteTo(w); err != nil {
+	// Canonical order, as the audit: the same rerun gives the same bytes.
+	if err := book.WriteCanonical(b.f, w, b.tmpDir); err != nil {
 		return fmt.Errorf("workbook: %w", err)
 	}
 	return nil

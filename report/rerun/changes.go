@@ -176,7 +176,9 @@ func FromSheet(s *inventory.Survey) []Change {
 func CloneSurvey(s *inventory.Survey) *inventory.Survey {
 	c := *s
 	c.Site.Items = append([]inventory.SiteItem(nil), s.Site.Items...)
-	c.Site.Defaults = append([]string(nil), s.Site.Defaults...)
+	c.Site.Defaults = append([]inventory.SiteDefault(nil), s.Site.Defaults...)
+	c.Site.Limits = append([]inventory.SiteLimit(nil), s.Site.Limits...)
+	c.Site.Uncertainties = append([]inventory.SiteUncertainty(nil), s.Site.Uncertainties...)
 	c.Atmospheres = append([]inventory.Atmosphere(nil), s.Atmospheres...)
 	c.Stations = append([]inventory.Station(nil), s.Stations...)
 	c.Objects = append([]inventory.Object(nil), s.Objects...)

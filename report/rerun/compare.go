@@ -107,7 +107,7 @@ func ratioText(r *float64) string {
 	return fmtSig(*r)
 }
 
-// auditJSON is the part of report.WriteJSON's document compare reads.
+// auditJSON is the part of audit.WriteJSON's document compare reads.
 type auditJSON struct {
 	Survey struct {
 		File string `json:"file"`
@@ -133,7 +133,7 @@ func jsonFields() [][2]string {
 	}
 }
 
-// SideFromJSON reads an audit JSON as written by report.WriteJSON. Its objects
+// SideFromJSON reads an audit JSON as written by audit.WriteJSON. Its objects
 // carry results, not readings, so the fields compared are the model's
 // quantities (potential, capacitance, charge density...), the verdict and the ratio.
 func SideFromJSON(label string, data []byte) (*Side, error) {

@@ -56,3 +56,12 @@ func FuzzParseRange(f *testing.F) {
 		}
 	})
 }
+
+// TestParseRangeDecimalComma: --rh reads numbers as a survey cell does
+// ("55,5" is 55.5 %RH).
+func TestParseRangeDecimalComma(t *testing.T) {
+	steps, err := ParseRange("55,5")
+	if err != nil || len(steps) != 1 || steps[0] != 55.5 {
+		t.Errorf("ParseRange(55,5) = %v, %v; want [55.5]", steps, err)
+	}
+}

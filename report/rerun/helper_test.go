@@ -3,10 +3,10 @@ package rerun
 import (
 	"io"
 
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 )
 
 func writeAuditJSON(w io.Writer, a *assess.Audit) error {
-	return report.WriteJSON(w, a, report.RunInfo{ToolVersion: "test"})
+	return audit.WriteJSON(w, a, audit.RunInfo{ToolVersion: "test"})
 }

@@ -48,8 +48,8 @@ type Sweep struct {
 func ParseRange(s string) ([]float64, error) {
 	parts := strings.Split(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(s), "%")), ":")
 	num := func(t string) (float64, error) {
-		v, err := strconv.ParseFloat(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(t), "%")), 64)
-		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		v, err := inventory.ParseNumber(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(t), "%")))
+		if err != nil {
 			return 0, fmt.Errorf("--rh %q: %q is not a number; write FROM:TO:STEP in %%RH, e.g. 10:90:5", s, t)
 		}
 		if v < 0 || v > 100 {

@@ -7,8 +7,8 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 )
 
 // Outcome is what a change did to one object's or station's hazard. An object or
@@ -71,10 +71,9 @@ type Whatif struct {
 }
 
 // Limits returns the limits an assessment of s uses: the defaults with the Site
-// sheet's overrides (problems in the overrides are reported by assess and check).
+// sheet's overrides (the reader rejected the rows whose values cannot be used).
 func Limits(s *inventory.Survey) model.Limits {
-	lim, _ := assess.LimitsFromSite(s.Site, model.DefaultLimits())
-	return lim
+	return assess.LimitsFromSite(s.Site, model.DefaultLimits())
 }
 
 // Run assesses s, applies the changes to a deep copy and assesses it again.
@@ -261,10 +260,10 @@ func orNone(s string) string {
 	return s
 }
 
-// fmtSig formats v with 3 significant digits (report.FormatSig), trailing zeros
+// fmtSig formats v with 3 significant digits (book.FormatSig), trailing zeros
 // of the mantissa dropped: "55", "1e6", "0.156".
 func fmtSig(v float64) string {
-	s := report.FormatSig(v, 3)
+	s := book.FormatSig(v, 3)
 	mant, exp, hasExp := strings.Cut(s, "e")
 	if strings.Contains(mant, ".") {
 		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")

@@ -7,7 +7,7 @@ import (
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -45,11 +45,11 @@ func TestWhatifWorkbookSheetsAreTheAudits(t *testing.T) {
 	if err := WriteWhatifWorkbook(&got, w, info); err != nil {
 		t.Fatal(err)
 	}
-	ri := report.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine}
-	if err := report.WriteWorkbook(&want, w.After, ri); err != nil {
+	ri := audit.RunInfo{ToolVersion: info.ToolVersion, CommandLine: info.CommandLine}
+	if err := audit.WriteWorkbook(&want, w.After, ri); err != nil {
 		t.Fatal(err)
 	}
-	if err := report.WriteWorkbook(&before, w.Before, ri); err != nil {
+	if err := audit.WriteWorkbook(&before, w.Before, ri); err != nil {
 		t.Fatal(err)
 	}
 	f, err := excelize.OpenReader(bytes.NewReader(got.Bytes()))
@@ -61,17 +61,17 @@ func TestWhatifWorkbookSheetsAreTheAudits(t *testing.T) {
 	if !slices.Equal(sheets, []string{SheetSummary, SheetObjects, SheetStations, SheetChanges, SheetMethod, SheetCautions, SheetRejected}) {
 		t.Errorf("sheets %v", sheets)
 	}
-	for _, sh := range []string{report.SheetCautions, report.SheetRejected} {
+	for _, sh := range []string{audit.SheetCautions, audit.SheetRejected} {
 		if g, a := sheetRows(t, got.Bytes(), sh), sheetRows(t, want.Bytes(), sh); !slices.EqualFunc(g, a, slices.Equal) {
 			t.Errorf("sheet %s differs from the audit's:\n got %q\nwant %q", sh, g, a)
 		}
 	}
 
-	if rej := sheetRows(t, got.Bytes(), report.SheetRejected); len(rej) != 3 {
+	if rej := sheetRows(t, got.Bytes(), audit.SheetRejected); len(rej) != 3 {
 		t.Errorf("Rejected sheet has %d rows, want the header, the rejected row and the warning: %q", len(rej), rej)
 	}
 
-	method := sheetRows(t, got.Bytes(), report.SheetMethod)
+	method := sheetRows(t, got.Bytes(), audit.SheetMethod)
 	// Cut the rerun notes: from their section title to the blank row after them.
 	start := slices.IndexFunc(method, func(r []string) bool { return len(r) > 0 && strings.HasPrefix(r[0], "How this what-if works") })
 	if start < 0 {
@@ -83,12 +83,12 @@ func TestWhatifWorkbookSheetsAreTheAudits(t *testing.T) {
 		t.Errorf("rerun notes %q", notes)
 	}
 	rest := append(slices.Clone(method[:start]), method[end+1:]...)
-	audit := sheetRows(t, want.Bytes(), report.SheetMethod)
-	if !slices.EqualFunc(rest, audit, slices.Equal) {
-		t.Errorf("Method sheet without the notes differs from the after-run audit's:\n got %q\nwant %q", rest, audit)
+	auditRows := sheetRows(t, want.Bytes(), audit.SheetMethod)
+	if !slices.EqualFunc(rest, auditRows, slices.Equal) {
+		t.Errorf("Method sheet without the notes differs from the after-run audit's:\n got %q\nwant %q", rest, auditRows)
 	}
 	// The after run's margin is the one shown, not the survey's.
-	if slices.EqualFunc(audit, sheetRows(t, before.Bytes(), report.SheetMethod), slices.Equal) {
+	if slices.EqualFunc(auditRows, sheetRows(t, before.Bytes(), audit.SheetMethod), slices.Equal) {
 		t.Error("after-run Method sheet equals the before-run one although the margin changed")
 	}
 	for _, wantText := range []string{"Survey file SHA-256", "00ff", "Limits applied", "Formulas", "Constants", "Defaults applied"} {

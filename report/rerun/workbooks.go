@@ -7,8 +7,9 @@ import (
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/xuri/excelize/v2"
 )
 
@@ -50,7 +51,7 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	sh := SheetSummary
 	b.check(b.f.SetColWidth(sh, "A", "A", 26))
 	b.check(b.f.SetColWidth(sh, "B", "D", 14))
-	b.Put(sh, 1, 1, report.TitleCell("What-if: "+b.site))
+	b.Put(sh, 1, 1, audit.TitleCell("What-if: "+b.site))
 	r := 3
 	for _, kv := range [][2]string{{"Survey", s.Path}, {"Survey date", b.date}, {"Changes applied", fmt.Sprint(len(x.Applied))}} {
 		b.Put(sh, 1, r, tx(kv[0]))
@@ -58,15 +59,15 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		r++
 	}
 	r++
-	b.Put(sh, 1, r, report.SectionCell("Objects by verdict"))
+	b.Put(sh, 1, r, audit.SectionCell("Objects by verdict"))
 	r++
 	countsAt := r
-	var rows [][]report.Cell
+	var rows [][]audit.Cell
 	for _, v := range []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed} {
-		rows = append(rows, []report.Cell{vd(v.String()), in(x.Before.Counts[v]), in(x.After.Counts[v])})
+		rows = append(rows, []audit.Cell{vd(v.String()), in(x.Before.Counts[v]), in(x.After.Counts[v])})
 	}
 	r = b.Table(sh, r, []string{"Verdict", "Before", "After"}, []float64{26, 14, 14}, rows) + 1
-	b.Put(sh, 1, r, report.SectionCell("What moved"))
+	b.Put(sh, 1, r, audit.SectionCell("What moved"))
 	r++
 	st := map[Outcome]int{}
 	for _, d := range x.Stations {
@@ -74,10 +75,10 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	}
 	rows = nil
 	for _, o := range []Outcome{Cleared, Stayed, Appeared, NoHazard, Unjudged} {
-		rows = append(rows, []report.Cell{tx(string(o)), in(x.Moved[o]), in(st[o])})
+		rows = append(rows, []audit.Cell{tx(string(o)), in(x.Moved[o]), in(st[o])})
 	}
 	r = b.Table(sh, r, []string{"Outcome", "Objects", "Stations"}, []float64{26, 14, 14}, rows) + 1
-	b.Put(sh, 1, r, report.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
+	b.Put(sh, 1, r, audit.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
 	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("C%d", r)))
 	b.check(b.f.SetRowHeight(sh, r, 40))
 	gap := uint(80)
@@ -103,9 +104,9 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		if o.After != nil {
 			mat = o.After.Object.Material
 		}
-		row := []report.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), report.RatioCell(o.Before.Ratio)}
+		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), audit.RatioCell(o.Before.Ratio)}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), report.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), audit.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
@@ -116,13 +117,13 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	// Stations.
 	rows = nil
 	for _, d := range x.Stations {
-		row := []report.Cell{tx(d.ID), tx(d.Name)}
+		row := []audit.Cell{tx(d.ID), tx(d.Name)}
 		if d.Before != nil {
-			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), report.RatioCell(d.Before.WorstRatio))
+			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), audit.RatioCell(d.Before.WorstRatio))
 		} else {
-			row = append(row, report.EmptyCell(), report.EmptyCell(), report.EmptyCell())
+			row = append(row, audit.EmptyCell(), audit.EmptyCell(), audit.EmptyCell())
 		}
-		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), report.RatioCell(d.After.WorstRatio), ct(string(d.Outcome)))
+		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), audit.RatioCell(d.After.WorstRatio), ct(string(d.Outcome)))
 		rows = append(rows, row)
 	}
 	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
@@ -132,16 +133,16 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	// Changes applied.
 	rows = nil
 	for i, a := range x.Applied {
-		rows = append(rows, []report.Cell{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
+		rows = append(rows, []audit.Cell{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []report.Cell{report.EmptyCell(), tx("none: the survey as it is")})
+		rows = append(rows, []audit.Cell{audit.EmptyCell(), tx("none: the survey as it is")})
 	}
 	b.Table(SheetChanges, 1, []string{"#", "Change", "Target", "Value as written", "Value applied", "From", "What was changed", "Objects reached", "Note"},
 		[]float64{4, 11, 16, 14, 14, 12, 50, 30, 30}, rows)
 	b.PrintSetup(SheetChanges, "$1:$1")
 
-	b.AddMethodSheet(report.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: rerunNotes()})
+	b.AddMethodSheet(audit.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: rerunNotes()})
 	b.AddCautionsSheet()
 	b.AddRejectedSheet(s)
 	return b.write(w)
@@ -165,11 +166,11 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		headers = append(headers, st.ID+" worst ratio [–]", st.ID+" verdict")
 		widths = append(widths, 11, 12)
 	}
-	var rows [][]report.Cell
+	var rows [][]audit.Cell
 	for _, st := range sw.Steps {
-		row := []report.Cell{report.QuantityCell(report.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
+		row := []audit.Cell{audit.QuantityCell(book.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
 		for _, x := range st.Stations {
-			row = append(row, report.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
+			row = append(row, audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
 		}
 		rows = append(rows, row)
 	}
@@ -223,7 +224,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 
 	rows = nil
 	for _, c := range sw.Clearances {
-		clears := report.QuantityCell(report.UnitPercentRH, c.ClearsAt)
+		clears := audit.QuantityCell(book.UnitPercentRH, c.ClearsAt)
 		first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
 		var fv, lv string
 		for j := range first.Stations {
@@ -231,13 +232,13 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 				fv, lv = first.Stations[j].Verdict.String(), last.Stations[j].Verdict.String()
 			}
 		}
-		rows = append(rows, []report.Cell{tx(c.ID), tx(c.Name), vd(fv), vd(lv), clears, wr(c.Text)})
+		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), vd(fv), vd(lv), clears, wr(c.Text)})
 	}
 	b.Table(SheetStations, 1, []string{"Station", "Name", fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[0].RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[len(sw.Steps)-1].RH)), "Non-incendive from RH [%]", "What humidity does"},
 		[]float64{10, 28, 14, 14, 14, 60}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 	notes := append(rerunNotes()[2:3], [2]string{"Sweep", "At each step the same RH is set at the site and at every station (a station's own RH is overridden) and the survey is assessed again with the same limits. A station becomes non-incendive at the lowest step from which every higher step is non-incendive; when the highest step is still incendive or marginal, humidity alone never gets it there. Steps are only as fine as the range given."})
-	b.AddMethodSheet(report.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
+	b.AddMethodSheet(audit.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
 	b.AddCautionsSheet()
 	b.AddRejectedSheet(sw.Survey)
 	return b.write(w)
@@ -253,7 +254,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	sh := SheetSummary
 	b.check(b.f.SetColWidth(sh, "A", "A", 26))
 	b.check(b.f.SetColWidth(sh, "B", "B", 60))
-	b.Put(sh, 1, 1, report.TitleCell("Compare: "+b.site))
+	b.Put(sh, 1, 1, audit.TitleCell("Compare: "+b.site))
 	r := 3
 	for _, kv := range [][2]string{{"Old", c.Old.Label}, {"New", c.New.Label}, {"Objects added", fmt.Sprint(len(c.Added))}, {"Objects removed", fmt.Sprint(len(c.Removed))},
 		{"Objects changed", fmt.Sprint(len(c.Changed))}, {"Verdicts changed", fmt.Sprint(countVerdictChanges(c))}, {"Stations whose rank moved", fmt.Sprint(len(c.Stations))}} {
@@ -262,7 +263,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		r++
 	}
 	r++
-	b.Put(sh, 1, r, report.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
+	b.Put(sh, 1, r, audit.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
 	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("B%d", r)))
 	b.check(b.f.SetRowHeight(sh, r, 30))
 	b.PrintSetup(sh, "")
@@ -272,13 +273,13 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		for _, o := range side.Objects {
 			byID[o.ID] = o
 		}
-		var rows [][]report.Cell
+		var rows [][]audit.Cell
 		for _, id := range ids {
 			o := byID[id]
-			rows = append(rows, []report.Cell{tx(id), tx(o.Station), vd(o.Verdict), report.RatioCell(o.Ratio)})
+			rows = append(rows, []audit.Cell{tx(id), tx(o.Station), vd(o.Verdict), audit.RatioCell(o.Ratio)})
 		}
 		if len(rows) == 0 {
-			rows = append(rows, []report.Cell{tx("none")})
+			rows = append(rows, []audit.Cell{tx("none")})
 		}
 		b.Table(sheet, 1, []string{"ID", "Station", "Verdict", "Ratio E/MIE [–]"}, []float64{14, 12, 14, 12}, rows)
 		b.PrintSetup(sheet, "$1:$1")
@@ -286,21 +287,21 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	one(SheetAdded, c.Added, c.New)
 	one(SheetRemoved, c.Removed, c.Old)
 
-	var rows [][]report.Cell
+	var rows [][]audit.Cell
 	for _, ch := range c.Changed {
 		for i, f := range ch.Fields {
-			rows = append(rows, []report.Cell{tx(ch.ID), tx(ch.Station), tx(f), tx(ch.Before[i]), tx(ch.After[i]), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
+			rows = append(rows, []audit.Cell{tx(ch.ID), tx(ch.Station), tx(f), tx(ch.Before[i]), tx(ch.After[i]), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
 		}
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []report.Cell{tx("none")})
+		rows = append(rows, []audit.Cell{tx("none")})
 	}
 	b.Table(SheetChanged, 1, []string{"ID", "Station", "Field", "Old value (SI)", "New value (SI)", "Verdict old", "Verdict new"}, []float64{14, 12, 20, 18, 18, 14, 14}, rows)
 	b.PrintSetup(SheetChanged, "$1:$1")
 
 	rows = nil
 	for _, m := range c.Stations {
-		row := []report.Cell{tx(m.ID), tx(m.Name), report.EmptyCell(), report.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter), ct(rankMove(m))}
+		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter), ct(rankMove(m))}
 		if m.RankBefore > 0 {
 			row[2] = in(m.RankBefore)
 		}
@@ -310,7 +311,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		rows = append(rows, row)
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []report.Cell{tx("none"), tx("no station's rank moved")})
+		rows = append(rows, []audit.Cell{tx("none"), tx("no station's rank moved")})
 	}
 	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Move"}, []float64{10, 28, 9, 9, 14, 14, 22}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")

@@ -1,0 +1,298 @@
+package audit
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
+	"github.com/sparkmargin/sparkmargin/templates"
+	"github.com/xuri/excelize/v2"
+)
+
+// summaryWidths are the Summary column widths: A labels, A-J the ranked stations table.
+func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10, 11, 10} }
+
+// summary writes the Summary sheet: identity, counts by verdict, rows read,
+// the ranked stations, the chart of worst ratios and the cautions in short.
+func (wb *workbook) summary() error {
+	f, s, a := wb.f, SheetSummary, wb.a
+	site := a.Survey.Site
+	if err := book.SetWidths(f, s, summaryWidths()); err != nil {
+		return err
+	}
+	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
+	r := 1
+	if err := f.SetCellValue(s, "A1", "Electrostatic ignition screening audit"); err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(s, "A1", "A1", wb.st.Title()); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, 1, 24); err != nil {
+		return err
+	}
+	// The cautions line right under the title, in a caution box.
+	r = 2
+	if err := f.MergeCell(s, "A2", "J2"); err != nil {
+		return err
+	}
+	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(s, "A2", "J2", wb.st.Caution()); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, 2, 30); err != nil {
+		return err
+	}
+
+	section := func(row int, title string) error {
+		ref := fmt.Sprintf("A%d", row)
+		if err := f.SetCellValue(s, ref, title); err != nil {
+			return err
+		}
+		return f.SetCellStyle(s, ref, fmt.Sprintf("J%d", row), wb.st.Section())
+	}
+
+	r = 4
+	if err := section(r, "Survey"); err != nil {
+		return err
+	}
+	r++
+	ident := [][2]book.Cell{
+		{book.Text("Site"), book.Text(siteName(a))},
+		{book.Text("Survey date"), book.Text(dateText(a))},
+		{book.Text("Surveyed by"), book.OptText(site.SurveyedBy)},
+		{book.Text(book.UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
+		{book.Text(book.UnitCelsius.Header("Air temperature")), est(inQ(book.UnitCelsius, site.AirTemperature), site.Defaulted(inventory.SiteItemAirTemperature))},
+		{book.Text(book.UnitDimless.Header("Required margin")), est(inQ(book.UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))},
+		{book.Text("Survey file"), book.OptText(wb.info.file(a))},
+		{book.Text("Survey SHA-256"), book.OptText(wb.info.sha(a))},
+		{book.Text("Tool"), book.Text(wb.info.tool() + " " + wb.info.ToolVersion)},
+	}
+	for _, kv := range ident {
+		kv[0].Bold = true
+		kv[1].Align = "left"
+		if err := sink.Row(r, []book.Cell{kv[0], kv[1]}, 0); err != nil {
+			return err
+		}
+		r++
+	}
+
+	// Counts by verdict.
+	r++
+	if err := section(r, "Objects by verdict"); err != nil {
+		return err
+	}
+	r++
+	if err := sink.Header(r, []string{"Verdict", "Objects [count]", "Findings [count]"}); err != nil {
+		return err
+	}
+	r++
+	findingsBy := map[assess.Verdict]int{}
+	for _, fd := range a.Findings {
+		findingsBy[fd.Severity]++
+	}
+	total := 0
+	for _, v := range verdictOrder() {
+		n := a.Counts[v]
+		total += n
+		if err := sink.Row(r, []book.Cell{verdictCell(v), book.Integer(n), book.Integer(findingsBy[v])}, 0); err != nil {
+			return err
+		}
+		r++
+	}
+	if err := sink.Row(r, []book.Cell{book.BoldText("All objects"), book.Integer(total), book.Integer(len(a.Findings))}, 0); err != nil {
+		return err
+	}
+	r += 2
+
+	// Rows read, accepted, rejected.
+	if err := section(r, "Survey rows"); err != nil {
+		return err
+	}
+	r++
+	if err := sink.Header(r, []string{"Survey sheet", "Read [rows]", "Accepted [rows]", "Rejected [rows]"}); err != nil {
+		return err
+	}
+	r++
+	for _, c := range a.Survey.Counts {
+		if err := sink.Row(r, []book.Cell{book.Text(c.Sheet), book.Integer(c.Read), book.Integer(c.Accepted), book.Integer(c.Rejected)}, 0); err != nil {
+			return err
+		}
+		r++
+	}
+	if n := len(a.Survey.Warnings()); n > 0 {
+		if err := sink.Row(r, []book.Cell{book.Text(fmt.Sprintf("%d warning(s) on accepted rows: see the Rejected sheet", n))}, 0); err != nil {
+			return err
+		}
+		r++
+	}
+	r++
+
+	// Ranked stations.
+	if err := section(r, "Stations, worst first"); err != nil {
+		return err
+	}
+	r++
+	if err := sink.Header(r, []string{"Station", "Rank", "Name", "Verdict", book.UnitRatio.Header("Worst ratio E/MIE"),
+		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, r, 30); err != nil {
+		return err
+	}
+	r++
+	for i := range a.Stations {
+		st := &a.Stations[i]
+		ratio := ratioCell(book.FinitePtr(st.WorstRatio))
+		if st.WorstRatioAssumed {
+			ratio = book.Text(assess.RatioAssumedText) // an artefact of an assumed resistance
+		}
+		if err := sink.Row(r, []book.Cell{
+			book.BoldText(st.Station.ID), book.Integer(st.Rank), book.WrapText(st.Station.Name), verdictCell(st.Verdict),
+			ratio, book.Integer(len(st.Objects)),
+			book.Integer(st.Counts[assess.Incendive]), book.Integer(st.Counts[assess.Marginal]),
+			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]),
+		}, book.RowHeight(summaryWidths(), []book.Cell{{}, {}, book.WrapText(st.Station.Name)})); err != nil {
+			return err
+		}
+		r++
+	}
+	r++
+
+	// Chart of worst ratio per station, pointing at the Stations sheet; it
+	// starts a new printed page so that it is never cut in two.
+	if len(a.Stations) > 0 {
+		if err := f.InsertPageBreak(s, fmt.Sprintf("A%d", r)); err != nil {
+			return err
+		}
+		if err := section(r, "Worst ratio per station"); err != nil {
+			return err
+		}
+		r++
+		rows := chartRows(len(a.Stations))
+		if err := wb.chart(fmt.Sprintf("A%d", r), rows); err != nil {
+			return err
+		}
+		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
+		if err := sink.Row(r, []book.Cell{book.WrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
+			"A station whose worst ratio is 0 (no discharge possible) has no bar; stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
+			return err
+		}
+		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
+			return err
+		}
+		if err := f.SetRowHeight(s, r, 30); err != nil {
+			return err
+		}
+		r += 2
+	}
+
+	// Cautions in short.
+	if err := section(r, "Cautions"); err != nil {
+		return err
+	}
+	r++
+	for i, c := range templates.Cautions() {
+		ref := fmt.Sprintf("A%d", r)
+		if err := f.SetCellValue(s, ref, fmt.Sprintf("%d. %s", i+1, c)); err != nil {
+			return err
+		}
+		if err := f.MergeCell(s, ref, fmt.Sprintf("J%d", r)); err != nil {
+			return err
+		}
+		if err := f.SetCellStyle(s, ref, ref, wb.st.Of(book.WrapText(""))); err != nil {
+			return err
+		}
+		if err := f.SetRowHeight(s, r, wrappedHeight(c, sum(summaryWidths()))); err != nil {
+			return err
+		}
+		r++
+	}
+	return wb.printSetup(s, 1, "", "")
+}
+
+func sum(xs []float64) float64 {
+	t := 0.0
+	for _, x := range xs {
+		t += x
+	}
+	return t
+}
+
+// chartRows returns the height of the Summary chart in sheet rows (20 px
+// each): room for the axes plus a bar line per station, at most one page.
+func chartRows(stations int) int {
+	n := 6 + (stations*3+1)/2
+	if n < 16 {
+		n = 16
+	}
+	if n > 26 {
+		n = 26
+	}
+	return n
+}
+
+// chart adds the native bar chart of the stations' worst ratios, on a log
+// value axis, in one neutral colour (the verdicts are coloured in the table).
+func (wb *workbook) chart(at string, rows int) error {
+	n := wb.stationRows
+	sheet := "'" + SheetStations + "'"
+	gap := uint(60)
+	lo, hi := ratioAxis(wb.a.Stations)
+	return wb.f.AddChart(SheetSummary, at, &excelize.Chart{
+		Type: excelize.Bar,
+		Series: []excelize.ChartSeries{{
+			Name:       sheet + "!$" + stationsRatioCol + "$1",
+			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsIDCol, stationsIDCol, n),
+			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsRatioCol, stationsRatioCol, n),
+			// One neutral colour: excelize colours single bars only in pie
+			// charts, and the verdict colours stay on the table above.
+			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"4D4D4D"}},
+		}},
+		Format:    excelize.GraphicOptions{OffsetX: 4, OffsetY: 4},
+		Dimension: excelize.ChartDimension{Width: 900, Height: uint(rows*20 - 8)},
+		Legend:    excelize.ChartLegend{Position: "none"},
+		Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "Worst ratio E/MIE per station (log scale)", Font: &excelize.Font{Size: 11, Bold: true}}}},
+		XAxis:     excelize.ChartAxis{ReverseOrder: true, Font: excelize.Font{Size: 9, Color: "000000"}},
+		YAxis: excelize.ChartAxis{
+			LogBase: 10, Minimum: &lo, Maximum: &hi, MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"},
+			Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "effective energy / MIE [–]", Font: &excelize.Font{Size: 9, Color: "000000"}}}},
+		},
+		GapWidth:     &gap,
+		ShowBlanksAs: "gap",
+	})
+}
+
+// ratioAxis returns the log axis range of the ratio chart: whole decades from
+// below the smallest positive ratio (showing at least 1/margin = 0.1, not
+// below 1e-4) to above the largest (at least 10), so every bar is drawn.
+func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
+	lo, hi = 0.1, 10
+	for i := range stations {
+		r := book.FinitePtr(stations[i].WorstRatio)
+		if r == nil || *r <= 0 {
+			continue
+		}
+		if d := math.Pow(10, math.Floor(math.Log10(*r))); d < lo {
+			lo = d
+		}
+		if d := math.Pow(10, math.Ceil(math.Log10(*r))); d > hi {
+			hi = d
+		}
+	}
+	return math.Max(lo, 1e-4), hi
+}
+
+// siteHumidityCell shows the site's relative humidity, or, when the Site sheet
+// gives none (an error that check reports), the value the assessment used for
+// stations without their own, marked as estimated.
+func siteHumidityCell(site inventory.Site) book.Cell {
+	if !site.RelativeHumidity.Known {
+		return est(book.Quantity(book.UnitPercentRH, assess.DryDayHumidity), true)
+	}
+	return est(inQ(book.UnitPercentRH, site.RelativeHumidity), false)
+}

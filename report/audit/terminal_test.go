@@ -1,0 +1,93 @@
+package audit
+
+import (
+	"bytes"
+	"encoding/json"
+	"strings"
+	"testing"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
+)
+
+func TestWriteSummaryGolden(t *testing.T) {
+	var b bytes.Buffer
+	if err := WriteSummary(&b, testAudit()); err != nil {
+		t.Fatal(err)
+	}
+	golden(t, "summary.golden.txt", b.Bytes())
+	s := b.String()
+	// Rows: Site 6 + Atmospheres 2 + Stations 3 + Objects 10 = 21 read, one
+	// Objects row rejected (the fixture's counts, invented for the demo).
+	// Ranked order and the ratios worked by hand: 10 mJ / 0.24 mJ = 41.7,
+	// 113.3 mJ / 10 mJ = 11.3 (derived).
+	i1, i2, i3 := strings.Index(s, "S1 Coater"), strings.Index(s, "S2 Powder"), strings.Index(s, "S3 Warehouse")
+	if !(i1 >= 0 && i1 < i2 && i2 < i3) {
+		t.Errorf("stations not in rank order:\n%s", s)
+	}
+	for _, want := range []string{"41.7", "11.3", "9 (4 incendive, 1 marginal, 3 non-incendive, 1 not assessed)",
+		"21 read, 20 accepted, 1 rejected (Objects 1)", templates.CautionLine} {
+		if !strings.Contains(s, want) {
+			t.Errorf("summary lacks %q:\n%s", want, s)
+		}
+	}
+	if strings.Contains(s, "\x1b[") {
+		t.Error("summary holds terminal colour codes")
+	}
+}
+
+// TestWriteSummaryBlankSiteHumidity: a Site sheet without RH (an error for check)
+// is assessed at the dry-day value, and the terminal says so with the value used.
+func TestWriteSummaryBlankSiteHumidity(t *testing.T) {
+	a := testAudit()
+	s := *a.Survey
+	s.Site.RelativeHumidity = inventory.Quantity{}
+	a.Survey = &s
+	var b bytes.Buffer
+	if err := WriteSummary(&b, a); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(b.String(), "no relative humidity") || !strings.Contains(b.String(), "30 %RH") {
+		t.Errorf("no warning with the RH used:\n%s", b.String())
+	}
+	if c := siteHumidityCell(s.Site); c.V == nil || !c.Est {
+		t.Errorf("Summary RH cell %+v, want the dry-day value marked est.", c)
+	}
+}
+
+// TestStationNotes: a station with rejected object rows is marked incomplete,
+// and one ranked on an assumed resistance shows ">= 1 (assumed R)", on the
+// terminal and in the JSON (keys added, numbers kept) (review items 6 and 11).
+func TestStationNotes(t *testing.T) {
+	a := testAudit()
+	a.Stations[0].RejectedRows = 2
+	a.Stations[0].WorstRatioAssumed = true
+	var b bytes.Buffer
+	if err := WriteSummary(&b, a); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"Note", "incomplete: 2 object rows rejected, see Rejected", assess.RatioAssumedText, "rank rests on an assumed resistance"} {
+		if !strings.Contains(b.String(), want) {
+			t.Errorf("terminal lacks %q:\n%s", want, b.String())
+		}
+	}
+	b.Reset()
+	if err := WriteJSON(&b, a, testInfo()); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct {
+		Stations []struct {
+			RejectedRows int      `json:"rejected_rows"`
+			Assumed      bool     `json:"worst_ratio_assumed_resistance"`
+			WorstRatio   *float64 `json:"worst_ratio"`
+		} `json:"stations"`
+	}
+	if err := json.Unmarshal(b.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	st := doc.Stations[0]
+	if st.RejectedRows != 2 || !st.Assumed || (a.Stations[0].WorstRatio != nil && st.WorstRatio == nil) {
+		t.Errorf("JSON station %+v", st)
+	}
+}

@@ -1,0 +1,567 @@
+package audit
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"time"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
+	"github.com/sparkmargin/sparkmargin/templates"
+	"github.com/xuri/excelize/v2"
+)
+
+// Sheet names of the audit workbook, in order.
+const (
+	SheetSummary  = "Summary"
+	SheetStations = "Stations"
+	SheetObjects  = "Objects"
+	SheetFindings = "Findings"
+	SheetMethod   = "Method"
+	SheetCautions = "Cautions"
+	SheetRejected = "Rejected"
+)
+
+// Sheets returns the audit workbook's sheet names in order.
+func Sheets() []string {
+	return []string{SheetSummary, SheetStations, SheetObjects, SheetFindings, SheetMethod, SheetCautions, SheetRejected}
+}
+
+// RunInfo identifies the run that produced an audit, so an auditor can tie the
+// audit to its input and to the tool that made it.
+type RunInfo struct {
+	ToolName     string // "sparkmargin" when empty
+	ToolVersion  string // e.g. "0.4.0" or a VCS revision
+	SurveyFile   string // the survey's file name as given on the command line
+	SurveySHA256 string // hex SHA-256 of the survey file; "" takes Survey.SHA256
+	CommandLine  string // the command as run, for the Method sheet
+	// Workbook and WorkbookSHA256 name the audit workbook written with the
+	// JSON and its hex SHA-256, recorded in the JSON ("workbook") so that a
+	// reader can tell a JSON from a workbook of another run; empty: no record.
+	Workbook       string
+	WorkbookSHA256 string
+	// TmpDir is the folder for the writers' temporary files (the run's
+	// private folder; "" for the system's). It is written nowhere.
+	TmpDir string
+}
+
+func (ri RunInfo) tool() string {
+	if ri.ToolName == "" {
+		return "sparkmargin"
+	}
+	return ri.ToolName
+}
+
+func (ri RunInfo) sha(a *assess.Audit) string {
+	if ri.SurveySHA256 != "" {
+		return ri.SurveySHA256
+	}
+	if a.Survey != nil {
+		return a.Survey.SHA256
+	}
+	return ""
+}
+
+func (ri RunInfo) file(a *assess.Audit) string {
+	if ri.SurveyFile != "" {
+		return ri.SurveyFile
+	}
+	if a.Survey != nil {
+		return a.Survey.Path
+	}
+	return ""
+}
+
+// surveyDate returns the survey date, or a fixed date when the survey has
+// none, so that the document properties never depend on the clock.
+func surveyDate(a *assess.Audit) time.Time {
+	if a.Survey != nil && !a.Survey.Site.SurveyDate.IsZero() {
+		return a.Survey.Site.SurveyDate.UTC()
+	}
+	return time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC)
+}
+
+func dateText(a *assess.Audit) string {
+	if a.Survey == nil || a.Survey.Site.SurveyDate.IsZero() {
+		return "not given"
+	}
+	return a.Survey.Site.SurveyDate.UTC().Format("2006-01-02")
+}
+
+func siteName(a *assess.Audit) string {
+	if a.Survey == nil || a.Survey.Site.Name == "" {
+		return "site not named"
+	}
+	return a.Survey.Site.Name
+}
+
+// verdictOrder is the order verdicts are listed in: most severe first.
+func verdictOrder() []assess.Verdict {
+	return []assess.Verdict{assess.Incendive, assess.Marginal, assess.NonIncendive, assess.NotAssessed}
+}
+
+// WriteWorkbook writes the audit workbook of a to w: the sheets Summary,
+// Stations, Objects, Findings, Method, Cautions and Rejected, in that order.
+// Values are in engineering units with the unit in every header, stored as
+// numbers with number formats; a quantity that is not defined is an empty
+// cell; a value fed by an assumed default reads "est." in its cell and the
+// default is listed in the object's "Defaults applied" column. Every sheet is
+// set up to print: landscape, fitted to the page width (the wide Objects sheet
+// to a few pages across, with its ID column repeated), header rows repeated,
+// and a footer with site, survey date and page number. The document
+// properties come from the survey date and the package parts are written in a
+// fixed order, so the same audit gives the same cells and the same bytes.
+func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
+	if a == nil || a.Survey == nil {
+		return errors.New("write workbook: no audit or no survey")
+	}
+	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
+	defer func() { _ = f.Close() }()
+	st := book.NewStyles(f)
+	wb := &workbook{f: f, st: st, a: a, info: info}
+
+	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	for _, s := range Sheets()[1:] {
+		if _, err := f.NewSheet(s); err != nil {
+			return fmt.Errorf("write workbook: sheet %s: %w", s, err)
+		}
+	}
+	if err := wb.writeSheets(true); err != nil {
+		return err
+	}
+	if st.Err() != nil {
+		return fmt.Errorf("write workbook: %w", st.Err())
+	}
+	f.SetActiveSheet(0)
+	if err := setDocProps(f, a, info); err != nil {
+		return err
+	}
+	if err := book.WriteCanonical(f, w, info.TmpDir); err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	return nil
+}
+
+type workbook struct {
+	f    *excelize.File
+	st   *book.Styles
+	a    *assess.Audit
+	info RunInfo
+	// stationRows is the last data row of the Stations sheet, for the chart.
+	stationRows int
+	// heading is the page-header text before the sheet name; "" is the audit's.
+	heading string
+	// methodNotes are extra sections of the Method sheet (a Book's); none in the audit.
+	methodNotes []MethodNotes
+}
+
+// footerEscape doubles '&', the header/footer control character.
+func footerEscape(s string) string { return strings.ReplaceAll(s, "&", "&&") }
+
+// printSetup makes a sheet print-ready: landscape A4, fitted to pagesWide
+// pages across (1 = the page width), the given rows (and columns) repeated on
+// every page, and a footer with site, survey date and page number.
+func (wb *workbook) printSetup(sheet string, pagesWide int, titleRows, titleCols string) error {
+	f := wb.f
+	landscape := "landscape"
+	a4 := 9
+	tall := 0
+	if err := f.SetPageLayout(sheet, &excelize.PageLayoutOptions{
+		Size: &a4, Orientation: &landscape, FitToWidth: &pagesWide, FitToHeight: &tall,
+	}); err != nil {
+		return err
+	}
+	fit := true
+	if err := f.SetSheetProps(sheet, &excelize.SheetPropsOptions{FitToPage: &fit}); err != nil {
+		return err
+	}
+	m := 0.5
+	if err := f.SetPageMargins(sheet, &excelize.PageLayoutMarginsOptions{Left: &m, Right: &m, Top: &m, Bottom: &m}); err != nil {
+		return err
+	}
+	site := footerEscape(siteName(wb.a))
+	if len([]rune(site)) > 80 {
+		site = string([]rune(site)[:80]) + "…"
+	}
+	heading := "Electrostatic screening audit"
+	if wb.heading != "" {
+		heading = footerEscape(wb.heading)
+	}
+	if err := f.SetHeaderFooter(sheet, &excelize.HeaderFooterOptions{
+		OddHeader: "&L&8" + heading + ": &A&R&8" + footerEscape(wb.info.tool()+" "+wb.info.ToolVersion),
+		OddFooter: "&L&8" + site + "&C&8Survey date " + dateText(wb.a) + "&R&8Page &P of &N",
+	}); err != nil {
+		return err
+	}
+	var refs []string
+	q := "'" + strings.ReplaceAll(sheet, "'", "''") + "'"
+	if titleCols != "" {
+		refs = append(refs, q+"!"+titleCols)
+	}
+	if titleRows != "" {
+		refs = append(refs, q+"!"+titleRows)
+	}
+	if len(refs) > 0 {
+		if err := f.SetDefinedName(&excelize.DefinedName{
+			Name: "_xlnm.Print_Titles", RefersTo: strings.Join(refs, ","), Scope: sheet,
+		}); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// tableSheetNormal writes a whole normal-mode table: header row 1, rows from 2,
+// frozen header, autofilter and print setup.
+func tableSheetNormal[T any](wb *workbook, sheet string, cols []book.Column[T], rows []T) error {
+	sink := book.NormalSink{F: wb.f, Sheet: sheet, St: wb.st}
+	if err := book.SetWidths(wb.f, sheet, book.WidthsOf(cols)); err != nil {
+		return err
+	}
+	if err := sink.Header(1, book.Headers(cols)); err != nil {
+		return err
+	}
+	if err := wb.f.SetRowHeight(sheet, 1, 42); err != nil {
+		return err
+	}
+	widths := book.WidthsOf(cols)
+	for i, r := range rows {
+		cells := book.RowCells(cols, r)
+		if err := sink.Row(i+2, cells, book.RowHeight(widths, cells)); err != nil {
+			return err
+		}
+	}
+	if err := wb.f.SetPanes(sheet, &excelize.Panes{Freeze: true, YSplit: 1, TopLeftCell: "A2", ActivePane: "bottomLeft"}); err != nil {
+		return err
+	}
+	last := len(rows) + 1
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", book.LastCol(len(cols)), last), nil); err != nil {
+		return err
+	}
+	return wb.printSetup(sheet, 1, "$1:$1", "")
+}
+
+// tableSheetStream writes a table through a StreamWriter; the autofilter and
+// print setup are made on the empty sheet first, which the stream keeps.
+func tableSheetStream[T any](wb *workbook, sheet string, cols []book.Column[T], n int, row func(i int) T, pagesWide int, titleCols string, freezeCols int) error {
+	ts, err := openTableStream(wb, sheet, cols, n, pagesWide, titleCols, freezeCols)
+	if err != nil {
+		return err
+	}
+	for i := 0; i < n; i++ {
+		if err := ts.Row(row(i)); err != nil {
+			return err
+		}
+	}
+	return ts.sw.Flush()
+}
+
+// tableStream is a table sheet being written through a StreamWriter.
+type tableStream[T any] struct {
+	sw     *excelize.StreamWriter
+	sink   book.StreamSink
+	cols   []book.Column[T]
+	widths []float64
+	next   int // sheet row of the next data row
+}
+
+// openTableStream sets up a streamed table sheet for n data rows (the
+// autofilter range; see the WorkbookWriter for a count known only at the end)
+// and writes its header row.
+func openTableStream[T any](wb *workbook, sheet string, cols []book.Column[T], n int, pagesWide int, titleCols string, freezeCols int) (*tableStream[T], error) {
+	last := n + 1
+	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", book.LastCol(len(cols)), last), nil); err != nil {
+		return nil, err
+	}
+	if err := wb.printSetup(sheet, pagesWide, "$1:$1", titleCols); err != nil {
+		return nil, err
+	}
+	sw, err := wb.f.NewStreamWriter(sheet)
+	if err != nil {
+		return nil, err
+	}
+	for i, c := range cols {
+		if err := sw.SetColWidth(i+1, i+1, c.Width); err != nil {
+			return nil, err
+		}
+	}
+	top, _ := excelize.CoordinatesToCellName(freezeCols+1, 2)
+	pane := "bottomLeft"
+	if freezeCols > 0 {
+		pane = "bottomRight"
+	}
+	if err := sw.SetPanes(&excelize.Panes{Freeze: true, XSplit: freezeCols, YSplit: 1, TopLeftCell: top, ActivePane: pane}); err != nil {
+		return nil, err
+	}
+	ts := &tableStream[T]{sw: sw, sink: book.StreamSink{SW: sw, St: wb.st}, cols: cols, widths: book.WidthsOf(cols), next: 2}
+	if err := ts.sink.Header(1, book.Headers(cols)); err != nil {
+		return nil, err
+	}
+	return ts, nil
+}
+
+// row writes the next data row.
+func (ts *tableStream[T]) Row(v T) error {
+	cells := book.RowCells(ts.cols, v)
+	if err := ts.sink.Row(ts.next, cells, book.RowHeight(ts.widths, cells)); err != nil {
+		return err
+	}
+	ts.next++
+	return nil
+}
+
+// ---- Stations ----
+
+type stationRow = *assess.StationResult
+
+func stationColumns(site inventory.Site, withProbability bool) []book.Column[stationRow] {
+	count := func(v assess.Verdict) func(stationRow) book.Cell {
+		return func(s stationRow) book.Cell { return book.Integer(s.Counts[v]) }
+	}
+	cols := []book.Column[stationRow]{
+		{Header: "Rank", Width: 6, Value: func(s stationRow) book.Cell { return book.Integer(s.Rank) }},
+		{Header: "Station", Width: 10, Value: func(s stationRow) book.Cell { return book.Text(s.Station.ID) }},
+		{Header: "Name", Width: 24, Value: func(s stationRow) book.Cell { return book.WrapText(s.Station.Name) }},
+		{Header: "Line", Width: 14, Value: func(s stationRow) book.Cell { return book.WrapText(s.Station.Line) }},
+		{Header: "Atmosphere", Width: 24, Value: func(s stationRow) book.Cell { return book.WrapText(atmosphereText(s.Atmosphere)) }},
+		{Header: book.UnitMJ.Header("MIE"), Width: 9, Value: func(s stationRow) book.Cell {
+			return est(book.Quantity(book.UnitMJ, atmosphereMIE(s.Atmosphere)), s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance)
+		}},
+		{Header: "Zone", Width: 7, Value: func(s stationRow) book.Cell {
+			if s.Atmosphere == nil {
+				return book.Cell{}
+			}
+			return book.Code(s.Atmosphere.Zone)
+		}},
+		{Header: "Group", Width: 7, Value: func(s stationRow) book.Cell {
+			if s.Atmosphere == nil {
+				return book.Cell{}
+			}
+			return book.Code(assess.GroupText(s.Atmosphere)) // as on Objects: the assessed group, "est." when assumed
+		}},
+		{Header: book.UnitPercentRH.Header("RH used"), Width: 9, Value: func(s stationRow) book.Cell {
+			if s.Station.RelativeHumidity.Known {
+				return inQ(book.UnitPercentRH, s.Station.RelativeHumidity)
+			}
+			// The station gives none: the site's RH is used (marked est.).
+			return est(inQ(book.UnitPercentRH, site.RelativeHumidity), true)
+		}},
+		{Header: "Verdict", Width: 14, Value: func(s stationRow) book.Cell { return verdictCell(s.Verdict) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s stationRow) book.Cell {
+			if s.WorstRatioAssumed {
+				return book.Text(assess.RatioAssumedText) // its size is an artefact of an assumed resistance
+			}
+			return ratioCell(book.FinitePtr(s.WorstRatio))
+		}},
+		{Header: "Objects [count]", Width: 9, Value: func(s stationRow) book.Cell { return book.Integer(len(s.Objects)) }},
+		{Header: "Incendive [count]", Width: 10, Value: count(assess.Incendive)},
+		{Header: "Marginal [count]", Width: 10, Value: count(assess.Marginal)},
+		{Header: "Non-incendive [count]", Width: 11, Value: count(assess.NonIncendive)},
+		{Header: "Not assessed [count]", Width: 10, Value: count(assess.NotAssessed)},
+		{Header: "Note", Width: 30, Value: func(s stationRow) book.Cell { return book.WrapText(strings.Join(s.Notes(), "; ")) }},
+	}
+	if withProbability {
+		cols = append(cols, book.Column[stationRow]{Header: book.UnitProbability.Header("P(any incendive)"), Width: 11, Value: func(s stationRow) book.Cell {
+			if s.ProbabilityAnyIncendive == nil {
+				return book.Cell{NumFmt: book.UnitProbability.NumFmt()}
+			}
+			return book.Quantity(book.UnitProbability, *s.ProbabilityAnyIncendive)
+		}})
+	}
+	return cols
+}
+
+// Column positions on the Stations sheet the Summary chart points at.
+const (
+	stationsIDCol    = "B"
+	stationsRatioCol = "K"
+)
+
+func (wb *workbook) stations() error {
+	rows := make([]stationRow, len(wb.a.Stations))
+	for i := range wb.a.Stations {
+		rows[i] = &wb.a.Stations[i]
+	}
+	wb.stationRows = len(rows) + 1
+	return tableSheetNormal(wb, SheetStations, stationColumns(wb.a.Survey.Site, anyProbability(wb.a)), rows)
+}
+
+// ---- Objects ----
+
+func (wb *workbook) objects() error {
+	cols := objectColumns(anyProbability(wb.a))
+	pagesWide := (len(cols) + 13) / 14 // about 14 columns a landscape page stays readable
+	return tableSheetStream(wb, SheetObjects, cols, len(wb.a.Objects),
+		func(i int) objRow { return &wb.a.Objects[i] }, pagesWide, "$A:$A", 1)
+}
+
+// ---- Findings ----
+
+type findingRow struct {
+	n int
+	f *assess.Finding
+}
+
+func findingColumns() []book.Column[findingRow] {
+	return []book.Column[findingRow]{
+		{Header: "#", Width: 5, Value: func(r findingRow) book.Cell { return book.Integer(r.n) }},
+		{Header: "Severity", Width: 12, Value: func(r findingRow) book.Cell { return verdictCell(r.f.Severity) }},
+		{Header: "Station", Width: 10, Value: func(r findingRow) book.Cell { return book.Code(r.f.StationID) }},
+		{Header: "Object", Width: 12, Value: func(r findingRow) book.Cell { return book.Code(r.f.ObjectID) }},
+		{Header: "Check", Width: 18, Value: func(r findingRow) book.Cell { return book.Text(r.f.Check) }},
+		{Header: "Finding", Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Message) }},
+		{Header: "Mitigation", Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Mitigation) }},
+		{Header: "Basis", Width: 40, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Basis) }},
+		{Header: "Action owner", Width: 14, Value: func(findingRow) book.Cell { return book.Cell{} }},
+		{Header: "Due", Width: 10, Value: func(findingRow) book.Cell { return book.Cell{} }},
+		{Header: "Status", Width: 10, Value: func(findingRow) book.Cell { return book.Cell{} }},
+	}
+}
+
+func (wb *workbook) findings() error {
+	return tableSheetStream(wb, SheetFindings, findingColumns(), len(wb.a.Findings),
+		func(i int) findingRow { return findingRow{i + 1, &wb.a.Findings[i]} }, 1, "", 0)
+}
+
+// ---- Cautions ----
+
+func (wb *workbook) cautions() error {
+	f, s := wb.f, SheetCautions
+	if err := book.SetWidths(f, s, []float64{5, 120}); err != nil {
+		return err
+	}
+	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
+	if err := sink.Header(1, []string{"#", "Caution"}); err != nil {
+		return err
+	}
+	for i, c := range templates.Cautions() {
+		r := i + 2
+		cells := []book.Cell{book.Integer(i + 1), book.WrapText(c)}
+		if err := sink.Row(r, cells, book.RowHeight([]float64{5, 120}, cells)); err != nil {
+			return err
+		}
+	}
+	if err := f.SetPanes(s, &excelize.Panes{Freeze: true, YSplit: 1, TopLeftCell: "A2", ActivePane: "bottomLeft"}); err != nil {
+		return err
+	}
+	return wb.printSetup(s, 1, "$1:$1", "")
+}
+
+// wrappedHeight returns the row height (points) of a wrapped text in a column
+// of the given width (characters).
+func wrappedHeight(s string, width float64) float64 {
+	return book.LineHeight*float64(book.WrappedLines(s, width)) + 2
+}
+
+// ---- Rejected ----
+
+type problemRow struct {
+	p      inventory.Problem
+	status string
+}
+
+func problemColumns() []book.Column[problemRow] {
+	return []book.Column[problemRow]{
+		{Header: "Severity", Width: 9, Value: func(r problemRow) book.Cell { return book.Code(r.p.Severity.String()) }},
+		{Header: "Row status", Width: 16, Value: func(r problemRow) book.Cell { return book.Text(r.status) }},
+		{Header: "Sheet", Width: 12, Value: func(r problemRow) book.Cell { return book.Text(r.p.Sheet) }},
+		{Header: "Row", Width: 6, Value: func(r problemRow) book.Cell {
+			if r.p.Row <= 0 {
+				return book.Cell{}
+			}
+			return book.Integer(r.p.Row)
+		}},
+		{Header: "Cell", Width: 14, Value: func(r problemRow) book.Cell { return book.Text(r.p.Cell()) }},
+		{Header: "Field", Width: 16, Value: func(r problemRow) book.Cell { return book.OptText(r.p.Field) }},
+		{Header: "ID", Width: 12, Value: func(r problemRow) book.Cell { return book.OptText(r.p.ID) }},
+		{Header: "Message", Width: 50, Value: func(r problemRow) book.Cell { return book.WrapText(r.p.Message) }},
+		{Header: "Fix", Width: 40, Value: func(r problemRow) book.Cell { return book.WrapText(r.p.Fix) }},
+	}
+}
+
+func problemKey(p inventory.Problem) string {
+	return fmt.Sprintf("%s\x00%d\x00%s\x00%s\x00%s", p.Sheet, p.Row, p.Column, p.Field, p.Message)
+}
+
+// problemRows lists every problem of every rejected row, then the sheet-level
+// errors not tied to a rejected row, then the warnings (rows still accepted).
+func problemRows(s *inventory.Survey) []problemRow {
+	var out []problemRow
+	seen := map[string]bool{}
+	for _, r := range s.Rejected {
+		for _, p := range r.Problems {
+			out = append(out, problemRow{p, "row rejected"})
+			seen[problemKey(p)] = true
+		}
+	}
+	for _, p := range s.Problems {
+		if p.Severity == inventory.Error && !seen[problemKey(p)] {
+			status := "sheet not read"
+			if p.Row > 0 {
+				status = "row rejected"
+			}
+			out = append(out, problemRow{p, status})
+		}
+	}
+	for _, p := range s.Problems {
+		if p.Severity == inventory.Warning {
+			out = append(out, problemRow{p, "row accepted"})
+		}
+	}
+	return out
+}
+
+func (wb *workbook) rejected() error {
+	return tableSheetNormal(wb, SheetRejected, problemColumns(), problemRows(wb.a.Survey))
+}
+
+// writeSheets writes the audit's sheets in dependency order (the Summary last,
+// since it reads the others' cell ranges); the Objects sheet only when
+// withObjects: the streaming writer has written it row by row already.
+func (wb *workbook) writeSheets(withObjects bool) error {
+	type step struct {
+		name string
+		fn   func() error
+	}
+	steps := []step{{SheetStations, wb.stations}}
+	if withObjects {
+		steps = append(steps, step{SheetObjects, wb.objects})
+	}
+	steps = append(steps,
+		step{SheetFindings, wb.findings},
+		step{SheetMethod, wb.method},
+		step{SheetCautions, wb.cautions},
+		step{SheetRejected, wb.rejected},
+		step{SheetSummary, wb.summary},
+	)
+	for _, s := range steps {
+		if err := s.fn(); err != nil {
+			return fmt.Errorf("write workbook: sheet %s: %w", s.name, err)
+		}
+	}
+	return nil
+}
+
+// setDocProps sets the audit's document properties, dated by the survey date
+// (not the clock), so the same survey gives the same file.
+func setDocProps(f *excelize.File, a *assess.Audit, info RunInfo) error {
+	d := surveyDate(a).Format("2006-01-02T15:04:05Z")
+	if err := f.SetDocProps(&excelize.DocProperties{
+		Creator:        info.tool() + " " + info.ToolVersion,
+		LastModifiedBy: info.tool(),
+		Created:        d,
+		Modified:       d,
+		Title:          "Electrostatic ignition screening audit: " + siteName(a),
+		Subject:        "Screening estimates; see the Cautions sheet",
+		Description:    "Survey " + info.file(a) + ", SHA-256 " + info.sha(a),
+		Language:       "en",
+	}); err != nil {
+		return fmt.Errorf("write workbook: document properties: %w", err)
+	}
+	return nil
+}

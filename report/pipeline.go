@@ -1,0 +1,292 @@
+package report
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"path/filepath"
+	"strings"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
+	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
+)
+
+// Progress hears how far a run has gone; a nil Progress hears nothing.
+type Progress interface {
+	Begin(label string) // a survey starts (label names it)
+	Set(objects int)    // objects assessed so far in that survey
+	End()               // the survey is done (or failed)
+}
+
+// Run is one assess run: where its temporary files go, the Monte Carlo
+// settings, what the Method sheet records, and where the terminal summary and
+// progress go. The zero value of every field but Workspace is usable.
+type Run struct {
+	Workspace   *Workspace
+	Samples     int    // Monte Carlo samples per object (0: point estimate only)
+	Seed        uint64 // Monte Carlo seed
+	Workers     int    // Monte Carlo workers (0: all cores)
+	Strict      bool   // any rejected row makes the run fail with Problems
+	ToolVersion string
+	CommandLine []string // the command as run, for the Method sheet
+	Out         io.Writer
+	ErrOut      io.Writer
+	Progress    Progress
+}
+
+// Info returns the run facts the outputs record for survey s.
+func (r *Run) Info(s *inventory.Survey) audit.RunInfo {
+	return audit.RunInfo{
+		ToolVersion:  r.ToolVersion,
+		SurveyFile:   filepath.Base(s.Path),
+		SurveySHA256: s.SHA256,
+		CommandLine:  strings.Join(r.CommandLine, " "),
+	}
+}
+
+func (r *Run) out() io.Writer {
+	if r.Out == nil {
+		return io.Discard
+	}
+	return r.Out
+}
+
+func (r *Run) errOut() io.Writer {
+	if r.ErrOut == nil {
+		return io.Discard
+	}
+	return r.ErrOut
+}
+
+func (r *Run) begin(label string) {
+	if r.Progress != nil {
+		r.Progress.Begin(label)
+	}
+}
+
+func (r *Run) set(n int) {
+	if r.Progress != nil {
+		r.Progress.Set(n)
+	}
+}
+
+func (r *Run) end() {
+	if r.Progress != nil {
+		r.Progress.End()
+	}
+}
+
+// Outputs names the files of one survey's audit: the workbook (required) and
+// the JSON (optional).
+type Outputs struct {
+	Workbook string
+	JSON     string
+}
+
+// streamBatch is the number of objects assessed (and sampled in parallel) at a time.
+const streamBatch = assess.AssessBatch
+
+// AssessFile reads, assesses and writes one survey in one pass: objects
+// are read row by row (inventory.StreamFile), assessed in batches
+// (assess.Streamer), and each batch's rows go straight to the audit
+// workbook's Objects sheet and the JSON (audit.WorkbookWriter,
+// audit.JSONWriter); only the station aggregates, findings and problems are
+// kept. The workbook and the JSON are renamed into place together. A failure
+// is an *Error of class Unusable.
+func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) {
+	if err := RequireRegular(path); err != nil {
+		r.end()
+		return nil, err
+	}
+	var (
+		st    *assess.Streamer
+		ww    *audit.WorkbookWriter
+		jw    *audit.JSONWriter
+		batch = make([]inventory.Object, 0, streamBatch)
+	)
+	defer func() {
+		r.end()
+		if ww != nil {
+			_ = ww.Close()
+		}
+		if jw != nil {
+			_ = jw.Close()
+		}
+	}()
+	flush := func() error {
+		rs := st.Add(batch)
+		batch = batch[:0]
+		if err := ww.Add(rs); err != nil {
+			return err
+		}
+		if jw != nil {
+			if err := jw.Add(rs); err != nil {
+				return err
+			}
+		}
+		r.set(st.Objects())
+		return nil
+	}
+	tmp, err := r.Workspace.Dir()
+	if err != nil {
+		return nil, unusable(err)
+	}
+	s, err := inventory.StreamFile(path, inventory.ReadOptions{TmpDir: tmp}, func(s *inventory.Survey) error {
+		lim := assess.LimitsFromSite(s.Site, model.DefaultLimits())
+		unc := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
+		st = assess.NewStreamer(s, assess.Options{Limits: lim, Samples: r.Samples, Seed: r.Seed, Workers: r.Workers, Uncertainties: unc})
+		var err error
+		if ww, err = audit.NewWorkbookWriter(s, r.Info(s), r.Samples > 0, tmp); err != nil {
+			return err
+		}
+		if out.JSON != "" {
+			if jw, err = audit.NewJSONWriter(tmp); err != nil {
+				return err
+			}
+		}
+		return nil
+	}, func(obj inventory.Object) error {
+		batch = append(batch, obj)
+		if len(batch) == streamBatch {
+			return flush()
+		}
+		return nil
+	})
+	if err != nil {
+		if errors.Is(err, inventory.ErrUnreadable) {
+			return nil, unusable(err)
+		}
+		return nil, unusable(fmt.Errorf("assessing %s: %w", path, err))
+	}
+	if err := flush(); err != nil {
+		return nil, unusable(fmt.Errorf("assessing %s: %w", path, err))
+	}
+	a = st.Finish()
+	a.Survey = s
+	// The workbook and the JSON are each written whole, then renamed into
+	// place together; the JSON records the workbook's name and SHA-256, so
+	// that a pair one of whose renames a kill prevented is told apart.
+	info := r.Info(s)
+	pw, err := r.Workspace.Prepare(out.Workbook, func(w io.Writer) error { return ww.Finish(a, w) })
+	if err != nil {
+		return nil, unusable(fmt.Errorf("writing the audit workbook: %w", err))
+	}
+	var pj *Pending
+	if out.JSON != "" {
+		info.Workbook, info.WorkbookSHA256 = filepath.Base(out.Workbook), pw.SHA256()
+		if pj, err = r.Workspace.Prepare(out.JSON, func(w io.Writer) error { return jw.Finish(a, info, w) }); err != nil {
+			r.Workspace.Discard(pw)
+			return nil, unusable(fmt.Errorf("writing the audit JSON: %w", err))
+		}
+	}
+	if err := r.Workspace.Commit(pw, pj); err != nil {
+		return nil, unusable(fmt.Errorf("writing the audit: %w", err))
+	}
+	return a, nil
+}
+
+// ObjectCount is the number of objects an audit judged.
+func ObjectCount(a *assess.Audit) int {
+	n := 0
+	for _, c := range a.Counts {
+		n += c
+	}
+	return n
+}
+
+// PortfolioFiles names the portfolio's outputs; an empty name is not written.
+type PortfolioFiles struct {
+	Workbook string
+	JSON     string
+}
+
+// AssessOne assesses one survey to out, prints its summary, writes the
+// portfolio when pf names a file, and fails with Problems when nothing could
+// be assessed or, under Strict, a row was rejected.
+func (r *Run) AssessOne(survey string, out Outputs, pf PortfolioFiles) error {
+	if err := RefuseClashes([]NamedPath{{"the survey", survey}},
+		[]NamedPath{{"the audit workbook", out.Workbook}, {"--json", out.JSON}, {"--portfolio", pf.Workbook}, {"--portfolio-json", pf.JSON}}); err != nil {
+		return err
+	}
+	r.begin(filepath.Base(survey))
+	a, err := r.AssessFile(survey, out)
+	if err != nil {
+		return err
+	}
+	r.printAudit(a, out)
+	if pf.Workbook != "" || pf.JSON != "" {
+		p := audit.Portfolio{Surveys: []audit.PortfolioSurvey{audit.PortfolioEntry(a, filepath.Base(survey), out.Workbook)}}
+		if err := r.WritePortfolio(p, r.Info(a.Survey), pf); err != nil {
+			return err
+		}
+	}
+	switch {
+	case ObjectCount(a) == 0:
+		return problems(fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", survey, survey))
+	case RejectedObjects(a.Survey) > 0:
+		return problems(fmt.Errorf("%d object row(s) were rejected: the audit is written, but the stations marked incomplete are ranked without them; see the Rejected sheet", RejectedObjects(a.Survey)))
+	case r.Strict && len(a.Survey.Rejected) > 0:
+		return problems(fmt.Errorf("--strict: %d row(s) were rejected; see the Rejected sheet", len(a.Survey.Rejected)))
+	}
+	return nil
+}
+
+// RejectedObjects counts the rejected Objects rows: an object not assessed is
+// a hazard the audit does not cover, so assess exits 1 (the audit is still
+// written, its stations marked incomplete).
+func RejectedObjects(s *inventory.Survey) int {
+	n := 0
+	for _, r := range s.Rejected {
+		if r.Sheet == inventory.SheetObjects {
+			n++
+		}
+	}
+	return n
+}
+
+// printAudit writes the terminal summary of a and the files written.
+func (r *Run) printAudit(a *assess.Audit, out Outputs) {
+	w := r.out()
+	audit.WriteSummary(w, a)
+	fmt.Fprintf(w, "\nAudit workbook: %s\n", out.Workbook)
+	if out.JSON != "" {
+		fmt.Fprintf(w, "Audit JSON:     %s\n", out.JSON)
+	}
+}
+
+// WritePortfolio writes the portfolio workbook and, when pf.JSON is set, its
+// JSON, renamed into place together.
+func (r *Run) WritePortfolio(p audit.Portfolio, info audit.RunInfo, pf PortfolioFiles) error {
+	ws := r.Workspace
+	var pw, pj *Pending
+	var err error
+	if info.TmpDir, err = ws.Dir(); err != nil {
+		return unusable(err)
+	}
+	if pf.Workbook != "" {
+		if pw, err = ws.Prepare(pf.Workbook, func(w io.Writer) error { return audit.WritePortfolio(w, p, info) }); err != nil {
+			return unusable(fmt.Errorf("writing the portfolio workbook: %w", err))
+		}
+	}
+	if pf.JSON != "" {
+		if pw != nil {
+			info.Workbook, info.WorkbookSHA256 = filepath.Base(pf.Workbook), pw.SHA256()
+		}
+		if pj, err = ws.Prepare(pf.JSON, func(w io.Writer) error { return audit.WritePortfolioJSON(w, p, info) }); err != nil {
+			ws.Discard(pw)
+			return unusable(fmt.Errorf("writing the portfolio JSON: %w", err))
+		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return unusable(fmt.Errorf("writing the portfolio: %w", err))
+	}
+	if pf.Workbook != "" {
+		fmt.Fprintf(r.out(), "Portfolio workbook: %s (%d site(s) ranked)\n", pf.Workbook, len(p.Surveys))
+	}
+	if pf.JSON != "" {
+		fmt.Fprintf(r.out(), "Portfolio JSON:     %s\n", pf.JSON)
+	}
+	return nil
+}
