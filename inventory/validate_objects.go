@@ -21,10 +21,10 @@ func KindRequirements() []KindRequirement {
 		{KindSheet, "Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed; a Surface potential alone also needs Backing earthed or Distance to earth (a warning)"},
 		{KindBelt, "as sheet (Speed optional: it gives the charging current)"},
 		{KindRoller, "Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth"},
-		{KindContainer, "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or Resistance to earth; with only a Resistance above 1 Mohm, a warning that the spark is not evaluated"},
+		{KindContainer, "nothing beyond Kind and Station; Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) and Resistance to earth are used when given; with no reading and no charging, a warning: the spark is not evaluated and the earthing is judged (a blank Resistance taken as not earthed)"},
 		{KindPart, "as container"},
-		{KindPerson, "Surface potential or Resistance to earth"},
-		{KindPowder, "Mass flow, Diameter (silo or container) and Particle size; Charge-to-mass optional"},
+		{KindPerson, "nothing beyond Kind and Station; with neither Surface potential nor Resistance to earth, a warning: taken as not earthed, the body potential estimated from walking (capped at the person maximum)"},
+		{KindPowder, "nothing beyond Kind and Station; Mass flow, Diameter (silo or container) and Particle size blank are each a warning (the brush of the charged powder is counted whatever the flow; the cone discharge is not evaluated without Diameter and Particle size); Charge-to-mass optional"},
 		{KindLiquid, "Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid)"},
 		{KindBag, "a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
 	}
@@ -274,8 +274,13 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		// A conductor's potential comes from a Surface potential or from its
 		// charging; a field reading near a conductor does not give it.
 		charging := (given("Mass flow", o.MassFlow) && given("Charge-to-mass", o.ChargeToMass)) || given("Charging current", o.ChargingCurrent)
+		// Unknown means the stricter case (principle 2): with neither a reading, a
+		// charging nor a resistance the conductor is assessed as not earthed (its
+		// earthing is judged) and its spark is not evaluated, as with a measured
+		// resistance above the limit; no charging current is invented.
 		if !given("Surface potential", o.SurfacePotential) && !charging && !given("Resistance to earth", o.Resistance) {
-			need = append(need, "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or its Resistance to earth")
+			f.warnf("Resistance to earth", nil, "measure its Resistance to earth, and its Surface potential in operation or its Charging current (or Mass flow and Charge-to-mass)",
+				"%s: no reading, no charging and no Resistance to earth on the row: assessed as not earthed (its earthing is judged); its spark is not evaluated", who)
 		}
 		if !given("Surface potential", o.SurfacePotential) && !charging && o.Resistance.Known && o.Resistance.Value > ConductorEarthingLimit {
 			f.warnf("Resistance to earth", nil, "measure its Surface potential in operation, or its Charging current (or Mass flow and Charge-to-mass)",
@@ -283,16 +288,30 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		}
 	case KindPerson:
 		if !given("Surface potential", o.SurfacePotential) && !given("Resistance to earth", o.Resistance) {
-			need = append(need, "Surface potential or Resistance to earth")
+			// Unknown means the stricter case (principle 2): unknown footwear and floor are not earthed.
+			f.warnf("Resistance to earth", nil, "measure the person's Resistance to earth (footwear and floor) and the body potential in operation",
+				"%s: neither a Surface potential nor a Resistance to earth: assessed as not earthed (no leakage; the person-earthing requirement is judged where it applies), the body potential estimated from walking and capped at the person maximum, marked as resting on the assumed resistance", who)
 		}
 	case KindPowder:
+		// The brush discharges of the charged powder do not need these (they are
+		// counted whatever the flow); the cone discharge needs Diameter and Particle
+		// size and is not evaluated without them (principle 2: the row is kept).
+		var blank []string
 		for _, n := range []struct {
 			name string
 			q    Quantity
 		}{{"Mass flow", o.MassFlow}, {"Diameter", o.Diameter}, {"Particle size", o.ParticleSize}} {
 			if !given(n.name, n.q) {
-				need = append(need, n.name)
+				blank = append(blank, n.name)
 			}
+		}
+		if len(blank) > 0 {
+			cone := "the cone discharge is evaluated from Diameter and Particle size"
+			if !given("Diameter", o.Diameter) || !given("Particle size", o.ParticleSize) {
+				cone = "the cone discharge is not evaluated without Diameter and Particle size"
+			}
+			f.warnf(blank[0], nil, "measure and enter "+joinAnd(blank)+" (Diameter: silo or container; Particle size: median)",
+				"%s: no %s: assessed without; the brush discharges of the charged powder are counted whatever the flow, %s", who, joinAnd(blank), cone)
 		}
 	case KindLiquid:
 		for _, n := range []struct {

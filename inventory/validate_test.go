@@ -81,8 +81,10 @@ func TestValidationRules(t *testing.T) {
 		reject string // "Objects!7": the row must be rejected
 	}{
 		// per-kind requirements
-		{name: "person needs potential or resistance", mut: func(b utBook) utBook { return b.set(SheetObjects, "OP-1", "Resistance to earth", nil) },
-			cell: "Objects!A7", errIs: ErrRequired, msgHas: "person OP-1: needs Surface potential or Resistance to earth", reject: "Objects!7"},
+		// Unknown means the stricter case (principle 2; review 2 item N5): a person with
+		// neither a reading nor a resistance is kept, taken as not earthed, with a warning.
+		{name: "person without potential or resistance is kept", mut: func(b utBook) utBook { return b.set(SheetObjects, "OP-1", "Resistance to earth", nil) },
+			cell: "Objects!U7", sev: Warning, msgHas: "person OP-1: neither a Surface potential nor a Resistance to earth: assessed as not earthed", fixHas: "Resistance to earth"},
 		{name: "sheet needs length and width", mut: func(b utBook) utBook {
 			return b.set(SheetObjects, "W-1", "Length", nil).set(SheetObjects, "W-1", "Width", nil)
 		}, cell: "Objects!A2", errIs: ErrRequired, msgHas: "needs Length and Width", reject: "Objects!2"},
@@ -97,14 +99,16 @@ func TestValidationRules(t *testing.T) {
 			cell: "Objects!A3", errIs: ErrRequired, msgHas: "belt B-1: needs Width", reject: "Objects!3"},
 		{name: "roller needs diameter", mut: func(b utBook) utBook { return b.set(SheetObjects, "R-1", "Diameter", nil) },
 			cell: "Objects!A4", errIs: ErrRequired, msgHas: "needs Diameter", reject: "Objects!4"},
-		{name: "container needs reading or charging", mut: func(b utBook) utBook { return b.set(SheetObjects, "C-1", "Charge-to-mass", nil) },
-			cell: "Objects!A5", errIs: ErrRequired, msgHas: "its charging", reject: "Objects!5"},
-		{name: "part needs potential or current", mut: func(b utBook) utBook { return b.set(SheetObjects, "P-1", "Charging current", nil) },
-			cell: "Objects!A6", errIs: ErrRequired, msgHas: "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or its Resistance to earth", reject: "Objects!6"},
+		// An isolated conductor with nothing on its row is kept (review 2 item N2): not
+		// measuring the resistance must not be milder than measuring 1e12 ohm.
+		{name: "container without reading, charging or resistance is kept", mut: func(b utBook) utBook { return b.set(SheetObjects, "C-1", "Charge-to-mass", nil) },
+			cell: "Objects!U5", sev: Warning, msgHas: "assessed as not earthed (its earthing is judged); its spark is not evaluated", fixHas: "Resistance to earth"},
+		{name: "part without potential, current or resistance is kept", mut: func(b utBook) utBook { return b.set(SheetObjects, "P-1", "Charging current", nil) },
+			cell: "Objects!U6", sev: Warning, msgHas: "part P-1: no reading, no charging and no Resistance to earth", fixHas: "Charging current"},
 		// check names what assess needs (issue 11): a field reading gives no conductor potential,
 		{name: "container field alone is no potential", mut: func(b utBook) utBook {
 			return b.set(SheetObjects, "C-1", "Charge-to-mass", nil).set(SheetObjects, "C-1", "Mass flow", nil).set(SheetObjects, "C-1", "Field", 50).set(SheetObjects, "C-1", "Field distance", 0.1)
-		}, cell: "Objects!A5", errIs: ErrRequired, msgHas: "its charging", reject: "Objects!5"},
+		}, cell: "Objects!U5", sev: Warning, msgHas: "no reading, no charging"},
 		// a conductor with only a resistance above 1 Mohm is judged on its earthing alone,
 		{name: "part with only a high resistance warns", mut: func(b utBook) utBook {
 			return b.set(SheetObjects, "P-1", "Charging current", nil).set(SheetObjects, "P-1", "Resistance to earth", "1e9")
@@ -112,8 +116,13 @@ func TestValidationRules(t *testing.T) {
 		// and a surface potential on a free surface gives no charge density.
 		{name: "free belt potential needs backing or distance", mut: func(b utBook) utBook { return b.set(SheetObjects, "B-1", "Distance to earth", nil) },
 			cell: "Objects!N3", sev: Warning, errIs: ErrRequired, msgHas: "needs Backing earthed with Thickness, or Distance to earth"},
-		{name: "powder needs particle size", mut: func(b utBook) utBook { return b.set(SheetObjects, "PW-1", "Particle size", nil) },
-			cell: "Objects!A8", errIs: ErrRequired, msgHas: "needs Particle size", reject: "Objects!8"},
+		// Powder with its sizes or flow blank is kept (review 2 item N5): its brush is
+		// counted whatever the flow, the cone is not evaluated without its sizes.
+		{name: "powder without particle size is kept", mut: func(b utBook) utBook { return b.set(SheetObjects, "PW-1", "Particle size", nil) },
+			cell: "Objects!T8", sev: Warning, msgHas: "no Particle size: assessed without", fixHas: "Particle size"},
+		{name: "powder with only its kind is kept", mut: func(b utBook) utBook {
+			return b.set(SheetObjects, "PW-1", "Particle size", nil).set(SheetObjects, "PW-1", "Diameter", nil).set(SheetObjects, "PW-1", "Mass flow", nil).set(SheetObjects, "PW-1", "Charge-to-mass", nil)
+		}, cell: "", sev: Warning},
 		{name: "liquid needs conductivity", mut: func(b utBook) utBook { return b.set(SheetObjects, "L-1", "Conductivity", nil) },
 			cell: "Objects!W9", sev: Warning, errIs: ErrRequired, msgHas: "stricter case"}, // review item 5: assessed, not rejected
 		{name: "bag without type is a warning", mut: func(b utBook) utBook { return b.set(SheetObjects, "BG-1", "Bag type", nil) },
@@ -273,6 +282,9 @@ func TestValidationRules(t *testing.T) {
 					t.Fatalf("unexpected errors:\n%s", utDump(s))
 				}
 				return
+			}
+			if tc.sev == Warning && len(s.Errors()) != 0 {
+				t.Fatalf("a warning case must keep the row; errors:\n%s", utDump(s))
 			}
 			found := false
 			for _, p := range utProblemsAt(s, tc.cell) {
@@ -479,7 +491,7 @@ func TestProblemsSorted(t *testing.T) {
 	b := utValidBook().
 		set(SheetObjects, "W-1", "Width", 0).
 		set(SheetObjects, "W-1", "Length", "x").
-		set(SheetObjects, "OP-1", "Resistance to earth", nil).
+		set(SheetObjects, "OP-1", "Resistance to earth", nil). // a warning at U7 (person kept)
 		set(SheetStations, "ST-3", "Relative humidity", 200)
 	b[0].Rows[4][1] = 300
 	s := utReadBook(t, b)
@@ -487,7 +499,7 @@ func TestProblemsSorted(t *testing.T) {
 	for _, p := range s.Problems {
 		got = append(got, p.Cell())
 	}
-	want := []string{"Site!B5", "Stations!E4", "Objects!F2", "Objects!G2", "Objects!A7"}
+	want := []string{"Site!B5", "Stations!E4", "Objects!F2", "Objects!G2", "Objects!U7"}
 	if strings.Join(got, " ") != strings.Join(want, " ") {
 		t.Errorf("order %v, want %v", got, want)
 	}
