@@ -14,12 +14,26 @@ import (
 // summaryWidths are the Summary column widths: A labels, A-J the ranked stations table.
 func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10, 11, 10} }
 
+// summaryNoteWidth is the width of the station table's Note column (K), present
+// only when a station is incomplete.
+const summaryNoteWidth = 24
+
 // summary writes the Summary sheet: identity, counts by verdict, rows read,
 // the ranked stations, the chart of worst ratios and the cautions in short.
 func (wb *workbook) summary() error {
 	f, s, a := wb.f, SheetSummary, wb.a
 	site := a.Survey.Site
-	if err := book.SetWidths(f, s, summaryWidths()); err != nil {
+	// A Note column (K) on the station table only when a station is incomplete
+	// (object rows naming it rejected), as on the Stations sheet and the terminal.
+	incomplete := false
+	for i := range a.Stations {
+		incomplete = incomplete || a.Stations[i].IncompleteText() != ""
+	}
+	widths := summaryWidths()
+	if incomplete {
+		widths = append(widths, summaryNoteWidth)
+	}
+	if err := book.SetWidths(f, s, widths); err != nil {
 		return err
 	}
 	sink := book.NormalSink{F: f, Sheet: s, St: wb.st}
@@ -137,8 +151,12 @@ func (wb *workbook) summary() error {
 		return err
 	}
 	r++
-	if err := sink.Header(r, []string{"Station", "Rank", "Name", "Verdict", book.UnitRatio.Header("Worst ratio E/MIE"),
-		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}); err != nil {
+	header := []string{"Station", "Rank", "Name", "Verdict", book.UnitRatio.Header("Worst ratio E/MIE"),
+		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}
+	if incomplete {
+		header = append(header, "Note")
+	}
+	if err := sink.Header(r, header); err != nil {
 		return err
 	}
 	if err := f.SetRowHeight(s, r, 30); err != nil {
@@ -151,12 +169,20 @@ func (wb *workbook) summary() error {
 		if st.WorstRatioAssumed {
 			ratio = book.Text(assess.RatioAssumedText) // an artefact of an assumed resistance
 		}
-		if err := sink.Row(r, []book.Cell{
+		cells := []book.Cell{
 			book.BoldText(st.Station.ID), book.Integer(st.Rank), book.WrapText(st.Station.Name), verdictCell(st.Verdict),
 			ratio, book.Integer(len(st.Objects)),
 			book.Integer(st.Counts[assess.Incendive]), book.Integer(st.Counts[assess.Marginal]),
 			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]),
-		}, book.RowHeight(summaryWidths(), []book.Cell{{}, {}, book.WrapText(st.Station.Name)})); err != nil {
+		}
+		sized := []book.Cell{{}, {}, book.WrapText(st.Station.Name)}
+		if incomplete {
+			note := book.WrapText(st.IncompleteText())
+			cells = append(cells, note)
+			sized = append(sized, make([]book.Cell, len(cells)-len(sized)-1)...)
+			sized = append(sized, note)
+		}
+		if err := sink.Row(r, cells, book.RowHeight(widths, sized)); err != nil {
 			return err
 		}
 		r++

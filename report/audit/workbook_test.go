@@ -388,3 +388,40 @@ func TestWorkbookMethod(t *testing.T) {
 		t.Errorf("Cautions sheet %v", cautions)
 	}
 }
+
+// TestSummaryIncompleteMark: the Summary sheet's station table marks a station
+// whose object rows were rejected, as the Stations sheet and the terminal do
+// (review 2 item N11, first review item 6); with no station incomplete it has no
+// Note column.
+func TestSummaryIncompleteMark(t *testing.T) {
+	const mark = "incomplete: 2 object rows rejected, see Rejected"
+	for _, rejected := range []int{0, 2} {
+		a := testAudit()
+		a.Stations[0].RejectedRows = rejected
+		var b bytes.Buffer
+		if err := WriteWorkbook(&b, a, testInfo()); err != nil {
+			t.Fatal(err)
+		}
+		rows := rowsOf(t, openWorkbook(t, b.Bytes()), SheetSummary)
+		header, station := -1, -1
+		for i, r := range rows {
+			if len(r) > 1 && r[0] == "Station" && r[1] == "Rank" {
+				header = i
+			}
+			if header >= 0 && i > header && len(r) > 0 && r[0] == a.Stations[0].Station.ID {
+				station = i
+				break
+			}
+		}
+		if header < 0 || station < 0 {
+			t.Fatalf("Summary has no station table for %s:\n%v", a.Stations[0].Station.ID, rows)
+		}
+		hasNote := len(rows[header]) > 10 && rows[header][10] == "Note"
+		switch {
+		case rejected == 0 && hasNote:
+			t.Errorf("no station incomplete, yet a Note column: %v", rows[header])
+		case rejected > 0 && (!hasNote || len(rows[station]) <= 10 || rows[station][10] != mark):
+			t.Errorf("incomplete station row %v under header %v; want Note %q", rows[station], rows[header], mark)
+		}
+	}
+}
