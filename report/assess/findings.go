@@ -308,7 +308,12 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 			s += fmt.Sprintf("; %d further findings", n)
 		}
 		if c.Cause != CauseNone && causeText != "" {
-			s += "; the discharge energy was not assessed (" + causeText + ")"
+			if !math.IsNaN(c.Ratio) {
+				// The energy finding rests on the discharges evaluated: a lower bound.
+				s += "; a lower bound: not every discharge was evaluated (" + causeText + ")"
+			} else {
+				s += "; the discharge energy was not assessed (" + causeText + ")"
+			}
 		}
 		return s + "."
 	}

@@ -99,6 +99,10 @@ func TestReview2PowderKindOnlyIntoVapour(t *testing.T) {
 		t.Fatalf("verdict %v, findings %v, ratio %v; want incendive on the brush", r.Verdict, checks(r), r.Ratio)
 	}
 	wantRel(t, "ratio", *r.Ratio, 4.0/0.24)
+	// The reason states the ratio as a lower bound, not "energy not assessed" beside a ratio.
+	if !strings.Contains(r.Reason, "a lower bound: not every discharge was evaluated") || strings.Contains(r.Reason, "the discharge energy was not assessed") {
+		t.Errorf("reason %q", r.Reason)
+	}
 	if r.Eval.NotAssessed&model.MissingConeSize == 0 {
 		t.Errorf("cone %s: want not evaluated for want of its sizes", r.Eval.Discharges[model.Cone].Reason())
 	}
