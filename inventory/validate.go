@@ -1148,17 +1148,11 @@ type KindRequirement struct {
 // KindRequirements returns the per-kind requirements validation applies, for
 // the README and the check command.
 func KindRequirements() []KindRequirement {
-	return []KindRequirement{
-		{KindSheet, "Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed; a Surface potential alone also needs Backing earthed or Distance to earth (a warning)"},
-		{KindBelt, "as sheet (Speed optional: it gives the charging current)"},
-		{KindRoller, "Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth"},
-		{KindContainer, "Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) or Resistance to earth; with only a Resistance above 1 Mohm, a warning that the spark is not evaluated"},
-		{KindPart, "as container"},
-		{KindPerson, "Surface potential or Resistance to earth"},
-		{KindPowder, "Mass flow, Diameter (silo or container) and Particle size; Charge-to-mass optional"},
-		{KindLiquid, "Speed (flow velocity), Diameter (line inner diameter) and Conductivity"},
-		{KindBag, "a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
+	out := make([]KindRequirement, len(kindNeedTable))
+	for i, k := range kindNeedTable {
+		out[i] = KindRequirement{Kind: k.Kind, Needs: k.Summary}
 	}
+	return out
 }
 
 func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
@@ -1361,14 +1355,15 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 	reading := (given("Field", o.Field) && given("Field distance", o.FieldDistance)) || given("Surface potential", o.SurfacePotential)
 	const readingText = "a reading (Field with Field distance, or Surface potential)"
 	var need []string
+	// The plain requirements come from the one table (kindNeedTable); the
+	// alternatives and conditions below are the table's "one of" and "if" columns.
+	for _, name := range kindRequiredColumns(o.Kind) {
+		if !given(name, objectQuantity(o, name)) {
+			need = append(need, name)
+		}
+	}
 	switch o.Kind {
 	case KindSheet, KindBelt:
-		if !given("Length", o.Length) {
-			need = append(need, "Length")
-		}
-		if !given("Width", o.Width) {
-			need = append(need, "Width")
-		}
 		// A conductive or dissipative layer with a measured resistance to earth is
 		// judged on its earthing; an insulating one needs a reading.
 		m, known := v.s.Material(o.Material)
@@ -1385,9 +1380,6 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		}
 		potentialGeometryNeed(f, o, who, given)
 	case KindRoller:
-		if !given("Diameter", o.Diameter) {
-			need = append(need, "Diameter")
-		}
 		if !reading && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "a reading (Field with Field distance, or Surface potential) or its Resistance to earth")
 		}
@@ -1409,24 +1401,6 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		if !given("Surface potential", o.SurfacePotential) && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "Surface potential or Resistance to earth")
 		}
-	case KindPowder:
-		for _, n := range []struct {
-			name string
-			q    Quantity
-		}{{"Mass flow", o.MassFlow}, {"Diameter", o.Diameter}, {"Particle size", o.ParticleSize}} {
-			if !given(n.name, n.q) {
-				need = append(need, n.name)
-			}
-		}
-	case KindLiquid:
-		for _, n := range []struct {
-			name string
-			q    Quantity
-		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}, {"Conductivity", o.Conductivity}} {
-			if !given(n.name, n.q) {
-				need = append(need, n.name)
-			}
-		}
 	}
 	if len(need) == 0 {
 		return
@@ -1435,6 +1409,28 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 	f.st.probs = append(f.st.probs, Problem{Sheet: f.t.Sheet, Row: f.rr.Row, Column: f.idLetter(), ID: o.ID, Severity: Error, Err: ErrRequired,
 		Message: fmt.Sprintf("%s: needs %s", who, joinAnd(need)),
 		Fix:     "measure and enter them, or delete the row if the object is not part of the survey"})
+}
+
+// objectQuantity is the quantity of o in the Objects column name; a zero
+// Quantity for a column that is not a quantity (its cell text decides then).
+func objectQuantity(o *Object, name string) Quantity {
+	switch name {
+	case "Length":
+		return o.Length
+	case "Width":
+		return o.Width
+	case "Diameter":
+		return o.Diameter
+	case "Mass flow":
+		return o.MassFlow
+	case "Particle size":
+		return o.ParticleSize
+	case "Speed":
+		return o.Speed
+	case "Conductivity":
+		return o.Conductivity
+	}
+	return Quantity{}
 }
 
 // ConductorEarthingLimit is the resistance to earth (ohm) above which check
