@@ -546,11 +546,20 @@ func writeKindNeedsSheet(f *excelize.File, st sheetStyles) error {
 	if err := f.SetCellStyle(s, "A1", last+"1", st.header); err != nil {
 		return err
 	}
-	req, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillRequired}}, Font: &excelize.Font{Bold: true}})
+	top := &excelize.Alignment{Vertical: "top"}
+	req, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillRequired}}, Font: &excelize.Font{Bold: true}, Alignment: top})
 	if err != nil {
 		return err
 	}
-	one, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillOneOf}}})
+	one, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillOneOf}}, Alignment: top})
+	if err != nil {
+		return err
+	}
+	plain, err := f.NewStyle(&excelize.Style{Alignment: top})
+	if err != nil {
+		return err
+	}
+	kindStyle, err := f.NewStyle(&excelize.Style{Font: &excelize.Font{Bold: true}, Alignment: top})
 	if err != nil {
 		return err
 	}
@@ -564,7 +573,10 @@ func writeKindNeedsSheet(f *excelize.File, st sheetStyles) error {
 		if err := f.SetSheetRow(s, fmt.Sprintf("A%d", row), &vals); err != nil {
 			return err
 		}
-		if err := f.SetCellStyle(s, fmt.Sprintf("A%d", row), fmt.Sprintf("A%d", row), st.title); err != nil {
+		if err := f.SetCellStyle(s, fmt.Sprintf("A%d", row), fmt.Sprintf("A%d", row), kindStyle); err != nil {
+			return err
+		}
+		if err := f.SetCellStyle(s, fmt.Sprintf("B%d", row), fmt.Sprintf("%s%d", last, row), plain); err != nil {
 			return err
 		}
 		for j, c := range cols {
@@ -613,7 +625,11 @@ func writeKindNeedsSheet(f *excelize.File, st sheetStyles) error {
 		if err != nil {
 			return err
 		}
-		if err := f.SetColWidth(s, col, col, max(9, float64(len(c.Name))/2+2)); err != nil {
+		w := max(9, float64(len(c.Name))/2+2)
+		for _, word := range strings.Fields(c.Name) {
+			w = max(w, float64(len([]rune(word)))+3) // never break a word
+		}
+		if err := f.SetColWidth(s, col, col, w); err != nil {
 			return err
 		}
 	}
