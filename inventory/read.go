@@ -342,7 +342,8 @@ type reader struct {
 // helperSheets are sheet names a template or a spreadsheet program may add that
 // are not survey data; they are ignored without a warning.
 func helperSheets() map[string]bool {
-	return map[string]bool{"lists": true, "help": true, "read me": true, "readme": true, "instructions": true, "about": true}
+	return map[string]bool{"lists": true, "help": true, "read me": true, "readme": true, "instructions": true, "about": true,
+		NormalizeName(SheetKindNeeds): true} // the template's help sheet
 }
 
 func (r *reader) read() *Survey {

@@ -13,9 +13,25 @@ import (
 // drop-down lists. It is not part of the survey contract: the reader ignores it.
 const SheetLists = "Lists"
 
+// SheetKindNeeds is the template's help sheet: object kinds as rows, the
+// Objects columns they need as columns. It is not part of the survey contract:
+// the reader ignores it.
+const SheetKindNeeds = "What each kind needs"
+
 // TemplateRows is how many data rows of each table sheet get the template's
-// drop-down lists and input hints.
-const TemplateRows = 500
+// drop-down lists, input hints and highlights: every row a sheet can hold
+// below its header (rows 2 to 1,048,576). A data validation or conditional
+// format names its range once, so the whole column costs no more than 500 rows.
+const TemplateRows = excelize.TotalRows - 1
+
+// Fills of the Objects sheet's per-kind highlight. Pale blues, chosen to be
+// unlike any verdict colour of the audit (red, amber, green, grey) so that a
+// highlighted cell is never read as a judgement: darker for a column the
+// row's kind requires, lighter for one of its alternatives.
+const (
+	fillRequired = "BDD7EE"
+	fillOneOf    = "DDEBF7"
+)
 
 // fixedWorkbookTime is the creation and modification time written into the
 // document properties of every workbook this package writes, so that the same
@@ -46,6 +62,9 @@ type TemplateOptions struct {
 // drop-down lists, frozen header rows and bold headers. The Site sheet is
 // pre-filled with its items, values left empty, and carries the cautions in
 // column D below the items. The drop-down values live on the hidden Lists sheet.
+// Hints and drop-downs cover every row a sheet can hold (TemplateRows). The
+// "What each kind needs" sheet and the Objects sheet's per-kind highlight of
+// needed cells are drawn from kindNeedTable, the table check's per-kind needs use.
 // The output is deterministic: the same options give the same bytes.
 func WriteTemplate(w io.Writer, opts TemplateOptions) error {
 	f := excelize.NewFile()
@@ -76,6 +95,9 @@ func writeTemplate(f *excelize.File, opts TemplateOptions) error {
 			return err
 		}
 	}
+	if _, err := f.NewSheet(SheetKindNeeds); err != nil {
+		return err
+	}
 	if _, err := f.NewSheet(SheetLists); err != nil {
 		return err
 	}
@@ -90,6 +112,12 @@ func writeTemplate(f *excelize.File, opts TemplateOptions) error {
 		if err := writeTableTemplate(f, st, s, lists); err != nil {
 			return fmt.Errorf("sheet %s: %w", s, err)
 		}
+	}
+	if err := writeKindNeedsSheet(f, st); err != nil {
+		return fmt.Errorf("sheet %s: %w", SheetKindNeeds, err)
+	}
+	if err := highlightKindNeeds(f); err != nil {
+		return fmt.Errorf("sheet %s: highlights: %w", SheetObjects, err)
 	}
 	if err := f.SetSheetVisible(SheetLists, false); err != nil {
 		return err
@@ -477,4 +505,196 @@ func exampleWithUnit(d Dimension) string {
 		return "1 nS/m"
 	}
 	return ""
+}
+
+// kindNeedColumns are the Objects columns some kind needs or uses (the columns
+// of the help sheet), in Objects column order.
+func kindNeedColumns() []Column {
+	named := map[string]bool{}
+	for _, k := range kindNeedTable {
+		for _, c := range k.Columns {
+			named[c.Column] = true
+		}
+	}
+	var out []Column
+	for _, c := range SheetColumns(SheetObjects) {
+		if named[c.Name] {
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// writeKindNeedsSheet writes the help sheet from kindNeedTable: a row per kind,
+// a column per Objects column some kind names (required, one of, if, optional,
+// or not needed), and the rule in words as check reports it.
+func writeKindNeedsSheet(f *excelize.File, st sheetStyles) error {
+	s := SheetKindNeeds
+	cols := kindNeedColumns()
+	header := []any{"Kind"}
+	for _, c := range cols {
+		header = append(header, c.Name)
+	}
+	header = append(header, "In words (as check reports a missing input)")
+	if err := f.SetSheetRow(s, "A1", &header); err != nil {
+		return err
+	}
+	last, err := excelize.ColumnNumberToName(len(header))
+	if err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(s, "A1", last+"1", st.header); err != nil {
+		return err
+	}
+	top := &excelize.Alignment{Vertical: "top"}
+	req, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillRequired}}, Font: &excelize.Font{Bold: true}, Alignment: top})
+	if err != nil {
+		return err
+	}
+	one, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillOneOf}}, Alignment: top})
+	if err != nil {
+		return err
+	}
+	plain, err := f.NewStyle(&excelize.Style{Alignment: top})
+	if err != nil {
+		return err
+	}
+	kindStyle, err := f.NewStyle(&excelize.Style{Font: &excelize.Font{Bold: true}, Alignment: top})
+	if err != nil {
+		return err
+	}
+	for i, k := range kindNeedTable {
+		row := i + 2
+		vals := []any{k.Kind}
+		for _, c := range cols {
+			vals = append(vals, kindColumnNeed(k.Kind, c.Name).String())
+		}
+		vals = append(vals, k.Summary)
+		if err := f.SetSheetRow(s, fmt.Sprintf("A%d", row), &vals); err != nil {
+			return err
+		}
+		if err := f.SetCellStyle(s, fmt.Sprintf("A%d", row), fmt.Sprintf("A%d", row), kindStyle); err != nil {
+			return err
+		}
+		if err := f.SetCellStyle(s, fmt.Sprintf("B%d", row), fmt.Sprintf("%s%d", last, row), plain); err != nil {
+			return err
+		}
+		for j, c := range cols {
+			cell, err := excelize.CoordinatesToCellName(j+2, row)
+			if err != nil {
+				return err
+			}
+			switch kindColumnNeed(k.Kind, c.Name) {
+			case Required:
+				err = f.SetCellStyle(s, cell, cell, req)
+			case OneOf:
+				err = f.SetCellStyle(s, cell, cell, one)
+			}
+			if err != nil {
+				return err
+			}
+		}
+		if err := f.SetCellStyle(s, last+fmt.Sprint(row), last+fmt.Sprint(row), st.note); err != nil {
+			return err
+		}
+		if err := f.SetRowHeight(s, row, 15*float64(max(1, (len(k.Summary)+69)/70))); err != nil {
+			return err
+		}
+	}
+	notes := []string{
+		"required: needed on every row of the kind; check reports the row when it is blank.",
+		"one of: one of the kind's alternatives is needed (see In words): a reading, its charging or its earthing.",
+		"if: needed in the case In words names (e.g. Thickness when Backing is earthed).",
+		"optional: used when given; blank is assessed as the stricter case or a documented estimate, said beside the value.",
+		"– (not needed): check does not ask for it for this kind; a value given may still be used by the assessment.",
+		"On the Objects sheet the cells a row's Kind requires are filled dark pale blue, its alternatives light pale blue (a reading aid, not a verdict).",
+		"This sheet is help only: check and assess do not read it.",
+	}
+	base := len(kindNeedTable) + 3
+	for i, n := range notes {
+		cell := fmt.Sprintf("A%d", base+i)
+		if err := f.SetCellStr(s, cell, n); err != nil {
+			return err
+		}
+	}
+	if err := f.SetColWidth(s, "A", "A", 12); err != nil {
+		return err
+	}
+	for j, c := range cols {
+		col, err := excelize.ColumnNumberToName(j + 2)
+		if err != nil {
+			return err
+		}
+		w := max(9, float64(len(c.Name))/2+2)
+		for _, word := range strings.Fields(c.Name) {
+			w = max(w, float64(len([]rune(word)))+3) // never break a word
+		}
+		if err := f.SetColWidth(s, col, col, w); err != nil {
+			return err
+		}
+	}
+	if err := f.SetColWidth(s, last, last, 70); err != nil {
+		return err
+	}
+	if err := f.SetRowHeight(s, 1, 32); err != nil {
+		return err
+	}
+	if err := fitToPageWidth(f, s, "landscape"); err != nil {
+		return err
+	}
+	return freezeHeader(f, s, 1)
+}
+
+// highlightKindNeeds adds, to each Objects column some kind requires or offers
+// as an alternative, a conditional format over all data rows that fills the
+// cell when the row's Kind is one of those kinds.
+func highlightKindNeeds(f *excelize.File) error {
+	ocols := SheetColumns(SheetObjects)
+	kindCol := ""
+	for i, c := range ocols {
+		if c.Name == "Kind" {
+			kindCol, _ = excelize.ColumnNumberToName(i + 1)
+		}
+	}
+	if kindCol == "" {
+		return fmt.Errorf("no Kind column")
+	}
+	req, err := f.NewConditionalStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillRequired}}})
+	if err != nil {
+		return err
+	}
+	one, err := f.NewConditionalStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillOneOf}}})
+	if err != nil {
+		return err
+	}
+	for i, c := range ocols {
+		col, err := excelize.ColumnNumberToName(i + 1)
+		if err != nil {
+			return err
+		}
+		var rules []excelize.ConditionalFormatOptions
+		for _, lv := range []struct {
+			need  Need
+			style int
+		}{{Required, req}, {OneOf, one}} {
+			var kinds []string
+			for _, k := range kindNeedTable {
+				if kindColumnNeed(k.Kind, c.Name) == lv.need {
+					kinds = append(kinds, fmt.Sprintf(`TRIM($%s2)="%s"`, kindCol, k.Kind))
+				}
+			}
+			if len(kinds) == 0 {
+				continue
+			}
+			style := lv.style
+			rules = append(rules, excelize.ConditionalFormatOptions{Type: "formula", Criteria: "OR(" + strings.Join(kinds, ",") + ")", Format: &style, StopIfTrue: true})
+		}
+		if len(rules) == 0 {
+			continue
+		}
+		if err := f.SetConditionalFormat(SheetObjects, fmt.Sprintf("%s2:%s%d", col, col, TemplateRows+1), rules); err != nil {
+			return err
+		}
+	}
+	return nil
 }

@@ -42,7 +42,7 @@ func writeTestTemplate(t *testing.T, opts TemplateOptions) (*excelize.File, stri
 
 func TestTemplateSheetsAndHeaders(t *testing.T) {
 	f, _ := writeTestTemplate(t, testTemplateOptions())
-	want := append(Sheets(), SheetLists)
+	want := append(Sheets(), SheetKindNeeds, SheetLists)
 	if got := f.GetSheetList(); !slices.Equal(got, want) {
 		t.Fatalf("sheets = %v, want %v (no default Sheet1 left)", got, want)
 	}

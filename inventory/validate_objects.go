@@ -17,17 +17,11 @@ type KindRequirement struct {
 // KindRequirements returns the per-kind requirements validation applies, for
 // the README and the check command.
 func KindRequirements() []KindRequirement {
-	return []KindRequirement{
-		{KindSheet, "Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed; a Surface potential alone also needs Backing earthed or Distance to earth (a warning)"},
-		{KindBelt, "as sheet (Speed optional: it gives the charging current)"},
-		{KindRoller, "Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth"},
-		{KindContainer, "nothing beyond Kind and Station; Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) and Resistance to earth are used when given; with no reading and no charging, a warning: the spark is not evaluated and the earthing is judged (a blank Resistance taken as not earthed)"},
-		{KindPart, "as container"},
-		{KindPerson, "nothing beyond Kind and Station; with neither Surface potential nor Resistance to earth, a warning: taken as not earthed, the body potential estimated from walking (capped at the person maximum)"},
-		{KindPowder, "nothing beyond Kind and Station; Mass flow, Diameter (silo or container) and Particle size blank are each a warning (the brush of the charged powder is counted whatever the flow; the cone discharge is not evaluated without Diameter and Particle size); Charge-to-mass optional"},
-		{KindLiquid, "Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid)"},
-		{KindBag, "a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
+	out := make([]KindRequirement, len(kindNeedTable))
+	for i, k := range kindNeedTable {
+		out[i] = KindRequirement{Kind: k.Kind, Needs: k.Summary}
 	}
+	return out
 }
 
 func (v *validator) objects(t *table, stations map[string]refState, mats map[string]matState) map[string]refState {
@@ -237,14 +231,15 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 	reading := (given("Field", o.Field) && given("Field distance", o.FieldDistance)) || given("Surface potential", o.SurfacePotential)
 	const readingText = "a reading (Field with Field distance, or Surface potential)"
 	var need []string
+	// The plain requirements come from the one table (kindNeedTable); the
+	// alternatives and conditions below are the table's "one of" and "if" columns.
+	for _, name := range kindRequiredColumns(o.Kind) {
+		if !given(name, objectQuantity(o, name)) {
+			need = append(need, name)
+		}
+	}
 	switch o.Kind {
 	case KindSheet, KindBelt:
-		if !given("Length", o.Length) {
-			need = append(need, "Length")
-		}
-		if !given("Width", o.Width) {
-			need = append(need, "Width")
-		}
 		// A conductive or dissipative layer with a measured resistance to earth is
 		// judged on its earthing; an insulating one needs a reading.
 		m, known := v.s.Material(o.Material)
@@ -261,9 +256,6 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 		}
 		potentialGeometryNeed(f, o, who, given)
 	case KindRoller:
-		if !given("Diameter", o.Diameter) {
-			need = append(need, "Diameter")
-		}
 		if !reading && !given("Resistance to earth", o.Resistance) {
 			need = append(need, "a reading (Field with Field distance, or Surface potential) or its Resistance to earth")
 		}
@@ -314,14 +306,6 @@ func (v *validator) kindNeeds(f *field, o *Object, who string) {
 				"%s: no %s: assessed without; the brush discharges of the charged powder are counted whatever the flow, %s", who, joinAnd(blank), cone)
 		}
 	case KindLiquid:
-		for _, n := range []struct {
-			name string
-			q    Quantity
-		}{{"Speed", o.Speed}, {"Diameter", o.Diameter}} {
-			if !given(n.name, n.q) {
-				need = append(need, n.name)
-			}
-		}
 		if !given("Conductivity", o.Conductivity) {
 			// Unknown means the stricter case (principle 2): the row is assessed.
 			f.warnf("Conductivity", ErrRequired, "measure the liquid's conductivity (or name a substance the built-in list knows) and enter it in pS/m",
@@ -491,4 +475,26 @@ func (v *validator) builtinMaterial(ref string) (string, bool) {
 type builtinHit struct {
 	name string
 	ok   bool
+}
+
+// objectQuantity is the quantity of o in the Objects column name; a zero
+// Quantity for a column that is not a quantity (its cell text decides then).
+func objectQuantity(o *Object, name string) Quantity {
+	switch name {
+	case "Length":
+		return o.Length
+	case "Width":
+		return o.Width
+	case "Diameter":
+		return o.Diameter
+	case "Mass flow":
+		return o.MassFlow
+	case "Particle size":
+		return o.ParticleSize
+	case "Speed":
+		return o.Speed
+	case "Conductivity":
+		return o.Conductivity
+	}
+	return Quantity{}
 }
