@@ -16,6 +16,8 @@ func TestSiteSettingsNumbersAsCells(t *testing.T) {
 	if err != nil || !relClose(cell.Value, 1.5e-3) {
 		t.Fatalf("cell 1,5 mJ: %v, %v", cell.Value, err)
 	}
+	// The values are invented for the test; the expected ones are unit arithmetic
+	// (derived): "12,5" % is a spread of 0.125.
 	items := []SiteItem{
 		{Key: "brush energy", Item: "Brush energy", Value: "1,5 mJ", Row: 8},
 		{Key: "shock energy [mj]", Item: "Shock energy [mJ]", Value: "1,5", Row: 9},

@@ -17,7 +17,9 @@ func TestMethodUncertaintyAndJSONOptions(t *testing.T) {
 	}
 	for _, want := range []string{
 		"Uncertainty (Monte Carlo)",
-		// The default table's documented choices (report/assess DefaultUncertainties).
+		// The default table's documented choices (report/assess DefaultUncertainties;
+		// screening choices of this tool, the person's band from memory, Saito 1963);
+		// the 95 % bands are derived (z = 1.96).
 		"Field reading|±10 %|normal (relative)|Uncertainty field [%]",
 		"Resistance to earth|±0.5 decade|log-normal|Uncertainty resistance [decades]",
 		"MIE, dust or hybrid|×/÷ 2 (95 % band ×/÷ 3.89)|log-normal|Uncertainty MIE dust [factor]", // derived: 2^1.96
