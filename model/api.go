@@ -102,6 +102,11 @@ type Input struct {
 	Capacitance float64 // F; NaN: estimated
 
 	Conductivity float64 // S/m (liquid)
+	// ConductivityAssumed says Conductivity is not a reading but a typical
+	// value (built-in substance list): it sets the filling clauses (a
+	// documented choice), but the liquid is also taken as conductive for the
+	// isolated-liquid spark, a value not on the row never clearing it (principle 2).
+	ConductivityAssumed bool
 	Permittivity float64 // relative permittivity of a liquid; NaN: from the material or 2
 	BagType      BagType
 	Filling      Filling

@@ -1046,7 +1046,7 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	kappa := in.Conductivity
 	ev.ConductivityClass = ClassifyConductivity(kappa, *lim)
-	if ev.ConductivityClass == ConductivityUnknown {
+	if ev.ConductivityClass == ConductivityUnknown || in.ConductivityAssumed {
 		ev.Assumed |= AssumedLowConductivity
 	}
 	ev.RuleClass = ev.ConductivityClass
@@ -1055,11 +1055,13 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.RuleClass = ConductivityLow
 		ev.Flags |= FlagSecondPhaseLow
 	}
-	low := ev.RuleClass == ConductivityLow || ev.RuleClass == ConductivityUnknown
 	// Unknown conductivity is the stricter case of each (principle 2): low for
-	// the filling clauses and the brush, conductive for the isolated liquid.
+	// the filling clauses and the brush, conductive for the isolated liquid. A
+	// list's typical value (ConductivityAssumed) sets the filling clauses, a
+	// documented choice, but never clears the isolated liquid's spark.
+	low := ev.RuleClass == ConductivityLow || ev.RuleClass == ConductivityUnknown
 	conductive := ev.ConductivityClass == ConductivityMedium || ev.ConductivityClass == ConductivityHigh ||
-		ev.ConductivityClass == ConductivityUnknown
+		ev.ConductivityClass == ConductivityUnknown || in.ConductivityAssumed
 
 	epsr := in.Permittivity
 	if !positive(epsr) {

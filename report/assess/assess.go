@@ -329,7 +329,8 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 	if math.IsNaN(in.Conductivity) {
 		if ok && sub.Conductivity > 0 {
 			in.Conductivity = sub.Conductivity
-			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity), Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
+			in.ConductivityAssumed = true
+			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity) + " (typical) for the filling clauses; conductive for a spark of the liquid", Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s); a value not on the row never clears the spark of an isolated conductive liquid (principle 2)", sub.Name, sub.Source)})
 		} else {
 			defs = append(defs, Default{Field: "Conductivity", Value: "unknown: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid", Reason: "not given: the stricter case of each (principle 2): the low-conductivity filling limits and liquid-surface brush, and, in an insulating, lined, glass or unknown vessel not earthed, the spark of an isolated conductive liquid"})
 		}

@@ -383,9 +383,16 @@ func clauseCite(k Check, in *model.Input) string {
 // was found against which limit, ending with the clause it rests on.
 func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *model.Limits) string {
 	var msg string
-	cond := "unknown conductivity (taken as low)"
-	if !math.IsNaN(in.Conductivity) {
+	// A conductivity not on the row (blank, or only a list's typical value) is
+	// never quoted as if entered: it is unknown, taken as low for the filling
+	// clauses and as conductive for the isolated liquid (principle 2).
+	cond, condConductive := "conductivity not given, taken as low", "conductivity not given, taken as conductive"
+	if in.ConductivityAssumed && in.Conductivity > lim.LowConductivity {
+		cond = "conductivity not given, typical " + pSm(in.Conductivity)
+	}
+	if !math.IsNaN(in.Conductivity) && !in.ConductivityAssumed {
 		cond = "conductivity " + pSm(in.Conductivity)
+		condConductive = cond
 	}
 	speed := "not given"
 	if !math.IsNaN(in.Speed) {
@@ -461,9 +468,9 @@ func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *mode
 			what = "a vessel of unknown material (taken as insulating)"
 		}
 		if math.IsNaN(in.Resistance) {
-			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth through an earthed dip pipe or rod is not measured (limit %s)", cond, what, ohm(lim.ConductorEarthing))
+			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth through an earthed dip pipe or rod is not measured (limit %s)", condConductive, what, ohm(lim.ConductorEarthing))
 		} else {
-			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth %s exceeds %s", cond, what, ohm(in.Resistance), ohm(lim.ConductorEarthing))
+			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth %s exceeds %s", condConductive, what, ohm(in.Resistance), ohm(lim.ConductorEarthing))
 		}
 	}
 	if c := clauseCite(k, in); c != "" {
