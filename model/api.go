@@ -107,9 +107,9 @@ type Input struct {
 	// documented choice), but the liquid is also taken as conductive for the
 	// isolated-liquid spark, a value not on the row never clearing it (principle 2).
 	ConductivityAssumed bool
-	Permittivity float64 // relative permittivity of a liquid; NaN: from the material or 2
-	BagType      BagType
-	Filling      Filling
+	Permittivity        float64 // relative permittivity of a liquid; NaN: from the material or 2
+	BagType             BagType
+	Filling             Filling
 
 	// ProductMIE is the MIE (J) of the powder a bag holds; NaN: the station's
 	// dust MIE when its atmosphere is dust or hybrid, else the most sensitive band.
@@ -308,7 +308,9 @@ type Evaluation struct {
 	// density used (ChargeDensity) is then capped at the breakdown limit. NaN otherwise.
 	ReadingDensity float64
 	// UncappedPotential is an estimated potential (V) before the cap at
-	// Limits.ConductorMaxPotential (FlagCappedConductor); NaN when not capped.
+	// Limits.ConductorMaxPotential (FlagCappedConductor), or a measured potential
+	// above the realistic maximum (FlagMeasuredAboveMaximum: the energy is taken
+	// at the maximum); NaN when not capped.
 	UncappedPotential float64
 
 	// Added with the review fixes (appended).

@@ -628,9 +628,6 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 			ev.Flags |= FlagCappedConductor
 		}
 	} else {
-		if v > lim.ConductorMaxPotential {
-			ev.Flags |= FlagMeasuredAboveMaximum
-		}
 		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind == Roller && positive(in.Diameter) {
@@ -655,6 +652,7 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	} else if ev.PotentialSource != PotentialMeasured {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
+	reading := measuredAboveMaximum(ev, in, lim, &v)
 	ev.Potential = v
 	w := SparkEnergy(c, v)
 	ev.StoredEnergy = w
@@ -662,6 +660,9 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	if v >= lim.SparkMinPotential {
 		sp.Possible = true
 		setReason(sp, ReasonSparkSurface, v, w)
+		if given(reading) {
+			setReason(sp, ReasonSparkReadingAboveMaximum, reading, v)
+		}
 	} else {
 		setReason(sp, ReasonSparkBelowPaschen, v, lim.SparkMinPotential)
 	}
@@ -862,9 +863,6 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 			ev.Flags |= FlagCappedConductor
 		}
 	} else {
-		if in.Kind != Person && v > lim.ConductorMaxPotential {
-			ev.Flags |= FlagMeasuredAboveMaximum
-		}
 		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind != Person && positive(in.Diameter) && in.Kind != Liquid {
@@ -890,6 +888,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	} else if in.Kind != Person {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
+	reading := measuredAboveMaximum(ev, in, lim, &v)
 	ev.Potential = v
 
 	w := SparkEnergy(c, v)
@@ -899,6 +898,9 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	if v >= lim.SparkMinPotential {
 		sp.Possible = true
 		setReason(sp, ReasonSparkPossible, v, w)
+		if given(reading) {
+			setReason(sp, ReasonSparkReadingAboveMaximum, reading, v)
+		}
 	} else {
 		setReason(sp, ReasonSparkBelowPaschen, v, lim.SparkMinPotential)
 	}
@@ -917,6 +919,33 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	if w > lim.ShockEnergy {
 		ev.Flags |= FlagShock
 	}
+}
+
+// measuredAboveMaximum bounds a measured potential *v above the realistic
+// maximum a plant conductor (Limits.ConductorMaxPotential) or a body
+// (Limits.PersonMaxPotential) holds before it goes into corona (reference
+// sections 3 and 12, realistic potentials: a spark of kJ is an artefact, not a
+// finding): the contradiction is flagged (FlagMeasuredAboveMaximum), the reading
+// kept in UncappedPotential and returned, and *v set to the maximum so that the
+// energy and the ranking rest on what the plant can hold. The spark stays
+// counted at the maximum (principle 1: the reading's hazard is kept). It returns
+// NaN when the potential is not a reading above the maximum.
+func measuredAboveMaximum(ev *Evaluation, in *Input, lim *Limits, v *float64) float64 {
+	if ev.PotentialSource != PotentialMeasured {
+		return math.NaN()
+	}
+	max := lim.ConductorMaxPotential
+	if in.Kind == Person {
+		max = lim.PersonMaxPotential
+	}
+	if !(*v > max) {
+		return math.NaN()
+	}
+	ev.Flags |= FlagMeasuredAboveMaximum
+	reading := *v
+	ev.UncappedPotential = reading
+	*v = max
+	return reading
 }
 
 // earthingContradiction compares a measured potential v with what the measured

@@ -83,6 +83,7 @@ const (
 	ReasonPropReadingOverBreakdown // A voltage across the layer, B measured breakdown (V)
 	ReasonCoronaIgnites            // A corona equivalent energy bound (J), B MIE (J)
 	ReasonConeAboveRange           // A silo diameter, B particle size (m)
+	ReasonSparkReadingAboveMaximum // A measured potential, B realistic maximum used (V)
 
 	numReasons
 )
@@ -218,6 +219,8 @@ func (r Reason) Text(a, b float64) string {
 		return "The row shows the powder does not charge (charge-to-mass or charging current of zero): no brush discharge from it."
 	case ReasonConeFieldAndVessel:
 		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m³: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
+	case ReasonSparkReadingAboveMaximum:
+		return fmt.Sprintf("The reading of %s is beyond what air lets a plant conductor or body hold (it goes into corona first; reference sections 3 and 12, realistic potentials): the spark is taken at the realistic maximum of %s, W = C V^2/2, so that the energy and ranking do not rest on an artefact; check the meter, its range and unit.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonSparkInsulatingVessel:
 		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
 	case ReasonSparkLiquidIsolated:

@@ -265,7 +265,11 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		msg = fmt.Sprintf("%s inverts to %s, more than air lets the surface hold (air breaks down at %s): a bad reading or unit, not a bigger hazard; check the meter's distance, unit and range and repeat it; the charge density used is capped at the breakdown limit, %s", what, uCm2(ev.ReadingDensity), sig(lim.AirBreakdown/1e3)+" kV/m", uCm2(ev.ChargeDensity))
 	}
 	if k == CheckMeasuredAboveMaximum {
-		msg = fmt.Sprintf("measured potential %s is above the realistic plant maximum of %s: a contradiction between reading and model; the reading is kept (W = %s)", kV(ev.Potential), kV(lim.ConductorMaxPotential), mJ(ev.StoredEnergy))
+		what := "plant conductor"
+		if in.Kind == model.Person {
+			what = "body"
+		}
+		msg = fmt.Sprintf("measured potential %s is above the realistic maximum of %s a %s holds before it goes into corona: a contradiction between reading and model, the reading to be checked (meter, range, unit); the spark is kept but its energy taken at the maximum (W = %s), so the verdict and ranking do not rest on an artefact (reference sections 3 and 12, realistic potentials)", kV(ev.UncappedPotential), kV(ev.Potential), what, mJ(ev.StoredEnergy))
 	}
 	if k == CheckEnergyMIE || k == CheckEnergyMargin {
 		cls := mitigationClass(in, c.Discharge)
