@@ -243,6 +243,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	// split over earth was used (its capacitance per area serves the decay).
 	var sigma float64
 	oneSided, split := backed, false
+	freeLower := false // sigma is only a lower bound (free sheet, distance to earth unknown)
 	switch {
 	case given(in.Field):
 		z := in.FieldDistance
@@ -327,6 +328,14 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 					}
 				}
 			}
+		case positive(ev.InsulatingArea):
+			// Distance to earth unknown: any distance is possible. The free sheet of
+			// the object's size holds the least charge for the potential read, so it
+			// is a lower bound of the density (sigma >= V C_free / A, C_free = 8 eps0 r
+			// of the disc of equal area; textbook): it shows a brush where it already
+			// exceeds the screen, and clears nothing (principle 3; checked below).
+			sigma, freeLower = DensityFromPotentialFree(v, ev.InsulatingArea), true
+			ev.Assumed |= AssumedFreeSheetLowerBound
 		default:
 			ev.NotAssessed |= MissingSurfaceGeometry
 			markNotEvaluated(ev, Brush, PropagatingBrush)
@@ -439,6 +448,14 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	br := &ev.Discharges[Brush]
 	screen := lim.BrushChargeDensity[groupIndex(env.Group)]
 	switch {
+	case freeLower && !(brushSigma > screen) && !leaks:
+		// A lower bound below the screen clears nothing (principle 3): the brush is
+		// not assessed until the distance to earth is measured (where a brush could
+		// ignite the atmosphere at all; elsewhere it is left unevaluated).
+		if BrushIgnites(*env, *lim) {
+			ev.NotAssessed |= MissingDistanceToEarth
+		}
+		markNotEvaluated(ev, Brush)
 	case !(brushSigma > screen):
 		if leaks {
 			setReason(br, ReasonBrushLeaks, ev.SurfaceResistivity, nan)

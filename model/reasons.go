@@ -351,6 +351,7 @@ const (
 	AssumedInletVelocity
 	AssumedFilterResidence
 	AssumedElectrodeDraw
+	AssumedFreeSheetLowerBound
 	numAssumptions = iota
 )
 
@@ -393,6 +394,7 @@ func assumptionTexts() [numAssumptions]string {
 		"inlet velocity until submerged not given: the slow start is not shown met",
 		"residence time after the filter not given: none taken",
 		"layer on earthed metal thicker than a coating: its brush screened on the most an earthed electrode could draw before air breaks down, min(sigma, eps0 Eb), not on the air-side charge the meter sees (the electrode's approach is unknown: the stricter case)",
+		"distance to earth not given: the free sheet of the object's size taken, the lowest charge density the Surface potential can mean (sigma >= V C_free / A, C_free = 8 eps0 r of the disc of equal area, textbook): it can show a brush, never clear one",
 	}
 }
 
@@ -474,6 +476,7 @@ const (
 	MissingConeSize
 	MissingLiquidFlow
 	MissingSurfaceSpark
+	MissingDistanceToEarth
 	numMissing = iota
 )
 
@@ -490,6 +493,7 @@ func missingTexts() [numMissing]string {
 		"needs Diameter and Particle size for the cone discharge energy",
 		"needs Speed and Diameter of the line, or Charging current",
 		"needs Surface potential, Length and Width, or Charging current to judge the spark of the unearthed conducting surface",
+		"the free sheet's charge density, the lowest the Surface potential can mean, is below the brush screen, which a lower bound cannot clear: measure the Distance to earth (or give Backing earthed with Thickness) to judge the brush",
 	}
 }
 

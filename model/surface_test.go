@@ -540,3 +540,39 @@ func TestThickBackedLayerBrushScreen(t *testing.T) {
 	ev = Evaluate(in, gasEnv(IIC, Zone1, 0.017e-3), lim)
 	near(t, "IIC 1 mm brush density", ev.BrushDensity, Eps0*3e6, 1e-9)
 }
+
+// TestFreeSheetPotentialLowerBound: a Surface potential on a free insulating
+// sheet whose distance to earth is not given. Any distance is possible; the free
+// sheet of the object's size holds the least charge for the potential, so
+// sigma >= V C_free / A with C_free = 8 eps0 r of the disc of equal area
+// (textbook isolated-disc capacitance). Above the brush screen that lower bound
+// shows the brush; below it clears nothing (principle 3): not assessed, with the
+// distance to earth to measure.
+func TestFreeSheetPotentialLowerBound(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Sheet)
+	in.Material.SurfaceResistivity = 1e16 // insulating PE, no resistivity effect
+	in.Length, in.Width, in.SurfacePotential = 0.09, 0.09, 20e3
+	ev := Evaluate(in, env, lim)
+	// derived (python3): A = 0.0081 m^2, r = sqrt(A/pi) = 0.050777 m, C = 8 x 8.8542e-12
+	// x 0.050777 = 3.5967e-12 F, Q = 7.193e-8 C, sigma = Q/A = 8.880e-6 C/m^2 > 5e-6
+	// (IIA brush screen, TRGS 727 / IEC TS 60079-32-1 table as in the reference).
+	near(t, "lower-bound density", ev.ChargeDensity, 8.880e-6, 1e-3)
+	if br := ev.Discharges[Brush]; !br.Possible || ev.NotAssessed != 0 || ev.Assumed&AssumedFreeSheetLowerBound == 0 {
+		t.Errorf("20 kV: brush %+v missing %b assumed %b: want the brush judged on the lower bound", br, ev.NotAssessed, ev.Assumed)
+	}
+	// 2 kV: derived sigma = 0.888e-6 C/m^2, below the screen: a lower bound clears
+	// nothing, the brush stays not assessed and the distance to earth is asked for.
+	in.SurfacePotential = 2e3
+	ev = Evaluate(in, env, lim)
+	near(t, "2 kV lower bound", ev.ChargeDensity, 0.8880e-6, 1e-3)
+	if ev.Discharges[Brush].Possible || ev.NotAssessed&MissingDistanceToEarth == 0 {
+		t.Errorf("2 kV: brush %+v missing %b: want not assessed, distance to earth asked", ev.Discharges[Brush], ev.NotAssessed)
+	}
+	// No size either: nothing to bound, not assessed as before.
+	in.Length, in.Width = math.NaN(), math.NaN()
+	if ev = Evaluate(in, env, lim); ev.NotAssessed&MissingSurfaceGeometry == 0 {
+		t.Errorf("no size: missing %b", ev.NotAssessed)
+	}
+}

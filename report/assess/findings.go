@@ -311,7 +311,11 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 		} else if n > 1 {
 			s += fmt.Sprintf("; %d further findings", n)
 		}
-		if c.Cause != CauseNone && causeText != "" {
+		switch {
+		case c.Cause != CauseNone && causeText != "" && !math.IsNaN(c.Ratio):
+			// The energy judged is a lower bound: the discharges evaluated already reach it.
+			s += "; that energy is a lower bound, not every discharge could be evaluated (" + causeText + ")"
+		case c.Cause != CauseNone && causeText != "":
 			s += "; the discharge energy was not assessed (" + causeText + ")"
 		}
 		return s + "."

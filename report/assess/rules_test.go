@@ -516,3 +516,27 @@ func TestAssumedRatioMarked(t *testing.T) {
 		t.Error("station has no note on its assumed ratio")
 	}
 }
+
+// TestLowerBoundEnergyStated: an unearthed dissipative sheet read at 3 kV with no
+// distance to earth: its brush stays not assessed (the free-sheet lower bound,
+// is below the 5 uC/m^2 IIA screen: principle 3),
+// but its spark already reaches the MIE. The energy, the ratio and the words must
+// agree: the energy is stated and called a lower bound, never "not assessed".
+func TestLowerBoundEnergyStated(t *testing.T) {
+	o := inventory.Object{Kind: "sheet", Material: "Dissipative PP", Length: known(0.05), Width: known(0.05), Backing: "none", SurfacePotential: known(2e3), Capacitance: known(200e-12)}
+	tray := inventory.Material{Name: "Dissipative PP", Class: "dissipative", SurfaceResistivity: 1e9}
+	// derived: free-sheet bound at 3 kV: r = 0.0282 m, C = 8 eps0 r = 2.0 pF,
+	// sigma = 2.0e-12 x 3e3 / 0.0025 = 2.4 uC/m^2 < 5 uC/m^2; spark W = 200 pF x
+	// (3 kV)^2 / 2 = 0.9 mJ against the 0.46 mJ MIE of ethyl acetate: ratio 1.96.
+	o.SurfacePotential = known(3e3)
+	r := one(t, &atmEthylAcetate, o, tray)
+	if r.Eval.NotAssessed&model.MissingDistanceToEarth == 0 {
+		t.Fatalf("missing %v: want the distance to earth asked for", r.Eval.NotAssessed.Texts())
+	}
+	if !r.EnergyStated() || r.Ratio == nil || !scalar.EqualWithinRel(*r.Ratio, 0.9e-3/0.46e-3, relTol) {
+		t.Errorf("energy stated %v ratio %v: want the 0.9 mJ spark, ratio 1.96", r.EnergyStated(), r.Ratio)
+	}
+	if strings.Contains(r.Reason, "energy was not assessed") || !strings.Contains(r.Reason, "lower bound") {
+		t.Errorf("reason %q: want the energy called a lower bound", r.Reason)
+	}
+}
