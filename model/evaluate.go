@@ -391,7 +391,18 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		if env.Group == IIC {
 			coatT = lim.CoatingThicknessIIC
 		}
-		thin := in.Thickness <= coatT
+		// Only the coating IEC 60079-0:2017 qualifies: thin for the group AND a
+		// measured breakdown at most Limits.PropagatingBreakdown (4 kV) that the
+		// reading does not exceed. A thin layer whose breakdown is not measured (or
+		// above 4 kV) is not ruled out by anything on the row: its brush is screened
+		// as for a potential reading, on the stricter min(sigma, eps0 Eb), so that
+		// the instrument (field or potential) does not decide (principles 1, 2).
+		bd := math.Abs(in.LayerBreakdown)
+		layerV := math.Abs(in.SurfacePotential)
+		if given(in.Field) && given(in.FieldDistance) {
+			layerV = math.Min(math.Abs(in.Field), lim.AirBreakdown) * in.FieldDistance
+		}
+		thin := in.Thickness <= coatT && positive(bd) && bd <= lim.PropagatingBreakdown && !(layerV > bd)
 		switch {
 		case given(in.Field) && roller && thin:
 			brushSigma = DensityCylinder(math.Min(math.Abs(in.Field), lim.AirBreakdown), rad, in.FieldDistance)
@@ -400,12 +411,14 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		default:
 			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
 			if given(in.Field) {
-				ev.Assumed |= AssumedElectrodeDraw // a layer thicker than a coating
+				ev.Assumed |= AssumedElectrodeDraw // not a qualified coating
 			}
 		}
 		ev.SurfaceField = nan // the air-side field is not known from a potential
 		if given(in.Field) {
-			ev.SurfaceField = OneSidedField(brushSigma)
+			// The air-side field is the reading (capped at air breakdown), whatever
+			// an approaching electrode could draw.
+			ev.SurfaceField = math.Min(math.Abs(in.Field), lim.AirBreakdown)
 		}
 	}
 	ev.BrushDensity = brushSigma
