@@ -1333,10 +1333,11 @@ func evalBag(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		}
 	case BagC:
 		setReason(pb, ReasonBrushBagProtected, math.NaN(), math.NaN())
-		// Corona from the conductive threads, earthed or not, as for type D: it is
-		// counted only where it ignites (finish, CoronaIgnites: MIE below
-		// Limits.CoronaEnergy, hydrogen; reference section 3), an atmosphere for
-		// which no bag type is qualified (IEC 61340-4-4, reference section 8b).
+		// Corona from the conductive threads, earthed or not (an unknown earthing
+		// never milder), as for type D: it is counted only where it ignites
+		// (finish, CoronaIgnites: MIE below Limits.CoronaEnergy, hydrogen;
+		// reference section 3), an atmosphere for which no bag type is qualified
+		// (IEC 61340-4-4, reference section 8b).
 		defer func() {
 			if co := &ev.Discharges[Corona]; !co.Possible {
 				co.Possible, co.Energy = true, lim.CoronaEnergy

@@ -223,7 +223,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonSparkReadingAboveMaximum:
 		return fmt.Sprintf("The reading of %s is beyond what air lets a plant conductor or body hold (it goes into corona first; reference sections 3 and 12, realistic potentials): the spark is taken at the realistic maximum of %s, W = C V^2/2, so that the energy and ranking do not rest on an artefact; check the meter, its range and unit.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonCoronaBagC:
-		return fmt.Sprintf("The earthed conductive threads of a type C bag are sharp electrodes that go into corona as the fabric charges (that is how the bag sheds its charge, IEC 61340-4-4): corona is counted at its equivalent energy bound of %s; it ignites only very sensitive gases such as hydrogen (reference section 3), for which no bag type is qualified.", Quantity(a, "J"))
+		return fmt.Sprintf("The conductive threads of a type C bag are sharp electrodes that go into corona as the fabric charges (earthed, that is how the bag sheds its charge, IEC 61340-4-4): corona is counted at its equivalent energy bound of %s; it ignites only very sensitive gases such as hydrogen (reference section 3), for which no bag type is qualified.", Quantity(a, "J"))
 	case ReasonSparkInsulatingVessel:
 		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
 	case ReasonSparkLiquidIsolated:
