@@ -122,6 +122,9 @@ func TestMeasuredAboveMaximumIsAFinding(t *testing.T) {
 	if !strings.Contains(msg, "80 kV") || !strings.Contains(msg, "125 mJ") {
 		t.Errorf("finding %q: want the reading and the energy at the maximum", msg)
 	}
+	if !hasDefault(r, "Potential used") {
+		t.Errorf("defaults %+v: the potential used for the energy is not marked", r.Defaults)
+	}
 	// A person at 60 kV, 150 pF: above the 15 kV walking-test maximum (Jonassen,
 	// reference section 10.3). derived: 150 pF x (15 kV)^2 / 2 = 16.875 mJ.
 	p := inventory.Object{Kind: "person", Capacitance: known(150e-12), SurfacePotential: known(60e3), Resistance: known(1e12)}

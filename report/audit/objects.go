@@ -195,7 +195,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			case o.Eval.Effective == model.PropagatingBrush:
 				c = est(c, hasDefault(o, "propagating"))
 			case o.Eval.Effective == model.Spark:
-				c = est(c, hasDefault(o, "capacitance", "body potential"))
+				c = est(c, hasDefault(o, "capacitance", "body potential", "potential used"))
 			}
 			return c
 		}},
