@@ -63,14 +63,12 @@
 //     reading above a screen keeps its discharge and raises FlagHumidityContradiction.
 //  5. Brush: possible when sigma exceeds the group's screen; equivalent energy
 //     Limits.BrushEnergy (4 mJ); charge sigma x Limits.BrushArea (100 cm^2). On a
-//     layer on earthed metal sigma is the charge a brush can drain: on a
-//     qualified coating (within the coating thickness of IEC 60079-0,
-//     Limits.CoatingThickness, 0.2 mm in IIC, AND a measured breakdown of at most
-//     Limits.PropagatingBreakdown that the reading does not exceed, IEC
-//     60079-0:2017) read by field, the air-side charge eps0 E the meter sees;
-//     any other layer, or a potential reading, min(sigma, eps0 Eb), the most an
-//     earthed electrode closer than the meter could draw before air breaks down
-//     (AssumedElectrodeDraw; the stricter case).
+//     layer on earthed metal sigma is the charge a brush can drain:
+//     min(sigma, eps0 Eb), the most an earthed electrode closer than the meter
+//     could draw before air breaks down (AssumedElectrodeDraw for a field
+//     reading; the stricter case), whatever the thickness and whichever
+//     instrument read it (a field E at z is the layer voltage E z): the IEC
+//     60079-0 coating thickness is a construction rule for the area limit only.
 //  6. Propagating brush: needs an earthed backing or a process that builds a
 //     double layer (charging current density above PropagatingCurrentDensity,
 //     about 1 mA/m^2, BG RCI FAQ 1.12; or Process pneumatic conveying, from

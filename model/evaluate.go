@@ -370,55 +370,29 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		ev.SurfaceField = OneSidedField(sigma)
 	}
 	// The density a brush drains. On a layer on an earthed backing most of the
-	// charge is bound by the backing; only the air-side charge eps0 x E_air can
-	// leave in a brush (Gauss's law, textbook; the hand-worked case HW-03 reasons
-	// the same way). The field read is that air-side field (capped at air
-	// breakdown), on a roller the cylinder's field at its surface. With a surface
-	// potential only, the air-side field is not known: the stricter case, the
-	// most air lets the surface hold on one side (principle 2). The surface field
-	// shown is then that air-side field, not the layer's internal field (shown apart).
-	//
-	// The air-side charge is what the meter sees; an earthed electrode brought
-	// closer than the meter draws more of the bound charge. IEC 60079-0 treats
-	// a coating on earthed metal no thicker than Limits.CoatingThickness (0.2 mm
-	// in IIC; from memory) as no brush hazard, so there the air-side charge is
-	// screened. A thicker layer is screened on the most an electrode could draw
-	// before air breaks down, min(sigma, eps0 Eb) (a screening choice of this
-	// tool: the electrode's approach is unknown, so the stricter case).
+	// charge is bound by the backing; the meter sees only the air-side charge
+	// eps0 E_air (Gauss's law, textbook), but an earthed electrode brought closer
+	// than the meter draws more of it, up to what air lets the surface hold before
+	// it breaks down. The approach is unknown, so the brush is screened on
+	// min(sigma, eps0 Eb) (a screening choice of this tool: the stricter case,
+	// principle 2) for every backed layer and either instrument: a field E read
+	// at z means the layer voltage E z, the same state as that surface potential
+	// (DensityBacked >= DensityFromPotentialBacked(E z)), so the instrument never
+	// decides the verdict. The IEC 60079-0 coating thickness and its 4 kV
+	// breakdown condition are construction rules for the area limit
+	// (CoatingExempt in assess); they do not clear a reading that shows kV across
+	// the layer (principle 1). A measured breakdown at most 4 kV still rules out
+	// the propagating brush (below). Hand-worked case HW-03 calls this stricter
+	// verdict acceptable ("too strict, not dangerous").
 	brushSigma := sigma
 	if backed {
-		coatT := lim.CoatingThickness
-		if env.Group == IIC {
-			coatT = lim.CoatingThicknessIIC
-		}
-		// Only the coating IEC 60079-0:2017 qualifies: thin for the group AND a
-		// measured breakdown at most Limits.PropagatingBreakdown (4 kV) that the
-		// reading does not exceed. A thin layer whose breakdown is not measured (or
-		// above 4 kV) is not ruled out by anything on the row: its brush is screened
-		// as for a potential reading, on the stricter min(sigma, eps0 Eb), so that
-		// the instrument (field or potential) does not decide (principles 1, 2).
-		bd := math.Abs(in.LayerBreakdown)
-		layerV := math.Abs(in.SurfacePotential)
-		if given(in.Field) && given(in.FieldDistance) {
-			layerV = math.Min(math.Abs(in.Field), lim.AirBreakdown) * in.FieldDistance
-		}
-		thin := in.Thickness <= coatT && positive(bd) && bd <= lim.PropagatingBreakdown && !(layerV > bd)
-		switch {
-		case given(in.Field) && roller && thin:
-			brushSigma = DensityCylinder(math.Min(math.Abs(in.Field), lim.AirBreakdown), rad, in.FieldDistance)
-		case given(in.Field) && thin:
-			brushSigma = Eps0 * math.Min(math.Abs(in.Field), lim.AirBreakdown)
-		default:
-			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
-			if given(in.Field) {
-				ev.Assumed |= AssumedElectrodeDraw // not a qualified coating
-			}
-		}
-		ev.SurfaceField = nan // the air-side field is not known from a potential
+		brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
 		if given(in.Field) {
-			// The air-side field is the reading (capped at air breakdown), whatever
-			// an approaching electrode could draw.
+			ev.Assumed |= AssumedElectrodeDraw
+			// The air-side field shown is the reading (capped at air breakdown).
 			ev.SurfaceField = math.Min(math.Abs(in.Field), lim.AirBreakdown)
+		} else {
+			ev.SurfaceField = nan // the air-side field is not known from a potential
 		}
 	}
 	ev.BrushDensity = brushSigma

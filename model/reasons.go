@@ -393,8 +393,7 @@ func assumptionTexts() [numAssumptions]string {
 		"second phase not stated: taken as present (the stricter case; write none when there is none)",
 		"inlet velocity until submerged not given: the slow start is not shown met",
 		"residence time after the filter not given: none taken",
-		"layer on earthed metal that is not a qualified coating (thicker than the group's coating thickness, or its breakdown not measured at most 4 kV, IEC 60079-0:2017): its brush screened on the most an earthed electrode could draw before air breaks down, min(sigma, eps0 Eb), not on the air-side charge the meter sees (the electrode's approach is unknown: the stricter case)",
-		"distance to earth not given: the free sheet of the object's size taken, the lowest charge density the Surface potential can mean (sigma >= V C_free / A, C_free = 8 eps0 r of the disc of equal area, textbook): it can show a brush, never clear one",
+		"layer on earthed metal read by field: its brush screened on the most an earthed electrode could draw before air breaks down, min(sigma, eps0 Eb), not on the air-side charge the meter sees (the electrode's approach is unknown: the stricter case; the same as for the surface potential E z)", "distance to earth not given: the free sheet of the object's size taken, the lowest charge density the Surface potential can mean (sigma >= V C_free / A, C_free = 8 eps0 r of the disc of equal area, textbook): it can show a brush, never clear one",
 	}
 }
 
