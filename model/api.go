@@ -102,9 +102,14 @@ type Input struct {
 	Capacitance float64 // F; NaN: estimated
 
 	Conductivity float64 // S/m (liquid)
-	Permittivity float64 // relative permittivity of a liquid; NaN: from the material or 2
-	BagType      BagType
-	Filling      Filling
+	// ConductivityAssumed says Conductivity is not a reading but a typical
+	// value (built-in substance list): it sets the filling clauses (a
+	// documented choice), but the liquid is also taken as conductive for the
+	// isolated-liquid spark, a value not on the row never clearing it (principle 2).
+	ConductivityAssumed bool
+	Permittivity        float64 // relative permittivity of a liquid; NaN: from the material or 2
+	BagType             BagType
+	Filling             Filling
 
 	// ProductMIE is the MIE (J) of the powder a bag holds; NaN: the station's
 	// dust MIE when its atmosphere is dust or hybrid, else the most sensitive band.
@@ -303,7 +308,9 @@ type Evaluation struct {
 	// density used (ChargeDensity) is then capped at the breakdown limit. NaN otherwise.
 	ReadingDensity float64
 	// UncappedPotential is an estimated potential (V) before the cap at
-	// Limits.ConductorMaxPotential (FlagCappedConductor); NaN when not capped.
+	// Limits.ConductorMaxPotential (FlagCappedConductor), or a measured potential
+	// above the realistic maximum (FlagMeasuredAboveMaximum: the energy is taken
+	// at the maximum); NaN when not capped.
 	UncappedPotential float64
 
 	// Added with the review fixes (appended).

@@ -44,7 +44,10 @@
 //     unknown sides infinite). Or from a surface potential V: eps0 epsr V/t backed,
 //     eps0 V/h over earth (the larger of it and the disc of equal area outside the
 //     split's validity; for a roller the larger of it and the cylinder over a
-//     plane). A reading above air breakdown, or a density above what air can
+//     plane); with no backing and no distance to earth, the free sheet of the
+//     object's size, V 8 eps0 r / A, a lower bound (AssumedFreeSheetLowerBound):
+//     it shows a brush above the screen and clears none below it
+//     (MissingDistanceToEarth). A reading above air breakdown, or a density above what air can
 //     hold (eps0 x 3 MV/m with all the field on one side, twice that on a free
 //     sheet), is a bad reading: flagged (FlagSuspectReading,
 //     FlagReadingAboveBreakdown), the raw inversion kept in ReadingDensity and the
@@ -60,11 +63,12 @@
 //     reading above a screen keeps its discharge and raises FlagHumidityContradiction.
 //  5. Brush: possible when sigma exceeds the group's screen; equivalent energy
 //     Limits.BrushEnergy (4 mJ); charge sigma x Limits.BrushArea (100 cm^2). On a
-//     layer on earthed metal sigma is the charge a brush can drain: within the
-//     coating thickness of IEC 60079-0 (Limits.CoatingThickness, 0.2 mm in IIC)
-//     the air-side charge eps0 E the meter sees; a thicker layer min(sigma,
-//     eps0 Eb), the most an earthed electrode closer than the meter could draw
-//     before air breaks down (AssumedElectrodeDraw; the stricter case).
+//     layer on earthed metal sigma is the charge a brush can drain:
+//     min(sigma, eps0 Eb), the most an earthed electrode closer than the meter
+//     could draw before air breaks down (AssumedElectrodeDraw for a field
+//     reading; the stricter case), whatever the thickness and whichever
+//     instrument read it (a field E at z is the layer voltage E z): the IEC
+//     60079-0 coating thickness is a construction rule for the area limit only.
 //  6. Propagating brush: needs an earthed backing or a process that builds a
 //     double layer (charging current density above PropagatingCurrentDensity,
 //     about 1 mA/m^2, BG RCI FAQ 1.12; or Process pneumatic conveying, from
@@ -89,8 +93,9 @@
 //     (the stricter for a charge read on it) or eps0 A/h when larger. An
 //     estimated V is capped as a conductor's (Limits.ConductorMaxPotential, a
 //     roller's corona onset; UncappedPotential keeps the estimate); a measured V
-//     never is (above the maximum: FlagMeasuredAboveMaximum; far above what a
-//     measured earthing allows: FlagEarthingContradiction).
+//     is kept, but above the maximum (FlagMeasuredAboveMaximum; the reading in
+//     UncappedPotential) the spark is taken at the maximum; far above what a
+//     measured earthing allows: FlagEarthingContradiction.
 //
 // Conductors (conductive roller, container, part, person):
 //
@@ -109,8 +114,10 @@
 //     even at the worst-case 100 uA (ReasonSparkEarthedBound); otherwise the spark
 //     is not evaluated (MissingConductorCharging says what to measure) and only its
 //     earthing is judged.
-//  4. Potential: measured (never capped; above Limits.ConductorMaxPotential it is
-//     flagged as a contradiction, FlagMeasuredAboveMaximum; above
+//  4. Potential: measured (above Limits.ConductorMaxPotential, a person's above
+//     Limits.PersonMaxPotential, it is flagged as a contradiction,
+//     FlagMeasuredAboveMaximum, and the spark taken at that maximum: reference
+//     sections 3 and 12, realistic potentials; above
 //     Limits.EarthingContradictionFactor times the I R its measured resistance
 //     allows under the worst-case current, 1 uA walking for a person, 100 uA
 //     otherwise, FlagEarthingContradiction, EarthingBound); else V(t) = I R

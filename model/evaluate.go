@@ -243,6 +243,7 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	// split over earth was used (its capacitance per area serves the decay).
 	var sigma float64
 	oneSided, split := backed, false
+	freeLower := false // sigma is only a lower bound (free sheet, distance to earth unknown)
 	switch {
 	case given(in.Field):
 		z := in.FieldDistance
@@ -327,6 +328,14 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 					}
 				}
 			}
+		case positive(ev.InsulatingArea):
+			// Distance to earth unknown: any distance is possible. The free sheet of
+			// the object's size holds the least charge for the potential read, so it
+			// is a lower bound of the density (sigma >= V C_free / A, C_free = 8 eps0 r
+			// of the disc of equal area; textbook): it shows a brush where it already
+			// exceeds the screen, and clears nothing (principle 3; checked below).
+			sigma, freeLower = DensityFromPotentialFree(v, ev.InsulatingArea), true
+			ev.Assumed |= AssumedFreeSheetLowerBound
 		default:
 			ev.NotAssessed |= MissingSurfaceGeometry
 			markNotEvaluated(ev, Brush, PropagatingBrush)
@@ -361,42 +370,29 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 		ev.SurfaceField = OneSidedField(sigma)
 	}
 	// The density a brush drains. On a layer on an earthed backing most of the
-	// charge is bound by the backing; only the air-side charge eps0 x E_air can
-	// leave in a brush (Gauss's law, textbook; the hand-worked case HW-03 reasons
-	// the same way). The field read is that air-side field (capped at air
-	// breakdown), on a roller the cylinder's field at its surface. With a surface
-	// potential only, the air-side field is not known: the stricter case, the
-	// most air lets the surface hold on one side (principle 2). The surface field
-	// shown is then that air-side field, not the layer's internal field (shown apart).
-	//
-	// The air-side charge is what the meter sees; an earthed electrode brought
-	// closer than the meter draws more of the bound charge. IEC 60079-0 treats
-	// a coating on earthed metal no thicker than Limits.CoatingThickness (0.2 mm
-	// in IIC; from memory) as no brush hazard, so there the air-side charge is
-	// screened. A thicker layer is screened on the most an electrode could draw
-	// before air breaks down, min(sigma, eps0 Eb) (a screening choice of this
-	// tool: the electrode's approach is unknown, so the stricter case).
+	// charge is bound by the backing; the meter sees only the air-side charge
+	// eps0 E_air (Gauss's law, textbook), but an earthed electrode brought closer
+	// than the meter draws more of it, up to what air lets the surface hold before
+	// it breaks down. The approach is unknown, so the brush is screened on
+	// min(sigma, eps0 Eb) (a screening choice of this tool: the stricter case,
+	// principle 2) for every backed layer and either instrument: a field E read
+	// at z means the layer voltage E z, the same state as that surface potential
+	// (DensityBacked >= DensityFromPotentialBacked(E z)), so the instrument never
+	// decides the verdict. The IEC 60079-0 coating thickness and its 4 kV
+	// breakdown condition are construction rules for the area limit
+	// (CoatingExempt in assess); they do not clear a reading that shows kV across
+	// the layer (principle 1). A measured breakdown at most 4 kV still rules out
+	// the propagating brush (below). Hand-worked case HW-03 calls this stricter
+	// verdict acceptable ("too strict, not dangerous").
 	brushSigma := sigma
 	if backed {
-		coatT := lim.CoatingThickness
-		if env.Group == IIC {
-			coatT = lim.CoatingThicknessIIC
-		}
-		thin := in.Thickness <= coatT
-		switch {
-		case given(in.Field) && roller && thin:
-			brushSigma = DensityCylinder(math.Min(math.Abs(in.Field), lim.AirBreakdown), rad, in.FieldDistance)
-		case given(in.Field) && thin:
-			brushSigma = Eps0 * math.Min(math.Abs(in.Field), lim.AirBreakdown)
-		default:
-			brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
-			if given(in.Field) {
-				ev.Assumed |= AssumedElectrodeDraw // a layer thicker than a coating
-			}
-		}
-		ev.SurfaceField = nan // the air-side field is not known from a potential
+		brushSigma = math.Min(sigma, MaxDensityOneSided(lim.AirBreakdown))
 		if given(in.Field) {
-			ev.SurfaceField = OneSidedField(brushSigma)
+			ev.Assumed |= AssumedElectrodeDraw
+			// The air-side field shown is the reading (capped at air breakdown).
+			ev.SurfaceField = math.Min(math.Abs(in.Field), lim.AirBreakdown)
+		} else {
+			ev.SurfaceField = nan // the air-side field is not known from a potential
 		}
 	}
 	ev.BrushDensity = brushSigma
@@ -439,6 +435,14 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	br := &ev.Discharges[Brush]
 	screen := lim.BrushChargeDensity[groupIndex(env.Group)]
 	switch {
+	case freeLower && !(brushSigma > screen) && !leaks:
+		// A lower bound below the screen clears nothing (principle 3): the brush is
+		// not assessed until the distance to earth is measured (where a brush could
+		// ignite the atmosphere at all; elsewhere it is left unevaluated).
+		if BrushIgnites(*env, *lim) {
+			ev.NotAssessed |= MissingDistanceToEarth
+		}
+		markNotEvaluated(ev, Brush)
 	case !(brushSigma > screen):
 		if leaks {
 			setReason(br, ReasonBrushLeaks, ev.SurfaceResistivity, nan)
@@ -628,9 +632,6 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 			ev.Flags |= FlagCappedConductor
 		}
 	} else {
-		if v > lim.ConductorMaxPotential {
-			ev.Flags |= FlagMeasuredAboveMaximum
-		}
 		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind == Roller && positive(in.Diameter) {
@@ -655,6 +656,7 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	} else if ev.PotentialSource != PotentialMeasured {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
+	reading := measuredAboveMaximum(ev, in, lim, &v)
 	ev.Potential = v
 	w := SparkEnergy(c, v)
 	ev.StoredEnergy = w
@@ -662,6 +664,9 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 	if v >= lim.SparkMinPotential {
 		sp.Possible = true
 		setReason(sp, ReasonSparkSurface, v, w)
+		if given(reading) {
+			setReason(sp, ReasonSparkReadingAboveMaximum, reading, v)
+		}
 	} else {
 		setReason(sp, ReasonSparkBelowPaschen, v, lim.SparkMinPotential)
 	}
@@ -862,9 +867,6 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 			ev.Flags |= FlagCappedConductor
 		}
 	} else {
-		if in.Kind != Person && v > lim.ConductorMaxPotential {
-			ev.Flags |= FlagMeasuredAboveMaximum
-		}
 		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind != Person && positive(in.Diameter) && in.Kind != Liquid {
@@ -890,6 +892,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	} else if in.Kind != Person {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
+	reading := measuredAboveMaximum(ev, in, lim, &v)
 	ev.Potential = v
 
 	w := SparkEnergy(c, v)
@@ -899,6 +902,9 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	if v >= lim.SparkMinPotential {
 		sp.Possible = true
 		setReason(sp, ReasonSparkPossible, v, w)
+		if given(reading) {
+			setReason(sp, ReasonSparkReadingAboveMaximum, reading, v)
+		}
 	} else {
 		setReason(sp, ReasonSparkBelowPaschen, v, lim.SparkMinPotential)
 	}
@@ -917,6 +923,33 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	if w > lim.ShockEnergy {
 		ev.Flags |= FlagShock
 	}
+}
+
+// measuredAboveMaximum bounds a measured potential *v above the realistic
+// maximum a plant conductor (Limits.ConductorMaxPotential) or a body
+// (Limits.PersonMaxPotential) holds before it goes into corona (reference
+// sections 3 and 12, realistic potentials: a spark of kJ is an artefact, not a
+// finding): the contradiction is flagged (FlagMeasuredAboveMaximum), the reading
+// kept in UncappedPotential and returned, and *v set to the maximum so that the
+// energy and the ranking rest on what the plant can hold. The spark stays
+// counted at the maximum (principle 1: the reading's hazard is kept). It returns
+// NaN when the potential is not a reading above the maximum.
+func measuredAboveMaximum(ev *Evaluation, in *Input, lim *Limits, v *float64) float64 {
+	if ev.PotentialSource != PotentialMeasured {
+		return math.NaN()
+	}
+	max := lim.ConductorMaxPotential
+	if in.Kind == Person {
+		max = lim.PersonMaxPotential
+	}
+	if !(*v > max) {
+		return math.NaN()
+	}
+	ev.Flags |= FlagMeasuredAboveMaximum
+	reading := *v
+	ev.UncappedPotential = reading
+	*v = max
+	return reading
 }
 
 // earthingContradiction compares a measured potential v with what the measured
@@ -1046,7 +1079,7 @@ func evalPowder(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 	kappa := in.Conductivity
 	ev.ConductivityClass = ClassifyConductivity(kappa, *lim)
-	if ev.ConductivityClass == ConductivityUnknown {
+	if ev.ConductivityClass == ConductivityUnknown || in.ConductivityAssumed {
 		ev.Assumed |= AssumedLowConductivity
 	}
 	ev.RuleClass = ev.ConductivityClass
@@ -1055,11 +1088,13 @@ func evalLiquid(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		ev.RuleClass = ConductivityLow
 		ev.Flags |= FlagSecondPhaseLow
 	}
-	low := ev.RuleClass == ConductivityLow || ev.RuleClass == ConductivityUnknown
 	// Unknown conductivity is the stricter case of each (principle 2): low for
-	// the filling clauses and the brush, conductive for the isolated liquid.
+	// the filling clauses and the brush, conductive for the isolated liquid. A
+	// list's typical value (ConductivityAssumed) sets the filling clauses, a
+	// documented choice, but never clears the isolated liquid's spark.
+	low := ev.RuleClass == ConductivityLow || ev.RuleClass == ConductivityUnknown
 	conductive := ev.ConductivityClass == ConductivityMedium || ev.ConductivityClass == ConductivityHigh ||
-		ev.ConductivityClass == ConductivityUnknown
+		ev.ConductivityClass == ConductivityUnknown || in.ConductivityAssumed
 
 	epsr := in.Permittivity
 	if !positive(epsr) {
@@ -1272,6 +1307,17 @@ func evalBag(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		}
 	case BagC:
 		setReason(pb, ReasonBrushBagProtected, math.NaN(), math.NaN())
+		// Corona from the conductive threads, earthed or not (an unknown earthing
+		// never milder), as for type D: it is counted only where it ignites
+		// (finish, CoronaIgnites: MIE below Limits.CoronaEnergy, hydrogen;
+		// reference section 3), an atmosphere for which no bag type is qualified
+		// (IEC 61340-4-4, reference section 8b).
+		defer func() {
+			if co := &ev.Discharges[Corona]; !co.Possible {
+				co.Possible, co.Energy = true, lim.CoronaEnergy
+				setReason(co, ReasonCoronaBagC, lim.CoronaEnergy, math.NaN())
+			}
+		}()
 		if given(in.Resistance) && in.Resistance <= lim.BagTabToEarth {
 			ev.Resistance = in.Resistance
 			setReason(sp, ReasonSparkBagEarthed, in.Resistance, lim.BagTabToEarth)

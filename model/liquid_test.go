@@ -334,3 +334,49 @@ func TestLiquidRulesTable(t *testing.T) {
 		t.Error("road-tanker v d limits are confirmed (reference section 8 [C])")
 	}
 }
+
+// TestUnknownConductivityInInsulatingVessel: a liquid whose conductivity is not
+// on the row (blank, or only a list's typical value) filled into a plastic IBC
+// takes the conductive case for the spark of the isolated liquid as well as the
+// low case for the filling clauses and the surface brush (principle 2)
+// (IEC TS 60079-32-1:2013+A1:2017 clause 7, conductive liquids in insulating
+// containers; reference section 12: a conductive liquid in an insulating
+// container is an isolated conductor).
+func TestUnknownConductivityInInsulatingVessel(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	for _, c := range []struct {
+		name    string
+		kappa   float64
+		assumed bool
+	}{
+		{"blank", math.NaN(), false},
+		{"typical 1 pS/m from the list, not measured", 1e-12, true},
+	} {
+		in := blank(Liquid)
+		in.Conductivity, in.ConductivityAssumed, in.Permittivity = c.kappa, c.assumed, 2.4
+		in.Speed, in.Diameter = 1, 0.05
+		in.VesselMaterial, in.VesselClass = VesselInsulating, VesselIBC
+		in.Filling, in.Filter, in.SecondPhase = FillTop, FilterNone, PhaseNone
+		ev := Evaluate(in, env, lim)
+		// derived: plain pipe 3.75e-6 x 1^2 x 0.05^2 = 9.375e-9 A; not earthed, no
+		// charging time: capped at the 50 kV realistic maximum (reference section 12);
+		// IBC 300 pF (from memory): W = 0.5 x 300e-12 x (5e4)^2 = 0.375 J.
+		near(t, c.name+": current", ev.ChargingCurrent, 9.375e-9, 1e-9)
+		want := ClauseSplash | ClauseInsulatingVessel | ClauseIsolatedLiquid
+		if ev.LiquidBreaches&want != want {
+			t.Errorf("%s: clauses %b, want splash, insulating vessel and isolated liquid", c.name, ev.LiquidBreaches)
+		}
+		sp := ev.Discharges[Spark]
+		if !sp.Possible || sp.Code != ReasonSparkLiquidIsolated {
+			t.Errorf("%s: spark %+v, want the isolated liquid's", c.name, sp)
+		}
+		near(t, c.name+": spark energy", sp.Energy, 0.375, 1e-9)
+		if b := ev.Discharges[Brush]; !b.Possible || b.Code != ReasonBrushLiquidNoSafeLimits {
+			t.Errorf("%s: brush %+v, want no safe limits", c.name, b)
+		}
+		if ev.Assumed&AssumedLowConductivity == 0 {
+			t.Errorf("%s: conductivity not marked assumed", c.name)
+		}
+	}
+}

@@ -83,6 +83,8 @@ const (
 	ReasonPropReadingOverBreakdown // A voltage across the layer, B measured breakdown (V)
 	ReasonCoronaIgnites            // A corona equivalent energy bound (J), B MIE (J)
 	ReasonConeAboveRange           // A silo diameter, B particle size (m)
+	ReasonSparkReadingAboveMaximum // A measured potential, B realistic maximum used (V)
+	ReasonCoronaBagC               // A corona equivalent energy bound (J)
 
 	numReasons
 )
@@ -218,6 +220,10 @@ func (r Reason) Text(a, b float64) string {
 		return "The row shows the powder does not charge (charge-to-mass or charging current of zero): no brush discharge from it."
 	case ReasonConeFieldAndVessel:
 		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m³: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
+	case ReasonSparkReadingAboveMaximum:
+		return fmt.Sprintf("The reading of %s is beyond what air lets a plant conductor or body hold (it goes into corona first; reference sections 3 and 12, realistic potentials): the spark is taken at the realistic maximum of %s, W = C V^2/2, so that the energy and ranking do not rest on an artefact; check the meter, its range and unit.", Quantity(a, "V"), Quantity(b, "V"))
+	case ReasonCoronaBagC:
+		return fmt.Sprintf("The conductive threads of a type C bag are sharp electrodes that go into corona as the fabric charges (earthed, that is how the bag sheds its charge, IEC 61340-4-4): corona is counted at its equivalent energy bound of %s; it ignites only very sensitive gases such as hydrogen (reference section 3), for which no bag type is qualified.", Quantity(a, "J"))
 	case ReasonSparkInsulatingVessel:
 		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
 	case ReasonSparkLiquidIsolated:
@@ -345,6 +351,7 @@ const (
 	AssumedInletVelocity
 	AssumedFilterResidence
 	AssumedElectrodeDraw
+	AssumedFreeSheetLowerBound
 	numAssumptions = iota
 )
 
@@ -386,7 +393,7 @@ func assumptionTexts() [numAssumptions]string {
 		"second phase not stated: taken as present (the stricter case; write none when there is none)",
 		"inlet velocity until submerged not given: the slow start is not shown met",
 		"residence time after the filter not given: none taken",
-		"layer on earthed metal thicker than a coating: its brush screened on the most an earthed electrode could draw before air breaks down, min(sigma, eps0 Eb), not on the air-side charge the meter sees (the electrode's approach is unknown: the stricter case)",
+		"layer on earthed metal read by field: its brush screened on the most an earthed electrode could draw before air breaks down, min(sigma, eps0 Eb), not on the air-side charge the meter sees (the electrode's approach is unknown: the stricter case; the same as for the surface potential E z)", "distance to earth not given: the free sheet of the object's size taken, the lowest charge density the Surface potential can mean (sigma >= V C_free / A, C_free = 8 eps0 r of the disc of equal area, textbook): it can show a brush, never clear one",
 	}
 }
 
@@ -468,6 +475,7 @@ const (
 	MissingConeSize
 	MissingLiquidFlow
 	MissingSurfaceSpark
+	MissingDistanceToEarth
 	numMissing = iota
 )
 
@@ -484,6 +492,7 @@ func missingTexts() [numMissing]string {
 		"needs Diameter and Particle size for the cone discharge energy",
 		"needs Speed and Diameter of the line, or Charging current",
 		"needs Surface potential, Length and Width, or Charging current to judge the spark of the unearthed conducting surface",
+		"the free sheet's charge density, the lowest the Surface potential can mean, is below the brush screen, which a lower bound cannot clear: measure the Distance to earth (or give Backing earthed with Thickness) to judge the brush",
 	}
 }
 

@@ -329,7 +329,8 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 	if math.IsNaN(in.Conductivity) {
 		if ok && sub.Conductivity > 0 {
 			in.Conductivity = sub.Conductivity
-			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity), Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
+			in.ConductivityAssumed = true
+			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity) + " (typical) for the filling clauses; conductive for a spark of the liquid", Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s); a value not on the row never clears the spark of an isolated conductive liquid (principle 2)", sub.Name, sub.Source)})
 		} else {
 			defs = append(defs, Default{Field: "Conductivity", Value: "unknown: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid", Reason: "not given: the stricter case of each (principle 2): the low-conductivity filling limits and liquid-surface brush, and, in an insulating, lined, glass or unknown vessel not earthed, the spark of an isolated conductive liquid"})
 		}
@@ -359,6 +360,9 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
 	}
 	if ev.Flags&model.FlagReadingAboveBreakdown != 0 && !math.IsNaN(ev.ReadingDensity) {
 		defs = append(defs, Default{Field: "Charge density", Value: uCm2(ev.ChargeDensity), Reason: fmt.Sprintf("the reading inverts to %s, more than air lets the surface hold: capped at the breakdown limit (CCPS glossary; a screening choice of this tool), the reading to be checked", uCm2(ev.ReadingDensity))})
+	}
+	if ev.Flags&model.FlagMeasuredAboveMaximum != 0 && !math.IsNaN(ev.UncappedPotential) {
+		defs = append(defs, Default{Field: "Potential used", Value: kV(ev.Potential), Reason: fmt.Sprintf("the reading of %s is beyond what air lets a plant conductor or body hold before it goes into corona (reference sections 3 and 12, realistic potentials): the spark energy and the ranking are taken at the realistic maximum, the reading kept as a contradiction finding", kV(ev.UncappedPotential))})
 	}
 	if ev.Flags&model.FlagCappedConductor != 0 {
 		defs = append(defs, Default{Field: "Conductor potential", Value: kV(ev.Potential), Reason: "not measured: the estimate is capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)"})

@@ -265,7 +265,11 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		msg = fmt.Sprintf("%s inverts to %s, more than air lets the surface hold (air breaks down at %s): a bad reading or unit, not a bigger hazard; check the meter's distance, unit and range and repeat it; the charge density used is capped at the breakdown limit, %s", what, uCm2(ev.ReadingDensity), sig(lim.AirBreakdown/1e3)+" kV/m", uCm2(ev.ChargeDensity))
 	}
 	if k == CheckMeasuredAboveMaximum {
-		msg = fmt.Sprintf("measured potential %s is above the realistic plant maximum of %s: a contradiction between reading and model; the reading is kept (W = %s)", kV(ev.Potential), kV(lim.ConductorMaxPotential), mJ(ev.StoredEnergy))
+		what := "plant conductor"
+		if in.Kind == model.Person {
+			what = "body"
+		}
+		msg = fmt.Sprintf("measured potential %s is above the realistic maximum of %s a %s holds before it goes into corona: a contradiction between reading and model, the reading to be checked (meter, range, unit); the spark is kept but its energy taken at the maximum (W = %s), so the verdict and ranking do not rest on an artefact (reference sections 3 and 12, realistic potentials)", kV(ev.UncappedPotential), kV(ev.Potential), what, mJ(ev.StoredEnergy))
 	}
 	if k == CheckEnergyMIE || k == CheckEnergyMargin {
 		cls := mitigationClass(in, c.Discharge)
@@ -307,13 +311,12 @@ func (x *objectContext) reason(r *ObjectResult, c *Classification, causeText str
 		} else if n > 1 {
 			s += fmt.Sprintf("; %d further findings", n)
 		}
-		if c.Cause != CauseNone && causeText != "" {
-			if !math.IsNaN(c.Ratio) {
-				// The energy finding rests on the discharges evaluated: a lower bound.
-				s += "; a lower bound: not every discharge was evaluated (" + causeText + ")"
-			} else {
-				s += "; the discharge energy was not assessed (" + causeText + ")"
-			}
+		switch {
+		case c.Cause != CauseNone && causeText != "" && !math.IsNaN(c.Ratio):
+			// The energy judged is a lower bound: the discharges evaluated already reach it.
+			s += "; that energy is a lower bound, not every discharge could be evaluated (" + causeText + ")"
+		case c.Cause != CauseNone && causeText != "":
+			s += "; the discharge energy was not assessed (" + causeText + ")"
 		}
 		return s + "."
 	}
@@ -388,9 +391,16 @@ func clauseCite(k Check, in *model.Input) string {
 // was found against which limit, ending with the clause it rests on.
 func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *model.Limits) string {
 	var msg string
-	cond := "unknown conductivity (taken as low)"
-	if !math.IsNaN(in.Conductivity) {
+	// A conductivity not on the row (blank, or only a list's typical value) is
+	// never quoted as if entered: it is unknown, taken as low for the filling
+	// clauses and as conductive for the isolated liquid (principle 2).
+	cond, condConductive := "conductivity not given, taken as low", "conductivity not given, taken as conductive"
+	if in.ConductivityAssumed && in.Conductivity > lim.LowConductivity {
+		cond = "conductivity not given, typical " + pSm(in.Conductivity)
+	}
+	if !math.IsNaN(in.Conductivity) && !in.ConductivityAssumed {
 		cond = "conductivity " + pSm(in.Conductivity)
+		condConductive = cond
 	}
 	speed := "not given"
 	if !math.IsNaN(in.Speed) {
@@ -466,9 +476,9 @@ func liquidFindingText(k Check, in *model.Input, ev *model.Evaluation, lim *mode
 			what = "a vessel of unknown material (taken as insulating)"
 		}
 		if math.IsNaN(in.Resistance) {
-			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth through an earthed dip pipe or rod is not measured (limit %s)", cond, what, ohm(lim.ConductorEarthing))
+			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth through an earthed dip pipe or rod is not measured (limit %s)", condConductive, what, ohm(lim.ConductorEarthing))
 		} else {
-			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth %s exceeds %s", cond, what, ohm(in.Resistance), ohm(lim.ConductorEarthing))
+			msg = fmt.Sprintf("a conductive liquid (%s) in %s is an isolated conductor: its resistance to earth %s exceeds %s", condConductive, what, ohm(in.Resistance), ohm(lim.ConductorEarthing))
 		}
 	}
 	if c := clauseCite(k, in); c != "" {

@@ -6,6 +6,7 @@ package assess
 
 import (
 	"fmt"
+	"math"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
@@ -127,6 +128,14 @@ const RatioAssumedText = ">= 1 (assumed R)"
 // RatioAssumed reports whether the object's ratio is at least 1 only because no
 // leakage was assumed for an unmeasured resistance to earth: its size (the 50 kV
 // cap times the capacitance) is no figure to read or rank by (reference section 12).
+// EnergyStated reports whether the effective energy is a stated result: every
+// input was there, or some were missing but the discharges that could be
+// evaluated already reach the margin, so their energy is judged as a lower bound
+// and carries the ratio (Classify). The energy, the ratio and the words agree.
+func (r *ObjectResult) EnergyStated() bool {
+	return r.Eval.NotAssessed == 0 || (r.Ratio != nil && !math.IsNaN(*r.Ratio))
+}
+
 func (r *ObjectResult) RatioAssumed() bool {
 	return r.Ratio != nil && *r.Ratio >= 1 && AssumedResistanceDominates(&r.Eval, r.Eval.Effective)
 }

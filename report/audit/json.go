@@ -365,7 +365,7 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		jo.ChargeFactor, jo.FilterResidenceS = book.Finite(e.ChargeFactor), book.Finite(e.FilterResidence)
 		jo.FillingClausesNotMet = e.LiquidBreaches.Texts()
 	}
-	if e.NotAssessed == 0 {
+	if o.EnergyStated() {
 		jo.EnergyJ = book.Finite(e.EffectiveEnergy)
 		if jo.EnergyJ != nil && *jo.EnergyJ > 0 {
 			jo.EffectiveDischarge = strPtr(e.Effective.String())

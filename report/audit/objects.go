@@ -181,7 +181,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			return ratioCell(o.Ratio)
 		}},
 		{Header: book.UnitMJ.Header("Effective energy"), Width: 11, Value: func(o objRow) book.Cell {
-			if o.Eval.NotAssessed != 0 {
+			if !o.EnergyStated() {
 				return book.Cell{NumFmt: book.UnitMJ.NumFmt()}
 			}
 			if assess.AssumedResistanceDominates(&o.Eval, o.Eval.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
@@ -195,12 +195,12 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			case o.Eval.Effective == model.PropagatingBrush:
 				c = est(c, hasDefault(o, "propagating"))
 			case o.Eval.Effective == model.Spark:
-				c = est(c, hasDefault(o, "capacitance", "body potential"))
+				c = est(c, hasDefault(o, "capacitance", "body potential", "potential used"))
 			}
 			return c
 		}},
 		{Header: "Effective discharge", Width: 12, Value: func(o objRow) book.Cell {
-			if o.Eval.NotAssessed != 0 || o.Eval.EffectiveEnergy == 0 || math.IsNaN(o.Eval.EffectiveEnergy) {
+			if !o.EnergyStated() || o.Eval.EffectiveEnergy == 0 || math.IsNaN(o.Eval.EffectiveEnergy) {
 				return book.Cell{}
 			}
 			return book.Text(o.Eval.Effective.String())
