@@ -635,24 +635,7 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind == Roller && positive(in.Diameter) {
-		temp := env.Temperature
-		if !positive(temp) {
-			temp = DefaultTemperature
-			ev.Assumed |= AssumedTemperature
-		}
-		hh := math.NaN()
-		if positive(in.DistanceToEarth) {
-			hh = in.DistanceToEarth + in.Diameter/2
-		}
-		ev.CoronaOnset = CoronaOnsetPotential(in.Diameter/2, hh, RelativeAirDensity(temp))
-		if v > ev.CoronaOnset {
-			if ev.PotentialSource == PotentialMeasured {
-				ev.Flags |= FlagSuspectReading
-			} else {
-				v = ev.CoronaOnset
-				ev.Flags |= FlagCappedCorona
-			}
-		}
+		v, _ = capAtCoronaOnset(ev, in, env, v)
 	} else if ev.PotentialSource != PotentialMeasured {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
@@ -870,25 +853,7 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 		earthingContradiction(ev, in, lim, v)
 	}
 	if in.Kind != Person && positive(in.Diameter) && in.Kind != Liquid {
-		rad := in.Diameter / 2
-		temp := env.Temperature
-		if !positive(temp) {
-			temp = DefaultTemperature
-			ev.Assumed |= AssumedTemperature
-		}
-		h := math.NaN()
-		if positive(in.DistanceToEarth) {
-			h = in.DistanceToEarth + rad
-		}
-		ev.CoronaOnset = CoronaOnsetPotential(rad, h, RelativeAirDensity(temp))
-		if v > ev.CoronaOnset {
-			if ev.PotentialSource == PotentialMeasured {
-				ev.Flags |= FlagSuspectReading
-			} else {
-				v, capped = ev.CoronaOnset, true
-				ev.Flags |= FlagCappedCorona
-			}
-		}
+		v, capped = capAtCoronaOnset(ev, in, env, v)
 	} else if in.Kind != Person {
 		ev.Assumed |= AssumedNoCoronaCap
 	}
@@ -1335,4 +1300,31 @@ func evalBag(ev *Evaluation, in *Input, env *Environment, lim *Limits) {
 		co.Possible, co.Energy = true, lim.CoronaEnergy
 		setReason(co, ReasonCoronaBagD, math.NaN(), math.NaN())
 	}
+}
+
+// capAtCoronaOnset sets the corona onset (Peek) of the object's radius
+// Diameter/2, at Distance to earth when given, and caps an estimated potential v
+// there (a measured one above it is flagged as a suspect reading instead, never
+// capped). It returns the potential used and whether it was capped.
+func capAtCoronaOnset(ev *Evaluation, in *Input, env *Environment, v float64) (float64, bool) {
+	rad := in.Diameter / 2
+	temp := env.Temperature
+	if !positive(temp) {
+		temp = DefaultTemperature
+		ev.Assumed |= AssumedTemperature
+	}
+	h := math.NaN()
+	if positive(in.DistanceToEarth) {
+		h = in.DistanceToEarth + rad
+	}
+	ev.CoronaOnset = CoronaOnsetPotential(rad, h, RelativeAirDensity(temp))
+	if !(v > ev.CoronaOnset) {
+		return v, false
+	}
+	if ev.PotentialSource == PotentialMeasured {
+		ev.Flags |= FlagSuspectReading
+		return v, false
+	}
+	ev.Flags |= FlagCappedCorona
+	return ev.CoronaOnset, true
 }
