@@ -34,6 +34,7 @@ type Run struct {
 	Out         io.Writer
 	ErrOut      io.Writer
 	Progress    Progress
+	Summary     audit.SummaryOptions // trims the terminal summary (--top, --quiet)
 }
 
 // Info returns the run facts the outputs record for survey s.
@@ -249,7 +250,7 @@ func RejectedObjects(s *inventory.Survey) int {
 // printAudit writes the terminal summary of a and the files written.
 func (r *Run) printAudit(a *assess.Audit, out Outputs) {
 	w := r.out()
-	audit.WriteSummary(w, a)
+	audit.WriteSummaryWith(w, a, r.Summary)
 	fmt.Fprintf(w, "\nAudit workbook: %s\n", out.Workbook)
 	if out.JSON != "" {
 		fmt.Fprintf(w, "Audit JSON:     %s\n", out.JSON)

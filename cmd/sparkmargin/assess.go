@@ -9,6 +9,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 )
 
 type assessOptions struct {
@@ -23,6 +24,8 @@ type assessOptions struct {
 	samples       int
 	seed          uint64
 	workers       int
+	top           int      // print only the top worst stations
+	quiet         bool     // no station table
 	args          []string // the command line, for the Method sheet
 }
 
@@ -61,18 +64,24 @@ func newAssessCmd(ws *report.Workspace) *cobra.Command {
 	c.Flags().IntVar(&o.samples, "samples", 0, "Monte Carlo samples per object for the probability of each verdict (0: point estimate only)")
 	c.Flags().Uint64Var(&o.seed, "seed", assess.DefaultSeed, "Monte Carlo seed, recorded on the Method sheet and in the JSON")
 	c.Flags().IntVar(&o.workers, "workers", 0, "Monte Carlo worker goroutines (0: all cores); results do not depend on it")
+	c.Flags().IntVar(&o.top, "top", 0, "print only the N worst stations, then how many more the workbook holds (0: all)")
+	c.Flags().BoolVarP(&o.quiet, "quiet", "q", false, "no station table: only the counts, the cautions and the files written (errors still printed)")
 	return c
 }
 
 // runAssess runs the report pipeline on one survey or many; report's errors
 // carry their class, which run maps to the exit code.
 func runAssess(out, errOut io.Writer, o assessOptions) error {
+	if o.top < 0 {
+		return withCode(exitUsage, fmt.Errorf("--top takes a count of 1 or more, or 0 for all stations (got %d)", o.top))
+	}
 	if o.samples < 0 || o.workers < 0 {
 		return withCode(exitUsage, fmt.Errorf("--samples and --workers take a count of 0 or more (got --samples %d, --workers %d)", o.samples, o.workers))
 	}
 	r := &report.Run{
 		Workspace: o.ws, Samples: o.samples, Seed: o.seed, Workers: o.workers, Strict: o.strict,
 		ToolVersion: version, CommandLine: o.args, Out: out, ErrOut: errOut, Progress: newProgress(errOut),
+		Summary: audit.SummaryOptions{Top: o.top, Quiet: o.quiet},
 	}
 	pf := report.PortfolioFiles{Workbook: o.portfolio, JSON: o.portfolioJSON}
 	if o.survey != "" {

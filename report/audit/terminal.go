@@ -11,13 +11,46 @@ import (
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
+// SummaryOptions trims the terminal summary; the zero value prints it whole.
+// Whatever the options, the objects-by-verdict line, the warnings and the
+// cautions line are always printed (the cautions line is a safety rule).
+type SummaryOptions struct {
+	// Top > 0 prints only the Top worst-ranked stations, then a line saying
+	// how many more the workbook's Stations sheet holds.
+	Top int
+	// Quiet prints no station table, no Monte Carlo line, and the survey-rows
+	// line only when a row was rejected or warned about.
+	Quiet bool
+}
+
 // WriteSummary writes the short plain-text summary of an audit for the
 // terminal: the ranked stations (rank, station, verdict, worst ratio, counts),
 // the objects by verdict, the survey rows accepted and rejected, and the
 // cautions line. Columns are aligned with text/tabwriter; no colours.
 func WriteSummary(w io.Writer, a *assess.Audit) error {
+	return WriteSummaryWith(w, a, SummaryOptions{})
+}
+
+// WriteSummaryWith is WriteSummary trimmed by opt.
+func WriteSummaryWith(w io.Writer, a *assess.Audit, opt SummaryOptions) error {
 	if a == nil {
 		return fmt.Errorf("write summary: no audit")
+	}
+	if !opt.Quiet {
+		if err := writeStationTable(w, a, opt.Top); err != nil {
+			return err
+		}
+	}
+	return writeSummaryTail(w, a, opt.Quiet)
+}
+
+// writeStationTable writes the ranked stations, the top ones only when top > 0
+// (a.Stations is in rank order, worst first), and a line counting the rest.
+func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
+	stations := a.Stations
+	more := 0
+	if top > 0 && top < len(stations) {
+		stations, more = stations[:top], len(stations)-top
 	}
 	sampled := a.Options.Samples > 0
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -25,16 +58,16 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 	if sampled {
 		header += "\tP(any incendive)"
 	}
-	noted := false // a Note column only when a station has one (incomplete, or ranked on an assumed resistance)
-	for i := range a.Stations {
-		noted = noted || len(a.Stations[i].Notes()) > 0
+	noted := false // a Note column only when a shown station has one (incomplete, or ranked on an assumed resistance)
+	for i := range stations {
+		noted = noted || len(stations[i].Notes()) > 0
 	}
 	if noted {
 		header += "\tNote"
 	}
 	fmt.Fprintln(tw, header)
-	for i := range a.Stations {
-		s := &a.Stations[i]
+	for i := range stations {
+		s := &stations[i]
 		name := s.Station.ID
 		if s.Station.Name != "" {
 			name += " " + s.Station.Name
@@ -60,6 +93,15 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 	if err := tw.Flush(); err != nil {
 		return fmt.Errorf("write summary: %w", err)
 	}
+	if more > 0 {
+		fmt.Fprintf(w, "... %d more station(s) in the audit workbook's %s sheet\n", more, SheetStations)
+	}
+	return nil
+}
+
+// writeSummaryTail writes the counts, warnings, survey rows and cautions lines.
+func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
+	sampled := a.Options.Samples > 0
 	var parts []string
 	total := 0
 	for _, v := range verdictOrder() {
@@ -70,7 +112,7 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 	if a.Survey != nil && !a.Survey.Site.RelativeHumidity.Known {
 		fmt.Fprintf(w, "Warning: the Site sheet gives no relative humidity (an error for check): stations without their own were assessed at the dry-day %g %%RH, shown on the Summary sheet\n", assess.DryDayHumidity)
 	}
-	if sampled {
+	if sampled && !quiet {
 		fmt.Fprintf(w, "Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet)\n", a.Options.Samples, a.Options.Seed)
 	}
 	if a.Survey != nil {
@@ -94,7 +136,9 @@ func WriteSummary(w io.Writer, a *assess.Audit) error {
 		if rej > 0 || len(a.Survey.Warnings()) > 0 {
 			line += " (see the Rejected sheet)"
 		}
-		fmt.Fprintln(w, line)
+		if !quiet || rej > 0 || len(a.Survey.Warnings()) > 0 {
+			fmt.Fprintln(w, line)
+		}
 	}
 	_, err := fmt.Fprintf(w, "\n%s\n", templates.CautionLine)
 	if err != nil {

@@ -91,3 +91,41 @@ func TestStationNotes(t *testing.T) {
 		t.Errorf("JSON station %+v", st)
 	}
 }
+
+// TestWriteSummaryTrimmed: --top N shows the N worst stations (the fixture's
+// three stations ranked S1, S2, S3) and counts the rest; --quiet shows no
+// station table; the counts and cautions lines are printed whatever the
+// options (the cautions line is a safety rule).
+func TestWriteSummaryTrimmed(t *testing.T) {
+	cases := []struct {
+		name      string
+		opt       SummaryOptions
+		want, not []string
+	}{
+		{"top 1", SummaryOptions{Top: 1}, []string{"S1 Coater", "... 2 more station(s) in the audit workbook's Stations sheet"}, []string{"S2 Powder", "S3 Warehouse"}},
+		{"top 2", SummaryOptions{Top: 2}, []string{"S1 Coater", "S2 Powder", "... 1 more station(s)"}, []string{"S3 Warehouse"}},
+		{"top as many as stations", SummaryOptions{Top: 3}, []string{"S1 Coater", "S3 Warehouse"}, []string{"more station"}},
+		{"top above", SummaryOptions{Top: 50}, []string{"S3 Warehouse"}, []string{"more station"}},
+		{"quiet", SummaryOptions{Quiet: true}, []string{"Objects: 9", "21 read, 20 accepted, 1 rejected"}, []string{"Rank", "S1 Coater", "more station"}},
+		{"quiet wins over top", SummaryOptions{Quiet: true, Top: 1}, nil, []string{"Rank", "S1 Coater", "more station"}},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			var b bytes.Buffer
+			if err := WriteSummaryWith(&b, testAudit(), c.opt); err != nil {
+				t.Fatal(err)
+			}
+			s := b.String()
+			for _, w := range append(c.want, "Objects: 9", templates.CautionLine) {
+				if !strings.Contains(s, w) {
+					t.Errorf("summary lacks %q:\n%s", w, s)
+				}
+			}
+			for _, w := range c.not {
+				if strings.Contains(s, w) {
+					t.Errorf("summary holds %q:\n%s", w, s)
+				}
+			}
+		})
+	}
+}
