@@ -36,7 +36,16 @@ type Pending struct {
 	f         *os.File // open while pending: it holds the lock
 	sum       string
 	ws        *Workspace
+	stdout    io.Writer // path is Stdout: commit copies the file there instead of renaming it
 }
+
+// Stdout is the output name that means standard output: a JSON path given as
+// "-" is written whole into the run's private folder first and copied to the
+// workspace's standard output at Commit, in its turn with the other outputs.
+const Stdout = "-"
+
+// IsStdout reports whether an output path names standard output.
+func IsStdout(path string) bool { return path == Stdout }
 
 // Path returns the target the pending output will replace.
 func (p *Pending) Path() string { return p.path }
@@ -69,6 +78,9 @@ func writeFileAtomic(path string, wrap func(io.Writer) io.Writer, write func(io.
 func prepare(ws *Workspace, path string, wrap func(io.Writer) io.Writer, write func(io.Writer) error) (_ *Pending, err error) {
 	if path == "" {
 		return nil, errors.New("write output: empty file name")
+	}
+	if IsStdout(path) {
+		return prepareStdout(ws, wrap, write)
 	}
 	if fi, statErr := os.Stat(path); statErr == nil && fi.IsDir() {
 		return nil, fmt.Errorf("write %s: the target is a folder, give a file name", path)
@@ -135,6 +147,34 @@ func prepare(ws *Workspace, path string, wrap func(io.Writer) io.Writer, write f
 	return p, nil
 }
 
+// prepareStdout writes an output meant for standard output whole into the
+// run's private folder, so that a failure half-way prints nothing.
+func prepareStdout(ws *Workspace, wrap func(io.Writer) io.Writer, write func(io.Writer) error) (_ *Pending, err error) {
+	if ws == nil || ws.stdout == nil {
+		return nil, errors.New("write to standard output: no standard output for this run")
+	}
+	dir, err := ws.Dir()
+	if err != nil {
+		return nil, err
+	}
+	tmp, err := ws.register(func() (*os.File, error) { return os.CreateTemp(dir, "stdout-*") })
+	if err != nil {
+		return nil, fmt.Errorf("write to standard output: create temporary file: %w", err)
+	}
+	p := &Pending{path: Stdout, tmp: tmp.Name(), f: tmp, ws: ws, stdout: ws.stdout}
+	h := sha256.New()
+	var w io.Writer = io.MultiWriter(tmp, h)
+	if wrap != nil {
+		w = wrap(w)
+	}
+	if err := write(w); err != nil {
+		p.discard()
+		return nil, fmt.Errorf("write to standard output: %w", err)
+	}
+	p.sum = hexSum(h)
+	return p, nil
+}
+
 func hexSum(h hash.Hash) string { return hex.EncodeToString(h.Sum(nil)) }
 
 // commit renames every pending file into place, in order, one right after
@@ -174,6 +214,9 @@ func commit(ws *Workspace, ps []*Pending) error {
 // rename closes the temporary file (keeping its lock to the last moment
 // where the system allows renaming an open file) and renames it into place.
 func (p *Pending) rename() error {
+	if p.stdout != nil {
+		return p.copyOut()
+	}
 	if !renameOpenFile {
 		_ = p.f.Close()
 	}
@@ -188,6 +231,19 @@ func (p *Pending) rename() error {
 		if err := p.f.Close(); err != nil {
 			return fmt.Errorf("write %s: close: %w", p.path, err)
 		}
+	}
+	return nil
+}
+
+// copyOut copies an output meant for standard output there and removes its
+// temporary file.
+func (p *Pending) copyOut() error {
+	defer p.discardLocked()
+	if _, err := p.f.Seek(0, io.SeekStart); err != nil {
+		return fmt.Errorf("write to standard output: %w", err)
+	}
+	if _, err := io.Copy(p.stdout, p.f); err != nil {
+		return fmt.Errorf("write to standard output: %w", err)
 	}
 	return nil
 }

@@ -92,6 +92,14 @@ func RefuseClashes(inputs, outputs []NamedPath) error {
 		if o.Path == "" {
 			continue
 		}
+		if IsStdout(o.Path) {
+			for _, o2 := range outputs[:i] {
+				if IsStdout(o2.Path) {
+					return unusable(fmt.Errorf("%s and %s both name standard output (-); only one output can go there", o2.Role, o.Role))
+				}
+			}
+			continue
+		}
 		for _, in := range inputs {
 			if in.Path != "" && sameTarget(o.Path, in.Path, false, true) {
 				return unusable(fmt.Errorf("refusing to write %s %s: it is %s itself (%s, the file %s); choose another output name",
@@ -106,6 +114,15 @@ func RefuseClashes(inputs, outputs []NamedPath) error {
 		}
 	}
 	return nil
+}
+
+// ShownPath is an output path as the terminal names it: "standard output"
+// for "-".
+func ShownPath(p string) string {
+	if IsStdout(p) {
+		return "standard output"
+	}
+	return p
 }
 
 // RequireRegular refuses, in one sentence (exit 2), an input that is not a

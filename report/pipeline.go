@@ -253,7 +253,7 @@ func (r *Run) printAudit(a *assess.Audit, out Outputs) {
 	audit.WriteSummaryWith(w, a, r.Summary)
 	fmt.Fprintf(w, "\nAudit workbook: %s\n", out.Workbook)
 	if out.JSON != "" {
-		fmt.Fprintf(w, "Audit JSON:     %s\n", out.JSON)
+		fmt.Fprintf(w, "Audit JSON:     %s\n", ShownPath(out.JSON))
 	}
 }
 
@@ -287,7 +287,7 @@ func (r *Run) WritePortfolio(p audit.Portfolio, info audit.RunInfo, pf Portfolio
 		fmt.Fprintf(r.out(), "Portfolio workbook: %s (%d site(s) ranked)\n", pf.Workbook, len(p.Surveys))
 	}
 	if pf.JSON != "" {
-		fmt.Fprintf(r.out(), "Portfolio JSON:     %s\n", pf.JSON)
+		fmt.Fprintf(r.out(), "Portfolio JSON:     %s\n", ShownPath(pf.JSON))
 	}
 	return nil
 }

@@ -35,6 +35,14 @@ type Workspace struct {
 	pending   map[string]*Pending
 	committed []string // outputs renamed into place, in order
 	aborted   bool
+	stdout    io.Writer // where an output named Stdout ("-") goes; nil refuses it
+}
+
+// SetStdout names where outputs given as "-" (Stdout) are written at Commit.
+func (w *Workspace) SetStdout(out io.Writer) {
+	w.mu.Lock()
+	defer w.mu.Unlock()
+	w.stdout = out
 }
 
 // runPrefix begins the name of every run's private folder.

@@ -57,9 +57,9 @@ func newAssessCmd(ws *report.Workspace) *cobra.Command {
 		},
 	}
 	c.Flags().StringVarP(&o.output, "output", "o", "", "audit workbook to write (default <survey>-audit.xlsx beside the survey); a folder with several surveys")
-	c.Flags().StringVar(&o.json, "json", "", "also write the audit as JSON to this file; a folder with several surveys (also gets portfolio.json)")
+	c.Flags().StringVar(&o.json, "json", "", "also write the audit as JSON to this file (- for standard output, the summary then going to standard error); a folder with several surveys (also gets portfolio.json)")
 	c.Flags().StringVarP(&o.portfolio, "portfolio", "p", "", "portfolio workbook ranking sites and stations across the surveys (default portfolio.xlsx in the -o folder, else the current folder; written for one survey only when given)")
-	c.Flags().StringVar(&o.portfolioJSON, "portfolio-json", "", "also write the portfolio as JSON to this file")
+	c.Flags().StringVar(&o.portfolioJSON, "portfolio-json", "", "also write the portfolio as JSON to this file (- for standard output)")
 	c.Flags().BoolVar(&o.strict, "strict", false, "exit 1 when any row was rejected")
 	c.Flags().IntVar(&o.samples, "samples", 0, "Monte Carlo samples per object for the probability of each verdict (0: point estimate only)")
 	c.Flags().Uint64Var(&o.seed, "seed", assess.DefaultSeed, "Monte Carlo seed, recorded on the Method sheet and in the JSON")
@@ -75,6 +75,23 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	if o.top < 0 {
 		return withCode(exitUsage, fmt.Errorf("--top takes a count of 1 or more, or 0 for all stations (got %d)", o.top))
 	}
+	if o.survey != "" {
+		if fi, err := os.Stat(o.survey); err == nil && fi.IsDir() {
+			o.surveys, o.survey = []string{o.survey}, ""
+		}
+	}
+	books := []outputFlag{{"-o", o.output}, {"--portfolio", o.portfolio}}
+	var inputs []report.NamedPath // several surveys: -o and --json name folders, checked by AssessMany
+	if len(o.surveys) == 0 {
+		inputs = []report.NamedPath{{Role: "the survey", Path: o.survey}}
+	}
+	if err := checkOutputs(inputs, books, []outputFlag{{"--json", o.json}, {"--portfolio-json", o.portfolioJSON}}); err != nil {
+		return err
+	}
+	if o.survey == "" && report.IsStdout(o.json) {
+		return withCode(exitUsage, fmt.Errorf("--json -: with several surveys --json names a folder; give one survey to write its JSON to standard output (--portfolio-json - takes the portfolio's)"))
+	}
+	out = summaryOut(out, errOut, o.json, o.portfolioJSON)
 	if o.samples < 0 || o.workers < 0 {
 		return withCode(exitUsage, fmt.Errorf("--samples and --workers take a count of 0 or more (got --samples %d, --workers %d)", o.samples, o.workers))
 	}
@@ -84,11 +101,6 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 		Summary: audit.SummaryOptions{Top: o.top, Quiet: o.quiet},
 	}
 	pf := report.PortfolioFiles{Workbook: o.portfolio, JSON: o.portfolioJSON}
-	if o.survey != "" {
-		if fi, err := os.Stat(o.survey); err == nil && fi.IsDir() {
-			o.surveys, o.survey = []string{o.survey}, ""
-		}
-	}
 	if o.survey == "" {
 		return r.AssessMany(o.surveys, o.output, o.json, pf)
 	}

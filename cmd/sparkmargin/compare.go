@@ -39,11 +39,11 @@ func newCompareCmd(ws *report.Workspace) *cobra.Command {
 		Args: cobra.ExactArgs(2),
 		RunE: func(c *cobra.Command, args []string) error {
 			o.old, o.new = args[0], args[1]
-			return runCompare(c.OutOrStdout(), o)
+			return withOutputs(c, []report.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, o.output, o.json, func(out io.Writer) error { return runCompare(out, o) })
 		},
 	}
 	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write; none when not given")
-	c.Flags().StringVar(&o.json, "json", "", "also write the comparison as JSON to this file")
+	c.Flags().StringVar(&o.json, "json", "", "also write the comparison as JSON to this file (- for standard output, the summary then going to standard error)")
 	return c
 }
 
@@ -110,7 +110,7 @@ func runCompare(out io.Writer, o compareOptions) error {
 		fmt.Fprintf(out, "\nCompare workbook: %s\n", o.output)
 	}
 	if o.json != "" {
-		fmt.Fprintf(out, "Compare JSON:     %s\n", o.json)
+		fmt.Fprintf(out, "Compare JSON:     %s\n", report.ShownPath(o.json))
 	}
 	return nil
 }

@@ -79,8 +79,9 @@ func newRootCmd(stdout, stderr io.Writer, ws *report.Workspace) *cobra.Command {
 func run(args []string, stdout, stderr io.Writer) int {
 	ws := report.NewWorkspace("")
 	stop := onInterrupt(ws, stderr)
-	defer stop()     // second: the handler stays until the workspace is gone
-	defer ws.Close() // first
+	defer stop()         // second: the handler stays until the workspace is gone
+	defer ws.Close()     // first
+	ws.SetStdout(stdout) // outputs given as "-"
 	root := newRootCmd(stdout, stderr, ws)
 	root.SetArgs(args)
 	err := root.Execute()

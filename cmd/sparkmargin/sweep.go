@@ -35,12 +35,12 @@ func newSweepCmd(ws *report.Workspace) *cobra.Command {
 		RunE: func(c *cobra.Command, args []string) error {
 			o.survey = args[0]
 			o.args = commandLine(c, args)
-			return runSweep(c.OutOrStdout(), o)
+			return withOutputs(c, []report.NamedPath{{Role: "the survey", Path: o.survey}}, o.output, o.json, func(out io.Writer) error { return runSweep(out, o) })
 		},
 	}
 	c.Flags().StringVar(&o.rh, "rh", "10:90:5", "RH range in %: FROM:TO:STEP")
 	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write (table and line charts); none when not given")
-	c.Flags().StringVar(&o.json, "json", "", "also write the steps as JSON to this file")
+	c.Flags().StringVar(&o.json, "json", "", "also write the steps as JSON to this file (- for standard output, the summary then going to standard error)")
 	return c
 }
 
@@ -75,7 +75,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		fmt.Fprintf(out, "\nSweep workbook: %s\n", o.output)
 	}
 	if o.json != "" {
-		fmt.Fprintf(out, "Sweep JSON:     %s\n", o.json)
+		fmt.Fprintf(out, "Sweep JSON:     %s\n", report.ShownPath(o.json))
 	}
 	return nil
 }

@@ -1,6 +1,8 @@
 package main
 
 import (
+	"encoding/json"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -73,4 +75,90 @@ func stationRows(out string) int {
 		}
 	}
 	return n
+}
+
+// TestJSONToStdout: --json - puts the JSON, and only it, on standard output
+// (it parses whole) and the terminal summary with its cautions line on
+// standard error; no file named "-" is written.
+func TestJSONToStdout(t *testing.T) {
+	dir := t.TempDir()
+	demo := writeDemo(t, dir)
+	t.Chdir(dir)
+	cases := []struct {
+		name string
+		args []string
+	}{
+		{"assess", []string{"assess", demo, "-o", filepath.Join(dir, "a.xlsx"), "--json", "-"}},
+		{"assess portfolio", []string{"assess", demo, "-o", filepath.Join(dir, "b.xlsx"), "--portfolio-json", "-"}},
+		{"whatif", []string{"whatif", demo, "--rh", "55", "-o", filepath.Join(dir, "w.xlsx"), "--json", "-"}},
+		{"sweep", []string{"sweep", demo, "--rh", "20:60:20", "--json", "-"}},
+		{"compare", []string{"compare", demo, demo, "--json", "-"}},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, errOut := runCLI(t, c.args...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, errOut)
+			}
+			var v any
+			if err := json.Unmarshal([]byte(out), &v); err != nil {
+				t.Errorf("stdout is not one JSON document (%v):\n%.300s", err, out)
+			}
+			if !strings.Contains(errOut, "standard output") {
+				t.Errorf("stderr does not say the JSON went to standard output:\n%s", errOut)
+			}
+			if _, err := os.Stat(filepath.Join(dir, "-")); err == nil {
+				t.Error(`a file named "-" was written`)
+			}
+		})
+	}
+	// The assess and rerun summaries carry the cautions line, on stderr here.
+	if _, _, errOut := runCLI(t, "assess", demo, "-o", filepath.Join(dir, "c.xlsx"), "--json", "-"); !strings.Contains(errOut, templates.CautionLine) {
+		t.Errorf("stderr lacks the cautions line:\n%s", errOut)
+	}
+}
+
+// TestOutputFormatChecks: a workbook flag given "-" or a .json name, or a
+// JSON flag given a workbook name, is a usage error naming the flag; two
+// outputs to standard output are refused.
+func TestOutputFormatChecks(t *testing.T) {
+	dir := t.TempDir()
+	demo := writeDemo(t, dir)
+	cases := []struct {
+		name string
+		args []string
+		want string // in stderr
+	}{
+		{"assess -o json", []string{"assess", demo, "-o", filepath.Join(dir, "audit.json")}, "-o " + filepath.Join(dir, "audit.json") + ": -o writes a workbook (.xlsx), not JSON"},
+		{"assess --json xlsx", []string{"assess", demo, "--json", filepath.Join(dir, "audit.xlsx")}, "--json writes JSON, not a workbook"},
+		{"assess --json upper-case XLSX", []string{"assess", demo, "--json", filepath.Join(dir, "AUDIT.XLSX")}, "--json writes JSON"},
+		{"assess -o -", []string{"assess", demo, "-o", "-"}, "a workbook cannot be written to standard output"},
+		{"assess --portfolio -", []string{"assess", demo, "--portfolio", "-"}, "--portfolio -: a workbook cannot"},
+		{"assess --portfolio-json xlsx", []string{"assess", demo, "--portfolio-json", "p.xlsx"}, "--portfolio-json writes JSON"},
+		{"assess two stdout", []string{"assess", demo, "-o", filepath.Join(dir, "x.xlsx"), "--json", "-", "--portfolio-json", "-"}, "both name standard output"},
+		{"assess several --json -", []string{"assess", demo, demo, "--json", "-"}, "with several surveys --json names a folder"},
+		{"whatif -o json", []string{"whatif", demo, "--rh", "55", "-o", "w.json"}, "-o writes a workbook"},
+		{"whatif --json xlsx", []string{"whatif", demo, "--rh", "55", "--json", "w.xlsx"}, "--json writes JSON"},
+		{"sweep -o -", []string{"sweep", demo, "-o", "-"}, "a workbook cannot be written to standard output"},
+		{"compare --json xlsm", []string{"compare", demo, demo, "--json", "c.xlsm"}, "--json writes JSON"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, errOut := runCLI(t, c.args...)
+			if code != exitUsage {
+				t.Fatalf("exit %d, want %d (stderr %q)", code, exitUsage, errOut)
+			}
+			if !strings.Contains(errOut, c.want) {
+				t.Errorf("stderr %q lacks %q", errOut, c.want)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+		})
+	}
+	for _, f := range []string{"audit.json", "audit.xlsx", "AUDIT.XLSX", "x.xlsx"} {
+		if _, err := os.Stat(filepath.Join(dir, f)); err == nil {
+			t.Errorf("%s was written despite the usage error", f)
+		}
+	}
 }

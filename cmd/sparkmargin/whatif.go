@@ -68,11 +68,11 @@ func newWhatifCmd(ws *report.Workspace) *cobra.Command {
 		RunE: func(c *cobra.Command, args []string) error {
 			o.survey = args[0]
 			o.args = whatifCommandLine(o)
-			return runWhatif(c.OutOrStdout(), o)
+			return withOutputs(c, []report.NamedPath{{Role: "the survey", Path: o.survey}}, o.output, o.json, func(out io.Writer) error { return runWhatif(out, o) })
 		},
 	}
 	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write (default <survey>-whatif.xlsx beside the survey)")
-	c.Flags().StringVar(&o.json, "json", "", "also write the result as JSON to this file")
+	c.Flags().StringVar(&o.json, "json", "", "also write the result as JSON to this file (- for standard output, the summary then going to standard error)")
 	c.Flags().BoolVar(&o.noSheetChanges, "no-sheet-changes", false, "ignore the survey's Changes sheet")
 	for _, k := range inventory.ChangeKinds() {
 		c.Flags().Var(changeFlag{kind: k, list: &o.flags}, k, rerun.FlagHelp(k))
@@ -120,7 +120,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	rerun.WriteWhatifSummary(out, x)
 	fmt.Fprintf(out, "\nWhat-if workbook: %s\n", xlsx)
 	if o.json != "" {
-		fmt.Fprintf(out, "What-if JSON:     %s\n", o.json)
+		fmt.Fprintf(out, "What-if JSON:     %s\n", report.ShownPath(o.json))
 	}
 	if len(x.Before.Objects) == 0 {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
