@@ -139,6 +139,10 @@ func interruptMessage(s os.Signal, written []string) string {
 	if len(written) == 0 {
 		return msg + "nothing was replaced: the previous audit, if any, is kept as it was"
 	}
+	shown := make([]string, len(written))
+	for i, w := range written {
+		shown[i] = report.ShownPath(w) // "-" is standard output
+	}
 	return msg + fmt.Sprintf("written whole before the interrupt: %s; the output in progress was not written and its previous file, if any, is kept as it was",
-		strings.Join(written, ", "))
+		strings.Join(shown, ", "))
 }

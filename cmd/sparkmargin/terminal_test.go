@@ -162,3 +162,12 @@ func TestOutputFormatChecks(t *testing.T) {
 		}
 	}
 }
+
+// TestInterruptMessageNamesStandardOutput: a JSON copied to standard output
+// before an interrupt is named as such, not as a file called "-".
+func TestInterruptMessageNamesStandardOutput(t *testing.T) {
+	msg := interruptMessage(os.Interrupt, []string{"a.xlsx", "-"})
+	if !strings.Contains(msg, "a.xlsx, standard output") {
+		t.Errorf("message %q does not name standard output", msg)
+	}
+}
