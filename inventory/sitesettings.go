@@ -33,6 +33,16 @@ type LimitItem struct {
 	dim  limitDim
 }
 
+// FromSI converts an SI value of the limit k sets into k's Unit (the Site
+// sheet's practical unit); false when k's Unit is not one its dimension takes.
+func (k LimitItem) FromSI(v float64) (float64, bool) {
+	f, ok := limitScale(k.dim, k.Unit)
+	if !ok || f == 0 {
+		return 0, false
+	}
+	return v / f, true
+}
+
 // SiteLimit is a validated limit override of the Site sheet.
 type SiteLimit struct {
 	Name  string  // the LimitItem's Name

@@ -106,8 +106,11 @@ const (
 // LimitSources returns every default limit with its value, unit and source, in
 // the order of the Limits fields; per-group values are listed for the groups
 // that have one.
-func LimitSources() []Citation {
-	l := DefaultLimits()
+func LimitSources() []Citation { return CitationsOf(DefaultLimits()) }
+
+// CitationsOf is LimitSources with the values of l: the same limits, in the
+// same order, with the same sources (which describe the defaults).
+func CitationsOf(l Limits) []Citation {
 	var out []Citation
 	add := func(name string, v float64, unit, src string, mem bool) {
 		out = append(out, Citation{Limit: name, Value: v, Unit: unit, Source: src, FromMemory: mem})

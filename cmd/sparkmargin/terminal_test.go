@@ -171,3 +171,54 @@ func TestInterruptMessageNamesStandardOutput(t *testing.T) {
 		t.Errorf("message %q does not name standard output", msg)
 	}
 }
+
+// TestLibraryJSON: library --json is one JSON document with the four lists
+// and the cautions; a limit with a Site item is given in that item's unit.
+// Check values: the shock energy default converted by hand to mJ; the brush
+// energy 4 mJ (CLC/TR 50404 summaries, upper end of 3-4 mJ); the IIB
+// transferred charge 25 nC (IEC 60079-0:2017 7.4.2, from memory).
+func TestLibraryJSON(t *testing.T) {
+	code, out, errOut := runCLI(t, "library", "--json")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var lib struct {
+		Materials, Substances []map[string]any
+		Limits                []struct {
+			Limit, Unit string
+			UnitSI      string  `json:"unit_si"`
+			SiteItem    *string `json:"site_item"`
+			Value       *float64
+		}
+		SiteItems []map[string]any `json:"site_items"`
+		Cautions  string
+	}
+	if err := json.Unmarshal([]byte(out), &lib); err != nil {
+		t.Fatalf("not JSON: %v", err)
+	}
+	if len(lib.Materials) == 0 || len(lib.Substances) == 0 || len(lib.SiteItems) == 0 || lib.Cautions != templates.CautionLine {
+		t.Errorf("lists or cautions missing: %d materials, %d substances, %d site items, cautions %q",
+			len(lib.Materials), len(lib.Substances), len(lib.SiteItems), lib.Cautions)
+	}
+	want := map[string]struct {
+		item, unit string
+		value      float64
+	}{
+		"BrushEnergy":            {"brush energy", "mJ", 4},
+		"TransferredCharge[IIB]": {"transferred charge iib", "nC", 25},
+	}
+	found := 0
+	for _, l := range lib.Limits {
+		w, ok := want[l.Limit]
+		if !ok {
+			continue
+		}
+		found++
+		if l.UnitSI == "" || l.SiteItem == nil || *l.SiteItem != w.item || l.Unit != w.unit || l.Value == nil || *l.Value != w.value {
+			t.Errorf("%s: item %v, %v %s; want %q, %g %s", l.Limit, l.SiteItem, l.Value, l.Unit, w.item, w.value, w.unit)
+		}
+	}
+	if found != len(want) {
+		t.Errorf("found %d of the %d limits checked", found, len(want))
+	}
+}

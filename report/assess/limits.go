@@ -93,3 +93,41 @@ func LimitsFromSite(site inventory.Site, base model.Limits) model.Limits {
 	}
 	return lim
 }
+
+// siteItemSentinel is a value no default limit holds, set through each Site
+// item to find the limits it overrides.
+const siteItemSentinel = 1.234567890123e-31
+
+// LimitOverrides maps each default limit's name (model.Citation.Limit) to the
+// Site item that overrides it, found by setting every item to a sentinel
+// value and seeing which limits change: the join is by the setters
+// themselves, not by their names. Where several items set a limit (a general
+// item and a per-class one), the one that sets the fewest limits is named,
+// the later one on a tie (the per-class item after its general alias).
+func LimitOverrides() map[string]inventory.LimitItem {
+	base := model.DefaultLimits()
+	before := model.CitationsOf(base)
+	set := limitSetters()
+	out := map[string]inventory.LimitItem{}
+	width := map[string]int{} // limits set by the item named in out
+	for _, k := range inventory.LimitItems() {
+		f := set[k.Name]
+		if f == nil {
+			continue
+		}
+		l := base
+		f(&l, siteItemSentinel)
+		var changed []string
+		for i, c := range model.CitationsOf(l) {
+			if c.Value != before[i].Value {
+				changed = append(changed, c.Limit)
+			}
+		}
+		for _, name := range changed {
+			if w, seen := width[name]; !seen || len(changed) <= w { // on a tie the later, per-class item
+				out[name], width[name] = k, len(changed)
+			}
+		}
+	}
+	return out
+}
