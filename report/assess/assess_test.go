@@ -737,7 +737,7 @@ func TestFormat(t *testing.T) {
 		{ohm(1e6), "1.0e6 Ω"},
 		{ohm(3.5e-7), "3.5e-7 Ω"},
 		{cm2(1), "10000 cm²"},
-		{nC(1.08e-7), "108 nC"},
+		{nC(1.08e-7), "108 nC"}, {nC(4e-4), "400 µC"}, // derived: 4e-4 C = 400 µC
 		{pF(100e-12), "100 pF"},
 	}
 	for _, tc := range tests {

@@ -57,11 +57,16 @@ func sci(v float64) string {
 	return mant + "e" + exp
 }
 
-func mJ(j float64) string        { return sig(j*1e3) + " mJ" }
-func kV(v float64) string        { return sig(v/1e3) + " kV" }
-func volts(v float64) string     { return sig(v) + " V" }
-func pF(f float64) string        { return sig(f*1e12) + " pF" }
-func nC(c float64) string        { return sig(c*1e9) + " nC" }
+func mJ(j float64) string    { return sig(j*1e3) + " mJ" }
+func kV(v float64) string    { return sig(v/1e3) + " kV" }
+func volts(v float64) string { return sig(v) + " V" }
+func pF(f float64) string    { return sig(f*1e12) + " pF" }
+func nC(c float64) string {
+	if math.Abs(c) >= 1e-6 { // a propagating brush's charge: µC, not hundreds of thousands of nC
+		return sig(c*1e6) + " µC"
+	}
+	return sig(c*1e9) + " nC"
+}
 func cm2(a float64) string       { return sig(a*1e4) + " cm²" }
 func ohm(r float64) string       { return sci(r) + " Ω" }
 func uA(a float64) string        { return sig(a*1e6) + " µA" }
