@@ -624,13 +624,7 @@ func surfaceSpark(ev *Evaluation, in *Input, env *Environment, lim *Limits, sigm
 			// The assumed (absent) leakage decides the size of the estimate.
 			ev.Flags |= FlagAssumedResistance
 		}
-		if !(v <= lim.ConductorMaxPotential) {
-			if finite(v) {
-				ev.UncappedPotential = v
-			}
-			v = lim.ConductorMaxPotential
-			ev.Flags |= FlagCappedConductor
-		}
+		v = capAtPlantMaximum(ev, lim, v)
 	} else {
 		earthingContradiction(ev, in, lim, v)
 	}
@@ -842,12 +836,8 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 				v = lim.PersonMaxPotential
 				ev.Flags |= FlagCappedPerson
 			}
-		} else if !(v <= lim.ConductorMaxPotential) {
-			if finite(v) {
-				ev.UncappedPotential = v
-			}
-			v = lim.ConductorMaxPotential
-			ev.Flags |= FlagCappedConductor
+		} else {
+			v = capAtPlantMaximum(ev, lim, v)
 		}
 	} else {
 		earthingContradiction(ev, in, lim, v)
@@ -1327,4 +1317,18 @@ func capAtCoronaOnset(ev *Evaluation, in *Input, env *Environment, v float64) (f
 	}
 	ev.Flags |= FlagCappedCorona
 	return ev.CoronaOnset, true
+}
+
+// capAtPlantMaximum caps an estimated potential v at the realistic plant
+// maximum Limits.ConductorMaxPotential (corona from edges and bolts; common
+// practice, no source), keeping the uncapped estimate and flagging the cap.
+func capAtPlantMaximum(ev *Evaluation, lim *Limits, v float64) float64 {
+	if v <= lim.ConductorMaxPotential {
+		return v
+	}
+	if finite(v) {
+		ev.UncappedPotential = v
+	}
+	ev.Flags |= FlagCappedConductor
+	return lim.ConductorMaxPotential
 }
