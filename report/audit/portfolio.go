@@ -337,16 +337,7 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 	if err := f.SetCellStyle(s, "A1", "A1", wb.st.Title()); err != nil {
 		return err
 	}
-	if err := f.MergeCell(s, "A2", "J2"); err != nil {
-		return err
-	}
-	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
-		return err
-	}
-	if err := f.SetCellStyle(s, "A2", "J2", wb.st.Caution()); err != nil {
-		return err
-	}
-	if err := f.SetRowHeight(s, 2, 30); err != nil {
+	if err := wb.cautionBox(s); err != nil {
 		return err
 	}
 	r := 4

@@ -49,16 +49,7 @@ func (wb *workbook) summary() error {
 	}
 	// The cautions line right under the title, in a caution box.
 	r = 2
-	if err := f.MergeCell(s, "A2", "J2"); err != nil {
-		return err
-	}
-	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
-		return err
-	}
-	if err := f.SetCellStyle(s, "A2", "J2", wb.st.Caution()); err != nil {
-		return err
-	}
-	if err := f.SetRowHeight(s, 2, 30); err != nil {
+	if err := wb.cautionBox(s); err != nil {
 		return err
 	}
 
@@ -321,4 +312,20 @@ func siteHumidityCell(site inventory.Site) book.Cell {
 		return est(book.Quantity(book.UnitPercentRH, assess.DryDayHumidity), true)
 	}
 	return est(inQ(book.UnitPercentRH, site.RelativeHumidity), false)
+}
+
+// cautionBox writes the cautions line in a caution box across A2:J2 of sheet s,
+// right under the title (the audit's Summary and the portfolio's).
+func (wb *workbook) cautionBox(s string) error {
+	f := wb.f
+	if err := f.MergeCell(s, "A2", "J2"); err != nil {
+		return err
+	}
+	if err := f.SetCellValue(s, "A2", templates.CautionLine); err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(s, "A2", "J2", wb.st.Caution()); err != nil {
+		return err
+	}
+	return f.SetRowHeight(s, 2, 30)
 }
