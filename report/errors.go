@@ -1,6 +1,10 @@
 package report
 
-import "errors"
+import (
+	"errors"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+)
 
 // Failure is the class of a run's failure; the command maps each to its exit code.
 type Failure int
@@ -43,4 +47,11 @@ func KindOf(err error) Failure {
 		return e.Kind
 	}
 	return Unusable
+}
+
+// RequireRegular refuses, in one sentence (exit 2), an input that is not a
+// regular file: a named pipe would block the read for ever, a device or a
+// socket is no workbook. It looks with stat only and never opens the path.
+func RequireRegular(path string) error {
+	return unusable(inventory.CheckRegularFile(path))
 }

@@ -12,6 +12,7 @@ import (
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 // AssessMany assesses several surveys (files, or folders of them), each to
@@ -43,16 +44,16 @@ func (r *Run) AssessMany(surveys []string, outDir, jsonDir string, pf PortfolioF
 	if err != nil {
 		return err
 	}
-	inputs := make([]NamedPath, len(files))
+	inputs := make([]outfile.NamedPath, len(files))
 	for i, f := range files {
-		inputs[i] = NamedPath{"the survey", f}
+		inputs[i] = outfile.NamedPath{Role: "the survey", Path: f}
 	}
-	if err := RefuseClashes(inputs, []NamedPath{{"the portfolio workbook", pf.Workbook}, {"the portfolio JSON", pf.JSON}}); err != nil {
-		return err
+	if err := outfile.RefuseClashes(inputs, []outfile.NamedPath{{Role: "the portfolio workbook", Path: pf.Workbook}, {Role: "the portfolio JSON", Path: pf.JSON}}); err != nil {
+		return unusable(err)
 	}
 	var p audit.Portfolio
 	// The outputs of the surveys before, and the portfolio's.
-	written := []NamedPath{{"the portfolio workbook", pf.Workbook}, {"the portfolio JSON", pf.JSON}}
+	written := []outfile.NamedPath{{Role: "the portfolio workbook", Path: pf.Workbook}, {Role: "the portfolio JSON", Path: pf.JSON}}
 	failed := 0
 	for i, file := range files {
 		if i > 0 {
@@ -60,7 +61,7 @@ func (r *Run) AssessMany(surveys []string, outDir, jsonDir string, pf PortfolioF
 		}
 		fmt.Fprintf(out, "== %s ==\n", file)
 		name := strings.TrimSuffix(filepath.Base(file), filepath.Ext(file))
-		o := Outputs{Workbook: DefaultAuditPath(file)}
+		o := Outputs{Workbook: outfile.DefaultAuditPath(file)}
 		if outDir != "" {
 			o.Workbook = filepath.Join(outDir, name+"-audit.xlsx")
 		}
@@ -73,12 +74,12 @@ func (r *Run) AssessMany(surveys []string, outDir, jsonDir string, pf PortfolioF
 			worst = max(worst, KindOf(err))
 			failed++
 		}
-		mine := []NamedPath{{"its audit workbook", o.Workbook}, {"its audit JSON", o.JSON}}
-		if err := RefuseClashes(inputs, mine); err != nil {
-			fail(err)
+		mine := []outfile.NamedPath{{Role: "its audit workbook", Path: o.Workbook}, {Role: "its audit JSON", Path: o.JSON}}
+		if err := outfile.RefuseClashes(inputs, mine); err != nil {
+			fail(unusable(err))
 			continue
 		}
-		if err := RefuseClashes(nil, append(append([]NamedPath(nil), written...), mine...)); err != nil {
+		if err := outfile.RefuseClashes(nil, append(append([]outfile.NamedPath(nil), written...), mine...)); err != nil {
 			fail(unusable(fmt.Errorf("its outputs would overwrite another output of this run (%w); give the surveys different names", err)))
 			continue
 		}
@@ -152,7 +153,7 @@ func (r *Run) expandSurveys(args []string, portfolio string) ([]string, Failure,
 				continue
 			}
 			p := filepath.Join(a, n)
-			if sameTarget(p, portfolio, true, false) && isPortfolioWorkbook(p) {
+			if outfile.SameTarget(p, portfolio, true, false) && isPortfolioWorkbook(p) {
 				// The previous run's portfolio; a survey named as -p is kept and refused below.
 				continue
 			}

@@ -11,6 +11,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 // Progress hears how far a run has gone; a nil Progress hears nothing.
@@ -24,7 +25,7 @@ type Progress interface {
 // settings, what the Method sheet records, and where the terminal summary and
 // progress go. The zero value of every field but Workspace is usable.
 type Run struct {
-	Workspace   *Workspace
+	Workspace   *outfile.Workspace
 	Samples     int    // Monte Carlo samples per object (0: point estimate only)
 	Seed        uint64 // Monte Carlo seed
 	Workers     int    // Monte Carlo workers (0: all cores)
@@ -174,7 +175,7 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	if err != nil {
 		return nil, unusable(fmt.Errorf("writing the audit workbook: %w", err))
 	}
-	var pj *Pending
+	var pj *outfile.Pending
 	if out.JSON != "" {
 		info.Workbook, info.WorkbookSHA256 = filepath.Base(out.Workbook), pw.SHA256()
 		if pj, err = r.Workspace.Prepare(out.JSON, func(w io.Writer) error { return jw.Finish(a, info, w) }); err != nil {
@@ -207,9 +208,9 @@ type PortfolioFiles struct {
 // portfolio when pf names a file, and fails with Problems when nothing could
 // be assessed or, under Strict, a row was rejected.
 func (r *Run) AssessOne(survey string, out Outputs, pf PortfolioFiles) error {
-	if err := RefuseClashes([]NamedPath{{"the survey", survey}},
-		[]NamedPath{{"the audit workbook", out.Workbook}, {"--json", out.JSON}, {"--portfolio", pf.Workbook}, {"--portfolio-json", pf.JSON}}); err != nil {
-		return err
+	if err := outfile.RefuseClashes([]outfile.NamedPath{{Role: "the survey", Path: survey}},
+		[]outfile.NamedPath{{Role: "the audit workbook", Path: out.Workbook}, {Role: "--json", Path: out.JSON}, {Role: "--portfolio", Path: pf.Workbook}, {Role: "--portfolio-json", Path: pf.JSON}}); err != nil {
+		return unusable(err)
 	}
 	r.begin(filepath.Base(survey))
 	a, err := r.AssessFile(survey, out)
@@ -253,7 +254,7 @@ func (r *Run) printAudit(a *assess.Audit, out Outputs) {
 	audit.WriteSummaryWith(w, a, r.Summary)
 	fmt.Fprintf(w, "\nAudit workbook: %s\n", out.Workbook)
 	if out.JSON != "" {
-		fmt.Fprintf(w, "Audit JSON:     %s\n", ShownPath(out.JSON))
+		fmt.Fprintf(w, "Audit JSON:     %s\n", outfile.ShownPath(out.JSON))
 	}
 }
 
@@ -261,7 +262,7 @@ func (r *Run) printAudit(a *assess.Audit, out Outputs) {
 // JSON, renamed into place together.
 func (r *Run) WritePortfolio(p audit.Portfolio, info audit.RunInfo, pf PortfolioFiles) error {
 	ws := r.Workspace
-	var pw, pj *Pending
+	var pw, pj *outfile.Pending
 	var err error
 	if info.TmpDir, err = ws.Dir(); err != nil {
 		return unusable(err)
@@ -287,7 +288,7 @@ func (r *Run) WritePortfolio(p audit.Portfolio, info audit.RunInfo, pf Portfolio
 		fmt.Fprintf(r.out(), "Portfolio workbook: %s (%d site(s) ranked)\n", pf.Workbook, len(p.Surveys))
 	}
 	if pf.JSON != "" {
-		fmt.Fprintf(r.out(), "Portfolio JSON:     %s\n", ShownPath(pf.JSON))
+		fmt.Fprintf(r.out(), "Portfolio JSON:     %s\n", outfile.ShownPath(pf.JSON))
 	}
 	return nil
 }

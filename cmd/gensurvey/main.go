@@ -9,7 +9,7 @@
 //	go run ./cmd/gensurvey -n 1048575 -o /tmp/big.xlsx
 //
 // Its temporary files (spill files, and the survey before it is renamed into
-// place) belong to one report.Workspace, removed on exit and on SIGINT or SIGTERM.
+// place) belong to one outfile.Workspace, removed on exit and on SIGINT or SIGTERM.
 package main
 
 import (
@@ -21,7 +21,7 @@ import (
 	"syscall"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 func main() {
@@ -33,7 +33,7 @@ func main() {
 		fmt.Fprintln(os.Stderr, "usage: gensurvey -n OBJECTS [-per-station K] -o FILE.xlsx")
 		os.Exit(2)
 	}
-	ws := report.NewWorkspace("")
+	ws := outfile.NewWorkspace("")
 	sig := make(chan os.Signal, 1)
 	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
 	go func() {
@@ -50,7 +50,7 @@ func main() {
 	}
 }
 
-func write(ws *report.Workspace, path string, n, per int) error {
+func write(ws *outfile.Workspace, path string, n, per int) error {
 	tmp, err := ws.Dir()
 	if err != nil {
 		return err

@@ -36,6 +36,10 @@ var forbiddenArrows = []forbiddenArrow{
 	{"templates/...", "inventory/...", "templates hold text only"},
 	{"templates/...", "model/...", "templates hold text only"},
 	{"report/*", "report", "a stage of report builds on its siblings, never on the pipeline root"},
+	{"report/outfile", "report/...", "safe file writing knows no stage: every stage and the pipeline may use it"},
+	{"report/outfile", "inventory/...", "safe file writing knows no survey"},
+	{"report/outfile", "model/...", "safe file writing knows no physics"},
+	{"report/outfile", "templates/...", "safe file writing holds no text of the audit"},
 	{"report/book", "report/...", "the workbook kit knows no stage: no verdicts, no audit, no reruns"},
 	{"report/book", "inventory/...", "the workbook kit knows no survey"},
 	{"report/book", "model/...", "the workbook kit knows no physics"},
@@ -116,6 +120,9 @@ func TestImportArrowsFollowTheFlow(t *testing.T) {
 	imports := moduleImports(t, filepath.Join("..", ".."))
 	if len(imports["report/audit"]) == 0 || len(imports["cmd/sparkmargin"]) == 0 {
 		t.Fatalf("the module walk found no imports of report/audit or cmd/sparkmargin: wrong root?")
+	}
+	if _, ok := imports["report/outfile"]; !ok {
+		t.Fatalf("the module walk did not find report/outfile: wrong root?")
 	}
 	var pkgs []string
 	for p := range imports {

@@ -10,10 +10,11 @@ import (
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 type assessOptions struct {
-	ws            *report.Workspace
+	ws            *outfile.Workspace
 	survey        string
 	surveys       []string // several surveys or folders (survey is then empty)
 	output        string
@@ -29,7 +30,7 @@ type assessOptions struct {
 	args          []string // the command line, for the Method sheet
 }
 
-func newAssessCmd(ws *report.Workspace) *cobra.Command {
+func newAssessCmd(ws *outfile.Workspace) *cobra.Command {
 	o := assessOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "assess SURVEY.xlsx... | FOLDER",
@@ -81,14 +82,14 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 		}
 	}
 	books := []outputFlag{{"-o", o.output}, {"--portfolio", o.portfolio}}
-	var inputs []report.NamedPath // several surveys: -o and --json name folders, checked by AssessMany
+	var inputs []outfile.NamedPath // several surveys: -o and --json name folders, checked by AssessMany
 	if len(o.surveys) == 0 {
-		inputs = []report.NamedPath{{Role: "the survey", Path: o.survey}}
+		inputs = []outfile.NamedPath{{Role: "the survey", Path: o.survey}}
 	}
 	if err := checkOutputs(inputs, books, []outputFlag{{"--json", o.json}, {"--portfolio-json", o.portfolioJSON}}); err != nil {
 		return err
 	}
-	if o.survey == "" && report.IsStdout(o.json) {
+	if o.survey == "" && outfile.IsStdout(o.json) {
 		return withCode(exitUsage, fmt.Errorf("--json -: with several surveys --json names a folder; give one survey to write its JSON to standard output (--portfolio-json - takes the portfolio's)"))
 	}
 	out = summaryOut(out, errOut, o.json, o.portfolioJSON)
@@ -106,7 +107,7 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	}
 	xlsx := o.output
 	if xlsx == "" {
-		xlsx = report.DefaultAuditPath(o.survey)
+		xlsx = outfile.DefaultAuditPath(o.survey)
 	}
 	return r.AssessOne(o.survey, report.Outputs{Workbook: xlsx, JSON: o.json}, pf)
 }

@@ -5,17 +5,17 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 type checkOptions struct {
-	ws     *report.Workspace
+	ws     *outfile.Workspace
 	survey string
 	json   bool
 }
 
-func newCheckCmd(ws *report.Workspace) *cobra.Command {
+func newCheckCmd(ws *outfile.Workspace) *cobra.Command {
 	o := checkOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "check SURVEY.xlsx",

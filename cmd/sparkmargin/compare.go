@@ -14,17 +14,18 @@ import (
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
 type compareOptions struct {
-	ws       *report.Workspace
+	ws       *outfile.Workspace
 	old, new string
 	output   string
 	json     string
 }
 
-func newCompareCmd(ws *report.Workspace) *cobra.Command {
+func newCompareCmd(ws *outfile.Workspace) *cobra.Command {
 	o := compareOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "compare OLD NEW [-o FILE.xlsx]",
@@ -39,7 +40,7 @@ func newCompareCmd(ws *report.Workspace) *cobra.Command {
 		Args: cobra.ExactArgs(2),
 		RunE: func(c *cobra.Command, args []string) error {
 			o.old, o.new = args[0], args[1]
-			return withOutputs(c, []report.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, o.output, o.json, func(out io.Writer) error { return runCompare(out, o) })
+			return withOutputs(c, []outfile.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, o.output, o.json, func(out io.Writer) error { return runCompare(out, o) })
 		},
 	}
 	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write; none when not given")
@@ -51,7 +52,7 @@ func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".j
 
 // compareSide loads one side: an audit JSON as it is, a survey assessed (and,
 // when the other side is JSON, turned into the audit JSON so both compare alike).
-func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
+func compareSide(ws *outfile.Workspace, path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {
 	label := filepath.Base(path)
 	if isJSON(path) {
 		if err := report.RequireRegular(path); err != nil {
@@ -87,7 +88,7 @@ func compareSide(ws *report.Workspace, path string, asJSON bool) (*rerun.Side, *
 }
 
 func runCompare(out io.Writer, o compareOptions) error {
-	if err := report.RefuseClashes([]report.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, []report.NamedPath{{Role: "-o", Path: o.output}, {Role: "--json", Path: o.json}}); err != nil {
+	if err := outfile.RefuseClashes([]outfile.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, []outfile.NamedPath{{Role: "-o", Path: o.output}, {Role: "--json", Path: o.json}}); err != nil {
 		return err
 	}
 	asJSON := isJSON(o.old) || isJSON(o.new)
@@ -100,7 +101,7 @@ func runCompare(out io.Writer, o compareOptions) error {
 		return err
 	}
 	c := rerun.Compare(oldSide, newSide)
-	if err := report.WriteOutputs(o.ws, o.output, o.json,
+	if err := o.ws.WritePair(o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey) },
 		func(w io.Writer) error { return rerun.WriteCompareJSON(w, c) }); err != nil {
 		return err
@@ -110,7 +111,7 @@ func runCompare(out io.Writer, o compareOptions) error {
 		fmt.Fprintf(out, "\nCompare workbook: %s\n", o.output)
 	}
 	if o.json != "" {
-		fmt.Fprintf(out, "Compare JSON:     %s\n", report.ShownPath(o.json))
+		fmt.Fprintf(out, "Compare JSON:     %s\n", outfile.ShownPath(o.json))
 	}
 	return nil
 }

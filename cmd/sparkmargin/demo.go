@@ -9,15 +9,15 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 type demoOptions struct {
-	ws  *report.Workspace
+	ws  *outfile.Workspace
 	dir string
 }
 
-func newDemoCmd(ws *report.Workspace) *cobra.Command {
+func newDemoCmd(ws *outfile.Workspace) *cobra.Command {
 	o := demoOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "demo",

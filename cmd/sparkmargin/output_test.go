@@ -17,7 +17,7 @@ import (
 // TestAssessOutputFaults: a target that is a folder, a target whose parent is
 // a file, a folder no one may write in and a missing folder each give one
 // clear error and exit 2, and leave no temporary file. (A full disk is
-// simulated in report's TestWriteFileAtomicDiskFull: it cannot be made here
+// simulated in report/outfile's TestWriteAtomicDiskFull: it cannot be made here
 // without mounting a small file system.)
 func TestAssessOutputFaults(t *testing.T) {
 	dir := t.TempDir()

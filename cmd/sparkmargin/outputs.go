@@ -8,12 +8,12 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 // withOutputs checks a rerun command's -o and --json (checkOutputs) and runs
 // it with its summary on summaryOut.
-func withOutputs(c *cobra.Command, inputs []report.NamedPath, book, json string, run func(out io.Writer) error) error {
+func withOutputs(c *cobra.Command, inputs []outfile.NamedPath, book, json string, run func(out io.Writer) error) error {
 	if err := checkOutputs(inputs, []outputFlag{{"-o", book}}, []outputFlag{{"--json", json}}); err != nil {
 		return err
 	}
@@ -35,25 +35,25 @@ var (
 )
 
 // checkOutputs refuses, as a usage error (exit 2) naming the flag, an output
-// that reaches an input or another output (report.RefuseClashes, said first:
+// that reaches an input or another output (outfile.RefuseClashes, said first:
 // it is the graver mistake), a workbook path given as "-" (a workbook cannot
 // go to standard output), a workbook path with a .json extension, and a JSON
 // path with a workbook extension. With no inputs (several surveys, whose -o
 // and --json name folders that AssessMany checks file by file) only the
 // formats are checked.
-func checkOutputs(inputs []report.NamedPath, books, jsons []outputFlag) error {
-	var outs []report.NamedPath
+func checkOutputs(inputs []outfile.NamedPath, books, jsons []outputFlag) error {
+	var outs []outfile.NamedPath
 	for _, o := range append(append([]outputFlag(nil), books...), jsons...) {
-		outs = append(outs, report.NamedPath{Role: o.flag, Path: o.path})
+		outs = append(outs, outfile.NamedPath{Role: o.flag, Path: o.path})
 	}
 	if inputs != nil {
-		if err := report.RefuseClashes(inputs, outs); err != nil {
+		if err := outfile.RefuseClashes(inputs, outs); err != nil {
 			return err
 		}
 	}
 	for _, b := range books {
 		switch {
-		case report.IsStdout(b.path):
+		case outfile.IsStdout(b.path):
 			return withCode(exitUsage, fmt.Errorf("%s -: a workbook cannot be written to standard output; give a .xlsx file name (only --json takes - for standard output)", b.flag))
 		case hasExt(b.path, jsonExts):
 			return withCode(exitUsage, fmt.Errorf("%s %s: %s writes a workbook (.xlsx), not JSON; give the JSON file to --json and a .xlsx name to %s", b.flag, b.path, b.flag, b.flag))
@@ -82,7 +82,7 @@ func hasExt(path string, exts []string) bool {
 // else standard output.
 func summaryOut(out, errOut io.Writer, jsonPaths ...string) io.Writer {
 	for _, p := range jsonPaths {
-		if report.IsStdout(p) {
+		if outfile.IsStdout(p) {
 			return errOut
 		}
 	}

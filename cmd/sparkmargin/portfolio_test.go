@@ -18,6 +18,7 @@ import (
 	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 func copyFile(t *testing.T, from, to string) {
@@ -166,7 +167,7 @@ func TestAssessStreamedSameCells(t *testing.T) {
 		// The command line as the command records it (the Method sheet shows it).
 		info := (&report.Run{ToolVersion: version, CommandLine: []string{"sparkmargin", "assess", "--json=" + js, "--output=" + xlsx, "--samples=" + samples, demo}}).Info(s)
 		want := filepath.Join(dir, "mem-"+samples+".xlsx")
-		if err := report.WriteFileAtomic(want, func(w io.Writer) error { return audit.WriteWorkbook(w, a, info) }); err != nil {
+		if err := outfile.WriteAtomic(want, func(w io.Writer) error { return audit.WriteWorkbook(w, a, info) }); err != nil {
 			t.Fatal(err)
 		}
 		for _, sh := range audit.Sheets() {

@@ -12,6 +12,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 // version is set at build time with -ldflags "-X main.version=..."; the default names the source tree.
@@ -55,7 +56,7 @@ func exitCodeOf(k report.Failure) int {
 // silentExit asks for an exit code without printing anything more (the command printed its own report).
 func silentExit(code int) error { return &exitError{code: code} }
 
-func newRootCmd(stdout, stderr io.Writer, ws *report.Workspace) *cobra.Command {
+func newRootCmd(stdout, stderr io.Writer, ws *outfile.Workspace) *cobra.Command {
 	root := &cobra.Command{
 		Use:           "sparkmargin",
 		Short:         "Screen static-electricity ignition hazards from a line-survey workbook",
@@ -77,7 +78,7 @@ func newRootCmd(stdout, stderr io.Writer, ws *report.Workspace) *cobra.Command {
 // any error once. Every temporary file of the run belongs to one workspace,
 // removed on the way out and on SIGINT or SIGTERM (onInterrupt).
 func run(args []string, stdout, stderr io.Writer) int {
-	ws := report.NewWorkspace("")
+	ws := outfile.NewWorkspace("")
 	stop := onInterrupt(ws, stderr)
 	defer stop()         // second: the handler stays until the workspace is gone
 	defer ws.Close()     // first
@@ -110,7 +111,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 // renamed into place, so that a workbook and its JSON are replaced together),
 // says which outputs are kept, and exits with exitInterrupted. The returned
 // function stops the handling.
-func onInterrupt(ws *report.Workspace, stderr io.Writer) (stop func()) {
+func onInterrupt(ws *outfile.Workspace, stderr io.Writer) (stop func()) {
 	sig := make(chan os.Signal, 1)
 	done := make(chan struct{})
 	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
@@ -141,7 +142,7 @@ func interruptMessage(s os.Signal, written []string) string {
 	}
 	shown := make([]string, len(written))
 	for i, w := range written {
-		shown[i] = report.ShownPath(w) // "-" is standard output
+		shown[i] = outfile.ShownPath(w) // "-" is standard output
 	}
 	return msg + fmt.Sprintf("written whole before the interrupt: %s; the output in progress was not written and its previous file, if any, is kept as it was",
 		strings.Join(shown, ", "))

@@ -11,10 +11,11 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 // loadSurvey reads and validates a survey; an unreadable file is a usage-class error (exit 2).
-func loadSurvey(ws *report.Workspace, path string) (*inventory.Survey, error) {
+func loadSurvey(ws *outfile.Workspace, path string) (*inventory.Survey, error) {
 	if err := report.RequireRegular(path); err != nil {
 		return nil, err
 	}

@@ -7,12 +7,12 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
 type sweepOptions struct {
-	ws     *report.Workspace
+	ws     *outfile.Workspace
 	survey string
 	rh     string
 	output string
@@ -20,7 +20,7 @@ type sweepOptions struct {
 	args   []string
 }
 
-func newSweepCmd(ws *report.Workspace) *cobra.Command {
+func newSweepCmd(ws *outfile.Workspace) *cobra.Command {
 	o := sweepOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "sweep SURVEY.xlsx --rh FROM:TO:STEP [-o FILE.xlsx]",
@@ -35,7 +35,7 @@ func newSweepCmd(ws *report.Workspace) *cobra.Command {
 		RunE: func(c *cobra.Command, args []string) error {
 			o.survey = args[0]
 			o.args = commandLine(c, args)
-			return withOutputs(c, []report.NamedPath{{Role: "the survey", Path: o.survey}}, o.output, o.json, func(out io.Writer) error { return runSweep(out, o) })
+			return withOutputs(c, []outfile.NamedPath{{Role: "the survey", Path: o.survey}}, o.output, o.json, func(out io.Writer) error { return runSweep(out, o) })
 		},
 	}
 	c.Flags().StringVar(&o.rh, "rh", "10:90:5", "RH range in %: FROM:TO:STEP")
@@ -53,7 +53,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	if err != nil {
 		return err
 	}
-	if err := report.RefuseClashes([]report.NamedPath{{Role: "the survey", Path: o.survey}}, []report.NamedPath{{Role: "-o", Path: o.output}, {Role: "--json", Path: o.json}}); err != nil {
+	if err := outfile.RefuseClashes([]outfile.NamedPath{{Role: "the survey", Path: o.survey}}, []outfile.NamedPath{{Role: "-o", Path: o.output}, {Role: "--json", Path: o.json}}); err != nil {
 		return err
 	}
 	if len(s.Objects) == 0 {
@@ -65,7 +65,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
-	if err := report.WriteOutputs(o.ws, o.output, o.json,
+	if err := o.ws.WritePair(o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteSweepWorkbook(w, sw, info) },
 		func(w io.Writer) error { return rerun.WriteSweepJSON(w, sw) }); err != nil {
 		return err
@@ -75,7 +75,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		fmt.Fprintf(out, "\nSweep workbook: %s\n", o.output)
 	}
 	if o.json != "" {
-		fmt.Fprintf(out, "Sweep JSON:     %s\n", report.ShownPath(o.json))
+		fmt.Fprintf(out, "Sweep JSON:     %s\n", outfile.ShownPath(o.json))
 	}
 	return nil
 }

@@ -7,17 +7,17 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
 type templateOptions struct {
-	ws    *report.Workspace
+	ws    *outfile.Workspace
 	path  string
 	force bool
 }
 
-func newTemplateCmd(ws *report.Workspace) *cobra.Command {
+func newTemplateCmd(ws *outfile.Workspace) *cobra.Command {
 	o := templateOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "template FILE.xlsx",

@@ -8,12 +8,12 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
 type whatifOptions struct {
-	ws             *report.Workspace
+	ws             *outfile.Workspace
 	survey         string
 	output         string
 	json           string
@@ -51,7 +51,7 @@ func (f changeFlag) String() string {
 	return strings.Join(out, ",")
 }
 
-func newWhatifCmd(ws *report.Workspace) *cobra.Command {
+func newWhatifCmd(ws *outfile.Workspace) *cobra.Command {
 	o := whatifOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "whatif SURVEY.xlsx [changes] -o FILE.xlsx",
@@ -68,7 +68,7 @@ func newWhatifCmd(ws *report.Workspace) *cobra.Command {
 		RunE: func(c *cobra.Command, args []string) error {
 			o.survey = args[0]
 			o.args = whatifCommandLine(o)
-			return withOutputs(c, []report.NamedPath{{Role: "the survey", Path: o.survey}}, o.output, o.json, func(out io.Writer) error { return runWhatif(out, o) })
+			return withOutputs(c, []outfile.NamedPath{{Role: "the survey", Path: o.survey}}, o.output, o.json, func(out io.Writer) error { return runWhatif(out, o) })
 		},
 	}
 	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write (default <survey>-whatif.xlsx beside the survey)")
@@ -87,9 +87,9 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	}
 	xlsx := o.output
 	if xlsx == "" {
-		xlsx = report.SiblingPath(o.survey, "-whatif.xlsx")
+		xlsx = outfile.SiblingPath(o.survey, "-whatif.xlsx")
 	}
-	if err := report.RefuseClashes([]report.NamedPath{{Role: "the survey", Path: o.survey}}, []report.NamedPath{{Role: "the workbook", Path: xlsx}, {Role: "--json", Path: o.json}}); err != nil {
+	if err := outfile.RefuseClashes([]outfile.NamedPath{{Role: "the survey", Path: o.survey}}, []outfile.NamedPath{{Role: "the workbook", Path: xlsx}, {Role: "--json", Path: o.json}}); err != nil {
 		return err
 	}
 	flags := make([]rerun.FlagArg, len(o.flags))
@@ -112,7 +112,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
-	if err := report.WriteOutputs(o.ws, xlsx, o.json,
+	if err := o.ws.WritePair(xlsx, o.json,
 		func(w io.Writer) error { return rerun.WriteWhatifWorkbook(w, x, info) },
 		func(w io.Writer) error { return rerun.WriteWhatifJSON(w, x) }); err != nil {
 		return err
@@ -120,7 +120,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	rerun.WriteWhatifSummary(out, x)
 	fmt.Fprintf(out, "\nWhat-if workbook: %s\n", xlsx)
 	if o.json != "" {
-		fmt.Fprintf(out, "What-if JSON:     %s\n", report.ShownPath(o.json))
+		fmt.Fprintf(out, "What-if JSON:     %s\n", outfile.ShownPath(o.json))
 	}
 	if len(x.Before.Objects) == 0 {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))

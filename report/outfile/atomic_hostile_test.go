@@ -1,4 +1,4 @@
-package report
+package outfile
 
 import (
 	"bytes"
@@ -69,7 +69,7 @@ func labelOf(t *testing.T, path string) string {
 	return v
 }
 
-func TestWriteFileAtomicPanicKeepsPrevious(t *testing.T) {
+func TestWriteAtomicPanicKeepsPrevious(t *testing.T) {
 	dir := t.TempDir()
 	p := filepath.Join(dir, "audit.xlsx")
 	prev := workbookBytes(t, "previous", 3)
@@ -82,7 +82,7 @@ func TestWriteFileAtomicPanicKeepsPrevious(t *testing.T) {
 				t.Fatal("the panic did not reach the caller")
 			}
 		}()
-		_ = WriteFileAtomic(p, func(w io.Writer) error {
+		_ = WriteAtomic(p, func(w io.Writer) error {
 			w.Write(workbookBytes(t, "new", 3)[:500])
 			panic("writer failed midway")
 		})
@@ -93,7 +93,7 @@ func TestWriteFileAtomicPanicKeepsPrevious(t *testing.T) {
 	assertNoTemps(t, dir)
 }
 
-func TestWriteFileAtomicDiskFull(t *testing.T) {
+func TestWriteAtomicDiskFull(t *testing.T) {
 	dir := t.TempDir()
 	p := filepath.Join(dir, "audit.xlsx")
 	if err := os.WriteFile(p, workbookBytes(t, "previous", 3), 0o644); err != nil {
@@ -101,7 +101,7 @@ func TestWriteFileAtomicDiskFull(t *testing.T) {
 	}
 	data := workbookBytes(t, "new", 50)
 	for _, limit := range []int{0, 100, len(data) / 2, len(data) - 1} {
-		err := writeFileAtomic(p, func(w io.Writer) io.Writer { return &fullDisk{w: w, limit: limit} },
+		err := writeAtomic(p, func(w io.Writer) io.Writer { return &fullDisk{w: w, limit: limit} },
 			func(w io.Writer) error { _, err := w.Write(data); return err })
 		want := "disk full while writing " + p + ": no space left on device; the previous file is untouched"
 		if err == nil || err.Error() != want || !errors.Is(err, syscall.ENOSPC) {
@@ -114,7 +114,7 @@ func TestWriteFileAtomicDiskFull(t *testing.T) {
 	}
 	// No previous file: the message says nothing was written.
 	q := filepath.Join(dir, "new.xlsx")
-	err := writeFileAtomic(q, func(w io.Writer) io.Writer { return &fullDisk{w: w, limit: 10} },
+	err := writeAtomic(q, func(w io.Writer) io.Writer { return &fullDisk{w: w, limit: 10} },
 		func(w io.Writer) error { _, err := w.Write(data); return err })
 	if err == nil || !strings.HasSuffix(err.Error(), "nothing was written there") {
 		t.Errorf("error %v", err)
@@ -124,10 +124,10 @@ func TestWriteFileAtomicDiskFull(t *testing.T) {
 	}
 }
 
-// TestWriteFileAtomicReadOnlyFolderAsRoot: chmod does not stop root, so a
+// TestWriteAtomicReadOnlyFolderAsRoot: chmod does not stop root, so a
 // folder no one may create files in is used: /sys (sysfs). Skipped where /sys
 // takes new files or is absent.
-func TestWriteFileAtomicReadOnlyFolderAsRoot(t *testing.T) {
+func TestWriteAtomicReadOnlyFolderAsRoot(t *testing.T) {
 	probe, err := os.CreateTemp("/sys", ".sparkmargin-probe-*")
 	if err == nil {
 		probe.Close()
@@ -137,7 +137,7 @@ func TestWriteFileAtomicReadOnlyFolderAsRoot(t *testing.T) {
 	if _, err := os.Stat("/sys"); err != nil {
 		t.Skip("no /sys")
 	}
-	err = WriteFileAtomic("/sys/audit.xlsx", writeString("x"))
+	err = WriteAtomic("/sys/audit.xlsx", writeString("x"))
 	if err == nil || !strings.Contains(err.Error(), "folder /sys is not writable") {
 		t.Fatalf("error = %v, want 'folder /sys is not writable'", err)
 	}
@@ -148,7 +148,7 @@ const killHelperEnv = "SPARKMARGIN_ATOMIC_KILL_TARGET"
 
 // TestAtomicKillHelper is not a test: run as a child process with
 // killHelperEnv set, it writes a workbook slowly to the target through
-// WriteFileAtomic, so that its parent can kill it at any moment.
+// WriteAtomic, so that its parent can kill it at any moment.
 func TestAtomicKillHelper(t *testing.T) {
 	target := os.Getenv(killHelperEnv)
 	if target == "" {
@@ -156,7 +156,7 @@ func TestAtomicKillHelper(t *testing.T) {
 	}
 	data := workbookBytes(t, "new", 200)
 	fmt.Println("writing")
-	err := WriteFileAtomic(target, func(w io.Writer) error {
+	err := WriteAtomic(target, func(w io.Writer) error {
 		for len(data) > 0 {
 			n := min(len(data), 256)
 			if _, err := w.Write(data[:n]); err != nil {
@@ -172,11 +172,11 @@ func TestAtomicKillHelper(t *testing.T) {
 	}
 }
 
-// TestWriteFileAtomicKilled kills a process writing an audit at random
+// TestWriteAtomicKilled kills a process writing an audit at random
 // moments (SIGKILL: no deferred clean-up runs): the target is always either
 // the previous complete workbook or the new complete one, never half of one;
 // the next run's CleanStaleTemps removes what the killed run left.
-func TestWriteFileAtomicKilled(t *testing.T) {
+func TestWriteAtomicKilled(t *testing.T) {
 	if testing.Short() {
 		t.Skip("-short: starts child processes")
 	}
@@ -259,7 +259,7 @@ func TestConcurrentRunKeepsOtherRunsTemp(t *testing.T) {
 		t.Fatal("the other process's temporary file never appeared")
 	}
 	CleanStaleTemps(dir, "audit.xlsx")
-	if err := WriteFileAtomic(p, func(w io.Writer) error { _, err := w.Write(workbookBytes(t, "mine", 3)); return err }); err != nil {
+	if err := WriteAtomic(p, func(w io.Writer) error { _, err := w.Write(workbookBytes(t, "mine", 3)); return err }); err != nil {
 		t.Fatal(err)
 	}
 	// Had its temporary file been removed, the other process's rename would

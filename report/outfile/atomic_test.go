@@ -1,4 +1,4 @@
-package report
+package outfile
 
 import (
 	"errors"
@@ -16,14 +16,14 @@ func writeString(s string) func(io.Writer) error {
 	return func(w io.Writer) error { _, err := io.WriteString(w, s); return err }
 }
 
-func TestWriteFileAtomicReplaces(t *testing.T) {
+func TestWriteAtomicReplaces(t *testing.T) {
 	dir := t.TempDir()
 	p := filepath.Join(dir, "audit.xlsx")
 	if err := os.WriteFile(p, []byte("old"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	if err := WriteFileAtomic(p, writeString("new")); err != nil {
-		t.Fatalf("WriteFileAtomic: %v", err)
+	if err := WriteAtomic(p, writeString("new")); err != nil {
+		t.Fatalf("WriteAtomic: %v", err)
 	}
 	if b, _ := os.ReadFile(p); string(b) != "new" {
 		t.Errorf("content = %q, want new", b)
@@ -31,14 +31,14 @@ func TestWriteFileAtomicReplaces(t *testing.T) {
 	assertNoTemps(t, dir)
 }
 
-func TestWriteFileAtomicFailureKeepsPrevious(t *testing.T) {
+func TestWriteAtomicFailureKeepsPrevious(t *testing.T) {
 	dir := t.TempDir()
 	p := filepath.Join(dir, "audit.json")
 	if err := os.WriteFile(p, []byte("previous"), 0o644); err != nil {
 		t.Fatal(err)
 	}
 	boom := errors.New("boom")
-	err := WriteFileAtomic(p, func(w io.Writer) error {
+	err := WriteAtomic(p, func(w io.Writer) error {
 		_, _ = io.WriteString(w, "half")
 		return boom
 	})
@@ -51,36 +51,36 @@ func TestWriteFileAtomicFailureKeepsPrevious(t *testing.T) {
 	assertNoTemps(t, dir)
 }
 
-func TestWriteFileAtomicRefusesFolder(t *testing.T) {
+func TestWriteAtomicRefusesFolder(t *testing.T) {
 	dir := t.TempDir()
-	err := WriteFileAtomic(dir, writeString("x"))
+	err := WriteAtomic(dir, writeString("x"))
 	if err == nil || !strings.Contains(err.Error(), "folder") {
 		t.Fatalf("error = %v, want a clear 'is a folder' error", err)
 	}
 }
 
-func TestWriteFileAtomicParentNotAFolder(t *testing.T) {
+func TestWriteAtomicParentNotAFolder(t *testing.T) {
 	dir := t.TempDir()
 	file := filepath.Join(dir, "plain")
 	if err := os.WriteFile(file, []byte("x"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	err := WriteFileAtomic(filepath.Join(file, "audit.xlsx"), writeString("x"))
+	err := WriteAtomic(filepath.Join(file, "audit.xlsx"), writeString("x"))
 	if err == nil || !strings.Contains(err.Error(), "not a folder") {
 		t.Fatalf("error = %v, want 'not a folder'", err)
 	}
 }
 
-func TestWriteFileAtomicReadOnlyFolder(t *testing.T) {
+func TestWriteAtomicReadOnlyFolder(t *testing.T) {
 	if os.Geteuid() == 0 {
-		t.Skip("root can write into a read-only folder; covered by TestWriteFileAtomicParentNotAFolder")
+		t.Skip("root can write into a read-only folder; covered by TestWriteAtomicParentNotAFolder")
 	}
 	dir := t.TempDir()
 	if err := os.Chmod(dir, 0o555); err != nil {
 		t.Fatal(err)
 	}
 	t.Cleanup(func() { _ = os.Chmod(dir, 0o755) })
-	err := WriteFileAtomic(filepath.Join(dir, "audit.xlsx"), writeString("x"))
+	err := WriteAtomic(filepath.Join(dir, "audit.xlsx"), writeString("x"))
 	if err == nil || !strings.Contains(err.Error(), "not writable") {
 		t.Fatalf("error = %v, want 'not writable'", err)
 	}

@@ -1,4 +1,4 @@
-package report
+package outfile
 
 import (
 	"bytes"
@@ -21,7 +21,7 @@ func TestStdoutOutput(t *testing.T) {
 	var out bytes.Buffer
 	ws.SetStdout(&out)
 	book := filepath.Join(dir, "b.xlsx")
-	err := WriteOutputs(ws, book, Stdout,
+	err := ws.WritePair(book, Stdout,
 		func(w io.Writer) error { _, err := io.WriteString(w, "book"); return err },
 		func(w io.Writer) error { _, err := io.WriteString(w, `{"a":1}`); return err })
 	if err != nil {
@@ -34,7 +34,7 @@ func TestStdoutOutput(t *testing.T) {
 		t.Errorf("workbook %q, %v", b, err)
 	}
 	out.Reset()
-	err = WriteOutputs(ws, "", Stdout, nil, func(w io.Writer) error {
+	err = ws.WritePair("", Stdout, nil, func(w io.Writer) error {
 		io.WriteString(w, `{"half":`)
 		return errors.New("broken")
 	})

@@ -1,12 +1,10 @@
-package report
+package outfile
 
 import (
 	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
-
-	"github.com/sparkmargin/sparkmargin/inventory"
 )
 
 // kernelPath returns the absolute path the kernel reaches when it creates or
@@ -59,10 +57,10 @@ func inputPath(p string) string {
 	return kernelPath(p)
 }
 
-// sameTarget reports whether paths a and b reach the same file: the same
+// SameTarget reports whether paths a and b reach the same file: the same
 // resolved path, or (for files that exist) the same file by identity, which
 // catches hard links and a symlink in the last component.
-func sameTarget(a, b string, aIsInput, bIsInput bool) bool {
+func SameTarget(a, b string, aIsInput, bIsInput bool) bool {
 	ra, rb := kernelPath(a), kernelPath(b)
 	if aIsInput {
 		ra = inputPath(a)
@@ -95,21 +93,21 @@ func RefuseClashes(inputs, outputs []NamedPath) error {
 		if IsStdout(o.Path) {
 			for _, o2 := range outputs[:i] {
 				if IsStdout(o2.Path) {
-					return unusable(fmt.Errorf("%s and %s both name standard output (-); only one output can go there", o2.Role, o.Role))
+					return fmt.Errorf("%s and %s both name standard output (-); only one output can go there", o2.Role, o.Role)
 				}
 			}
 			continue
 		}
 		for _, in := range inputs {
-			if in.Path != "" && sameTarget(o.Path, in.Path, false, true) {
-				return unusable(fmt.Errorf("refusing to write %s %s: it is %s itself (%s, the file %s); choose another output name",
-					o.Role, o.Path, in.Role, in.Path, inputPath(in.Path)))
+			if in.Path != "" && SameTarget(o.Path, in.Path, false, true) {
+				return fmt.Errorf("refusing to write %s %s: it is %s itself (%s, the file %s); choose another output name",
+					o.Role, o.Path, in.Role, in.Path, inputPath(in.Path))
 			}
 		}
 		for _, o2 := range outputs[:i] {
-			if o2.Path != "" && sameTarget(o.Path, o2.Path, false, false) {
-				return unusable(fmt.Errorf("%s %s and %s %s name the same file (%s); give each output its own name",
-					o2.Role, o2.Path, o.Role, o.Path, kernelPath(o.Path)))
+			if o2.Path != "" && SameTarget(o.Path, o2.Path, false, false) {
+				return fmt.Errorf("%s %s and %s %s name the same file (%s); give each output its own name",
+					o2.Role, o2.Path, o.Role, o.Path, kernelPath(o.Path))
 			}
 		}
 	}
@@ -123,13 +121,6 @@ func ShownPath(p string) string {
 		return "standard output"
 	}
 	return p
-}
-
-// RequireRegular refuses, in one sentence (exit 2), an input that is not a
-// regular file: a named pipe would block the read for ever, a device or a
-// socket is no workbook. It looks with stat only and never opens the path.
-func RequireRegular(path string) error {
-	return unusable(inventory.CheckRegularFile(path))
 }
 
 // DefaultAuditPath is "<dir>/<name>-audit.xlsx" beside the survey.

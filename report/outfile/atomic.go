@@ -1,4 +1,4 @@
-package report
+package outfile
 
 import (
 	"crypto/sha256"
@@ -53,20 +53,20 @@ func (p *Pending) Path() string { return p.path }
 // SHA256 returns the hex SHA-256 of the bytes written.
 func (p *Pending) SHA256() string { return p.sum }
 
-// WriteFileAtomic writes a file through write into a temporary file in the
+// WriteAtomic writes a file through write into a temporary file in the
 // target's folder, syncs and closes it, then renames it over path. The previous
 // file, if any, is untouched until the rename; on any error (or a panic in
 // write) the temporary file is removed and the previous file stays as it was.
 // A target that is a folder is refused; a full disk is said in plain words.
 // A run killed before the rename leaves at most a temporary file, which the
 // next write of the same target removes once the killed process is gone.
-func WriteFileAtomic(path string, write func(io.Writer) error) error {
-	return writeFileAtomic(path, nil, write)
+func WriteAtomic(path string, write func(io.Writer) error) error {
+	return writeAtomic(path, nil, write)
 }
 
-// writeFileAtomic is WriteFileAtomic with an optional wrapper of the
+// writeAtomic is WriteAtomic with an optional wrapper of the
 // temporary file's writer (tests use it to simulate a full disk).
-func writeFileAtomic(path string, wrap func(io.Writer) io.Writer, write func(io.Writer) error) error {
+func writeAtomic(path string, wrap func(io.Writer) io.Writer, write func(io.Writer) error) error {
 	p, err := prepare(nil, path, wrap, write)
 	if err != nil {
 		return err
@@ -328,25 +328,25 @@ func staleFile(p, tail string, legacyAge time.Duration) bool {
 	return !lockHeld(p)
 }
 
-// WriteOutputs writes a workbook (when xlsx is set) and a JSON (when
-// jsonPath is set) of one run, each whole into a temporary file of ws first,
-// then renames both into place together. A failure is Unusable.
-func WriteOutputs(ws *Workspace, xlsx, jsonPath string, book, doc func(io.Writer) error) error {
+// WritePair writes a workbook (when xlsx is set) and a JSON (when jsonPath
+// is set) of one run, each whole into a temporary file of the workspace
+// first, then renames both into place together.
+func (w *Workspace) WritePair(xlsx, jsonPath string, book, doc func(io.Writer) error) error {
 	var pw, pj *Pending
 	var err error
 	if xlsx != "" {
-		if pw, err = ws.Prepare(xlsx, book); err != nil {
-			return unusable(fmt.Errorf("writing the workbook: %w", err))
+		if pw, err = w.Prepare(xlsx, book); err != nil {
+			return fmt.Errorf("writing the workbook: %w", err)
 		}
 	}
 	if jsonPath != "" {
-		if pj, err = ws.Prepare(jsonPath, doc); err != nil {
-			ws.Discard(pw)
-			return unusable(fmt.Errorf("writing the JSON: %w", err))
+		if pj, err = w.Prepare(jsonPath, doc); err != nil {
+			w.Discard(pw)
+			return fmt.Errorf("writing the JSON: %w", err)
 		}
 	}
-	if err := ws.Commit(pw, pj); err != nil {
-		return unusable(fmt.Errorf("writing the outputs: %w", err))
+	if err := w.Commit(pw, pj); err != nil {
+		return fmt.Errorf("writing the outputs: %w", err)
 	}
 	return nil
 }
