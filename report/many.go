@@ -92,17 +92,8 @@ func (r *Run) AssessMany(surveys []string, outDir, jsonDir string, pf PortfolioF
 		}
 		r.printAudit(a, o)
 		p.Surveys = append(p.Surveys, audit.PortfolioEntry(a, filepath.Base(file), o.Workbook))
-		switch {
-		case ObjectCount(a) == 0:
-			fmt.Fprintf(errOut, "sparkmargin: %s: no object could be assessed: run 'sparkmargin check %s' for the problems\n", file, file)
-			worst = max(worst, Problems)
-			failed++
-		case RejectedObjects(a.Survey) > 0:
-			fmt.Fprintf(errOut, "sparkmargin: %s: %d object row(s) were rejected; see the Rejected sheet\n", file, RejectedObjects(a.Survey))
-			worst = max(worst, Problems)
-			failed++
-		case r.Strict && len(a.Survey.Rejected) > 0:
-			fmt.Fprintf(errOut, "sparkmargin: %s: --strict: %d row(s) were rejected; see the Rejected sheet\n", file, len(a.Survey.Rejected))
+		if err := r.shortfall(a, file); err != nil {
+			fmt.Fprintf(errOut, "sparkmargin: %s: %v\n", file, err)
 			worst = max(worst, Problems)
 			failed++
 		}

@@ -224,13 +224,24 @@ func (r *Run) AssessOne(survey string, out Outputs, pf PortfolioFiles) error {
 			return err
 		}
 	}
+	if err := r.shortfall(a, survey); err != nil {
+		return problems(fmt.Errorf("%s: %w", survey, err))
+	}
+	return nil
+}
+
+// shortfall says why an assessed survey still fails the run (class
+// Problems), or nil: nothing could be assessed; an object row was rejected
+// (an object not assessed is a hazard the audit does not cover); under
+// Strict, any row was rejected. The audit is written in every case.
+func (r *Run) shortfall(a *assess.Audit, survey string) error {
 	switch {
 	case ObjectCount(a) == 0:
-		return problems(fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", survey, survey))
+		return fmt.Errorf("no object could be assessed: run 'sparkmargin check %s' for the problems", survey)
 	case RejectedObjects(a.Survey) > 0:
-		return problems(fmt.Errorf("%d object row(s) were rejected: the audit is written, but the stations marked incomplete are ranked without them; see the Rejected sheet", RejectedObjects(a.Survey)))
+		return fmt.Errorf("%d object row(s) were rejected: the audit is written, but the stations marked incomplete are ranked without them; see the Rejected sheet", RejectedObjects(a.Survey))
 	case r.Strict && len(a.Survey.Rejected) > 0:
-		return problems(fmt.Errorf("--strict: %d row(s) were rejected; see the Rejected sheet", len(a.Survey.Rejected)))
+		return fmt.Errorf("--strict: %d row(s) were rejected; see the Rejected sheet", len(a.Survey.Rejected))
 	}
 	return nil
 }
