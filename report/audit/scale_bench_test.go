@@ -9,7 +9,7 @@ package audit
 //
 //	go test ./report -run '^$' -bench 'Scale' -benchmem [-short]
 //
-// Each reports ns/object; README.md "Performance and scale" gives the ratios.
+// Each reports ns/object; DEVELOPERS.md "Performance and scale" gives the ratios.
 
 import (
 	"flag"
