@@ -58,6 +58,10 @@ type ReadOptions struct {
 	UnzipXMLSizeLimit int64
 	// TmpDir is no longer used: the reader makes no temporary files.
 	TmpDir string
+	// CountObjectRows counts the Objects sheet's rows before reading them
+	// when the sheet declares no range (one quick extra unpacking of that
+	// part), so that Survey.DeclaredObjectRows can size a progress line.
+	CountObjectRows bool
 	// MaxRows caps the rows read per sheet (default DefaultMaxRows, the
 	// sheet's own row limit); a sheet with more gets an error and the rest is
 	// not read.
@@ -419,6 +423,13 @@ func (r *reader) readSheets() (*Survey, *siteSheet) {
 		}
 	}
 	r.checkUnread()
+	if sh, ok := r.sheets[NormalizeName(SheetObjects)]; ok {
+		last := r.p.declaredLastRow(sh.Part)
+		if last <= 1 && r.p.opts.CountObjectRows { // no range, or "A1" as some writers leave it
+			last = r.p.countedRows(sh.Part)
+		}
+		s.DeclaredObjectRows = max(0, last-1) // less the header row
+	}
 	return s, r.readSite(s)
 }
 

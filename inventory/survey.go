@@ -333,6 +333,12 @@ type Survey struct {
 	Problems []Problem    // every problem, errors and warnings, in sheet/row/column order
 	Rejected []Rejected   // rows not accepted, in sheet/row order
 	Counts   []SheetCount // per sheet, in contract order
+
+	// DeclaredObjectRows is the number of data rows the Objects sheet says it
+	// has (its <dimension> element, less a header row); 0 when it says
+	// nothing. A writer's claim, known before the rows are read: it sizes the
+	// progress line and is never used to judge.
+	DeclaredObjectRows int
 }
 
 // Material returns the material with the given name (case-insensitive) or false.
