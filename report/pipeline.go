@@ -17,6 +17,7 @@ import (
 // Progress hears how far a run has gone; a nil Progress hears nothing.
 type Progress interface {
 	Begin(label string) // a survey starts (label names it)
+	Total(rows int)     // the rows its Objects sheet declares, before any Set (0: unknown)
 	Set(objects int)    // objects assessed so far in that survey
 	End()               // the survey is done (or failed)
 }
@@ -65,6 +66,12 @@ func (r *Run) errOut() io.Writer {
 func (r *Run) begin(label string) {
 	if r.Progress != nil {
 		r.Progress.Begin(label)
+	}
+}
+
+func (r *Run) total(rows int) {
+	if r.Progress != nil {
+		r.Progress.Total(rows)
 	}
 }
 
@@ -135,7 +142,9 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	if err != nil {
 		return nil, unusable(err)
 	}
-	s, err := inventory.StreamFile(path, inventory.ReadOptions{TmpDir: tmp}, func(s *inventory.Survey) error {
+	opts := inventory.ReadOptions{TmpDir: tmp, CountObjectRows: r.Progress != nil}
+	s, err := inventory.StreamFile(path, opts, func(s *inventory.Survey) error {
+		r.total(s.DeclaredObjectRows)
 		lim := assess.LimitsFromSite(s.Site, model.DefaultLimits())
 		unc := assess.UncertaintiesFromSite(s.Site, assess.DefaultUncertainties())
 		st = assess.NewStreamer(s, assess.Options{Limits: lim, Samples: r.Samples, Seed: r.Seed, Workers: r.Workers, Uncertainties: unc})

@@ -98,7 +98,7 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	}
 	r := &report.Run{
 		Workspace: o.ws, Samples: o.samples, Seed: o.seed, Workers: o.workers, Strict: o.strict,
-		ToolVersion: version, CommandLine: o.args, Out: out, ErrOut: errOut, Progress: newProgress(errOut),
+		ToolVersion: version, CommandLine: o.args, Out: out, ErrOut: errOut, Progress: progressFor(errOut),
 		Summary: audit.SummaryOptions{Top: o.top, Quiet: o.quiet},
 	}
 	pf := report.PortfolioFiles{Workbook: o.portfolio, JSON: o.portfolioJSON}
