@@ -39,7 +39,7 @@ func runCheck(out io.Writer, o checkOptions) error {
 		return err
 	}
 	if o.json {
-		if err := audit.WriteCheckJSON(out, s); err != nil {
+		if err := audit.WriteCheckJSON(rawOut(out), s); err != nil {
 			return err
 		}
 	} else {

@@ -29,7 +29,7 @@ func newLibraryCmd() *cobra.Command {
 		Args: cobra.NoArgs,
 		RunE: func(c *cobra.Command, args []string) error {
 			if o.json {
-				return writeLibraryJSON(c.OutOrStdout())
+				return writeLibraryJSON(rawOut(c.OutOrStdout())) // JSON keeps its signs
 			}
 			writeLibrary(c.OutOrStdout())
 			return nil

@@ -5,7 +5,6 @@ import (
 	"io"
 	"math"
 	"strings"
-	"text/tabwriter"
 	"unicode"
 	"unicode/utf8"
 
@@ -222,25 +221,25 @@ func writeLibrary(out io.Writer) {
 	fmt.Fprintln(out, "Materials: surface resistivity at 50 % RH; a survey's Materials sheet overrides a built-in")
 	fmt.Fprintln(out, "of the same name. Slope: decades of surface resistivity per 10 %RH.")
 	var n notes
-	tw := tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	tw, flush := tabbed(out)
 	fmt.Fprintln(tw, "Name\tClass\tεr\tSurface\tSlope\tVolume\tBreakdown\tSource")
 	for _, m := range inventory.BuiltinMaterials() {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", m.Name, m.Class, plain(m.Permittivity),
 			unitText(book.UnitOhmSq, m.SurfaceResistivity), plain(m.HumiditySlope), unitText(book.UnitOhmM, m.VolumeResistivity),
 			unitText(book.UnitKVPerMM, m.BreakdownStrength), n.ref(m.Source))
 	}
-	tw.Flush()
+	flush()
 	n.write(out)
 
 	fmt.Fprintln(out, "\nSubstances: MIE and group; conductivity and permittivity of the liquid")
 	n = notes{}
-	tw = tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	tw, flush = tabbed(out)
 	fmt.Fprintln(tw, "Name\tKind\tMIE\tGroup\tConductivity\tεr\tSource")
 	for _, s := range inventory.BuiltinSubstances() {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", s.Name, s.Kind, unitText(book.UnitMJ, s.MIE), s.Group,
 			unitText(book.UnitPSPerM, s.Conductivity), plain(s.Permittivity), n.ref(s.Source))
 	}
-	tw.Flush()
+	flush()
 	n.write(out)
 
 	fmt.Fprintln(out, "\nLimits applied by default, in the unit of the Site item that overrides each; write the")
@@ -249,7 +248,7 @@ func writeLibrary(out io.Writer) {
 	n = notes{}
 	ov := assess.LimitOverrides()
 	used := map[string]bool{}
-	tw = tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	tw, flush = tabbed(out)
 	fmt.Fprintln(tw, "Limit (Site item)\tValue\t\tSource")
 	for _, c := range model.LimitSources() {
 		name, value := limitWords(c.Limit)+" *", quantityText(c.Value, "")
@@ -275,7 +274,7 @@ func writeLibrary(out io.Writer) {
 		}
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", name, value, mark, n.ref(c.Source))
 	}
-	tw.Flush()
+	flush()
 	n.write(out)
 
 	var several []string

@@ -53,7 +53,7 @@ func newProgress(w io.Writer) *progress { return &progress{w: w, now: time.Now} 
 // console). /dev/null and NUL are character devices too: a line written
 // there is seen by nobody, which does no harm.
 func isTerminal(w io.Writer) bool {
-	f, ok := w.(*os.File)
+	f, ok := rawOut(w).(*os.File)
 	if !ok {
 		return false
 	}

@@ -57,6 +57,15 @@ func exitCodeOf(k report.Failure) int {
 func silentExit(code int) error { return &exitError{code: code} }
 
 func newRootCmd(stdout, stderr io.Writer, ws *outfile.Workspace) *cobra.Command {
+	return newRootCmdASCII(stdout, stderr, ws, nil)
+}
+
+// newRootCmdASCII is newRootCmd with the --ascii flag bound to ascii (nil:
+// the flag is accepted and ignored, for tests that build the commands alone).
+func newRootCmdASCII(stdout, stderr io.Writer, ws *outfile.Workspace, ascii *bool) *cobra.Command {
+	if ascii == nil {
+		ascii = new(bool)
+	}
 	root := &cobra.Command{
 		Use:           "sparkmargin",
 		Short:         "Screen static-electricity ignition hazards from a line-survey workbook",
@@ -65,6 +74,8 @@ func newRootCmd(stdout, stderr io.Writer, ws *outfile.Workspace) *cobra.Command 
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}
+	root.PersistentFlags().BoolVar(ascii, "ascii", false,
+		"spell µ, Ω, ², ° as u, ohm, ^2, deg on the terminal (also "+asciiEnv+"=1; workbooks and JSON keep the signs)")
 	root.SetOut(stdout)
 	root.SetErr(stderr)
 	root.AddCommand(newTemplateCmd(ws), newCheckCmd(ws), newAssessCmd(ws), newDemoCmd(ws), newLibraryCmd(), newWhatifCmd(ws), newSweepCmd(ws), newCompareCmd(ws))
@@ -79,11 +90,18 @@ func newRootCmd(stdout, stderr io.Writer, ws *outfile.Workspace) *cobra.Command 
 // removed on the way out and on SIGINT or SIGTERM (onInterrupt).
 func run(args []string, stdout, stderr io.Writer) int {
 	ws := outfile.NewWorkspace("")
+	ws.SetStdout(stdout) // outputs given as "-": JSON, written as it is
+	// The terminal text, in ASCII where the console cannot show µ and Ω.
+	var ascii bool
+	env := os.Getenv(asciiEnv)
+	outASCII := asciiMode(false, env, func() bool { return nativeASCIIFor(stdout) })
+	errASCII := asciiMode(false, env, func() bool { return nativeASCIIFor(stderr) })
+	stdout = &asciiWriter{w: stdout, on: func() bool { return ascii || outASCII }}
+	stderr = &asciiWriter{w: stderr, on: func() bool { return ascii || errASCII }}
 	stop := onInterrupt(ws, stderr)
-	defer stop()         // second: the handler stays until the workspace is gone
-	defer ws.Close()     // first
-	ws.SetStdout(stdout) // outputs given as "-"
-	root := newRootCmd(stdout, stderr, ws)
+	defer stop()     // second: the handler stays until the workspace is gone
+	defer ws.Close() // first
+	root := newRootCmdASCII(stdout, stderr, ws, &ascii)
 	root.SetArgs(args)
 	err := root.Execute()
 	if err == nil {
