@@ -222,7 +222,11 @@ func (p *Pending) rename() error {
 	}
 	if err := os.Rename(p.tmp, p.path); err != nil {
 		p.discardLocked()
-		return fmt.Errorf("write %s: rename into place: %w", p.path, err)
+		hint := ""
+		if targetInUse(err) {
+			hint = inUseHint
+		}
+		return fmt.Errorf("write %s: rename into place: %w%s", p.path, err, hint)
 	}
 	if p.ws != nil {
 		delete(p.ws.pending, p.tmp)

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 )
 
@@ -18,15 +19,11 @@ import (
 // "B/l/../s.xlsx" lexically gives "B/s.xlsx", which is not where the kernel
 // goes when B/l is a symlink to another folder.
 func kernelPath(p string) string {
-	abs := p
-	if !filepath.IsAbs(abs) {
-		wd, err := os.Getwd()
-		if err != nil {
-			return filepath.Clean(p)
-		}
-		abs = wd + string(filepath.Separator) + p
+	abs, err := absolute(p)
+	if err != nil {
+		return filepath.Clean(p)
 	}
-	i := strings.LastIndexByte(abs, filepath.Separator)
+	i := lastSeparator(abs)
 	dir, base := abs[:i+1], abs[i+1:]
 	var rest []string
 	for {
@@ -36,14 +33,45 @@ func kernelPath(p string) string {
 		}
 		// The folder does not exist (the write will fail there anyway): step
 		// up and keep the missing part as written.
-		trimmed := strings.TrimRight(dir, string(filepath.Separator))
-		j := strings.LastIndexByte(trimmed, filepath.Separator)
-		if j < 0 {
+		trimmed := strings.TrimRightFunc(dir, func(r rune) bool { return r < 0x80 && os.IsPathSeparator(uint8(r)) })
+		j := lastSeparator(trimmed)
+		if j < 0 || trimmed == filepath.VolumeName(trimmed) {
 			return filepath.Clean(abs)
 		}
 		rest = append([]string{trimmed[j+1:]}, rest...)
 		dir = trimmed[:j+1]
 	}
+}
+
+// absolute makes p absolute as the system will when it opens it. On Windows
+// that is filepath.Abs: the system itself removes "." and ".." by name
+// before it walks the path, and a path rooted without a drive letter
+// (\Surveys\a.xlsx) or with a drive and no root (D:a.xlsx) is resolved
+// against the current drive or that drive's folder. Elsewhere the current
+// folder is joined without cleaning (see kernelPath).
+func absolute(p string) (string, error) {
+	if runtime.GOOS == "windows" {
+		return filepath.Abs(p)
+	}
+	if filepath.IsAbs(p) {
+		return p, nil
+	}
+	wd, err := os.Getwd()
+	if err != nil {
+		return "", err
+	}
+	return wd + string(filepath.Separator) + p, nil
+}
+
+// lastSeparator is the index of the last path separator of p (on Windows
+// both \ and /), -1 when there is none.
+func lastSeparator(p string) int {
+	for i := len(p) - 1; i >= 0; i-- {
+		if os.IsPathSeparator(p[i]) {
+			return i
+		}
+	}
+	return -1
 }
 
 // inputPath returns the file a read of p opens: p with every symlink
