@@ -5,9 +5,6 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"os/signal"
-	"strings"
-	"syscall"
 
 	"github.com/spf13/cobra"
 
@@ -122,46 +119,4 @@ func run(args []string, stdout, stderr io.Writer) int {
 	// cobra's own errors (unknown command, bad args) are usage errors.
 	fmt.Fprintln(stderr, "sparkmargin:", err)
 	return exitUsage
-}
-
-// onInterrupt makes SIGINT and SIGTERM stop the run cleanly: the handler
-// removes the run's temporary files (waiting for a pair of outputs being
-// renamed into place, so that a workbook and its JSON are replaced together),
-// says which outputs are kept, and exits with exitInterrupted. The returned
-// function stops the handling.
-func onInterrupt(ws *outfile.Workspace, stderr io.Writer) (stop func()) {
-	sig := make(chan os.Signal, 1)
-	done := make(chan struct{})
-	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
-	go func() {
-		select {
-		case s := <-sig:
-			written := ws.Abort()
-			fmt.Fprintln(stderr, interruptMessage(s, written))
-			os.Exit(exitInterrupted)
-		case <-done:
-		}
-	}()
-	return func() {
-		signal.Stop(sig)
-		close(done)
-	}
-}
-
-// interruptMessage says what an interrupt left: the previous outputs are kept.
-func interruptMessage(s os.Signal, written []string) string {
-	name := "SIGTERM"
-	if s == os.Interrupt {
-		name = "SIGINT"
-	}
-	msg := fmt.Sprintf("\nsparkmargin: interrupted (%s); temporary files removed; ", name)
-	if len(written) == 0 {
-		return msg + "nothing was replaced: the previous audit, if any, is kept as it was"
-	}
-	shown := make([]string, len(written))
-	for i, w := range written {
-		shown[i] = outfile.ShownPath(w) // "-" is standard output
-	}
-	return msg + fmt.Sprintf("written whole before the interrupt: %s; the output in progress was not written and its previous file, if any, is kept as it was",
-		strings.Join(shown, ", "))
 }
