@@ -23,6 +23,9 @@ var (
 	ErrNotFinite = errors.New("not a finite number")
 	// ErrUncertainty: the ± part of a cell is not a usable relative uncertainty.
 	ErrUncertainty = errors.New("unusable uncertainty")
+	// ErrAmbiguousComma: the number is written with one comma before three
+	// digits ("1,000"), which is a thousands separator or a decimal comma.
+	ErrAmbiguousComma = errors.New("ambiguous comma")
 )
 
 // String returns the dimension's name in words ("electric field").
@@ -349,6 +352,13 @@ func (e *QuantityError) Describe(column string) string {
 		return fmt.Sprintf("%q: unit %q is not known; %s needs a %s", e.Text, e.Unit, col, want)
 	case errors.Is(e.Err, ErrNotFinite):
 		return fmt.Sprintf("%q is not a finite number that can be a reading", e.Text)
+	case errors.Is(e.Err, ErrAmbiguousComma):
+		n := strings.TrimSpace(e.Text)
+		if i := strings.IndexFunc(n, func(r rune) bool { return !(unicode.IsDigit(r) || strings.ContainsRune("+-,", r)) }); i > 0 {
+			n = strings.TrimSpace(n[:i])
+		}
+		return fmt.Sprintf("%q reads as %s with a thousands separator or as %s with a decimal comma; write %s or %s",
+			e.Text, strings.Replace(n, ",", "", 1), strings.Replace(n, ",", ".", 1), strings.Replace(n, ",", "", 1), strings.Replace(n, ",", ".", 1))
 	case errors.Is(e.Err, ErrUncertainty):
 		return fmt.Sprintf("%q: the ± part must be a relative uncertainty in %% (e.g. ±10%%)", e.Text)
 	default:
@@ -426,8 +436,8 @@ func parseQuantity(text, headerUnit string, dim Dimension, t *table, col int) (P
 	}
 	n, err := parseNumber(numText)
 	if err != nil {
-		if errors.Is(err, ErrNotFinite) {
-			return Parsed{}, qerr(ErrNotFinite)
+		if errors.Is(err, ErrNotFinite) || errors.Is(err, ErrAmbiguousComma) {
+			return Parsed{}, qerr(err)
 		}
 		return Parsed{}, qerr(ErrNotANumber)
 	}
@@ -547,8 +557,26 @@ func isDigit(b byte) bool { return b >= '0' && b <= '9' }
 // items, the Changes sheet and command-line values such as sweep's --rh): a
 // number written with a decimal point, or a decimal comma when it is the only
 // comma and there is no point ("1,5" is 1.5); an exponent is allowed. It fails
-// with ErrNotANumber or ErrNotFinite.
+// with ErrNotANumber, ErrNotFinite, or ErrAmbiguousComma for a comma that may
+// be a thousands separator ("1,000": 1000 or 1.0?).
 func ParseNumber(t string) (float64, error) { return parseNumber(t) }
+
+// thousandsLike reports whether t is one to three digits (the first not 0),
+// a comma and three digits, with an optional sign: "1,000", "-12,500". A
+// decimal comma is read in every other place ("1,5", "0,125", "1,2345").
+func thousandsLike(t string) bool {
+	t = strings.TrimLeft(t, "+-")
+	i := strings.IndexByte(t, ',')
+	if i < 1 || i > 3 || t[0] == '0' || len(t)-i-1 != 3 {
+		return false
+	}
+	for j := 0; j < len(t); j++ {
+		if j != i && !isDigit(t[j]) {
+			return false
+		}
+	}
+	return true
+}
 
 // parseNumber parses a number written with a decimal point, or a decimal comma
 // when it is the only comma and there is no point.
@@ -564,6 +592,11 @@ func parseNumber(t string) (float64, error) {
 	if c := strings.Count(t, ","); c > 0 {
 		if c > 1 || strings.Contains(t, ".") {
 			return 0, ErrNotANumber
+		}
+		if thousandsLike(t) {
+			// "1,000" is 1000 to one reader and 1.0 to another: a capacitance
+			// or a resistance read 1000 times too small could clear a hazard.
+			return 0, ErrAmbiguousComma
 		}
 		t = strings.Replace(t, ",", ".", 1)
 	}

@@ -120,6 +120,15 @@ func TestParseQuantity(t *testing.T) {
 		{name: "decimal comma with unit", text: "2,5 kV", unit: "kV", dim: Potential, want: 2500, known: true},
 		{name: "two commas", text: "1,234,5", unit: "m", dim: Length, errIs: ErrNotANumber},
 		{name: "comma and point", text: "1,234.5", unit: "m", dim: Length, errIs: ErrNotANumber},
+		// A comma before three digits may be a thousands separator: refused,
+		// since a capacitance or resistance read 1000 times too small could
+		// clear a hazard (invented cells).
+		{name: "thousands or decimal 1,000", text: "1,000", unit: "pF", dim: Capacitance, errIs: ErrAmbiguousComma},
+		{name: "thousands or decimal with unit", text: "4,700 pF", unit: "pF", dim: Capacitance, errIs: ErrAmbiguousComma},
+		{name: "thousands or decimal negative", text: "-12,500", unit: "kV/m", dim: ElectricField, errIs: ErrAmbiguousComma},
+		{name: "decimal comma 0,125", text: "0,125", unit: "m", dim: Length, want: 0.125, known: true},
+		{name: "decimal comma four places", text: "1,2345", unit: "m", dim: Length, want: 1.2345, known: true},
+		{name: "decimal comma two places", text: "12,50", unit: "kV", dim: Potential, want: 12500, known: true},
 		{name: "non-breaking space", text: "12\u00a0kV/m", unit: "kV/m", dim: ElectricField, want: 12e3, known: true},
 		// uncertainty
 		{name: "± percent", text: "12 kV ±10%", unit: "kV", dim: Potential, want: 12e3, known: true, rel: 0.10},
@@ -292,4 +301,20 @@ func FuzzParseQuantity(f *testing.F) {
 			t.Fatalf("round trip of %q: %g then %g", text, p.Value, back.Value)
 		}
 	})
+}
+
+// TestAmbiguousCommaMessage: the message spells out both readings.
+func TestAmbiguousCommaMessage(t *testing.T) {
+	_, err := ParseQuantity("4,700 pF", "pF", Capacitance)
+	if err == nil {
+		t.Fatal("4,700 pF was read")
+	}
+	var qe *QuantityError
+	if !errors.As(err, &qe) {
+		t.Fatalf("%v is no QuantityError", err)
+	}
+	want := `"4,700 pF" reads as 4700 with a thousands separator or as 4.700 with a decimal comma; write 4700 or 4.700`
+	if got := qe.Describe("Capacitance"); got != want {
+		t.Errorf("got  %s\nwant %s", got, want)
+	}
 }
