@@ -47,7 +47,8 @@ func sheetRows(t *testing.T, path, sheet string) [][]string {
 
 // TestAssessFolderPortfolio: a folder with two copies of the demo survey (and
 // an audit and a lock file, which are skipped) gives an audit and a JSON per
-// survey and a portfolio ranking both sites and all their stations.
+// survey and a portfolio that knows the two as repeat surveys of one site:
+// one site ranked with its stations, both surveys on the Trend sheet.
 func TestAssessFolderPortfolio(t *testing.T) {
 	dir := t.TempDir()
 	in := filepath.Join(dir, "surveys")
@@ -74,16 +75,22 @@ func TestAssessFolderPortfolio(t *testing.T) {
 		t.Error("an audit or a lock file was assessed as a survey")
 	}
 	sites := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), audit.PortfolioSites)
-	if len(sites) != 3 {
-		t.Fatalf("Sites sheet has %d rows, want a header and 2 sites", len(sites))
+	if len(sites) != 2 {
+		t.Fatalf("Sites sheet has %d rows, want a header and 1 site (two surveys of one site)", len(sites))
+	}
+	if trend := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), audit.PortfolioTrend); len(trend) != 3 {
+		t.Errorf("Trend sheet has %d rows, want a header and the 2 surveys", len(trend))
+	}
+	if !strings.Contains(stdout, "Repeat surveys of") {
+		t.Errorf("the repeat surveys are not named:\n%s", stdout)
 	}
 	stations := sheetRows(t, filepath.Join(out, "portfolio.xlsx"), audit.PortfolioStations)
 	s, err := inventory.ReadFile(demo, inventory.ReadOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(stations) != 1+2*len(s.Stations) {
-		t.Errorf("Stations sheet has %d rows, want %d", len(stations), 1+2*len(s.Stations))
+	if len(stations) != 1+len(s.Stations) {
+		t.Errorf("Stations sheet has %d rows, want %d (the latest survey's)", len(stations), 1+len(s.Stations))
 	}
 }
 
@@ -112,10 +119,11 @@ func TestAssessSeveralExitCodes(t *testing.T) {
 		ranked  int
 		outFile bool
 	}{
-		{"all assessed", []string{a, b}, exitOK, "", []string{"a-audit.xlsx", "b-audit.xlsx"}, 2, false},
-		{"one with no objects", []string{a, noObjects}, exitProblems, "no object could be assessed", []string{"a-audit.xlsx", "no-objects-audit.xlsx"}, 2, false},
+		// Copies of one survey are repeat surveys of one site: one site ranked.
+		{"all assessed", []string{a, b}, exitOK, "", []string{"a-audit.xlsx", "b-audit.xlsx"}, 1, false},
+		{"one with no objects", []string{a, noObjects}, exitProblems, "no object could be assessed", []string{"a-audit.xlsx", "no-objects-audit.xlsx"}, -1, false},
 		{"one unreadable", []string{empty, a}, exitUsage, "empty.xlsx", []string{"a-audit.xlsx"}, 1, false},
-		{"one missing", []string{a, filepath.Join(dir, "nope.xlsx"), noObjects}, exitUsage, "nope.xlsx", []string{"a-audit.xlsx"}, 2, false},
+		{"one missing", []string{a, filepath.Join(dir, "nope.xlsx"), noObjects}, exitUsage, "nope.xlsx", []string{"a-audit.xlsx"}, -1, false},
 		{"-o is a file", []string{a, b}, exitUsage, "names a folder", nil, 0, true},
 		{"-p is a survey", []string{a, b, "-p", b}, exitUsage, "survey itself", nil, 0, false},
 	} {
@@ -134,9 +142,15 @@ func TestAssessSeveralExitCodes(t *testing.T) {
 					t.Errorf("%s not written", f)
 				}
 			}
-			if c.ranked > 0 {
-				if rows := sheetRows(t, filepath.Join(o, "portfolio.xlsx"), audit.PortfolioSites); len(rows) != 1+c.ranked {
+			if c.ranked != 0 {
+				rows := sheetRows(t, filepath.Join(o, "portfolio.xlsx"), audit.PortfolioSites)
+				if c.ranked > 0 && len(rows) != 1+c.ranked {
 					t.Errorf("portfolio ranks %d sites, want %d", len(rows)-1, c.ranked)
+				}
+				// -1: a survey with no object is ranked as a site of its own or,
+				// when it names the same site on the same date, never over a survey with objects.
+				if c.ranked < 0 && (len(rows) < 2 || rows[1][colOf(t, rows[0], "Survey file")] != "a.xlsx") {
+					t.Errorf("portfolio Sites sheet %v: want a.xlsx ranked first", rows)
 				}
 			}
 		})
@@ -194,4 +208,15 @@ func TestAssessStreamedSameCells(t *testing.T) {
 			t.Errorf("samples %s: JSON differs from the in-memory path's", samples)
 		}
 	}
+}
+
+func colOf(t *testing.T, header []string, name string) int {
+	t.Helper()
+	for i, h := range header {
+		if h == name {
+			return i
+		}
+	}
+	t.Fatalf("no column %q in %v", name, header)
+	return -1
 }
