@@ -22,6 +22,7 @@ type compareOptions struct {
 	old, new string
 	output   string
 	json     string
+	args     []string
 }
 
 func newCompareCmd(ws *report.Workspace) *cobra.Command {
@@ -41,6 +42,7 @@ func newCompareCmd(ws *report.Workspace) *cobra.Command {
 		Args: cobra.ExactArgs(2),
 		RunE: func(c *cobra.Command, args []string) error {
 			o.old, o.new = args[0], args[1]
+			o.args = commandLine(c, args)
 			return withOutputs(c, []report.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, o.output, o.json, func(out io.Writer) error { return runCompare(out, o) })
 		},
 	}
@@ -111,8 +113,13 @@ func runCompare(out io.Writer, o compareOptions) error {
 		return err
 	}
 	c := rerun.Compare(oldSide, newSide)
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return withCode(exitUsage, err)
+	}
+	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
 	if err := report.WriteOutputs(o.ws, o.output, o.json,
-		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey) },
+		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey, info) },
 		func(w io.Writer) error { return rerun.WriteCompareJSON(w, c) }); err != nil {
 		return err
 	}

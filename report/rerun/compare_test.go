@@ -154,7 +154,7 @@ func TestCompareWorkbookNumbers(t *testing.T) {
 	old, new := drumSurveys()
 	c := compareOf(old, new)
 	var buf bytes.Buffer
-	if err := WriteCompareWorkbook(&buf, c, new); err != nil {
+	if err := WriteCompareWorkbook(&buf, c, new, RunInfo{ToolVersion: "test"}); err != nil {
 		t.Fatal(err)
 	}
 	f, err := excelize.OpenReader(&buf)

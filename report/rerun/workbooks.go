@@ -280,11 +280,11 @@ func unitOf(a, b Value) string {
 // settings), Added, Removed, Changed (one row per changed field, numbers in
 // the survey's display units), Stations (rank moved or verdict changed),
 // Method (identity, what compare does and does not say, the warnings) and Cautions.
-func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Survey) error {
+func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Survey, info RunInfo) error {
 	if c == nil || c.Old == nil || c.New == nil {
 		return errors.New("compare workbook: no comparison")
 	}
-	b := newBook(&assess.Audit{Survey: newSurvey}, RunInfo{}, SheetSummary, "Comparison of two surveys")
+	b := newBook(&assess.Audit{Survey: newSurvey}, info, SheetSummary, "Comparison of two surveys")
 	sh := SheetSummary
 	b.Put(sh, 1, 1, audit.TitleCell("Compare: "+c.Old.Identity.SiteText()+" → "+c.New.Identity.SiteText()))
 	r := identityTable(b, sh, 3, c)
@@ -379,7 +379,15 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	// Method: both identities, the warnings, what compare does and does not say.
 	m := SheetMethod
 	b.Put(m, 1, 1, audit.TitleCell("How this comparison was made"))
-	r = identityTable(b, m, 3, c) + 1
+	r = identityTable(b, m, 3, c)
+	for _, kv := range [][2]string{{"Tool", strings.TrimSpace("sparkmargin " + info.ToolVersion)}, {"Command line", info.CommandLine}} {
+		if kv[1] != "" {
+			b.Put(m, 1, r, tx(kv[0]))
+			b.Put(m, 2, r, wr(kv[1]))
+			r++
+		}
+	}
+	r++
 	b.Put(m, 1, r, audit.SectionCell("Warnings of this comparison"))
 	r++
 	rows = nil
