@@ -219,3 +219,18 @@ func TestCompareWorkbookNumbers(t *testing.T) {
 	findRow(SheetMethod, "different sites")
 	findRow(SheetMethod, "What compare does not say")
 }
+
+// Golden terminal report and JSON of a compare of the drum surveys (regression
+// guards; the values are checked in the tests above).
+func TestCompareGolden(t *testing.T) {
+	c := compareOf(drumSurveys())
+	var term, js bytes.Buffer
+	if err := WriteCompareSummary(&term, c); err != nil {
+		t.Fatal(err)
+	}
+	if err := WriteCompareJSON(&js, c); err != nil {
+		t.Fatal(err)
+	}
+	golden(t, "compare.txt", term.Bytes())
+	golden(t, "compare.json", js.Bytes())
+}
