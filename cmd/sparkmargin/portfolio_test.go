@@ -220,3 +220,95 @@ func colOf(t *testing.T, header []string, name string) int {
 	t.Fatalf("no column %q in %v", name, header)
 	return -1
 }
+
+// writeDemoSite writes the demo survey with its Site items changed (item name
+// → value; nil removes the value, a missing item is added), as a surveyor
+// would for a repeat survey. Values invented for the demo.
+func writeDemoSite(t *testing.T, path string, items map[string]any) {
+	t.Helper()
+	sh := inventory.DemoSurvey().Clone()
+	site := sh.Sheet(inventory.SheetSite)
+	done := map[string]bool{}
+	for i, r := range site.Rows {
+		name, _ := r[0].(string)
+		for k, v := range items {
+			if name == k || strings.HasPrefix(name, k+" [") {
+				site.Rows[i] = []any{r[0], v}
+				done[k] = true
+			}
+		}
+	}
+	for k, v := range items {
+		if !done[k] {
+			site.Rows = append(site.Rows, []any{k, v})
+		}
+	}
+	var buf bytes.Buffer
+	if err := inventory.WriteSurvey(&buf, sh); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(path, buf.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// TestAssessRepeatSurveysFolder: a folder with three surveys of one line (two
+// dates and a draft without a date) and a survey of another site gives a
+// portfolio of two sites: the line ranked on its latest dated survey, the
+// earlier survey and the draft on the Trend sheet; the two sites, equal in
+// verdict and worst ratio (the same readings), share rank 1; labels differ.
+func TestAssessRepeatSurveysFolder(t *testing.T) {
+	dir := t.TempDir()
+	in := filepath.Join(dir, "surveys")
+	if err := os.Mkdir(in, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	writeDemoSite(t, filepath.Join(in, "c2-2025.xlsx"), map[string]any{"Survey date": "2025-02-10"})
+	writeDemoSite(t, filepath.Join(in, "c2-2026.xlsx"), map[string]any{"Survey date": "2026-02-10"})
+	writeDemoSite(t, filepath.Join(in, "c2-draft.xlsx"), map[string]any{"Survey date": nil})
+	writeDemoSite(t, filepath.Join(in, "bramley.xlsx"), map[string]any{"Site": "Bramley mill (invented)", "Site ID": "BRM-1"})
+	out := filepath.Join(dir, "out")
+	code, stdout, errOut := runCLI(t, "assess", in, "-o", out, "--json", out)
+	// The draft has no survey date, a required item: its audit is still written.
+	if code != exitOK && code != exitProblems {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	pf := filepath.Join(out, "portfolio.xlsx")
+	sites := sheetRows(t, pf, audit.PortfolioSites)
+	if len(sites) != 3 {
+		t.Fatalf("Sites sheet: %v, want a header and 2 sites", sites)
+	}
+	file, rank, label := colOf(t, sites[0], "Survey file"), colOf(t, sites[0], "Rank"), colOf(t, sites[0], "Site")
+	got := map[string]string{}
+	for _, r := range sites[1:] {
+		got[r[file]] = r[rank]
+	}
+	if got["c2-2026.xlsx"] != "1" || got["bramley.xlsx"] != "1" || sites[1][label] == sites[2][label] {
+		t.Errorf("sites ranked %v (labels %q, %q), want c2-2026 and bramley both at rank 1 with different labels", got, sites[1][label], sites[2][label])
+	}
+	f, err := excelize.OpenFile(pf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	if shown, _ := f.GetCellValue(audit.PortfolioSites, "A2"); shown != "=1" {
+		t.Errorf("shared rank shown %q, want =1", shown)
+	}
+	trend := sheetRows(t, pf, audit.PortfolioTrend)
+	if len(trend) != 5 {
+		t.Errorf("Trend sheet: %d rows, want a header and the 4 surveys", len(trend))
+	}
+	var roles []string
+	for _, r := range trend[1:] {
+		roles = append(roles, r[colOf(t, trend[0], "Survey file")]+": "+r[colOf(t, trend[0], "Role")])
+	}
+	joined := strings.Join(roles, "; ")
+	for _, want := range []string{"c2-2026.xlsx: latest: ranked", "c2-2025.xlsx: earlier: not ranked", "c2-draft.xlsx: draft (no date): not ranked", "bramley.xlsx: latest: ranked"} {
+		if !strings.Contains(joined, want) {
+			t.Errorf("Trend roles %q lack %q", joined, want)
+		}
+	}
+	if !strings.Contains(stdout, "Repeat surveys of") || !strings.Contains(stdout, "c2-2026.xlsx ranked") {
+		t.Errorf("the repeat surveys are not named:\n%s", stdout)
+	}
+}
