@@ -94,7 +94,7 @@ func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 }
 
 // Repeat surveys. A portfolio may hold several surveys of one site: the
-// surveys are grouped by site identity (SiteKey), and only the latest survey
+// surveys are grouped by site identity (Groups), and only the latest survey
 // of each site is ranked; the earlier ones are its trend. The latest is the
 // one with the latest survey date; a survey without a date (a draft) never
 // beats a dated one and is shown in the trend as a draft (give it its date to
@@ -104,28 +104,32 @@ func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 // name, is taken and the other shown as earlier. A screening choice of this tool.
 
 // RepeatSurveysNote says how the portfolio reads repeat surveys (Cautions sheet, JSON).
-const RepeatSurveysNote = "Repeat surveys: surveys are one site when they give the same Site ID, else the same site name and the same station lines (case and spaces aside; a screening choice of this tool). Only the latest dated survey of each site is ranked and counted; earlier surveys and drafts without a survey date are shown on the Trend sheet and never outrank a dated survey; of two surveys on one date, the one with more objects assessed, then the last by file name, is ranked. Sites or stations with the same verdict and worst ratio share a rank (=2)."
+const RepeatSurveysNote = "Repeat surveys: surveys are one site when they give the same Site ID, else when they give the same site name (case and spaces aside) and their stations share a line (the same name on lines with nothing in common is two lines of one works: two sites); give a Site ID to say it outright. A screening choice of this tool. Only the latest dated survey of each site is ranked and counted; earlier surveys and drafts without a survey date are shown on the Trend sheet and never outrank a dated survey; of two surveys on one date, the one with more objects assessed, then the last by file name, is ranked. Sites or stations with the same verdict and worst ratio share a rank (=2)."
 
 // normName is a name compared: lower case, runs of spaces as one.
 func normName(s string) string { return strings.ToLower(strings.Join(strings.Fields(s), " ")) }
 
-// SiteKey is the survey's site identity: its Site ID when given; else its site
-// name and its stations' lines; "" when it names neither (a survey of its own).
-func (s *PortfolioSurvey) SiteKey() string {
+// siteKey is the survey's site identity before its lines are looked at: its
+// Site ID when given, else its site name; "" when it names neither.
+func (s *PortfolioSurvey) siteKey() string {
 	if id := normName(s.SiteID); id != "" {
 		return "id:" + id
 	}
-	if normName(s.Site) == "" {
-		return ""
+	if n := normName(s.Site); n != "" {
+		return "site:" + n
 	}
-	lines := make([]string, 0, len(s.Lines))
+	return ""
+}
+
+// lineSet is the survey's station lines, compared as names.
+func (s *PortfolioSurvey) lineSet() map[string]bool {
+	m := map[string]bool{}
 	for _, l := range s.Lines {
-		if n := normName(l); !slices.Contains(lines, n) {
-			lines = append(lines, n)
+		if n := normName(l); n != "" {
+			m[n] = true
 		}
 	}
-	slices.Sort(lines)
-	return "site:" + normName(s.Site) + "|lines:" + strings.Join(lines, ",")
+	return m
 }
 
 // dateText is the survey date, or "draft (no date)".
@@ -161,20 +165,37 @@ type SiteGroup struct {
 	Earlier []*PortfolioSurvey // newest first, drafts last
 }
 
-// Groups groups the surveys by site (SiteKey), in the order of each site's
-// first survey; a survey naming no site is a site of its own.
+// Groups groups the surveys by site, in the order of each site's first
+// survey. Surveys giving a Site ID are one site when their IDs agree. Surveys
+// without one are one site when their site names agree and their stations'
+// lines have one in common (or either names none): the same name on lines
+// with nothing in common is taken as two lines of one works, two sites. A
+// survey naming neither a site nor a Site ID is a site of its own.
 func (p *Portfolio) Groups() []SiteGroup {
 	var out []SiteGroup
-	at := map[string]int{}
+	var lines []map[string]bool // per group, the union of its surveys' lines
 	for i := range p.Surveys {
 		s := &p.Surveys[i]
-		k := s.SiteKey()
-		if j, ok := at[k]; ok && k != "" {
-			out[j].Earlier = append(out[j].Earlier, s)
-			continue
+		k, ls := s.siteKey(), s.lineSet()
+		at := -1
+		for j := range out {
+			if k == "" || out[j].Key != k {
+				continue
+			}
+			if strings.HasPrefix(k, "id:") || len(ls) == 0 || len(lines[j]) == 0 || overlaps(ls, lines[j]) {
+				at = j
+				break
+			}
 		}
-		at[k] = len(out)
-		out = append(out, SiteGroup{Key: k, Earlier: []*PortfolioSurvey{s}})
+		if at < 0 {
+			out = append(out, SiteGroup{Key: k})
+			lines = append(lines, map[string]bool{})
+			at = len(out) - 1
+		}
+		out[at].Earlier = append(out[at].Earlier, s)
+		for l := range ls {
+			lines[at][l] = true
+		}
 	}
 	for i := range out {
 		all := out[i].Earlier
@@ -182,6 +203,15 @@ func (p *Portfolio) Groups() []SiteGroup {
 		out[i].Latest, out[i].Earlier = all[0], all[1:]
 	}
 	return out
+}
+
+func overlaps(a, b map[string]bool) bool {
+	for k := range a {
+		if b[k] {
+			return true
+		}
+	}
+	return false
 }
 
 // RankedSite is the latest survey of a site with its rank across the portfolio.

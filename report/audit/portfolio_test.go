@@ -219,3 +219,37 @@ func TestPortfolioRepeatSurveys(t *testing.T) {
 		t.Errorf("portfolio JSON: %.600s", j.String())
 	}
 }
+
+// TestPortfolioGroups: which surveys are one site (names and lines invented for the demo).
+func TestPortfolioGroups(t *testing.T) {
+	sv := func(file, site, id string, lines ...string) PortfolioSurvey {
+		return PortfolioSurvey{File: file, Site: site, SiteID: id, Lines: lines, Counts: map[assess.Verdict]int{}}
+	}
+	cases := []struct {
+		name    string
+		surveys []PortfolioSurvey
+		want    [][]string // files per group, latest first (all undated: by file name descending)
+	}{
+		{"a new line added: still one site", []PortfolioSurvey{sv("a", "Works", "", "C2"), sv("b", "Works", "", "C2", "Filling")}, [][]string{{"b", "a"}}},
+		{"lines with nothing in common: two sites", []PortfolioSurvey{sv("a", "Works", "", "C2"), sv("b", "works ", "", "C3")}, [][]string{{"a"}, {"b"}}},
+		{"no lines: one site", []PortfolioSurvey{sv("a", "Works", ""), sv("b", "Works", "", "C3")}, [][]string{{"b", "a"}}},
+		{"Site IDs agree, names differ", []PortfolioSurvey{sv("a", "Works", "W-1", "C2"), sv("b", "Works renamed", "w-1", "C9")}, [][]string{{"b", "a"}}},
+		{"Site IDs differ, same name", []PortfolioSurvey{sv("a", "Works", "W-1", "C2"), sv("b", "Works", "W-2", "C2")}, [][]string{{"a"}, {"b"}}},
+		{"a Site ID on one only: two sites", []PortfolioSurvey{sv("a", "Works", "W-1", "C2"), sv("b", "Works", "", "C2")}, [][]string{{"a"}, {"b"}}},
+		{"no site named: each its own", []PortfolioSurvey{sv("a", "", ""), sv("b", "", "")}, [][]string{{"a"}, {"b"}}},
+	}
+	for _, c := range cases {
+		p := Portfolio{Surveys: c.surveys}
+		var got [][]string
+		for _, g := range p.Groups() {
+			files := []string{g.Latest.File}
+			for _, e := range g.Earlier {
+				files = append(files, e.File)
+			}
+			got = append(got, files)
+		}
+		if !slices.EqualFunc(got, c.want, slices.Equal[[]string]) {
+			t.Errorf("%s: groups %v, want %v", c.name, got, c.want)
+		}
+	}
+}
