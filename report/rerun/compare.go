@@ -217,6 +217,7 @@ const (
 	CautionReversedDates  CautionKind = "dates reversed"
 	CautionSameDate       CautionKind = "same survey date"
 	CautionNoDate         CautionKind = "survey date missing"
+	CautionOneSiteID      CautionKind = "Site ID on one side"
 	CautionSameFile       CautionKind = "same file"
 	CautionResultsOnly    CautionKind = "results only"
 )
@@ -479,6 +480,8 @@ func cautions(old, new Identity) []Caution {
 		add(CautionDifferentSites, "The two surveys are of different sites: Site ID %q (old) and %q (new). The comparison is of two places, not a repeat survey.", old.SiteID, new.SiteID)
 	case (old.SiteID == "" || new.SiteID == "") && normSite(old.Site) != normSite(new.Site):
 		add(CautionDifferentSites, "The two surveys name different sites: %q (old) and %q (new). Check that they are the same site before reading the differences as changes over time.", old.SiteText(), new.SiteText())
+	case (old.SiteID == "") != (new.SiteID == ""):
+		add(CautionOneSiteID, "Only one survey gives a Site ID (old %q, new %q): compared as one site by name, but a portfolio of the two ranks them as two sites until both give the same Site ID.", old.SiteID, new.SiteID)
 	}
 	switch {
 	case old.SurveyDate.IsZero() || new.SurveyDate.IsZero():

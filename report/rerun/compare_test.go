@@ -118,6 +118,11 @@ func TestCompareSameSiteInOrder(t *testing.T) {
 	if c := compareOf(old, new); len(c.Cautions) != 0 {
 		t.Errorf("warnings %+v, want none", c.Cautions)
 	}
+	// A Site ID on one side only: compared by name, with a note for the portfolio.
+	old.Site.ID = "C2"
+	if c := compareOf(old, new); !c.HasCaution(CautionOneSiteID) || c.HasCaution(CautionDifferentSites) {
+		t.Errorf("a Site ID on one side: %+v", c.Cautions)
+	}
 	// Site IDs win over names: the same name with two IDs is two sites.
 	old.Site.ID, new.Site.ID = "C2", "C3"
 	if c := compareOf(old, new); !c.HasCaution(CautionDifferentSites) {
