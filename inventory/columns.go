@@ -88,6 +88,7 @@ func FixedLists() map[string][]string {
 // SiteItems are the rows of the Site sheet (an Item | Value sheet).
 var siteItems = []Column{
 	{Name: "Site", Dim: Text, Hint: "Site or plant name (required)"},
+	{Name: "Site ID", Dim: Text, Hint: "Optional: the same code on every survey of one site or line, so repeat surveys group together (else site name and line)"},
 	{Name: "Survey date", Dim: Date, Hint: "Date of the readings, e.g. 2026-03-14 (required)"},
 	{Name: "Surveyed by", Dim: Text, Hint: "Name or team (optional)"},
 	{Name: "Relative humidity", Unit: "%", Dim: Percent, Hint: "Ambient RH during the readings, 0-100 (required)"},

@@ -233,6 +233,9 @@ func demoSite() [][]any {
 	}
 	rows := [][]any{{"Item", "Value"}}
 	for _, it := range items {
+		if values[it.Name] == nil {
+			continue // an optional item the demo leaves out (Site ID)
+		}
 		rows = append(rows, []any{it.Header(), values[it.Name]})
 	}
 	return rows

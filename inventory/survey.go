@@ -43,7 +43,10 @@ func (q Quantity) OrNaN() float64 {
 
 // Site is the Site sheet: one survey's identity and site-wide settings.
 type Site struct {
-	Name       string
+	Name string
+	// ID is the optional Site ID item: a code the surveyor gives every survey
+	// of one site or line, so that repeat surveys are known as one site.
+	ID         string
 	SurveyDate time.Time // UTC midnight of the survey date
 	SurveyedBy string
 	// RelativeHumidity in percent (0-100): the one quantity kept in the unit people use,

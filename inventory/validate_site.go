@@ -60,6 +60,8 @@ func (v *validator) applySite(ss *siteSheet) {
 			switch name {
 			case "Site":
 				site.Name = r.Value
+			case "Site ID":
+				site.ID = r.Value
 			case "Surveyed by":
 				site.SurveyedBy = r.Value
 			}

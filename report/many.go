@@ -99,6 +99,7 @@ func (r *Run) AssessMany(surveys []string, outDir, jsonDir string, pf PortfolioF
 		}
 	}
 	fmt.Fprintln(out)
+	printRepeatSurveys(out, &p)
 	info := audit.RunInfo{ToolVersion: r.ToolVersion, CommandLine: strings.Join(r.CommandLine, " ")}
 	if err := r.WritePortfolio(p, info, pf); err != nil {
 		return err
@@ -188,4 +189,15 @@ func isPortfolioWorkbook(path string) bool {
 		return bytes.Contains(b, []byte(audit.PortfolioTitlePrefix))
 	}
 	return false
+}
+
+// printRepeatSurveys names each site assessed more than once: the survey
+// ranked (the latest dated) and the earlier ones and drafts kept as its trend.
+func printRepeatSurveys(out io.Writer, p *audit.Portfolio) {
+	for _, s := range p.Sites() {
+		if len(s.Earlier) == 0 {
+			continue
+		}
+		fmt.Fprintf(out, "Repeat surveys of %s: %s ranked; earlier: %s\n", s.Label, s.File, s.TrendText())
+	}
 }

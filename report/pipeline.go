@@ -305,7 +305,7 @@ func (r *Run) WritePortfolio(p audit.Portfolio, info audit.RunInfo, pf Portfolio
 		return unusable(fmt.Errorf("writing the portfolio: %w", err))
 	}
 	if pf.Workbook != "" {
-		fmt.Fprintf(r.out(), "Portfolio workbook: %s (%d site(s) ranked)\n", pf.Workbook, len(p.Surveys))
+		fmt.Fprintf(r.out(), "Portfolio workbook: %s (%d survey(s), %d site(s) ranked)\n", pf.Workbook, len(p.Surveys), len(p.Groups()))
 	}
 	if pf.JSON != "" {
 		fmt.Fprintf(r.out(), "Portfolio JSON:     %s\n", outfile.ShownPath(pf.JSON))

@@ -23,23 +23,27 @@ type compareOptions struct {
 	old, new string
 	output   string
 	json     string
+	args     []string
 }
 
 func newCompareCmd(ws *outfile.Workspace) *cobra.Command {
 	o := compareOptions{ws: ws}
 	c := &cobra.Command{
 		Use:   "compare OLD NEW [-o FILE.xlsx]",
-		Short: "Compare two surveys of the same floor (or two audit JSON files): added, removed, changed, ranks moved",
-		Long: "compare assesses two surveys (.xlsx) of the same floor, or reads two audit JSON files written by\n" +
-			"'sparkmargin assess --json', and lists the objects added and removed, the objects whose readings,\n" +
-			"resistance, material or verdict changed, and the stations whose rank moved. When either side is a\n" +
-			"JSON file both sides are compared on the audit's results (the JSON holds no readings).\n" +
+		Short: "Compare two surveys of one site (or two audit JSON files): settings, objects and stations changed",
+		Long: "compare assesses two surveys (.xlsx) of one site, OLD the earlier and NEW the later, or reads two audit\n" +
+			"JSON files written by 'sparkmargin assess --json'. It shows each side's file, SHA-256, site and survey\n" +
+			"date, warns when the sites differ or the dates are in reverse order, and lists the Site items and station\n" +
+			"settings changed (RH, zone, MIE, gas group...), the objects added, removed and changed, and every station\n" +
+			"whose rank moved or verdict changed. When either side is a JSON file both sides are compared on the\n" +
+			"audit's results (the JSON holds no readings).\n" +
 			"Exit status: 0 done, 1 nothing could be assessed, 2 usage or unreadable input.",
 		Example: "  sparkmargin compare last-year.xlsx this-year.xlsx -o compare.xlsx\n" +
 			"  sparkmargin compare old-audit.json new-audit.json --json compare.json",
 		Args: cobra.ExactArgs(2),
 		RunE: func(c *cobra.Command, args []string) error {
 			o.old, o.new = args[0], args[1]
+			o.args = commandLine(c, args)
 			return withOutputs(c, []outfile.NamedPath{{Role: "OLD", Path: o.old}, {Role: "NEW", Path: o.new}}, o.output, o.json, func(out io.Writer) error { return runCompare(out, o) })
 		},
 	}
@@ -66,6 +70,7 @@ func compareSide(ws *outfile.Workspace, path string, asJSON bool) (*rerun.Side, 
 		if err != nil {
 			return nil, nil, withCode(exitUsage, err)
 		}
+		side.Identity.Path = path
 		return side, nil, nil
 	}
 	s, err := loadSurvey(ws, path)
@@ -77,14 +82,22 @@ func compareSide(ws *outfile.Workspace, path string, asJSON bool) (*rerun.Side, 
 	}
 	a := assess.Assess(s, assess.Options{Limits: rerun.Limits(s)})
 	if !asJSON {
-		return rerun.SideFromAudit(label, a), s, nil
+		side := rerun.SideFromAudit(label, a)
+		side.Identity.Path = path
+		return side, s, nil
 	}
 	var buf bytes.Buffer
 	if err := audit.WriteJSON(&buf, a, audit.RunInfo{ToolVersion: version, SurveyFile: label}); err != nil {
 		return nil, nil, withCode(exitUsage, err)
 	}
 	side, err := rerun.SideFromJSON(label, buf.Bytes())
-	return side, s, err
+	if err != nil {
+		return nil, nil, err
+	}
+	// The survey's own identity (its checksum, date and Site ID), compared on results.
+	side.Identity = rerun.SurveyIdentity(path, s)
+	side.Identity.Results = true
+	return side, s, nil
 }
 
 func runCompare(out io.Writer, o compareOptions) error {
@@ -101,8 +114,13 @@ func runCompare(out io.Writer, o compareOptions) error {
 		return err
 	}
 	c := rerun.Compare(oldSide, newSide)
+	tmp, err := o.ws.Dir()
+	if err != nil {
+		return withCode(exitUsage, err)
+	}
+	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
 	if err := o.ws.WritePair(o.output, o.json,
-		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey) },
+		func(w io.Writer) error { return rerun.WriteCompareWorkbook(w, c, newSurvey, info) },
 		func(w io.Writer) error { return rerun.WriteCompareJSON(w, c) }); err != nil {
 		return err
 	}

@@ -239,8 +239,11 @@ func TestCompareCommand(t *testing.T) {
 			t.Fatalf("compare %v: exit %d: %s", pair, code, errOut)
 		}
 		data, _ := os.ReadFile(js)
-		top := wantKeys(t, "compare", data, "added", "removed", "changed", "stations")
-		for _, k := range []string{"added", "removed", "changed", "stations"} {
+		top := wantKeys(t, "compare", data, "old", "new", "warnings", "site_changes", "station_changes", "added", "removed", "changed", "stations", "cautions")
+		if !strings.Contains(string(top["warnings"]), `"same survey date"`) || !strings.Contains(string(top["old"]), `"survey_date": "2026-02-10"`) {
+			t.Errorf("compare %v: warnings %s, old %s", pair, top["warnings"], top["old"])
+		}
+		for _, k := range []string{"site_changes", "station_changes", "added", "removed", "changed", "stations"} {
 			if string(top[k]) != "[]" {
 				t.Errorf("compare %v of the same floor and readings: %s = %s, want []", pair, k, top[k])
 			}

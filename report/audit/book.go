@@ -40,6 +40,10 @@ func VerdictCell(v assess.Verdict) Cell { return Cell{c: verdictCell(v)} }
 // that is not finite is an empty cell.
 func QuantityCell(u book.Unit, si float64) Cell { return Cell{c: book.Quantity(u, si)} }
 
+// NumberCell is a number already in its display unit, with the number format
+// numFmt ("" for general); used where the unit is not one of book's (a Site limit item).
+func NumberCell(v float64, numFmt string) Cell { return Cell{c: book.Cell{V: v, NumFmt: numFmt}} }
+
 // RatioCell is a ratio E/MIE in the audit's format; nil is an empty cell.
 func RatioCell(r *float64) Cell { return Cell{c: ratioCell(book.FinitePtr(r))} }
 

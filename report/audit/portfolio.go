@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"slices"
+	"strings"
 	"time"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -19,6 +20,7 @@ import (
 const (
 	PortfolioSummary  = "Summary"
 	PortfolioSites    = "Sites"
+	PortfolioTrend    = "Trend"
 	PortfolioStations = "Stations"
 	PortfolioCautions = "Cautions"
 )
@@ -30,6 +32,8 @@ type PortfolioSurvey struct {
 	SHA256     string
 	Audit      string // the audit workbook written for it
 	Site       string
+	SiteID     string   // the optional Site ID item
+	Lines      []string // the stations' lines, distinct, sorted
 	SurveyDate time.Time
 	Counts     map[assess.Verdict]int // objects by verdict
 	Findings   int
@@ -63,7 +67,13 @@ type Portfolio struct {
 func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 	p := PortfolioSurvey{File: file, Audit: audit, Counts: map[assess.Verdict]int{}, Findings: len(a.Findings)}
 	if s := a.Survey; s != nil {
-		p.SHA256, p.Site, p.SurveyDate, p.Rejected = s.SHA256, s.Site.Name, s.Site.SurveyDate, len(s.Rejected)
+		p.SHA256, p.Site, p.SiteID, p.SurveyDate, p.Rejected = s.SHA256, s.Site.Name, s.Site.ID, s.Site.SurveyDate, len(s.Rejected)
+		for _, st := range s.Stations {
+			if l := strings.TrimSpace(st.Line); l != "" && !slices.Contains(p.Lines, l) {
+				p.Lines = append(p.Lines, l)
+			}
+		}
+		slices.Sort(p.Lines)
 	}
 	for v, n := range a.Counts {
 		p.Counts[v] = n
@@ -83,18 +93,161 @@ func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 	return p
 }
 
-// RankedSite is a survey with its rank across the portfolio.
+// Repeat surveys. A portfolio may hold several surveys of one site: the
+// surveys are grouped by site identity (Groups), and only the latest survey
+// of each site is ranked; the earlier ones are its trend. The latest is the
+// one with the latest survey date; a survey without a date (a draft) never
+// beats a dated one and is shown in the trend as a draft (give it its date to
+// rank it); when every survey of a site is a draft, the one with more objects
+// assessed, then the last by file name, is taken. Two surveys of one site on
+// the same date: the one with more objects assessed, then the last by file
+// name, is taken and the other shown as earlier. A screening choice of this tool.
+
+// RepeatSurveysNote says how the portfolio reads repeat surveys (Cautions sheet, JSON).
+const RepeatSurveysNote = "Repeat surveys: surveys are one site when they give the same Site ID, else when they give the same site name (case and spaces aside) and their stations share a line (the same name on lines with nothing in common is two lines of one works: two sites); give a Site ID to say it outright. A screening choice of this tool. Only the latest dated survey of each site is ranked and counted; earlier surveys and drafts without a survey date are shown on the Trend sheet and never outrank a dated survey; of two surveys on one date, the one with more objects assessed, then the last by file name, is ranked. Sites or stations with the same verdict and worst ratio share a rank (=2)."
+
+// normName is a name compared: lower case, runs of spaces as one.
+func normName(s string) string { return strings.ToLower(strings.Join(strings.Fields(s), " ")) }
+
+// siteKey is the survey's site identity before its lines are looked at: its
+// Site ID when given, else its site name; "" when it names neither.
+func (s *PortfolioSurvey) siteKey() string {
+	if id := normName(s.SiteID); id != "" {
+		return "id:" + id
+	}
+	if n := normName(s.Site); n != "" {
+		return "site:" + n
+	}
+	return ""
+}
+
+// lineSet is the survey's station lines, compared as names.
+func (s *PortfolioSurvey) lineSet() map[string]bool {
+	m := map[string]bool{}
+	for _, l := range s.Lines {
+		if n := normName(l); n != "" {
+			m[n] = true
+		}
+	}
+	return m
+}
+
+// dateText is the survey date, or "draft (no date)".
+func (s *PortfolioSurvey) dateText() string {
+	if s.SurveyDate.IsZero() {
+		return "draft (no date)"
+	}
+	return dateOf(s.SurveyDate)
+}
+
+// newerFirst orders the surveys of one site: dated before drafts, later dates
+// first, then more objects assessed first, then file name descending.
+func newerFirst(a, b *PortfolioSurvey) int {
+	switch az, bz := a.SurveyDate.IsZero(), b.SurveyDate.IsZero(); {
+	case az && !bz:
+		return 1
+	case !az && bz:
+		return -1
+	}
+	if c := b.SurveyDate.Compare(a.SurveyDate); c != 0 {
+		return c
+	}
+	if c := cmp.Compare(total(b.Counts), total(a.Counts)); c != 0 {
+		return c
+	}
+	return cmp.Compare(b.File, a.File)
+}
+
+// SiteGroup is one site of the portfolio: its latest survey and the earlier ones.
+type SiteGroup struct {
+	Key     string
+	Latest  *PortfolioSurvey
+	Earlier []*PortfolioSurvey // newest first, drafts last
+}
+
+// Groups groups the surveys by site, in the order of each site's first
+// survey. Surveys giving a Site ID are one site when their IDs agree. Surveys
+// without one are one site when their site names agree and their stations'
+// lines have one in common (or either names none): the same name on lines
+// with nothing in common is taken as two lines of one works, two sites. A
+// survey naming neither a site nor a Site ID is a site of its own.
+func (p *Portfolio) Groups() []SiteGroup {
+	var out []SiteGroup
+	var lines []map[string]bool // per group, the union of its surveys' lines
+	for i := range p.Surveys {
+		s := &p.Surveys[i]
+		k, ls := s.siteKey(), s.lineSet()
+		at := -1
+		for j := range out {
+			if k == "" || out[j].Key != k {
+				continue
+			}
+			if strings.HasPrefix(k, "id:") || len(ls) == 0 || len(lines[j]) == 0 || overlaps(ls, lines[j]) {
+				at = j
+				break
+			}
+		}
+		if at < 0 {
+			out = append(out, SiteGroup{Key: k})
+			lines = append(lines, map[string]bool{})
+			at = len(out) - 1
+		}
+		out[at].Earlier = append(out[at].Earlier, s)
+		for l := range ls {
+			lines[at][l] = true
+		}
+	}
+	for i := range out {
+		all := out[i].Earlier
+		slices.SortStableFunc(all, newerFirst)
+		out[i].Latest, out[i].Earlier = all[0], all[1:]
+	}
+	return out
+}
+
+func overlaps(a, b map[string]bool) bool {
+	for k := range a {
+		if b[k] {
+			return true
+		}
+	}
+	return false
+}
+
+// RankedSite is the latest survey of a site with its rank across the portfolio.
 type RankedSite struct {
-	Rank int
+	Rank   int
+	Shared bool // another site has the same rank (same verdict and worst ratio)
+	Label  string
 	*PortfolioSurvey
 	Verdict    assess.Verdict // the worst station's
 	WorstRatio *float64
+	Earlier    []EarlierSurvey // the site's earlier surveys, newest first
+}
+
+// EarlierSurvey is an earlier survey of a ranked site, for its trend.
+type EarlierSurvey struct {
+	*PortfolioSurvey
+	Verdict    assess.Verdict
+	WorstRatio *float64
+}
+
+// RankText is the rank as shown: "=2" when shared.
+func (s RankedSite) RankText() string { return rankText(s.Rank, s.Shared) }
+
+func rankText(r int, shared bool) string {
+	if shared {
+		return fmt.Sprintf("=%d", r)
+	}
+	return fmt.Sprint(r)
 }
 
 // RankedStation is a station with its rank across the portfolio.
 type RankedStation struct {
-	Rank int
-	Site *PortfolioSurvey
+	Rank   int
+	Shared bool
+	Site   *PortfolioSurvey
+	Label  string // the site's label, as on the Sites sheet
 	*PortfolioStation
 }
 
@@ -115,45 +268,106 @@ func ratioFirst(ra, rb *float64, ca, cb map[assess.Verdict]int) int {
 	return cmp.Compare(cb[assess.Marginal], ca[assess.Marginal])
 }
 
-// Sites ranks the surveys worst first: by worst station ratio, then the
-// numbers of incendive and marginal objects, then file name (the same order
-// as the stations of one audit).
+// tied reports whether two ranked entries share a rank: the same verdict and
+// the same worst ratio (or none on both).
+func tied(va, vb assess.Verdict, ra, rb *float64) bool {
+	if va != vb || (ra == nil) != (rb == nil) {
+		return false
+	}
+	return ra == nil || *ra == *rb
+}
+
+// worstOf is a survey's verdict (its worst station's) and worst ratio.
+func worstOf(s *PortfolioSurvey) (assess.Verdict, *float64) {
+	v, r := assess.NotAssessed, (*float64)(nil)
+	for j := range s.Stations {
+		st := &s.Stations[j]
+		if st.Objects > 0 && (v == assess.NotAssessed || st.Verdict.Severity() > v.Severity()) {
+			v = st.Verdict
+		}
+		if st.WorstRatio != nil && (r == nil || *st.WorstRatio > *r) {
+			r = st.WorstRatio
+		}
+	}
+	return v, r
+}
+
+// uniqueLabels makes each label unique: the site and its date, then the file
+// name where two are alike, then a number.
+func uniqueLabels(sites, dates, files []string) []string {
+	out := make([]string, len(sites))
+	for i := range sites {
+		out[i] = sites[i] + " (" + dates[i] + ")"
+	}
+	dups := func() map[string]int {
+		n := map[string]int{}
+		for _, l := range out {
+			n[l]++
+		}
+		return n
+	}
+	n := dups()
+	for i := range out {
+		if n[out[i]] > 1 {
+			out[i] += ", " + files[i]
+		}
+	}
+	n, seen := dups(), map[string]int{}
+	for i, l := range out {
+		if n[l] > 1 {
+			seen[l]++
+			out[i] = fmt.Sprintf("%s #%d", l, seen[l])
+		}
+	}
+	return out
+}
+
+// Sites ranks the latest survey of each site worst first: by worst station
+// ratio, then the numbers of incendive and marginal objects, then label (the
+// same order as the stations of one audit). Sites with the same verdict and
+// worst ratio share a rank ("=2"); labels are unique.
 func (p *Portfolio) Sites() []RankedSite {
-	out := make([]RankedSite, len(p.Surveys))
-	for i := range p.Surveys {
-		s := &p.Surveys[i]
-		rs := RankedSite{PortfolioSurvey: s, Verdict: assess.NotAssessed}
-		for j := range s.Stations {
-			st := &s.Stations[j]
-			if st.Objects > 0 && (rs.Verdict == assess.NotAssessed || st.Verdict.Severity() > rs.Verdict.Severity()) {
-				rs.Verdict = st.Verdict
-			}
-			if st.WorstRatio != nil && (rs.WorstRatio == nil || *st.WorstRatio > *rs.WorstRatio) {
-				rs.WorstRatio = st.WorstRatio
-			}
+	groups := p.Groups()
+	out := make([]RankedSite, len(groups))
+	for i, g := range groups {
+		rs := RankedSite{PortfolioSurvey: g.Latest}
+		rs.Verdict, rs.WorstRatio = worstOf(g.Latest)
+		for _, e := range g.Earlier {
+			v, r := worstOf(e)
+			rs.Earlier = append(rs.Earlier, EarlierSurvey{e, v, r})
 		}
 		out[i] = rs
+	}
+	var sites, dates, files []string
+	for _, s := range out {
+		sites, dates, files = append(sites, siteLabel(s.PortfolioSurvey)), append(dates, s.dateText()), append(files, s.File)
+	}
+	for i, l := range uniqueLabels(sites, dates, files) {
+		out[i].Label = l
 	}
 	slices.SortStableFunc(out, func(a, b RankedSite) int {
 		if c := ratioFirst(a.WorstRatio, b.WorstRatio, a.Counts, b.Counts); c != 0 {
 			return c
 		}
-		return cmp.Compare(a.File, b.File)
+		return cmp.Compare(a.Label, b.Label)
 	})
 	for i := range out {
 		out[i].Rank = i + 1
+		if i > 0 && tied(out[i-1].Verdict, out[i].Verdict, out[i-1].WorstRatio, out[i].WorstRatio) {
+			out[i].Rank, out[i].Shared, out[i-1].Shared = out[i-1].Rank, true, true
+		}
 	}
 	return out
 }
 
-// Stations ranks every station of every survey worst first, in the order of
-// one audit's stations (ties by station ID), then by survey file.
+// Stations ranks every station of the latest survey of each site worst first,
+// in the order of one audit's stations (ties by station ID), then by site
+// label; stations with the same verdict and worst ratio share a rank.
 func (p *Portfolio) Stations() []RankedStation {
 	var out []RankedStation
-	for i := range p.Surveys {
-		s := &p.Surveys[i]
+	for _, s := range p.Sites() {
 		for j := range s.Stations {
-			out = append(out, RankedStation{Site: s, PortfolioStation: &s.Stations[j]})
+			out = append(out, RankedStation{Site: s.PortfolioSurvey, Label: s.Label, PortfolioStation: &s.Stations[j]})
 		}
 	}
 	slices.SortStableFunc(out, func(a, b RankedStation) int {
@@ -163,18 +377,33 @@ func (p *Portfolio) Stations() []RankedStation {
 		if c := cmp.Compare(a.ID, b.ID); c != 0 {
 			return c
 		}
-		return cmp.Compare(a.Site.File, b.Site.File)
+		return cmp.Compare(a.Label, b.Label)
 	})
 	for i := range out {
 		out[i].Rank = i + 1
+		if i > 0 && tied(out[i-1].Verdict, out[i].Verdict, out[i-1].WorstRatio, out[i].WorstRatio) {
+			out[i].Rank, out[i].Shared, out[i-1].Shared = out[i-1].Rank, true, true
+		}
 	}
 	return out
 }
 
+// TrendText is a site's earlier surveys in a line: "2025-02-10: incendive, worst 3.1 (2 incendive, 1 marginal); ...".
+func (s RankedSite) TrendText() string {
+	var parts []string
+	for _, e := range s.Earlier {
+		parts = append(parts, fmt.Sprintf("%s: %s, worst %s (%d incendive, %d marginal)", e.dateText(), e.Verdict, book.FormatRatio(e.WorstRatio),
+			e.Counts[assess.Incendive], e.Counts[assess.Marginal]))
+	}
+	return strings.Join(parts, "; ")
+}
+
+// totals counts the objects of the latest survey of each site (an earlier
+// survey of a site would count its objects twice).
 func (p *Portfolio) totals() map[assess.Verdict]int {
 	t := map[assess.Verdict]int{}
-	for _, s := range p.Surveys {
-		for v, n := range s.Counts {
+	for _, g := range p.Groups() {
+		for v, n := range g.Latest.Counts {
 			t[v] += n
 		}
 	}
@@ -204,7 +433,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	if err := f.SetSheetName("Sheet1", PortfolioSummary); err != nil {
 		return fmt.Errorf("write portfolio: %w", err)
 	}
-	for _, s := range []string{PortfolioSites, PortfolioStations, PortfolioCautions} {
+	for _, s := range []string{PortfolioSites, PortfolioTrend, PortfolioStations, PortfolioCautions} {
 		if _, err := f.NewSheet(s); err != nil {
 			return fmt.Errorf("write portfolio: sheet %s: %w", s, err)
 		}
@@ -212,10 +441,10 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	sites, stations := p.Sites(), p.Stations()
 	count := func(c map[assess.Verdict]int, v assess.Verdict) book.Cell { return book.Integer(c[v]) }
 	siteCols := []book.Column[RankedSite]{
-		{Header: "Rank", Width: 6, Value: func(s RankedSite) book.Cell { return book.Integer(s.Rank) }},
-		{Header: "Site", Width: 30, Value: func(s RankedSite) book.Cell { return book.WrapText(siteLabel(s.PortfolioSurvey)) }},
+		{Header: "Rank", Width: 6, Value: func(s RankedSite) book.Cell { return rankCell(s.Rank, s.Shared) }},
+		{Header: "Site", Width: 30, Value: func(s RankedSite) book.Cell { return book.WrapText(s.Label) }},
 		{Header: "Survey file", Width: 22, Value: func(s RankedSite) book.Cell { return book.WrapText(s.File) }},
-		{Header: "Survey date", Width: 11, Value: func(s RankedSite) book.Cell { return book.OptText(dateOf(s.SurveyDate)) }},
+		{Header: "Survey date", Width: 11, Value: func(s RankedSite) book.Cell { return book.Text(s.dateText()) }},
 		{Header: "Verdict", Width: 14, Value: func(s RankedSite) book.Cell { return verdictCell(s.Verdict) }},
 		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell { return ratioCell(s.WorstRatio) }},
 		{Header: "Stations [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(len(s.Stations)) }},
@@ -227,10 +456,39 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		{Header: "Findings [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(s.Findings) }},
 		{Header: "Rows rejected [count]", Width: 10, Value: func(s RankedSite) book.Cell { return book.Integer(s.Rejected) }},
 		{Header: "Audit workbook", Width: 30, Value: func(s RankedSite) book.Cell { return book.WrapText(s.Audit) }},
+		{Header: "Site ID", Width: 12, Value: func(s RankedSite) book.Cell { return book.OptText(s.SiteID) }},
+		{Header: "Lines", Width: 14, Value: func(s RankedSite) book.Cell { return book.OptText(strings.Join(s.Lines, ", ")) }},
+		{Header: "Earlier surveys [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(len(s.Earlier)) }},
+		{Header: "Previous survey date", Width: 11, Value: func(s RankedSite) book.Cell {
+			return prev(s, func(e EarlierSurvey) book.Cell { return book.Text(e.dateText()) })
+		}},
+		{Header: "Previous verdict", Width: 14, Value: func(s RankedSite) book.Cell {
+			return prev(s, func(e EarlierSurvey) book.Cell { return verdictCell(e.Verdict) })
+		}},
+		{Header: book.UnitRatio.Header("Previous worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell {
+			return prev(s, func(e EarlierSurvey) book.Cell { return ratioCell(e.WorstRatio) })
+		}},
+		{Header: "Trend (earlier surveys, newest first)", Width: 60, Value: func(s RankedSite) book.Cell { return book.WrapText(s.TrendText()) }},
+	}
+	trend := trendRows(sites)
+	trendCols := []book.Column[trendRow]{
+		{Header: "Site", Width: 30, Value: func(t trendRow) book.Cell { return book.WrapText(t.label) }},
+		{Header: "Site rank", Width: 7, Value: func(t trendRow) book.Cell { return rankCell(t.rank, t.shared) }},
+		{Header: "Survey date", Width: 14, Value: func(t trendRow) book.Cell { return book.Text(t.s.dateText()) }},
+		{Header: "Survey file", Width: 22, Value: func(t trendRow) book.Cell { return book.WrapText(t.s.File) }},
+		{Header: "Role", Width: 22, Value: func(t trendRow) book.Cell { return book.WrapText(t.role) }},
+		{Header: "Verdict", Width: 14, Value: func(t trendRow) book.Cell { return verdictCell(t.v) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(t trendRow) book.Cell { return ratioCell(t.r) }},
+		{Header: "Incendive [count]", Width: 10, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.Incendive) }},
+		{Header: "Marginal [count]", Width: 10, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.Marginal) }},
+		{Header: "Non-incendive [count]", Width: 11, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.NonIncendive) }},
+		{Header: "Not assessed [count]", Width: 10, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.NotAssessed) }},
+		{Header: "Findings [count]", Width: 9, Value: func(t trendRow) book.Cell { return book.Integer(t.s.Findings) }},
+		{Header: "Audit workbook", Width: 30, Value: func(t trendRow) book.Cell { return book.WrapText(t.s.Audit) }},
 	}
 	stationCols := []book.Column[RankedStation]{
-		{Header: "Rank", Width: 6, Value: func(s RankedStation) book.Cell { return book.Integer(s.Rank) }},
-		{Header: "Site", Width: 30, Value: func(s RankedStation) book.Cell { return book.WrapText(siteLabel(s.Site)) }},
+		{Header: "Rank", Width: 6, Value: func(s RankedStation) book.Cell { return rankCell(s.Rank, s.Shared) }},
+		{Header: "Site", Width: 30, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Label) }},
 		{Header: "Survey file", Width: 22, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Site.File) }},
 		{Header: "Station", Width: 10, Value: func(s RankedStation) book.Cell { return book.Text(s.ID) }},
 		{Header: "Name", Width: 24, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Name) }},
@@ -244,6 +502,9 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 	}
 	if err := tableSheetNormal(wb, PortfolioSites, siteCols, sites); err != nil {
 		return fmt.Errorf("write portfolio: sheet %s: %w", PortfolioSites, err)
+	}
+	if err := tableSheetNormal(wb, PortfolioTrend, trendCols, trend); err != nil {
+		return fmt.Errorf("write portfolio: sheet %s: %w", PortfolioTrend, err)
 	}
 	if err := tableSheetStream(wb, PortfolioStations, stationCols, len(stations), func(i int) RankedStation { return stations[i] }, 1, "", 0); err != nil {
 		return fmt.Errorf("write portfolio: sheet %s: %w", PortfolioStations, err)
@@ -269,6 +530,49 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		return fmt.Errorf("write portfolio: %w", err)
 	}
 	return nil
+}
+
+// rankCell is a rank as a number; a shared rank shows as "=2" (a number format, the cell stays a number).
+func rankCell(r int, shared bool) book.Cell {
+	c := book.Integer(r)
+	if shared {
+		c.NumFmt = `"="0`
+	}
+	return c
+}
+
+// prev is a cell of a site's previous survey, empty when it has none.
+func prev(s RankedSite, f func(EarlierSurvey) book.Cell) book.Cell {
+	if len(s.Earlier) == 0 {
+		return book.Cell{}
+	}
+	return f(s.Earlier[0])
+}
+
+// trendRow is one survey on the Trend sheet.
+type trendRow struct {
+	label, role string
+	rank        int
+	shared      bool
+	s           *PortfolioSurvey
+	v           assess.Verdict
+	r           *float64
+}
+
+// trendRows lists every survey by site, in rank order, the latest first.
+func trendRows(sites []RankedSite) []trendRow {
+	var out []trendRow
+	for _, s := range sites {
+		out = append(out, trendRow{s.Label, "latest: ranked", s.Rank, s.Shared, s.PortfolioSurvey, s.Verdict, s.WorstRatio})
+		for _, e := range s.Earlier {
+			role := "earlier: not ranked"
+			if e.SurveyDate.IsZero() {
+				role = "draft (no date): not ranked"
+			}
+			out = append(out, trendRow{s.Label, role, s.Rank, s.Shared, e.PortfolioSurvey, e.Verdict, e.WorstRatio})
+		}
+	}
+	return out
 }
 
 func siteLabel(s *PortfolioSurvey) string {
@@ -309,8 +613,7 @@ func portfolioDate(p Portfolio) time.Time {
 }
 
 func portfolioCautions(wb *workbook) error {
-	rows := make([]string, len(templates.Cautions()))
-	copy(rows, templates.Cautions())
+	rows := append(append([]string(nil), templates.Cautions()...), RepeatSurveysNote)
 	type crow struct {
 		n int
 		s string
@@ -354,7 +657,10 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 	if err := kv("Surveys not assessed", book.Integer(len(p.Failed))); err != nil {
 		return err
 	}
-	if err := kv("Objects [count]", book.Integer(total(tot))); err != nil {
+	if err := kv("Sites ranked (latest survey of each)", book.Integer(len(sites))); err != nil {
+		return err
+	}
+	if err := kv("Objects [count] (latest surveys)", book.Integer(total(tot))); err != nil {
 		return err
 	}
 	for _, v := range verdictOrder() {
@@ -399,7 +705,7 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 			Format:    excelize.GraphicOptions{OffsetX: 4, OffsetY: 4},
 			Dimension: excelize.ChartDimension{Width: 900, Height: uint(chartRows(len(sites))*20 - 8)},
 			Legend:    excelize.ChartLegend{Position: "none"},
-			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "Worst ratio E/MIE per site (log scale)", Font: &excelize.Font{Size: 11, Bold: true}}}},
+			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "Worst ratio E/MIE per site, latest survey (log scale)", Font: &excelize.Font{Size: 11, Bold: true}}}},
 			XAxis:     excelize.ChartAxis{ReverseOrder: true, Font: excelize.Font{Size: 9, Color: "000000"}},
 			YAxis: excelize.ChartAxis{LogBase: 10, Minimum: &lo, Maximum: &hi, MajorGridLines: true, Font: excelize.Font{Size: 9, Color: "000000"},
 				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: "effective energy / MIE [–]", Font: &excelize.Font{Size: 9, Color: "000000"}}}}},
@@ -416,9 +722,23 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 // not, the sites ranked and every station ranked across the portfolio, SI
 // values, null where there is no ratio, and the cautions. Key order is fixed.
 func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
+	type jearlier struct {
+		File       string            `json:"file"`
+		SHA256     string            `json:"sha256"`
+		SurveyDate *string           `json:"survey_date"` // null: a draft
+		Audit      string            `json:"audit"`
+		Verdict    string            `json:"verdict"`
+		WorstRatio *float64          `json:"worst_ratio"`
+		Objects    jsonVerdictCounts `json:"objects"`
+		Findings   int               `json:"findings"`
+	}
 	type jsite struct {
 		Rank       int               `json:"rank"`
+		RankShared bool              `json:"rank_shared"`
+		Label      string            `json:"label"`
 		Site       string            `json:"site"`
+		SiteID     string            `json:"site_id"`
+		Lines      []string          `json:"lines"`
 		File       string            `json:"file"`
 		SHA256     string            `json:"sha256"`
 		SurveyDate string            `json:"survey_date"`
@@ -429,9 +749,12 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 		Objects    jsonVerdictCounts `json:"objects"`
 		Findings   int               `json:"findings"`
 		Rejected   int               `json:"rows_rejected"`
+		Earlier    []jearlier        `json:"earlier"` // newest first
 	}
 	type jstation struct {
 		Rank       int               `json:"rank"`
+		RankShared bool              `json:"rank_shared"`
+		Label      string            `json:"site_label"`
 		Site       string            `json:"site"`
 		File       string            `json:"file"`
 		Station    string            `json:"station"`
@@ -454,13 +777,26 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 		Stations []jstation        `json:"stations"`
 		Failed   []jfail           `json:"not_assessed"`
 		Cautions []string          `json:"cautions"`
-	}{Tool: jsonTool{info.tool(), info.ToolVersion}, Workbook: workbookRecord(info), Objects: verdictCounts(p.totals()), Sites: []jsite{}, Stations: []jstation{}, Failed: []jfail{}, Cautions: templates.Cautions()}
+	}{Tool: jsonTool{info.tool(), info.ToolVersion}, Workbook: workbookRecord(info), Objects: verdictCounts(p.totals()), Sites: []jsite{}, Stations: []jstation{}, Failed: []jfail{}, Cautions: append(append([]string(nil), templates.Cautions()...), RepeatSurveysNote)}
 	for _, s := range p.Sites() {
-		doc.Sites = append(doc.Sites, jsite{s.Rank, s.Site, s.File, s.SHA256, dateOf(s.SurveyDate), s.Audit, s.Verdict.String(),
-			s.WorstRatio, len(s.Stations), verdictCounts(s.Counts), s.Findings, s.Rejected})
+		lines := s.Lines
+		if lines == nil {
+			lines = []string{}
+		}
+		js := jsite{s.Rank, s.Shared, s.Label, s.Site, s.SiteID, lines, s.File, s.SHA256, dateOf(s.SurveyDate), s.Audit, s.Verdict.String(),
+			s.WorstRatio, len(s.Stations), verdictCounts(s.Counts), s.Findings, s.Rejected, []jearlier{}}
+		for _, e := range s.Earlier {
+			var d *string
+			if !e.SurveyDate.IsZero() {
+				t := dateOf(e.SurveyDate)
+				d = &t
+			}
+			js.Earlier = append(js.Earlier, jearlier{e.File, e.SHA256, d, e.Audit, e.Verdict.String(), e.WorstRatio, verdictCounts(e.Counts), e.Findings})
+		}
+		doc.Sites = append(doc.Sites, js)
 	}
 	for _, s := range p.Stations() {
-		doc.Stations = append(doc.Stations, jstation{s.Rank, s.Site.Site, s.Site.File, s.ID, s.Name, s.Line, s.SiteRank,
+		doc.Stations = append(doc.Stations, jstation{s.Rank, s.Shared, s.Label, s.Site.Site, s.Site.File, s.ID, s.Name, s.Line, s.SiteRank,
 			s.Verdict.String(), s.WorstRatio, verdictCounts(s.Counts)})
 	}
 	for _, fl := range p.Failed {

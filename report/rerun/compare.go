@@ -1,19 +1,155 @@
 package rerun
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
 	"encoding/json"
 	"fmt"
+	"math"
 	"slices"
+	"strings"
+	"time"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 )
 
-// Side is one survey (or audit) as compare sees it.
+// Compare takes two surveys of one site, OLD (the earlier) and NEW (the
+// later), and says what differs: the identity of each side (file, checksum,
+// site, survey date), cautions where the two may not be comparable (two
+// different sites, the dates in reverse order, a date missing, the same file
+// twice, a side that is an audit JSON without readings), the Site items and
+// station settings that changed (RH, air temperature, margin, limit overrides,
+// atmosphere, zone, MIE, gas group, line), the objects added, removed and
+// changed, and every station whose rank moved or whose verdict changed.
+//
+// Values keep their number: each is held in SI and in the display unit the
+// survey and the audit use (kV/m, mJ, pF...), so the workbook stores numbers
+// as numbers in those units. Two sides are the same site when both give a
+// Site ID and the IDs agree, else when the site names agree (case and spaces
+// aside): a screening choice of this tool.
+
+// Identity is what is known of the survey behind one side.
+type Identity struct {
+	Path       string    // the file as given
+	SHA256     string    // of the file's bytes
+	Site       string    // the Site item, "" when not named
+	SiteID     string    // the optional Site ID item
+	SurveyDate time.Time // zero: not given
+	// SurveySHA256 is the checksum of the survey an audit JSON was made from
+	// (the JSON's own "survey"); "" for a survey side (SHA256 is the survey's).
+	SurveySHA256 string
+	// Results is true for an audit JSON: its objects carry results, not readings.
+	Results bool
+}
+
+// SiteText is the site name, or "site not named".
+func (id Identity) SiteText() string {
+	if strings.TrimSpace(id.Site) == "" {
+		return "site not named"
+	}
+	return id.Site
+}
+
+// DateText is the survey date as 2006-01-02, or "not given (draft)".
+func (id Identity) DateText() string {
+	if id.SurveyDate.IsZero() {
+		return "not given (draft)"
+	}
+	return id.SurveyDate.UTC().Format("2006-01-02")
+}
+
+// SurveyIdentity is the identity of a survey read from path.
+func SurveyIdentity(path string, s *inventory.Survey) Identity {
+	id := Identity{Path: path}
+	if s != nil {
+		id.SHA256, id.Site, id.SiteID, id.SurveyDate = s.SHA256, s.Site.Name, s.Site.ID, s.Site.SurveyDate
+	}
+	return id
+}
+
+// Value is one compared value: text, or a number held in SI and shown in its
+// display unit.
+type Value struct {
+	Text   string   // as shown, with its unit; "" when not given
+	SI     *float64 // the number in SI; nil for text or not given
+	Shown  float64  // the number in Unit (when SI is set)
+	Unit   string   // display unit label, "" when dimensionless
+	NumFmt string   // the workbook's number format for Shown
+}
+
+// sig4 is v to 4 significant digits without trailing zeros: "30", "1.5e-05".
+func sig4(v float64) string {
+	s := book.FormatSig(v, 4)
+	mant, exp, hasExp := strings.Cut(s, "e")
+	if strings.Contains(mant, ".") {
+		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
+	}
+	if hasExp {
+		return mant + "e" + exp
+	}
+	return mant
+}
+
+func textValue(s string) Value { return Value{Text: s} }
+
+// numValue is an SI value shown in unit u; NaN or Inf is "not given".
+func numValue(u book.Unit, si float64) Value {
+	v, ok := u.Display(si)
+	if !ok {
+		return Value{}
+	}
+	x := si
+	t := sig4(v)
+	if u.Label() != "" {
+		t += " " + u.Label()
+	}
+	return Value{Text: t, SI: &x, Shown: v, Unit: u.Label(), NumFmt: u.NumFmt()}
+}
+
+func quantityValue(u book.Unit, q inventory.Quantity) Value {
+	if !q.Known {
+		return Value{}
+	}
+	return numValue(u, q.Value)
+}
+
+// Equal reports whether two values are the same: numbers within a relative
+// 1e-12 (a JSON round trip), else the same text.
+func (v Value) Equal(w Value) bool {
+	if v.SI != nil && w.SI != nil {
+		a, b := *v.SI, *w.SI
+		return a == b || math.Abs(a-b) <= 1e-12*math.Max(math.Abs(a), math.Abs(b))
+	}
+	if (v.SI == nil) != (w.SI == nil) {
+		return false
+	}
+	return v.Text == w.Text
+}
+
+// Field is one named value of an object, a station or the site.
+type Field struct {
+	Name  string
+	Value Value
+}
+
+// Side is one survey (or audit JSON) as compare sees it.
 type Side struct {
 	Label    string // file name
-	Objects  []SideObject
-	Stations []SideStation // ranked, worst first
+	Identity Identity
+	Site     []Field // Site items and limit overrides
+	// StationFields are each station's settings (name, line, RH, atmosphere,
+	// zone, MIE, gas group), in station order.
+	StationFields []StationFields
+	Objects       []SideObject
+	Stations      []SideStation // ranked, worst first
+}
+
+// StationFields is one station's settings.
+type StationFields struct {
+	ID     string
+	Fields []Field
 }
 
 // SideObject is one object with the fields compare looks at.
@@ -23,10 +159,6 @@ type SideObject struct {
 	Ratio       *float64
 	Fields      []Field // in column order
 }
-
-// Field is one named value of an object, as text (SI value with its unit), so
-// any two can be compared and shown.
-type Field struct{ Name, Value string }
 
 // SideStation is one station's rank and verdict.
 type SideStation struct {
@@ -40,35 +172,88 @@ type SideStation struct {
 type Changed struct {
 	ID, Station                 string
 	Fields                      []string // names of the fields that differ, column order
-	Before, After               []string // their values, aligned with Fields
+	Before, After               []Value  // their values, aligned with Fields
 	VerdictBefore, VerdictAfter string
 	RatioBefore, RatioAfter     *float64
 }
 
-// RankMove is one station whose rank moved (or that is only on one side: rank 0).
-type RankMove struct {
-	ID, Name                    string
-	RankBefore, RankAfter       int // 0: not on that side
-	VerdictBefore, VerdictAfter string
+// FieldChange is one Site item or station setting that differs.
+type FieldChange struct {
+	Station       string // "" for a Site item
+	Field         string
+	Before, After Value
 }
 
-// Comparison is the difference between two surveys of the same floor.
+// RankMove is one station whose rank moved or whose verdict changed (or that
+// is only on one side: rank 0).
+type RankMove struct {
+	ID, Name                          string
+	RankBefore, RankAfter             int // 0: not on that side
+	VerdictBefore, VerdictAfter       string
+	WorstRatioBefore, WorstRatioAfter *float64
+}
+
+// Move says what happened to the station, "up 2 (worse)", "verdict changed, same rank".
+func (m RankMove) Move() string {
+	switch {
+	case m.RankBefore == 0:
+		return "new station"
+	case m.RankAfter == 0:
+		return "station removed"
+	case m.RankAfter < m.RankBefore:
+		return fmt.Sprintf("up %d (worse)", m.RankBefore-m.RankAfter)
+	case m.RankAfter > m.RankBefore:
+		return fmt.Sprintf("down %d (better)", m.RankAfter-m.RankBefore)
+	}
+	return "same rank, verdict changed"
+}
+
+// CautionKind names a reason the two sides may not compare as a repeat survey.
+type CautionKind string
+
+// The cautions of a comparison.
+const (
+	CautionDifferentSites CautionKind = "different sites"
+	CautionReversedDates  CautionKind = "dates reversed"
+	CautionSameDate       CautionKind = "same survey date"
+	CautionNoDate         CautionKind = "survey date missing"
+	CautionOneSiteID      CautionKind = "Site ID on one side"
+	CautionSameFile       CautionKind = "same file"
+	CautionResultsOnly    CautionKind = "results only"
+)
+
+// Caution is one warning about the comparison, with its kind for programs.
+type Caution struct {
+	Kind CautionKind
+	Text string
+}
+
+// Comparison is the difference between two surveys of the same site.
 type Comparison struct {
 	Old, New       *Side
-	Added, Removed []string // object IDs, in the order of their side
+	Cautions       []Caution
+	SiteChanges    []FieldChange // Site items, in the order of the new side then removed ones
+	StationChanges []FieldChange // station settings of stations on both sides
+	Added, Removed []string      // object IDs, in the order of their side
 	Changed        []Changed
 	Stations       []RankMove // new side's ranking order, then removed stations
 }
 
-// SideFromAudit takes an audit of a survey: every reading and setting of the
-// Objects sheet is a field, then the verdict and the ratio.
+// SideFromAudit takes an audit of a survey: the Site items, each station's
+// settings, every reading and setting of the Objects sheet, then the verdict
+// and the ratio.
 func SideFromAudit(label string, a *assess.Audit) *Side {
 	s := &Side{Label: label}
+	if a.Survey != nil {
+		s.Identity = SurveyIdentity(a.Survey.Path, a.Survey)
+		s.Site = siteFields(a.Survey)
+		s.StationFields = stationFields(a.Survey)
+	}
 	for i := range a.Objects {
 		r := &a.Objects[i]
 		o := SideObject{ID: r.Object.ID, Station: r.Object.Station, Verdict: r.Verdict.String(), Ratio: r.Ratio}
 		o.Fields = objectFields(&r.Object)
-		o.Fields = append(o.Fields, Field{"Verdict", o.Verdict}, Field{"Ratio", ratioText(r.Ratio)})
+		o.Fields = append(o.Fields, Field{"Verdict", textValue(o.Verdict)}, Field{"Ratio E/MIE", ratioValue(r.Ratio)})
 		s.Objects = append(s.Objects, o)
 	}
 	for _, st := range a.Stations {
@@ -77,44 +262,110 @@ func SideFromAudit(label string, a *assess.Audit) *Side {
 	return s
 }
 
-func objectFields(o *inventory.Object) []Field {
-	q := func(name string, v inventory.Quantity, unit string) Field {
-		if !v.Known {
-			return Field{name, ""}
-		}
-		return Field{name, fmtSig(v.Value) + " " + unit}
+// siteFields are the Site items compared, then each limit override in the
+// practical unit of its item.
+func siteFields(s *inventory.Survey) []Field {
+	st := s.Site
+	out := []Field{
+		{"Site ID", textValue(st.ID)},
+		{"Surveyed by", textValue(st.SurveyedBy)},
+		{"Relative humidity", quantityValue(book.UnitPercentRH, st.RelativeHumidity)},
+		{"Air temperature", quantityValue(book.UnitCelsius, st.AirTemperature)},
+		{"Required margin", quantityValue(book.UnitDimless, st.RequiredMargin)},
 	}
+	items := inventory.LimitItems()
+	for _, l := range st.Limits {
+		v := Value{Text: fmtSig(l.Value)}
+		si := l.Value
+		v.SI = &si
+		v.Shown = si
+		for _, k := range items {
+			if k.Name != l.Name {
+				continue
+			}
+			if x, ok := k.FromSI(l.Value); ok {
+				v.Shown, v.Unit = x, k.Unit
+				v.Text = strings.TrimSpace(sig4(x) + " " + k.Unit)
+			}
+		}
+		out = append(out, Field{"Limit: " + l.Name, v})
+	}
+	return out
+}
+
+// stationFields are each station's settings; zone, MIE and group are its
+// atmosphere's.
+func stationFields(s *inventory.Survey) []StationFields {
+	atm := map[string]inventory.Atmosphere{}
+	for _, a := range s.Atmospheres {
+		atm[a.ID] = a
+	}
+	var out []StationFields
+	for _, st := range s.Stations {
+		rh := quantityValue(book.UnitPercentRH, st.RelativeHumidity)
+		if rh.SI == nil {
+			rh = textValue("the site's")
+		}
+		f := []Field{{"Name", textValue(st.Name)}, {"Line", textValue(st.Line)}, {"Relative humidity", rh}, {"Atmosphere", textValue(st.Atmosphere)}}
+		a, ok := atm[st.Atmosphere]
+		if !ok {
+			a = inventory.Atmosphere{}
+		}
+		f = append(f, Field{"Substance", textValue(a.Substance)}, Field{"Kind of atmosphere", textValue(a.Kind)}, Field{"Zone", textValue(a.Zone)},
+			Field{"MIE", quantityValue(book.UnitMJ, a.MIE)}, Field{"Gas or dust group", textValue(a.Group)})
+		out = append(out, StationFields{ID: st.ID, Fields: f})
+	}
+	return out
+}
+
+func objectFields(o *inventory.Object) []Field {
+	q := func(name string, u book.Unit, v inventory.Quantity) Field { return Field{name, quantityValue(u, v)} }
+	t := func(name, v string) Field { return Field{name, textValue(v)} }
 	return []Field{
-		{"Station", o.Station}, {"Kind", o.Kind}, {"Material", o.Material},
-		q("Length", o.Length, "m"), q("Width", o.Width, "m"), q("Diameter", o.Diameter, "m"), q("Thickness", o.Thickness, "m"),
-		{"Backing", o.Backing}, q("Distance to earth", o.DistanceToEarth, "m"),
-		q("Field", o.Field, "V/m"), q("Field distance", o.FieldDistance, "m"), q("Surface potential", o.SurfacePotential, "V"),
-		q("Speed", o.Speed, "m/s"), q("Mass flow", o.MassFlow, "kg/s"), q("Charge-to-mass", o.ChargeToMass, "C/kg"),
-		q("Charging current", o.ChargingCurrent, "A"), q("Charging time", o.ChargingTime, "s"), q("Particle size", o.ParticleSize, "m"),
-		q("Resistance to earth", o.Resistance, "Ω"), q("Capacitance", o.Capacitance, "F"),
-		q("Conductivity", o.Conductivity, "S/m"), q("Relative permittivity", o.Permittivity, ""),
-		{"Bag type", o.BagType}, {"Filling", o.Filling},
-		q("Layer breakdown", o.LayerBreakdown, "V"), {"Process", o.Process},
-		{"Vessel material", o.VesselMaterial}, {"Vessel class", o.VesselClass}, q("Vessel diameter", o.VesselDiameter, "m"),
-		{"Filter", o.Filter}, q("Residence time", o.Residence, "s"), {"Second phase", o.SecondPhase}, q("Inlet velocity", o.InletVelocity, "m/s"),
+		t("Station", o.Station), t("Kind", o.Kind), t("Material", o.Material),
+		q("Length", book.UnitMetre, o.Length), q("Width", book.UnitMetre, o.Width), q("Diameter", book.UnitMetre, o.Diameter), q("Thickness", book.UnitMillimetre, o.Thickness),
+		t("Backing", o.Backing), q("Distance to earth", book.UnitMetre, o.DistanceToEarth),
+		q("Field", book.UnitKVPerM, o.Field), q("Field distance", book.UnitMetre, o.FieldDistance), q("Surface potential", book.UnitKV, o.SurfacePotential),
+		q("Speed", book.UnitMPerS, o.Speed), q("Mass flow", book.UnitKgPerS, o.MassFlow), q("Charge-to-mass", book.UnitUCPerKg, o.ChargeToMass),
+		q("Charging current", book.UnitUA, o.ChargingCurrent), q("Charging time", book.UnitSecond, o.ChargingTime), q("Particle size", book.UnitMillimetre, o.ParticleSize),
+		q("Resistance to earth", book.UnitOhm, o.Resistance), q("Capacitance", book.UnitPF, o.Capacitance),
+		q("Conductivity", book.UnitPSPerM, o.Conductivity), q("Relative permittivity", book.UnitDimless, o.Permittivity),
+		t("Bag type", o.BagType), t("Filling", o.Filling),
+		q("Layer breakdown", book.UnitKV, o.LayerBreakdown), t("Process", o.Process),
+		t("Vessel material", o.VesselMaterial), t("Vessel class", o.VesselClass), q("Vessel diameter", book.UnitMetre, o.VesselDiameter),
+		t("Filter", o.Filter), q("Residence time", book.UnitSecond, o.Residence), t("Second phase", o.SecondPhase), q("Inlet velocity", book.UnitMPerS, o.InletVelocity),
 	}
 }
 
-func ratioText(r *float64) string {
+func ratioValue(r *float64) Value {
 	if r == nil {
-		return ""
+		return Value{}
 	}
-	return fmtSig(*r)
+	return numValue(book.UnitRatio, *r)
 }
 
 // auditJSON is the part of audit.WriteJSON's document compare reads.
 type auditJSON struct {
 	Survey struct {
-		File string `json:"file"`
+		File   string `json:"file"`
+		SHA256 string `json:"sha256"`
 	} `json:"survey"`
+	Site struct {
+		Name            string   `json:"name"`
+		SurveyDate      string   `json:"survey_date"`
+		SurveyedBy      string   `json:"surveyed_by"`
+		RHPct           *float64 `json:"relative_humidity_pct"`
+		AirTemperatureK *float64 `json:"air_temperature_K"`
+		RequiredMargin  *float64 `json:"required_margin"`
+	} `json:"site"`
 	Stations []struct {
 		ID         string   `json:"id"`
 		Name       string   `json:"name"`
+		Line       string   `json:"line"`
+		Atmosphere *string  `json:"atmosphere"`
+		MIEJ       *float64 `json:"mie_J"`
+		Zone       *string  `json:"zone"`
+		Group      *string  `json:"group"`
 		Rank       int      `json:"rank"`
 		Verdict    string   `json:"verdict"`
 		WorstRatio *float64 `json:"worst_ratio"`
@@ -122,15 +373,29 @@ type auditJSON struct {
 	Objects []map[string]json.RawMessage `json:"objects"`
 }
 
+// jsonField is an object key of an audit JSON compared, its name and display unit.
+type jsonField struct {
+	Key, Name string
+	Unit      book.Unit
+	Text      bool
+}
+
 // jsonFields are the object keys of an audit JSON compared, in order; the JSON
 // carries the model's results, not the survey's readings.
-func jsonFields() [][2]string {
-	return [][2]string{
-		{"station", "Station"}, {"kind", "Kind"}, {"potential_V", "Potential [V]"}, {"capacitance_F", "Capacitance [F]"},
-		{"charge_density_C_per_m2", "Charge density [C/m²]"}, {"surface_field_V_per_m", "Surface field [V/m]"},
-		{"charging_current_A", "Charging current [A]"}, {"surface_resistivity_ohm", "Surface resistivity [Ω]"},
-		{"energy_J", "Energy [J]"}, {"effective_discharge", "Effective discharge"}, {"verdict", "Verdict"}, {"ratio", "Ratio"},
+func jsonFields() []jsonField {
+	return []jsonField{
+		{"station", "Station", 0, true}, {"kind", "Kind", 0, true}, {"potential_V", "Potential", book.UnitKV, false}, {"capacitance_F", "Capacitance", book.UnitPF, false},
+		{"charge_density_C_per_m2", "Charge density", book.UnitUCPerM2, false}, {"surface_field_V_per_m", "Surface field", book.UnitKVPerM, false},
+		{"charging_current_A", "Charging current", book.UnitUA, false}, {"surface_resistivity_ohm", "Surface resistivity", book.UnitOhmSq, false},
+		{"energy_J", "Energy", book.UnitMJ, false}, {"effective_discharge", "Effective discharge", 0, true}, {"verdict", "Verdict", 0, true}, {"ratio", "Ratio E/MIE", book.UnitRatio, false},
 	}
+}
+
+func strOf(p *string) string {
+	if p == nil {
+		return ""
+	}
+	return *p
 }
 
 // SideFromJSON reads an audit JSON as written by audit.WriteJSON. Its objects
@@ -144,7 +409,19 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 	if d.Objects == nil && d.Stations == nil {
 		return nil, fmt.Errorf("%s: not an audit JSON: no \"objects\" nor \"stations\"", label)
 	}
-	s := &Side{Label: label}
+	sum := sha256.Sum256(data)
+	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SurveySHA256: d.Survey.SHA256, Results: true}}
+	if t, err := time.Parse("2006-01-02", d.Site.SurveyDate); err == nil {
+		s.Identity.SurveyDate = t
+	}
+	num := func(u book.Unit, p *float64) Value {
+		if p == nil {
+			return Value{}
+		}
+		return numValue(u, *p)
+	}
+	s.Site = []Field{{"Surveyed by", textValue(d.Site.SurveyedBy)}, {"Relative humidity", num(book.UnitPercentRH, d.Site.RHPct)},
+		{"Air temperature", num(book.UnitCelsius, d.Site.AirTemperatureK)}, {"Required margin", num(book.UnitDimless, d.Site.RequiredMargin)}}
 	for i, m := range d.Objects {
 		var id string
 		if err := json.Unmarshal(m["id"], &id); err != nil || id == "" {
@@ -152,43 +429,124 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 		}
 		o := SideObject{ID: id}
 		for _, k := range jsonFields() {
-			raw, ok := m[k[0]]
-			val := ""
+			raw, ok := m[k.Key]
+			val := Value{}
 			if ok && string(raw) != "null" {
 				var str string
 				var f float64
 				switch {
 				case json.Unmarshal(raw, &str) == nil:
-					val = str
+					val = textValue(str)
 				case json.Unmarshal(raw, &f) == nil:
-					val = fmtSig(f)
-					if k[0] == "ratio" {
+					val = numValue(k.Unit, f)
+					if k.Key == "ratio" {
 						o.Ratio = &f
 					}
 				default:
-					val = string(raw)
+					val = textValue(string(raw))
 				}
 			}
-			switch k[0] {
+			switch k.Key {
 			case "station":
-				o.Station = val
+				o.Station = val.Text
 			case "verdict":
-				o.Verdict = val
+				o.Verdict = val.Text
 			}
-			o.Fields = append(o.Fields, Field{k[1], val})
+			o.Fields = append(o.Fields, Field{k.Name, val})
 		}
 		s.Objects = append(s.Objects, o)
 	}
 	for _, st := range d.Stations {
 		s.Stations = append(s.Stations, SideStation{ID: st.ID, Name: st.Name, Rank: st.Rank, Verdict: st.Verdict, WorstRatio: st.WorstRatio})
+		s.StationFields = append(s.StationFields, StationFields{ID: st.ID, Fields: []Field{
+			{"Name", textValue(st.Name)}, {"Line", textValue(st.Line)}, {"Atmosphere", textValue(strOf(st.Atmosphere))},
+			{"Zone", textValue(strOf(st.Zone))}, {"MIE", num(book.UnitMJ, st.MIEJ)}, {"Gas or dust group", textValue(strOf(st.Group))}}})
 	}
 	return s, nil
 }
 
-// Compare finds the objects added, removed and changed between two sides, and
-// the stations whose rank moved.
+// normSite is a site name or ID compared: case and runs of spaces aside.
+func normSite(s string) string { return strings.ToLower(strings.Join(strings.Fields(s), " ")) }
+
+// cautions are the reasons the two sides may not compare as two surveys of
+// one site in date order.
+func cautions(old, new Identity) []Caution {
+	var out []Caution
+	add := func(k CautionKind, format string, a ...any) {
+		out = append(out, Caution{k, fmt.Sprintf(format, a...)})
+	}
+	switch {
+	case old.SiteID != "" && new.SiteID != "" && normSite(old.SiteID) != normSite(new.SiteID):
+		add(CautionDifferentSites, "The two surveys are of different sites: Site ID %q (old) and %q (new). The comparison is of two places, not a repeat survey.", old.SiteID, new.SiteID)
+	case (old.SiteID == "" || new.SiteID == "") && normSite(old.Site) != normSite(new.Site):
+		add(CautionDifferentSites, "The two surveys name different sites: %q (old) and %q (new). Check that they are the same site before reading the differences as changes over time.", old.SiteText(), new.SiteText())
+	case (old.SiteID == "") != (new.SiteID == ""):
+		add(CautionOneSiteID, "Only one survey gives a Site ID (old %q, new %q): compared as one site by name, but a portfolio of the two ranks them as two sites until both give the same Site ID.", old.SiteID, new.SiteID)
+	}
+	switch {
+	case old.SurveyDate.IsZero() || new.SurveyDate.IsZero():
+		add(CautionNoDate, "A survey date is missing (old: %s, new: %s): the order of the two surveys cannot be checked.", old.DateText(), new.DateText())
+	case old.SurveyDate.After(new.SurveyDate):
+		add(CautionReversedDates, "The old survey (%s) is dated after the new one (%s): the order looks reversed, so 'added', 'removed', 'before' and 'after' read backwards. Swap OLD and NEW unless this is meant.", old.DateText(), new.DateText())
+	case old.SurveyDate.Equal(new.SurveyDate):
+		add(CautionSameDate, "Both surveys carry the same date (%s): two versions of one survey, not a repeat survey.", old.DateText())
+	}
+	if old.SHA256 != "" && old.SHA256 == new.SHA256 {
+		add(CautionSameFile, "The two files are identical (same SHA-256 checksum): nothing can have changed.")
+	}
+	if old.Results || new.Results {
+		add(CautionResultsOnly, "At least one side is an audit JSON, which holds results and no readings: both sides are compared on the audit's results (potential, energy, verdict), and Site items, limit overrides and readings are not compared.")
+	}
+	return out
+}
+
+// fieldChanges lists the fields of after whose value differs in before, then
+// the fields only in before (a limit override removed).
+func fieldChanges(station string, before, after []Field) []FieldChange {
+	bv := map[string]Value{}
+	for _, f := range before {
+		bv[f.Name] = f.Value
+	}
+	seen := map[string]bool{}
+	var out []FieldChange
+	for _, f := range after {
+		seen[f.Name] = true
+		b, ok := bv[f.Name]
+		if !ok {
+			if f.Value.Text == "" && f.Value.SI == nil {
+				continue
+			}
+			b = Value{}
+		}
+		if !b.Equal(f.Value) {
+			out = append(out, FieldChange{Station: station, Field: f.Name, Before: b, After: f.Value})
+		}
+	}
+	for _, f := range before {
+		if !seen[f.Name] && (f.Value.Text != "" || f.Value.SI != nil) {
+			out = append(out, FieldChange{Station: station, Field: f.Name, Before: f.Value})
+		}
+	}
+	return out
+}
+
+// Compare finds the cautions, the Site and station settings changed, the
+// objects added, removed and changed between two sides, and the stations whose
+// rank moved or verdict changed.
 func Compare(old, new *Side) *Comparison {
-	c := &Comparison{Old: old, New: new}
+	c := &Comparison{Old: old, New: new, Cautions: cautions(old.Identity, new.Identity)}
+	if !old.Identity.Results && !new.Identity.Results {
+		c.SiteChanges = fieldChanges("", old.Site, new.Site)
+	}
+	oldSF := map[string][]Field{}
+	for _, s := range old.StationFields {
+		oldSF[s.ID] = s.Fields
+	}
+	for _, s := range new.StationFields {
+		if b, ok := oldSF[s.ID]; ok {
+			c.StationChanges = append(c.StationChanges, fieldChanges(s.ID, b, s.Fields)...)
+		}
+	}
 	oldByID := map[string]*SideObject{}
 	for i := range old.Objects {
 		oldByID[old.Objects[i].ID] = &old.Objects[i]
@@ -203,12 +561,12 @@ func Compare(old, new *Side) *Comparison {
 			continue
 		}
 		ch := Changed{ID: n.ID, Station: n.Station, VerdictBefore: o.Verdict, VerdictAfter: n.Verdict, RatioBefore: o.Ratio, RatioAfter: n.Ratio}
-		ov := map[string]string{}
+		ov := map[string]Value{}
 		for _, f := range o.Fields {
 			ov[f.Name] = f.Value
 		}
 		for _, f := range n.Fields {
-			if b, ok := ov[f.Name]; ok && b != f.Value {
+			if b, ok := ov[f.Name]; ok && !b.Equal(f.Value) {
 				ch.Fields = append(ch.Fields, f.Name)
 				ch.Before = append(ch.Before, b)
 				ch.After = append(ch.After, f.Value)
@@ -231,21 +589,26 @@ func Compare(old, new *Side) *Comparison {
 	for _, n := range new.Stations {
 		seen[n.ID] = true
 		o, ok := oldSt[n.ID]
-		if ok && o.Rank == n.Rank {
+		if ok && o.Rank == n.Rank && o.Verdict == n.Verdict {
 			continue
 		}
-		m := RankMove{ID: n.ID, Name: n.Name, RankAfter: n.Rank, VerdictAfter: n.Verdict}
+		m := RankMove{ID: n.ID, Name: n.Name, RankAfter: n.Rank, VerdictAfter: n.Verdict, WorstRatioAfter: n.WorstRatio}
 		if ok {
-			m.RankBefore, m.VerdictBefore = o.Rank, o.Verdict
+			m.RankBefore, m.VerdictBefore, m.WorstRatioBefore = o.Rank, o.Verdict, o.WorstRatio
 		}
 		c.Stations = append(c.Stations, m)
 	}
 	for _, o := range old.Stations {
 		if !seen[o.ID] {
-			c.Stations = append(c.Stations, RankMove{ID: o.ID, Name: o.Name, RankBefore: o.Rank, VerdictBefore: o.Verdict})
+			c.Stations = append(c.Stations, RankMove{ID: o.ID, Name: o.Name, RankBefore: o.Rank, VerdictBefore: o.Verdict, WorstRatioBefore: o.WorstRatio})
 		}
 	}
 	return c
+}
+
+// HasCaution reports whether the comparison carries a caution of kind k.
+func (c *Comparison) HasCaution(k CautionKind) bool {
+	return slices.ContainsFunc(c.Cautions, func(x Caution) bool { return x.Kind == k })
 }
 
 // VerdictChanged reports whether the object's verdict differs between the sides.

@@ -4,6 +4,8 @@ import (
 	"encoding/json"
 	"io"
 	"math"
+
+	"github.com/sparkmargin/sparkmargin/templates"
 )
 
 // The JSON documents of whatif, sweep and compare: exactly the stable keys of
@@ -134,24 +136,78 @@ func WriteSweepJSON(w io.Writer, s *Sweep) error {
 	return encode(w, d)
 }
 
+type jsonValue struct {
+	Text  string   `json:"text"`
+	SI    *float64 `json:"si"`
+	Value *float64 `json:"value"` // in unit
+	Unit  string   `json:"unit"`
+}
+
+func jvalue(v Value) jsonValue {
+	j := jsonValue{Text: v.Text, Unit: v.Unit}
+	if v.SI != nil {
+		j.SI, j.Value = finite(v.SI), finite(&v.Shown)
+	}
+	return j
+}
+
+type jsonFieldChange struct {
+	Field  string    `json:"field"`
+	Before jsonValue `json:"before"`
+	After  jsonValue `json:"after"`
+}
+
+type jsonStationChange struct {
+	Station string `json:"station"`
+	jsonFieldChange
+}
+
 type jsonChanged struct {
-	ID            string   `json:"id"`
-	Fields        []string `json:"fields"`
-	VerdictBefore string   `json:"verdict_before"`
-	VerdictAfter  string   `json:"verdict_after"`
+	ID            string            `json:"id"`
+	Station       string            `json:"station"`
+	Fields        []string          `json:"fields"`
+	Values        []jsonFieldChange `json:"values"`
+	VerdictBefore string            `json:"verdict_before"`
+	VerdictAfter  string            `json:"verdict_after"`
 }
 
 type jsonRankMove struct {
-	ID         string `json:"id"`
-	RankBefore *int   `json:"rank_before"`
-	RankAfter  *int   `json:"rank_after"`
+	ID               string   `json:"id"`
+	RankBefore       *int     `json:"rank_before"`
+	RankAfter        *int     `json:"rank_after"`
+	VerdictBefore    *string  `json:"verdict_before"`
+	VerdictAfter     *string  `json:"verdict_after"`
+	WorstRatioBefore *float64 `json:"worst_ratio_before"`
+	WorstRatioAfter  *float64 `json:"worst_ratio_after"`
+	Move             string   `json:"move"`
+}
+
+type jsonIdentity struct {
+	Path         string  `json:"path"`
+	SHA256       string  `json:"sha256"`
+	Site         string  `json:"site"`
+	SiteID       string  `json:"site_id"`
+	SurveyDate   *string `json:"survey_date"` // null: not given
+	SurveySHA256 string  `json:"survey_sha256,omitempty"`
+	ResultsOnly  bool    `json:"results_only"`
+}
+
+type jsonCaution struct {
+	Kind string `json:"kind"`
+	Text string `json:"text"`
 }
 
 type jsonCompare struct {
-	Added    []string       `json:"added"`
-	Removed  []string       `json:"removed"`
-	Changed  []jsonChanged  `json:"changed"`
-	Stations []jsonRankMove `json:"stations"`
+	Old            jsonIdentity        `json:"old"`
+	New            jsonIdentity        `json:"new"`
+	Warnings       []jsonCaution       `json:"warnings"`
+	SiteChanges    []jsonFieldChange   `json:"site_changes"`
+	StationChanges []jsonStationChange `json:"station_changes"`
+	Added          []string            `json:"added"`
+	Removed        []string            `json:"removed"`
+	Changed        []jsonChanged       `json:"changed"`
+	Stations       []jsonRankMove      `json:"stations"`
+	Cautions       []string            `json:"cautions"`
 }
 
 func rankPtr(r int) *int {
@@ -161,17 +217,53 @@ func rankPtr(r int) *int {
 	return &r
 }
 
-// WriteCompareJSON writes the compare document: {"added": [ids], "removed":
-// [ids], "changed": [{"id", "fields", "verdict_before", "verdict_after"}],
-// "stations": [{"id", "rank_before", "rank_after"}]} with the stations whose rank
-// moved (null rank: the station is not on that side).
+func strPtr(s string) *string {
+	if s == "" {
+		return nil
+	}
+	return &s
+}
+
+func jidentity(id Identity) jsonIdentity {
+	j := jsonIdentity{Path: id.Path, SHA256: id.SHA256, Site: id.Site, SiteID: id.SiteID, SurveySHA256: id.SurveySHA256, ResultsOnly: id.Results}
+	if !id.SurveyDate.IsZero() {
+		j.SurveyDate = strPtr(id.DateText())
+	}
+	return j
+}
+
+// WriteCompareJSON writes the compare document: "old" and "new" (the identity
+// of each side: path, sha256, site, site_id, survey_date or null), "warnings"
+// ([{kind, text}]: different sites, dates reversed...), "site_changes" and
+// "station_changes" ([{station, field, before, after}], each value {text, si,
+// value, unit}: SI and the display unit of the survey and audit), "added" and
+// "removed" (object IDs), "changed" ([{id, station, fields, values,
+// verdict_before, verdict_after}]), "stations" (each station whose rank moved or
+// verdict changed: ranks, verdicts, worst ratios, null where the station is not
+// on that side) and "cautions" (the screening cautions).
 func WriteCompareJSON(w io.Writer, c *Comparison) error {
-	d := jsonCompare{Added: nonNil(c.Added), Removed: nonNil(c.Removed), Changed: []jsonChanged{}, Stations: []jsonRankMove{}}
+	d := jsonCompare{Old: jidentity(c.Old.Identity), New: jidentity(c.New.Identity), Warnings: []jsonCaution{}, SiteChanges: []jsonFieldChange{},
+		StationChanges: []jsonStationChange{}, Added: nonNil(c.Added), Removed: nonNil(c.Removed), Changed: []jsonChanged{}, Stations: []jsonRankMove{},
+		Cautions: templates.Cautions()}
+	for _, k := range c.Cautions {
+		d.Warnings = append(d.Warnings, jsonCaution{string(k.Kind), k.Text})
+	}
+	for _, ch := range c.SiteChanges {
+		d.SiteChanges = append(d.SiteChanges, jsonFieldChange{ch.Field, jvalue(ch.Before), jvalue(ch.After)})
+	}
+	for _, ch := range c.StationChanges {
+		d.StationChanges = append(d.StationChanges, jsonStationChange{ch.Station, jsonFieldChange{ch.Field, jvalue(ch.Before), jvalue(ch.After)}})
+	}
 	for _, ch := range c.Changed {
-		d.Changed = append(d.Changed, jsonChanged{ch.ID, ch.Fields, ch.VerdictBefore, ch.VerdictAfter})
+		j := jsonChanged{ID: ch.ID, Station: ch.Station, Fields: ch.Fields, Values: []jsonFieldChange{}, VerdictBefore: ch.VerdictBefore, VerdictAfter: ch.VerdictAfter}
+		for i, f := range ch.Fields {
+			j.Values = append(j.Values, jsonFieldChange{f, jvalue(ch.Before[i]), jvalue(ch.After[i])})
+		}
+		d.Changed = append(d.Changed, j)
 	}
 	for _, m := range c.Stations {
-		d.Stations = append(d.Stations, jsonRankMove{m.ID, rankPtr(m.RankBefore), rankPtr(m.RankAfter)})
+		d.Stations = append(d.Stations, jsonRankMove{m.ID, rankPtr(m.RankBefore), rankPtr(m.RankAfter), strPtr(m.VerdictBefore), strPtr(m.VerdictAfter),
+			finite(m.WorstRatioBefore), finite(m.WorstRatioAfter), m.Move()})
 	}
 	return encode(w, d)
 }

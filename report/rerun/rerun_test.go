@@ -474,7 +474,7 @@ func TestCompareDemoVersions(t *testing.T) {
 	if !bag.hasField("Resistance to earth") || !bag.hasField("Verdict") || bag.VerdictBefore != "incendive" || bag.VerdictAfter != "non-incendive" {
 		t.Errorf("BAG-CU: %+v, want resistance and verdict incendive → non-incendive", bag)
 	}
-	if u := byID["UNW-WEB"]; !u.hasField("Field") || !u.hasField("Ratio") {
+	if u := byID["UNW-WEB"]; !u.hasField("Field") || !u.hasField("Ratio E/MIE") {
 		t.Errorf("UNW-WEB: %+v, want Field and Ratio changed (it gained an atmosphere)", u)
 	}
 	// Rank moves: exactly the stations whose rank differs between the two audits.

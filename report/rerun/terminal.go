@@ -107,12 +107,38 @@ func verdictMark(v string) string {
 	return "  "
 }
 
-// WriteCompareSummary writes the compact terminal report of a compare.
+// WriteCompareSummary writes the compact terminal report of a compare: both
+// identities, the cautions, the Site and station settings changed, the objects
+// added, removed and changed, and the stations whose rank or verdict moved.
 func WriteCompareSummary(w io.Writer, c *Comparison) error {
-	fmt.Fprintf(w, "Old: %s\nNew: %s\n\n", c.Old.Label, c.New.Label)
+	for _, s := range []struct {
+		role string
+		side *Side
+	}{{"Old", c.Old}, {"New", c.New}} {
+		id := s.side.Identity
+		fmt.Fprintf(w, "%s: %s\n     site %s, surveyed %s, SHA-256 %s\n", s.role, dash(id.Path), id.SiteText(), id.DateText(), shortSum(id.SHA256))
+	}
+	for _, k := range c.Cautions {
+		fmt.Fprintf(w, "WARNING (%s): %s\n", k.Kind, k.Text)
+	}
+	fmt.Fprintln(w)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "Setting changed\tWhere\tBefore\tAfter")
+	for _, ch := range append(append([]FieldChange(nil), c.SiteChanges...), c.StationChanges...) {
+		where := "Site"
+		if ch.Station != "" {
+			where = ch.Station
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", ch.Field, where, dash(ch.Before.Text), dash(ch.After.Text))
+	}
+	if len(c.SiteChanges)+len(c.StationChanges) == 0 {
+		fmt.Fprintln(tw, "(no Site item or station setting changed)")
+	}
+	tw.Flush()
+	fmt.Fprintln(w)
 	fmt.Fprintf(w, "Added (%d):   %s\n", len(c.Added), listOrNone(c.Added))
 	fmt.Fprintf(w, "Removed (%d): %s\n\n", len(c.Removed), listOrNone(c.Removed))
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "Changed object\tStation\tVerdict before\tVerdict after\tFields changed")
 	for _, ch := range c.Changed {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", ch.ID, ch.Station, ch.VerdictBefore, ch.VerdictAfter, strings.Join(ch.Fields, ", "))
@@ -123,16 +149,28 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	tw.Flush()
 	fmt.Fprintln(w)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "Station\tRank before\tRank after\tVerdict before\tVerdict after")
+	fmt.Fprintln(tw, "Station\tRank before\tRank after\tVerdict before\tVerdict after\tWorst ratio before\tWorst ratio after\tMove")
 	for _, m := range c.Stations {
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", m.ID, rankText(m.RankBefore), rankText(m.RankAfter), dash(m.VerdictBefore), dash(m.VerdictAfter))
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", m.ID, rankText(m.RankBefore), rankText(m.RankAfter), dash(m.VerdictBefore), dash(m.VerdictAfter),
+			book.FormatRatio(m.WorstRatioBefore), book.FormatRatio(m.WorstRatioAfter), m.Move())
 	}
 	if len(c.Stations) == 0 {
-		fmt.Fprintln(tw, "(no station's rank moved)")
+		fmt.Fprintln(tw, "(no station's rank or verdict moved)")
 	}
 	tw.Flush()
 	caution(w)
 	return nil
+}
+
+// shortSum is the first 12 hex digits of a checksum, "not known" for none.
+func shortSum(s string) string {
+	if s == "" {
+		return "not known"
+	}
+	if len(s) > 12 {
+		return s[:12] + "…"
+	}
+	return s
 }
 
 func listOrNone(s []string) string {

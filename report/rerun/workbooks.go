@@ -244,29 +244,89 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	return b.write(w)
 }
 
-// WriteCompareWorkbook writes the compare workbook: Summary, Added, Removed,
-// Changed (one row per changed field), Stations (ranks moved) and Cautions.
-func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Survey) error {
-	if c == nil {
+// SheetSettings is the compare workbook's sheet of Site and station settings changed.
+const SheetSettings = "Settings changed"
+
+// compareNotes are the Method sheet's account of what compare does and does not say.
+func compareNotes() [][2]string {
+	return [][2]string{
+		{"What compare does", "Each survey is read and assessed on its own, with its own Site items, limits and atmospheres, exactly as 'assess' would; the two audits are then matched by object ID and station ID. An object only in NEW is added, only in OLD removed; an object in both is changed when any reading, setting, verdict or ratio differs. A station is listed when its rank moved or its verdict changed (even at the same rank), or when it is on one side only. Site items (RH, air temperature, required margin, limit overrides, Surveyed by, Site ID) and station settings (name, line, RH, atmosphere, substance, zone, MIE, gas or dust group) are compared one by one."},
+		{"Units", "Values are shown as numbers in the display units of the survey and the audit (kV/m, kV, mJ, pF, µA, Ω, %...), the unit in its own column; the JSON gives each value in SI as well."},
+		{"Same site", "Two surveys are taken as one site when both give a Site ID and the IDs agree, else when their site names agree (case and spaces aside): a screening choice of this tool. A mismatch is a warning, not an error: the comparison is still made. A Site ID on one side only is noted: the portfolio (assess of several surveys) keeps such surveys apart."},
+		{"Date order", "OLD should be the earlier survey. When OLD is dated after NEW, or a date is missing, a warning says so: 'added', 'removed', 'before' and 'after' then read backwards or cannot be ordered."},
+		{"What compare does not say", "It does not say why a value changed (a new reading, a process change, a typing error), nor that a change is an improvement: a verdict that went from incendive to non-incendive rests on the new survey's readings and inputs, which a competent person should check. A rank is relative to the other stations of the same survey, so a rank can move while nothing changed at the station. Rows rejected on either side are not compared (see each survey's audit). When either side is an audit JSON, the sides are compared on results only (no readings, no Site items)."},
+		{"Screening", "Both audits are screening estimates: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."},
+	}
+}
+
+// valueCell is a compared value: a number in its display unit, else its text.
+func valueCell(v Value) audit.Cell {
+	if v.SI != nil {
+		return audit.NumberCell(v.Shown, v.NumFmt)
+	}
+	return tx(v.Text)
+}
+
+// unitOf is the display unit of a change, from whichever side has a number.
+func unitOf(a, b Value) string {
+	if b.SI != nil {
+		return b.Unit
+	}
+	return a.Unit
+}
+
+// WriteCompareWorkbook writes the compare workbook: Summary (both identities,
+// the warnings, the counts), Settings changed (Site items and station
+// settings), Added, Removed, Changed (one row per changed field, numbers in
+// the survey's display units), Stations (rank moved or verdict changed),
+// Method (identity, what compare does and does not say, the warnings) and Cautions.
+func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Survey, info RunInfo) error {
+	if c == nil || c.Old == nil || c.New == nil {
 		return errors.New("compare workbook: no comparison")
 	}
-	b := newBook(&assess.Audit{Survey: newSurvey}, RunInfo{}, SheetSummary, "Comparison of two surveys")
+	b := newBook(&assess.Audit{Survey: newSurvey}, info, SheetSummary, "Comparison of two surveys")
 	sh := SheetSummary
-	b.check(b.f.SetColWidth(sh, "A", "A", 26))
-	b.check(b.f.SetColWidth(sh, "B", "B", 60))
-	b.Put(sh, 1, 1, audit.TitleCell("Compare: "+b.site))
-	r := 3
-	for _, kv := range [][2]string{{"Old", c.Old.Label}, {"New", c.New.Label}, {"Objects added", fmt.Sprint(len(c.Added))}, {"Objects removed", fmt.Sprint(len(c.Removed))},
-		{"Objects changed", fmt.Sprint(len(c.Changed))}, {"Verdicts changed", fmt.Sprint(countVerdictChanges(c))}, {"Stations whose rank moved", fmt.Sprint(len(c.Stations))}} {
-		b.Put(sh, 1, r, tx(kv[0]))
-		b.Put(sh, 2, r, wr(kv[1]))
+	b.Put(sh, 1, 1, audit.TitleCell("Compare: "+c.Old.Identity.SiteText()+" → "+c.New.Identity.SiteText()))
+	r := identityTable(b, sh, 3, c)
+	r++
+	for _, k := range c.Cautions {
+		b.Put(sh, 1, r, audit.CautionCell("WARNING ("+string(k.Kind)+"): "+k.Text))
+		b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("C%d", r)))
+		b.check(b.f.SetRowHeight(sh, r, 45))
 		r++
 	}
+	if len(c.Cautions) > 0 {
+		r++
+	}
+	b.Put(sh, 1, r, audit.SectionCell("What differs"))
 	r++
+	var rows [][]audit.Cell
+	for _, kv := range []struct {
+		k string
+		n int
+	}{{"Site items changed", len(c.SiteChanges)}, {"Station settings changed", len(c.StationChanges)}, {"Objects added", len(c.Added)}, {"Objects removed", len(c.Removed)},
+		{"Objects changed", len(c.Changed)}, {"Object verdicts changed", countVerdictChanges(c)}, {"Stations whose rank or verdict moved", len(c.Stations)}} {
+		rows = append(rows, []audit.Cell{tx(kv.k), in(kv.n)})
+	}
+	r = b.Table(sh, r, []string{"What", "Count"}, []float64{30, 44, 44}, rows) + 1
 	b.Put(sh, 1, r, audit.CautionCell("Screening estimates only: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."))
-	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("B%d", r)))
+	b.check(b.f.MergeCell(sh, fmt.Sprintf("A%d", r), fmt.Sprintf("C%d", r)))
 	b.check(b.f.SetRowHeight(sh, r, 30))
 	b.PrintSetup(sh, "")
+
+	rows = nil
+	for _, ch := range append(append([]FieldChange(nil), c.SiteChanges...), c.StationChanges...) {
+		where := "Site"
+		if ch.Station != "" {
+			where = ch.Station
+		}
+		rows = append(rows, []audit.Cell{tx(where), tx(ch.Field), valueCell(ch.Before), valueCell(ch.After), ct(unitOf(ch.Before, ch.After))})
+	}
+	if len(rows) == 0 {
+		rows = append(rows, []audit.Cell{tx("none"), tx("no Site item or station setting changed")})
+	}
+	b.Table(SheetSettings, 1, []string{"Where", "Setting", "Old value", "New value", "Unit"}, []float64{12, 26, 16, 16, 8}, rows)
+	b.PrintSetup(SheetSettings, "$1:$1")
 
 	one := func(sheet string, ids []string, side *Side) {
 		byID := map[string]SideObject{}
@@ -287,21 +347,21 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	one(SheetAdded, c.Added, c.New)
 	one(SheetRemoved, c.Removed, c.Old)
 
-	var rows [][]audit.Cell
+	rows = nil
 	for _, ch := range c.Changed {
 		for i, f := range ch.Fields {
-			rows = append(rows, []audit.Cell{tx(ch.ID), tx(ch.Station), tx(f), tx(ch.Before[i]), tx(ch.After[i]), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
+			rows = append(rows, []audit.Cell{tx(ch.ID), tx(ch.Station), tx(f), valueCell(ch.Before[i]), valueCell(ch.After[i]), ct(unitOf(ch.Before[i], ch.After[i])), vd(ch.VerdictBefore), vd(ch.VerdictAfter)})
 		}
 	}
 	if len(rows) == 0 {
 		rows = append(rows, []audit.Cell{tx("none")})
 	}
-	b.Table(SheetChanged, 1, []string{"ID", "Station", "Field", "Old value (SI)", "New value (SI)", "Verdict old", "Verdict new"}, []float64{14, 12, 20, 18, 18, 14, 14}, rows)
+	b.Table(SheetChanged, 1, []string{"ID", "Station", "Field", "Old value", "New value", "Unit", "Verdict old", "Verdict new"}, []float64{14, 12, 20, 14, 14, 8, 14, 14}, rows)
 	b.PrintSetup(SheetChanged, "$1:$1")
 
 	rows = nil
 	for _, m := range c.Stations {
-		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter), ct(rankMove(m))}
+		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter), audit.RatioCell(m.WorstRatioBefore), audit.RatioCell(m.WorstRatioAfter), ct(m.Move())}
 		if m.RankBefore > 0 {
 			row[2] = in(m.RankBefore)
 		}
@@ -311,12 +371,71 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		rows = append(rows, row)
 	}
 	if len(rows) == 0 {
-		rows = append(rows, []audit.Cell{tx("none"), tx("no station's rank moved")})
+		rows = append(rows, []audit.Cell{tx("none"), tx("no station's rank or verdict moved")})
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Move"}, []float64{10, 28, 9, 9, 14, 14, 22}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Worst ratio old [–]", "Worst ratio new [–]", "Move"}, []float64{10, 28, 9, 9, 14, 14, 11, 11, 24}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
+
+	// Method: both identities, the warnings, what compare does and does not say.
+	m := SheetMethod
+	b.Put(m, 1, 1, audit.TitleCell("How this comparison was made"))
+	r = identityTable(b, m, 3, c)
+	for _, kv := range [][2]string{{"Tool", strings.TrimSpace("sparkmargin " + info.ToolVersion)}, {"Command line", info.CommandLine}} {
+		if kv[1] != "" {
+			b.Put(m, 1, r, tx(kv[0]))
+			b.Put(m, 2, r, wr(kv[1]))
+			r++
+		}
+	}
+	r++
+	b.Put(m, 1, r, audit.SectionCell("Warnings of this comparison"))
+	r++
+	rows = nil
+	for _, k := range c.Cautions {
+		rows = append(rows, []audit.Cell{ct(string(k.Kind)), wr(k.Text)})
+	}
+	if len(rows) == 0 {
+		rows = append(rows, []audit.Cell{tx("none"), wr("Same site, OLD dated before NEW, two different files.")})
+	}
+	r = b.Table(m, r, []string{"Warning", "What it means"}, nil, rows) + 1
+	b.Put(m, 1, r, audit.SectionCell("What compare does and does not say"))
+	r++
+	rows = nil
+	for _, n := range compareNotes() {
+		rows = append(rows, []audit.Cell{tx(n[0]), wr(n[1])})
+	}
+	b.Table(m, r, []string{"Topic", "Note"}, nil, rows)
+	b.PrintSetup(m, "")
 	b.AddCautionsSheet()
 	return b.write(w)
+}
+
+// identityTable writes both sides' identity at row r of sheet sh (Item | Old |
+// New) and returns the row after it.
+func identityTable(b *rerunBook, sh string, r int, c *Comparison) int {
+	o, n := c.Old.Identity, c.New.Identity
+	kind := func(id Identity) string {
+		if id.Results {
+			return "audit JSON (results only)"
+		}
+		return "survey workbook"
+	}
+	var rows [][]audit.Cell
+	for _, kv := range [][3]string{
+		{"File", o.Path, n.Path},
+		{"Kind", kind(o), kind(n)},
+		{"Site", o.SiteText(), n.SiteText()},
+		{"Site ID", o.SiteID, n.SiteID},
+		{"Survey date", o.DateText(), n.DateText()},
+		{"SHA-256 of the file", o.SHA256, n.SHA256},
+		{"SHA-256 of the survey behind the JSON", o.SurveySHA256, n.SurveySHA256},
+	} {
+		if kv[0] == "SHA-256 of the survey behind the JSON" && kv[1] == "" && kv[2] == "" {
+			continue
+		}
+		rows = append(rows, []audit.Cell{tx(kv[0]), wr(kv[1]), wr(kv[2])})
+	}
+	return b.Table(sh, r, []string{"Identity", "Old", "New"}, []float64{30, 44, 44}, rows)
 }
 
 func countVerdictChanges(c *Comparison) int {
@@ -327,16 +446,4 @@ func countVerdictChanges(c *Comparison) int {
 		}
 	}
 	return n
-}
-
-func rankMove(m RankMove) string {
-	switch {
-	case m.RankBefore == 0:
-		return "new station"
-	case m.RankAfter == 0:
-		return "station removed"
-	case m.RankAfter < m.RankBefore:
-		return fmt.Sprintf("up %d (worse)", m.RankBefore-m.RankAfter)
-	}
-	return fmt.Sprintf("down %d (better)", m.RankAfter-m.RankBefore)
 }
