@@ -73,7 +73,8 @@ func TestWhatifCommand(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	top := wantKeys(t, "whatif", data, "changes", "objects", "stations")
+	top := wantKeys(t, "whatif", data, "survey", "changes", "objects", "stations", "cautions")
+	wantKeys(t, "whatif survey", top["survey"], "site", "survey_date", "file", "sha256")
 	obj := wantKeys(t, "whatif object", firstOf(t, top["objects"]), "id", "station", "before", "after")
 	wantKeys(t, "whatif object before", obj["before"], "verdict", "ratio")
 	wantKeys(t, "whatif object after", obj["after"], "verdict", "ratio")
@@ -207,7 +208,9 @@ func TestSweepCommand(t *testing.T) {
 		t.Errorf("terminal table missing:\n%s", out)
 	}
 	data, _ := os.ReadFile(js)
-	top := wantKeys(t, "sweep", data, "steps")
+	top := wantKeys(t, "sweep", data, "survey", "all_stations", "held_stations", "steps", "clearances", "cautions")
+	wantKeys(t, "sweep survey", top["survey"], "site", "survey_date", "file", "sha256")
+	wantKeys(t, "sweep clearance", firstOf(t, top["clearances"]), "id", "clears_at_rh_pct", "cause", "missing_inputs", "readings_holding", "text")
 	var steps []json.RawMessage
 	json.Unmarshal(top["steps"], &steps)
 	if len(steps) != 3 { // 10, 50, 90 (derived from the range)
