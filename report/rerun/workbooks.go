@@ -37,6 +37,12 @@ func rerunNotes() [][2]string {
 	}
 }
 
+// whatifNotes are the whatif Method sheet's notes: the rerun notes and the
+// change kinds, from the change table.
+func whatifNotes() [][2]string {
+	return append(rerunNotes(), [2]string{"Change kinds", KindsNote()})
+}
+
 // WriteWhatifWorkbook writes the whatif workbook: Summary (counts before and
 // after, counts moved, a chart), Objects and Stations before/after, Changes
 // applied, Method, Cautions and Rejected.
@@ -142,7 +148,7 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		[]float64{4, 11, 16, 14, 14, 12, 50, 30, 30}, rows)
 	b.PrintSetup(SheetChanges, "$1:$1")
 
-	b.AddMethodSheet(audit.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: rerunNotes()})
+	b.AddMethodSheet(audit.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: whatifNotes()})
 	b.AddCautionsSheet()
 	b.AddRejectedSheet(s)
 	return b.write(w)
