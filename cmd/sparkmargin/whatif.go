@@ -60,7 +60,8 @@ func newWhatifCmd(ws *report.Workspace) *cobra.Command {
 			"assesses before and after, and writes a workbook with each object's and station's verdict and ratio\n" +
 			"before and after, what cleared, stayed and appeared, and the changes applied. Changes come from the\n" +
 			"survey's Changes sheet (first) and from the flags (then, in their order).\n" +
-			"Targets: an object ID, or station:ID for every matching row of a station.\n" +
+			"Targets: an object ID, or station:ID for every matching row of a station (a station ID for --station-rh).\n" +
+			"A flag and a Changes sheet row read the same way; quote a value with a space (--earth \"X=5 kV\").\n" +
 			"Exit status: 0 done, 1 nothing could be assessed, 2 usage, unreadable survey or a bad change.",
 		Example: "  sparkmargin whatif demo-out/demo-survey.xlsx --rh 55 --earth PWD-DRU1=1e6 -o whatif.xlsx\n" +
 			"  sparkmargin whatif survey.xlsx --station-rh ST-LAM=65 --material COAT-WEB=PE --json whatif.json -o whatif.xlsx",
