@@ -297,7 +297,7 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			}
 			c.Missing, c.Readings, _ = stationCauses(last, st.ID)
 			if st.Verdict != assess.NonIncendive && len(c.Missing) > 0 {
-				c.Text += "; missing: " + strings.Join(c.Missing, "; ")
+				c.Text += "; missing: " + byInput(c.Missing)
 			}
 			out = append(out, c)
 			continue
@@ -318,16 +318,16 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			}
 			switch c.Cause {
 			case NeverMissingInput:
-				c.Text = fmt.Sprintf("never non-incendive over the range because an input is missing, not because of humidity: %s; %s", strings.Join(c.Missing, "; "), still)
+				c.Text = fmt.Sprintf("never non-incendive over the range because an input is missing, not because of humidity: %s; %s", byInput(c.Missing), still)
 			case NeverReading:
-				c.Text = fmt.Sprintf("a measured reading holds the hazard at every RH (%s): take a new reading at the new RH; %s", strings.Join(c.Readings, "; "), still)
+				c.Text = fmt.Sprintf("a measured reading holds the hazard at every RH (%s): take a new reading at the new RH; %s", firstFew(c.Readings), still)
 				if len(c.Missing) > 0 {
-					c.Text += "; also missing: " + strings.Join(c.Missing, "; ")
+					c.Text += "; also missing: " + byInput(c.Missing)
 				}
 			default:
 				c.Text = "humidity alone never gets it there: " + still
 				if len(c.Missing) > 0 {
-					c.Text += "; also missing: " + strings.Join(c.Missing, "; ")
+					c.Text += "; also missing: " + byInput(c.Missing)
 				}
 			}
 		default:
@@ -387,4 +387,44 @@ func stationCauses(a *assess.Audit, station string) (missing, readings []string,
 		cause = NeverMissingInput
 	}
 	return missing, readings, cause
+}
+
+// byInput words "ID: input" entries grouped by input: "resistance to earth
+// not measured (...) on BAY-1, BAY-2 and 3 more".
+func byInput(items []string) string {
+	var order []string
+	ids := map[string][]string{}
+	for _, it := range items {
+		id, what, ok := strings.Cut(it, ": ")
+		if !ok {
+			id, what = "", it
+		}
+		if _, seen := ids[what]; !seen {
+			order = append(order, what)
+		}
+		ids[what] = append(ids[what], id)
+	}
+	var parts []string
+	for _, what := range order {
+		list := ids[what]
+		shown := list
+		if len(list) > 3 {
+			shown = list[:3]
+		}
+		p := what + " on " + strings.Join(shown, ", ")
+		if len(list) > 3 {
+			p += fmt.Sprintf(" and %d more", len(list)-3)
+		}
+		parts = append(parts, p)
+	}
+	return strings.Join(parts, "; ")
+}
+
+// firstFew joins up to three items and counts the rest ("a; b; c; and 4 more"):
+// the JSON's lists hold them all.
+func firstFew(items []string) string {
+	if len(items) <= 3 {
+		return strings.Join(items, "; ")
+	}
+	return strings.Join(items[:3], "; ") + fmt.Sprintf("; and %d more", len(items)-3)
 }

@@ -77,10 +77,10 @@ func TestSweepKeepsStationRH(t *testing.T) {
 	if err := WriteSweepSummary(&term, sw, 0); err != nil {
 		t.Fatal(err)
 	}
-	if !strings.Contains(term.String(), "kept at it (--all-stations sweeps them too): ST-DRY 20 %") {
+	if flat := strings.Join(strings.Fields(term.String()), " "); !strings.Contains(flat, "kept at it (--all-stations sweeps them too): ST-DRY 20%") {
 		t.Errorf("terminal does not name the held station:\n%s", term.String())
 	}
-	if !strings.Contains(sweepMethodText(sw), "ST-DRY 20 %") {
+	if !strings.Contains(sweepMethodText(sw), "ST-DRY 20%") {
 		t.Errorf("Method text does not name the held station: %s", sweepMethodText(sw))
 	}
 	if err := WriteSweepJSON(&js, sw); err != nil {
@@ -130,7 +130,7 @@ func TestSweepNamesMissingInput(t *testing.T) {
 		got[c.ID] = c
 	}
 	c := got["ST-DRUM"]
-	if c.Cause != NeverMissingInput || len(c.Missing) == 0 || !strings.Contains(c.Missing[0], "DRUM: resistance to earth not measured") {
+	if c.Cause != NeverMissingInput || len(c.Missing) == 0 || !strings.Contains(c.Missing[0], "DRUM: resistance to earth not measured") || !strings.Contains(c.Text, "resistance to earth not measured (assumed no leakage, the stricter case) on DRUM") {
 		t.Errorf("ST-DRUM: cause %q, missing %v, text %q", c.Cause.Code(), c.Missing, c.Text)
 	}
 	if strings.Contains(c.Text, "humidity alone") || !strings.Contains(c.Text, "because an input is missing") {
@@ -156,7 +156,7 @@ func TestSweepNamesMissingInput(t *testing.T) {
 	if c := got["ST-GOOD"]; c.Cause != NeverMissingInput || !strings.Contains(strings.Join(c.Missing, ";"), "MIE") {
 		t.Errorf("no MIE, earthed: cause %q, missing %v, text %q", c.Cause.Code(), c.Missing, c.Text)
 	}
-	if c := got["ST-DRM2"]; c.Cause != NeverHumidity || !strings.Contains(c.Text, "also missing: DRM2: the MIE of atmosphere A-UNK is not given") {
+	if c := got["ST-DRM2"]; c.Cause != NeverHumidity || !strings.Contains(c.Text, "also missing: the MIE of atmosphere A-UNK is not given on DRM2") {
 		t.Errorf("no MIE, 1e11 Ω: cause %q, missing %v, text %q", c.Cause.Code(), c.Missing, c.Text)
 	}
 }

@@ -5,6 +5,7 @@ import (
 	"io"
 	"strings"
 	"text/tabwriter"
+	"unicode/utf8"
 
 	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
@@ -111,14 +112,14 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	fmt.Fprintln(w)
 	for _, j := range shown {
 		c := s.Clearances[j]
-		fmt.Fprintf(w, "  %-8s %s\n", c.ID, c.Text)
+		fmt.Fprint(w, wrapText(fmt.Sprintf("  %-8s %s", c.ID, c.Text), terminalWidth, strings.Repeat(" ", 11)))
 	}
 	if more := len(s.Clearances) - len(shown); more > 0 {
-		fmt.Fprintf(w, "  ... and %d more station(s): the %d worst by rank at %s %% RH are shown; the workbook and JSON hold every one (--top 0 prints all)\n",
-			more, len(shown), fmtSig(s.Steps[0].RH))
+		fmt.Fprint(w, wrapText(fmt.Sprintf("  ... and %d more station(s): the %d worst by rank at %s %% RH are shown; the workbook and JSON hold every one (--top 0 prints all)",
+			more, len(shown), fmtSig(s.Steps[0].RH)), terminalWidth, "      "))
 	}
-	fmt.Fprintln(w, sweepHeldText(s, DefaultSweepTop))
-	fmt.Fprintln(w, MeasuredReadingsNote)
+	fmt.Fprint(w, wrapText(sweepHeldText(s, DefaultSweepTop), terminalWidth, "  "))
+	fmt.Fprint(w, wrapText(MeasuredReadingsNote, terminalWidth, ""))
 	caution(w)
 	return nil
 }
@@ -139,7 +140,7 @@ func sweepHeldText(s *Sweep, limit int) string {
 			parts = append(parts, fmt.Sprintf("and %d more (see the Stations sheet or the JSON)", len(s.Held)-limit))
 			break
 		}
-		parts = append(parts, fmt.Sprintf("%s %s %%", h.ID, fmtSig(h.RH)))
+		parts = append(parts, fmt.Sprintf("%s %s%%", h.ID, fmtSig(h.RH)))
 	}
 	return fmt.Sprintf("The swept RH is the site's; %d station(s) give their own RH and were kept at it (--all-stations sweeps them too): %s.",
 		len(s.Held), strings.Join(parts, ", "))
@@ -204,4 +205,32 @@ func dash(s string) string {
 		return "–"
 	}
 	return s
+}
+
+// terminalWidth is the width the sweep's prose lines are wrapped to.
+const terminalWidth = 110
+
+// wrapText breaks s at spaces into lines of at most width characters (a word
+// longer than that stays whole), the lines after the first starting with
+// indent; the result ends with a newline.
+func wrapText(s string, width int, indent string) string {
+	var b strings.Builder
+	line := 0
+	lead := len(s) - len(strings.TrimLeft(s, " "))
+	b.WriteString(s[:lead])
+	line = lead
+	for i, word := range strings.Fields(s[lead:]) {
+		n := utf8.RuneCountInString(word)
+		if i > 0 && line+1+n > width {
+			b.WriteString("\n" + indent)
+			line = len(indent)
+		} else if i > 0 {
+			b.WriteByte(' ')
+			line++
+		}
+		b.WriteString(word)
+		line += n
+	}
+	b.WriteByte('\n')
+	return b.String()
 }
