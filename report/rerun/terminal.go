@@ -112,14 +112,14 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	fmt.Fprintln(w)
 	for _, j := range shown {
 		c := s.Clearances[j]
-		fmt.Fprint(w, wrapText(fmt.Sprintf("  %-8s %s", c.ID, c.Text), terminalWidth, strings.Repeat(" ", 11)))
+		fmt.Fprint(w, wrapText(fmt.Sprintf("  %-8s ", c.ID), c.Text, terminalWidth, strings.Repeat(" ", 11)))
 	}
 	if more := len(s.Clearances) - len(shown); more > 0 {
-		fmt.Fprint(w, wrapText(fmt.Sprintf("  ... and %d more station(s): the %d worst by rank at %s %% RH are shown; the workbook and JSON hold every one (--top 0 prints all)",
+		fmt.Fprint(w, wrapText("  ", fmt.Sprintf("... and %d more station(s): the %d worst by rank at %s %% RH are shown; the workbook and JSON hold every one (--top 0 prints all)",
 			more, len(shown), fmtSig(s.Steps[0].RH)), terminalWidth, "      "))
 	}
-	fmt.Fprint(w, wrapText(sweepHeldText(s, DefaultSweepTop), terminalWidth, "  "))
-	fmt.Fprint(w, wrapText(MeasuredReadingsNote, terminalWidth, ""))
+	fmt.Fprint(w, wrapText("", sweepHeldText(s, DefaultSweepTop), terminalWidth, "  "))
+	fmt.Fprint(w, wrapText("", MeasuredReadingsNote, terminalWidth, ""))
 	caution(w)
 	return nil
 }
@@ -210,20 +210,18 @@ func dash(s string) string {
 // terminalWidth is the width the sweep's prose lines are wrapped to.
 const terminalWidth = 110
 
-// wrapText breaks s at spaces into lines of at most width characters (a word
-// longer than that stays whole), the lines after the first starting with
-// indent; the result ends with a newline.
-func wrapText(s string, width int, indent string) string {
+// wrapText writes prefix (kept as it is) and then s broken at spaces into
+// lines of at most width characters (a word longer than that stays whole), the
+// lines after the first starting with indent; the result ends with a newline.
+func wrapText(prefix, s string, width int, indent string) string {
 	var b strings.Builder
-	line := 0
-	lead := len(s) - len(strings.TrimLeft(s, " "))
-	b.WriteString(s[:lead])
-	line = lead
-	for i, word := range strings.Fields(s[lead:]) {
+	b.WriteString(prefix)
+	line := utf8.RuneCountInString(prefix)
+	for i, word := range strings.Fields(s) {
 		n := utf8.RuneCountInString(word)
 		if i > 0 && line+1+n > width {
 			b.WriteString("\n" + indent)
-			line = len(indent)
+			line = utf8.RuneCountInString(indent)
 		} else if i > 0 {
 			b.WriteByte(' ')
 			line++
