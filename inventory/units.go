@@ -386,6 +386,13 @@ func (e *QuantityError) Describe(column string) string {
 	if column != "" {
 		col = "column " + column
 	}
+	return e.DescribeFor(col)
+}
+
+// DescribeFor words the problem naming what needs the value as given ("the
+// earth change", "--rh's STEP"): `"5 kV" has the dimension of potential but
+// the earth change needs a resistance (Ω)`.
+func (e *QuantityError) DescribeFor(col string) string {
 	want := e.Want.String()
 	if u := SIUnit(e.Want); u != "" {
 		want += " (" + u + ")"

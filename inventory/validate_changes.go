@@ -246,7 +246,7 @@ func ParseChange(code, target, value string) (PlannedChange, error) {
 		msg := err.Error()
 		var qe *QuantityError
 		if errors.As(err, &qe) {
-			msg = qe.Describe("the " + k.Code + " change")
+			msg = qe.DescribeFor("the " + k.Code + " change")
 		}
 		return p, &ChangeProblem{Field: "Value", Message: msg, Fix: fmt.Sprintf("write e.g. --%s %s", k.Code, k.Example), Err: fmt.Errorf("%w: %w", ErrBadChangeValue, err)}
 	}

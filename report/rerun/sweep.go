@@ -124,7 +124,7 @@ func ParseRange(s string) ([]float64, error) {
 			why := fmt.Sprintf("%q is not a number", strings.TrimSpace(t))
 			var qe *inventory.QuantityError
 			if errors.As(err, &qe) {
-				why = qe.Describe("--rh's " + what)
+				why = qe.DescribeFor("--rh's " + what)
 			}
 			return 0, fmt.Errorf("--rh %q: %s; write FROM:TO:STEP in %%RH, e.g. 10:90:5", s, why)
 		}
