@@ -171,8 +171,8 @@ var materialColumns = []Column{
 }
 
 var changeColumns = []Column{
-	{Name: "Change", Dim: Text, Hint: "rh, station-rh, earth, material, footwear, margin, speed, conductivity or bag-type"},
-	{Name: "Target", Dim: Text, Hint: "An object ID, station:ID, or blank for the whole site"},
+	{Name: "Change", Dim: Text, Hint: changeKindHint()},
+	{Name: "Target", Dim: Text, Hint: changeTargetHint()},
 	{Name: "Value", Dim: Text, Hint: "New value with its unit, e.g. 60 %, 1e6 ohm, PE"},
 	{Name: "Notes", Dim: Text, Hint: "Why: the plan this change belongs to"},
 }

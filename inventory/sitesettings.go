@@ -390,6 +390,9 @@ func parseLimitValue(raw, keyUnit string, key LimitItem) (float64, error) {
 	case keyUnit != "":
 		unit = keyUnit
 	}
+	if r, ok := ambiguousUnit(unit, Dimensionless); ok {
+		return 0, fmt.Errorf("unit %q is ambiguous: %s, or %s; write the unit in full", unit, r[0], r[1])
+	}
 	f, ok := limitScale(key.dim, unit)
 	if !ok {
 		return 0, fmt.Errorf("unit %q does not fit (want %s)", unit, unitOrPlain(key.Unit))

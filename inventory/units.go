@@ -26,7 +26,52 @@ var (
 	// ErrAmbiguousComma: the number is written with one comma before three
 	// digits ("1,000"), which is a thousands separator or a decimal comma.
 	ErrAmbiguousComma = errors.New("ambiguous comma")
+	// ErrAmbiguousUnit: the unit reads two ways ("1M": mega or metres; "mohm":
+	// milliohm or megohm; "1K": kilo or kelvin) and is refused rather than guessed.
+	ErrAmbiguousUnit = errors.New("ambiguous unit")
 )
+
+// ambiguousUnit returns the two readings of a unit that can be read two ways,
+// for a value of dimension want; ok false when the unit is plain. The rules
+// (a screening choice of this tool: a misread resistance can clear a hazard):
+//   - "M" alone: mega with its unit left out, or metres typed in capitals;
+//   - "k" or "K" alone: kilo with its unit left out, or kelvin ("K" in a
+//     temperature value is kelvin, the only reading there);
+//   - "m" before ohm spelled in letters ("mohm", "1 mOhm") or an ohm word in
+//     capitals ("MOHM"): milli by the SI letter case, but megohm is what a
+//     resistance to earth usually is. "mΩ" keeps its SI meaning (with a warning).
+func ambiguousUnit(unit string, want Dimension) (readings [2]string, ok bool) {
+	u := normUnitSpaces(unit)
+	with := func(p string) string {
+		if si := SIUnit(want); si != "" && si != "%" && si != "K" {
+			return "write " + p + si
+		}
+		return "write " + p + " and the unit"
+	}
+	switch {
+	case u == "M":
+		return [2]string{"mega, with its unit left out (" + with("M") + ")", "metres (write m)"}, true
+	case u == "k" || (u == "K" && want != Temperature):
+		return [2]string{"kilo, with its unit left out (" + with("k") + ")", "kelvin (write K only for a temperature)"}, true
+	case len(u) > 3 && (u[0] == 'm' || u == strings.ToUpper(u)) && isOhmWord(u[1:]):
+		return [2]string{"milliohm (write mΩ)", "megohm (write MΩ or Mohm)"}, true
+	}
+	return readings, false
+}
+
+// isOhmWord reports whether s is a base unit of resistance spelled in letters
+// ("ohm", "Ohms", "ohm/sq"), in any letter case.
+func isOhmWord(s string) bool {
+	if !strings.HasPrefix(strings.ToLower(s), "ohm") {
+		return false
+	}
+	for _, nb := range baseUnits() {
+		if strings.EqualFold(nb.name, s) {
+			return true
+		}
+	}
+	return false
+}
 
 // String returns the dimension's name in words ("electric field").
 func (d Dimension) String() string {
@@ -302,6 +347,9 @@ func lookupUnits(symbol string) []Unit {
 // ParseUnit parses a unit symbol and checks it has dimension want. It returns
 // ErrUnknownUnit or ErrWrongDimension (wrapped in a *QuantityError) otherwise.
 func ParseUnit(symbol string, want Dimension) (Unit, error) {
+	if r, ok := ambiguousUnit(symbol, want); ok {
+		return Unit{}, &QuantityError{Text: symbol, Unit: symbol, Want: want, Readings: r, Err: ErrAmbiguousUnit}
+	}
 	us := lookupUnits(symbol)
 	if len(us) == 0 {
 		return Unit{}, &QuantityError{Text: symbol, Unit: symbol, Want: want, Err: ErrUnknownUnit}
@@ -322,7 +370,9 @@ type QuantityError struct {
 	Unit    string    // the unit as written, when the problem is the unit
 	UnitDim Dimension // dimension of that unit (ErrWrongDimension)
 	Want    Dimension // dimension the column needs
-	Err     error
+	// Readings are the two ways an ambiguous unit reads (ErrAmbiguousUnit).
+	Readings [2]string
+	Err      error
 }
 
 // Error describes the problem without the column's name.
@@ -339,6 +389,13 @@ func (e *QuantityError) Describe(column string) string {
 	if column != "" {
 		col = "column " + column
 	}
+	return e.DescribeFor(col)
+}
+
+// DescribeFor words the problem naming what needs the value as given ("the
+// earth change", "--rh's STEP"): `"5 kV" has the dimension of potential but
+// the earth change needs a resistance (Ω)`.
+func (e *QuantityError) DescribeFor(col string) string {
 	want := e.Want.String()
 	if u := SIUnit(e.Want); u != "" {
 		want += " (" + u + ")"
@@ -348,6 +405,9 @@ func (e *QuantityError) Describe(column string) string {
 		return fmt.Sprintf("%q has a unit of %s but %s takes a plain number", e.Text, e.UnitDim, col)
 	case errors.Is(e.Err, ErrWrongDimension):
 		return fmt.Sprintf("%q has the dimension of %s but %s needs a %s", e.Text, e.UnitDim, col, want)
+	case errors.Is(e.Err, ErrAmbiguousUnit):
+		return fmt.Sprintf("%q is ambiguous: %q could be %s, or %s; %s needs a %s, so write its unit in full",
+			e.Text, strings.TrimSpace(e.Unit), e.Readings[0], e.Readings[1], col, want)
 	case errors.Is(e.Err, ErrUnknownUnit):
 		return fmt.Sprintf("%q: unit %q is not known; %s needs a %s", e.Text, e.Unit, col, want)
 	case errors.Is(e.Err, ErrNotFinite):
@@ -445,6 +505,9 @@ func parseQuantity(text, headerUnit string, dim Dimension, t *table, col int) (P
 	var u Unit
 	switch {
 	case unitText != "":
+		if r, ok := ambiguousUnit(unitText, dim); ok {
+			return Parsed{}, &QuantityError{Text: s, Unit: unitText, Want: dim, Readings: r, Err: ErrAmbiguousUnit}
+		}
 		us := lookupUnits(unitText)
 		if len(us) == 0 && isDigit(unitText[0]) {
 			return Parsed{}, qerr(ErrNotANumber) // "1 234": a space inside the number

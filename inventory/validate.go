@@ -251,6 +251,8 @@ func quantityFix(qe *QuantityError, m HeaderMatch, sheet string) string {
 			return fmt.Sprintf("write a unit such as %s, or a bare number in %s", unit, unit)
 		}
 		return "write a bare number"
+	case errors.Is(qe, ErrAmbiguousUnit):
+		return fmt.Sprintf("write the unit in full: %s, or %s", qe.Readings[0], qe.Readings[1])
 	case errors.Is(qe, ErrNotFinite):
 		return "enter the measured value, or leave the cell blank if it was not measured"
 	case errors.Is(qe, ErrUncertainty):

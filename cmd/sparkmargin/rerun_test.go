@@ -73,7 +73,8 @@ func TestWhatifCommand(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	top := wantKeys(t, "whatif", data, "changes", "objects", "stations")
+	top := wantKeys(t, "whatif", data, "survey", "changes", "objects", "stations", "cautions")
+	wantKeys(t, "whatif survey", top["survey"], "site", "survey_date", "file", "sha256")
 	obj := wantKeys(t, "whatif object", firstOf(t, top["objects"]), "id", "station", "before", "after")
 	wantKeys(t, "whatif object before", obj["before"], "verdict", "ratio")
 	wantKeys(t, "whatif object after", obj["after"], "verdict", "ratio")
@@ -177,6 +178,9 @@ func TestRerunExitCodes(t *testing.T) {
 		{"unknown ID", []string{"whatif", survey, "--earth", "BAG-CUU=1e6", "-o", out}, 2, `did you mean "BAG-CU"?`},
 		{"wrong unit", []string{"whatif", survey, "--earth", "BAG-CU=5 kV", "-o", out}, 2, "dimension of potential"},
 		{"bad syntax", []string{"whatif", survey, "--station-rh", "60", "-o", out}, 2, "not TARGET=VALUE"},
+		{"value with a space", []string{"whatif", survey, "--earth", "BAG-CU=5", "kV", "-o", out}, 2, `a change value with a space must be quoted, e.g. --earth "DRM-DRUM=5 kV"`},
+		{"ambiguous unit", []string{"whatif", survey, "--earth", "BAG-CU=1M", "-o", out}, 2, "mega, with its unit left out (write MΩ), or metres (write m)"},
+		{"sweep rh ambiguous", []string{"sweep", survey, "--rh", "10:90:5K"}, 2, "kilo"},
 		{"overwrite survey", []string{"whatif", survey, "--rh", "50", "-o", survey}, 2, "it is the survey itself"},
 		{"unreadable", []string{"whatif", junk, "--rh", "50", "-o", out}, 2, ""},
 		{"sweep bad range", []string{"sweep", survey, "--rh", "90:10:5"}, 2, "FROM must not exceed TO"},
@@ -207,7 +211,9 @@ func TestSweepCommand(t *testing.T) {
 		t.Errorf("terminal table missing:\n%s", out)
 	}
 	data, _ := os.ReadFile(js)
-	top := wantKeys(t, "sweep", data, "steps")
+	top := wantKeys(t, "sweep", data, "survey", "all_stations", "held_stations", "steps", "clearances", "cautions")
+	wantKeys(t, "sweep survey", top["survey"], "site", "survey_date", "file", "sha256")
+	wantKeys(t, "sweep clearance", firstOf(t, top["clearances"]), "id", "clears_at_rh_pct", "cause", "missing_inputs", "readings_holding", "text")
 	var steps []json.RawMessage
 	json.Unmarshal(top["steps"], &steps)
 	if len(steps) != 3 { // 10, 50, 90 (derived from the range)

@@ -17,6 +17,8 @@ type sweepOptions struct {
 	rh     string
 	output string
 	json   string
+	all    bool // also sweep the stations that give their own RH
+	top    int  // stations in the terminal tables
 	args   []string
 }
 
@@ -25,10 +27,11 @@ func newSweepCmd(ws *outfile.Workspace) *cobra.Command {
 	c := &cobra.Command{
 		Use:   "sweep SURVEY.xlsx --rh FROM:TO:STEP [-o FILE.xlsx]",
 		Short: "Assess a survey over a range of relative humidity: counts, worst ratios, where each station clears",
-		Long: "sweep assesses the survey once per RH step, with that RH at the site and at every station, and lists the\n" +
-			"number of incendive and marginal objects and each station's worst ratio per step, then the RH above which\n" +
-			"each station becomes non-incendive (or that humidity alone never gets it there). Only materials whose\n" +
-			"surface resistivity responds to humidity change. The survey file is never modified.\n" +
+		Long: "sweep assesses the survey once per RH step, with that RH as the site's, and lists the number of\n" +
+			"incendive and marginal objects and each station's worst ratio per step, then the RH above which each\n" +
+			"station becomes non-incendive, or why it never does (an input missing, a reading that holds, or humidity\n" +
+			"alone not enough). A station that gives its own RH (a dryer exit at 20 %) keeps it unless --all-stations.\n" +
+			"Only materials whose surface resistivity responds to humidity change. The survey file is never modified.\n" +
 			"Exit status: 0 done, 1 nothing could be assessed, 2 usage or unreadable survey.",
 		Example: "  sparkmargin sweep demo-out/demo-survey.xlsx --rh 10:90:5 -o sweep.xlsx",
 		Args:    cobra.ExactArgs(1),
@@ -39,12 +42,17 @@ func newSweepCmd(ws *outfile.Workspace) *cobra.Command {
 		},
 	}
 	c.Flags().StringVar(&o.rh, "rh", "10:90:5", "RH range in %: FROM:TO:STEP")
+	c.Flags().BoolVar(&o.all, "all-stations", false, "set the swept RH at every station too, overriding a station's own RH")
+	c.Flags().IntVar(&o.top, "top", rerun.DefaultSweepTop, "print the N worst stations (by rank at the lowest RH); 0 prints all, the workbook and JSON hold all")
 	c.Flags().StringVarP(&o.output, "output", "o", "", "workbook to write (table and line charts); none when not given")
 	c.Flags().StringVar(&o.json, "json", "", "also write the steps as JSON to this file (- for standard output, the summary then going to standard error)")
 	return c
 }
 
 func runSweep(out io.Writer, o sweepOptions) error {
+	if o.top < 0 {
+		return withCode(exitUsage, fmt.Errorf("--top takes a count of 1 or more, or 0 for all stations (got %d)", o.top))
+	}
 	steps, err := rerun.ParseRange(o.rh)
 	if err != nil {
 		return withCode(exitUsage, err)
@@ -59,7 +67,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	if len(s.Objects) == 0 {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
 	}
-	sw := rerun.RunSweep(s, steps)
+	sw := rerun.RunSweep(s, steps, rerun.SweepOptions{AllStations: o.all})
 	tmp, err := o.ws.Dir()
 	if err != nil {
 		return withCode(exitUsage, err)
@@ -70,7 +78,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		func(w io.Writer) error { return rerun.WriteSweepJSON(w, sw) }); err != nil {
 		return err
 	}
-	rerun.WriteSweepSummary(out, sw)
+	rerun.WriteSweepSummary(out, sw, o.top)
 	if o.output != "" {
 		fmt.Fprintf(out, "\nSweep workbook: %s\n", o.output)
 	}

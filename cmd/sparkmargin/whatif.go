@@ -34,7 +34,7 @@ type changeFlag struct {
 
 func (f changeFlag) Set(s string) error { *f.list = append(*f.list, flagChange{f.kind, s}); return nil }
 func (f changeFlag) Type() string {
-	if f.kind == rerun.ChangeRH || f.kind == rerun.ChangeMargin {
+	if k, _ := inventory.LookupChangeKind(f.kind); k.Targets == inventory.TargetSite {
 		return "value"
 	}
 	return "ID=value"
@@ -60,11 +60,12 @@ func newWhatifCmd(ws *outfile.Workspace) *cobra.Command {
 			"assesses before and after, and writes a workbook with each object's and station's verdict and ratio\n" +
 			"before and after, what cleared, stayed and appeared, and the changes applied. Changes come from the\n" +
 			"survey's Changes sheet (first) and from the flags (then, in their order).\n" +
-			"Targets: an object ID, or station:ID for every matching row of a station.\n" +
+			"Targets: an object ID, or station:ID for every matching row of a station (a station ID for --station-rh).\n" +
+			"A flag and a Changes sheet row read the same way; quote a value with a space (--earth \"X=5 kV\").\n" +
 			"Exit status: 0 done, 1 nothing could be assessed, 2 usage, unreadable survey or a bad change.",
 		Example: "  sparkmargin whatif demo-out/demo-survey.xlsx --rh 55 --earth PWD-DRU1=1e6 -o whatif.xlsx\n" +
 			"  sparkmargin whatif survey.xlsx --station-rh ST-LAM=65 --material COAT-WEB=PE --json whatif.json -o whatif.xlsx",
-		Args: cobra.ExactArgs(1),
+		Args: whatifArgs,
 		RunE: func(c *cobra.Command, args []string) error {
 			o.survey = args[0]
 			o.args = whatifCommandLine(o)
@@ -78,6 +79,20 @@ func newWhatifCmd(ws *outfile.Workspace) *cobra.Command {
 		c.Flags().Var(changeFlag{kind: k, list: &o.flags}, k, rerun.FlagHelp(k))
 	}
 	return c
+}
+
+// whatifArgs takes the survey alone; a word left over is most often the unit
+// of a change value typed with a space (--earth X=5 kV), so the error says to
+// quote it rather than counting arguments.
+func whatifArgs(c *cobra.Command, args []string) error {
+	switch {
+	case len(args) == 0:
+		return fmt.Errorf("give the survey: sparkmargin whatif SURVEY.xlsx --rh 55 -o whatif.xlsx")
+	case len(args) > 1:
+		return fmt.Errorf("%q follows the survey %q: a change value with a space must be quoted, e.g. --earth \"DRM-DRUM=5 kV\" (or written without the space, DRM-DRUM=5kV); whatif takes one survey",
+			strings.Join(args[1:], " "), args[0])
+	}
+	return nil
 }
 
 func runWhatif(out io.Writer, o whatifOptions) error {

@@ -5,6 +5,7 @@ import (
 	"io"
 	"math"
 
+	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -48,9 +49,30 @@ type jsonWhatifStation struct {
 }
 
 type jsonWhatif struct {
+	Survey   jsonRerunSurvey     `json:"survey"`
 	Changes  []jsonChange        `json:"changes"`
 	Objects  []jsonWhatifObject  `json:"objects"`
 	Stations []jsonWhatifStation `json:"stations"`
+	Cautions []string            `json:"cautions"`
+}
+
+// jsonRerunSurvey is the identity of the survey a whatif or a sweep ran on.
+type jsonRerunSurvey struct {
+	Site       string `json:"site"`
+	SurveyDate string `json:"survey_date"` // YYYY-MM-DD, "" when not given
+	File       string `json:"file"`
+	SHA256     string `json:"sha256"`
+}
+
+func rerunSurvey(s *inventory.Survey) jsonRerunSurvey {
+	if s == nil {
+		return jsonRerunSurvey{}
+	}
+	d := jsonRerunSurvey{Site: s.Site.Name, File: s.Path, SHA256: s.SHA256}
+	if !s.Site.SurveyDate.IsZero() {
+		d.SurveyDate = s.Site.SurveyDate.UTC().Format("2006-01-02")
+	}
+	return d
 }
 
 func finite(p *float64) *float64 {
@@ -67,13 +89,17 @@ func encode(w io.Writer, v any) error {
 	return enc.Encode(v)
 }
 
-// WriteWhatifJSON writes the whatif document: {"changes", "objects": [{"id",
+// WriteWhatifJSON writes the whatif document: {"survey": {"site",
+// "survey_date", "file", "sha256"}, "changes", "objects": [{"id",
 // "station", "before": {"verdict", "ratio"}, "after": {...}}], "stations": [{"id",
 // "before": {"rank", "verdict", "worst_ratio"}, "after": {...}}]}. Each change
 // carries change, target, value (as written), si_value, applied, source, note and
-// the objects it reached.
+// the objects it reached; "cautions" closes the document.
 func WriteWhatifJSON(w io.Writer, x *Whatif) error {
-	d := jsonWhatif{Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}}
+	d := jsonWhatif{Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}, Cautions: templates.Cautions()}
+	if x.Before != nil {
+		d.Survey = rerunSurvey(x.Before.Survey)
+	}
 	for _, a := range x.Applied {
 		si := a.SI
 		objs := a.Objects
@@ -118,20 +144,56 @@ type jsonSweepStep struct {
 	Stations  []jsonSweepStation `json:"stations"`
 }
 
-type jsonSweep struct {
-	Steps []jsonSweepStep `json:"steps"`
+type jsonSweepHeld struct {
+	ID    string  `json:"id"`
+	RHPct float64 `json:"rh_pct"`
 }
 
-// WriteSweepJSON writes the sweep document: {"steps": [{"rh_pct", "incendive",
-// "marginal", "stations": [{"id", "verdict", "worst_ratio"}]}]}.
+type jsonSweepClearance struct {
+	ID string `json:"id"`
+	// ClearsAtRHPct: the lowest RH from which on the station is non-incendive;
+	// null when it never is over the range (or is kept at its own RH).
+	ClearsAtRHPct *float64 `json:"clears_at_rh_pct"`
+	Cause         string   `json:"cause"` // ClearanceCause.Code
+	Missing       []string `json:"missing_inputs"`
+	Readings      []string `json:"readings_holding"`
+	Text          string   `json:"text"`
+}
+
+type jsonSweep struct {
+	Survey      jsonRerunSurvey      `json:"survey"`
+	AllStations bool                 `json:"all_stations"`
+	Held        []jsonSweepHeld      `json:"held_stations"`
+	Steps       []jsonSweepStep      `json:"steps"`
+	Clearances  []jsonSweepClearance `json:"clearances"`
+	Cautions    []string             `json:"cautions"`
+}
+
+// WriteSweepJSON writes the sweep document: {"survey": {"site", "survey_date",
+// "file", "sha256"}, "all_stations", "held_stations": [{"id", "rh_pct"}] (the
+// stations kept at their own RH), "steps": [{"rh_pct", "incendive",
+// "marginal", "stations": [{"id", "verdict", "worst_ratio"}]}], "clearances":
+// [{"id", "clears_at_rh_pct", "cause", "missing_inputs", "readings_holding",
+// "text"}], "cautions"}.
 func WriteSweepJSON(w io.Writer, s *Sweep) error {
-	d := jsonSweep{Steps: []jsonSweepStep{}}
+	d := jsonSweep{Survey: rerunSurvey(s.Survey), AllStations: s.AllStations, Held: []jsonSweepHeld{}, Steps: []jsonSweepStep{},
+		Clearances: []jsonSweepClearance{}, Cautions: templates.Cautions()}
+	for _, h := range s.Held {
+		d.Held = append(d.Held, jsonSweepHeld{h.ID, h.RH})
+	}
 	for _, st := range s.Steps {
 		j := jsonSweepStep{RHPct: st.RH, Incendive: st.Incendive, Marginal: st.Marginal, Stations: []jsonSweepStation{}}
 		for _, x := range st.Stations {
 			j.Stations = append(j.Stations, jsonSweepStation{x.ID, x.Verdict.String(), finite(x.WorstRatio)})
 		}
 		d.Steps = append(d.Steps, j)
+	}
+	for _, c := range s.Clearances {
+		j := jsonSweepClearance{ID: c.ID, Cause: c.Cause.Code(), Missing: nonNil(c.Missing), Readings: nonNil(c.Readings), Text: c.Text}
+		if c.Cause == ClearsAlways || c.Cause == ClearsFrom {
+			j.ClearsAtRHPct = finite(&c.ClearsAt)
+		}
+		d.Clearances = append(d.Clearances, j)
 	}
 	return encode(w, d)
 }

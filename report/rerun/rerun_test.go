@@ -194,7 +194,7 @@ func TestSweepMonotonicOnDemo(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	sw := RunSweep(s, rh)
+	sw := RunSweep(s, rh, SweepOptions{})
 	if len(sw.Steps) != 17 {
 		t.Fatalf("%d steps, want 17 (10, 15, ..., 90)", len(sw.Steps))
 	}
@@ -603,11 +603,11 @@ func TestGoldenOutputs(t *testing.T) {
 	s := goldenSurvey()
 	w := run(t, s, [2]string{"rh", "65"}, [2]string{"earth", "DRUM=1e6"}, [2]string{"material", "PTFE=PE"})
 	rh, _ := ParseRange("20:80:20")
-	sw := RunSweep(s, rh)
+	sw := RunSweep(s, rh, SweepOptions{})
 	outs := map[string]func(*bytes.Buffer) error{
 		"whatif.txt":  func(b *bytes.Buffer) error { return WriteWhatifSummary(b, w) },
 		"whatif.json": func(b *bytes.Buffer) error { return WriteWhatifJSON(b, w) },
-		"sweep.txt":   func(b *bytes.Buffer) error { return WriteSweepSummary(b, sw) },
+		"sweep.txt":   func(b *bytes.Buffer) error { return WriteSweepSummary(b, sw, 0) },
 		"sweep.json":  func(b *bytes.Buffer) error { return WriteSweepJSON(b, sw) },
 	}
 	for name, write := range outs {

@@ -1,12 +1,14 @@
 package rerun
 
 import (
+	"errors"
 	"fmt"
 	"math"
-	"strconv"
+	"sort"
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 )
 
@@ -23,6 +25,49 @@ type SweepStation struct {
 	ID         string
 	Verdict    assess.Verdict
 	WorstRatio *float64
+	Rank       int // the station's rank at this step (1 = worst)
+}
+
+// ClearanceCause says, typed, why a station clears where it does or never does.
+type ClearanceCause int
+
+// Clearance causes.
+const (
+	// ClearsAlways: non-incendive over the whole range.
+	ClearsAlways ClearanceCause = iota
+	// ClearsFrom: non-incendive from ClearsAt on.
+	ClearsFrom
+	// NeverHumidity: still a hazard at the highest step, and the physics (not a
+	// missing input) keeps it there: humidity alone does not clear it.
+	NeverHumidity
+	// NeverMissingInput: not non-incendive at the highest step because an input
+	// the model needs is missing (not assessed) or assumed the stricter case (an
+	// unmeasured resistance to earth): humidity cannot clear what is not known.
+	NeverMissingInput
+	// NeverReading: a reading on a row (a field or potential above its screen)
+	// keeps the hazard: a reading stays as measured whatever the RH.
+	NeverReading
+	// HeldAtOwnRH: the station gives its own RH and was kept at it (not swept).
+	HeldAtOwnRH
+)
+
+// Code is the cause's stable code for the JSON.
+func (c ClearanceCause) Code() string {
+	switch c {
+	case ClearsAlways:
+		return "always"
+	case ClearsFrom:
+		return "clears"
+	case NeverHumidity:
+		return "humidity does not clear"
+	case NeverMissingInput:
+		return "missing input"
+	case NeverReading:
+		return "reading holds"
+	case HeldAtOwnRH:
+		return "own rh kept"
+	}
+	return "unknown"
 }
 
 // StationClearance says from which RH on a station is non-incendive.
@@ -33,33 +78,71 @@ type StationClearance struct {
 	ClearsAt float64
 	// Always: the station is non-incendive over the whole range.
 	Always bool
-	Text   string // the sentence a report shows
+	Cause  ClearanceCause
+	// Missing names the inputs that keep the station from non-incendive at the
+	// highest step ("MIX-DRUM: resistance to earth not measured"), when an
+	// input is the cause (alone or beside the physics).
+	Missing []string
+	// Readings names the rows whose reading holds the hazard.
+	Readings []string
+	Text     string // the sentence a report shows
+}
+
+// HeldStation is a station that gives its own RH and was kept at it.
+type HeldStation struct {
+	ID, Name string
+	RH       float64 // %
+}
+
+// SweepOptions choose how the sweep sets the humidity.
+type SweepOptions struct {
+	// AllStations sets the swept RH at every station too, overriding a
+	// station's own RH (a dryer exit kept at 20 % is then swept with the rest).
+	// By default a station with its own RH keeps it: only the site RH (and so
+	// the stations that give none) is swept.
+	AllStations bool
 }
 
 // Sweep is a survey assessed over a range of relative humidities.
 type Sweep struct {
-	Survey     *inventory.Survey
-	Steps      []SweepStep
-	Clearances []StationClearance // survey station order
+	Survey      *inventory.Survey
+	AllStations bool
+	Held        []HeldStation // stations kept at their own RH, survey order (none with AllStations)
+	Steps       []SweepStep
+	Clearances  []StationClearance // survey station order
 }
 
 // ParseRange reads "FROM:TO:STEP" in %RH (e.g. "10:90:5") into the list of RH
 // values, TO included when the steps land on it; a single number is one step.
+// Each part is read by the survey's cell grammar (inventory.ParseQuantity in
+// %RH: "40 %", "40%RH", a decimal comma "2,5"), as a Site RH cell would be.
 func ParseRange(s string) ([]float64, error) {
-	parts := strings.Split(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(s), "%")), ":")
-	num := func(t string) (float64, error) {
-		v, err := inventory.ParseNumber(strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(t), "%")))
+	parts := strings.Split(strings.TrimSpace(s), ":")
+	num := func(t string, what string) (float64, error) {
+		p, err := inventory.ParseQuantity(t, "%", inventory.Percent)
+		if err != nil || !p.Known {
+			why := fmt.Sprintf("%q is not a number", strings.TrimSpace(t))
+			var qe *inventory.QuantityError
+			if errors.As(err, &qe) {
+				why = qe.DescribeFor("--rh's " + what)
+			}
+			return 0, fmt.Errorf("--rh %q: %s; write FROM:TO:STEP in %%RH, e.g. 10:90:5", s, why)
+		}
+		return p.Value, nil
+	}
+	rh := func(t, what string) (float64, error) {
+		v, err := num(t, what)
 		if err != nil {
-			return 0, fmt.Errorf("--rh %q: %q is not a number; write FROM:TO:STEP in %%RH, e.g. 10:90:5", s, t)
+			return 0, err
 		}
 		if v < 0 || v > 100 {
-			return 0, fmt.Errorf("--rh %q: %s %% is not a relative humidity (0-100)", s, t)
+			return 0, fmt.Errorf("--rh %q: %s %% is not a relative humidity (0-100)", s, strings.TrimSpace(t))
 		}
 		return v, nil
 	}
 	switch len(parts) {
 	case 1:
-		v, err := num(parts[0])
+		v, err := rh(parts[0], "value")
 		if err != nil {
 			return nil, err
 		}
@@ -68,17 +151,20 @@ func ParseRange(s string) ([]float64, error) {
 	default:
 		return nil, fmt.Errorf("--rh %q: write FROM:TO:STEP in %%RH, e.g. 10:90:5", s)
 	}
-	from, err := num(parts[0])
+	from, err := rh(parts[0], "FROM")
 	if err != nil {
 		return nil, err
 	}
-	to, err := num(parts[1])
+	to, err := rh(parts[1], "TO")
 	if err != nil {
 		return nil, err
 	}
-	step, err := strconv.ParseFloat(strings.TrimSpace(parts[2]), 64)
-	if err != nil || !(step > 0) || math.IsInf(step, 0) {
-		return nil, fmt.Errorf("--rh %q: the step %q must be a number above 0", s, parts[2])
+	step, err := num(parts[2], "STEP")
+	if err != nil {
+		return nil, err
+	}
+	if !(step > 0) {
+		return nil, fmt.Errorf("--rh %q: the step %q must be a number above 0", s, strings.TrimSpace(parts[2]))
 	}
 	if to < from {
 		return nil, fmt.Errorf("--rh %q: FROM must not exceed TO", s)
@@ -94,17 +180,21 @@ func ParseRange(s string) ([]float64, error) {
 	return out, nil
 }
 
-// RunSweep assesses s once per RH value, with that RH at the site and at every
-// station (a station's own RH is overridden too: the sweep asks what one
-// humidity everywhere would do). s is not modified.
-func RunSweep(s *inventory.Survey, rh []float64) *Sweep {
-	sw := &Sweep{Survey: s}
-	for _, v := range rh {
-		c := CloneSurvey(s)
-		c.Site.RelativeHumidity = inventory.Known(v)
-		for i := range c.Stations {
-			c.Stations[i].RelativeHumidity = inventory.Known(v)
+// RunSweep assesses s once per RH value set as the site RH. A station that
+// gives its own RH keeps it (listed in Sweep.Held) unless o.AllStations, which
+// sets the value at every station too. s is not modified.
+func RunSweep(s *inventory.Survey, rh []float64, o SweepOptions) *Sweep {
+	sw := &Sweep{Survey: s, AllStations: o.AllStations}
+	if !o.AllStations {
+		for _, st := range s.Stations {
+			if st.RelativeHumidity.Known {
+				sw.Held = append(sw.Held, HeldStation{ID: st.ID, Name: st.Name, RH: st.RelativeHumidity.Value})
+			}
 		}
+	}
+	var last *assess.Audit
+	for _, v := range rh {
+		c := stepSurvey(s, v, o)
 		a := assess.Assess(c, assess.Options{Limits: Limits(c)})
 		step := SweepStep{RH: v, Incendive: a.Counts[assess.Incendive], Marginal: a.Counts[assess.Marginal]}
 		byID := map[string]*assess.StationResult{}
@@ -112,13 +202,57 @@ func RunSweep(s *inventory.Survey, rh []float64) *Sweep {
 			byID[a.Stations[i].Station.ID] = &a.Stations[i]
 		}
 		for _, id := range sweepStationIDs(s, a) {
-			st := byID[id]
-			step.Stations = append(step.Stations, SweepStation{ID: id, Verdict: st.Verdict, WorstRatio: st.WorstRatio})
+			x := SweepStation{ID: id, Verdict: assess.NotAssessed}
+			if st := byID[id]; st != nil {
+				x.Verdict, x.WorstRatio, x.Rank = st.Verdict, st.WorstRatio, st.Rank
+			}
+			step.Stations = append(step.Stations, x)
 		}
 		sw.Steps = append(sw.Steps, step)
+		last = a
 	}
-	sw.Clearances = clearances(s, sw.Steps)
+	sw.Clearances = clearances(s, sw.Steps, last, sw.Held)
 	return sw
+}
+
+// stepSurvey is the copy of s one sweep step assesses: v as the site RH, and
+// at every station too with o.AllStations.
+func stepSurvey(s *inventory.Survey, v float64, o SweepOptions) *inventory.Survey {
+	c := CloneSurvey(s)
+	c.Site.RelativeHumidity = inventory.Known(v)
+	if o.AllStations {
+		for i := range c.Stations {
+			c.Stations[i].RelativeHumidity = inventory.Known(v)
+		}
+	}
+	return c
+}
+
+// Top returns the indexes (into a step's Stations) of the n worst stations by
+// their rank at the lowest RH step, in survey order; every station when n <= 0
+// or n covers them all.
+func (sw *Sweep) Top(n int) []int {
+	if len(sw.Steps) == 0 {
+		return nil
+	}
+	st := sw.Steps[0].Stations
+	idx := make([]int, len(st))
+	for i := range idx {
+		idx[i] = i
+	}
+	if n <= 0 || n >= len(st) {
+		return idx
+	}
+	rank := func(i int) int {
+		if st[i].Rank == 0 {
+			return math.MaxInt
+		}
+		return st[i].Rank
+	}
+	sort.SliceStable(idx, func(a, b int) bool { return rank(idx[a]) < rank(idx[b]) })
+	idx = idx[:n]
+	sort.Ints(idx)
+	return idx
 }
 
 // sweepStationIDs lists the stations in survey order, then any station that only
@@ -139,16 +273,34 @@ func sweepStationIDs(s *inventory.Survey, a *assess.Audit) []string {
 	return ids
 }
 
-func clearances(s *inventory.Survey, steps []SweepStep) []StationClearance {
+func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held []HeldStation) []StationClearance {
 	if len(steps) == 0 {
 		return nil
 	}
+	own := map[string]float64{}
+	for _, h := range held {
+		own[h.ID] = h.RH
+	}
 	var out []StationClearance
-	last := steps[len(steps)-1]
-	for j, st := range last.Stations {
+	lastStep := steps[len(steps)-1]
+	for j, st := range lastStep.Stations {
 		c := StationClearance{ID: st.ID, ClearsAt: math.NaN()}
 		if x, ok := s.Station(st.ID); ok {
 			c.Name = x.Name
+		}
+		if rh, ok := own[st.ID]; ok {
+			c.Cause = HeldAtOwnRH
+			c.Always = st.Verdict == assess.NonIncendive
+			c.Text = fmt.Sprintf("kept at its own %s %% RH (not swept; --all-stations sweeps it too): %s", fmtSig(rh), st.Verdict)
+			if st.WorstRatio != nil {
+				c.Text += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+			}
+			c.Missing, c.Readings, _ = stationCauses(last, st.ID)
+			if st.Verdict != assess.NonIncendive && len(c.Missing) > 0 {
+				c.Text += "; missing: " + byInput(c.Missing)
+			}
+			out = append(out, c)
+			continue
 		}
 		k := len(steps)
 		for k > 0 && steps[k-1].Stations[j].Verdict == assess.NonIncendive {
@@ -156,18 +308,123 @@ func clearances(s *inventory.Survey, steps []SweepStep) []StationClearance {
 		}
 		switch {
 		case k == 0:
-			c.Always, c.ClearsAt = true, steps[0].RH
-			c.Text = fmt.Sprintf("non-incendive over the whole range (%s-%s %% RH)", fmtSig(steps[0].RH), fmtSig(last.RH))
+			c.Always, c.ClearsAt, c.Cause = true, steps[0].RH, ClearsAlways
+			c.Text = fmt.Sprintf("non-incendive over the whole range (%s-%s %% RH)", fmtSig(steps[0].RH), fmtSig(lastStep.RH))
 		case k == len(steps):
-			c.Text = fmt.Sprintf("humidity alone never gets it there: still %s at %s %% RH", st.Verdict, fmtSig(last.RH))
+			c.Missing, c.Readings, c.Cause = stationCauses(last, st.ID)
+			still := fmt.Sprintf("still %s at %s %% RH", st.Verdict, fmtSig(lastStep.RH))
 			if st.WorstRatio != nil {
-				c.Text += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+				still += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+			}
+			switch c.Cause {
+			case NeverMissingInput:
+				c.Text = fmt.Sprintf("never non-incendive over the range because an input is missing, not because of humidity: %s; %s", byInput(c.Missing), still)
+			case NeverReading:
+				c.Text = fmt.Sprintf("a measured reading holds the hazard at every RH (%s): take a new reading at the new RH; %s", firstFew(c.Readings), still)
+				if len(c.Missing) > 0 {
+					c.Text += "; also missing: " + byInput(c.Missing)
+				}
+			default:
+				c.Text = "humidity alone never gets it there: " + still
+				if len(c.Missing) > 0 {
+					c.Text += "; also missing: " + byInput(c.Missing)
+				}
 			}
 		default:
-			c.ClearsAt = steps[k].RH
+			c.ClearsAt, c.Cause = steps[k].RH, ClearsFrom
 			c.Text = fmt.Sprintf("non-incendive from %s %% RH on (still %s at %s %%)", fmtSig(steps[k].RH), steps[k-1].Stations[j].Verdict, fmtSig(steps[k-1].RH))
 		}
 		out = append(out, c)
 	}
 	return out
+}
+
+// stationCauses says what keeps a station from non-incendive in audit a (the
+// highest step): the inputs missing or assumed on its rows, the rows whose
+// reading holds a hazard, and the cause: NeverMissingInput when every row that
+// is not non-incendive is so for a missing or assumed input, NeverReading when
+// the rest are readings, else NeverHumidity.
+func stationCauses(a *assess.Audit, station string) (missing, readings []string, cause ClearanceCause) {
+	cause = NeverHumidity
+	if a == nil {
+		return nil, nil, cause
+	}
+	physics := false
+	for i := range a.Objects {
+		r := &a.Objects[i]
+		if r.Station.ID != station || r.Verdict == assess.NonIncendive {
+			continue
+		}
+		id := r.Object.ID
+		switch {
+		case r.Verdict == assess.NotAssessed && r.Eval.NotAssessed != 0:
+			for _, t := range r.Eval.NotAssessed.Texts() {
+				missing = append(missing, id+": "+t)
+			}
+		case r.Verdict == assess.NotAssessed:
+			missing = append(missing, id+": "+strings.TrimSuffix(r.Reason, "."))
+		case r.RatioAssumed():
+			missing = append(missing, id+": resistance to earth not measured (assumed no leakage, the stricter case)")
+		case r.Eval.Flags&model.FlagHumidityContradiction != 0:
+			readings = append(readings, id)
+		default:
+			physics = true
+			// A hazard the physics shows: inputs missing beside it are named too.
+			if r.Atmosphere != nil && !r.Atmosphere.MIE.Known {
+				missing = append(missing, fmt.Sprintf("%s: the MIE of atmosphere %s is not given", id, r.Atmosphere.ID))
+			}
+			for _, t := range r.Eval.NotAssessed.Texts() {
+				missing = append(missing, id+": "+t)
+			}
+		}
+	}
+	switch {
+	case physics || (len(missing) == 0 && len(readings) == 0):
+		cause = NeverHumidity
+	case len(readings) > 0:
+		cause = NeverReading
+	default:
+		cause = NeverMissingInput
+	}
+	return missing, readings, cause
+}
+
+// byInput words "ID: input" entries grouped by input: "resistance to earth
+// not measured (...) on BAY-1, BAY-2 and 3 more".
+func byInput(items []string) string {
+	var order []string
+	ids := map[string][]string{}
+	for _, it := range items {
+		id, what, ok := strings.Cut(it, ": ")
+		if !ok {
+			id, what = "", it
+		}
+		if _, seen := ids[what]; !seen {
+			order = append(order, what)
+		}
+		ids[what] = append(ids[what], id)
+	}
+	var parts []string
+	for _, what := range order {
+		list := ids[what]
+		shown := list
+		if len(list) > 3 {
+			shown = list[:3]
+		}
+		p := what + " on " + strings.Join(shown, ", ")
+		if len(list) > 3 {
+			p += fmt.Sprintf(" and %d more", len(list)-3)
+		}
+		parts = append(parts, p)
+	}
+	return strings.Join(parts, "; ")
+}
+
+// firstFew joins up to three items and counts the rest ("a; b; c; and 4 more"):
+// the JSON's lists hold them all.
+func firstFew(items []string) string {
+	if len(items) <= 3 {
+		return strings.Join(items, "; ")
+	}
+	return strings.Join(items[:3], "; ") + fmt.Sprintf("; and %d more", len(items)-3)
 }

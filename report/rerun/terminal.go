@@ -5,6 +5,7 @@ import (
 	"io"
 	"strings"
 	"text/tabwriter"
+	"unicode/utf8"
 
 	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
@@ -64,35 +65,85 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	return nil
 }
 
-// WriteSweepSummary writes the compact terminal table of a sweep: one line per
-// RH step with the counts and each station's worst ratio, then the RH from
-// which each station is non-incendive.
-func WriteSweepSummary(w io.Writer, s *Sweep) error {
+// SweepColumnsPerTable is how many station columns one terminal table of a
+// sweep holds: more stations are printed as further tables of the same steps,
+// so no line grows past about 120 characters.
+const SweepColumnsPerTable = 8
+
+// DefaultSweepTop is how many stations the sweep's terminal summary shows by
+// default (the worst by rank at the lowest RH); the workbook and JSON hold all.
+const DefaultSweepTop = 10
+
+// WriteSweepSummary writes the compact terminal tables of a sweep: one line per
+// RH step with the counts and the worst ratio of top stations (the n worst by
+// rank at the lowest RH, every station when top <= 0), SweepColumnsPerTable
+// stations per table, then the RH from which each shown station is
+// non-incendive and the stations kept at their own RH.
+func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	if len(s.Steps) == 0 {
 		return nil
 	}
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	hdr := []string{"RH %", "Incendive", "Marginal"}
-	for _, st := range s.Steps[0].Stations {
-		hdr = append(hdr, st.ID)
-	}
-	fmt.Fprintln(tw, strings.Join(hdr, "\t")+"\t")
-	for _, st := range s.Steps {
-		row := []string{fmtSig(st.RH), fmt.Sprint(st.Incendive), fmt.Sprint(st.Marginal)}
-		for _, x := range st.Stations {
-			row = append(row, book.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
+	shown := s.Top(top)
+	for start := 0; start < len(shown) || start == 0; start += SweepColumnsPerTable {
+		block := shown[start:min(start+SweepColumnsPerTable, len(shown))]
+		if start > 0 {
+			fmt.Fprintln(w)
 		}
-		fmt.Fprintln(tw, strings.Join(row, "\t")+"\t")
+		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+		hdr := []string{"RH %", "Incendive", "Marginal"}
+		for _, j := range block {
+			hdr = append(hdr, s.Steps[0].Stations[j].ID)
+		}
+		fmt.Fprintln(tw, strings.Join(hdr, "\t")+"\t")
+		for _, st := range s.Steps {
+			row := []string{fmtSig(st.RH), fmt.Sprint(st.Incendive), fmt.Sprint(st.Marginal)}
+			for _, j := range block {
+				x := st.Stations[j]
+				row = append(row, book.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
+			}
+			fmt.Fprintln(tw, strings.Join(row, "\t")+"\t")
+		}
+		tw.Flush()
+		if len(shown) == 0 {
+			break
+		}
 	}
-	tw.Flush()
-	fmt.Fprintln(w, "Station cells: worst ratio E/MIE; ! incendive, ~ marginal, blank non-incendive.")
+	fmt.Fprintln(w, "Station cells: worst ratio E/MIE; ! incendive, ~ marginal, ? not assessed, blank non-incendive.")
 	fmt.Fprintln(w)
-	for _, c := range s.Clearances {
-		fmt.Fprintf(w, "  %-8s %s\n", c.ID, c.Text)
+	for _, j := range shown {
+		c := s.Clearances[j]
+		fmt.Fprint(w, wrapText(fmt.Sprintf("  %-8s ", c.ID), c.Text, terminalWidth, strings.Repeat(" ", 11)))
 	}
-	fmt.Fprintln(w, MeasuredReadingsNote)
+	if more := len(s.Clearances) - len(shown); more > 0 {
+		fmt.Fprint(w, wrapText("  ", fmt.Sprintf("... and %d more station(s): the %d worst by rank at %s %% RH are shown; the workbook and JSON hold every one (--top 0 prints all)",
+			more, len(shown), fmtSig(s.Steps[0].RH)), terminalWidth, "      "))
+	}
+	fmt.Fprint(w, wrapText("", sweepHeldText(s, DefaultSweepTop), terminalWidth, "  "))
+	fmt.Fprint(w, wrapText("", MeasuredReadingsNote, terminalWidth, ""))
 	caution(w)
 	return nil
+}
+
+// sweepHeldText says how the sweep set the stations' RH: which stations kept
+// their own, or that every station was swept.
+// At most limit stations are named (all when limit <= 0).
+func sweepHeldText(s *Sweep, limit int) string {
+	if s.AllStations {
+		return "Every station was set to the swept RH, its own RH overridden (--all-stations)."
+	}
+	if len(s.Held) == 0 {
+		return "The swept RH is the site's; no station gives an RH of its own, so every station follows it."
+	}
+	var parts []string
+	for i, h := range s.Held {
+		if limit > 0 && i == limit {
+			parts = append(parts, fmt.Sprintf("and %d more (see the Stations sheet or the JSON)", len(s.Held)-limit))
+			break
+		}
+		parts = append(parts, fmt.Sprintf("%s %s%%", h.ID, fmtSig(h.RH)))
+	}
+	return fmt.Sprintf("The swept RH is the site's; %d station(s) give their own RH and were kept at it (--all-stations sweeps them too): %s.",
+		len(s.Held), strings.Join(parts, ", "))
 }
 
 func verdictMark(v string) string {
@@ -192,4 +243,30 @@ func dash(s string) string {
 		return "–"
 	}
 	return s
+}
+
+// terminalWidth is the width the sweep's prose lines are wrapped to.
+const terminalWidth = 110
+
+// wrapText writes prefix (kept as it is) and then s broken at spaces into
+// lines of at most width characters (a word longer than that stays whole), the
+// lines after the first starting with indent; the result ends with a newline.
+func wrapText(prefix, s string, width int, indent string) string {
+	var b strings.Builder
+	b.WriteString(prefix)
+	line := utf8.RuneCountInString(prefix)
+	for i, word := range strings.Fields(s) {
+		n := utf8.RuneCountInString(word)
+		if i > 0 && line+1+n > width {
+			b.WriteString("\n" + indent)
+			line = utf8.RuneCountInString(indent)
+		} else if i > 0 {
+			b.WriteByte(' ')
+			line++
+		}
+		b.WriteString(word)
+		line += n
+	}
+	b.WriteByte('\n')
+	return b.String()
 }

@@ -79,7 +79,7 @@ func TestWhatifWorkbookSheetsAreTheAudits(t *testing.T) {
 	}
 	end := start + slices.IndexFunc(method[start:], func(r []string) bool { return len(r) == 0 })
 	notes := method[start+1 : end]
-	if len(notes) != len(rerunNotes()) || notes[0][0] != rerunNotes()[0][0] {
+	if len(notes) != len(whatifNotes()) || notes[0][0] != whatifNotes()[0][0] || notes[len(notes)-1][0] != "Change kinds" {
 		t.Errorf("rerun notes %q", notes)
 	}
 	rest := append(slices.Clone(method[:start]), method[end+1:]...)

@@ -37,6 +37,12 @@ func rerunNotes() [][2]string {
 	}
 }
 
+// whatifNotes are the whatif Method sheet's notes: the rerun notes and the
+// change kinds, from the change table.
+func whatifNotes() [][2]string {
+	return append(rerunNotes(), [2]string{"Change kinds", KindsNote()})
+}
+
 // WriteWhatifWorkbook writes the whatif workbook: Summary (counts before and
 // after, counts moved, a chart), Objects and Stations before/after, Changes
 // applied, Method, Cautions and Rejected.
@@ -142,17 +148,29 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		[]float64{4, 11, 16, 14, 14, 12, 50, 30, 30}, rows)
 	b.PrintSetup(SheetChanges, "$1:$1")
 
-	b.AddMethodSheet(audit.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: rerunNotes()})
+	b.AddMethodSheet(audit.MethodNotes{Title: "How this what-if works (the formulas, limits and defaults below are those of the run after the changes)", Notes: whatifNotes()})
 	b.AddCautionsSheet()
 	b.AddRejectedSheet(s)
 	return b.write(w)
 }
 
+// SweepWideStations is how many stations the Sweep sheet gives columns (and
+// chart lines) to: the worst by rank at the lowest RH. With more stations, every
+// station's steps are on the SheetSweepLong sheet, one row per station and step,
+// so no sheet grows to hundreds of columns.
+const SweepWideStations = 10
+
+// SheetSweepLong is the sweep workbook's sheet of every station at every step,
+// written when the survey has more than SweepWideStations stations.
+const SheetSweepLong = "Sweep by station"
+
 // WriteSweepWorkbook writes the sweep workbook: the Sweep table (one row per RH
-// step: counts and each station's worst ratio and verdict) with a line chart of
-// the counts and one of the worst ratios, the Stations sheet (the RH from which
-// each is non-incendive), and the audit's Method (with the sweep's notes)
-// and Cautions sheets.
+// step: counts and the worst ratio and verdict of up to SweepWideStations
+// stations) with a line chart of the counts and one of the worst ratios, the
+// Sweep by station sheet (every station at every step, when there are more),
+// the Stations sheet (the RH from which each is non-incendive, or what keeps
+// it from it, and the RH kept at a station that gives its own), and the
+// audit's Method (with the sweep's notes), Cautions and Rejected sheets.
 func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	if sw == nil || len(sw.Steps) == 0 || sw.Survey == nil {
 		return errors.New("sweep workbook: no steps or no survey")
@@ -160,16 +178,20 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	// The Method sheet is the audit of the survey as it is; the sweep replaces only the RH.
 	base := assess.Assess(sw.Survey, assess.Options{Limits: Limits(sw.Survey)})
 	b := newBook(base, info, SheetSweep, "Humidity sweep of the screening audit")
+	wide := sw.Top(SweepWideStations)
+	all := len(sw.Steps[0].Stations)
 	headers := []string{"RH [%]", "Incendive objects", "Marginal objects"}
 	widths := []float64{8, 11, 11}
-	for _, st := range sw.Steps[0].Stations {
-		headers = append(headers, st.ID+" worst ratio [–]", st.ID+" verdict")
+	for _, j := range wide {
+		id := sw.Steps[0].Stations[j].ID
+		headers = append(headers, id+" worst ratio [–]", id+" verdict")
 		widths = append(widths, 11, 12)
 	}
 	var rows [][]audit.Cell
 	for _, st := range sw.Steps {
 		row := []audit.Cell{audit.QuantityCell(book.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
-		for _, x := range st.Stations {
+		for _, j := range wide {
+			x := st.Stations[j]
 			row = append(row, audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
 		}
 		rows = append(rows, row)
@@ -183,7 +205,15 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		return excelize.ChartSeries{Name: fmt.Sprintf("%s!$%s$1", sh, c), Categories: cat, Values: fmt.Sprintf("%s!$%s$2:$%s$%d", sh, c, c, n),
 			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}, Line: excelize.LineOptions{Width: 2, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}, Marker: excelize.ChartMarker{Symbol: "circle", Size: 5, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}}
 	}
-	anchor := fmt.Sprintf("A%d", n+3)
+	chartRow := n + 3
+	if len(wide) < all {
+		b.Put(SheetSweep, 1, n+2, wr(fmt.Sprintf("The columns show the %d worst of %d stations (by rank at %s %% RH); every station at every step is on the %q sheet, and what each does on the Stations sheet.",
+			len(wide), all, fmtSig(sw.Steps[0].RH), SheetSweepLong)))
+		b.check(b.f.MergeCell(SheetSweep, fmt.Sprintf("A%d", n+2), fmt.Sprintf("L%d", n+2)))
+		b.check(b.f.SetRowHeight(SheetSweep, n+2, 30))
+		chartRow = n + 4
+	}
+	anchor := fmt.Sprintf("A%d", chartRow)
 	b.check(b.f.AddChart(SheetSweep, anchor, &excelize.Chart{
 		Type:      excelize.Line,
 		Series:    []excelize.ChartSeries{line(2, "C8102E"), line(3, "B08D00")},
@@ -196,20 +226,19 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	// Worst ratio per station: log axis, so only stations with a ratio above 0 somewhere.
 	palette := []string{"1F4E79", "C55A11", "548235", "7030A0", "BF9000", "2E75B6", "843C0C", "375623", "404040", "FF0000"}
 	var ser []excelize.ChartSeries
-	for j, st := range sw.Steps[0].Stations {
+	for k, j := range wide {
 		pos := false
 		for _, step := range sw.Steps {
 			if r := step.Stations[j].WorstRatio; r != nil && *r > 0 {
 				pos = true
 			}
 		}
-		_ = st
 		if pos {
-			ser = append(ser, line(4+2*j, palette[len(ser)%len(palette)]))
+			ser = append(ser, line(4+2*k, palette[len(ser)%len(palette)]))
 		}
 	}
 	if len(ser) > 0 {
-		b.check(b.f.AddChart(SheetSweep, fmt.Sprintf("H%d", n+3), &excelize.Chart{
+		b.check(b.f.AddChart(SheetSweep, fmt.Sprintf("H%d", chartRow), &excelize.Chart{
 			Type:         excelize.Line,
 			Series:       ser,
 			Dimension:    excelize.ChartDimension{Width: 720, Height: 320},
@@ -222,26 +251,52 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	}
 	b.PrintSetup(SheetSweep, "$1:$1")
 
-	rows = nil
-	for _, c := range sw.Clearances {
-		clears := audit.QuantityCell(book.UnitPercentRH, c.ClearsAt)
-		first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
-		var fv, lv string
-		for j := range first.Stations {
-			if first.Stations[j].ID == c.ID {
-				fv, lv = first.Stations[j].Verdict.String(), last.Stations[j].Verdict.String()
+	if len(wide) < all {
+		// Every station at every step, one row each: four columns however many stations.
+		rows = nil
+		for j := range sw.Steps[0].Stations {
+			for _, st := range sw.Steps {
+				x := st.Stations[j]
+				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String())})
 			}
 		}
-		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), vd(fv), vd(lv), clears, wr(c.Text)})
+		b.Table(SheetSweepLong, 1, []string{"Station", "RH [%]", "Worst ratio [–]", "Verdict"}, []float64{12, 8, 12, 14}, rows)
+		b.PrintSetup(SheetSweepLong, "$1:$1")
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[0].RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(sw.Steps[len(sw.Steps)-1].RH)), "Non-incendive from RH [%]", "What humidity does"},
-		[]float64{10, 28, 14, 14, 14, 60}, rows)
+
+	held := map[string]float64{}
+	for _, h := range sw.Held {
+		held[h.ID] = h.RH
+	}
+	rows = nil
+	first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
+	for j, c := range sw.Clearances {
+		clears := audit.EmptyCell()
+		if c.Cause == ClearsAlways || c.Cause == ClearsFrom {
+			clears = audit.QuantityCell(book.UnitPercentRH, c.ClearsAt)
+		}
+		own := audit.EmptyCell()
+		if rh, ok := held[c.ID]; ok {
+			own = audit.QuantityCell(book.UnitPercentRH, rh)
+		}
+		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
+	}
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Own RH kept [%]", fmt.Sprintf("Verdict at %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
+		[]float64{10, 28, 10, 14, 14, 14, 60}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
-	notes := append(rerunNotes()[2:3], [2]string{"Sweep", "At each step the same RH is set at the site and at every station (a station's own RH is overridden) and the survey is assessed again with the same limits. A station becomes non-incendive at the lowest step from which every higher step is non-incendive; when the highest step is still incendive or marginal, humidity alone never gets it there. Steps are only as fine as the range given."})
+	notes := append(rerunNotes()[2:3], [2]string{"Sweep", sweepMethodText(sw)})
 	b.AddMethodSheet(audit.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
 	b.AddCautionsSheet()
 	b.AddRejectedSheet(sw.Survey)
 	return b.write(w)
+}
+
+// sweepMethodText is the Method sheet's note on how the sweep set the RH and
+// what its clearances mean.
+func sweepMethodText(sw *Sweep) string {
+	return "At each step the swept RH is set as the site RH and the survey is assessed again with the same limits. " +
+		sweepHeldText(sw, 0) + " " +
+		"A station becomes non-incendive at the lowest step from which every higher step is non-incendive. When the highest step is still incendive, marginal or not assessed, the Stations sheet says why: an input missing or assumed the stricter case (an unmeasured resistance to earth, a missing MIE or dimension) is named as the cause, since humidity cannot clear what is not known; a reading above its screen holds at every RH; otherwise humidity alone never gets it there. Steps are only as fine as the range given."
 }
 
 // SheetSettings is the compare workbook's sheet of Site and station settings changed.
