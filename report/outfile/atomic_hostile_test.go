@@ -146,6 +146,10 @@ func TestWriteAtomicReadOnlyFolderAsRoot(t *testing.T) {
 // killHelperEnv names the target the helper process writes slowly.
 const killHelperEnv = "SPARKMARGIN_ATOMIC_KILL_TARGET"
 
+// killHelperHold makes the helper hold its write open until its standard
+// input closes (TestConcurrentRunKeepsOtherRunsTemp).
+const killHelperHold = "SPARKMARGIN_ATOMIC_KILL_HOLD"
+
 // TestAtomicKillHelper is not a test: run as a child process with
 // killHelperEnv set, it writes a workbook slowly to the target through
 // WriteAtomic, so that its parent can kill it at any moment.
@@ -155,7 +159,16 @@ func TestAtomicKillHelper(t *testing.T) {
 		t.Skip("helper process only")
 	}
 	data := workbookBytes(t, "new", 200)
-	fmt.Println("writing")
+	// With killHelperHold set, the helper says "writing" only once its
+	// temporary file exists and then waits for its standard input to close
+	// before it writes the rest: the parent acts while the write is live,
+	// however slow the machine (a busy machine once let the whole write finish
+	// before the parent looked).
+	hold := os.Getenv(killHelperHold) != ""
+	if !hold {
+		fmt.Println("writing")
+	}
+	first := true
 	err := WriteAtomic(target, func(w io.Writer) error {
 		for len(data) > 0 {
 			n := min(len(data), 256)
@@ -163,6 +176,11 @@ func TestAtomicKillHelper(t *testing.T) {
 				return err
 			}
 			data = data[n:]
+			if first && hold {
+				first = false
+				fmt.Println("writing")
+				_, _ = io.Copy(io.Discard, os.Stdin)
+			}
 			time.Sleep(2 * time.Millisecond)
 		}
 		return nil
@@ -238,8 +256,12 @@ func TestConcurrentRunKeepsOtherRunsTemp(t *testing.T) {
 	dir := t.TempDir()
 	p := filepath.Join(dir, "audit.xlsx")
 	cmd := exec.Command(os.Args[0], "-test.run=^TestAtomicKillHelper$", "-test.count=1")
-	cmd.Env = append(os.Environ(), killHelperEnv+"="+p)
+	cmd.Env = append(os.Environ(), killHelperEnv+"="+p, killHelperHold+"=1")
 	out, err := cmd.StdoutPipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	release, err := cmd.StdinPipe()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -264,6 +286,7 @@ func TestConcurrentRunKeepsOtherRunsTemp(t *testing.T) {
 	}
 	// Had its temporary file been removed, the other process's rename would
 	// fail ("no such file"); whichever rename came last, the target is whole.
+	_ = release.Close() // the other process writes the rest and renames
 	_, _ = io.Copy(io.Discard, out)
 	if err := cmd.Wait(); err != nil {
 		t.Fatalf("the other process's write failed: %v\n%s", err, childErr.String())
