@@ -371,12 +371,12 @@ func (wb *workbook) method() error {
 	}
 	r++
 
-	if err := section("Defaults applied", []string{"Quantity", "Value", "", "", "Why and from where"}); err != nil {
+	if err := section("Defaults applied", []string{"Quantity", "Value", "Provenance", "", "Why and from where"}); err != nil {
 		return err
 	}
 	nd := 0
 	for _, d := range a.MethodDefaults {
-		if err := put(book.WrapText(d.Field), book.WrapText(d.Value), book.Cell{}, book.Cell{}, book.WrapText(d.Reason)); err != nil {
+		if err := put(book.WrapText(d.Label), book.WrapText(d.Value), book.Text(d.Prov.String()), book.Cell{}, book.WrapText(d.Reason)); err != nil {
 			return err
 		}
 		nd++
@@ -385,7 +385,7 @@ func (wb *workbook) method() error {
 	for _, d := range site.Defaults {
 		listed := false
 		for _, m := range a.MethodDefaults {
-			if d.Item == m.Field {
+			if d.Item == m.Label {
 				listed = true
 			}
 		}
@@ -401,6 +401,24 @@ func (wb *workbook) method() error {
 		if err := put(book.Text("none: every value was measured or given")); err != nil {
 			return err
 		}
+	}
+	r++
+
+	// The legend of the provenance marks beside values (assess.ProvenanceLegend).
+	if err := section("Provenance of values", []string{"Mark", "Provenance", "", "", "Meaning"}); err != nil {
+		return err
+	}
+	for _, l := range assess.ProvenanceLegend {
+		mark := l.Prov.Mark()
+		if mark == "" {
+			mark = "(none)"
+		}
+		if err := put(book.Code(mark), book.Text(l.Prov.String()), book.Cell{}, book.Cell{}, book.WrapText(l.Text)); err != nil {
+			return err
+		}
+	}
+	if err := put(book.Cell{}, book.Cell{}, book.Cell{}, book.Cell{}, book.WrapText("A computed value (energy, potential, charging current, capacitance) is marked est. when it rests on an estimated input; otherwise it carries no mark.")); err != nil {
+		return err
 	}
 	r++
 

@@ -14,6 +14,9 @@ import (
 // summaryWidths are the Summary column widths: A labels, A-J the ranked stations table.
 func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10, 11, 10} }
 
+// summaryMainWidth is the width of the station table's Main reason column (K).
+const summaryMainWidth = 40
+
 // summaryNoteWidth is the width of the station table's Note column (K), present
 // only when a station is incomplete.
 const summaryNoteWidth = 24
@@ -29,7 +32,7 @@ func (wb *workbook) summary() error {
 	for i := range a.Stations {
 		incomplete = incomplete || a.Stations[i].IncompleteText() != ""
 	}
-	widths := summaryWidths()
+	widths := append(summaryWidths(), summaryMainWidth)
 	if incomplete {
 		widths = append(widths, summaryNoteWidth)
 	}
@@ -71,8 +74,8 @@ func (wb *workbook) summary() error {
 		{book.Text("Survey date"), book.Text(dateText(a))},
 		{book.Text("Surveyed by"), book.OptText(site.SurveyedBy)},
 		{book.Text(book.UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
-		{book.Text(book.UnitCelsius.Header("Air temperature")), est(inQ(book.UnitCelsius, site.AirTemperature), site.Defaulted(inventory.SiteItemAirTemperature))},
-		{book.Text(book.UnitDimless.Header("Required margin")), est(inQ(book.UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))},
+		{book.Text(book.UnitCelsius.Header("Air temperature")), marked(inQ(book.UnitCelsius, site.AirTemperature), siteProv(site, assess.ItemAirTemperature))},
+		{book.Text(book.UnitDimless.Header("Required margin")), marked(inQ(book.UnitDimless, site.RequiredMargin), siteProv(site, assess.ItemRequiredMargin))},
 		{book.Text("Survey file"), book.OptText(wb.info.file(a))},
 		{book.Text("Survey SHA-256"), book.OptText(wb.info.sha(a))},
 		{book.Text("Tool"), book.Text(wb.info.tool() + " " + wb.info.ToolVersion)},
@@ -85,6 +88,11 @@ func (wb *workbook) summary() error {
 		}
 		r++
 	}
+	// The legend of the marks beside values, once, for every sheet.
+	if err := wb.mergedNote(s, r, assess.LegendText); err != nil {
+		return err
+	}
+	r++
 
 	// Counts by verdict.
 	r++
@@ -143,7 +151,7 @@ func (wb *workbook) summary() error {
 	}
 	r++
 	header := []string{"Station", "Rank", "Name", "Verdict", book.UnitRatio.Header("Worst ratio E/MIE"),
-		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}
+		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]", "Main reason"}
 	if incomplete {
 		header = append(header, "Note")
 	}
@@ -156,17 +164,14 @@ func (wb *workbook) summary() error {
 	r++
 	for i := range a.Stations {
 		st := &a.Stations[i]
-		ratio := ratioCell(book.FinitePtr(st.WorstRatio))
-		if st.WorstRatioAssumed {
-			ratio = book.Text(assess.RatioAssumedText) // an artefact of an assumed resistance
-		}
+		main := book.WrapText(st.Main.String())
 		cells := []book.Cell{
 			book.BoldText(st.Station.ID), book.Integer(st.Rank), book.WrapText(st.Station.Name), verdictCell(st.Verdict),
-			ratio, book.Integer(len(st.Objects)),
+			stationRatioCell(st), book.Integer(len(st.Objects)),
 			book.Integer(st.Counts[assess.Incendive]), book.Integer(st.Counts[assess.Marginal]),
-			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]),
+			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]), main,
 		}
-		sized := []book.Cell{{}, {}, book.WrapText(st.Station.Name)}
+		sized := []book.Cell{{}, {}, book.WrapText(st.Station.Name), {}, {}, {}, {}, {}, {}, {}, main}
 		if incomplete {
 			note := book.WrapText(st.IncompleteText())
 			cells = append(cells, note)
@@ -196,7 +201,8 @@ func (wb *workbook) summary() error {
 		}
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
 		if err := sink.Row(r, []book.Cell{book.WrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
-			"A station whose worst ratio is 0 (no discharge possible) has no bar; stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
+			"Every station with a verdict is listed with it; a station whose ratio is \"no discharge\" (no discharge possible) or \"n/a\" (no flammable atmosphere: judged on shock and earthing alone; or not assessed) has no bar; " +
+			"\">= 1 (assumed R)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth is assumed, its size is no figure. A ratio below the axis is drawn at its bottom.")}, 0); err != nil {
 			return err
 		}
 		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
@@ -263,9 +269,9 @@ func (wb *workbook) chart(at string, rows int) error {
 	return wb.f.AddChart(SheetSummary, at, &excelize.Chart{
 		Type: excelize.Bar,
 		Series: []excelize.ChartSeries{{
-			Name:       sheet + "!$" + stationsRatioCol + "$1",
-			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsIDCol, stationsIDCol, n),
-			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsRatioCol, stationsRatioCol, n),
+			Name:       sheet + "!$" + wb.chartValueCol + "$1",
+			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, wb.chartLabelCol, wb.chartLabelCol, n),
+			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, wb.chartValueCol, wb.chartValueCol, n),
 			// One neutral colour: excelize colours single bars only in pie
 			// charts, and the verdict colours stay on the table above.
 			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"4D4D4D"}},
@@ -304,14 +310,83 @@ func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 	return math.Max(lo, 1e-4), hi
 }
 
-// siteHumidityCell shows the site's relative humidity, or, when the Site sheet
-// gives none (an error that check reports), the value the assessment used for
-// stations without their own, marked as estimated.
+// siteHumidityCell shows the site's relative humidity (entered), or, when the
+// Site sheet gives none (an error that check reports), the value the
+// assessment used for stations without their own, marked as estimated.
 func siteHumidityCell(site inventory.Site) book.Cell {
 	if !site.RelativeHumidity.Known {
 		return est(book.Quantity(book.UnitPercentRH, assess.DryDayHumidity), true)
 	}
-	return est(inQ(book.UnitPercentRH, site.RelativeHumidity), false)
+	return marked(inQ(book.UnitPercentRH, site.RelativeHumidity), assess.ProvEntered)
+}
+
+// siteValue is a Site sheet value the audit shows with its provenance.
+type siteValue struct {
+	item assess.Item
+	prov assess.Provenance
+}
+
+// siteValues gives the provenance of the site's own values: the relative
+// humidity entered (estimated: the dry-day value, when none is given), the
+// air temperature entered or defaulted, and the required margin an override
+// of the tool's default 10 when given, the default otherwise.
+func siteValues(site inventory.Site) []siteValue {
+	rh := assess.ProvEntered
+	if !site.RelativeHumidity.Known {
+		rh = assess.ProvEstimated
+	}
+	t := assess.ProvEntered
+	if !(site.AirTemperature.Known && site.AirTemperature.Value > 0) || site.Defaulted(inventory.SiteItemAirTemperature) {
+		t = assess.ProvEstimated
+	}
+	m := assess.ProvOverride
+	if !(site.RequiredMargin.Known && site.RequiredMargin.Value > 0) || site.Defaulted(inventory.SiteItemRequiredMargin) {
+		m = assess.ProvEstimated
+	}
+	return []siteValue{{assess.ItemRelativeHumidity, rh}, {assess.ItemAirTemperature, t}, {assess.ItemRequiredMargin, m}}
+}
+
+// siteProv is the provenance of one site value (siteValues).
+func siteProv(site inventory.Site, it assess.Item) assess.Provenance {
+	for _, v := range siteValues(site) {
+		if v.item == it {
+			return v.prov
+		}
+	}
+	return assess.ProvNone
+}
+
+// stationRatioText is the text shown for a station's worst ratio where it is
+// no number to read: ">= 1 (assumed R)", "n/a", "no discharge"; "" otherwise.
+func stationRatioText(st *assess.StationResult) string {
+	if st.WorstRatioAssumed {
+		return assess.RatioAssumedText
+	}
+	return assess.RatioText(book.FinitePtr(st.WorstRatio))
+}
+
+// stationRatioCell is the worst ratio of a station as the Summary, Stations
+// sheet and terminal show it: the number, or why there is none.
+func stationRatioCell(st *assess.StationResult) book.Cell {
+	if t := stationRatioText(st); t != "" {
+		return book.Code(t)
+	}
+	return ratioCell(book.FinitePtr(st.WorstRatio))
+}
+
+// mergedNote writes a wrapped note across A:J of row r of sheet s.
+func (wb *workbook) mergedNote(s string, r int, text string) error {
+	ref := fmt.Sprintf("A%d", r)
+	if err := wb.f.SetCellValue(s, ref, text); err != nil {
+		return err
+	}
+	if err := wb.f.MergeCell(s, ref, fmt.Sprintf("J%d", r)); err != nil {
+		return err
+	}
+	if err := wb.f.SetCellStyle(s, ref, ref, wb.st.Of(book.WrapText(""))); err != nil {
+		return err
+	}
+	return wb.f.SetRowHeight(s, r, wrappedHeight(text, sum(summaryWidths())))
 }
 
 // cautionBox writes the cautions line in a caution box across A2:J2 of sheet s,

@@ -6,7 +6,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
-	"github.com/sparkmargin/sparkmargin/report/book"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -33,9 +33,9 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	for _, s := range x.Stations {
 		b := [3]string{"–", "–", "–"}
 		if s.Before != nil {
-			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), book.FormatRatio(s.Before.WorstRatio)}
+			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), audit.FormatRatio(s.Before.WorstRatio)}
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s\n", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, book.FormatRatio(s.After.WorstRatio), s.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s\n", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, audit.FormatRatio(s.After.WorstRatio), s.Outcome)
 	}
 	tw.Flush()
 	fmt.Fprintln(w)
@@ -47,7 +47,7 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 			continue
 		}
 		moved++
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, book.FormatRatio(o.Before.Ratio), o.After.Verdict, book.FormatRatio(o.After.Ratio), o.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, audit.FormatRatio(o.Before.Ratio), o.After.Verdict, audit.FormatRatio(o.After.Ratio), o.Outcome)
 	}
 	if moved == 0 {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
@@ -80,7 +80,7 @@ func WriteSweepSummary(w io.Writer, s *Sweep) error {
 	for _, st := range s.Steps {
 		row := []string{fmtSig(st.RH), fmt.Sprint(st.Incendive), fmt.Sprint(st.Marginal)}
 		for _, x := range st.Stations {
-			row = append(row, book.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
+			row = append(row, audit.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
 		}
 		fmt.Fprintln(tw, strings.Join(row, "\t")+"\t")
 	}
