@@ -93,6 +93,9 @@ type Probability struct {
 	EnergyP05    float64 // J
 	EnergyP50    float64 // J
 	EnergyP95    float64 // J
+	// Driver is, for a borderline object (Borderline), the drawn input that
+	// drives its outcome most (drivers.go); the zero Driver otherwise.
+	Driver Driver
 }
 
 // StationResult is one station's ranked result.
