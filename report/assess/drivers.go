@@ -223,7 +223,6 @@ func ranks(x, r []float64, idx []int) ([]float64, []int) {
 	return r, idx
 }
 
-
 // pearson returns the correlation coefficient of a and b; NaN when either is constant.
 func pearson(a, b []float64) float64 {
 	n := float64(len(a))

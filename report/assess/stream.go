@@ -188,6 +188,9 @@ func (st *Streamer) aggregate(o *ObjectResult) {
 		st.none[id] *= 1 - p.Incendive
 	}
 	a.MethodDefaults = mergeDefaults(a.MethodDefaults, o.Marks)
+	if o.Borderline() {
+		a.Borderline = append(a.Borderline, BorderlineObject{o.Object.ID, o.Object.Station, o.Verdict, *o.Probability, o.MeasureText()})
+	}
 	st.seen++
 }
 

@@ -224,4 +224,16 @@ type Audit struct {
 	// MethodDefaults lists, once each, every value the tool chose (estimated,
 	// library, override: Provenance.IsDefault) across objects, with its reason.
 	MethodDefaults []Mark
+	// Borderline lists the borderline objects (ObjectResult.Borderline) in
+	// survey order, with what to measure next; filled only when sampling.
+	Borderline []BorderlineObject
+}
+
+// BorderlineObject is one borderline object as the Summary lists it.
+type BorderlineObject struct {
+	ObjectID    string
+	StationID   string
+	Verdict     Verdict
+	Probability Probability
+	Measure     string // ObjectResult.MeasureText
 }

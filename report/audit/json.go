@@ -163,6 +163,19 @@ type jsonProbability struct {
 	Marginal     float64 `json:"marginal"`
 	NonIncendive float64 `json:"non-incendive"`
 	NotAssessed  float64 `json:"not assessed"`
+	// Borderline: the point verdict differs from the most likely sampled one,
+	// or the more severe verdicts exceed assess.BorderlineThreshold.
+	Borderline bool `json:"borderline"`
+	// Driver is, for a borderline object, the drawn input that drives its
+	// outcome most and what measuring it settles.
+	Driver *jsonDriver `json:"driver,omitempty"`
+}
+
+// jsonDriver is the input that drives a borderline object's outcome most.
+type jsonDriver struct {
+	Input       string  `json:"input"`
+	Correlation float64 `json:"rank_correlation"`
+	Advice      string  `json:"advice"`
 }
 
 type jsonObject struct {
@@ -432,7 +445,10 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		jo.RatioText = assess.RatioAssumedText
 	}
 	if p := o.Probability; p != nil {
-		jo.Probability = &jsonProbability{p.Incendive, p.Marginal, p.NonIncendive, p.NotAssessed}
+		jo.Probability = &jsonProbability{Incendive: p.Incendive, Marginal: p.Marginal, NonIncendive: p.NonIncendive, NotAssessed: p.NotAssessed, Borderline: o.Borderline()}
+		if d := p.Driver; d.Input != "" {
+			jo.Probability.Driver = &jsonDriver{d.Input, d.Correlation, o.MeasureText()}
+		}
 		jo.EnergyJP05 = book.Finite(p.EnergyP05)
 		jo.EnergyJP50 = book.Finite(p.EnergyP50)
 		jo.EnergyJP95 = book.Finite(p.EnergyP95)

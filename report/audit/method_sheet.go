@@ -486,8 +486,19 @@ func (wb *workbook) methodUncertainty(section func(string, []string) error, put 
 		book.WrapText("a relative standard uncertainty; a log-normal row takes it as a factor 1 + x")); err != nil {
 		return err
 	}
-	return put(book.WrapText("Draws"), book.WrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), book.Cell{}, book.Cell{},
+	if err := put(book.WrapText("Draws"), book.WrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), book.Cell{}, book.Cell{},
 		book.WrapText("each object its own stream (seed and object ID): results depend neither on the number of workers nor on the row order; "+
 			"inputs drawn independently, materials and limits not drawn; a station's P(any incendive) is 1 - Π(1 - P(incendive)) over its objects, "+
-			"taken as independent (an upper bound, since they share the MIE and humidity)"))
+			"taken as independent (an upper bound, since they share the MIE and humidity)")); err != nil {
+		return err
+	}
+	if err := put(book.WrapText("Borderline"), book.WrapText(fmt.Sprintf("more severe verdicts above %.0f %%", 100*assess.BorderlineThreshold)), book.Cell{}, book.Cell{},
+		book.WrapText(fmt.Sprintf("a screening choice of this tool: an object is flagged borderline when its point verdict differs from its most likely sampled verdict, "+
+			"or when the verdicts more severe than its point verdict together have a sampled probability above %.0f %% (one draw in ten)", 100*assess.BorderlineThreshold))); err != nil {
+		return err
+	}
+	return put(book.WrapText("What to measure next"), book.WrapText("the input that drives a borderline object most"), book.Cell{}, book.Cell{},
+		book.WrapText("a screening choice of this tool: of the inputs drawn for the object, the one whose draws have the largest absolute Spearman rank correlation "+
+			"with the outcome of the draw (ranked by verdict, then by E/MIE); inputs are drawn independently, so measuring it narrows the outcome the most. "+
+			"Inputs not drawn (material properties, limits, values not given) cannot be named: see Defaults applied"))
 }

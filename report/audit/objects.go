@@ -211,12 +211,40 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			return book.Quantity(u, f(&o.Eval))
 		}
 	}
-	cols := []book.Column[objRow]{
+	var cols []book.Column[objRow]
+	cols = append(cols, []book.Column[objRow]{
 		{Header: "Object", Width: 12, Value: func(o objRow) book.Cell { return book.Text(o.Object.ID) }},
 		{Header: "Station", Width: 10, Value: func(o objRow) book.Cell { return book.Text(o.Object.Station) }},
 		{Header: "Kind", Width: 10, Value: func(o objRow) book.Cell { return book.Text(o.Object.Kind) }},
 		{Header: "Description", Width: 26, Value: func(o objRow) book.Cell { return book.WrapText(o.Object.Description) }},
 		{Header: "Verdict", Width: 14, Value: func(o objRow) book.Cell { return verdictCell(o.Verdict) }},
+	}...)
+	if withProbability {
+		// The sampled verdicts beside the point verdict; "n/a" where nothing was sampled.
+		p := func(f func(*assess.Probability) float64) func(objRow) book.Cell {
+			return func(o objRow) book.Cell {
+				if !sampled(o) {
+					return book.Code("n/a")
+				}
+				return book.Quantity(book.UnitProbability, f(o.Probability))
+			}
+		}
+		cols = append(cols,
+			book.Column[objRow]{Header: "Borderline", Width: 11, Value: func(o objRow) book.Cell {
+				if !sampled(o) {
+					return book.Code("n/a")
+				}
+				if o.Borderline() {
+					return book.Code("borderline")
+				}
+				return book.Cell{}
+			}},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Incendive })},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(marginal)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Marginal })},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(non-incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.NonIncendive })},
+		)
+	}
+	cols = append(cols, []book.Column[objRow]{
 		{Header: book.UnitRatio.Header("Ratio E/MIE"), Width: 10, Value: func(o objRow) book.Cell {
 			if o.RatioAssumed() {
 				return book.Text(assess.RatioAssumedText) // beside "at least the MIE": no figure to read
@@ -397,7 +425,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			}
 			return book.Text("yes: assessed for a spark")
 		}},
-	}
+	}...)
 	if withProbability {
 		p := func(f func(*assess.Probability) float64, u book.Unit) func(objRow) book.Cell {
 			return func(o objRow) book.Cell {
@@ -414,15 +442,19 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 				}
 				return book.Integer(o.Probability.Samples)
 			}},
-			book.Column[objRow]{Header: book.UnitProbability.Header("P(incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Incendive }, book.UnitProbability)},
-			book.Column[objRow]{Header: book.UnitProbability.Header("P(marginal)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Marginal }, book.UnitProbability)},
-			book.Column[objRow]{Header: book.UnitProbability.Header("P(non-incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.NonIncendive }, book.UnitProbability)},
 			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P05"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP05 }, book.UnitMJ)},
 			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P50"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP50 }, book.UnitMJ)},
 			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P95"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP95 }, book.UnitMJ)},
+			book.Column[objRow]{Header: "What to measure next", Width: 40, Value: func(o objRow) book.Cell { return book.WrapText(o.MeasureText()) }},
 		)
 	}
 	return cols
+}
+
+// sampled reports whether the object's verdicts were sampled (it was
+// assessed and has a Probability).
+func sampled(o *assess.ObjectResult) bool {
+	return o.Probability != nil && o.Verdict != assess.NotAssessed && o.Probability.NotAssessed < 1
 }
 
 // anyProbability reports whether the audit carries Monte Carlo results.

@@ -3,6 +3,7 @@ package audit
 import (
 	"fmt"
 	"math"
+	"sort"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
@@ -185,6 +186,15 @@ func (wb *workbook) summary() error {
 	}
 	r++
 
+	// The uncertainty run, when one was made: its draws, the borderline
+	// objects and what to measure next.
+	if a.Options.Samples > 0 {
+		var err error
+		if r, err = wb.summaryUncertainty(r, section, sink); err != nil {
+			return err
+		}
+	}
+
 	// Chart of worst ratio per station, pointing at the Stations sheet; it
 	// starts a new printed page so that it is never cut in two.
 	if len(a.Stations) > 0 {
@@ -318,6 +328,69 @@ func siteHumidityCell(site inventory.Site) book.Cell {
 		return est(book.Quantity(book.UnitPercentRH, assess.DryDayHumidity), true)
 	}
 	return marked(inQ(book.UnitPercentRH, site.RelativeHumidity), assess.ProvEntered)
+}
+
+// measureNextRows is the most borderline objects the Summary lists under
+// "What to measure next" (the rest are flagged on the Objects sheet).
+const measureNextRows = 30
+
+// summaryUncertainty writes the Summary's account of the uncertainty run from
+// row r: the draws and seed, how many objects are borderline, and the list of
+// what to measure next (object, station, verdict, probabilities, advice),
+// worst station first; it returns the next free row.
+func (wb *workbook) summaryUncertainty(r int, section func(int, string) error, sink book.NormalSink) (int, error) {
+	a := wb.a
+	rank := map[string]int{}
+	for _, st := range a.Stations {
+		rank[st.Station.ID] = st.Rank
+	}
+	border := append([]assess.BorderlineObject(nil), a.Borderline...)
+	sort.SliceStable(border, func(i, j int) bool { return rank[border[i].StationID] < rank[border[j].StationID] })
+	if err := section(r, "Uncertainty run"); err != nil {
+		return r, err
+	}
+	r++
+	text := fmt.Sprintf("Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet). %d object(s) borderline: "+
+		"the point verdict differs from the most likely sampled verdict, or the more severe verdicts together exceed %.0f %% (a screening choice of this tool).",
+		a.Options.Samples, a.Options.Seed, len(border), 100*assess.BorderlineThreshold)
+	if err := wb.mergedNote(SheetSummary, r, text); err != nil {
+		return r, err
+	}
+	r += 2
+	if len(border) == 0 {
+		return r, nil
+	}
+	if err := section(r, "What to measure next"); err != nil {
+		return r, err
+	}
+	r++
+	if err := sink.Header(r, []string{"Object", "Station", "Verdict", book.UnitProbability.Header("P(incendive)"), book.UnitProbability.Header("P(marginal)"), book.UnitProbability.Header("P(non-incendive)"), "What to measure and what it settles"}); err != nil {
+		return r, err
+	}
+	r++
+	widths := summaryWidths()
+	adviceWidth := sum(widths[6:])
+	for i, o := range border {
+		if i == measureNextRows {
+			if err := sink.Row(r, []book.Cell{book.Text(fmt.Sprintf("... %d more borderline object(s): see Borderline on the Objects sheet", len(border)-measureNextRows))}, 0); err != nil {
+				return r, err
+			}
+			r++
+			break
+		}
+		p := o.Probability
+		advice := book.WrapText(o.Measure)
+		cells := []book.Cell{book.BoldText(o.ObjectID), book.Text(o.StationID), verdictCell(o.Verdict),
+			book.Quantity(book.UnitProbability, p.Incendive), book.Quantity(book.UnitProbability, p.Marginal), book.Quantity(book.UnitProbability, p.NonIncendive), advice}
+		if err := sink.Row(r, cells, wrappedHeight(o.Measure, adviceWidth)); err != nil {
+			return r, err
+		}
+		if err := wb.f.MergeCell(SheetSummary, fmt.Sprintf("G%d", r), fmt.Sprintf("J%d", r)); err != nil {
+			return r, err
+		}
+		r++
+	}
+	return r + 1, nil
 }
 
 // siteValue is a Site sheet value the audit shows with its provenance.

@@ -129,6 +129,9 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 	}
 	if sampled && !quiet {
 		fmt.Fprintf(w, "Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet)\n", a.Options.Samples, a.Options.Seed)
+		if n := len(a.Borderline); n > 0 {
+			fmt.Fprintf(w, "Borderline: %d object(s) whose sampled verdicts differ from the point verdict or reach a more severe one above %.0f %%: what to measure next on the Summary sheet\n", n, 100*assess.BorderlineThreshold)
+		}
 	}
 	if a.Survey != nil {
 		read, acc, rej := 0, 0, 0

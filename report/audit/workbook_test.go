@@ -159,11 +159,18 @@ func TestWorkbookObjectsValues(t *testing.T) {
 			t.Errorf("%s ratio %q, want %q", c.id, got, c.want)
 		}
 	}
+	// An object without draws shows "n/a" beside its verdict, not 0.0 % (issue 15 item 8).
+	if got := byID["O3"][colIndex(t, hdr, "P(incendive) [%]")]; got != "n/a" {
+		t.Errorf("O3 P(incendive) %q, want n/a (no sample for this object)", got)
+	}
+	// The probabilities stand beside the verdict, not at the far right.
+	if v, p := colIndex(t, hdr, "Verdict"), colIndex(t, hdr, "P(incendive) [%]"); p != v+2 {
+		t.Errorf("P(incendive) in column %d, verdict in %d: want it beside the verdict (after Borderline)", p, v)
+	}
 	empties := []struct{ id, col string }{
 		{"O9", "Effective energy [mJ]"},
 		{"O1", "Capacitance [pF]"}, // NaN: not defined for a sheet
 		{"O3", "Charge density [µC/m²]"},
-		{"O3", "P(incendive) [%]"}, // no sample for this object
 	}
 	for _, e := range empties {
 		if s := byID[e.id][colIndex(t, hdr, e.col)]; s != "" {
