@@ -100,13 +100,32 @@ func (r *ObjectResult) MeasureText() string {
 		return ""
 	}
 	d := &p.Driver
-	now := ""
-	if pv := r.Provenance(d.Item); pv != ProvNone {
-		now = " (now " + pv.String() + ")"
+	settles := fmt.Sprintf("%s or %s", r.Verdict, p.Alternative(r.Verdict))
+	if math.Abs(d.Correlation) < WeakDriver {
+		return fmt.Sprintf("no drawn input stands out (the largest rank correlation, %+.2f, is the %s's): the verdict hangs on several inputs together or on one not drawn (see Defaults applied); "+
+			"measure the inputs of the effective discharge to settle %s", d.Correlation, d.Input, settles)
 	}
-	return fmt.Sprintf("measure the %s%s: it drives the outcome most (rank correlation %+.2f over the draws); a reading settles %s or %s",
-		d.Input, now, d.Correlation, r.Verdict, p.Alternative(r.Verdict))
+	verb, now := "measure", ""
+	switch pv := r.Provenance(d.Item); pv {
+	case ProvMeasured:
+		verb = "re-measure"
+	case ProvEntered:
+		now = " (now entered for the station or site, not read at the object)"
+	case ProvLibrary:
+		now = " (now from the built-in library)"
+	case ProvEstimated:
+		now = " (now estimated)"
+	case ProvOverride:
+		now = " (now a Site sheet override)"
+	}
+	return fmt.Sprintf("%s the %s%s: it drives the outcome most (rank correlation %+.2f over the draws); a reading settles %s",
+		verb, d.Input, now, d.Correlation, settles)
 }
+
+// WeakDriver is the absolute rank correlation below which no drawn input is
+// named as the driver (a screening choice of this tool: below 0.3 an input
+// explains under a tenth of the spread of the outcome's ranks).
+const WeakDriver = 0.3
 
 // driverRecorder keeps, for one object, each draw's inputs and outcome, so
 // that the driver of a borderline object is found from the draws already

@@ -500,5 +500,6 @@ func (wb *workbook) methodUncertainty(section func(string, []string) error, put 
 	return put(book.WrapText("What to measure next"), book.WrapText("the input that drives a borderline object most"), book.Cell{}, book.Cell{},
 		book.WrapText("a screening choice of this tool: of the inputs drawn for the object, the one whose draws have the largest absolute Spearman rank correlation "+
 			"with the outcome of the draw (ranked by verdict, then by E/MIE); inputs are drawn independently, so measuring it narrows the outcome the most. "+
-			"Inputs not drawn (material properties, limits, values not given) cannot be named: see Defaults applied"))
+			"Inputs not drawn (material properties, limits, values not given) cannot be named: see Defaults applied. "+
+			fmt.Sprintf("Below an absolute rank correlation of %.1f no input is named (it would explain under a tenth of the spread)", assess.WeakDriver)))
 }

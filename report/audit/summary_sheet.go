@@ -306,7 +306,7 @@ func (wb *workbook) chart(at string, rows int) error {
 func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 	lo, hi = 0.1, 10
 	for i := range stations {
-		r := book.FinitePtr(stations[i].WorstRatio)
+		r := chartValue(&stations[i]) // the bars drawn (1 for an assumed resistance)
 		if r == nil || *r <= 0 {
 			continue
 		}
@@ -364,7 +364,13 @@ func (wb *workbook) summaryUncertainty(r int, section func(int, string) error, s
 		return r, err
 	}
 	r++
-	if err := sink.Header(r, []string{"Object", "Station", "Verdict", book.UnitProbability.Header("P(incendive)"), book.UnitProbability.Header("P(marginal)"), book.UnitProbability.Header("P(non-incendive)"), "What to measure and what it settles"}); err != nil {
+	if err := sink.Header(r, []string{"Object", "Station", "Verdict", book.UnitProbability.Header("P(incendive)"), book.UnitProbability.Header("P(marginal)"), book.UnitProbability.Header("P(non-incendive)"), "What to measure and what it settles", "", "", ""}); err != nil {
+		return r, err
+	}
+	if err := wb.f.MergeCell(SheetSummary, fmt.Sprintf("G%d", r), fmt.Sprintf("J%d", r)); err != nil {
+		return r, err
+	}
+	if err := wb.f.SetRowHeight(SheetSummary, r, 30); err != nil {
 		return r, err
 	}
 	r++
