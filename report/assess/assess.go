@@ -69,41 +69,55 @@ func prepare(s *inventory.Survey, opts Options) (*Audit, objectContext) {
 		a.Counts[v] = 0
 	}
 	// Site values the reader defaulted (Site.Defaults) or that are still unknown.
-	var site []Default
+	var site []Mark
 	margin := DefaultMargin
 	if m := s.Site.RequiredMargin; m.Known && m.Value > 0 {
 		margin = m.Value
 	}
 	if m := s.Site.RequiredMargin; !(m.Known && m.Value > 0) || s.Site.Defaulted(inventory.SiteItemRequiredMargin) {
-		site = append(site, Default{Field: "Required margin", Value: plain(margin), Reason: "not given on the Site sheet: default site choice (energy must stay below MIE / margin)"})
+		site = append(site, Mark{Item: ItemRequiredMargin, Prov: ProvEstimated, Label: "Required margin", Value: plain(margin), Reason: "not given on the Site sheet: default site choice (energy must stay below MIE / margin)"})
+	} else {
+		site = append(site, Mark{Item: ItemRequiredMargin, Prov: ProvOverride, Label: "Required margin", Value: plain(margin), Reason: fmt.Sprintf("Site sheet: replaces the tool's default of %s", plain(DefaultMargin))})
 	}
 	temperature := DefaultTemperature
 	if t := s.Site.AirTemperature; t.Known && t.Value > 0 {
 		temperature = t.Value
 	}
 	if t := s.Site.AirTemperature; !(t.Known && t.Value > 0) || s.Site.Defaulted(inventory.SiteItemAirTemperature) {
-		site = append(site, Default{Field: "Air temperature", Value: celsius(temperature), Reason: "not given on the Site sheet: default"})
+		site = append(site, Mark{Item: ItemAirTemperature, Prov: ProvEstimated, Label: "Air temperature", Value: celsius(temperature), Reason: "not given on the Site sheet: default"})
+	} else {
+		site = append(site, Mark{Item: ItemAirTemperature, Prov: ProvEntered, Label: "Air temperature", Value: celsius(temperature)})
 	}
 	for _, d := range s.Site.Defaults {
 		if d.Item != inventory.SiteItemRequiredMargin && d.Item != inventory.SiteItemAirTemperature {
-			site = append(site, Default{Field: "Site", Value: d.Text, Reason: "Site sheet default"})
+			site = append(site, Mark{Item: ItemSite, Prov: ProvEstimated, Label: "Site", Value: d.Text, Reason: "Site sheet default"})
 		}
 	}
-	return a, objectContext{survey: s, lim: &opts.Limits, margin: margin, temperature: temperature, siteDefaults: site}
+	return a, objectContext{survey: s, lim: &opts.Limits, defLim: model.DefaultLimits(), margin: margin, temperature: temperature, siteMarks: site}
 }
 
 type objectContext struct {
-	survey       *inventory.Survey
-	lim          *model.Limits
-	margin       float64
-	temperature  float64
-	siteDefaults []Default
+	survey      *inventory.Survey
+	lim         *model.Limits
+	defLim      model.Limits // the built-in limits, to tell a Site override from them
+	margin      float64
+	temperature float64
+	siteMarks   []Mark
+}
+
+// limitProv is the provenance of a limit used as a value: an override when the
+// Site sheet changed it from the built-in value, else the tool's estimate.
+func (x *objectContext) limitProv(used, builtIn float64) Provenance {
+	if used != builtIn {
+		return ProvOverride
+	}
+	return ProvEstimated
 }
 
 // assess judges one object.
 func (x *objectContext) assess(o *inventory.Object) ObjectResult {
 	r := ObjectResult{Object: *o}
-	var defs []Default
+	var defs []Mark
 	cause := CauseNone
 	causeText := ""
 
@@ -157,24 +171,25 @@ func (x *objectContext) assess(o *inventory.Object) ObjectResult {
 	}
 	r.Findings = x.findings(&r, &c)
 	defs = append(defs, x.evalDefaults(&r)...)
-	r.Defaults = dedupeDefaults(append(append([]Default(nil), x.siteDefaults...), defs...))
+	r.Marks = dedupeMarks(append(append([]Mark(nil), x.siteMarks...), defs...))
 	r.Reason = x.reason(&r, &c, causeText)
 	return r
 }
 
 // environment builds the model environment of a station.
-func (x *objectContext) environment(st *inventory.Station) (model.Environment, *inventory.Atmosphere, []Default, Cause, string) {
-	var defs []Default
+func (x *objectContext) environment(st *inventory.Station) (model.Environment, *inventory.Atmosphere, []Mark, Cause, string) {
+	var defs []Mark
 	env := model.Environment{Temperature: x.temperature, MIE: math.NaN()}
 	switch {
 	case st.RelativeHumidity.Known:
 		env.RelativeHumidity = st.RelativeHumidity.Value
+		defs = append(defs, Mark{Item: ItemRelativeHumidity, Prov: ProvEntered, Label: "Relative humidity", Value: percent(env.RelativeHumidity), Reason: "the station's RH"})
 	case x.survey.Site.RelativeHumidity.Known:
 		env.RelativeHumidity = x.survey.Site.RelativeHumidity.Value
-		defs = append(defs, Default{Field: "Relative humidity", Value: percent(env.RelativeHumidity), Reason: "the station gives none: the site's RH is used"})
+		defs = append(defs, Mark{Item: ItemRelativeHumidity, Prov: ProvEntered, Label: "Relative humidity", Value: percent(env.RelativeHumidity), Reason: "the station gives none: the site's RH is used"})
 	default:
 		env.RelativeHumidity = DryDayHumidity
-		defs = append(defs, Default{Field: "Relative humidity", Value: percent(DryDayHumidity), Reason: "neither the station nor the site gives one: dry-day screening value (documented choice)"})
+		defs = append(defs, Mark{Item: ItemRelativeHumidity, Prov: ProvEstimated, Label: "Relative humidity", Value: percent(DryDayHumidity), Reason: "neither the station nor the site gives one: dry-day screening value (documented choice)"})
 	}
 	if st.Atmosphere == "" {
 		return env, nil, defs, CauseNone, ""
@@ -194,15 +209,19 @@ func (x *objectContext) environment(st *inventory.Station) (model.Environment, *
 	env.Group, _ = model.ParseGroup(a.Group)
 	env.MIE = a.MIE.OrNaN()
 	if a.MIEFromSubstance && a.MIE.Known {
-		defs = append(defs, Default{Field: "MIE", Value: mJ(a.MIE.Value), Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
+		defs = append(defs, Mark{Item: ItemMIE, Prov: ProvLibrary, Label: "MIE", Value: mJ(a.MIE.Value), Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
+	} else if a.MIE.Known {
+		defs = append(defs, Mark{Item: ItemMIE, Prov: ProvEntered, Label: "MIE", Value: mJ(a.MIE.Value), Reason: fmt.Sprintf("atmosphere %s", a.ID)})
 	}
 	if a.GroupFromSubstance && a.Group != "" {
-		defs = append(defs, Default{Field: "Group", Value: a.Group, Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
+		defs = append(defs, Mark{Item: ItemGroup, Prov: ProvLibrary, Label: "Group", Value: a.Group, Reason: fmt.Sprintf("atmosphere %s: from the built-in substance list (%s)", a.ID, a.Substance)})
+	} else if a.Group != "" {
+		defs = append(defs, Mark{Item: ItemGroup, Prov: ProvEntered, Label: "Group", Value: a.Group, Reason: fmt.Sprintf("atmosphere %s", a.ID)})
 	}
 	if e, assumed := env.WithStrictGroup(); assumed {
 		// Unknown means the stricter case: the brush screen, transferred charge and area limits of IIC.
 		env = e
-		defs = append(defs, Default{Field: "Group", Value: env.Group.String(), Reason: fmt.Sprintf("atmosphere %s (%s) gives no gas group: assessed as IIC, the strictest group (common practice, no source)", a.ID, kind)})
+		defs = append(defs, Mark{Item: ItemGroup, Prov: ProvEstimated, Label: "Group", Value: env.Group.String(), Reason: fmt.Sprintf("atmosphere %s (%s) gives no gas group: assessed as IIC, the strictest group (common practice, no source)", a.ID, kind)})
 		if a.Group != "" {
 			defs[len(defs)-1].Reason = fmt.Sprintf("atmosphere %s (%s) gives only the dust group %s: its gas is assessed as IIC, the strictest group (common practice, no source)", a.ID, kind, a.Group)
 		}
@@ -213,16 +232,17 @@ func (x *objectContext) environment(st *inventory.Station) (model.Environment, *
 		if kind == model.Dust {
 			env.Zone = model.Zone20
 		}
-		defs = append(defs, Default{Field: "Zone", Value: env.Zone.String(), Reason: fmt.Sprintf("atmosphere %s gives no zone: the strictest zone is assumed", a.ID)})
+		defs = append(defs, Mark{Item: ItemZone, Prov: ProvEstimated, Label: "Zone", Value: env.Zone.String(), Reason: fmt.Sprintf("atmosphere %s gives no zone: the strictest zone is assumed", a.ID)})
 	} else {
 		env.Zone, _ = model.ParseZone(a.Zone)
+		defs = append(defs, Mark{Item: ItemZone, Prov: ProvEntered, Label: "Zone", Value: a.Zone, Reason: fmt.Sprintf("atmosphere %s", a.ID)})
 	}
 	return env, &a, defs, CauseNone, ""
 }
 
 // input maps a survey row and its material to the model's input.
-func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Material, []Default) {
-	var defs []Default
+func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Material, []Mark) {
+	var defs []Mark
 	kind, _ := model.ParseKind(o.Kind)
 	in := model.NewInput(kind) // every quantity not given until read from the row
 	in.Length = o.Length.OrNaN()
@@ -256,6 +276,7 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 	in.FilterResidence = o.Residence.OrNaN()
 	in.SecondPhase, _ = model.ParseSecondPhase(o.SecondPhase)
 	in.InletVelocity = o.InletVelocity.OrNaN()
+	defs = append(defs, measuredMarks(o)...)
 	// Double-layer charge is judged from the process (Process column, charging
 	// current density), never from words in the Notes.
 	var mat *inventory.Material
@@ -273,42 +294,62 @@ func (x *objectContext) input(o *inventory.Object) (model.Input, *inventory.Mate
 				BreakdownStrength:  m.BreakdownStrength,
 			}
 			if m.BuiltIn {
-				defs = append(defs, Default{Field: "Material", Value: m.Name, Reason: "properties from the built-in list (" + m.Source + ")"})
+				defs = append(defs, Mark{Item: ItemMaterial, Prov: ProvLibrary, Label: "Material", Value: m.Name, Reason: "properties from the built-in list (" + m.Source + ")"})
+			} else {
+				defs = append(defs, Mark{Item: ItemMaterial, Prov: ProvEntered, Label: "Material", Value: m.Name, Reason: "properties from the survey's Materials sheet"})
 			}
 		} else {
 			in.Material.Name = o.Material
-			defs = append(defs, Default{Field: "Material", Value: o.Material, Reason: "not in the built-in list nor the Materials sheet: its properties are unknown"})
+			defs = append(defs, Mark{Item: ItemMaterial, Prov: ProvEstimated, Label: "Material", Value: o.Material, Reason: "not in the built-in list nor the Materials sheet: its properties are unknown"})
 		}
 	}
 	switch kind {
 	case model.Bag:
 		if in.BagType == model.BagUnknown {
-			defs = append(defs, Default{Field: "Bag type", Value: "A", Reason: "not given: assessed as the most restrictive case (type A, usable only where every type is)"})
+			defs = append(defs, Mark{Item: ItemBagType, Prov: ProvEstimated, Label: "Bag type", Value: "A", Reason: "not given: assessed as the most restrictive case (type A, usable only where every type is)"})
 		}
 	case model.Liquid:
 		if in.Filling == model.FillUnknown {
-			defs = append(defs, Default{Field: "Filling", Value: "top", Reason: "not given: assessed as top filling without a dip pipe (the most restrictive case)"})
+			defs = append(defs, Mark{Item: ItemFilling, Prov: ProvEstimated, Label: "Filling", Value: "top", Reason: "not given: assessed as top filling without a dip pipe (the most restrictive case)"})
 		}
 		defs = append(defs, liquidDefaults(&in)...)
 	}
 	return in, mat, defs
 }
 
+// measuredMarks records the values read on the object's row that the audit
+// shows with a provenance (the others are plainly the row's columns).
+func measuredMarks(o *inventory.Object) []Mark {
+	var out []Mark
+	add := func(it Item, label string, q inventory.Quantity, text func(float64) string) {
+		if q.Known {
+			out = append(out, Mark{Item: it, Prov: ProvMeasured, Label: label, Value: text(q.Value)})
+		}
+	}
+	add(ItemCapacitance, "Capacitance", o.Capacitance, pF)
+	add(ItemResistance, "Resistance to earth", o.Resistance, ohm)
+	add(ItemPotential, "Surface potential", o.SurfacePotential, kV)
+	add(ItemChargingCurrent, "Charging current", o.ChargingCurrent, func(v float64) string { return plain(v*1e6) + " µA" })
+	add(ItemConductivity, "Conductivity", o.Conductivity, pSm)
+	add(ItemPermittivity, "Liquid permittivity", o.Permittivity, plain)
+	return out
+}
+
 // liquidDefaults records the liquid transfer inputs left blank and the stricter
 // case each is assessed as.
-func liquidDefaults(in *model.Input) []Default {
-	var defs []Default
+func liquidDefaults(in *model.Input) []Mark {
+	var defs []Mark
 	if in.VesselMaterial == model.VesselMaterialUnknown {
-		defs = append(defs, Default{Field: "Vessel material", Value: "unknown", Reason: "not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) for each rule"})
+		defs = append(defs, Mark{Item: ItemVesselMaterial, Prov: ProvEstimated, Label: "Vessel material", Value: "unknown", Reason: "not given: the stricter of metal (unearthed, can spark) and insulating (no safe filling limits) for each rule"})
 	}
 	if in.VesselClass == model.VesselUnknown {
-		defs = append(defs, Default{Field: "Vessel class", Value: "strictest", Reason: "not given: the strictest class's filling limits, and the typical capacitance of the class that gives the largest spark energy"})
+		defs = append(defs, Mark{Item: ItemVesselClass, Prov: ProvEstimated, Label: "Vessel class", Value: "strictest", Reason: "not given: the strictest class's filling limits, and the typical capacitance of the class that gives the largest spark energy"})
 	}
 	if in.Filter == model.FilterUnknown {
-		defs = append(defs, Default{Field: "Filter", Value: "fine filter", Reason: "not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)"})
+		defs = append(defs, Mark{Item: ItemFilter, Prov: ProvEstimated, Label: "Filter", Value: "fine filter", Reason: "not stated: a fine filter with no residence time after it taken (the stricter case; write none for a plain line)"})
 	}
 	if in.SecondPhase == model.PhaseUnknown {
-		defs = append(defs, Default{Field: "Second phase", Value: "present", Reason: "not stated: taken as present (the stricter case; write none when there is none)"})
+		defs = append(defs, Mark{Item: ItemSecondPhase, Prov: ProvEstimated, Label: "Second phase", Value: "present", Reason: "not stated: taken as present (the stricter case; write none when there is none)"})
 	}
 	// The residence time and the inlet velocity matter only where the model applies
 	// their clause: it records them as assumptions when it does.
@@ -320,8 +361,8 @@ func liquidDefaults(in *model.Input) []Default {
 // filled as the one whose vapour the atmosphere is (a documented choice; a
 // contaminated or two-phase liquid can be far less conductive: measure it).
 // A conductivity still unknown is assessed as low.
-func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
-	var defs []Default
+func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Mark {
+	var defs []Mark
 	sub, ok := inventory.Substance{}, false
 	if atm != nil && atm.Substance != "" {
 		sub, ok = inventory.LookupSubstance(atm.Substance)
@@ -330,14 +371,14 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 		if ok && sub.Conductivity > 0 {
 			in.Conductivity = sub.Conductivity
 			in.ConductivityAssumed = true
-			defs = append(defs, Default{Field: "Conductivity", Value: pSm(sub.Conductivity) + " (typical) for the filling clauses; conductive for a spark of the liquid", Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s); a value not on the row never clears the spark of an isolated conductive liquid (principle 2)", sub.Name, sub.Source)})
+			defs = append(defs, Mark{Item: ItemConductivity, Prov: ProvLibrary, Label: "Conductivity", Value: pSm(sub.Conductivity) + " (typical) for the filling clauses; conductive for a spark of the liquid", Reason: fmt.Sprintf("not measured: typical value of %s from the built-in substance list (%s); a value not on the row never clears the spark of an isolated conductive liquid (principle 2)", sub.Name, sub.Source)})
 		} else {
-			defs = append(defs, Default{Field: "Conductivity", Value: "unknown: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid", Reason: "not given: the stricter case of each (principle 2): the low-conductivity filling limits and liquid-surface brush, and, in an insulating, lined, glass or unknown vessel not earthed, the spark of an isolated conductive liquid"})
+			defs = append(defs, Mark{Item: ItemConductivity, Prov: ProvEstimated, Label: "Conductivity", Value: "unknown: low (≤ 50 pS/m) for the filling clauses, conductive for a spark of the liquid", Reason: "not given: the stricter case of each (principle 2): the low-conductivity filling limits and liquid-surface brush, and, in an insulating, lined, glass or unknown vessel not earthed, the spark of an isolated conductive liquid"})
 		}
 	}
 	if math.IsNaN(in.Permittivity) && !(in.Material.Permittivity > 0) && ok && sub.Permittivity > 0 {
 		in.Permittivity = sub.Permittivity
-		defs = append(defs, Default{Field: "Liquid permittivity", Value: plain(sub.Permittivity), Reason: fmt.Sprintf("not given: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
+		defs = append(defs, Mark{Item: ItemPermittivity, Prov: ProvLibrary, Label: "Liquid permittivity", Value: plain(sub.Permittivity), Reason: fmt.Sprintf("not given: typical value of %s from the built-in substance list (%s)", sub.Name, sub.Source)})
 	}
 	return defs
 }
@@ -345,55 +386,55 @@ func liquidFromSubstance(in *model.Input, atm *inventory.Atmosphere) []Default {
 func unknownMaterial() model.Material { return model.UnknownMaterial() }
 
 // evalDefaults lists the defaults the model's result rests on.
-func (x *objectContext) evalDefaults(r *ObjectResult) []Default {
-	var defs []Default
+func (x *objectContext) evalDefaults(r *ObjectResult) []Mark {
+	var defs []Mark
 	in, ev := &r.Input, &r.Eval
 	if math.IsNaN(in.Capacitance) && ev.Capacitance > 0 && ev.CapacitanceModel != model.CapNone && ev.CapacitanceModel != model.CapMeasured {
-		defs = append(defs, Default{Field: "Capacitance", Value: pF(ev.Capacitance), Reason: "not measured: estimated, " + ev.CapacitanceModel.String()})
+		defs = append(defs, Mark{Item: ItemCapacitance, Prov: ProvEstimated, Label: "Capacitance", Value: pF(ev.Capacitance), Reason: "not measured: estimated, " + ev.CapacitanceModel.String()})
 	}
 	earthingMatters := IsConductorRow(in, ev) || in.Kind == model.Person || (in.Kind == model.Bag && in.BagType == model.BagC)
 	if math.IsNaN(in.Resistance) && earthingMatters {
-		defs = append(defs, Default{Field: "Resistance to earth", Value: "not earthed", Reason: "not measured: taken as not earthed, with no leakage (the stricter case for any measured resistance)"})
+		defs = append(defs, Mark{Item: ItemResistance, Prov: ProvEstimated, Label: "Resistance to earth", Value: "not earthed", Reason: "not measured: taken as not earthed, with no leakage (the stricter case for any measured resistance)"})
 	}
 	if IsConductorRow(in, ev) && SmallPartExempt(in, &r.Environment, x.lim) && !(in.Resistance <= x.lim.ConductorEarthing) {
-		defs = append(defs, Default{Field: "Earthing requirement", Value: "exempt", Reason: fmt.Sprintf("measured capacitance %s below the %s small-part exemption of IEC 60079-0 (from memory): it need not be earthed; its spark energy is still judged", pF(in.Capacitance), pF(SmallPartLimit(&r.Environment, x.lim)))})
+		defs = append(defs, Mark{Item: ItemEarthing, Prov: ProvLibrary, Label: "Earthing requirement", Value: "exempt", Reason: fmt.Sprintf("measured capacitance %s below the %s small-part exemption of IEC 60079-0 (from memory): it need not be earthed; its spark energy is still judged", pF(in.Capacitance), pF(SmallPartLimit(&r.Environment, x.lim)))})
 	}
 	if ev.Flags&model.FlagReadingAboveBreakdown != 0 && !math.IsNaN(ev.ReadingDensity) {
-		defs = append(defs, Default{Field: "Charge density", Value: uCm2(ev.ChargeDensity), Reason: fmt.Sprintf("the reading inverts to %s, more than air lets the surface hold: capped at the breakdown limit (CCPS glossary; a screening choice of this tool), the reading to be checked", uCm2(ev.ReadingDensity))})
+		defs = append(defs, Mark{Item: ItemChargeDensity, Prov: ProvEstimated, Label: "Charge density", Value: uCm2(ev.ChargeDensity), Reason: fmt.Sprintf("the reading inverts to %s, more than air lets the surface hold: capped at the breakdown limit (CCPS glossary; a screening choice of this tool), the reading to be checked", uCm2(ev.ReadingDensity))})
 	}
 	if ev.Flags&model.FlagMeasuredAboveMaximum != 0 && !math.IsNaN(ev.UncappedPotential) {
-		defs = append(defs, Default{Field: "Potential used", Value: kV(ev.Potential), Reason: fmt.Sprintf("the reading of %s is beyond what air lets a plant conductor or body hold before it goes into corona (reference sections 3 and 12, realistic potentials): the spark energy and the ranking are taken at the realistic maximum, the reading kept as a contradiction finding", kV(ev.UncappedPotential))})
+		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Potential used", Value: kV(ev.Potential), Reason: fmt.Sprintf("the reading of %s is beyond what air lets a plant conductor or body hold before it goes into corona (reference sections 3 and 12, realistic potentials): the spark energy and the ranking are taken at the realistic maximum, the reading kept as a contradiction finding", kV(ev.UncappedPotential))})
 	}
 	if ev.Flags&model.FlagCappedConductor != 0 {
-		defs = append(defs, Default{Field: "Conductor potential", Value: kV(ev.Potential), Reason: "not measured: the estimate is capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)"})
+		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Conductor potential", Value: kV(ev.Potential), Reason: "not measured: the estimate is capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)"})
 	}
 	if ev.Discharges[model.Brush].Possible {
-		defs = append(defs, Default{Field: "Brush discharge energy", Value: mJ(x.lim.BrushEnergy), Reason: "equivalent energy of a brush discharge: the upper end of the published 3-4 mJ (documented choice)"})
+		defs = append(defs, Mark{Item: ItemBrushEnergy, Prov: x.limitProv(x.lim.BrushEnergy, x.defLim.BrushEnergy), Label: "Brush discharge energy", Value: mJ(x.lim.BrushEnergy), Reason: "equivalent energy of a brush discharge: the upper end of the published 3-4 mJ (documented choice)"})
 	}
 	if ev.Discharges[model.PropagatingBrush].Possible {
-		defs = append(defs, Default{Field: "Propagating brush energy", Value: "upper estimate", Reason: fmt.Sprintf("at most %s, the upper end of the published range (hundreds of mJ to J)", mJ(x.lim.PropagatingMaxEnergy))})
+		defs = append(defs, Mark{Item: ItemPropagatingEnergy, Prov: x.limitProv(x.lim.PropagatingMaxEnergy, x.defLim.PropagatingMaxEnergy), Label: "Propagating brush energy", Value: "upper estimate", Reason: fmt.Sprintf("at most %s, the upper end of the published range (hundreds of mJ to J)", mJ(x.lim.PropagatingMaxEnergy))})
 	}
 	if in.Kind == model.Person && math.IsNaN(in.SurfacePotential) && !math.IsNaN(ev.Potential) {
-		defs = append(defs, Default{Field: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
+		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Body potential", Value: kV(ev.Potential), Reason: "not measured: estimated by the model from the charging current and resistance to earth"})
 	}
 	if ev.IsolatedConductor && ev.PotentialSource == model.PotentialFromCharge {
 		why := "not measured: from the charge the reading shows on the unearthed conducting surface, V = sigma A / C"
 		if ev.Flags&model.FlagCappedConductor != 0 && !math.IsNaN(ev.UncappedPotential) {
 			why += fmt.Sprintf(" = %s, capped at the realistic plant maximum", kV(ev.UncappedPotential))
 		}
-		defs = append(defs, Default{Field: "Potential", Value: kV(ev.Potential), Reason: why})
+		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Potential", Value: kV(ev.Potential), Reason: why})
 	}
 	defs = append(defs, modelAssumptions(ev)...)
 	return defs
 }
 
-// dedupeDefaults keeps the first of each Field+Reason.
-func dedupeDefaults(ds []Default) []Default {
+// dedupeMarks keeps the first of each Label+Provenance+Reason.
+func dedupeMarks(ds []Mark) []Mark {
 	out := ds[:0]
 	for _, d := range ds {
 		dup := false
 		for _, o := range out {
-			if o.Field == d.Field && o.Reason == d.Reason {
+			if o.Label == d.Label && o.Prov == d.Prov && o.Reason == d.Reason {
 				dup = true
 				break
 			}

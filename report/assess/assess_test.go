@@ -379,7 +379,7 @@ func TestLiquids(t *testing.T) {
 		t.Errorf("unknown filling, high conductivity: findings %v, want none", checks(r))
 	}
 	if !hasDefault(r, "Filling") {
-		t.Errorf("unknown filling not recorded as a default: %+v", r.Defaults)
+		t.Errorf("unknown filling not recorded as a default: %+v", r.Marks)
 	}
 }
 
@@ -392,7 +392,7 @@ func TestLiquidFromSubstance(t *testing.T) {
 	wantRel(t, "conductivity", r.Input.Conductivity, 4.6e5*1e-12)
 	wantRel(t, "permittivity", r.Input.Permittivity, 6)
 	if hasCheck(r, "low-conductivity") || !hasDefault(r, "Conductivity") {
-		t.Errorf("findings %v defaults %+v", checks(r), r.Defaults)
+		t.Errorf("findings %v defaults %+v", checks(r), r.Marks)
 	}
 	// Without a substance the conductivity stays unknown and is assessed as low.
 	atm := atmEthylAcetate
@@ -404,8 +404,8 @@ func TestLiquidFromSubstance(t *testing.T) {
 }
 
 func hasDefault(r ObjectResult, field string) bool {
-	for _, d := range r.Defaults {
-		if d.Field == field {
+	for _, d := range r.Defaults() {
+		if d.Label == field {
 			return true
 		}
 	}
@@ -609,7 +609,8 @@ func TestUnknownStationKeepsObject(t *testing.T) {
 
 func TestDefaultsRecorded(t *testing.T) {
 	// A person with nothing measured but a resistance: capacitance estimated (200 pF typical,
-	// Saito 1963, default from memory), walking current 1 uA (Jonassen), and site RH used.
+	// Saito 1963, default from memory), walking current 1 uA (Jonassen); the site's
+	// RH, taken for a station that gives none, is entered (typed), not a default.
 	s := newSurvey([]inventory.Atmosphere{atmToluene}, []inventory.Station{{ID: "S", Atmosphere: "A-TOL"}},
 		[]inventory.Object{{ID: "P", Station: "S", Kind: "person", Resistance: known(1e10)}, {ID: "D", Station: "S", Kind: "container", MassFlow: known(0.1), ChargeToMass: known(1e-6)}}, nil)
 	s.Site.RequiredMargin = inventory.Quantity{}
@@ -618,17 +619,20 @@ func TestDefaultsRecorded(t *testing.T) {
 	s.Site.Defaults = []inventory.SiteDefault{{Item: inventory.SiteItemAirTemperature, Text: "Air temperature 20 °C (default)"}}
 	a := Assess(s, Options{})
 	p := a.Objects[0]
-	for _, f := range []string{"Capacitance", "Relative humidity", "Required margin", "Air temperature"} {
+	if got := p.Provenance(ItemRelativeHumidity); got != ProvEntered {
+		t.Errorf("person: site RH provenance %v, want entered", got)
+	}
+	for _, f := range []string{"Capacitance", "Required margin", "Air temperature"} {
 		if !hasDefault(p, f) {
-			t.Errorf("person: default %q not recorded (%+v)", f, p.Defaults)
+			t.Errorf("person: default %q not recorded (%+v)", f, p.Marks)
 		}
 	}
 	if !hasDefault(a.Objects[1], "Resistance to earth") {
-		t.Errorf("drum: unknown resistance not recorded as a default (%+v)", a.Objects[1].Defaults)
+		t.Errorf("drum: unknown resistance not recorded as a default (%+v)", a.Objects[1].Marks)
 	}
 	seen := map[string]int{}
 	for _, d := range a.MethodDefaults {
-		seen[d.Field+"|"+d.Reason]++
+		seen[d.Label+"|"+d.Reason]++
 	}
 	for k, n := range seen {
 		if n != 1 {
@@ -773,7 +777,7 @@ func TestAtmosphereDefaults(t *testing.T) {
 	film := inventory.Object{Kind: "sheet", Material: matPET.Name, Length: known(0.1), Width: known(0.06), Field: known(1e3), FieldDistance: known(0.1)}
 	r := one(t, &atm, film, matPET)
 	if r.Environment.Zone != model.Zone0 || !hasDefault(r, "Zone") || !hasDefault(r, "MIE") {
-		t.Errorf("zone %v defaults %+v, want zone 0 and Zone, MIE defaults", r.Environment.Zone, r.Defaults)
+		t.Errorf("zone %v defaults %+v, want zone 0 and Zone, MIE defaults", r.Environment.Zone, r.Marks)
 	}
 	if !hasCheck(r, "insulating-area") {
 		t.Errorf("60 cm² in zone 0 IIA: findings %v, want insulating-area", checks(r))

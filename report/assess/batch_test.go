@@ -36,7 +36,7 @@ func TestResultsIndependentOfBatchAndWorkers(t *testing.T) {
 					g, w := &got[i], &want.Objects[i]
 					if g.Object.ID != w.Object.ID || g.Verdict != w.Verdict || g.Reason != w.Reason ||
 						fmt.Sprint(g.Eval) != fmt.Sprint(w.Eval) || !reflect.DeepEqual(g.Findings, w.Findings) ||
-						!reflect.DeepEqual(g.Defaults, w.Defaults) || !reflect.DeepEqual(g.Ratio, w.Ratio) ||
+						!reflect.DeepEqual(g.Marks, w.Marks) || !reflect.DeepEqual(g.Ratio, w.Ratio) ||
 						fmt.Sprint(deref(g.Probability)) != fmt.Sprint(deref(w.Probability)) {
 						t.Errorf("object %d (%s) differs", i, w.Object.ID)
 					}

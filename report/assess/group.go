@@ -6,8 +6,8 @@ import (
 )
 
 // GroupText is the gas or dust group an atmosphere is assessed with, as every
-// sheet shows it: the group entered; with "est." when it came from the built-in
-// substance list ("IIA est."); the strictest gas group when a gas, vapour, mist
+// sheet shows it: the group entered; with "lib." when it came from the built-in
+// substance list ("IIA lib."); the strictest gas group when a gas, vapour, mist
 // or hybrid atmosphere gives none ("IIC est.", principle 2); and both for a
 // hybrid that gives only its dust group ("IIIB / gas IIC est."), since the
 // brush, charge and area screens use the gas group. "" without an atmosphere.
@@ -28,7 +28,7 @@ func GroupText(a *inventory.Atmosphere) string {
 		return e.Group.String() + " est."
 	}
 	if a.GroupFromSubstance && a.Group != "" {
-		return a.Group + " est."
+		return a.Group + " lib."
 	}
 	return a.Group
 }

@@ -15,6 +15,20 @@ func missingText(m model.Missing) string {
 	return strings.Join(t, "; ")
 }
 
+// assumptionItem is the typed item a model assumption stands for: the
+// charging current and the group have their own, the rest are ItemModel.
+func assumptionItem(a model.Assumption) Item {
+	switch a {
+	case model.AssumedWalkingCurrent, model.AssumedMaxCurrent, model.AssumedBagCurrent:
+		return ItemChargingCurrent
+	case model.AssumedGroupIIC:
+		return ItemGroup
+	case model.AssumedLiquidPermittivity:
+		return ItemPermittivity
+	}
+	return ItemModel
+}
+
 // assumptionField names the quantity each model assumption stands for.
 func assumptionField(a model.Assumption) string {
 	switch a {
@@ -57,13 +71,13 @@ func assumptionField(a model.Assumption) string {
 // resistance, bag type, conductivity, temperature) are skipped so each shows once,
 // and so are the charging assumptions of a conductor whose potential was measured
 // (they fed nothing).
-func modelAssumptions(ev *model.Evaluation) []Default {
+func modelAssumptions(ev *model.Evaluation) []Mark {
 	rest := ev.Assumed &^ (model.AssumedCapacitance | model.AssumedNotEarthed | model.AssumedBagTypeA |
 		model.AssumedLowConductivity | model.AssumedTemperature)
 	if ev.PotentialSource == model.PotentialMeasured {
 		rest &^= model.AssumedWalkingCurrent | model.AssumedMaxCurrent | model.AssumedSteadyState
 	}
-	var out []Default
+	var out []Mark
 	for bit := model.Assumption(1); bit != 0 && bit <= rest; bit <<= 1 {
 		if rest&bit == 0 {
 			continue
@@ -76,7 +90,7 @@ func modelAssumptions(ev *model.Evaluation) []Default {
 		if _, after, ok := strings.Cut(value, ": "); ok {
 			value = after
 		}
-		out = append(out, Default{Field: assumptionField(bit), Value: value, Reason: "model default: " + texts[0]})
+		out = append(out, Mark{Item: assumptionItem(bit), Prov: ProvEstimated, Label: assumptionField(bit), Value: value, Reason: "model default: " + texts[0]})
 	}
 	return out
 }

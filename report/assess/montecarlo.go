@@ -234,6 +234,7 @@ type sampler struct {
 	margin   float64
 	tab      *[NumUncertainInputs]Uncertainty
 	siteRH   inventory.Quantity
+	rec      driverRecorder // the draws of the object, for its driver (drivers.go)
 	_        [64]byte
 }
 
@@ -283,6 +284,7 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	s.pcg.Seed(s.seed, stream^probeStream)
 	s.prune(&plan, &fields, &in, &env)
 	s.pcg.Seed(s.seed, stream)
+	s.rec.reset(plan.n)
 	rng := s.rng
 	for k := 0; k < s.samples; k++ {
 		for j := 0; j < plan.n; j++ {
@@ -291,6 +293,7 @@ func (s *sampler) object(r *ObjectResult) Probability {
 		ev := model.Evaluate(in, env, *s.lim)
 		c := Classify(&in, &env, &ev, s.lim, s.margin)
 		counts[c.Verdict]++
+		s.rec.add(&fields, &c)
 		if !math.IsNaN(c.Energy) {
 			energies = append(energies, c.Energy)
 		}
@@ -301,6 +304,9 @@ func (s *sampler) object(r *ObjectResult) Probability {
 	p.NonIncendive, p.NotAssessed = float64(counts[NonIncendive])/n, float64(counts[NotAssessed])/n
 	if len(energies) > 0 {
 		p.EnergyP05, p.EnergyP50, p.EnergyP95 = percentiles(energies)
+	}
+	if p.Borderline(r.Verdict) {
+		p.Driver = s.rec.driver(&plan)
 	}
 	return p
 }

@@ -58,7 +58,7 @@ func TestReview2IsolatedConductorWithoutReading(t *testing.T) {
 				t.Errorf("R blank %v milder than R 1e12 %v", blank.Verdict, isolated.Verdict)
 			}
 			if !hasDefault(blank, "Resistance to earth") {
-				t.Errorf("blank resistance: no 'not earthed' default recorded; defaults %+v", blank.Defaults)
+				t.Errorf("blank resistance: no 'not earthed' default recorded; defaults %+v", blank.Marks)
 			}
 		})
 	}
@@ -82,7 +82,7 @@ func TestReview2PersonWithoutReadingOrResistance(t *testing.T) {
 		t.Errorf("flags %v: the estimate must be marked as resting on the assumed resistance", r.Eval.Flags.Texts())
 	}
 	if !hasDefault(r, "Resistance to earth") {
-		t.Errorf("no 'not earthed' default recorded; defaults %+v", r.Defaults)
+		t.Errorf("no 'not earthed' default recorded; defaults %+v", r.Marks)
 	}
 }
 

@@ -30,13 +30,13 @@ func TestBlankGroupAssessedAsIIC(t *testing.T) {
 		t.Errorf("verdict %v, findings %v; want incendive on transferred charge", r.Verdict, r.Findings)
 	}
 	found := false
-	for _, d := range r.Defaults {
-		if d.Field == "Group" && d.Value == "IIC" && strings.Contains(d.Reason, "strictest") {
+	for _, d := range r.Defaults() {
+		if d.Label == "Group" && d.Value == "IIC" && strings.Contains(d.Reason, "strictest") {
 			found = true
 		}
 	}
 	if !found {
-		t.Errorf("no IIC group default beside the value: %v", r.Defaults)
+		t.Errorf("no IIC group default beside the value: %v", r.Marks)
 	}
 	atm.Group = "IIA"
 	if r := one(t, &atm, o, matPET); hasCheck(r, CheckTransferredCharge.Name()) {
@@ -60,8 +60,8 @@ func TestSmallPartExemption(t *testing.T) {
 		t.Errorf("5 pF at 5 kV (62.5 uJ) in 0.24 mJ: want the margin finding, got %v", r.Findings)
 	}
 	exempt := false
-	for _, d := range r.Defaults {
-		if d.Field == "Earthing requirement" {
+	for _, d := range r.Defaults() {
+		if d.Label == "Earthing requirement" {
 			exempt = true
 		}
 	}
@@ -123,7 +123,7 @@ func TestMeasuredAboveMaximumIsAFinding(t *testing.T) {
 		t.Errorf("finding %q: want the reading and the energy at the maximum", msg)
 	}
 	if !hasDefault(r, "Potential used") {
-		t.Errorf("defaults %+v: the potential used for the energy is not marked", r.Defaults)
+		t.Errorf("defaults %+v: the potential used for the energy is not marked", r.Marks)
 	}
 	// A person at 60 kV, 150 pF: above the 15 kV walking-test maximum (Jonassen,
 	// reference section 10.3). derived: 150 pF x (15 kV)^2 / 2 = 16.875 mJ.
@@ -189,13 +189,13 @@ func TestBlankSiteHumidity(t *testing.T) {
 		t.Errorf("RH used %g, want %g", r.Environment.RelativeHumidity, DryDayHumidity)
 	}
 	found := false
-	for _, d := range r.Defaults {
-		if d.Field == "Relative humidity" && strings.HasPrefix(d.Value, "30") {
+	for _, d := range r.Defaults() {
+		if d.Label == "Relative humidity" && strings.HasPrefix(d.Value, "30") {
 			found = true
 		}
 	}
 	if !found {
-		t.Errorf("RH default not recorded: %v", r.Defaults)
+		t.Errorf("RH default not recorded: %v", r.Marks)
 	}
 }
 
@@ -362,13 +362,13 @@ func TestSurfaceSparkCapped(t *testing.T) {
 			t.Errorf("flags %v lack the cap", r.Eval.Flags.Texts())
 		}
 		found := false
-		for _, d := range r.Defaults {
-			if d.Field == "Potential" && strings.Contains(d.Reason, "313 kV") && strings.Contains(d.Reason, "capped") {
+		for _, d := range r.Defaults() {
+			if d.Label == "Potential" && strings.Contains(d.Reason, "313 kV") && strings.Contains(d.Reason, "capped") {
 				found = true
 			}
 		}
 		if !found {
-			t.Errorf("defaults %v do not show the capped estimate", r.Defaults)
+			t.Errorf("defaults %v do not show the capped estimate", r.Marks)
 		}
 	})
 	t.Run("measured never capped", func(t *testing.T) {
@@ -436,7 +436,7 @@ func TestGroupText(t *testing.T) {
 		{&inventory.Atmosphere{Kind: "hybrid", Group: "IIIB"}, "IIIB / gas IIC est."},
 		{&inventory.Atmosphere{Kind: "hybrid", Group: "IIB"}, "IIB"},
 		{&inventory.Atmosphere{Kind: "dust", Group: "IIIB"}, "IIIB"},
-		{&inventory.Atmosphere{Kind: "vapour", Group: "IIA", GroupFromSubstance: true}, "IIA est."},
+		{&inventory.Atmosphere{Kind: "vapour", Group: "IIA", GroupFromSubstance: true}, "IIA lib."}, // from the substance list: library, not an estimate,
 	} {
 		if got := GroupText(c.atm); got != c.want {
 			t.Errorf("GroupText(%+v) = %q, want %q", c.atm, got, c.want)

@@ -1,6 +1,7 @@
 package assess
 
 import (
+	"math"
 	"runtime"
 	"slices"
 	"sort"
@@ -36,6 +37,9 @@ type Streamer struct {
 	none     map[string]float64 // per station: probability that no object is incendive
 	seen     int                // objects assessed so far
 	results  []ObjectResult
+	// mainRatio is, per station (as stations before Finish), the ratio of the
+	// object whose reason is the station's main reason.
+	mainRatio []float64
 	// mitigations holds one copy of each mitigation text: findings repeat a
 	// few dozen texts, some built per finding.
 	mitigations map[string]string
@@ -82,6 +86,7 @@ func NewStreamer(s *inventory.Survey, opts Options) *Streamer {
 		}
 		st.index[sta.ID] = len(st.stations)
 		st.stations = append(st.stations, sr)
+		st.mainRatio = append(st.mainRatio, math.Inf(-1))
 	}
 	return st
 }
@@ -140,10 +145,23 @@ func (st *Streamer) aggregate(o *ObjectResult) {
 		j = len(st.stations)
 		st.index[o.Station.ID] = j
 		st.stations = append(st.stations, StationResult{Station: o.Station, Verdict: NotAssessed, Counts: zeroCounts()})
+		st.mainRatio = append(st.mainRatio, math.Inf(-1))
 	}
 	sr := &st.stations[j]
-	if len(sr.Objects) == 0 || o.Verdict.Severity() > sr.Verdict.Severity() {
+	// The main reason is the worst object's of the station's verdict: the
+	// first with the highest ratio (none counts as below any ratio).
+	ratio := math.Inf(-1)
+	if o.Ratio != nil && !math.IsNaN(*o.Ratio) {
+		ratio = *o.Ratio
+	}
+	switch {
+	case len(sr.Objects) == 0 || o.Verdict.Severity() > sr.Verdict.Severity():
 		sr.Verdict = o.Verdict
+		sr.Main = mainReason(o)
+		st.mainRatio[j] = ratio
+	case o.Verdict == sr.Verdict && ratio > st.mainRatio[j]:
+		sr.Main = mainReason(o)
+		st.mainRatio[j] = ratio
 	}
 	sr.Objects = append(sr.Objects, o.Object.ID)
 	sr.Counts[o.Verdict]++
@@ -169,16 +187,34 @@ func (st *Streamer) aggregate(o *ObjectResult) {
 		}
 		st.none[id] *= 1 - p.Incendive
 	}
-	a.MethodDefaults = mergeDefaults(a.MethodDefaults, o.Defaults)
+	a.MethodDefaults = mergeDefaults(a.MethodDefaults, o.Marks)
+	if o.Borderline() {
+		a.Borderline = append(a.Borderline, BorderlineObject{o.Object.ID, o.Object.Station, o.Verdict, *o.Probability, o.MeasureText()})
+	}
 	st.seen++
 }
 
+// mainReason is the reason an object gives its station's verdict: its first
+// finding of the object's own severity (findings are in check order), else
+// its one-sentence reason.
+func mainReason(o *ObjectResult) MainReason {
+	for _, f := range o.Findings {
+		if f.Severity == o.Verdict {
+			return MainReason{ObjectID: o.Object.ID, Check: f.Check, Text: f.Message}
+		}
+	}
+	return MainReason{ObjectID: o.Object.ID, Text: o.Reason}
+}
+
 // mergeDefaults adds ds to the method defaults as methodDefaults does.
-func mergeDefaults(out, ds []Default) []Default {
+func mergeDefaults(out, ds []Mark) []Mark {
 	for _, d := range ds {
+		if !d.Prov.IsDefault() {
+			continue // a measured or entered value is no default
+		}
 		found := false
 		for j := range out {
-			if out[j].Field == d.Field && out[j].Reason == d.Reason {
+			if out[j].Label == d.Label && out[j].Prov == d.Prov && out[j].Reason == d.Reason {
 				if out[j].Value != d.Value {
 					out[j].Value = "per object (see Objects)"
 				}

@@ -60,13 +60,6 @@ type Finding struct {
 	Basis      string  // the ground the check rests on: standard, clause or table and edition, or a screening choice (Check.Basis)
 }
 
-// Default is one assumed value that fed an object's result, shown beside the value.
-type Default struct {
-	Field  string // the quantity it stands for, e.g. "Capacitance"
-	Value  string // the value with its unit, e.g. "200 pF"
-	Reason string // why and from where, e.g. "typical human body (Saito 1963)"
-}
-
 // ObjectResult is the assessment of one accepted object.
 type ObjectResult struct {
 	Object      inventory.Object
@@ -82,7 +75,9 @@ type ObjectResult struct {
 	Ratio    *float64
 	Reason   string // one sentence: why this verdict (or why not assessed)
 	Findings []Finding
-	Defaults []Default
+	// Marks gives the provenance of the values that fed the result (the
+	// tool's choices with their reasons: Defaults).
+	Marks []Mark
 
 	// Uncertainty, filled only when Options.Samples > 0.
 	Probability *Probability
@@ -98,6 +93,9 @@ type Probability struct {
 	EnergyP05    float64 // J
 	EnergyP50    float64 // J
 	EnergyP95    float64 // J
+	// Driver is, for a borderline object (Borderline), the drawn input that
+	// drives its outcome most (drivers.go); the zero Driver otherwise.
+	Driver Driver
 }
 
 // StationResult is one station's ranked result.
@@ -119,6 +117,43 @@ type StationResult struct {
 	WorstRatioAssumed bool
 	// ProbabilityAnyIncendive, filled only when Options.Samples > 0.
 	ProbabilityAnyIncendive *float64
+	// Main is the reason for the station's verdict: the finding that set it
+	// (the first object with the station's verdict, its first finding of that
+	// severity), or that object's reason where no finding did.
+	Main MainReason
+}
+
+// MainReason is the finding (or object reason) that set a station's verdict.
+type MainReason struct {
+	ObjectID string
+	Check    string // the check's name; "" when no finding set the verdict (non-incendive, not assessed)
+	Text     string // the object's one-sentence reason, or the finding's message
+}
+
+// String is the reason as the audit shows it: "O-12 energy-vs-mie: spark 12 mJ reaches ...".
+func (m MainReason) String() string {
+	if m.ObjectID == "" {
+		return ""
+	}
+	s := m.ObjectID
+	if m.Check != "" {
+		s += " " + m.Check
+	}
+	return s + ": " + m.Text
+}
+
+// RatioText is what the audit shows for a ratio beside a verdict, where it is
+// not a number to read: "n/a" when none was computed (no atmosphere, not
+// assessed), "no discharge" when it is 0 (no discharge possible: a zero beside
+// a hazard verdict would read as "no risk"); "" for a ratio to show as a number.
+func RatioText(r *float64) string {
+	switch {
+	case r == nil || math.IsNaN(*r):
+		return "n/a"
+	case *r == 0:
+		return "no discharge"
+	}
+	return ""
 }
 
 // RatioAssumedText is shown instead of a ratio whose size is an artefact of an
@@ -186,6 +221,19 @@ type Audit struct {
 	Stations []StationResult // ranked, worst first
 	Findings []Finding       // all findings, ordered by severity, then station rank, then object
 	Counts   map[Verdict]int // objects by verdict
-	// MethodDefaults lists, once each, every default the assessment applied across objects.
-	MethodDefaults []Default
+	// MethodDefaults lists, once each, every value the tool chose (estimated,
+	// library, override: Provenance.IsDefault) across objects, with its reason.
+	MethodDefaults []Mark
+	// Borderline lists the borderline objects (ObjectResult.Borderline) in
+	// survey order, with what to measure next; filled only when sampling.
+	Borderline []BorderlineObject
+}
+
+// BorderlineObject is one borderline object as the Summary lists it.
+type BorderlineObject struct {
+	ObjectID    string
+	StationID   string
+	Verdict     Verdict
+	Probability Probability
+	Measure     string // ObjectResult.MeasureText
 }

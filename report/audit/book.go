@@ -45,7 +45,18 @@ func QuantityCell(u book.Unit, si float64) Cell { return Cell{c: book.Quantity(u
 func NumberCell(v float64, numFmt string) Cell { return Cell{c: book.Cell{V: v, NumFmt: numFmt}} }
 
 // RatioCell is a ratio E/MIE in the audit's format; nil is an empty cell.
-func RatioCell(r *float64) Cell { return Cell{c: ratioCell(book.FinitePtr(r))} }
+func RatioCell(r *float64) Cell { return Cell{c: ratioText(book.FinitePtr(r))} }
+
+// FormatRatio is a ratio beside a verdict as text: the number to three
+// significant figures, "no discharge" for 0, "n/a" for none (never a 0 or a
+// dash beside a hazard verdict).
+func FormatRatio(r *float64) string {
+	r = book.FinitePtr(r)
+	if t := assess.RatioText(r); t != "" {
+		return t
+	}
+	return book.FormatRatio(r)
+}
 
 // EmptyCell is an empty, unstyled cell.
 func EmptyCell() Cell { return Cell{} }

@@ -187,9 +187,9 @@ func testAudit() *assess.Audit {
 	in9.Description = "Loose metal chute"
 
 	atm1, atm2 := atmTol, atmDust
-	personDefault := assess.Default{Field: "Capacitance", Value: "200 pF", Reason: "typical human body (Saito 1963)"}
-	notEarthed := assess.Default{Field: "Resistance to earth", Value: "1.0e13 Ω", Reason: "not measured: taken as not earthed"}
-	rollerCap := assess.Default{Field: "Capacitance", Value: "30 pF", Reason: "cylinder over an earthed plane, 2 π ε0 L / arcosh(h/r)"}
+	personDefault := assess.Mark{Item: assess.ItemCapacitance, Prov: assess.ProvEstimated, Label: "Capacitance", Value: "200 pF", Reason: "typical human body (Saito 1963)"}
+	notEarthed := assess.Mark{Item: assess.ItemResistance, Prov: assess.ProvEstimated, Label: "Resistance to earth", Value: "1.0e13 Ω", Reason: "not measured: taken as not earthed"}
+	rollerCap := assess.Mark{Item: assess.ItemCapacitance, Prov: assess.ProvEstimated, Label: "Capacitance", Value: "30 pF", Reason: "cylinder over an earthed plane, 2 π ε0 L / arcosh(h/r)"}
 
 	f := []assess.Finding{
 		{ObjectID: "O5", StationID: "S2", Check: "energy-vs-mie", Severity: assess.Incendive,
@@ -227,9 +227,9 @@ func testAudit() *assess.Audit {
 			Ratio: ptr(4e-3 / 0.24e-3), Reason: "brush discharge 4 mJ reaches the MIE 0.24 mJ", Findings: byObj("O1"),
 			Probability: &assess.Probability{Samples: 1000, Incendive: 0.93, Marginal: 0.07, EnergyP05: 4e-3, EnergyP50: 4e-3, EnergyP95: 4e-3}},
 		{Object: in2, Station: st1, Atmosphere: &atm1, Environment: envTol, Eval: o2, Verdict: assess.Incendive,
-			Ratio: ptr(0.375e-3 / 0.24e-3), Reason: "spark 0.375 mJ reaches the MIE 0.24 mJ", Findings: byObj("O2"), Defaults: []assess.Default{rollerCap, notEarthed}},
+			Ratio: ptr(0.375e-3 / 0.24e-3), Reason: "spark 0.375 mJ reaches the MIE 0.24 mJ", Findings: byObj("O2"), Marks: []assess.Mark{rollerCap, notEarthed}},
 		{Object: in3, Station: st1, Atmosphere: &atm1, Environment: envTol, Eval: o3, Verdict: assess.Incendive,
-			Ratio: ptr(10e-3 / 0.24e-3), Reason: "spark 10 mJ reaches the MIE 0.24 mJ", Findings: byObj("O3"), Defaults: []assess.Default{personDefault}},
+			Ratio: ptr(10e-3 / 0.24e-3), Reason: "spark 10 mJ reaches the MIE 0.24 mJ", Findings: byObj("O3"), Marks: []assess.Mark{personDefault}},
 		{Object: in4, Station: st2, Atmosphere: &atm2, Environment: envDust, Eval: o4, Verdict: assess.NonIncendive,
 			Ratio: ptr(0), Reason: "no discharge possible"},
 		{Object: in5, Station: st2, Atmosphere: &atm2, Environment: envDust, Eval: o5, Verdict: assess.Incendive,
@@ -251,16 +251,17 @@ func testAudit() *assess.Audit {
 		Stations: []assess.StationResult{
 			{Station: st1, Atmosphere: &atm1, Rank: 1, Verdict: assess.Incendive, WorstRatio: ptr(10e-3 / 0.24e-3),
 				Objects: []string{"O1", "O2", "O3", "O8"}, Counts: map[assess.Verdict]int{assess.Incendive: 3, assess.NonIncendive: 1},
-				ProbabilityAnyIncendive: ptr(0.995)},
+				ProbabilityAnyIncendive: ptr(0.995), Main: assess.MainReason{ObjectID: "O3", Check: "energy-vs-mie", Text: f[2].Message}},
 			{Station: st2, Atmosphere: &atm2, Rank: 2, Verdict: assess.Incendive, WorstRatio: ptr(o5.StoredEnergy / 10e-3),
 				Objects: []string{"O4", "O5", "O6"}, Counts: map[assess.Verdict]int{assess.Incendive: 1, assess.NonIncendive: 2},
-				ProbabilityAnyIncendive: ptr(1)},
+				ProbabilityAnyIncendive: ptr(1), Main: assess.MainReason{ObjectID: "O5", Check: "energy-vs-mie", Text: f[0].Message}},
 			{Station: st3, Rank: 3, Verdict: assess.Marginal, WorstRatio: nil,
-				Objects: []string{"O7", "O9"}, Counts: map[assess.Verdict]int{assess.Marginal: 1, assess.NotAssessed: 1}},
+				Objects: []string{"O7", "O9"}, Counts: map[assess.Verdict]int{assess.Marginal: 1, assess.NotAssessed: 1},
+				Main: assess.MainReason{ObjectID: "O7", Check: "insulating-area", Text: f[5].Message}},
 		},
 		Findings:       f,
 		Counts:         map[assess.Verdict]int{assess.Incendive: 4, assess.Marginal: 1, assess.NonIncendive: 3, assess.NotAssessed: 1},
-		MethodDefaults: []assess.Default{personDefault, rollerCap, notEarthed},
+		MethodDefaults: []assess.Mark{personDefault, rollerCap, notEarthed},
 	}
 }
 

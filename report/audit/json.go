@@ -67,6 +67,9 @@ type jsonSite struct {
 	AirTemperatureK     *float64 `json:"air_temperature_K"`
 	RequiredMargin      *float64 `json:"required_margin"`
 	Defaults            []string `json:"defaults"`
+	// Provenance of the site values: relative_humidity, air_temperature,
+	// required_margin ("entered", "estimated", "override").
+	Provenance map[string]string `json:"provenance"`
 }
 
 // jsonVerdictCounts holds counts or probabilities keyed by the verdict spelling.
@@ -114,8 +117,13 @@ type jsonStation struct {
 	// WorstRatioAssumedResistance: worst_ratio is an artefact of an assumed
 	// resistance to earth (read it as at least 1); the rank rests on it.
 	WorstRatioAssumedResistance bool `json:"worst_ratio_assumed_resistance"`
-	// GroupAssessed is the group the station was assessed with, "est." when assumed.
+	// GroupAssessed is the group the station was assessed with, "est." when
+	// assumed, "lib." when from the substance list.
 	GroupAssessed string `json:"group_assessed,omitempty"`
+	// WorstRatioText says why worst_ratio is no number to read: "n/a" or "no discharge".
+	WorstRatioText string `json:"worst_ratio_text,omitempty"`
+	// MainReason is the finding (or object reason) that set the verdict.
+	MainReason *jsonMainReason `json:"main_reason,omitempty"`
 }
 
 type jsonDischarge struct {
@@ -134,10 +142,20 @@ type jsonFinding struct {
 	Basis      string `json:"basis"`
 }
 
+// jsonDefault is one value the tool chose for an object (estimated, library
+// or override), with its reason.
 type jsonDefault struct {
-	Field  string `json:"field"`
-	Value  string `json:"value"`
-	Reason string `json:"reason"`
+	Field      string `json:"field"`
+	Value      string `json:"value"`
+	Reason     string `json:"reason"`
+	Provenance string `json:"provenance"`
+}
+
+// jsonMainReason is the finding (or object reason) that set a station's verdict.
+type jsonMainReason struct {
+	Object string `json:"object"`
+	Check  string `json:"check"`
+	Text   string `json:"text"`
 }
 
 type jsonProbability struct {
@@ -145,52 +163,73 @@ type jsonProbability struct {
 	Marginal     float64 `json:"marginal"`
 	NonIncendive float64 `json:"non-incendive"`
 	NotAssessed  float64 `json:"not assessed"`
+	// Borderline: the point verdict differs from the most likely sampled one,
+	// or the more severe verdicts exceed assess.BorderlineThreshold.
+	Borderline bool `json:"borderline"`
+	// Driver is, for a borderline object, the drawn input that drives its
+	// outcome most and what measuring it settles.
+	Driver *jsonDriver `json:"driver,omitempty"`
+}
+
+// jsonDriver is the input that drives a borderline object's outcome most.
+type jsonDriver struct {
+	Input       string  `json:"input"`
+	Correlation float64 `json:"rank_correlation"`
+	Advice      string  `json:"advice"`
 }
 
 type jsonObject struct {
-	ID                     string           `json:"id"`
-	Station                string           `json:"station"`
-	Kind                   string           `json:"kind"`
-	Verdict                string           `json:"verdict"`
-	Reason                 string           `json:"reason"`
-	Ratio                  *float64         `json:"ratio"`
-	EnergyJ                *float64         `json:"energy_J"`
-	EffectiveDischarge     *string          `json:"effective_discharge"`
-	PotentialV             *float64         `json:"potential_V"`
-	CapacitanceF           *float64         `json:"capacitance_F"`
-	CapacitanceMeasured    bool             `json:"capacitance_measured"`
-	ChargeDensityCPerM2    *float64         `json:"charge_density_C_per_m2"`
-	SurfaceFieldVPerM      *float64         `json:"surface_field_V_per_m"`
-	ChargingCurrentA       *float64         `json:"charging_current_A"`
-	StoredEnergyJ          *float64         `json:"stored_energy_J"`
-	TransferredChargeC     *float64         `json:"transferred_charge_C"`
-	InsulatingAreaM2       *float64         `json:"insulating_area_m2"`
-	SurfaceResistivityOhm  *float64         `json:"surface_resistivity_ohm"`
-	DecayTimeS             *float64         `json:"decay_time_s"`
-	TimeTo100VS            *float64         `json:"time_to_100V_s"`
-	RelaxationTimeS        *float64         `json:"relaxation_time_s"`
-	StreamingCurrentA      *float64         `json:"streaming_current_A"`
-	VelocityDiameterM2PerS *float64         `json:"velocity_diameter_m2_per_s"`
-	AirFieldVPerM          *float64         `json:"air_field_V_per_m"`
-	LayerFieldVPerM        *float64         `json:"layer_field_V_per_m"`
-	LayerVoltageV          *float64         `json:"layer_voltage_V"`
-	LayerBreakdownV        *float64         `json:"layer_breakdown_V"`
-	LayerBreakdownSource   *string          `json:"layer_breakdown_source"`
-	ChargingDensityAPerM2  *float64         `json:"charging_current_density_A_per_m2"`
-	ProcessMaterial        *bool            `json:"process_material"`
-	IsolatedConductor      bool             `json:"isolated_conductor"`
-	VDLimitM2PerS          *float64         `json:"vd_limit_m2_per_s,omitempty"`
-	VelocityLimitMPerS     *float64         `json:"velocity_limit_m_per_s,omitempty"`
-	ChargeFactor           *float64         `json:"charge_factor,omitempty"`
-	FilterResidenceS       *float64         `json:"filter_residence_needed_s,omitempty"`
-	FillingClausesNotMet   []string         `json:"filling_clauses_not_met,omitempty"`
-	Discharges             []jsonDischarge  `json:"discharges"`
-	Findings               []jsonFinding    `json:"findings"`
-	Defaults               []jsonDefault    `json:"defaults"`
-	Probability            *jsonProbability `json:"probability,omitempty"`
-	EnergyJP05             *float64         `json:"energy_J_p05,omitempty"`
-	EnergyJP50             *float64         `json:"energy_J_p50,omitempty"`
-	EnergyJP95             *float64         `json:"energy_J_p95,omitempty"`
+	ID                     string          `json:"id"`
+	Station                string          `json:"station"`
+	Kind                   string          `json:"kind"`
+	Verdict                string          `json:"verdict"`
+	Reason                 string          `json:"reason"`
+	Ratio                  *float64        `json:"ratio"`
+	EnergyJ                *float64        `json:"energy_J"`
+	EffectiveDischarge     *string         `json:"effective_discharge"`
+	PotentialV             *float64        `json:"potential_V"`
+	CapacitanceF           *float64        `json:"capacitance_F"`
+	CapacitanceMeasured    bool            `json:"capacitance_measured"`
+	ChargeDensityCPerM2    *float64        `json:"charge_density_C_per_m2"`
+	SurfaceFieldVPerM      *float64        `json:"surface_field_V_per_m"`
+	ChargingCurrentA       *float64        `json:"charging_current_A"`
+	StoredEnergyJ          *float64        `json:"stored_energy_J"`
+	TransferredChargeC     *float64        `json:"transferred_charge_C"`
+	InsulatingAreaM2       *float64        `json:"insulating_area_m2"`
+	SurfaceResistivityOhm  *float64        `json:"surface_resistivity_ohm"`
+	DecayTimeS             *float64        `json:"decay_time_s"`
+	TimeTo100VS            *float64        `json:"time_to_100V_s"`
+	RelaxationTimeS        *float64        `json:"relaxation_time_s"`
+	StreamingCurrentA      *float64        `json:"streaming_current_A"`
+	VelocityDiameterM2PerS *float64        `json:"velocity_diameter_m2_per_s"`
+	AirFieldVPerM          *float64        `json:"air_field_V_per_m"`
+	LayerFieldVPerM        *float64        `json:"layer_field_V_per_m"`
+	LayerVoltageV          *float64        `json:"layer_voltage_V"`
+	LayerBreakdownV        *float64        `json:"layer_breakdown_V"`
+	LayerBreakdownSource   *string         `json:"layer_breakdown_source"`
+	ChargingDensityAPerM2  *float64        `json:"charging_current_density_A_per_m2"`
+	ProcessMaterial        *bool           `json:"process_material"`
+	IsolatedConductor      bool            `json:"isolated_conductor"`
+	VDLimitM2PerS          *float64        `json:"vd_limit_m2_per_s,omitempty"`
+	VelocityLimitMPerS     *float64        `json:"velocity_limit_m_per_s,omitempty"`
+	ChargeFactor           *float64        `json:"charge_factor,omitempty"`
+	FilterResidenceS       *float64        `json:"filter_residence_needed_s,omitempty"`
+	FillingClausesNotMet   []string        `json:"filling_clauses_not_met,omitempty"`
+	Discharges             []jsonDischarge `json:"discharges"`
+	Findings               []jsonFinding   `json:"findings"`
+	Defaults               []jsonDefault   `json:"defaults"`
+	// Provenance gives, per value that fed the result, where it came from:
+	// "measured", "entered", "library", "estimated" or "override" (keys:
+	// relative_humidity, mie, group, zone, material, capacitance,
+	// resistance_to_earth, potential, charging_current, ...; assess.Item.Key).
+	Provenance map[string]string `json:"provenance"`
+	// RatioText says why ratio is no number to read: "n/a" (null ratio) or
+	// "no discharge" (ratio 0); absent for a ratio to read.
+	RatioText   string           `json:"ratio_text,omitempty"`
+	Probability *jsonProbability `json:"probability,omitempty"`
+	EnergyJP05  *float64         `json:"energy_J_p05,omitempty"`
+	EnergyJP50  *float64         `json:"energy_J_p50,omitempty"`
+	EnergyJP95  *float64         `json:"energy_J_p95,omitempty"`
 	// EnergyNote qualifies energy_J where the number is not to be read as it
 	// stands: "at least the MIE (assumed resistance dominates)".
 	EnergyNote string `json:"energy_note,omitempty"`
@@ -259,6 +298,7 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 			AirTemperatureK:     book.Finite(s.Site.AirTemperature.OrNaN()),
 			RequiredMargin:      book.Finite(s.Site.RequiredMargin.OrNaN()),
 			Defaults:            s.Site.DefaultTexts(),
+			Provenance:          map[string]string{},
 		},
 		Counts: jsonCounts{
 			Objects:  verdictCounts(a.Counts),
@@ -270,6 +310,9 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 		Rejected: []jsonProblem{},
 		Warnings: []jsonProblem{},
 		Cautions: templates.Cautions(),
+	}
+	for _, sv := range siteValues(s.Site) {
+		doc.Site.Provenance[sv.item.Key()] = sv.prov.String()
 	}
 	if a.Options.Samples > 0 {
 		tab := a.Options.Uncertainties
@@ -295,7 +338,10 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 			Objects: append([]string{}, st.Objects...), Counts: verdictCounts(st.Counts),
 			ProbabilityAnyIncendive: book.FinitePtr(st.ProbabilityAnyIncendive),
 			RejectedRows:            st.RejectedRows, WorstRatioAssumedResistance: st.WorstRatioAssumed,
-			GroupAssessed: assess.GroupText(st.Atmosphere),
+			GroupAssessed: assess.GroupText(st.Atmosphere), WorstRatioText: stationRatioText(st),
+		}
+		if st.Main.ObjectID != "" {
+			js.MainReason = &jsonMainReason{st.Main.ObjectID, st.Main.Check, st.Main.Text}
 		}
 		if at := st.Atmosphere; at != nil {
 			js.Atmosphere = strPtr(at.ID)
@@ -385,11 +431,24 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 	for _, f := range o.Findings {
 		jo.Findings = append(jo.Findings, jsonFinding{f.Check, f.Severity.String(), f.Message, f.Mitigation, f.Basis})
 	}
-	for _, d := range o.Defaults {
-		jo.Defaults = append(jo.Defaults, jsonDefault{d.Field, d.Value, d.Reason})
+	for _, d := range o.Defaults() {
+		jo.Defaults = append(jo.Defaults, jsonDefault{d.Label, d.Value, d.Reason, d.Prov.String()})
+	}
+	jo.Provenance = map[string]string{}
+	for _, m := range o.Marks {
+		if k := m.Item.Key(); k != "" {
+			jo.Provenance[k] = o.Provenance(m.Item).String()
+		}
+	}
+	jo.RatioText = assess.RatioText(o.Ratio)
+	if jo.RatioText == "" && o.RatioAssumed() {
+		jo.RatioText = assess.RatioAssumedText
 	}
 	if p := o.Probability; p != nil {
-		jo.Probability = &jsonProbability{p.Incendive, p.Marginal, p.NonIncendive, p.NotAssessed}
+		jo.Probability = &jsonProbability{Incendive: p.Incendive, Marginal: p.Marginal, NonIncendive: p.NonIncendive, NotAssessed: p.NotAssessed, Borderline: o.Borderline()}
+		if d := p.Driver; d.Input != "" {
+			jo.Probability.Driver = &jsonDriver{d.Input, d.Correlation, o.MeasureText()}
+		}
 		jo.EnergyJP05 = book.Finite(p.EnergyP05)
 		jo.EnergyJP50 = book.Finite(p.EnergyP50)
 		jo.EnergyJP95 = book.Finite(p.EnergyP95)

@@ -371,12 +371,12 @@ func (wb *workbook) method() error {
 	}
 	r++
 
-	if err := section("Defaults applied", []string{"Quantity", "Value", "", "", "Why and from where"}); err != nil {
+	if err := section("Defaults applied", []string{"Quantity", "Value", "Provenance", "", "Why and from where"}); err != nil {
 		return err
 	}
 	nd := 0
 	for _, d := range a.MethodDefaults {
-		if err := put(book.WrapText(d.Field), book.WrapText(d.Value), book.Cell{}, book.Cell{}, book.WrapText(d.Reason)); err != nil {
+		if err := put(book.WrapText(d.Label), book.WrapText(d.Value), book.Text(d.Prov.String()), book.Cell{}, book.WrapText(d.Reason)); err != nil {
 			return err
 		}
 		nd++
@@ -385,7 +385,7 @@ func (wb *workbook) method() error {
 	for _, d := range site.Defaults {
 		listed := false
 		for _, m := range a.MethodDefaults {
-			if d.Item == m.Field {
+			if d.Item == m.Label {
 				listed = true
 			}
 		}
@@ -401,6 +401,24 @@ func (wb *workbook) method() error {
 		if err := put(book.Text("none: every value was measured or given")); err != nil {
 			return err
 		}
+	}
+	r++
+
+	// The legend of the provenance marks beside values (assess.ProvenanceLegend).
+	if err := section("Provenance of values", []string{"Mark", "Provenance", "", "", "Meaning"}); err != nil {
+		return err
+	}
+	for _, l := range assess.ProvenanceLegend {
+		mark := l.Prov.Mark()
+		if mark == "" {
+			mark = "(none)"
+		}
+		if err := put(book.Code(mark), book.Text(l.Prov.String()), book.Cell{}, book.Cell{}, book.WrapText(l.Text)); err != nil {
+			return err
+		}
+	}
+	if err := put(book.Cell{}, book.Cell{}, book.Cell{}, book.Cell{}, book.WrapText("A computed value (energy, potential, charging current, capacitance) is marked est. when it rests on an estimated input; otherwise it carries no mark.")); err != nil {
+		return err
 	}
 	r++
 
@@ -468,8 +486,20 @@ func (wb *workbook) methodUncertainty(section func(string, []string) error, put 
 		book.WrapText("a relative standard uncertainty; a log-normal row takes it as a factor 1 + x")); err != nil {
 		return err
 	}
-	return put(book.WrapText("Draws"), book.WrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), book.Cell{}, book.Cell{},
+	if err := put(book.WrapText("Draws"), book.WrapText(fmt.Sprintf("%d per object, seed %d", a.Options.Samples, a.Options.Seed)), book.Cell{}, book.Cell{},
 		book.WrapText("each object its own stream (seed and object ID): results depend neither on the number of workers nor on the row order; "+
 			"inputs drawn independently, materials and limits not drawn; a station's P(any incendive) is 1 - Π(1 - P(incendive)) over its objects, "+
-			"taken as independent (an upper bound, since they share the MIE and humidity)"))
+			"taken as independent (an upper bound, since they share the MIE and humidity)")); err != nil {
+		return err
+	}
+	if err := put(book.WrapText("Borderline"), book.WrapText(fmt.Sprintf("more severe verdicts above %.0f %%", 100*assess.BorderlineThreshold)), book.Cell{}, book.Cell{},
+		book.WrapText(fmt.Sprintf("a screening choice of this tool: an object is flagged borderline when its point verdict differs from its most likely sampled verdict, "+
+			"or when the verdicts more severe than its point verdict together have a sampled probability above %.0f %% (one draw in ten)", 100*assess.BorderlineThreshold))); err != nil {
+		return err
+	}
+	return put(book.WrapText("What to measure next"), book.WrapText("the input that drives a borderline object most"), book.Cell{}, book.Cell{},
+		book.WrapText("a screening choice of this tool: of the inputs drawn for the object, the one whose draws have the largest absolute Spearman rank correlation "+
+			"with the outcome of the draw (ranked by verdict, then by E/MIE); inputs are drawn independently, so measuring it narrows the outcome the most. "+
+			"Inputs not drawn (material properties, limits, values not given) cannot be named: see Defaults applied. "+
+			fmt.Sprintf("Below an absolute rank correlation of %.1f no input is named (it would explain under a tenth of the spread)", assess.WeakDriver)))
 }

@@ -57,31 +57,34 @@ func dischargeReason(d model.Discharge) string {
 	return ""
 }
 
-// hasDefault reports whether one of the object's assumed defaults stands for
-// the named quantity (case-insensitive, "Capacitance" matches "capacitance of the drum").
 // EnergyAtLeastMIE is how the audit shows an energy set by an assumed (unknown)
 // resistance to earth that reaches the MIE: not as the estimate's kilojoules.
 const EnergyAtLeastMIE = "at least the MIE (assumed resistance dominates)"
 
-func hasDefault(o *assess.ObjectResult, names ...string) bool {
-	for _, d := range o.Defaults {
-		f := strings.ToLower(d.Field)
-		for _, n := range names {
-			if strings.HasPrefix(f, strings.ToLower(n)) {
-				return true
-			}
+// estimated reports whether any of the items is estimated on the object (a
+// computed value resting on it is marked est.).
+func estimated(o *assess.ObjectResult, items ...assess.Item) bool {
+	for _, it := range items {
+		if o.Provenance(it) == assess.ProvEstimated {
+			return true
 		}
 	}
 	return false
 }
 
-// defaultsText lists an object's defaults compactly, "Capacitance = 200 pF;
-// Resistance to earth = 1e13 Ω": the reasons are on the Method sheet (and in
-// the JSON), so that a row stays a few lines high in print.
-func defaultsText(ds []assess.Default) string {
-	parts := make([]string, 0, len(ds))
-	for _, d := range ds {
-		parts = append(parts, d.Field+" = "+d.Value)
+// defaultsText lists the values the tool chose for an object (estimated,
+// library, override) compactly with their marks, "Capacitance = 200 pF est.;
+// Material = PE lib.": the reasons are on the Method sheet (and in the JSON),
+// so that a row stays a few lines high in print. The site's own values
+// (margin, temperature) are on the Summary, not repeated on every row.
+func defaultsText(o *assess.ObjectResult) string {
+	var parts []string
+	for _, d := range o.Defaults() {
+		switch d.Item {
+		case assess.ItemRequiredMargin, assess.ItemAirTemperature, assess.ItemSite:
+			continue
+		}
+		parts = append(parts, d.Label+" = "+d.Value+" "+d.Prov.Mark())
 	}
 	return strings.Join(parts, "; ")
 }
@@ -110,10 +113,50 @@ func inQ(u book.Unit, q inventory.Quantity) book.Cell {
 	return book.Quantity(u, q.Value)
 }
 
-// est marks a cell as fed by an assumed default.
+// est marks a cell as fed by an estimate.
 func est(c book.Cell, assumed bool) book.Cell {
-	c.Est = assumed && c.V != nil
+	if assumed {
+		return marked(c, assess.ProvEstimated)
+	}
 	return c
+}
+
+// marked returns the cell with the mark of provenance p: in the number format
+// of a number (it stays a number), after the text of a text; a measured value
+// and an empty cell carry none.
+func marked(c book.Cell, p assess.Provenance) book.Cell {
+	m := p.Mark()
+	if c.V == nil || m == "" {
+		return c
+	}
+	if s, ok := c.V.(string); ok {
+		c.V = s + " " + m
+		return c
+	}
+	c.Mark = m
+	return c
+}
+
+// groupCell is the assessed group of an atmosphere with its mark: lib. or
+// est. from GroupText, ent. for a group the surveyor typed.
+func groupCell(a *inventory.Atmosphere) book.Cell {
+	if a == nil {
+		return book.Cell{}
+	}
+	g := assess.GroupText(a)
+	if g != "" && g == a.Group {
+		g += " " + assess.ProvEntered.Mark()
+	}
+	return book.Code(g)
+}
+
+// ratioText is the ratio cell beside a verdict: the ratio, or why there is
+// none ("n/a", "no discharge"): never a 0 beside a hazard verdict.
+func ratioText(r *float64) book.Cell {
+	if t := assess.RatioText(r); t != "" {
+		return book.Code(t)
+	}
+	return ratioCell(r)
 }
 
 func boolText(b bool) string {
@@ -168,17 +211,45 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			return book.Quantity(u, f(&o.Eval))
 		}
 	}
-	cols := []book.Column[objRow]{
+	var cols []book.Column[objRow]
+	cols = append(cols, []book.Column[objRow]{
 		{Header: "Object", Width: 12, Value: func(o objRow) book.Cell { return book.Text(o.Object.ID) }},
 		{Header: "Station", Width: 10, Value: func(o objRow) book.Cell { return book.Text(o.Object.Station) }},
 		{Header: "Kind", Width: 10, Value: func(o objRow) book.Cell { return book.Text(o.Object.Kind) }},
 		{Header: "Description", Width: 26, Value: func(o objRow) book.Cell { return book.WrapText(o.Object.Description) }},
 		{Header: "Verdict", Width: 14, Value: func(o objRow) book.Cell { return verdictCell(o.Verdict) }},
+	}...)
+	if withProbability {
+		// The sampled verdicts beside the point verdict; "n/a" where nothing was sampled.
+		p := func(f func(*assess.Probability) float64) func(objRow) book.Cell {
+			return func(o objRow) book.Cell {
+				if !sampled(o) {
+					return book.Code("n/a")
+				}
+				return book.Quantity(book.UnitProbability, f(o.Probability))
+			}
+		}
+		cols = append(cols,
+			book.Column[objRow]{Header: "Borderline", Width: 11, Value: func(o objRow) book.Cell {
+				if !sampled(o) {
+					return book.Code("n/a")
+				}
+				if o.Borderline() {
+					return book.Code("borderline")
+				}
+				return book.Cell{}
+			}},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Incendive })},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(marginal)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Marginal })},
+			book.Column[objRow]{Header: book.UnitProbability.Header("P(non-incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.NonIncendive })},
+		)
+	}
+	cols = append(cols, []book.Column[objRow]{
 		{Header: book.UnitRatio.Header("Ratio E/MIE"), Width: 10, Value: func(o objRow) book.Cell {
 			if o.RatioAssumed() {
 				return book.Text(assess.RatioAssumedText) // beside "at least the MIE": no figure to read
 			}
-			return ratioCell(o.Ratio)
+			return ratioText(o.Ratio)
 		}},
 		{Header: book.UnitMJ.Header("Effective energy"), Width: 11, Value: func(o objRow) book.Cell {
 			if !o.EnergyStated() {
@@ -191,11 +262,11 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			switch {
 			case o.Eval.EffectiveEnergy <= 0:
 			case o.Eval.Effective == model.Brush:
-				c = est(c, hasDefault(o, "brush"))
+				c = marked(c, o.Provenance(assess.ItemBrushEnergy))
 			case o.Eval.Effective == model.PropagatingBrush:
-				c = est(c, hasDefault(o, "propagating"))
+				c = marked(c, o.Provenance(assess.ItemPropagatingEnergy))
 			case o.Eval.Effective == model.Spark:
-				c = est(c, hasDefault(o, "capacitance", "body potential", "potential used"))
+				c = est(c, estimated(o, assess.ItemCapacitance, assess.ItemPotential))
 			}
 			return c
 		}},
@@ -207,10 +278,12 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 		}},
 		{Header: "Reason", Width: 48, Value: func(o objRow) book.Cell { return book.WrapText(o.Reason) }},
 		{Header: "Findings [count]", Width: 9, Value: func(o objRow) book.Cell { return book.Integer(len(o.Findings)) }},
-		{Header: "Defaults applied (values marked est.; reasons on Method)", Width: 48, Value: func(o objRow) book.Cell { return book.WrapText(defaultsText(o.Defaults)) }},
+		{Header: defaultsHeader, Width: 48, Value: func(o objRow) book.Cell { return book.WrapText(defaultsText(o)) }},
 
 		// Surveyed inputs.
-		{Header: "Material", Width: 14, Value: func(o objRow) book.Cell { return book.OptText(o.Object.Material) }},
+		{Header: "Material", Width: 14, Value: func(o objRow) book.Cell {
+			return marked(book.OptText(o.Object.Material), o.Provenance(assess.ItemMaterial)) // the name is the row's; lib./ent. say where its properties come from
+		}},
 		{Header: book.UnitMetre.Header("Length"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.Length) }},
 		{Header: book.UnitMetre.Header("Width"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.Width) }},
 		{Header: book.UnitMetre.Header("Diameter"), Width: 9, Value: func(o objRow) book.Cell { return inQ(book.UnitMetre, o.Object.Diameter) }},
@@ -243,33 +316,32 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 
 		// Environment.
 		{Header: book.UnitPercentRH.Header("RH used"), Width: 8, Value: func(o objRow) book.Cell {
-			return est(book.Quantity(book.UnitPercentRH, o.Environment.RelativeHumidity), hasDefault(o, "relative humidity", "rh"))
+			return marked(book.Quantity(book.UnitPercentRH, o.Environment.RelativeHumidity), o.Provenance(assess.ItemRelativeHumidity))
 		}},
 		{Header: "Atmosphere", Width: 18, Value: func(o objRow) book.Cell { return book.WrapText(atmosphereText(o.Atmosphere)) }},
 		{Header: book.UnitMJ.Header("MIE"), Width: 9, Value: func(o objRow) book.Cell {
-			c := book.Quantity(book.UnitMJ, atmosphereMIE(o.Atmosphere))
-			return est(c, o.Atmosphere != nil && o.Atmosphere.MIEFromSubstance || hasDefault(o, "mie"))
+			return marked(book.Quantity(book.UnitMJ, atmosphereMIE(o.Atmosphere)), o.Provenance(assess.ItemMIE))
 		}},
 		{Header: "Zone", Width: 7, Value: func(o objRow) book.Cell {
 			if o.Atmosphere == nil {
 				return book.Cell{}
 			}
-			if o.Atmosphere.Zone == "" && hasDefault(o, "zone") {
-				return book.Code(o.Environment.Zone.String() + " est.")
+			if o.Atmosphere.Zone == "" {
+				return marked(book.Code(o.Environment.Zone.String()), o.Provenance(assess.ItemZone))
 			}
-			return book.Code(o.Atmosphere.Zone)
+			return marked(book.Code(o.Atmosphere.Zone), assess.ProvEntered)
 		}},
 		{Header: "Group", Width: 7, Value: func(o objRow) book.Cell {
 			if o.Atmosphere == nil {
 				return book.Cell{}
 			}
-			return book.Code(assess.GroupText(o.Atmosphere)) // the assessed group, "est." when assumed
+			return groupCell(o.Atmosphere) // the assessed group with its mark
 		}},
 
 		// Computed quantities.
 		{Header: book.UnitPF.Header("Capacitance"), Width: 10, Value: func(o objRow) book.Cell {
 			c := book.Quantity(book.UnitPF, o.Eval.Capacitance)
-			return est(c, !o.Object.Capacitance.Known || hasDefault(o, "capacitance"))
+			return est(c, !o.Object.Capacitance.Known || estimated(o, assess.ItemCapacitance))
 		}},
 		{Header: "Capacitance basis", Width: 14, Value: func(o objRow) book.Cell {
 			if math.IsNaN(o.Eval.Capacitance) {
@@ -278,10 +350,10 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			if o.Object.Capacitance.Known {
 				return book.Text("measured")
 			}
-			return book.Text("est.: " + enumText(o.Eval.CapacitanceModel))
+			return book.Text("estimated: " + enumText(o.Eval.CapacitanceModel))
 		}},
 		{Header: book.UnitKV.Header("Potential"), Width: 10, Value: func(o objRow) book.Cell {
-			return est(book.Quantity(book.UnitKV, o.Eval.Potential), hasDefault(o, "body potential", "potential"))
+			return est(book.Quantity(book.UnitKV, o.Eval.Potential), estimated(o, assess.ItemPotential))
 		}},
 		{Header: "Potential source", Width: 14, Value: func(o objRow) book.Cell {
 			if math.IsNaN(o.Eval.Potential) {
@@ -292,7 +364,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 		{Header: book.UnitUCPerM2.Header("Charge density"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.ChargeDensity }, book.UnitUCPerM2)},
 		{Header: book.UnitKVPerM.Header("Surface field"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.SurfaceField }, book.UnitKVPerM)},
 		{Header: book.UnitUA.Header("Charging current"), Width: 10, Value: func(o objRow) book.Cell {
-			return est(book.Quantity(book.UnitUA, o.Eval.ChargingCurrent), hasDefault(o, "charging current"))
+			return est(book.Quantity(book.UnitUA, o.Eval.ChargingCurrent), estimated(o, assess.ItemChargingCurrent))
 		}},
 		{Header: book.UnitMJ.Header("Stored energy"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.StoredEnergy }, book.UnitMJ)},
 		{Header: book.UnitNC.Header("Transferred charge"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.TransferredCharge }, book.UnitNC)},
@@ -353,7 +425,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			}
 			return book.Text("yes: assessed for a spark")
 		}},
-	}
+	}...)
 	if withProbability {
 		p := func(f func(*assess.Probability) float64, u book.Unit) func(objRow) book.Cell {
 			return func(o objRow) book.Cell {
@@ -370,15 +442,19 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 				}
 				return book.Integer(o.Probability.Samples)
 			}},
-			book.Column[objRow]{Header: book.UnitProbability.Header("P(incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Incendive }, book.UnitProbability)},
-			book.Column[objRow]{Header: book.UnitProbability.Header("P(marginal)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.Marginal }, book.UnitProbability)},
-			book.Column[objRow]{Header: book.UnitProbability.Header("P(non-incendive)"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.NonIncendive }, book.UnitProbability)},
 			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P05"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP05 }, book.UnitMJ)},
 			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P50"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP50 }, book.UnitMJ)},
 			book.Column[objRow]{Header: book.UnitMJ.Header("Energy P95"), Width: 10, Value: p(func(q *assess.Probability) float64 { return q.EnergyP95 }, book.UnitMJ)},
+			book.Column[objRow]{Header: "What to measure next", Width: 40, Value: func(o objRow) book.Cell { return book.WrapText(o.MeasureText()) }},
 		)
 	}
 	return cols
+}
+
+// sampled reports whether the object's verdicts were sampled (it was
+// assessed and has a Probability).
+func sampled(o *assess.ObjectResult) bool {
+	return o.Probability != nil && o.Verdict != assess.NotAssessed && o.Probability.NotAssessed < 1
 }
 
 // anyProbability reports whether the audit carries Monte Carlo results.
@@ -390,3 +466,6 @@ func anyProbability(a *assess.Audit) bool {
 	}
 	return false
 }
+
+// defaultsHeader is the Objects column listing the values the tool chose.
+const defaultsHeader = "Defaults applied (est. estimated, lib. library, ovr. override; reasons on Method)"

@@ -392,7 +392,7 @@ func (p *Portfolio) Stations() []RankedStation {
 func (s RankedSite) TrendText() string {
 	var parts []string
 	for _, e := range s.Earlier {
-		parts = append(parts, fmt.Sprintf("%s: %s, worst %s (%d incendive, %d marginal)", e.dateText(), e.Verdict, book.FormatRatio(e.WorstRatio),
+		parts = append(parts, fmt.Sprintf("%s: %s, worst %s (%d incendive, %d marginal)", e.dateText(), e.Verdict, FormatRatio(e.WorstRatio),
 			e.Counts[assess.Incendive], e.Counts[assess.Marginal]))
 	}
 	return strings.Join(parts, "; ")
@@ -446,7 +446,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		{Header: "Survey file", Width: 22, Value: func(s RankedSite) book.Cell { return book.WrapText(s.File) }},
 		{Header: "Survey date", Width: 11, Value: func(s RankedSite) book.Cell { return book.Text(s.dateText()) }},
 		{Header: "Verdict", Width: 14, Value: func(s RankedSite) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell { return ratioCell(s.WorstRatio) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell { return ratioText(s.WorstRatio) }},
 		{Header: "Stations [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(len(s.Stations)) }},
 		{Header: "Objects [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(total(s.Counts)) }},
 		{Header: "Incendive [count]", Width: 10, Value: func(s RankedSite) book.Cell { return count(s.Counts, assess.Incendive) }},
@@ -495,7 +495,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		{Header: "Line", Width: 14, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Line) }},
 		{Header: "Rank in site", Width: 8, Value: func(s RankedStation) book.Cell { return book.Integer(s.SiteRank) }},
 		{Header: "Verdict", Width: 14, Value: func(s RankedStation) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedStation) book.Cell { return ratioCell(s.WorstRatio) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedStation) book.Cell { return ratioText(s.WorstRatio) }},
 		{Header: "Objects [count]", Width: 9, Value: func(s RankedStation) book.Cell { return book.Integer(s.Objects) }},
 		{Header: "Incendive [count]", Width: 10, Value: func(s RankedStation) book.Cell { return count(s.Counts, assess.Incendive) }},
 		{Header: "Marginal [count]", Width: 10, Value: func(s RankedStation) book.Cell { return count(s.Counts, assess.Marginal) }},

@@ -3,6 +3,7 @@ package audit
 import (
 	"fmt"
 	"math"
+	"sort"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
@@ -13,6 +14,9 @@ import (
 
 // summaryWidths are the Summary column widths: A labels, A-J the ranked stations table.
 func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10, 11, 10} }
+
+// summaryMainWidth is the width of the station table's Main reason column (K).
+const summaryMainWidth = 40
 
 // summaryNoteWidth is the width of the station table's Note column (K), present
 // only when a station is incomplete.
@@ -29,7 +33,7 @@ func (wb *workbook) summary() error {
 	for i := range a.Stations {
 		incomplete = incomplete || a.Stations[i].IncompleteText() != ""
 	}
-	widths := summaryWidths()
+	widths := append(summaryWidths(), summaryMainWidth)
 	if incomplete {
 		widths = append(widths, summaryNoteWidth)
 	}
@@ -71,8 +75,8 @@ func (wb *workbook) summary() error {
 		{book.Text("Survey date"), book.Text(dateText(a))},
 		{book.Text("Surveyed by"), book.OptText(site.SurveyedBy)},
 		{book.Text(book.UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
-		{book.Text(book.UnitCelsius.Header("Air temperature")), est(inQ(book.UnitCelsius, site.AirTemperature), site.Defaulted(inventory.SiteItemAirTemperature))},
-		{book.Text(book.UnitDimless.Header("Required margin")), est(inQ(book.UnitDimless, site.RequiredMargin), site.Defaulted(inventory.SiteItemRequiredMargin))},
+		{book.Text(book.UnitCelsius.Header("Air temperature")), marked(inQ(book.UnitCelsius, site.AirTemperature), siteProv(site, assess.ItemAirTemperature))},
+		{book.Text(book.UnitDimless.Header("Required margin")), marked(inQ(book.UnitDimless, site.RequiredMargin), siteProv(site, assess.ItemRequiredMargin))},
 		{book.Text("Survey file"), book.OptText(wb.info.file(a))},
 		{book.Text("Survey SHA-256"), book.OptText(wb.info.sha(a))},
 		{book.Text("Tool"), book.Text(wb.info.tool() + " " + wb.info.ToolVersion)},
@@ -85,6 +89,11 @@ func (wb *workbook) summary() error {
 		}
 		r++
 	}
+	// The legend of the marks beside values, once, for every sheet.
+	if err := wb.mergedNote(s, r, assess.LegendText); err != nil {
+		return err
+	}
+	r++
 
 	// Counts by verdict.
 	r++
@@ -143,7 +152,7 @@ func (wb *workbook) summary() error {
 	}
 	r++
 	header := []string{"Station", "Rank", "Name", "Verdict", book.UnitRatio.Header("Worst ratio E/MIE"),
-		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]"}
+		"Objects [count]", "Incendive [count]", "Marginal [count]", "Non-incendive [count]", "Not assessed [count]", "Main reason"}
 	if incomplete {
 		header = append(header, "Note")
 	}
@@ -156,17 +165,14 @@ func (wb *workbook) summary() error {
 	r++
 	for i := range a.Stations {
 		st := &a.Stations[i]
-		ratio := ratioCell(book.FinitePtr(st.WorstRatio))
-		if st.WorstRatioAssumed {
-			ratio = book.Text(assess.RatioAssumedText) // an artefact of an assumed resistance
-		}
+		main := book.WrapText(st.Main.String())
 		cells := []book.Cell{
 			book.BoldText(st.Station.ID), book.Integer(st.Rank), book.WrapText(st.Station.Name), verdictCell(st.Verdict),
-			ratio, book.Integer(len(st.Objects)),
+			stationRatioCell(st), book.Integer(len(st.Objects)),
 			book.Integer(st.Counts[assess.Incendive]), book.Integer(st.Counts[assess.Marginal]),
-			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]),
+			book.Integer(st.Counts[assess.NonIncendive]), book.Integer(st.Counts[assess.NotAssessed]), main,
 		}
-		sized := []book.Cell{{}, {}, book.WrapText(st.Station.Name)}
+		sized := []book.Cell{{}, {}, book.WrapText(st.Station.Name), {}, {}, {}, {}, {}, {}, {}, main}
 		if incomplete {
 			note := book.WrapText(st.IncompleteText())
 			cells = append(cells, note)
@@ -179,6 +185,15 @@ func (wb *workbook) summary() error {
 		r++
 	}
 	r++
+
+	// The uncertainty run, when one was made: its draws, the borderline
+	// objects and what to measure next.
+	if a.Options.Samples > 0 {
+		var err error
+		if r, err = wb.summaryUncertainty(r, section, sink); err != nil {
+			return err
+		}
+	}
 
 	// Chart of worst ratio per station, pointing at the Stations sheet; it
 	// starts a new printed page so that it is never cut in two.
@@ -196,7 +211,8 @@ func (wb *workbook) summary() error {
 		}
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
 		if err := sink.Row(r, []book.Cell{book.WrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
-			"A station whose worst ratio is 0 (no discharge possible) has no bar; stations without a flammable atmosphere have no ratio and no bar: they are judged on shock and earthing alone.")}, 0); err != nil {
+			"Every station with a verdict is listed with it; a station whose ratio is \"no discharge\" (no discharge possible) or \"n/a\" (no flammable atmosphere: judged on shock and earthing alone; or not assessed) has no bar; " +
+			"\">= 1 (assumed R)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth is assumed, its size is no figure. A ratio below the axis is drawn at its bottom.")}, 0); err != nil {
 			return err
 		}
 		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
@@ -263,9 +279,9 @@ func (wb *workbook) chart(at string, rows int) error {
 	return wb.f.AddChart(SheetSummary, at, &excelize.Chart{
 		Type: excelize.Bar,
 		Series: []excelize.ChartSeries{{
-			Name:       sheet + "!$" + stationsRatioCol + "$1",
-			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsIDCol, stationsIDCol, n),
-			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, stationsRatioCol, stationsRatioCol, n),
+			Name:       sheet + "!$" + wb.chartValueCol + "$1",
+			Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, wb.chartLabelCol, wb.chartLabelCol, n),
+			Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, wb.chartValueCol, wb.chartValueCol, n),
 			// One neutral colour: excelize colours single bars only in pie
 			// charts, and the verdict colours stay on the table above.
 			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"4D4D4D"}},
@@ -290,7 +306,7 @@ func (wb *workbook) chart(at string, rows int) error {
 func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 	lo, hi = 0.1, 10
 	for i := range stations {
-		r := book.FinitePtr(stations[i].WorstRatio)
+		r := chartValue(&stations[i]) // the bars drawn (1 for an assumed resistance)
 		if r == nil || *r <= 0 {
 			continue
 		}
@@ -304,14 +320,152 @@ func ratioAxis(stations []assess.StationResult) (lo, hi float64) {
 	return math.Max(lo, 1e-4), hi
 }
 
-// siteHumidityCell shows the site's relative humidity, or, when the Site sheet
-// gives none (an error that check reports), the value the assessment used for
-// stations without their own, marked as estimated.
+// siteHumidityCell shows the site's relative humidity (entered), or, when the
+// Site sheet gives none (an error that check reports), the value the
+// assessment used for stations without their own, marked as estimated.
 func siteHumidityCell(site inventory.Site) book.Cell {
 	if !site.RelativeHumidity.Known {
 		return est(book.Quantity(book.UnitPercentRH, assess.DryDayHumidity), true)
 	}
-	return est(inQ(book.UnitPercentRH, site.RelativeHumidity), false)
+	return marked(inQ(book.UnitPercentRH, site.RelativeHumidity), assess.ProvEntered)
+}
+
+// measureNextRows is the most borderline objects the Summary lists under
+// "What to measure next" (the rest are flagged on the Objects sheet).
+const measureNextRows = 30
+
+// summaryUncertainty writes the Summary's account of the uncertainty run from
+// row r: the draws and seed, how many objects are borderline, and the list of
+// what to measure next (object, station, verdict, probabilities, advice),
+// worst station first; it returns the next free row.
+func (wb *workbook) summaryUncertainty(r int, section func(int, string) error, sink book.NormalSink) (int, error) {
+	a := wb.a
+	rank := map[string]int{}
+	for _, st := range a.Stations {
+		rank[st.Station.ID] = st.Rank
+	}
+	border := append([]assess.BorderlineObject(nil), a.Borderline...)
+	sort.SliceStable(border, func(i, j int) bool { return rank[border[i].StationID] < rank[border[j].StationID] })
+	if err := section(r, "Uncertainty run"); err != nil {
+		return r, err
+	}
+	r++
+	text := fmt.Sprintf("Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet). %d object(s) borderline: "+
+		"the point verdict differs from the most likely sampled verdict, or the more severe verdicts together exceed %.0f %% (a screening choice of this tool).",
+		a.Options.Samples, a.Options.Seed, len(border), 100*assess.BorderlineThreshold)
+	if err := wb.mergedNote(SheetSummary, r, text); err != nil {
+		return r, err
+	}
+	r += 2
+	if len(border) == 0 {
+		return r, nil
+	}
+	if err := section(r, "What to measure next"); err != nil {
+		return r, err
+	}
+	r++
+	if err := sink.Header(r, []string{"Object", "Station", "Verdict", book.UnitProbability.Header("P(incendive)"), book.UnitProbability.Header("P(marginal)"), book.UnitProbability.Header("P(non-incendive)"), "What to measure and what it settles", "", "", ""}); err != nil {
+		return r, err
+	}
+	if err := wb.f.MergeCell(SheetSummary, fmt.Sprintf("G%d", r), fmt.Sprintf("J%d", r)); err != nil {
+		return r, err
+	}
+	if err := wb.f.SetRowHeight(SheetSummary, r, 30); err != nil {
+		return r, err
+	}
+	r++
+	widths := summaryWidths()
+	adviceWidth := sum(widths[6:])
+	for i, o := range border {
+		if i == measureNextRows {
+			if err := sink.Row(r, []book.Cell{book.Text(fmt.Sprintf("... %d more borderline object(s): see Borderline on the Objects sheet", len(border)-measureNextRows))}, 0); err != nil {
+				return r, err
+			}
+			r++
+			break
+		}
+		p := o.Probability
+		advice := book.WrapText(o.Measure)
+		cells := []book.Cell{book.BoldText(o.ObjectID), book.Text(o.StationID), verdictCell(o.Verdict),
+			book.Quantity(book.UnitProbability, p.Incendive), book.Quantity(book.UnitProbability, p.Marginal), book.Quantity(book.UnitProbability, p.NonIncendive), advice}
+		if err := sink.Row(r, cells, wrappedHeight(o.Measure, adviceWidth)); err != nil {
+			return r, err
+		}
+		if err := wb.f.MergeCell(SheetSummary, fmt.Sprintf("G%d", r), fmt.Sprintf("J%d", r)); err != nil {
+			return r, err
+		}
+		r++
+	}
+	return r + 1, nil
+}
+
+// siteValue is a Site sheet value the audit shows with its provenance.
+type siteValue struct {
+	item assess.Item
+	prov assess.Provenance
+}
+
+// siteValues gives the provenance of the site's own values: the relative
+// humidity entered (estimated: the dry-day value, when none is given), the
+// air temperature entered or defaulted, and the required margin an override
+// of the tool's default 10 when given, the default otherwise.
+func siteValues(site inventory.Site) []siteValue {
+	rh := assess.ProvEntered
+	if !site.RelativeHumidity.Known {
+		rh = assess.ProvEstimated
+	}
+	t := assess.ProvEntered
+	if !(site.AirTemperature.Known && site.AirTemperature.Value > 0) || site.Defaulted(inventory.SiteItemAirTemperature) {
+		t = assess.ProvEstimated
+	}
+	m := assess.ProvOverride
+	if !(site.RequiredMargin.Known && site.RequiredMargin.Value > 0) || site.Defaulted(inventory.SiteItemRequiredMargin) {
+		m = assess.ProvEstimated
+	}
+	return []siteValue{{assess.ItemRelativeHumidity, rh}, {assess.ItemAirTemperature, t}, {assess.ItemRequiredMargin, m}}
+}
+
+// siteProv is the provenance of one site value (siteValues).
+func siteProv(site inventory.Site, it assess.Item) assess.Provenance {
+	for _, v := range siteValues(site) {
+		if v.item == it {
+			return v.prov
+		}
+	}
+	return assess.ProvNone
+}
+
+// stationRatioText is the text shown for a station's worst ratio where it is
+// no number to read: ">= 1 (assumed R)", "n/a", "no discharge"; "" otherwise.
+func stationRatioText(st *assess.StationResult) string {
+	if st.WorstRatioAssumed {
+		return assess.RatioAssumedText
+	}
+	return assess.RatioText(book.FinitePtr(st.WorstRatio))
+}
+
+// stationRatioCell is the worst ratio of a station as the Summary, Stations
+// sheet and terminal show it: the number, or why there is none.
+func stationRatioCell(st *assess.StationResult) book.Cell {
+	if t := stationRatioText(st); t != "" {
+		return book.Code(t)
+	}
+	return ratioCell(book.FinitePtr(st.WorstRatio))
+}
+
+// mergedNote writes a wrapped note across A:J of row r of sheet s.
+func (wb *workbook) mergedNote(s string, r int, text string) error {
+	ref := fmt.Sprintf("A%d", r)
+	if err := wb.f.SetCellValue(s, ref, text); err != nil {
+		return err
+	}
+	if err := wb.f.MergeCell(s, ref, fmt.Sprintf("J%d", r)); err != nil {
+		return err
+	}
+	if err := wb.f.SetCellStyle(s, ref, ref, wb.st.Of(book.WrapText(""))); err != nil {
+		return err
+	}
+	return wb.f.SetRowHeight(s, r, wrappedHeight(text, sum(summaryWidths())))
 }
 
 // cautionBox writes the cautions line in a caution box across A2:J2 of sheet s,

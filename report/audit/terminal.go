@@ -65,6 +65,7 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 	if noted {
 		header += "\tNote"
 	}
+	header += "\tMain reason"
 	fmt.Fprintln(tw, header)
 	for i := range stations {
 		s := &stations[i]
@@ -72,9 +73,9 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 		if s.Station.Name != "" {
 			name += " " + s.Station.Name
 		}
-		ratio := book.FormatRatio(book.FinitePtr(s.WorstRatio))
-		if s.WorstRatioAssumed {
-			ratio = assess.RatioAssumedText
+		ratio := stationRatioText(s) // never a 0 beside a verdict: "no discharge", "n/a"
+		if ratio == "" {
+			ratio = book.FormatRatio(book.FinitePtr(s.WorstRatio))
 		}
 		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, ratio,
 			len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed])
@@ -88,6 +89,7 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 		if noted {
 			fmt.Fprint(tw, "\t"+strings.Join(s.Notes(), "; "))
 		}
+		fmt.Fprint(tw, "\t"+shorten(s.Main.String(), mainReasonRunes))
 		fmt.Fprintln(tw)
 	}
 	if err := tw.Flush(); err != nil {
@@ -97,6 +99,19 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 		fmt.Fprintf(w, "... %d more station(s) in the audit workbook's %s sheet\n", more, SheetStations)
 	}
 	return nil
+}
+
+// mainReasonRunes is how much of a station's main reason the terminal shows
+// (the whole text is on the Stations sheet).
+const mainReasonRunes = 90
+
+// shorten cuts s to at most n runes, ending in "…" when cut.
+func shorten(s string, n int) string {
+	rs := []rune(s)
+	if len(rs) <= n {
+		return s
+	}
+	return string(rs[:n-1]) + "…"
 }
 
 // writeSummaryTail writes the counts, warnings, survey rows and cautions lines.
@@ -114,6 +129,9 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 	}
 	if sampled && !quiet {
 		fmt.Fprintf(w, "Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet)\n", a.Options.Samples, a.Options.Seed)
+		if n := len(a.Borderline); n > 0 {
+			fmt.Fprintf(w, "Borderline: %d object(s) whose sampled verdicts differ from the point verdict or reach a more severe one above %.0f %%: what to measure next on the Summary sheet\n", n, 100*assess.BorderlineThreshold)
+		}
 	}
 	if a.Survey != nil {
 		read, acc, rej := 0, 0, 0

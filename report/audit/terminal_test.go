@@ -8,6 +8,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -51,7 +52,7 @@ func TestWriteSummaryBlankSiteHumidity(t *testing.T) {
 	if !strings.Contains(b.String(), "no relative humidity") || !strings.Contains(b.String(), "30 %RH") {
 		t.Errorf("no warning with the RH used:\n%s", b.String())
 	}
-	if c := siteHumidityCell(s.Site); c.V == nil || !c.Est {
+	if c := siteHumidityCell(s.Site); c.V == nil || c.Mark != book.EstMark {
 		t.Errorf("Summary RH cell %+v, want the dry-day value marked est.", c)
 	}
 }

@@ -154,6 +154,8 @@ type workbook struct {
 	info RunInfo
 	// stationRows is the last data row of the Stations sheet, for the chart.
 	stationRows int
+	// chartLabelCol and chartValueCol are the Stations columns the Summary chart reads.
+	chartLabelCol, chartValueCol string
 	// heading is the page-header text before the sheet name; "" is the audit's.
 	heading string
 	// methodNotes are extra sections of the Method sheet (a Book's); none in the audit.
@@ -330,34 +332,35 @@ func stationColumns(site inventory.Site, withProbability bool) []book.Column[sta
 		{Header: "Line", Width: 14, Value: func(s stationRow) book.Cell { return book.WrapText(s.Station.Line) }},
 		{Header: "Atmosphere", Width: 24, Value: func(s stationRow) book.Cell { return book.WrapText(atmosphereText(s.Atmosphere)) }},
 		{Header: book.UnitMJ.Header("MIE"), Width: 9, Value: func(s stationRow) book.Cell {
-			return est(book.Quantity(book.UnitMJ, atmosphereMIE(s.Atmosphere)), s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance)
+			p := assess.ProvEntered
+			if s.Atmosphere != nil && s.Atmosphere.MIEFromSubstance {
+				p = assess.ProvLibrary
+			}
+			return marked(book.Quantity(book.UnitMJ, atmosphereMIE(s.Atmosphere)), p)
 		}},
 		{Header: "Zone", Width: 7, Value: func(s stationRow) book.Cell {
 			if s.Atmosphere == nil {
 				return book.Cell{}
 			}
-			return book.Code(s.Atmosphere.Zone)
+			if s.Atmosphere.Zone == "" {
+				return book.Code("strictest " + assess.ProvEstimated.Mark()) // as assessed: unknown means the strictest zone
+			}
+			return marked(book.Code(s.Atmosphere.Zone), assess.ProvEntered)
 		}},
 		{Header: "Group", Width: 7, Value: func(s stationRow) book.Cell {
-			if s.Atmosphere == nil {
-				return book.Cell{}
-			}
-			return book.Code(assess.GroupText(s.Atmosphere)) // as on Objects: the assessed group, "est." when assumed
+			return groupCell(s.Atmosphere) // as on Objects: the assessed group with its mark
 		}},
 		{Header: book.UnitPercentRH.Header("RH used"), Width: 9, Value: func(s stationRow) book.Cell {
 			if s.Station.RelativeHumidity.Known {
-				return inQ(book.UnitPercentRH, s.Station.RelativeHumidity)
+				return marked(inQ(book.UnitPercentRH, s.Station.RelativeHumidity), assess.ProvEntered)
 			}
-			// The station gives none: the site's RH is used (marked est.).
-			return est(inQ(book.UnitPercentRH, site.RelativeHumidity), true)
+			// The station gives none: the site's RH is used (entered on the
+			// Site sheet), or the dry-day value when the site gives none either.
+			return siteHumidityCell(site)
 		}},
 		{Header: "Verdict", Width: 14, Value: func(s stationRow) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s stationRow) book.Cell {
-			if s.WorstRatioAssumed {
-				return book.Text(assess.RatioAssumedText) // its size is an artefact of an assumed resistance
-			}
-			return ratioCell(book.FinitePtr(s.WorstRatio))
-		}},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s stationRow) book.Cell { return stationRatioCell(s) }},
+		{Header: "Main reason", Width: 40, Value: func(s stationRow) book.Cell { return book.WrapText(s.Main.String()) }},
 		{Header: "Objects [count]", Width: 9, Value: func(s stationRow) book.Cell { return book.Integer(len(s.Objects)) }},
 		{Header: "Incendive [count]", Width: 10, Value: count(assess.Incendive)},
 		{Header: "Marginal [count]", Width: 10, Value: count(assess.Marginal)},
@@ -373,14 +376,56 @@ func stationColumns(site inventory.Site, withProbability bool) []book.Column[sta
 			return book.Quantity(book.UnitProbability, *s.ProbabilityAnyIncendive)
 		}})
 	}
+	// The Summary chart's data: every station with its verdict and, where
+	// the ratio is no number, why; the bar value (1 for an assumed resistance).
+	cols = append(cols,
+		book.Column[stationRow]{Header: chartLabelHeader, Width: 26, Value: func(s stationRow) book.Cell { return book.Text(chartLabel(s)) }},
+		book.Column[stationRow]{Header: chartValueHeader, Width: 10, Value: func(s stationRow) book.Cell { return ratioCell(chartValue(s)) }},
+	)
 	return cols
 }
 
-// Column positions on the Stations sheet the Summary chart points at.
+// Headers of the Stations columns the Summary chart points at.
 const (
-	stationsIDCol    = "B"
-	stationsRatioCol = "K"
+	chartLabelHeader = "Chart label"
+	chartValueHeader = "Chart ratio [–]"
 )
+
+// chartLabel is a station's category on the Summary chart: "S1 marginal
+// (no discharge)", so that every station with a verdict is listed with it.
+func chartLabel(s *assess.StationResult) string {
+	l := s.Station.ID + " " + s.Verdict.String()
+	if t := stationRatioText(s); t != "" {
+		l += " (" + t + ")"
+	}
+	return l
+}
+
+// chartValue is the bar of a station: its worst ratio, 1 when it is an
+// artefact of an assumed resistance (read as at least 1), none when there is
+// no ratio or it is 0.
+func chartValue(s *assess.StationResult) *float64 {
+	if s.WorstRatioAssumed {
+		one := 1.0
+		return &one
+	}
+	r := book.FinitePtr(s.WorstRatio)
+	if r == nil || *r <= 0 {
+		return nil
+	}
+	return r
+}
+
+// columnLetter returns the letter of the column with the given header in cols.
+func columnLetter[T any](cols []book.Column[T], header string) string {
+	for i, c := range cols {
+		if c.Header == header {
+			name, _ := excelize.ColumnNumberToName(i + 1)
+			return name
+		}
+	}
+	return ""
+}
 
 func (wb *workbook) stations() error {
 	rows := make([]stationRow, len(wb.a.Stations))
@@ -388,7 +433,9 @@ func (wb *workbook) stations() error {
 		rows[i] = &wb.a.Stations[i]
 	}
 	wb.stationRows = len(rows) + 1
-	return tableSheetNormal(wb, SheetStations, stationColumns(wb.a.Survey.Site, anyProbability(wb.a)), rows)
+	cols := stationColumns(wb.a.Survey.Site, anyProbability(wb.a))
+	wb.chartLabelCol, wb.chartValueCol = columnLetter(cols, chartLabelHeader), columnLetter(cols, chartValueHeader)
+	return tableSheetNormal(wb, SheetStations, cols, rows)
 }
 
 // ---- Objects ----

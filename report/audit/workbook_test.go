@@ -141,7 +141,6 @@ func TestWorkbookObjectsValues(t *testing.T) {
 		{"O5", "Resistance to earth [Ω]", 1e11},       // invented for the demo
 		{"O8", "Relaxation time [s]", 21.25005},       // derived: eps0 x 2.4 / 1 pS/m
 		{"O1", "Insulating area [cm²]", 36000},        // derived: 3.6 m^2
-		{"O4", "Ratio E/MIE [–]", 0},                  // a defined zero stays 0
 		{"O1", "P(incendive) [%]", 0.93},              // stored as a fraction, shown as %
 	}
 	for _, c := range checks {
@@ -150,13 +149,28 @@ func TestWorkbookObjectsValues(t *testing.T) {
 			t.Errorf("%s %s = %v (present %v), want %v", c.id, c.col, got, ok, c.want)
 		}
 	}
+	// Never a 0 or a blank beside a verdict: why there is no ratio (issue 15 item 2).
+	for _, c := range []struct{ id, want string }{
+		{"O4", "no discharge"}, // the fixture's ratio 0: no discharge possible
+		{"O7", "n/a"},          // no atmosphere
+		{"O9", "n/a"},          // no atmosphere
+	} {
+		if got := byID[c.id][colIndex(t, hdr, "Ratio E/MIE [–]")]; got != c.want {
+			t.Errorf("%s ratio %q, want %q", c.id, got, c.want)
+		}
+	}
+	// An object without draws shows "n/a" beside its verdict, not 0.0 % (issue 15 item 8).
+	if got := byID["O3"][colIndex(t, hdr, "P(incendive) [%]")]; got != "n/a" {
+		t.Errorf("O3 P(incendive) %q, want n/a (no sample for this object)", got)
+	}
+	// The probabilities stand beside the verdict, not at the far right.
+	if v, p := colIndex(t, hdr, "Verdict"), colIndex(t, hdr, "P(incendive) [%]"); p != v+2 {
+		t.Errorf("P(incendive) in column %d, verdict in %d: want it beside the verdict (after Borderline)", p, v)
+	}
 	empties := []struct{ id, col string }{
-		{"O7", "Ratio E/MIE [–]"}, // no atmosphere
-		{"O9", "Ratio E/MIE [–]"}, // no atmosphere
 		{"O9", "Effective energy [mJ]"},
 		{"O1", "Capacitance [pF]"}, // NaN: not defined for a sheet
 		{"O3", "Charge density [µC/m²]"},
-		{"O3", "P(incendive) [%]"}, // no sample for this object
 	}
 	for _, e := range empties {
 		if s := byID[e.id][colIndex(t, hdr, e.col)]; s != "" {
@@ -176,7 +190,7 @@ func TestWorkbookObjectsValues(t *testing.T) {
 	if !strings.HasSuffix(shown, "est.") {
 		t.Errorf("O3 capacitance shows %q, want the est. marker", shown)
 	}
-	if d := byID["O3"][colIndex(t, hdr, "Defaults applied (values marked est.; reasons on Method)")]; !strings.Contains(d, "200 pF") {
+	if d := byID["O3"][colIndex(t, hdr, defaultsHeader)]; !strings.Contains(d, "200 pF est.") {
 		t.Errorf("O3 defaults = %q, want the 200 pF default listed", d)
 	}
 }
@@ -219,11 +233,16 @@ func TestWorkbookRejectedFindingsStations(t *testing.T) {
 		}
 	}
 	st := rowsOf(t, f, SheetStations)
-	if st[1][1] != "S1" || st[3][1] != "S3" || st[3][10] != "" {
+	if st[1][1] != "S1" || st[3][1] != "S3" || st[3][10] != "n/a" {
 		t.Errorf("Stations rows %v", st)
 	}
 	if c := st[0][10]; c != "Worst ratio E/MIE [–]" {
-		t.Errorf("Stations column K = %q: the Summary chart points at it", c)
+		t.Errorf("Stations column K = %q", c)
+	}
+	// The chart's data: every station with its verdict (S3 has no ratio: n/a).
+	label := colIndex(t, st[0], chartLabelHeader)
+	if got := st[3][label]; got != "S3 marginal (n/a)" {
+		t.Errorf("S3 chart label %q", got)
 	}
 }
 
@@ -273,7 +292,7 @@ func TestWorkbookLayout(t *testing.T) {
 			rc.Close()
 			x := html.UnescapeString(string(raw))
 			found = true
-			for _, want := range []string{"Stations'!$K$2:$K$4", "Stations'!$B$2:$B$4", `<logBase val="10"`} {
+			for _, want := range []string{"Stations'!$U$2:$U$4", "Stations'!$T$2:$T$4", `<logBase val="10"`} {
 				if !strings.Contains(x, want) {
 					t.Errorf("chart lacks %s", want)
 				}
@@ -373,7 +392,7 @@ func TestWorkbookMethod(t *testing.T) {
 		"Vacuum permittivity ε0|0.0000000000088541878128|F/m||CODATA 2018",         // Source: CODATA 2018
 		"Conductor resistance to earth|100000000|Ω|yes; default 1.00e6 Ω|TRGS 727", // the fixture's override of 1e6 ohm (TRGS 727 8.3)
 		"Shock energy to people|350|mJ||TRGS 727",                                  // Source: TRGS 727 Annex D, 350 mJ
-		"Capacitance|200 pF|||typical human body (Saito 1963)",
+		"Capacitance|200 pF|estimated||typical human body (Saito 1963)",
 		"Charge density, earthed backing",
 		// The liquid filling rules, each with its vessel class, source mark and reference (model.LiquidRules).
 		"|road tanker|confirmed|IEC TS 60079-32-1:2013+A1:2017, clause 7 (liquids), road tankers",
@@ -416,11 +435,11 @@ func TestSummaryIncompleteMark(t *testing.T) {
 		if header < 0 || station < 0 {
 			t.Fatalf("Summary has no station table for %s:\n%v", a.Stations[0].Station.ID, rows)
 		}
-		hasNote := len(rows[header]) > 10 && rows[header][10] == "Note"
+		hasNote := len(rows[header]) > 11 && rows[header][11] == "Note"
 		switch {
 		case rejected == 0 && hasNote:
 			t.Errorf("no station incomplete, yet a Note column: %v", rows[header])
-		case rejected > 0 && (!hasNote || len(rows[station]) <= 10 || rows[station][10] != mark):
+		case rejected > 0 && (!hasNote || len(rows[station]) <= 11 || rows[station][11] != mark):
 			t.Errorf("incomplete station row %v under header %v; want Note %q", rows[station], rows[header], mark)
 		}
 	}

@@ -11,7 +11,10 @@ import (
 type Cell struct {
 	V      any
 	NumFmt string // number format; "" for text
-	Est    bool   // the value was fed by an assumed default: shown with "est."
+	// Mark is the provenance mark shown after a number in its own cell ("est."
+	// for an estimate, "lib.", "ent.", "ovr."; "" none): the cell stays a
+	// number. An estimate is also set in italics.
+	Mark string
 	// Fill and Color, when Fill is set, colour the cell as a state (a
 	// verdict): pattern fill, bold centred text in Color.
 	Fill, Color string
@@ -51,7 +54,7 @@ func OptText(s string) Cell {
 // styleKey identifies a cell style; styles are created once per workbook and reused.
 type styleKey struct {
 	numFmt  string
-	est     bool
+	mark    string
 	fill    string // state colour ("" none) and its text colour
 	color   string
 	wrap    bool
@@ -82,9 +85,9 @@ func (s *Styles) get(k styleKey) int {
 	font := &excelize.Font{Family: "Liberation Sans", Size: 10, Bold: k.bold}
 	if k.numFmt != "" {
 		nf := k.numFmt
-		if k.est {
-			nf = EstFormat(nf)
-			font.Italic = true
+		if k.mark != "" {
+			nf = MarkFormat(nf, k.mark)
+			font.Italic = k.mark == EstMark
 		}
 		st.CustomNumFmt = &nf
 	}
@@ -128,7 +131,7 @@ func (s *Styles) get(k styleKey) int {
 
 // Of returns the style of a cell.
 func (s *Styles) Of(c Cell) int {
-	k := styleKey{numFmt: c.NumFmt, est: c.Est, wrap: c.Wrap, bold: c.Bold, align: c.Align}
+	k := styleKey{numFmt: c.NumFmt, mark: c.Mark, wrap: c.Wrap, bold: c.Bold, align: c.Align}
 	if c.Fill != "" {
 		k.fill, k.color = c.Fill, c.Color
 	}
@@ -145,9 +148,15 @@ func (s *Styles) Caution() int { return s.get(styleKey{caution: true}) }
 // Err returns the first error creating a style.
 func (s *Styles) Err() error { return s.err }
 
+// EstMark is the mark of an estimated value.
+const EstMark = "est."
+
 // EstFormat appends the "est." marker to every section of a number format, so
 // an estimated value reads "200.0 est." in its own cell and stays a number.
-func EstFormat(nf string) string {
+func EstFormat(nf string) string { return MarkFormat(nf, EstMark) }
+
+// MarkFormat appends a provenance mark to every section of a number format.
+func MarkFormat(nf, mark string) string {
 	out := ""
 	sect := ""
 	for _, r := range nf + ";" {
@@ -155,7 +164,7 @@ func EstFormat(nf string) string {
 			if out != "" {
 				out += ";"
 			}
-			out += sect + `" est."`
+			out += sect + `" ` + mark + `"`
 			sect = ""
 			continue
 		}

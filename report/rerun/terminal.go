@@ -7,7 +7,7 @@ import (
 	"text/tabwriter"
 	"unicode/utf8"
 
-	"github.com/sparkmargin/sparkmargin/report/book"
+	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -34,9 +34,9 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	for _, s := range x.Stations {
 		b := [3]string{"–", "–", "–"}
 		if s.Before != nil {
-			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), book.FormatRatio(s.Before.WorstRatio)}
+			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), audit.FormatRatio(s.Before.WorstRatio)}
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s\n", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, book.FormatRatio(s.After.WorstRatio), s.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s\n", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, audit.FormatRatio(s.After.WorstRatio), s.Outcome)
 	}
 	tw.Flush()
 	fmt.Fprintln(w)
@@ -48,7 +48,7 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 			continue
 		}
 		moved++
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, book.FormatRatio(o.Before.Ratio), o.After.Verdict, book.FormatRatio(o.After.Ratio), o.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, audit.FormatRatio(o.Before.Ratio), o.After.Verdict, audit.FormatRatio(o.After.Ratio), o.Outcome)
 	}
 	if moved == 0 {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
@@ -99,7 +99,7 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 			row := []string{fmtSig(st.RH), fmt.Sprint(st.Incendive), fmt.Sprint(st.Marginal)}
 			for _, j := range block {
 				x := st.Stations[j]
-				row = append(row, book.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
+				row = append(row, audit.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
 			}
 			fmt.Fprintln(tw, strings.Join(row, "\t")+"\t")
 		}
@@ -203,7 +203,7 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	fmt.Fprintln(tw, "Station\tRank before\tRank after\tVerdict before\tVerdict after\tWorst ratio before\tWorst ratio after\tMove")
 	for _, m := range c.Stations {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", m.ID, rankText(m.RankBefore), rankText(m.RankAfter), dash(m.VerdictBefore), dash(m.VerdictAfter),
-			book.FormatRatio(m.WorstRatioBefore), book.FormatRatio(m.WorstRatioAfter), m.Move())
+			audit.FormatRatio(m.WorstRatioBefore), audit.FormatRatio(m.WorstRatioAfter), m.Move())
 	}
 	if len(c.Stations) == 0 {
 		fmt.Fprintln(tw, "(no station's rank or verdict moved)")
