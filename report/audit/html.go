@@ -101,6 +101,8 @@ type HTMLWriter struct {
 	noDischarg int           // objects at an atmosphere with no discharge possible
 	spread     []energyPoint // at most htmlMaxSpreadRows borderline objects
 	spreadAll  int
+	other      []energyPoint // borderline objects with no energy against an MIE, survey order, at most htmlMaxSpreadRows
+	otherAll   int
 	lead       map[string]stationLead
 }
 
@@ -126,19 +128,39 @@ func (h *HTMLWriter) Add(rs []assess.ObjectResult) error {
 			h.lead[id] = stationLead{object: r.Object.ID, verdict: r.Verdict, ratio: ratio, reason: r.Reason}
 		}
 		mie := r.Environment.MIE
-		if r.Atmosphere == nil || !(mie > 0) || r.Ratio == nil || math.IsNaN(ratio) || !r.EnergyStated() {
-			continue
-		}
+		hasMIE := r.Atmosphere != nil && mie > 0
 		e := r.Eval.EffectiveEnergy
-		if !(e > 0) || math.IsInf(e, 0) {
-			h.noDischarg++
-			continue
-		}
 		p := energyPoint{seq: h.n, object: r.Object.ID, station: id, verdict: r.Verdict, energy: e, mie: mie,
 			ratio: ratio, assumedR: r.RatioAssumed()}
 		if r.Probability != nil {
 			pp := *r.Probability
 			p.prob = &pp
+		}
+		if p.prob != nil && borderline(r.Verdict, p.prob) {
+			if hasMIE && p.prob.EnergyP95 > 0 {
+				p.borderKey = p.prob.EnergyP95 / mie
+				h.spreadAll++
+				h.spread = keepWorst(h.spread, p, htmlMaxSpreadRows, func(a, b energyPoint) bool {
+					if a.borderKey != b.borderKey {
+						return a.borderKey > b.borderKey
+					}
+					return a.seq < b.seq
+				})
+			} else {
+				// Borderline on a check other than the energy (earthing,
+				// shock, area, liquids): listed, not drawn.
+				h.otherAll++
+				if len(h.other) < htmlMaxSpreadRows {
+					h.other = append(h.other, p)
+				}
+			}
+		}
+		if !hasMIE || r.Ratio == nil || math.IsNaN(ratio) || !r.EnergyStated() {
+			continue
+		}
+		if !(e > 0) || math.IsInf(e, 0) {
+			h.noDischarg++
+			continue
 		}
 		h.energyAll++
 		h.energy = keepWorst(h.energy, p, htmlMaxEnergyRows, func(a, b energyPoint) bool {
@@ -147,16 +169,6 @@ func (h *HTMLWriter) Add(rs []assess.ObjectResult) error {
 			}
 			return a.seq < b.seq
 		})
-		if p.prob != nil && borderline(r.Verdict, p.prob) && p.prob.EnergyP95 > 0 {
-			p.borderKey = p.prob.EnergyP95 / mie
-			h.spreadAll++
-			h.spread = keepWorst(h.spread, p, htmlMaxSpreadRows, func(a, b energyPoint) bool {
-				if a.borderKey != b.borderKey {
-					return a.borderKey > b.borderKey
-				}
-				return a.seq < b.seq
-			})
-		}
 	}
 	return nil
 }
@@ -246,12 +258,20 @@ type htmlPage struct {
 	Humidity                                        *gridChart
 	Spread                                          *rowChart
 	SpreadNote                                      string
+	OtherBorder                                     []htmlBorder
+	OtherNote                                       string
 	Principles                                      []templates.Principle
 	Formulas                                        []templates.MethodNote
 	Defaults                                        []assess.Default
 	Verdicts                                        []htmlVerdictKey
 	Rejected                                        int
 	BorderlinePct                                   string
+}
+
+// htmlBorder is a borderline object whose verdict rests on a check other
+// than its energy against an MIE, with its sampled verdict shares.
+type htmlBorder struct {
+	Object, Station, Verdict, Class, Shares string
 }
 
 type htmlCount struct {
@@ -366,9 +386,17 @@ func (h *HTMLWriter) page(a *assess.Audit, info RunInfo, hum *HumidityGrid) html
 	}
 	if a.Options.Samples > 0 {
 		p.Spread = energyChart(h.spread, margin, true)
+		for _, o := range h.other {
+			p.OtherBorder = append(p.OtherBorder, htmlBorder{Object: o.object, Station: o.station, Verdict: o.verdict.String(), Class: verdictClass(o.verdict), Shares: sharesText(o.prob)})
+		}
+		if h.otherAll > len(h.other) {
+			p.OtherNote = fmt.Sprintf("%d more are in the workbook's Objects sheet.", h.otherAll-len(h.other))
+		}
 		switch {
+		case h.spreadAll == 0 && h.otherAll == 0:
+			p.SpreadNote = fmt.Sprintf("No object is borderline: for every object the most likely sampled verdict is the point verdict, and no more severe verdict is likelier than %s.", plainNumber(100*BorderlineShare)+" %")
 		case h.spreadAll == 0:
-			p.SpreadNote = fmt.Sprintf("No object is borderline: for every object with an energy against an MIE, the sampled verdicts agree with the point verdict (no more severe verdict above %s).", plainNumber(100*BorderlineShare)+" %")
+			p.SpreadNote = "No borderline object has a sampled energy against an MIE to draw."
 		case h.spreadAll > len(h.spread):
 			p.SpreadNote = fmt.Sprintf("The %d borderline objects whose 95th percentile comes closest to (or furthest past) their MIE are drawn; %d more are in the workbook.", len(h.spread), h.spreadAll-len(h.spread))
 		}
@@ -457,4 +485,19 @@ func atmosphereDetail(a *inventory.Atmosphere) string {
 		parts = append(parts, "MIE "+book.UnitMJ.Text(a.MIE.Value))
 	}
 	return strings.Join(parts, " · ")
+}
+
+// sharesText is the sampled verdict shares in words, most severe first:
+// "incendive 6.4 %, marginal 0 %, non-incendive 93.6 %" (not assessed only
+// when sampled).
+func sharesText(p *assess.Probability) string {
+	parts := []string{
+		"incendive " + book.UnitProbability.Text(p.Incendive),
+		"marginal " + book.UnitProbability.Text(p.Marginal),
+		"non-incendive " + book.UnitProbability.Text(p.NonIncendive),
+	}
+	if p.NotAssessed > 0 {
+		parts = append(parts, "not assessed "+book.UnitProbability.Text(p.NotAssessed))
+	}
+	return strings.Join(parts, ", ")
 }

@@ -137,9 +137,9 @@ func energyChart(ps []energyPoint, margin float64, spread bool) *rowChart {
 			r.P50X, _ = ax.x(p.prob.EnergyP50)
 			r.P95X, c2 = ax.x(p.prob.EnergyP95)
 			clipped = clipped || c1 || c2
-			r.Value = "p05–p95 " + book.UnitMJ.Text(p.prob.EnergyP05) + " – " + book.UnitMJ.Text(p.prob.EnergyP95)
-			r.Title = fmt.Sprintf("%s at station %s: %s; energy p05 %s, p50 %s, p95 %s; MIE %s; P(incendive) %s, P(marginal) %s, P(non-incendive) %s",
-				p.object, p.station, p.verdict, book.UnitMJ.Text(p.prob.EnergyP05), book.UnitMJ.Text(p.prob.EnergyP50), book.UnitMJ.Text(p.prob.EnergyP95),
+			r.Value = book.UnitMJ.Text(p.prob.EnergyP05) + " – " + book.UnitMJ.Text(p.prob.EnergyP95)
+			r.Title = fmt.Sprintf("%s at station %s: %s (point energy %s); sampled energy p05 %s, p50 %s, p95 %s; MIE %s; P(incendive) %s, P(marginal) %s, P(non-incendive) %s",
+				p.object, p.station, p.verdict, pointEnergyText(p.energy), book.UnitMJ.Text(p.prob.EnergyP05), book.UnitMJ.Text(p.prob.EnergyP50), book.UnitMJ.Text(p.prob.EnergyP95),
 				book.UnitMJ.Text(p.mie), book.UnitProbability.Text(p.prob.Incendive), book.UnitProbability.Text(p.prob.Marginal), book.UnitProbability.Text(p.prob.NonIncendive))
 		} else {
 			r.Value = "E/MIE " + book.UnitRatio.Text(p.ratio)
@@ -292,3 +292,12 @@ func truncate(s string, n int) string {
 
 // plainNumber writes a humidity as people say it: 35, 37.5 (no trailing zeros).
 func plainNumber(v float64) string { return strconv.FormatFloat(math.Round(v*1000)/1000, 'f', -1, 64) }
+
+// pointEnergyText is the point estimate's effective energy, or "no
+// discharge" when it is 0 (its mark then sits at the axis' left end).
+func pointEnergyText(e float64) string {
+	if !(e > 0) {
+		return "no discharge"
+	}
+	return book.UnitMJ.Text(e)
+}
