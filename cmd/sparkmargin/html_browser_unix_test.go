@@ -4,8 +4,6 @@ package main
 
 import (
 	"bytes"
-	"context"
-	"errors"
 	"image/png"
 	"os"
 	"os/exec"
@@ -34,39 +32,67 @@ func findChromium() string {
 	return ""
 }
 
-// runChromium runs headless Chromium on url with the extra arguments in its
-// own process group and a profile folder of its own, and kills the whole
-// group when it returns, when the test ends or when the time is up, so no
-// browser process outlives the test; t.TempDir removes the folders after.
-func runChromium(t *testing.T, browser, url string, timeout time.Duration, extra ...string) {
+// runChromium runs headless Chromium on url with the extra arguments, in its
+// own process group and with a profile folder of its own, until it exits or
+// until done reports its outputs complete (a browser sometimes lingers after
+// writing them), and kills the whole group then or when the time is up, so
+// no browser process outlives the test; t.TempDir removes the folders after.
+func runChromium(t *testing.T, browser, url string, timeout time.Duration, done func() bool, extra ...string) {
 	t.Helper()
 	profile := t.TempDir()
-	ctx, cancel := context.WithTimeout(context.Background(), timeout)
-	defer cancel()
 	args := append([]string{"--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
 		"--disable-background-networking", "--disable-component-update", "--disable-sync", "--disable-dev-shm-usage",
 		"--user-data-dir=" + profile}, extra...)
-	cmd := exec.CommandContext(ctx, browser, append(args, url)...)
+	cmd := exec.Command(browser, append(args, url)...)
 	cmd.SysProcAttr = &syscall.SysProcAttr{Setpgid: true}
 	cmd.Env = append(os.Environ(), "HOME="+profile, "XDG_CONFIG_HOME="+profile, "XDG_CACHE_HOME="+profile)
 	var out bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &out, &out
-	cmd.Cancel = func() error { return syscall.Kill(-cmd.Process.Pid, syscall.SIGKILL) }
-	cmd.WaitDelay = 2 * time.Second
 	if err := cmd.Start(); err != nil {
 		t.Fatalf("starting %s: %v", browser, err)
 	}
 	pgid := cmd.Process.Pid
-	// Registered after t.TempDir, so it runs before the folder is removed.
-	t.Cleanup(func() { _ = syscall.Kill(-pgid, syscall.SIGKILL) })
-	err := cmd.Wait()
-	_ = syscall.Kill(-pgid, syscall.SIGKILL) // helpers the browser left behind
-	if errors.Is(ctx.Err(), context.DeadlineExceeded) {
-		t.Fatalf("%s did not finish within %s:\n%s", browser, timeout, out.String())
+	exited := make(chan error, 1)
+	go func() { exited <- cmd.Wait() }()
+	deadline := time.After(timeout)
+	tick := time.NewTicker(250 * time.Millisecond)
+	defer tick.Stop()
+	var exitErr error
+	ended, finished, late := false, false, false
+	for !ended && !finished && !late {
+		select {
+		case exitErr = <-exited:
+			ended = true
+		case <-tick.C:
+			finished = done()
+		case <-deadline:
+			late = true
+		}
 	}
-	if err != nil {
-		t.Fatalf("%s %v: %v\n%s", browser, extra, err, out.String())
+	// The whole group, the browser's helpers included, before t.TempDir
+	// removes the profile folder; then reap the browser.
+	_ = syscall.Kill(-pgid, syscall.SIGKILL)
+	if !ended {
+		select {
+		case <-exited:
+		case <-time.After(5 * time.Second):
+		}
 	}
+	switch {
+	case done():
+	case late:
+		t.Fatalf("%s did not write its outputs within %s:\n%s", browser, timeout, tail(out.String(), 2000))
+	default:
+		t.Fatalf("%s %v ended (%v) without writing its outputs:\n%s", browser, extra, exitErr, tail(out.String(), 2000))
+	}
+}
+
+// tail is the last n bytes of s (the browser's log is long).
+func tail(s string, n int) string {
+	if len(s) <= n {
+		return s
+	}
+	return "..." + s[len(s)-n:]
 }
 
 // TestHTMLReportInBrowser renders the demo's HTML report in headless
@@ -101,7 +127,8 @@ func TestHTMLReportInBrowser(t *testing.T) {
 	// One browser run renders both (the start-up is most of its time).
 	const w, h = 1200, 2000
 	shot, pdf := filepath.Join(dir, "report.png"), filepath.Join(dir, "report.pdf")
-	runChromium(t, browser, url, 25*time.Second, "--hide-scrollbars", "--screenshot="+shot, "--window-size=1200,2000",
+	complete := func() bool { return pngComplete(shot) && pdfComplete(pdf) }
+	runChromium(t, browser, url, 40*time.Second, complete, "--hide-scrollbars", "--screenshot="+shot, "--window-size=1200,2000",
 		"--no-pdf-header-footer", "--print-to-pdf="+pdf)
 	f, err := os.Open(shot)
 	if err != nil {
@@ -149,4 +176,21 @@ func TestHTMLReportInBrowser(t *testing.T) {
 	if n := len(regexp.MustCompile(`/Type\s*/Page[^s]`).FindAll(data, -1)); n < 2 {
 		t.Errorf("the PDF has %d page(s), want the report over several", n)
 	}
+}
+
+// pngComplete reports whether path holds a whole PNG (it decodes).
+func pngComplete(path string) bool {
+	f, err := os.Open(path)
+	if err != nil {
+		return false
+	}
+	defer f.Close()
+	_, err = png.Decode(f)
+	return err == nil
+}
+
+// pdfComplete reports whether path holds a whole PDF (it ends with %%EOF).
+func pdfComplete(path string) bool {
+	b, err := os.ReadFile(path)
+	return err == nil && bytes.HasPrefix(b, []byte("%PDF-")) && bytes.Contains(b[max(0, len(b)-64):], []byte("%%EOF"))
 }

@@ -258,6 +258,7 @@ type htmlPage struct {
 	Humidity                                        *gridChart
 	Spread                                          *rowChart
 	SpreadNote                                      string
+	Atmospheres                                     []htmlAtmosphere
 	OtherBorder                                     []htmlBorder
 	OtherNote                                       string
 	Principles                                      []templates.Principle
@@ -266,6 +267,11 @@ type htmlPage struct {
 	Verdicts                                        []htmlVerdictKey
 	Rejected                                        int
 	BorderlinePct                                   string
+}
+
+// htmlAtmosphere is one atmosphere a ranked station names.
+type htmlAtmosphere struct {
+	ID, Description, Kind, Zone, Group, MIE string
 }
 
 // htmlBorder is a borderline object whose verdict rests on a check other
@@ -324,9 +330,9 @@ func (h *HTMLWriter) page(a *assess.Audit, info RunInfo, hum *HumidityGrid) html
 	margin := requiredMargin(a)
 	p := htmlPage{
 		Site: siteName(a), Date: dateText(a), SurveyedBy: orText(site.SurveyedBy, "not given"),
-		RH:          orText(quantityText(book.UnitPercentRH, site.RelativeHumidity.Known, site.RelativeHumidity.Value), "not given (each station's own, else the stricter default; see the workbook)"),
-		Temperature: quantityText(book.UnitCelsius, site.AirTemperature.Known, site.AirTemperature.Value),
-		Margin:      book.UnitDimless.Text(margin),
+		RH:          "not given on the Site sheet (the workbook's Method sheet shows the value applied)",
+		Temperature: plainNumber(kelvinToCelsius(assess.DefaultTemperature)) + " °C",
+		Margin:      plainNumber(margin),
 		SurveyFile:  info.file(a), SHA: info.sha(a), Tool: info.tool() + " " + info.ToolVersion, Command: info.CommandLine,
 		CautionLine: templates.CautionLine, Cautions: templates.Cautions(),
 		Principles: templates.Principles(), Formulas: templates.MethodNotes(), Defaults: a.MethodDefaults,
@@ -335,8 +341,14 @@ func (h *HTMLWriter) page(a *assess.Audit, info RunInfo, hum *HumidityGrid) html
 	if site.Defaulted(inventory.SiteItemRequiredMargin) || !(site.RequiredMargin.Known && site.RequiredMargin.Value > 0) {
 		p.Margin += " (default: not given on the Site sheet)"
 	}
-	if site.Defaulted(inventory.SiteItemAirTemperature) || !site.AirTemperature.Known {
-		p.Temperature = orText(p.Temperature, "") + " (default)"
+	if rh := site.RelativeHumidity; rh.Known {
+		p.RH = plainNumber(rh.Value) + " %"
+	}
+	if t := site.AirTemperature; t.Known && t.Value > 0 {
+		p.Temperature = plainNumber(kelvinToCelsius(t.Value)) + " °C"
+	}
+	if t := site.AirTemperature; !(t.Known && t.Value > 0) || site.Defaulted(inventory.SiteItemAirTemperature) {
+		p.Temperature += " (default: not given on the Site sheet)"
 	}
 	if a.Options.Samples > 0 {
 		p.Sampled = fmt.Sprintf("Monte Carlo, %d samples per object, seed %d", a.Options.Samples, a.Options.Seed)
@@ -360,7 +372,7 @@ func (h *HTMLWriter) page(a *assess.Audit, info RunInfo, hum *HumidityGrid) html
 	}
 	for i := range a.Stations {
 		st := &a.Stations[i]
-		hs := htmlStation{Rank: st.Rank, ID: st.Station.ID, Name: st.Station.Name, Atmosphere: atmosphereText(st.Atmosphere),
+		hs := htmlStation{Rank: st.Rank, ID: st.Station.ID, Name: st.Station.Name, Atmosphere: atmosphereID(st.Atmosphere),
 			Verdict: st.Verdict.String(), Class: verdictClass(st.Verdict), Objects: len(st.Objects),
 			Incendive: st.Counts[assess.Incendive], Marginal: st.Counts[assess.Marginal],
 			NonIncendive: st.Counts[assess.NonIncendive], NotAssessed: st.Counts[assess.NotAssessed],
@@ -372,6 +384,25 @@ func (h *HTMLWriter) page(a *assess.Audit, info RunInfo, hum *HumidityGrid) html
 			hs.Probability = book.UnitProbability.Text(*st.ProbabilityAnyIncendive)
 		}
 		p.Stations = append(p.Stations, hs)
+	}
+	seenAtm := map[string]bool{}
+	for i := range a.Stations {
+		at := a.Stations[i].Atmosphere
+		if at == nil || seenAtm[at.ID] {
+			continue
+		}
+		seenAtm[at.ID] = true
+		ha := htmlAtmosphere{ID: at.ID, Description: orText(at.Description, at.Substance), Kind: at.Kind, Zone: at.Zone, Group: at.Group, MIE: "not given"}
+		if at.MIE.Known {
+			ha.MIE = book.UnitMJ.Text(at.MIE.Value)
+			if at.MIEFromSubstance {
+				ha.MIE += " (built-in value for " + at.Substance + ")"
+			}
+		}
+		if at.GroupFromSubstance && ha.Group != "" {
+			ha.Group += " (built-in)"
+		}
+		p.Atmospheres = append(p.Atmospheres, ha)
 	}
 	for _, f := range a.Findings {
 		p.Findings = append(p.Findings, htmlFinding{Severity: f.Severity.String(), Class: verdictClass(f.Severity), Station: f.StationID,
@@ -414,12 +445,8 @@ func orText(s, alt string) string {
 	return s
 }
 
-func quantityText(u book.Unit, known bool, si float64) string {
-	if !known {
-		return ""
-	}
-	return u.Text(si)
-}
+// kelvinToCelsius gives a temperature in °C to 0.1 °C.
+func kelvinToCelsius(k float64) float64 { return math.Round((k-273.15)*10) / 10 }
 
 // stationRatioText is the worst ratio in words: never a bare 0 beside a verdict.
 func stationRatioText(st *assess.StationResult) string {
@@ -500,4 +527,12 @@ func sharesText(p *assess.Probability) string {
 		parts = append(parts, "not assessed "+book.UnitProbability.Text(p.NotAssessed))
 	}
 	return strings.Join(parts, ", ")
+}
+
+// atmosphereID is the atmosphere's ID, "none" when the station has none.
+func atmosphereID(a *inventory.Atmosphere) string {
+	if a == nil {
+		return "none"
+	}
+	return a.ID
 }

@@ -142,9 +142,9 @@ func energyChart(ps []energyPoint, margin float64, spread bool) *rowChart {
 				p.object, p.station, p.verdict, pointEnergyText(p.energy), book.UnitMJ.Text(p.prob.EnergyP05), book.UnitMJ.Text(p.prob.EnergyP50), book.UnitMJ.Text(p.prob.EnergyP95),
 				book.UnitMJ.Text(p.mie), book.UnitProbability.Text(p.prob.Incendive), book.UnitProbability.Text(p.prob.Marginal), book.UnitProbability.Text(p.prob.NonIncendive))
 		} else {
-			r.Value = "E/MIE " + book.UnitRatio.Text(p.ratio)
+			r.Value = book.UnitRatio.Text(p.ratio)
 			if p.assumedR {
-				r.Value = "E/MIE " + assess.RatioAssumedText
+				r.Value = assess.RatioAssumedText
 			}
 			r.Title = fmt.Sprintf("%s at station %s: %s; effective energy %s; MIE %s; MIE / margin %s",
 				p.object, p.station, p.verdict, book.UnitMJ.Text(p.energy), book.UnitMJ.Text(p.mie), book.UnitMJ.Text(p.mie/margin))
