@@ -488,7 +488,7 @@ func verdictMeaning(v assess.Verdict, margin float64) string {
 	case assess.Incendive:
 		return "a possible discharge reaches the MIE of the atmosphere, or a check that implies ignition failed"
 	case assess.Marginal:
-		return "energy below the MIE but above MIE / " + m + " (the required margin), or a limit of a standard is not met"
+		return "energy below the MIE but reaching MIE / " + m + " (the required margin), or a limit of a standard or a screening check is not met (earthing, insulating area, liquids, bags, a reading the model contradicts)"
 	case assess.NonIncendive:
 		return "every possible discharge stays below MIE / " + m + " and every check passed; not a permit to work"
 	}
