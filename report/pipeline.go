@@ -87,11 +87,12 @@ func (r *Run) end() {
 	}
 }
 
-// Outputs names the files of one survey's audit: the workbook (required) and
-// the JSON (optional).
+// Outputs names the files of one survey's audit: the workbook (required),
+// the JSON and the HTML report (optional).
 type Outputs struct {
 	Workbook string
 	JSON     string
+	HTML     string
 }
 
 // streamBatch is the number of objects assessed (and sampled in parallel) at a time.
@@ -113,8 +114,15 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 		st    *assess.Streamer
 		ww    *audit.WorkbookWriter
 		jw    *audit.JSONWriter
+		hw    *audit.HTMLWriter
 		batch = make([]inventory.Object, 0, streamBatch)
+		// kept only for the HTML report's humidity sweep, which
+		// reassesses the whole survey at each step
+		kept []inventory.Object
 	)
+	if out.HTML != "" {
+		hw = audit.NewHTMLWriter()
+	}
 	defer func() {
 		r.end()
 		if ww != nil {
@@ -132,6 +140,11 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 		}
 		if jw != nil {
 			if err := jw.Add(rs); err != nil {
+				return err
+			}
+		}
+		if hw != nil {
+			if err := hw.Add(rs); err != nil {
 				return err
 			}
 		}
@@ -160,6 +173,9 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 		return nil
 	}, func(obj inventory.Object) error {
 		batch = append(batch, obj)
+		if hw != nil {
+			kept = append(kept, obj)
+		}
 		if len(batch) == streamBatch {
 			return flush()
 		}
@@ -192,7 +208,17 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 			return nil, unusable(fmt.Errorf("writing the audit JSON: %w", err))
 		}
 	}
-	if err := r.Workspace.Commit(pw, pj); err != nil {
+	var ph *outfile.Pending
+	if hw != nil {
+		whole := *s
+		whole.Objects = kept
+		hum := HumidityGrid(&whole)
+		if ph, err = r.Workspace.Prepare(out.HTML, func(w io.Writer) error { return hw.Finish(a, r.Info(s), hum, w) }); err != nil {
+			r.Workspace.Discard(pw, pj)
+			return nil, unusable(fmt.Errorf("writing the HTML report: %w", err))
+		}
+	}
+	if err := r.Workspace.Commit(pw, pj, ph); err != nil {
 		return nil, unusable(fmt.Errorf("writing the audit: %w", err))
 	}
 	return a, nil
@@ -218,7 +244,7 @@ type PortfolioFiles struct {
 // be assessed or, under Strict, a row was rejected.
 func (r *Run) AssessOne(survey string, out Outputs, pf PortfolioFiles) error {
 	if err := outfile.RefuseClashes([]outfile.NamedPath{{Role: "the survey", Path: survey}},
-		[]outfile.NamedPath{{Role: "the audit workbook", Path: out.Workbook}, {Role: "--json", Path: out.JSON}, {Role: "--portfolio", Path: pf.Workbook}, {Role: "--portfolio-json", Path: pf.JSON}}); err != nil {
+		[]outfile.NamedPath{{Role: "the audit workbook", Path: out.Workbook}, {Role: "--json", Path: out.JSON}, {Role: "--html", Path: out.HTML}, {Role: "--portfolio", Path: pf.Workbook}, {Role: "--portfolio-json", Path: pf.JSON}}); err != nil {
 		return unusable(err)
 	}
 	r.begin(filepath.Base(survey))
@@ -275,6 +301,9 @@ func (r *Run) printAudit(a *assess.Audit, out Outputs) {
 	fmt.Fprintf(w, "\nAudit workbook: %s\n", out.Workbook)
 	if out.JSON != "" {
 		fmt.Fprintf(w, "Audit JSON:     %s\n", outfile.ShownPath(out.JSON))
+	}
+	if out.HTML != "" {
+		fmt.Fprintf(w, "HTML report:    %s\n", out.HTML)
 	}
 }
 

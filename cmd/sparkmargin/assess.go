@@ -19,6 +19,7 @@ type assessOptions struct {
 	surveys       []string // several surveys or folders (survey is then empty)
 	output        string
 	json          string
+	html          string // the HTML report (one survey only)
 	portfolio     string
 	portfolioJSON string
 	strict        bool
@@ -59,6 +60,7 @@ func newAssessCmd(ws *outfile.Workspace) *cobra.Command {
 	}
 	c.Flags().StringVarP(&o.output, "output", "o", "", "audit workbook to write (default <survey>-audit.xlsx beside the survey); a folder with several surveys")
 	c.Flags().StringVar(&o.json, "json", "", "also write the audit as JSON to this file (- for standard output, the summary then going to standard error); a folder with several surveys (also gets portfolio.json)")
+	c.Flags().StringVar(&o.html, "html", "", "also write a self-contained HTML report (plots, findings, cautions; prints from a browser) to this file; one survey only. It reassesses the survey at 10-90 % RH for its humidity plot")
 	c.Flags().StringVarP(&o.portfolio, "portfolio", "p", "", "portfolio workbook ranking sites and stations across the surveys (default portfolio.xlsx in the -o folder, else the current folder; written for one survey only when given)")
 	c.Flags().StringVar(&o.portfolioJSON, "portfolio-json", "", "also write the portfolio as JSON to this file (- for standard output)")
 	c.Flags().BoolVar(&o.strict, "strict", false, "exit 1 when any row was rejected")
@@ -92,6 +94,9 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	if o.survey == "" && outfile.IsStdout(o.json) {
 		return withCode(exitUsage, fmt.Errorf("--json -: with several surveys --json names a folder; give one survey to write its JSON to standard output (--portfolio-json - takes the portfolio's)"))
 	}
+	if err := checkHTML(o.html, o.survey == ""); err != nil {
+		return err
+	}
 	out = summaryOut(out, errOut, o.json, o.portfolioJSON)
 	if o.samples < 0 || o.workers < 0 {
 		return withCode(exitUsage, fmt.Errorf("--samples and --workers take a count of 0 or more (got --samples %d, --workers %d)", o.samples, o.workers))
@@ -109,5 +114,5 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	if xlsx == "" {
 		xlsx = outfile.DefaultAuditPath(o.survey)
 	}
-	return r.AssessOne(o.survey, report.Outputs{Workbook: xlsx, JSON: o.json}, pf)
+	return r.AssessOne(o.survey, report.Outputs{Workbook: xlsx, JSON: o.json, HTML: o.html}, pf)
 }

@@ -23,7 +23,8 @@ func newDemoCmd(ws *outfile.Workspace) *cobra.Command {
 		Use:   "demo",
 		Short: "Write the embedded demo survey of an invented plant and its audit",
 		Long: "demo writes the demo survey (an invented solvent-based coating and converting line) and its audit\n" +
-			"workbook and JSON into DIR (default: the current folder), prints the ranked stations, and says what to open.",
+			"workbook, JSON and HTML report (demo-survey-audit.html, open it in a browser) into DIR (default: the current\n" +
+			"folder), prints the ranked stations, and says what to open.",
 		Args: cobra.NoArgs,
 		RunE: func(c *cobra.Command, args []string) error {
 			return runDemo(c.OutOrStdout(), c.ErrOrStderr(), o)
@@ -47,7 +48,8 @@ func runDemo(out, errOut io.Writer, o demoOptions) error {
 	}
 	xlsx := filepath.Join(o.dir, "demo-survey-audit.xlsx")
 	jsonPath := filepath.Join(o.dir, "demo-survey-audit.json")
+	htmlPath := filepath.Join(o.dir, "demo-survey-audit.html")
 	fmt.Fprintf(out, "Demo survey of an invented plant: %s\n\n", survey)
-	return runAssess(out, errOut, assessOptions{ws: o.ws, survey: survey, output: xlsx, json: jsonPath,
+	return runAssess(out, errOut, assessOptions{ws: o.ws, survey: survey, output: xlsx, json: jsonPath, html: htmlPath,
 		args: []string{"sparkmargin", "demo", "-o", o.dir}})
 }

@@ -67,6 +67,22 @@ func checkOutputs(inputs []outfile.NamedPath, books, jsons []outputFlag) error {
 	return nil
 }
 
+// checkHTML refuses, as a usage error, an HTML report path that is standard
+// output, has a workbook or JSON extension, or is given with several surveys.
+func checkHTML(path string, several bool) error {
+	switch {
+	case path == "":
+		return nil
+	case several:
+		return withCode(exitUsage, fmt.Errorf("--html %s: the HTML report is written for one survey; assess the surveys one by one to get one report each", path))
+	case outfile.IsStdout(path):
+		return withCode(exitUsage, fmt.Errorf("--html -: give the HTML report a file name (e.g. report.html)"))
+	case hasExt(path, workbookExts) || hasExt(path, jsonExts):
+		return withCode(exitUsage, fmt.Errorf("--html %s: --html writes an HTML page, not a workbook or JSON; give it a .html name", path))
+	}
+	return nil
+}
+
 func hasExt(path string, exts []string) bool {
 	ext := filepath.Ext(path)
 	for _, e := range exts {

@@ -1,8 +1,10 @@
 // Package audit writes the outputs of an assessment: the audit workbook
 // (WriteWorkbook, or WorkbookWriter when the Objects rows stream in), the JSON
 // file of the output contract (WriteJSON, JSONWriter), the short ranked table
-// for the terminal (WriteSummary) and the portfolio across several surveys
-// (WritePortfolio, WritePortfolioJSON). Every writer takes an io.Writer: the
+// for the terminal (WriteSummary), the portfolio across several surveys
+// (WritePortfolio, WritePortfolioJSON) and the self-contained HTML report
+// (WriteHTML, HTMLWriter; html.go), whose humidity plot the caller fills from
+// a sweep, since this package builds no rerun. Every writer takes an io.Writer: the
 // report package's pipeline writes them through its safe file writing, so a
 // killed run never leaves a half-written audit in place.
 //
