@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
 
@@ -61,7 +62,7 @@ func TestAssessOneWritesHTML(t *testing.T) {
 	if err := os.WriteFile(survey, data, 0o644); err != nil {
 		t.Fatal(err)
 	}
-	ws := NewWorkspace(dir)
+	ws := outfile.NewWorkspace(dir)
 	defer ws.Close()
 	var out bytes.Buffer
 	r := &Run{Workspace: ws, Out: &out}
