@@ -100,4 +100,3 @@ func TestHTMLEscapes(t *testing.T) {
 		t.Error("the site name is not in the HTML, escaped")
 	}
 }
-
