@@ -3,7 +3,6 @@ package audit
 import (
 	"fmt"
 	"math"
-	"reflect"
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -25,176 +24,34 @@ type limitRow struct {
 	unit       book.Unit
 	source     string
 	fromMemory bool
+	siteItem   string // the Site item that overrides it, "" when none
 }
 
-// limitRows lists every limit of model.LimitSources with the value actually
-// applied (Options.Limits, survey overrides merged), the default and its source.
+// limitRows lists every row of the limit table (model.LimitTable) with the
+// value actually applied (Options.Limits, survey overrides merged), the
+// default and its source.
 func limitRows(applied model.Limits) []limitRow {
-	rv := reflect.ValueOf(applied)
 	var out []limitRow
-	for _, c := range model.LimitSources() {
-		v, ok := limitField(rv, c.Limit)
-		if !ok {
-			v = c.Value
-		}
-		out = append(out, limitRow{name: limitLabel(c.Limit), value: v, def: c.Value, unit: siDisplayUnit(c.Unit),
-			source: c.Source, fromMemory: c.FromMemory})
+	for _, s := range model.LimitTable() {
+		out = append(out, limitRow{name: s.Label, value: s.Value(applied), def: s.Default, unit: displayUnit(s.Display),
+			source: s.Source(), fromMemory: s.FromMemory, siteItem: s.SiteItem})
 	}
 	return out
 }
 
-// limitField reads the Limits field named as in model.Citation.Limit:
-// "ShockEnergy" or "TransferredCharge[IIB]" ("[other]" is the no-group entry).
-func limitField(rv reflect.Value, name string) (float64, bool) {
-	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
-	f := rv.FieldByName(field)
-	if !f.IsValid() {
-		return 0, false
-	}
-	if indexed {
-		if f.Kind() != reflect.Array {
-			return 0, false
-		}
-		i := int(model.GroupNone)
-		if group != "other" {
-			if pg, err := model.ParseGroup(group); err == nil {
-				i = int(pg)
-			} else if vc, err := model.ParseVesselClass(group); err == nil && strings.HasPrefix(field, "Vessel") {
-				i = int(vc) // per-vessel-class liquid limits: "VesselVDLow[road tanker]"
-			} else {
-				return 0, false
-			}
-		}
-		if i >= f.Len() {
-			return 0, false
-		}
-		f = f.Index(i)
-	}
-	if f.Kind() != reflect.Float64 {
-		return 0, false
-	}
-	return f.Float(), true
-}
+// displayUnits are the units the limit table shows limits in.
+var displayUnits = []book.Unit{book.UnitDimless, book.UnitVolt, book.UnitMJ, book.UnitUCPerM2, book.UnitKVPerM, book.UnitNC,
+	book.UnitUA, book.UnitOhm, book.UnitOhmM, book.UnitSecond, book.UnitMillimetre, book.UnitCM2, book.UnitMPerS,
+	book.UnitUCPerKg, book.UnitPSPerM, book.UnitM2PerS, book.UnitCubicMetre, book.UnitPF}
 
-// siDisplayUnit maps the SI unit of a citation to the audit's display unit.
-func siDisplayUnit(si string) book.Unit {
-	switch si {
-	case "C/m^2":
-		return book.UnitUCPerM2
-	case "J":
-		return book.UnitMJ
-	case "m^2":
-		return book.UnitCM2
-	case "C":
-		return book.UnitNC
-	case "V":
-		return book.UnitVolt
-	case "V/m":
-		return book.UnitKVPerM
-	case "ohm":
-		return book.UnitOhm
-	case "ohm m":
-		return book.UnitOhmM
-	case "F":
-		return book.UnitPF
-	case "S/m":
-		return book.UnitPSPerM
-	case "m^2/s":
-		return book.UnitM2PerS
-	case "m/s":
-		return book.UnitMPerS
-	case "A":
-		return book.UnitUA
-	case "m":
-		return book.UnitMillimetre
-	case "C/kg":
-		return book.UnitUCPerKg
-	case "m^3":
-		return book.UnitCubicMetre
-	case "s":
-		return book.UnitSecond
+// displayUnit is the audit unit of a limit table row's display unit (its label).
+func displayUnit(label string) book.Unit {
+	for _, u := range displayUnits {
+		if u.Label() == label {
+			return u
+		}
 	}
 	return book.UnitDimless
-}
-
-// limitLabel names a limit in words; an unknown field keeps its name.
-func limitLabel(name string) string {
-	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
-	labels := map[string]string{
-		"BrushChargeDensity":      "Brush discharge: charge-density screen",
-		"BrushEnergy":             "Brush discharge: equivalent energy",
-		"BrushArea":               "Brush discharge: area one discharge drains",
-		"TransferredCharge":       "Transferred charge, EPL Gb/Gc (zones 1, 2)",
-		"ZoneZeroChargeFactor":    "Zone 0 factor on the transferred charge",
-		"AreaGa":                  "Insulating area, EPL Ga (zone 0)",
-		"AreaGb":                  "Insulating area, EPL Gb/Gc (zones 1, 2)",
-		"PropagatingDensity":      "Propagating brush: charge density it needs",
-		"PropagatingBreakdown":    "Propagating brush: layer breakdown below which it is prevented",
-		"PropagatingThickness":    "Propagating brush: thickness above which it is not expected",
-		"PropagatingMaxEnergy":    "Propagating brush: upper bound of the energy",
-		"ConductorEarthing":       "Conductor resistance to earth",
-		"PersonEarthing":          "Person-to-earth resistance",
-		"PersonEarthingMIE":       "Person-to-earth limit applies at MIE up to",
-		"ShockEnergy":             "Shock energy to people",
-		"SafePotential":           "Safe conductor potential",
-		"SparkMinPotential":       "Spark minimum potential (Paschen)",
-		"AirBreakdown":            "Air breakdown field",
-		"NotEarthed":              "Resistance shown when not measured (the potential is computed with no leakage)",
-		"PersonMaxPotential":      "Cap on an estimated body potential",
-		"LowConductivity":         "Liquid: low conductivity at or below",
-		"HighConductivity":        "Liquid: high conductivity above",
-		"VDKappa":                 "Liquid filling: conductivity bound of the v·d limits",
-		"SlowStartVelocity":       "Liquid filling: velocity until the inlet is submerged",
-		"BagCToTab":               "Bag type C: any point to the earthing tab",
-		"BagTabToEarth":           "Bag type C: tab to plant earth",
-		"BagMinMIE":               "Bags C and D: lowest MIE of their qualification",
-		"BagMaxCurrent":           "Bags C and D: charging current of their qualification",
-		"MaxChargingCurrent":      "Largest charging current taken when none is known",
-		"DissipativeSurface":      "Surface resistance counted as dissipative",
-		"DissipativeEarthing":     "Earthing of a dissipative surface",
-		"ConeResistivity":         "Cone discharge: bulk resistivity needed",
-		"ConeChargeToMass":        "Cone discharge: charge-to-mass needed",
-		"ConeField":               "Cone discharge: heap field below which none is expected",
-		"ConeMinVolume":           "Cone discharge: container volume below which none is expected",
-		"BagDustLow":              "Bags: MIE band boundary (low)",
-		"BagDustHigh":             "Bags: MIE band boundary (high)",
-		"ConductorMaxPotential":   "Cap on an unmeasured conductor potential",
-		"SmallPartCapacitance":    "Small metal part exempt from earthing below",
-		"SmallPartCapacitanceIIC": "Small metal part exempt from earthing below (IIC, zone 0)",
-		"DustBrushMIE":            "Dust screened for brush discharges below MIE",
-
-		"VesselVDLow":             "Liquid filling: v·d limit at or below the conductivity bound, or unknown",
-		"VesselVDHigh":            "Liquid filling: v·d limit above the conductivity bound (low-conductivity liquids)",
-		"VesselMaxVelocity":       "Liquid filling: velocity ceiling",
-		"LargeTankDiameter":       "Liquid filling: fixed tank diameter with no v·d limit",
-		"SecondPhaseVelocity":     "Liquid filling: velocity ceiling with a second phase",
-		"SecondPhaseConductivity": "Liquid: with a second phase, low conductivity below",
-		"FilterResidenceFactor":   "Liquid: relaxation times of residence after a fine filter",
-		"FilterResidenceMax":      "Liquid: residence after a fine filter that always suffices",
-		"FilterChargeFactor":      "Liquid: streaming current factor after a fine filter",
-		"StrainerChargeFactor":    "Liquid: streaming current factor after a strainer",
-		"SecondPhaseChargeFactor": "Liquid: streaming current factor with a second phase",
-
-		"EarthingContradictionFactor": "Measured potential above this many times the earthing bound I R: a contradiction",
-		"SparkSurface":                "Surface resistance below which an unearthed surface sparks as a conductor",
-		"CoronaEnergy":                "Corona: equivalent energy bound (counted only against an MIE below it)",
-		"CoatingThickness":            "Coating on earthed metal exempt from the area limit up to (with breakdown at most 4 kV)",
-		"CoatingThicknessIIC":         "Coating on earthed metal exempt from the area limit up to, IIC (with breakdown at most 4 kV)",
-	}
-	l, ok := labels[field]
-	if !ok {
-		l = field
-	}
-	if field == "TransferredCharge" && strings.HasPrefix(group, "III") {
-		l = "Transferred charge, dust (against propagating brush discharges)"
-	}
-	if indexed {
-		if group == "other" {
-			group = "no group, dusts"
-		}
-		l += ", " + group
-	}
-	return l
 }
 
 // limitValue returns the display cell of a limit: empty when the limit is not
@@ -371,6 +228,25 @@ func (wb *workbook) method() error {
 	}
 	r++
 
+	if err := section("Verify before relying on these", []string{"Value", "Value applied", "Unit", "Site item to override it", "Source: recalled, not confirmed against the text"}); err != nil {
+		return err
+	}
+	for _, l := range limitRows(a.Options.Limits) {
+		if !l.fromMemory {
+			continue
+		}
+		unit := l.unit.Label()
+		if unit == "" {
+			unit = "–"
+		}
+		v := limitValue(l)
+		v.Align = "left"
+		if err := put(book.WrapText(l.name), v, book.Text(unit), book.OptText(l.siteItem), book.WrapText(l.source)); err != nil {
+			return err
+		}
+	}
+	r++
+
 	if err := section("Defaults applied", []string{"Quantity", "Value", "", "", "Why and from where"}); err != nil {
 		return err
 	}
@@ -432,7 +308,25 @@ func (wb *workbook) method() error {
 			return err
 		}
 	}
+	r++
+
+	if err := section("References", []string{"Key (as the sources cite it)", "Document", "Edition", "Kind", "Note"}); err != nil {
+		return err
+	}
+	for _, ref := range model.References() {
+		if err := put(book.WrapText(ref.Key), book.WrapText(ref.Title), book.OptText(ref.Edition), book.Text(ref.Kind), optWrap(ref.Note)); err != nil {
+			return err
+		}
+	}
 	return wb.printSetup(s, 1, "", "")
+}
+
+// optWrap is a wrapped text cell, empty for "".
+func optWrap(s string) book.Cell {
+	if s == "" {
+		return book.Cell{}
+	}
+	return book.WrapText(s)
 }
 
 func leftAligned(c book.Cell) book.Cell {
