@@ -29,6 +29,10 @@ type jsonAudit struct {
 	Rejected []jsonProblem `json:"rejected"`
 	Warnings []jsonProblem `json:"warnings"`
 	Cautions []string      `json:"cautions"`
+	// References are the documents the sources cite by key; Verify the
+	// limits applied that were recalled, not confirmed against the text.
+	References []jsonReference `json:"references"`
+	Verify     []jsonVerify    `json:"verify"`
 }
 
 type jsonTool struct {
@@ -246,6 +250,40 @@ func workbookRecord(info RunInfo) *jsonSurvey {
 	return &jsonSurvey{File: info.Workbook, SHA256: info.WorkbookSHA256}
 }
 
+// jsonReference is one entry of the References list (model.References).
+type jsonReference struct {
+	Key     string `json:"key"`
+	Edition string `json:"edition"`
+	Kind    string `json:"kind"`
+	Title   string `json:"title"`
+	Note    string `json:"note"`
+}
+
+// jsonVerify is one limit applied whose value was recalled, not confirmed
+// against its reference's text (the Method sheet's "Verify before relying on these").
+type jsonVerify struct {
+	Limit    string   `json:"limit"`
+	Label    string   `json:"label"`
+	ValueSI  *float64 `json:"value_si"`
+	UnitSI   string   `json:"unit_si"`
+	SiteItem string   `json:"site_item"`
+	Source   string   `json:"source"`
+}
+
+// jsonSources are the References and Verify lists of an audit applying lim.
+func jsonSources(lim model.Limits) ([]jsonReference, []jsonVerify) {
+	refs, verify := []jsonReference{}, []jsonVerify{}
+	for _, r := range model.References() {
+		refs = append(refs, jsonReference{r.Key, r.Edition, r.Kind, r.Title, r.Note})
+	}
+	for _, s := range model.LimitTable() {
+		if s.FromMemory {
+			verify = append(verify, jsonVerify{s.Key, s.Label, book.Finite(s.Value(lim)), s.Unit, s.SiteItem, s.Source()})
+		}
+	}
+	return refs, verify
+}
+
 func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 	s := a.Survey
 	doc := jsonAudit{
@@ -271,6 +309,7 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 		Warnings: []jsonProblem{},
 		Cautions: templates.Cautions(),
 	}
+	doc.References, doc.Verify = jsonSources(a.Options.Limits)
 	if a.Options.Samples > 0 {
 		tab := a.Options.Uncertainties
 		if tab == nil {

@@ -425,3 +425,36 @@ func TestSummaryIncompleteMark(t *testing.T) {
 		}
 	}
 }
+
+// TestWorkbookMethodSources: the Method sheet lists the references by key
+// with their editions, and under "Verify before relying on these" the limits
+// recalled, not confirmed (the IIC zone 0 area of IEC 60079-0, 4 cm², from
+// memory), not the confirmed ones (TRGS 727 Annex D shock energy).
+func TestWorkbookMethodSources(t *testing.T) {
+	f := openWorkbook(t, testWorkbook(t))
+	section := ""
+	inVerify, refs := map[string]bool{}, map[string]string{}
+	for _, r := range rowsOf(t, f, SheetMethod) {
+		if len(r) == 0 {
+			continue
+		}
+		if len(r) == 1 {
+			section = r[0]
+			continue
+		}
+		switch section {
+		case "Verify before relying on these":
+			inVerify[r[0]] = true
+		case "References":
+			if len(r) > 2 {
+				refs[r[0]] = r[2]
+			}
+		}
+	}
+	if !inVerify["Insulating area, EPL Ga (zone 0), IIC"] || inVerify["Shock energy to people"] {
+		t.Errorf("verify list %v: want the IIC zone 0 area, not the shock energy", inVerify)
+	}
+	if refs["TRGS 727"] != "2016" || refs["IEC TS 60079-32-1"] != "2013+A1:2017" {
+		t.Errorf("references %v", refs)
+	}
+}
