@@ -14,7 +14,7 @@ import (
 type LimitSpec struct {
 	Key      string // Limits field, the group or class in brackets: "TransferredCharge[IIB]"
 	Label    string // in words, as the Method sheet shows it
-	Unit     string // SI unit of the value, ASCII: "J", "C/m^2", "ohm", "1" for a plain number
+	Unit     string // SI unit of the value, ASCII: "J", "C/m²", "Ω", "1" for a plain number
 	Display  string // unit the audit shows it in: "mJ", "µC/m²", "Ω", "" for a plain number
 	SiteItem string // Site sheet item that overrides it (lower case, no unit), "" when none
 	SiteUnit string // the Site item's practical unit, "" for a plain number
@@ -155,19 +155,19 @@ func limitTable() []LimitSpec {
 
 	for _, g := range groups {
 		add(LimitSpec{Key: "BrushChargeDensity[" + g.String() + "]", Label: "Brush discharge: charge-density screen, " + g.String(),
-			Unit: "C/m^2", Display: "µC/m²", SiteItem: "brush charge density " + low(g.String()), SiteUnit: "µC/m²",
+			Unit: "C/m²", Display: "µC/m²", SiteItem: "brush charge density " + low(g.String()), SiteUnit: "µC/m²",
 			Default: map[Group]float64{IIA: 5e-6, IIB: 3e-6, IIC: 1e-6}[g], Ref: RefJNIOSH, Clause: "(secondary summary); documented, overridable screen",
 			at: field(func(l *Limits) *float64 { return &l.BrushChargeDensity[g] })})
 	}
 	add(LimitSpec{Key: "BrushChargeDensity[other]", Label: "Brush discharge: charge-density screen, no group, dusts",
-		Unit: "C/m^2", Display: "µC/m²", Default: 5e-6, Ref: RefChoice, Clause: ": the IIA screen for no group and for dusts",
+		Unit: "C/m²", Display: "µC/m²", Default: 5e-6, Ref: RefChoice, Clause: ": the IIA screen for no group and for dusts",
 		at: func(l *Limits) []*float64 {
 			return []*float64{&l.BrushChargeDensity[GroupNone], &l.BrushChargeDensity[IIIA], &l.BrushChargeDensity[IIIB], &l.BrushChargeDensity[IIIC]}
 		}})
 	add(LimitSpec{Key: "BrushEnergy", Label: "Brush discharge: equivalent energy", Unit: "J", Display: "mJ", SiteItem: "brush energy", SiteUnit: "mJ",
 		Default: 4e-3, Ref: RefCLC50404, Clause: "summaries (3-4 mJ); upper end taken",
 		at: field(func(l *Limits) *float64 { return &l.BrushEnergy })})
-	add(LimitSpec{Key: "BrushArea", Label: "Brush discharge: area one discharge drains", Unit: "m^2", Display: "cm²", SiteItem: "brush area", SiteUnit: "cm²",
+	add(LimitSpec{Key: "BrushArea", Label: "Brush discharge: area one discharge drains", Unit: "m²", Display: "cm²", SiteItem: "brush area", SiteUnit: "cm²",
 		Default: 100e-4, Ref: RefChoice, Clause: ": area one brush drains",
 		at: field(func(l *Limits) *float64 { return &l.BrushArea })})
 	for _, g := range groups {
@@ -187,13 +187,13 @@ func limitTable() []LimitSpec {
 		at: field(func(l *Limits) *float64 { return &l.ZoneZeroChargeFactor })})
 	for _, g := range groups {
 		add(LimitSpec{Key: "AreaGa[" + g.String() + "]", Label: "Insulating area, EPL Ga (zone 0), " + g.String(),
-			Unit: "m^2", Display: "cm²", SiteItem: "insulating area zone 0 " + low(g.String()), SiteUnit: "cm²",
+			Unit: "m²", Display: "cm²", SiteItem: "insulating area zone 0 " + low(g.String()), SiteUnit: "cm²",
 			Default: map[Group]float64{IIA: 50e-4, IIB: 25e-4, IIC: 4e-4}[g], Ref: Ref0, FromMemory: true,
 			at: field(func(l *Limits) *float64 { return &l.AreaGa[g] })})
 	}
 	for _, g := range groups {
 		add(LimitSpec{Key: "AreaGb[" + g.String() + "]", Label: "Insulating area, EPL Gb/Gc (zones 1, 2), " + g.String(),
-			Unit: "m^2", Display: "cm²", SiteItem: "insulating area zone 1 " + low(g.String()), SiteUnit: "cm²",
+			Unit: "m²", Display: "cm²", SiteItem: "insulating area zone 1 " + low(g.String()), SiteUnit: "cm²",
 			Default: map[Group]float64{IIA: 100e-4, IIB: 100e-4, IIC: 20e-4}[g], Ref: Ref0, FromMemory: true,
 			at: field(func(l *Limits) *float64 { return &l.AreaGb[g] })})
 	}
@@ -201,15 +201,15 @@ func limitTable() []LimitSpec {
 		add(LimitSpec{Key: key, Label: label, Unit: unit, Display: display, SiteItem: item, SiteUnit: itemUnit, Default: def,
 			Ref: ref, Clause: clause, FromMemory: mem, at: field(f)})
 	}
-	scalar("PropagatingDensity", "Propagating brush: charge density it needs", "C/m^2", "µC/m²", "propagating charge density", "µC/m²", 2.5e-4,
+	scalar("PropagatingDensity", "Propagating brush: charge density it needs", "C/m²", "µC/m²", "propagating charge density", "µC/m²", 2.5e-4,
 		RefTRGS727, "Annex C; JNIOSH-TR", false, func(l *Limits) *float64 { return &l.PropagatingDensity })
 	scalar("PropagatingBreakdown", "Propagating brush: layer breakdown below which it is prevented", "V", "V", "propagating breakdown voltage", "kV", 4e3,
 		RefTRGS727, "Annex C; "+reference(Ref0).Cite()+" foreword", false, func(l *Limits) *float64 { return &l.PropagatingBreakdown })
 	scalar("PropagatingThickness", "Propagating brush: thickness above which it is not expected", "m", "mm", "propagating thickness", "mm", 8e-3,
 		RefTS32, "(layers thinner than about 8-10 mm)", true, func(l *Limits) *float64 { return &l.PropagatingThickness })
-	scalar("ConductorEarthing", "Conductor resistance to earth", "ohm", "Ω", "conductor earthing limit", "Ω", 1e6,
+	scalar("ConductorEarthing", "Conductor resistance to earth", "Ω", "Ω", "conductor earthing limit", "Ω", 1e6,
 		RefTRGS727, "8.3", false, func(l *Limits) *float64 { return &l.ConductorEarthing })
-	scalar("PersonEarthing", "Person-to-earth resistance", "ohm", "Ω", "person earthing limit", "Ω", 1e8,
+	scalar("PersonEarthing", "Person-to-earth resistance", "Ω", "Ω", "person earthing limit", "Ω", 1e8,
 		RefTRGS727, "7.2", false, func(l *Limits) *float64 { return &l.PersonEarthing })
 	scalar("PersonEarthingMIE", "Person-to-earth limit applies at MIE up to", "J", "mJ", "person earthing mie", "mJ", 10e-3,
 		RefTRGS727, "7.2", false, func(l *Limits) *float64 { return &l.PersonEarthingMIE })
@@ -221,7 +221,7 @@ func limitTable() []LimitSpec {
 		RefPaschen, "(minimum of air about 327 V; no gap breaks down below about 300 V)", false, func(l *Limits) *float64 { return &l.SparkMinPotential })
 	scalar("AirBreakdown", "Air breakdown field", "V/m", "kV/m", "air breakdown field", "kV/m", AirBreakdownField,
 		RefAMS, "(about 3 MV/m for centimetre gaps); "+RefCCPS, false, func(l *Limits) *float64 { return &l.AirBreakdown })
-	scalar("NotEarthed", "Resistance shown when not measured (the potential is computed with no leakage)", "ohm", "Ω", "not earthed resistance", "Ω", 1e13,
+	scalar("NotEarthed", "Resistance shown when not measured (the potential is computed with no leakage)", "Ω", "Ω", "not earthed resistance", "Ω", 1e13,
 		RefChoice, ": unknown resistance taken as not earthed", false, func(l *Limits) *float64 { return &l.NotEarthed })
 	scalar("PersonMaxPotential", "Cap on an estimated body potential", "V", "V", "person maximum potential", "kV", 15e3,
 		RefESDA, "body-voltage table (vinyl floor 12 kV at low RH), rounded up", false, func(l *Limits) *float64 { return &l.PersonMaxPotential })
@@ -233,9 +233,9 @@ func limitTable() []LimitSpec {
 		RefTS32, "", false, func(l *Limits) *float64 { return &l.VDKappa })
 	scalar("SlowStartVelocity", "Liquid filling: velocity until the inlet is submerged", "m/s", "m/s", "slow start velocity", "m/s", 1,
 		RefTS32, "", true, func(l *Limits) *float64 { return &l.SlowStartVelocity })
-	scalar("BagCToTab", "Bag type C: any point to the earthing tab", "ohm", "Ω", "bag c point to tab", "Ω", 1e8,
+	scalar("BagCToTab", "Bag type C: any point to the earthing tab", "Ω", "Ω", "bag c point to tab", "Ω", 1e8,
 		RefBags, "(1e7 Ω in the earlier edition and in "+reference(RefTRGS727).Cite()+")", false, func(l *Limits) *float64 { return &l.BagCToTab })
-	scalar("BagTabToEarth", "Bag type C: tab to plant earth", "ohm", "Ω", "bag c tab to earth", "Ω", 1e6,
+	scalar("BagTabToEarth", "Bag type C: tab to plant earth", "Ω", "Ω", "bag c tab to earth", "Ω", 1e6,
 		RefBags, "", false, func(l *Limits) *float64 { return &l.BagTabToEarth })
 	scalar("BagMinMIE", "Bags C and D: lowest MIE of their qualification", "J", "mJ", "bag minimum mie", "mJ", 0.14e-3,
 		RefBags, "", false, func(l *Limits) *float64 { return &l.BagMinMIE })
@@ -245,17 +245,17 @@ func limitTable() []LimitSpec {
 		RefJNIOSH, "(propagating brush energies of hundreds of mJ to J; the range from memory)", true, func(l *Limits) *float64 { return &l.PropagatingMaxEnergy })
 	scalar("MaxChargingCurrent", "Largest charging current taken when none is known", "A", "µA", "", "", 100e-6,
 		RefJNIOSH, ": industrial charging currents rarely exceed 100 µA", false, func(l *Limits) *float64 { return &l.MaxChargingCurrent })
-	scalar("DissipativeSurface", "Surface resistance counted as dissipative", "ohm", "Ω", "", "", 1e9,
+	scalar("DissipativeSurface", "Surface resistance counted as dissipative", "Ω", "Ω", "", "", 1e9,
 		Ref0, "cl. 26.13 (1e9 Ω at 50 %RH)", false, func(l *Limits) *float64 { return &l.DissipativeSurface })
-	scalar("DissipativeEarthing", "Earthing of a dissipative surface", "ohm", "Ω", "", "", 1e8,
+	scalar("DissipativeEarthing", "Earthing of a dissipative surface", "Ω", "Ω", "", "", 1e8,
 		RefTRGS727, "", true, func(l *Limits) *float64 { return &l.DissipativeEarthing })
-	scalar("ConeResistivity", "Cone discharge: bulk resistivity needed", "ohm m", "Ω·m", "", "", 1e10,
+	scalar("ConeResistivity", "Cone discharge: bulk resistivity needed", "Ω·m", "Ω·m", "", "", 1e10,
 		RefBGRCI, "5.10; "+reference(RefTRGS727).Cite()+" 6.2.3", false, func(l *Limits) *float64 { return &l.ConeResistivity })
 	scalar("ConeChargeToMass", "Cone discharge: charge-to-mass needed", "C/kg", "µC/kg", "", "", 1e-6,
 		RefJNIOSH, "", false, func(l *Limits) *float64 { return &l.ConeChargeToMass })
 	scalar("ConeField", "Cone discharge: heap field below which none is expected", "V/m", "kV/m", "", "", 500e3,
 		RefJNIOSH, "; "+RefBGRCI+" 5.10", false, func(l *Limits) *float64 { return &l.ConeField })
-	scalar("ConeMinVolume", "Cone discharge: container volume below which none is expected", "m^3", "m³", "", "", 0.25,
+	scalar("ConeMinVolume", "Cone discharge: container volume below which none is expected", "m³", "m³", "", "", 0.25,
 		RefJNIOSH, "", false, func(l *Limits) *float64 { return &l.ConeMinVolume })
 	scalar("BagDustLow", "Bags: MIE band boundary (low)", "J", "mJ", "", "", 3e-3,
 		RefBags, "", false, func(l *Limits) *float64 { return &l.BagDustLow })
@@ -286,11 +286,11 @@ func limitTable() []LimitSpec {
 			lowDef, highDef = 0.75, 0.75
 		}
 		add(LimitSpec{Key: "VesselVDLow[" + c.String() + "]", Label: "Liquid filling: v·d limit at or below the conductivity bound, or unknown, " + c.String(),
-			Unit: "m^2/s", Display: "m²/s", SiteItem: lowItem, SiteUnit: "m²/s", Also: lowAlso,
+			Unit: "m²/s", Display: "m²/s", SiteItem: lowItem, SiteUnit: "m²/s", Also: lowAlso,
 			Default: lowDef, Ref: ref, Clause: clause, FromMemory: r.FromMemory,
 			at: field(func(l *Limits) *float64 { return &l.VesselVDLow[c] })})
 		add(LimitSpec{Key: "VesselVDHigh[" + c.String() + "]", Label: "Liquid filling: v·d limit above the conductivity bound (low-conductivity liquids), " + c.String(),
-			Unit: "m^2/s", Display: "m²/s", SiteItem: highItem, SiteUnit: "m²/s", Also: highAlso,
+			Unit: "m²/s", Display: "m²/s", SiteItem: highItem, SiteUnit: "m²/s", Also: highAlso,
 			Default: highDef, Ref: ref, Clause: clause, FromMemory: r.FromMemory,
 			at: field(func(l *Limits) *float64 { return &l.VesselVDHigh[c] })})
 	}
@@ -319,7 +319,7 @@ func limitTable() []LimitSpec {
 	scalar("EarthingContradictionFactor", "Measured potential above this many times the earthing bound I R: a contradiction", "1", "", "earthing contradiction factor", "", 10,
 		RefChoice, ": a measured potential more than an order of magnitude above what the measured earthing allows under the worst-case charging current (I R) contradicts the earthing path", false,
 		func(l *Limits) *float64 { return &l.EarthingContradictionFactor })
-	scalar("SparkSurface", "Surface resistance below which an unearthed surface sparks as a conductor", "ohm", "Ω", "spark surface resistance", "Ω", 1e12,
+	scalar("SparkSurface", "Surface resistance below which an unearthed surface sparks as a conductor", "Ω", "Ω", "spark surface resistance", "Ω", 1e12,
 		RefESDA, "material classes: dissipative 1e5 to < 1e12 Ω/sq; a surface below it, or of dissipative class, sparks when not earthed ("+reference(RefTS32).Cite()+" principle: conductors must be earthed)", false,
 		func(l *Limits) *float64 { return &l.SparkSurface })
 	scalar("CoronaEnergy", "Corona: equivalent energy bound (counted only against an MIE below it)", "J", "mJ", "corona energy", "mJ", 0.1e-3,

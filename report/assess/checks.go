@@ -93,7 +93,7 @@ type checkDef struct {
 func dischargeGround(d model.DischargeType) string {
 	switch d {
 	case model.Spark:
-		return "spark energy W = C V^2/2 (textbook; JNIOSH-TR)"
+		return "spark energy W = C V²/2 (textbook; JNIOSH-TR)"
 	case model.Brush:
 		return "brush discharge equivalent energy 3-4 mJ (CLC/TR 50404 summaries; CCPS glossary), the 4 mJ upper end a screening choice of this tool"
 	case model.PropagatingBrush:

@@ -23,9 +23,9 @@ const limitItemsFile = "../../inventory/limititems_gen.go"
 
 // dimensionOfSI names the inventory dimension of a limit table SI unit.
 var dimensionOfSI = map[string]string{
-	"1": "Dimensionless", "J": "Energy", "ohm": "Resistance", "C": "Charge", "m^2": "Area",
-	"C/m^2": "ChargeDensity", "V": "Potential", "m": "Length", "V/m": "ElectricField", "m/s": "Speed",
-	"m^2/s": "SpeedDiameter", "S/m": "Conductivity", "A": "Current", "F": "Capacitance", "s": "Time",
+	"1": "Dimensionless", "J": "Energy", "Ω": "Resistance", "C": "Charge", "m²": "Area",
+	"C/m²": "ChargeDensity", "V": "Potential", "m": "Length", "V/m": "ElectricField", "m/s": "Speed",
+	"m²/s": "SpeedDiameter", "S/m": "Conductivity", "A": "Current", "F": "Capacitance", "s": "Time",
 }
 
 // limitItemsSource is the source of inventory/limititems_gen.go: every Site
