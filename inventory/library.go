@@ -40,7 +40,7 @@ func builtinMaterialTable() []builtinMaterial {
 	nan := math.NaN()
 	mat := func(name, class string, epsr, rs, slope, rv, eb float64, src string, aliases ...string) builtinMaterial {
 		return builtinMaterial{Material{Name: name, Class: class, Permittivity: epsr, SurfaceResistivity: rs,
-			HumiditySlope: slope, VolumeResistivity: rv, BreakdownStrength: eb, Source: src, BuiltIn: true}, aliases}
+			HumiditySlope: slope, VolumeResistivity: rv, BreakdownStrength: eb, Source: src, BuiltIn: true, FromMemory: true}, aliases} // every built-in material is from memory
 	}
 	const hygro = "from memory; humidity slope of hygroscopic surfaces about 0.8 decade per 10 %RH after a published paper example, 1e9 to 1e6 Ω between 23 % and 61 % RH (weak secondary source)"
 	const metal = "from memory: volume resistivity textbook value; surface resistivity an order of magnitude for a bare metal surface"
@@ -119,18 +119,23 @@ func builtinSubstanceTable() []builtinSubstance {
 		if !math.IsNaN(kappaPS) {
 			k = kappaPS * pS
 		}
-		return builtinSubstance{Substance{Name: name, Kind: kind, MIE: mieMJ * 1e-3, Group: group, Conductivity: k, Permittivity: epsr, Source: src}, aliases}
+		return builtinSubstance{Substance{Name: name, Kind: kind, MIE: mieMJ * 1e-3, Group: group, Conductivity: k, Permittivity: epsr, Source: src, FromMemory: true}, aliases}
+	}
+	// confirmed marks a substance whose MIE and group are both confirmed.
+	confirmed := func(b builtinSubstance) builtinSubstance {
+		b.s.FromMemory = false
+		return b
 	}
 	const liq = "; liquid conductivity and permittivity from memory"
 	return []builtinSubstance{
 		// Source: reference/electrostatics.md section 4 (MIE and group) and section 8 (liquids).
-		sub("hydrogen", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "H2"),
-		sub("acetylene", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "ethyne", "C2H2"),
+		confirmed(sub("hydrogen", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "H2")),
+		confirmed(sub("acetylene", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "ethyne", "C2H2")),
 		sub("carbon disulfide", "vapour", 0.009, "IIC", nan, nan, "group confirmed (IEC 60079-20-1), MIE from memory", "carbon disulphide", "CS2"),
-		sub("ethylene", "gas", 0.07, "IIB", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "ethene", "C2H4"),
+		confirmed(sub("ethylene", "gas", 0.07, "IIB", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "ethene", "C2H4")),
 		sub("diethyl ether", "vapour", 0.19, "IIB", nan, nan, "from memory", "ether", "ethyl ether", "diethylether"),
-		sub("methane", "gas", 0.28, "IIA", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "CH4", "natural gas"),
-		sub("propane", "gas", 0.25, "IIA", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "C3H8", "LPG"),
+		confirmed(sub("methane", "gas", 0.28, "IIA", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "CH4", "natural gas")),
+		confirmed(sub("propane", "gas", 0.25, "IIA", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "C3H8", "LPG")),
 		sub("n-hexane", "vapour", 0.24, "IIA", 0.01, 1.9, "group confirmed (IEC 60079-20-1), MIE from memory"+liq, "hexane", "hexanes"),
 		sub("n-heptane", "vapour", 0.24, "IIA", 0.03, 1.9, "MIE from memory; group IIA from memory"+liq, "heptane"),
 		sub("toluene", "vapour", 0.24, "IIA", 1, 2.4, "MIE from memory; group IIA from memory"+liq, "toluol", "methylbenzene"),

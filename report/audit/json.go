@@ -228,7 +228,7 @@ func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if a == nil || a.Survey == nil {
 		return errors.New("write JSON: no audit or no survey")
 	}
-	doc := jsonDoc(a, info)
+	doc := jsonDoc(a, info, materialsUsed(a.Objects))
 	for i := range a.Objects {
 		doc.Objects = append(doc.Objects, objectJSON(&a.Objects[i]))
 	}
@@ -259,32 +259,35 @@ type jsonReference struct {
 	Note    string `json:"note"`
 }
 
-// jsonVerify is one limit applied whose value was recalled, not confirmed
-// against its reference's text (the Method sheet's "Verify before relying on these").
+// jsonVerify is one value applied that was recalled, not confirmed against
+// its source's text (the Method sheet's "Verify before relying on these").
 type jsonVerify struct {
-	Limit    string   `json:"limit"`
+	What     string   `json:"what"`  // limit, material or substance
+	Limit    string   `json:"limit"` // the limit's key, or the material's or substance's name
 	Label    string   `json:"label"`
 	ValueSI  *float64 `json:"value_si"`
 	UnitSI   string   `json:"unit_si"`
-	SiteItem string   `json:"site_item"`
+	Override string   `json:"override"`
 	Source   string   `json:"source"`
 }
 
-// jsonSources are the References and Verify lists of an audit applying lim.
-func jsonSources(lim model.Limits) ([]jsonReference, []jsonVerify) {
+// jsonSources are the References and Verify lists of the audit.
+func jsonSources(a *assess.Audit, used map[string]bool) ([]jsonReference, []jsonVerify) {
 	refs, verify := []jsonReference{}, []jsonVerify{}
 	for _, r := range model.References() {
 		refs = append(refs, jsonReference{r.Key, r.Edition, r.Kind, r.Title, r.Note})
 	}
-	for _, s := range model.LimitTable() {
-		if s.FromMemory {
-			verify = append(verify, jsonVerify{s.Key, s.Label, book.Finite(s.Value(lim)), s.Unit, s.SiteItem, s.Source()})
+	for _, v := range verifyRows(a, used) {
+		var val *float64
+		if v.value != 0 {
+			val = book.Finite(v.value)
 		}
+		verify = append(verify, jsonVerify{v.what, v.key, v.name, val, v.unitSI, v.override, v.source})
 	}
 	return refs, verify
 }
 
-func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
+func jsonDoc(a *assess.Audit, info RunInfo, used map[string]bool) jsonAudit {
 	s := a.Survey
 	doc := jsonAudit{
 		Tool:     jsonTool{info.tool(), info.ToolVersion},
@@ -309,7 +312,7 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 		Warnings: []jsonProblem{},
 		Cautions: templates.Cautions(),
 	}
-	doc.References, doc.Verify = jsonSources(a.Options.Limits)
+	doc.References, doc.Verify = jsonSources(a, used)
 	if a.Options.Samples > 0 {
 		tab := a.Options.Uncertainties
 		if tab == nil {

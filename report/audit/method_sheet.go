@@ -39,6 +39,74 @@ func limitRows(applied model.Limits) []limitRow {
 	return out
 }
 
+// verifyRow is one value the audit applied that was recalled, not confirmed
+// against its source's text: a limit of the limit table, a built-in material
+// used by an object, or a built-in substance an atmosphere took its MIE or
+// group from. The Method sheet and the JSON list the same rows.
+type verifyRow struct {
+	what     string // "limit", "material" or "substance"
+	key      string // the limit's key, the material's or substance's name
+	name     string // in words
+	value    float64
+	unit     book.Unit
+	unitSI   string
+	override string // how a survey overrides it
+	source   string
+}
+
+// materialsUsed names the materials of the objects.
+func materialsUsed(objs []assess.ObjectResult) map[string]bool {
+	used := map[string]bool{}
+	for i := range objs {
+		if m := objs[i].Material; m != nil {
+			used[m.Name] = true
+		}
+	}
+	return used
+}
+
+// verifyRows lists the values of the audit to verify before relying on them;
+// used names the materials its objects used (materialsUsed).
+func verifyRows(a *assess.Audit, used map[string]bool) []verifyRow {
+	var out []verifyRow
+	for _, s := range model.LimitTable() {
+		if !s.FromMemory {
+			continue
+		}
+		over := ""
+		if s.SiteItem != "" {
+			over = "Site sheet item \"" + s.SiteItem + "\""
+		}
+		out = append(out, verifyRow{what: "limit", key: s.Key, name: s.Label, value: s.Value(a.Options.Limits), unit: displayUnit(s.Display),
+			unitSI: s.Unit, override: over, source: s.Source()})
+	}
+	if a.Survey == nil {
+		return out
+	}
+	listed := map[string]bool{}
+	for _, m := range a.Survey.Materials {
+		if used[m.Name] && m.BuiltIn && m.FromMemory && !listed[m.Name] {
+			listed[m.Name] = true
+			out = append(out, verifyRow{what: "material", key: m.Name, name: "Built-in material " + m.Name + " (class, resistivities, humidity slope)",
+				override: "a Materials sheet row of the same name", source: m.Source})
+		}
+	}
+	seen := map[string]bool{}
+	for _, at := range a.Survey.Atmospheres {
+		if !at.MIEFromSubstance && !at.GroupFromSubstance || seen[at.Substance] {
+			continue
+		}
+		sub, ok := inventory.LookupSubstance(at.Substance)
+		if !ok || !sub.FromMemory {
+			continue
+		}
+		seen[at.Substance] = true
+		out = append(out, verifyRow{what: "substance", key: sub.Name, name: "Built-in substance " + sub.Name + ": MIE (group " + sub.Group + ")",
+			value: sub.MIE, unit: book.UnitMJ, unitSI: "J", override: "the MIE and Group columns of the Atmospheres sheet", source: sub.Source})
+	}
+	return out
+}
+
 // displayUnits are the units the limit table shows limits in.
 var displayUnits = []book.Unit{book.UnitDimless, book.UnitVolt, book.UnitMJ, book.UnitUCPerM2, book.UnitKVPerM, book.UnitNC,
 	book.UnitUA, book.UnitOhm, book.UnitOhmM, book.UnitSecond, book.UnitMillimetre, book.UnitCM2, book.UnitMPerS,
@@ -228,20 +296,22 @@ func (wb *workbook) method() error {
 	}
 	r++
 
-	if err := section("Verify before relying on these", []string{"Value", "Value applied", "Unit", "Site item to override it", "Source: recalled, not confirmed against the text"}); err != nil {
+	if err := section("Verify before relying on these", []string{"Value", "Value applied", "Unit", "How to override it", "Source: recalled, not confirmed against the text"}); err != nil {
 		return err
 	}
-	for _, l := range limitRows(a.Options.Limits) {
-		if !l.fromMemory {
-			continue
-		}
-		unit := l.unit.Label()
+	for _, v := range verifyRows(a, materialsUsed(a.Objects)) {
+		unit := v.unit.Label()
 		if unit == "" {
 			unit = "–"
 		}
-		v := limitValue(l)
-		v.Align = "left"
-		if err := put(book.WrapText(l.name), v, book.Text(unit), book.OptText(l.siteItem), book.WrapText(l.source)); err != nil {
+		val := book.Cell{}
+		if v.value != 0 && !math.IsNaN(v.value) {
+			val = leftAligned(book.Quantity(v.unit, v.value))
+		}
+		if v.what == "material" {
+			unit = ""
+		}
+		if err := put(book.WrapText(v.name), val, book.Text(unit), optWrap(v.override), book.WrapText(v.source)); err != nil {
 			return err
 		}
 	}
