@@ -26,19 +26,19 @@ func (r Reference) Cite() string {
 // Reference keys used by the limit table (limitTable) and the other tables of
 // this package. The keys are the documents' short names.
 const (
-	RefTS32     = "IEC TS 60079-32-1"
-	Ref0        = "IEC 60079-0"
-	RefTRGS727  = "TRGS 727"
-	RefBags     = "IEC 61340-4-4"
-	RefJNIOSH   = "JNIOSH-TR"
-	RefCLC50404 = "CLC/TR 50404"
-	RefBGRCI    = "BG RCI FAQ"
-	RefCCPS     = "CCPS glossary"
-	RefAMS      = "AMS Glossary of Meteorology"
-	RefESDA     = "ESD Association"
-	RefPaschen  = "Paschen's law"
-	RefChoice   = "screening choice of this tool"
-	RefPractice = "common practice, no source"
+	refTS32     = "IEC TS 60079-32-1"
+	ref0        = "IEC 60079-0"
+	refTRGS727  = "TRGS 727"
+	refBags     = "IEC 61340-4-4"
+	refJNIOSH   = "JNIOSH-TR"
+	refCLC50404 = "CLC/TR 50404"
+	refBGRCI    = "BG RCI FAQ"
+	refCCPS     = "CCPS glossary"
+	refAMS      = "AMS Glossary of Meteorology"
+	refESDA     = "ESD Association"
+	refPaschen  = "Paschen's law"
+	refChoice   = "screening choice of this tool"
+	refPractice = "common practice, no source"
 )
 
 // References returns the documents the tool's texts cite, in the order the
@@ -49,37 +49,37 @@ const (
 // "from memory" and is listed under "Verify before relying on these".
 func References() []Reference {
 	return []Reference{
-		{RefTS32, "2013+A1:2017", "standard", "Explosive atmospheres – Part 32-1: Electrostatic hazards, guidance (clause 7: liquids)",
+		{refTS32, "2013+A1:2017", "standard", "Explosive atmospheres – Part 32-1: Electrostatic hazards, guidance (clause 7: liquids)",
 			"the filling rules' clause numbers finer than clause 7 are not confirmed here"},
-		{Ref0, "2017", "standard", "Explosive atmospheres – Part 0: Equipment – General requirements (7.4: electrostatic charges on non-metallic parts; 26.13: surface resistance)",
+		{ref0, "2017", "standard", "Explosive atmospheres – Part 0: Equipment – General requirements (7.4: electrostatic charges on non-metallic parts; 26.13: surface resistance)",
 			"transferred-charge, area, coating and small-part values recalled; the 4 kV coating condition confirmed in the 2017 foreword"},
-		{RefTRGS727, "2016", "technical rule", "TRGS 727, Technical Rules for Hazardous Substances: avoidance of ignition hazards due to electrostatic charges (7.1, 7.2 persons; 8.3 conductors; Annex C propagating brush; Annex D shock; Annex H floors)",
+		{refTRGS727, "2016", "technical rule", "TRGS 727, Technical Rules for Hazardous Substances: avoidance of ignition hazards due to electrostatic charges (7.1, 7.2 persons; 8.3 conductors; Annex C propagating brush; Annex D shock; Annex H floors)",
 			"confirmed through published summaries"},
-		{RefBags, "2018", "standard", "Electrostatics – Part 4-4: Standard test methods for specific applications – Electrostatic classification of flexible intermediate bulk containers (FIBC)",
+		{refBags, "2018", "standard", "Electrostatics – Part 4-4: Standard test methods for specific applications – Electrostatic classification of flexible intermediate bulk containers (FIBC)",
 			"usage table as quoted by trade summaries; type C point-to-tab 1e7 Ω in the earlier edition"},
 		{"IEC 60079-20-1", "", "standard", "Explosive atmospheres – Part 20-1: Material characteristics for gas and vapour classification (gas groups by MESG)", ""},
 		{"IEC 60079-32-2", "", "standard", "Explosive atmospheres – Part 32-2: Electrostatics hazards – Tests (transferred-charge test method)", ""},
 		{"IEC 60243-1", "", "standard", "Electric strength of insulating materials – Test methods (the method for a layer's measured breakdown voltage)", ""},
 		{"TRGS 723", "", "technical rule", "TRGS 723, hazardous explosive atmospheres: an unclassified area may have to be treated as the strictest zone", ""},
 		{"NFPA 77", "", "standard", "Recommended Practice on Static Electricity (bonding practice)", ""},
-		{RefJNIOSH, "", "guidance", "JNIOSH Technical Recommendations for the avoidance of electrostatic hazards in industry",
+		{refJNIOSH, "", "guidance", "JNIOSH Technical Recommendations for the avoidance of electrostatic hazards in industry",
 			"cited through a secondary summary; the brush charge-density screen was found there only, not in IEC text"},
-		{RefCLC50404, "", "guidance", "CENELEC report on avoidance of hazards due to static electricity (brush discharge energy 3-4 mJ)",
+		{refCLC50404, "", "guidance", "CENELEC report on avoidance of hazards due to static electricity (brush discharge energy 3-4 mJ)",
 			"cited through summaries"},
-		{RefBGRCI, "", "guidance", "BG RCI guidance on static electricity, questions and answers (FAQ 1.12 propagating brush onset; 5.10 cone discharges; 7.15 drum capacitance)", ""},
-		{RefESDA, "", "guidance", "ESD Association definitions (material classes by surface resistivity) and body-voltage table (as reproduced in trade pages)", ""},
-		{RefCCPS, "", "glossary", "CCPS process-safety glossary (breakdown-limited charge density 2.65e-5 C/m²; brush discharges and dust clouds)", ""},
-		{RefAMS, "", "glossary", "American Meteorological Society, Glossary of Meteorology (breakdown field of air about 3 MV/m)", ""},
+		{refBGRCI, "", "guidance", "BG RCI guidance on static electricity, questions and answers (FAQ 1.12 propagating brush onset; 5.10 cone discharges; 7.15 drum capacitance)", ""},
+		{refESDA, "", "guidance", "ESD Association definitions (material classes by surface resistivity) and body-voltage table (as reproduced in trade pages)", ""},
+		{refCCPS, "", "glossary", "CCPS process-safety glossary (breakdown-limited charge density 2.65e-5 C/m²; brush discharges and dust clouds)", ""},
+		{refAMS, "", "glossary", "American Meteorological Society, Glossary of Meteorology (breakdown field of air about 3 MV/m)", ""},
 		{"CODATA", "2018", "constant", "CODATA recommended values of the fundamental physical constants (vacuum permittivity)", ""},
-		{RefPaschen, "", "book or paper", "Paschen's law, textbook physics: minimum sparking potential of air about 327 V", ""},
+		{refPaschen, "", "book or paper", "Paschen's law, textbook physics: minimum sparking potential of air about 327 V", ""},
 		{"Peek", "1929", "book or paper", "F. W. Peek, Dielectric phenomena in high-voltage engineering: corona onset on smooth cylinders", ""},
 		{"Saito", "1963", "book or paper", "Saito: capacitance of the human body, 100-300 pF", "the 200 pF default from memory"},
 		{"Jonassen", "", "book or paper", "N. Jonassen, Electrostatics: charging by walking (about 1 µA at two steps a second)", ""},
 		{"NBS J. Res. 69C", "1965", "book or paper", "Journal of Research of the National Bureau of Standards 69C: measured streaming currents of 1-6 µA", ""},
 		{"Paasi et al.", "2001", "book or paper", "Paasi et al., Journal of Electrostatics 51-52: dissipative materials turning insulating below 20-30 % RH", ""},
 		{"Glor", "", "book or paper", "Glor: energy of cone discharges in silos, W = 5.22 D^3.36 d^1.462 mJ", "the formula from memory"},
-		{RefChoice, "", "choice", "a value or rule this tool chose where no standard gives one; each says why beside it, and the Site sheet overrides every limit", ""},
-		{RefPractice, "", "choice", "a rule of thumb of the trade with no published source here", ""},
+		{refChoice, "", "choice", "a value or rule this tool chose where no standard gives one; each says why beside it, and the Site sheet overrides every limit", ""},
+		{refPractice, "", "choice", "a rule of thumb of the trade with no published source here", ""},
 	}
 }
 
