@@ -131,4 +131,11 @@ func writeLibrary(out io.Writer) {
 		fmt.Fprintf(tw, "%s\t%s\t%s\n", k.Name, k.Unit, k.Note)
 	}
 	tw.Flush()
+	fmt.Fprintln(out, "\nReferences (the sources above cite them by key)")
+	tw = tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "Key\tEdition\tKind\tDocument")
+	for _, r := range model.References() {
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", r.Key, r.Edition, r.Kind, r.Title)
+	}
+	tw.Flush()
 }
