@@ -71,6 +71,7 @@ func References() []Reference {
 		{refCCPS, "", "glossary", "CCPS process-safety glossary (breakdown-limited charge density 2.65e-5 C/m²; brush discharges and dust clouds)", ""},
 		{refAMS, "", "glossary", "American Meteorological Society, Glossary of Meteorology (breakdown field of air about 3 MV/m)", ""},
 		{"CODATA", "2018", "constant", "CODATA recommended values of the fundamental physical constants (vacuum permittivity)", ""},
+		{"textbook", "", "book or paper", "textbook electrostatics: Gauss's and Coulomb's laws, capacitance of spheres, cylinders and plates, stored energy W = C V²/2, decay τ = R C", ""},
 		{refPaschen, "", "book or paper", "Paschen's law, textbook physics: minimum sparking potential of air about 327 V", ""},
 		{"Peek", "1929", "book or paper", "F. W. Peek, Dielectric phenomena in high-voltage engineering: corona onset on smooth cylinders", ""},
 		{"Saito", "1963", "book or paper", "Saito: capacitance of the human body, 100-300 pF", "the 200 pF default from memory"},
@@ -78,6 +79,7 @@ func References() []Reference {
 		{"NBS J. Res. 69C", "1965", "book or paper", "Journal of Research of the National Bureau of Standards 69C: measured streaming currents of 1-6 µA", ""},
 		{"Paasi et al.", "2001", "book or paper", "Paasi et al., Journal of Electrostatics 51-52: dissipative materials turning insulating below 20-30 % RH", ""},
 		{"Glor", "", "book or paper", "Glor: energy of cone discharges in silos, W = 5.22 D^3.36 d^1.462 mJ", "the formula from memory"},
+		{"derived", "", "choice", "arithmetic on the textbook formulas, not a published example", ""},
 		{refChoice, "", "choice", "a value or rule this tool chose where no standard gives one; each says why beside it, and the Site sheet overrides every limit", ""},
 		{refPractice, "", "choice", "a rule of thumb of the trade with no published source here", ""},
 	}

@@ -15,6 +15,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
 	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
 )
@@ -456,5 +457,21 @@ func TestWorkbookMethodSources(t *testing.T) {
 	}
 	if refs["TRGS 727"] != "2016" || refs["IEC TS 60079-32-1"] != "2013+A1:2017" {
 		t.Errorf("references %v", refs)
+	}
+}
+
+// TestMethodFormulaSourcesCiteReferences: every formula on the Method sheet
+// names its source by a key of the References list, or is this tool's own
+// rule (its principles and verdict rule, on the same sheet) or material data
+// (the Materials used list).
+func TestMethodFormulaSourcesCiteReferences(t *testing.T) {
+	for _, m := range templates.MethodNotes() {
+		ok := strings.Contains(m.Source, "this tool") || strings.Contains(m.Source, "material data")
+		for _, r := range model.References() {
+			ok = ok || strings.Contains(m.Source, r.Key)
+		}
+		if !ok || strings.Contains(m.Source, "reference section") {
+			t.Errorf("%s: source %q cites no entry of the References list", m.Quantity, m.Source)
+		}
 	}
 }
