@@ -190,7 +190,11 @@ func siteSetting(it SiteItem) (*SiteLimit, *SiteUncertainty, []Problem) {
 		return &SiteLimit{Name: name, Value: v, Row: it.Row}, nil, nil
 	}
 	fix := "check the spelling against the limit items that sparkmargin library lists (e.g. \"Shock energy [mJ]\")"
-	if near := Nearest(splitName(it.Item), columnNames(SiteItems())); near != "" && it.Item != "" {
+	names := columnNames(SiteItems())
+	for _, k := range limitItems {
+		names = append(names, k.Name) // a misspelt limit item ("shock enrgy") is pointed to its name
+	}
+	if near := Nearest(splitName(it.Item), names); near != "" && it.Item != "" {
 		fix = didYouMean(splitName(it.Item), near)
 	}
 	return nil, nil, []Problem{siteItemProblem(it, "A", Warning, fmt.Sprintf("item %q is not a site setting or a known limit; it is ignored", it.Item), fix, ErrUnknownSiteItem)}

@@ -3,6 +3,7 @@ package inventory
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -108,5 +109,14 @@ func TestSiteLimitItemsReadAsCells(t *testing.T) {
 		if len(probs) != 0 || len(lims) != 1 || !relClose(lims[0].Value, c.want) {
 			t.Errorf("%s = %q: %+v %+v, want %g", c.key, c.value, lims, probs, c.want)
 		}
+	}
+}
+
+// TestSiteLimitItemMisspelt: a misspelt limit item is a warning that names
+// the limit item meant (invented example).
+func TestSiteLimitItemMisspelt(t *testing.T) {
+	_, _, probs := SiteSettings([]SiteItem{{Key: "shock enrgy [mj]", Item: "Shock enrgy [mJ]", Value: "400", Row: 7}})
+	if len(probs) != 1 || probs[0].Severity != Warning || !strings.Contains(probs[0].Fix, "shock energy") {
+		t.Errorf("problems %+v, want one warning suggesting \"shock energy\"", probs)
 	}
 }
