@@ -257,7 +257,7 @@ func (wb *workbook) method() error {
 		src  string
 	}{
 		{"Vacuum permittivity ε0", 8.8541878128e-12, "F/m", "0.0000000000E+00", "CODATA 2018"},
-		{"Air breakdown field (cm gaps)", breakdown / 1e3, "kV/m", "0", "AMS Glossary (about 3 MV/m); the value applied"},
+		{"Air breakdown field (cm gaps)", breakdown / 1e3, "kV/m", "0", "AMS Glossary of Meteorology (about 3 MV/m); the value applied"},
 		{"Breakdown-limited charge density, one side", 8.8541878128e-12 * breakdown / 1e-6, "µC/m²", "0.00", "derived: ε0 × air breakdown field; CCPS glossary 2.65e-5 C/m²"},
 		{"Paschen minimum in air", paschen, "V", "0", "Paschen's law; about 327 V, no gap breaks down below about 300 V"},
 		{"Corona onset, smooth cylinder r = 1 mm", 5860, "kV/m", "0", "Peek 1929: 30 δ m (1 + 0.301/√(δ r)) kV/cm, 58.6 kV/cm"},
