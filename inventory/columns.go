@@ -25,6 +25,11 @@ const (
 	Conductivity                   // S/m
 	Slope                          // decades per 10 %RH
 	Date                           // a date
+	// Dimensions of Site sheet limit items only (no survey column has them).
+	Charge        // C
+	Area          // m²
+	ChargeDensity // C/m²
+	SpeedDiameter // m²/s, velocity × pipe diameter of the filling rules
 )
 
 // Column is one column of the survey contract.

@@ -79,7 +79,8 @@
 // Survey date is an ISO date (2026-03-14, optionally with a time) or a
 // spreadsheet date serial (1900 or 1904 system, as the workbook says); other
 // forms (14/03/2026) are refused as ambiguous. Other items are the site's
-// limit overrides (LimitItems: "Shock energy [mJ] | 400") and uncertainty
+// limit overrides (LimitItems: "Shock energy [mJ] | 400"; a generated view of
+// model's limit table, the value read with the cell grammar below) and uncertainty
 // overrides (UncertaintyItems: "Uncertainty field [%] | 15"), validated here
 // into Site.Limits and Site.Uncertainties: a value that cannot be used
 // rejects its row (check reports it, assess lists it as rejected); an item

@@ -40,9 +40,9 @@ func builtinMaterialTable() []builtinMaterial {
 	nan := math.NaN()
 	mat := func(name, class string, epsr, rs, slope, rv, eb float64, src string, aliases ...string) builtinMaterial {
 		return builtinMaterial{Material{Name: name, Class: class, Permittivity: epsr, SurfaceResistivity: rs,
-			HumiditySlope: slope, VolumeResistivity: rv, BreakdownStrength: eb, Source: src, BuiltIn: true}, aliases}
+			HumiditySlope: slope, VolumeResistivity: rv, BreakdownStrength: eb, Source: src, BuiltIn: true, FromMemory: true}, aliases} // every built-in material is from memory
 	}
-	const hygro = "from memory; humidity slope of hygroscopic surfaces about 0.8 decade per 10 %RH after the paper example of reference section 9 (weak secondary source)"
+	const hygro = "from memory; humidity slope of hygroscopic surfaces about 0.8 decade per 10 %RH after a published paper example, 1e9 to 1e6 Ω between 23 % and 61 % RH (weak secondary source)"
 	const metal = "from memory: volume resistivity textbook value; surface resistivity an order of magnitude for a bare metal surface"
 	return []builtinMaterial{
 		// Hydrophobic polymers barely respond to humidity (slope 0), reference section 9 [M].
@@ -58,7 +58,7 @@ func builtinMaterialTable() []builtinMaterial {
 		mat("paper", ClassDissipative, 2.5, 1e10, 0.8, 1e9, 8e6, hygro, "kraft paper", "paperboard", "cardboard"),
 		mat("cotton", ClassDissipative, 1.8, 1e10, 0.8, 1e9, nan, hygro, "cotton fabric"),
 		mat("glass", ClassInsulating, 6.5, 1e12, 0.5, 1e11, 10e6, srcMemory, "soda-lime glass", "borosilicate glass"),
-		mat("wood", ClassDissipative, 2.5, 1e10, 0.7, 1e10, nan, srcMemory+"; dry wood 2-4 for permittivity (reference section 2 takes 2 for a pallet)", "timber", "wooden pallet"),
+		mat("wood", ClassDissipative, 2.5, 1e10, 0.7, 1e10, nan, srcMemory+"; dry wood 2-4 for permittivity (BG RCI FAQ 7.15 takes 2 for a pallet)", "timber", "wooden pallet"),
 		mat("steel", ClassConductive, nan, 1e-3, 0, 1.5e-7, nan, metal, "carbon steel", "mild steel", "iron"),
 		mat("stainless steel", ClassConductive, nan, 1e-3, 0, 7.2e-7, nan, metal, "stainless", "SS", "304", "316", "AISI 304", "AISI 316", "inox"),
 		mat("aluminium", ClassConductive, nan, 1e-3, 0, 2.7e-8, nan, metal, "aluminum", "Al", "alu"),
@@ -119,31 +119,36 @@ func builtinSubstanceTable() []builtinSubstance {
 		if !math.IsNaN(kappaPS) {
 			k = kappaPS * pS
 		}
-		return builtinSubstance{Substance{Name: name, Kind: kind, MIE: mieMJ * 1e-3, Group: group, Conductivity: k, Permittivity: epsr, Source: src}, aliases}
+		return builtinSubstance{Substance{Name: name, Kind: kind, MIE: mieMJ * 1e-3, Group: group, Conductivity: k, Permittivity: epsr, Source: src, FromMemory: true}, aliases}
 	}
-	const liq = "; liquid conductivity and permittivity from memory (reference section 8)"
+	// confirmed marks a substance whose MIE and group are both confirmed.
+	confirmed := func(b builtinSubstance) builtinSubstance {
+		b.s.FromMemory = false
+		return b
+	}
+	const liq = "; liquid conductivity and permittivity from memory"
 	return []builtinSubstance{
 		// Source: reference/electrostatics.md section 4 (MIE and group) and section 8 (liquids).
-		sub("hydrogen", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (reference section 4)", "H2"),
-		sub("acetylene", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (reference section 4)", "ethyne", "C2H2"),
-		sub("carbon disulfide", "vapour", 0.009, "IIC", nan, nan, "group confirmed, MIE from memory (reference section 4)", "carbon disulphide", "CS2"),
-		sub("ethylene", "gas", 0.07, "IIB", nan, nan, "MIE and group confirmed (reference section 4)", "ethene", "C2H4"),
-		sub("diethyl ether", "vapour", 0.19, "IIB", nan, nan, "from memory (reference section 4)", "ether", "ethyl ether", "diethylether"),
-		sub("methane", "gas", 0.28, "IIA", nan, nan, "MIE and group confirmed (reference section 4)", "CH4", "natural gas"),
-		sub("propane", "gas", 0.25, "IIA", nan, nan, "MIE and group confirmed (reference section 4)", "C3H8", "LPG"),
-		sub("n-hexane", "vapour", 0.24, "IIA", 0.01, 1.9, "group confirmed, MIE from memory (reference section 4)"+liq, "hexane", "hexanes"),
-		sub("n-heptane", "vapour", 0.24, "IIA", 0.03, 1.9, "MIE from memory (reference section 4); group IIA from memory"+liq, "heptane"),
-		sub("toluene", "vapour", 0.24, "IIA", 1, 2.4, "MIE from memory (reference section 4); group IIA from memory"+liq, "toluol", "methylbenzene"),
-		sub("xylene", "vapour", 0.2, "IIA", 0.1, 2.4, "MIE from memory, about 0.2 mJ (reference section 4); group IIA from memory"+liq, "xylenes", "xylol", "dimethylbenzene"),
+		confirmed(sub("hydrogen", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "H2")),
+		confirmed(sub("acetylene", "gas", 0.017, "IIC", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "ethyne", "C2H2")),
+		sub("carbon disulfide", "vapour", 0.009, "IIC", nan, nan, "group confirmed (IEC 60079-20-1), MIE from memory", "carbon disulphide", "CS2"),
+		confirmed(sub("ethylene", "gas", 0.07, "IIB", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "ethene", "C2H4")),
+		sub("diethyl ether", "vapour", 0.19, "IIB", nan, nan, "from memory", "ether", "ethyl ether", "diethylether"),
+		confirmed(sub("methane", "gas", 0.28, "IIA", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "CH4", "natural gas")),
+		confirmed(sub("propane", "gas", 0.25, "IIA", nan, nan, "MIE and group confirmed (published MIE tables; group by MESG, IEC 60079-20-1)", "C3H8", "LPG")),
+		sub("n-hexane", "vapour", 0.24, "IIA", 0.01, 1.9, "group confirmed (IEC 60079-20-1), MIE from memory"+liq, "hexane", "hexanes"),
+		sub("n-heptane", "vapour", 0.24, "IIA", 0.03, 1.9, "MIE from memory; group IIA from memory"+liq, "heptane"),
+		sub("toluene", "vapour", 0.24, "IIA", 1, 2.4, "MIE from memory; group IIA from memory"+liq, "toluol", "methylbenzene"),
+		sub("xylene", "vapour", 0.2, "IIA", 0.1, 2.4, "MIE from memory, about 0.2 mJ; group IIA from memory"+liq, "xylenes", "xylol", "dimethylbenzene"),
 		// Screening needs the minimum MIE over concentration; the 1.15 mJ recalled for
 		// acetone is its stoichiometric value, and the minimum is lower (reference
 		// section 12, from memory: confirm). Until a minimum is confirmed the lowest
 		// IIA hydrocarbon solvent value of this list (0.24 mJ) is taken: the stricter case.
-		sub("acetone", "vapour", 0.24, "IIA", 6e6, 21, "screening MIE 0.24 mJ: the recalled 1.15 mJ is at stoichiometric, not the minimum over concentration, which is lower; taken as the IIA hydrocarbon solvent value until confirmed (from memory, confirm; reference sections 4 and 12); group IIA from memory"+liq, "propanone", "dimethyl ketone"),
-		sub("methanol", "vapour", 0.14, "IIA", 4.4e7, 33, "MIE from memory (reference section 4); group IIA from memory"+liq, "methyl alcohol", "MeOH"),
-		sub("ethanol", "vapour", 0.23, "IIB", 1.35e7, 24, "MIE from memory, about 0.23 mJ (reference section 4); group IIB from memory (MESG near 0.89 mm, check the site's classification)"+liq, "ethyl alcohol", "EtOH"),
-		sub("isopropanol", "vapour", 0.65, "IIA", 3.5e6, 19, "MIE from memory (reference section 4); group IIA from memory"+liq, "IPA", "2-propanol", "isopropyl alcohol", "propan-2-ol"),
-		sub("ethyl acetate", "vapour", 0.46, "IIA", 4.6e5, 6.0, "MIE from memory (reference section 4); group IIA from memory"+liq, "EtOAc", "ethyl ethanoate"),
+		sub("acetone", "vapour", 0.24, "IIA", 6e6, 21, "screening MIE 0.24 mJ: the recalled 1.15 mJ is at stoichiometric, not the minimum over concentration, which is lower; taken as the IIA hydrocarbon solvent value until confirmed (from memory, confirm); group IIA from memory"+liq, "propanone", "dimethyl ketone"),
+		sub("methanol", "vapour", 0.14, "IIA", 4.4e7, 33, "MIE from memory; group IIA from memory"+liq, "methyl alcohol", "MeOH"),
+		sub("ethanol", "vapour", 0.23, "IIB", 1.35e7, 24, "MIE from memory, about 0.23 mJ; group IIB from memory (MESG near 0.89 mm, check the site's classification)"+liq, "ethyl alcohol", "EtOH"),
+		sub("isopropanol", "vapour", 0.65, "IIA", 3.5e6, 19, "MIE from memory; group IIA from memory"+liq, "IPA", "2-propanol", "isopropyl alcohol", "propan-2-ol"),
+		sub("ethyl acetate", "vapour", 0.46, "IIA", 4.6e5, 6.0, "MIE from memory; group IIA from memory"+liq, "EtOAc", "ethyl ethanoate"),
 	}
 }
 

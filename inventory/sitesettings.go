@@ -26,21 +26,55 @@ var ErrUncertaintyValue = errors.New("unusable uncertainty value")
 var ErrUnknownSiteItem = errors.New("unknown Site item")
 
 // LimitItem is one Site-sheet item that overrides a limit of the screening.
+// The items are a view of model's limit table (model.LimitTable: each row's
+// Site item and practical unit), generated into limititems_gen.go because
+// inventory and model do not import each other; a test in report/assess fails
+// when the generated view and the table disagree.
 type LimitItem struct {
-	Name string // item name without unit, lower case, as matched: "shock energy"
-	Unit string // unit the value is in when the item and value give none
-	Note string // what it sets
-	dim  limitDim
+	Name string    // item name without unit, lower case, as matched: "shock energy"
+	Unit string    // practical unit the value is in when the item and value give none
+	Dim  Dimension // what the value measures; its unit is read as a survey cell's
+	Note string    // what it sets: the limit table's keys and label
 }
 
 // FromSI converts an SI value of the limit k sets into k's Unit (the Site
 // sheet's practical unit); false when k's Unit is not one its dimension takes.
 func (k LimitItem) FromSI(v float64) (float64, bool) {
-	f, ok := limitScale(k.dim, k.Unit)
+	f, ok := limitFactor(k, k.Unit)
 	if !ok || f == 0 {
 		return 0, false
 	}
 	return v / f, true
+}
+
+// limitFactor is the factor from unit to SI for k's dimension, by the survey's
+// unit grammar (ParseUnit); a plain-number item takes no unit.
+func limitFactor(k LimitItem, unit string) (float64, bool) {
+	if k.Dim == Dimensionless {
+		return 1, strings.TrimSpace(unit) == ""
+	}
+	u, err := ParseUnit(unit, k.Dim)
+	if err != nil {
+		return 0, false
+	}
+	return u.Factor, true
+}
+
+// LimitItems returns the Site-sheet items that override limits, in the order
+// of the limit table. An item is written "name [unit]" (the unit optional, the
+// Unit below when absent); the value may carry its own unit ("400 mJ").
+// Group-indexed limits take the group at the end of the name ("transferred
+// charge IIB [nC]").
+func LimitItems() []LimitItem { return append([]LimitItem(nil), limitItems...) }
+
+// LimitItemNamed returns the Site limit item of the normalised name.
+func LimitItemNamed(name string) (LimitItem, bool) {
+	for _, k := range limitItems {
+		if k.Name == name {
+			return k, true
+		}
+	}
+	return LimitItem{}, false
 }
 
 // SiteLimit is a validated limit override of the Site sheet.
@@ -81,146 +115,6 @@ type SiteUncertainty struct {
 	// "decades" or "factor"; "" when the row's default unit applies.
 	Unit string
 	Row  int
-}
-
-type limitDim uint8
-
-const (
-	dimNone limitDim = iota
-	dimEnergy
-	dimResistance
-	dimCharge
-	dimArea
-	dimDensity
-	dimPotential
-	dimLength
-	dimField
-	dimVelocity
-	dimVD
-	dimConductivity
-	dimCurrent
-	dimCapacitance
-	dimTime
-)
-
-// limitScale returns the factor from the unit to SI, or false for a unit the dimension does not take.
-func limitScale(d limitDim, unit string) (float64, bool) {
-	u := strings.NewReplacer("µ", "u", "μ", "u", "²", "2", "^2", "2", " ", "", "·", "").Replace(strings.ToLower(unit))
-	var t map[string]float64
-	switch d {
-	case dimNone:
-		t = map[string]float64{"": 1, "x": 1}
-	case dimEnergy:
-		t = map[string]float64{"mj": 1e-3, "j": 1, "uj": 1e-6}
-	case dimResistance:
-		t = map[string]float64{"ω": 1, "ohm": 1, "ohms": 1}
-	case dimCharge:
-		t = map[string]float64{"nc": 1e-9, "uc": 1e-6, "pc": 1e-12, "c": 1}
-	case dimArea:
-		t = map[string]float64{"cm2": 1e-4, "m2": 1, "mm2": 1e-6}
-	case dimDensity:
-		t = map[string]float64{"uc/m2": 1e-6, "nc/m2": 1e-9, "c/m2": 1}
-	case dimPotential:
-		t = map[string]float64{"v": 1, "kv": 1e3}
-	case dimLength:
-		t = map[string]float64{"mm": 1e-3, "m": 1, "cm": 1e-2}
-	case dimField:
-		t = map[string]float64{"v/m": 1, "kv/m": 1e3, "mv/m": 1e6, "kv/mm": 1e6, "kv/cm": 1e5}
-	case dimVelocity:
-		t = map[string]float64{"m/s": 1}
-	case dimVD:
-		t = map[string]float64{"m2/s": 1}
-	case dimConductivity:
-		t = map[string]float64{"ps/m": 1e-12, "ns/m": 1e-9, "us/m": 1e-6, "s/m": 1}
-	case dimCurrent:
-		t = map[string]float64{"ua": 1e-6, "na": 1e-9, "ma": 1e-3, "a": 1}
-	case dimCapacitance:
-		t = map[string]float64{"pf": 1e-12, "nf": 1e-9, "f": 1}
-	case dimTime:
-		t = map[string]float64{"s": 1, "min": 60, "ms": 1e-3}
-	}
-	f, ok := t[u]
-	return f, ok
-}
-
-// limitGroups and vesselClasses name the gas groups and receiving-vessel
-// classes of the group- and class-indexed limits, as the model names them
-// (report/assess's test checks that every item sets a limit).
-var (
-	limitGroups   = []string{"IIA", "IIB", "IIC"}
-	vesselClasses = []string{"road tanker", "rail tank car", "fixed tank", "IBC", "drum", "can"}
-)
-
-// LimitItems returns the Site-sheet items that override limits, in documentation order.
-// An item is written "name [unit]" (the unit optional, the Unit below when absent);
-// the value may carry its own unit ("400 mJ"). Group-indexed limits take the group
-// at the end of the name ("transferred charge IIB [nC]").
-func LimitItems() []LimitItem {
-	items := []LimitItem{
-		{"shock energy", "mJ", "ShockEnergy: shock hazard to people above it", dimEnergy},
-		{"conductor earthing limit", "Ω", "ConductorEarthing: conductors to earth", dimResistance},
-		{"person earthing limit", "Ω", "PersonEarthing: person to earth", dimResistance},
-		{"person earthing mie", "mJ", "PersonEarthingMIE: the person limit applies at or below this MIE", dimEnergy},
-		{"brush energy", "mJ", "BrushEnergy: equivalent energy of a brush discharge", dimEnergy},
-		{"brush area", "cm²", "BrushArea: area one brush discharge drains", dimArea},
-		{"zone 0 charge factor", "", "ZoneZeroChargeFactor: zone 0 transferred-charge limit = factor x zone 1 limit", dimNone},
-		{"propagating charge density", "µC/m²", "PropagatingDensity: density a propagating brush needs", dimDensity},
-		{"propagating breakdown voltage", "kV", "PropagatingBreakdown: layer breakdown at or below which none is possible", dimPotential},
-		{"propagating thickness", "mm", "PropagatingThickness: layer thickness above which none is expected", dimLength},
-		{"propagating maximum energy", "mJ", "PropagatingMaxEnergy: upper bound of a propagating brush's energy", dimEnergy},
-		{"safe potential", "V", "SafePotential: a conductor below it is safe", dimPotential},
-		{"spark minimum potential", "V", "SparkMinPotential: no spark below it", dimPotential},
-		{"air breakdown field", "kV/m", "AirBreakdown", dimField},
-		{"not earthed resistance", "Ω", "NotEarthed: resistance taken for an unknown one", dimResistance},
-		{"person maximum potential", "kV", "PersonMaxPotential: cap on an estimated body potential", dimPotential},
-		{"low conductivity", "pS/m", "LowConductivity: at or below it a liquid is low-conductivity", dimConductivity},
-		{"high conductivity", "pS/m", "HighConductivity: above it a liquid is high-conductivity", dimConductivity},
-		{"filling vd limit", "m²/s", "VesselVDHigh[road tanker]: v d limit above the v d conductivity (see the per-class items)", dimVD},
-		{"filling vd limit low conductivity", "m²/s", "VesselVDLow[road tanker]: v d limit at or below the v d conductivity or when unknown (see the per-class items)", dimVD},
-		{"filling vd conductivity", "pS/m", "VDKappa: conductivity that selects the v d limit", dimConductivity},
-		{"maximum filling velocity", "m/s", "VesselMaxVelocity[every class]: ceiling on filling velocity", dimVelocity},
-		{"slow start velocity", "m/s", "SlowStartVelocity: until the inlet is submerged", dimVelocity},
-		{"bag c point to tab", "Ω", "BagCToTab: type C bag, any point to its earthing tab", dimResistance},
-		{"bag c tab to earth", "Ω", "BagTabToEarth: type C bag, tab to plant earth", dimResistance},
-		{"bag minimum mie", "mJ", "BagMinMIE: MIE the qualification of types C and D assumes", dimEnergy},
-		{"bag maximum current", "µA", "BagMaxCurrent: charging current the qualification assumes", dimCurrent},
-		{"conductor maximum potential", "kV", "ConductorMaxPotential: cap on an unmeasured conductor potential (a measured one is never capped)", dimPotential},
-		{"small part capacitance", "pF", "SmallPartCapacitance: a metal part of measured capacitance below it need not be earthed (IIA, IIB, Group III)", dimCapacitance},
-		{"small part capacitance iic", "pF", "SmallPartCapacitanceIIC: the same for IIC and zone 0", dimCapacitance},
-		{"earthing contradiction factor", "", "EarthingContradictionFactor: a measured conductor potential above this many times the earthing bound (worst-case current x resistance) contradicts the earthing", dimNone},
-		{"spark surface resistance", "Ω", "SparkSurface: an unearthed surface below it (or of dissipative class) sparks as a conductor", dimResistance},
-		{"corona energy", "mJ", "CoronaEnergy: corona's equivalent energy bound, compared only with an MIE below it", dimEnergy},
-		{"dust brush mie", "mJ", "DustBrushMIE: a dust below this MIE is screened for brush discharges", dimEnergy},
-		{"transferred charge group iii", "nC", "TransferredCharge[IIIA-IIIC]: against propagating brush discharges", dimCharge},
-	}
-	for _, g := range limitGroups {
-		gs := strings.ToLower(g)
-		items = append(items,
-			LimitItem{"transferred charge " + gs, "nC", "TransferredCharge[" + g + "]: zones 1 and 2", dimCharge},
-			LimitItem{"brush charge density " + gs, "µC/m²", "BrushChargeDensity[" + g + "]: brush screen", dimDensity},
-			LimitItem{"insulating area zone 0 " + gs, "cm²", "AreaGa[" + g + "]: EPL Ga", dimArea},
-			LimitItem{"insulating area zone 1 " + gs, "cm²", "AreaGb[" + g + "]: EPL Gb/Gc (zones 1 and 2)", dimArea},
-		)
-	}
-	// The liquid filling rules: the per-vessel-class limits, then the rest.
-	for _, c := range vesselClasses {
-		cs := strings.ToLower(c)
-		items = append(items,
-			LimitItem{"filling vd limit " + cs, "m²/s", "VesselVDHigh[" + c + "]: v d limit above the v d conductivity", dimVD},
-			LimitItem{"filling vd limit low conductivity " + cs, "m²/s", "VesselVDLow[" + c + "]: v d limit at or below the v d conductivity or unknown", dimVD},
-			LimitItem{"maximum filling velocity " + cs, "m/s", "VesselMaxVelocity[" + c + "]: velocity ceiling", dimVelocity},
-		)
-	}
-	return append(items,
-		LimitItem{"large tank diameter", "m", "LargeTankDiameter: a fixed tank at or above it has no v d limit", dimLength},
-		LimitItem{"second phase velocity", "m/s", "SecondPhaseVelocity: velocity ceiling with a second phase", dimVelocity},
-		LimitItem{"second phase conductivity", "pS/m", "SecondPhaseConductivity: below it a liquid with a second phase is low-conductivity", dimConductivity},
-		LimitItem{"filter residence factor", "", "FilterResidenceFactor: relaxation times of residence after a fine filter", dimNone},
-		LimitItem{"filter residence time", "s", "FilterResidenceMax: residence after a fine filter that always suffices", dimTime},
-		LimitItem{"filter charge factor", "", "FilterChargeFactor: streaming current factor after a fine filter", dimNone},
-		LimitItem{"strainer charge factor", "", "StrainerChargeFactor: streaming current factor after a strainer", dimNone},
-		LimitItem{"second phase charge factor", "", "SecondPhaseChargeFactor: streaming current factor with a second phase", dimNone},
-	)
 }
 
 // UncertaintyItems returns the Site-sheet items that override the uncertainty
@@ -287,10 +181,7 @@ func siteSetting(it SiteItem) (*SiteLimit, *SiteUncertainty, []Problem) {
 		return nil, nil, []Problem{siteItemProblem(it, "A", Warning, fmt.Sprintf("item %q names no uncertainty; it is ignored", it.Item),
 			"use one of the uncertainty items listed on the Method sheet (e.g. \"Uncertainty field [%]\")", ErrUnknownSiteItem)}
 	}
-	for _, k := range LimitItems() {
-		if k.Name != name {
-			continue
-		}
+	if k, ok := LimitItemNamed(name); ok {
 		v, err := parseLimitValue(it.Value, keyUnit, k)
 		if err != nil {
 			return nil, nil, []Problem{siteItemProblem(it, "B", Error, fmt.Sprintf("limit %q: %v; the built-in value is kept", it.Item, err),
@@ -299,7 +190,11 @@ func siteSetting(it SiteItem) (*SiteLimit, *SiteUncertainty, []Problem) {
 		return &SiteLimit{Name: name, Value: v, Row: it.Row}, nil, nil
 	}
 	fix := "check the spelling against the limit items that sparkmargin library lists (e.g. \"Shock energy [mJ]\")"
-	if near := Nearest(splitName(it.Item), columnNames(SiteItems())); near != "" && it.Item != "" {
+	names := columnNames(SiteItems())
+	for _, k := range limitItems {
+		names = append(names, k.Name) // a misspelt limit item ("shock enrgy") is pointed to its name
+	}
+	if near := Nearest(splitName(it.Item), names); near != "" && it.Item != "" {
 		fix = didYouMean(splitName(it.Item), near)
 	}
 	return nil, nil, []Problem{siteItemProblem(it, "A", Warning, fmt.Sprintf("item %q is not a site setting or a known limit; it is ignored", it.Item), fix, ErrUnknownSiteItem)}
@@ -372,34 +267,35 @@ func splitValue(raw string) (string, string) {
 	return raw, ""
 }
 
-// parseLimitValue reads "400", "400 mJ" or "1e6" in the value's unit, else the item's, else the key's.
+// parseLimitValue reads "400", "400 mJ", "1,5" or "1e6" with the grammar of
+// a survey cell (ParseQuantity): the value's own unit wins, else the unit in
+// the item's name, else the item's practical unit.
 func parseLimitValue(raw, keyUnit string, key LimitItem) (float64, error) {
-	raw = strings.TrimSpace(raw)
-	if raw == "" {
-		return 0, errors.New("no value given")
-	}
-	num, valUnit := splitValue(raw)
-	v, err := parseNumber(num)
-	if err != nil {
-		return 0, fmt.Errorf("%q is not a number", raw)
-	}
 	unit := key.Unit
-	switch {
-	case valUnit != "":
-		unit = valUnit
-	case keyUnit != "":
+	if keyUnit != "" {
 		unit = keyUnit
 	}
-	if r, ok := ambiguousUnit(unit, Dimensionless); ok {
-		return 0, fmt.Errorf("unit %q is ambiguous: %s, or %s; write the unit in full", unit, r[0], r[1])
-	}
-	f, ok := limitScale(key.dim, unit)
-	if !ok {
+	if _, ok := limitFactor(key, unit); !ok {
 		return 0, fmt.Errorf("unit %q does not fit (want %s)", unit, unitOrPlain(key.Unit))
 	}
-	v *= f
+	p, err := ParseQuantity(raw, unit, key.Dim)
+	var qe *QuantityError
+	switch {
+	case errors.As(err, &qe) && (errors.Is(err, ErrUnknownUnit) || errors.Is(err, ErrWrongDimension)):
+		return 0, fmt.Errorf("unit %q does not fit (want %s)", qe.Unit, unitOrPlain(key.Unit))
+	case err != nil:
+		return 0, err
+	case !p.Known:
+		return 0, errors.New("no value given")
+	case p.RelUncertainty != 0:
+		return 0, fmt.Errorf("%q: a limit takes no ± part", strings.TrimSpace(raw))
+	}
+	v := p.Value
+	if key.Dim == Dimensionless && p.Unit != "" {
+		return 0, fmt.Errorf("unit %q does not fit (want %s)", p.Unit, unitOrPlain(key.Unit))
+	}
 	if !(v > 0) || math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q is not a positive finite value", raw)
+		return 0, fmt.Errorf("%q is not a positive finite value", strings.TrimSpace(raw))
 	}
 	return v, nil
 }

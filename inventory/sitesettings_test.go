@@ -3,6 +3,7 @@ package inventory
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -67,5 +68,55 @@ func TestSiteSettingsRejectRow(t *testing.T) {
 		if len(probs) != 1 || probs[0].Column != c.col || probs[0].Severity != c.sev || !errors.Is(probs[0].Err, c.err) || probs[0].Row != 7 || probs[0].Sheet != SheetSite {
 			t.Errorf("%s = %q: problems %+v, want one %v at column %s (%v)", c.item, c.value, probs, c.sev, c.col, c.err)
 		}
+	}
+}
+
+// TestSiteLimitItemsReadAsCells: every Site limit item reads "1,5 <its unit>"
+// exactly as ParseQuantity reads a survey cell of its dimension (one grammar
+// for cells and Site items), and the new Site-only dimensions convert by unit
+// arithmetic (derived: 1 µC/m² = 1e-6 C/m², 1 cm² = 1e-4 m², 1 nC = 1e-9 C).
+func TestSiteLimitItemsReadAsCells(t *testing.T) {
+	for i, k := range LimitItems() {
+		if k.Dim == Dimensionless {
+			continue
+		}
+		value := "1,5 " + k.Unit
+		cell, err := ParseQuantity(value, "", k.Dim)
+		if err != nil {
+			t.Errorf("%s: cell %q: %v", k.Name, value, err)
+			continue
+		}
+		lims, _, probs := SiteSettings([]SiteItem{{Key: k.Name, Item: k.Name, Value: value, Row: 10 + i}})
+		if len(probs) != 0 || len(lims) != 1 || lims[0].Value != cell.Value {
+			t.Errorf("%s = %q: limits %+v problems %+v, want %g as the cell", k.Name, value, lims, probs, cell.Value)
+		}
+	}
+	cases := []struct {
+		key, value string
+		want       float64
+	}{
+		{"brush charge density iib", "1,5 µC/m²", 1.5e-6},
+		{"brush charge density iib [uC/m^2]", "2", 2e-6},
+		{"brush area", "0,01 m²", 0.01},
+		{"brush area [cm2]", "50", 50e-4},
+		{"transferred charge iic", "12 nC", 12e-9},
+		{"filling vd limit drum", "0,38", 0.38},
+		{"zone 0 charge factor", "0,4", 0.4},
+	}
+	for _, c := range cases {
+		name, unit := splitItemUnit(c.key)
+		lims, _, probs := SiteSettings([]SiteItem{{Key: c.key, Item: name + " [" + unit + "]", Value: c.value, Row: 5}})
+		if len(probs) != 0 || len(lims) != 1 || !relClose(lims[0].Value, c.want) {
+			t.Errorf("%s = %q: %+v %+v, want %g", c.key, c.value, lims, probs, c.want)
+		}
+	}
+}
+
+// TestSiteLimitItemMisspelt: a misspelt limit item is a warning that names
+// the limit item meant (invented example).
+func TestSiteLimitItemMisspelt(t *testing.T) {
+	_, _, probs := SiteSettings([]SiteItem{{Key: "shock enrgy [mj]", Item: "Shock enrgy [mJ]", Value: "400", Row: 7}})
+	if len(probs) != 1 || probs[0].Severity != Warning || !strings.Contains(probs[0].Fix, "shock energy") {
+		t.Errorf("problems %+v, want one warning suggesting \"shock energy\"", probs)
 	}
 }

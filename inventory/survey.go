@@ -215,6 +215,7 @@ type Material struct {
 	BreakdownStrength  float64 // V/m; NaN when unknown
 	Source             string  // where the values come from ("from memory", a handbook, the survey)
 	BuiltIn            bool    // false: from the survey's Materials sheet
+	FromMemory         bool    // a built-in whose values were recalled, not confirmed against a source
 	Row                int     // Materials sheet row, 0 for built-ins
 }
 
@@ -227,6 +228,7 @@ type Substance struct {
 	Conductivity float64 // S/m of the liquid; NaN when not a liquid or unknown
 	Permittivity float64 // relative permittivity of the liquid; NaN when unknown
 	Source       string
+	FromMemory   bool // a value (MIE, group or liquid data) recalled, not confirmed against a source
 }
 
 // Severity says whether a problem rejects its row.

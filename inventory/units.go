@@ -114,6 +114,14 @@ func (d Dimension) String() string {
 		return "humidity slope"
 	case Date:
 		return "date"
+	case Charge:
+		return "charge"
+	case Area:
+		return "area"
+	case ChargeDensity:
+		return "charge density"
+	case SpeedDiameter:
+		return "velocity × diameter"
 	}
 	return fmt.Sprintf("dimension(%d)", uint8(d))
 }
@@ -153,6 +161,14 @@ func SIUnit(d Dimension) string {
 		return "K"
 	case Conductivity:
 		return "S/m"
+	case Charge:
+		return "C"
+	case Area:
+		return "m²"
+	case ChargeDensity:
+		return "C/m²"
+	case SpeedDiameter:
+		return "m²/s"
 	}
 	return ""
 }
@@ -262,6 +278,25 @@ func baseUnits() []namedBaseUnit {
 		{"decades per 10 % RH", baseUnit{Slope, 1, 0, false}},
 		{"decades/10 %RH", baseUnit{Slope, 1, 0, false}},
 		{"dec/10%RH", baseUnit{Slope, 1, 0, false}},
+		// Site sheet limit items only: charge, area, charge density, v·d
+		// (after the survey's own units, so "C" is read as °C first where
+		// no dimension is asked for)
+		{"C", baseUnit{Charge, 1, 0, true}},
+		{"m²", baseUnit{Area, 1, 0, false}},
+		{"m2", baseUnit{Area, 1, 0, false}},
+		{"m^2", baseUnit{Area, 1, 0, false}},
+		{"cm²", baseUnit{Area, 1e-4, 0, false}},
+		{"cm2", baseUnit{Area, 1e-4, 0, false}},
+		{"cm^2", baseUnit{Area, 1e-4, 0, false}},
+		{"mm²", baseUnit{Area, 1e-6, 0, false}},
+		{"mm2", baseUnit{Area, 1e-6, 0, false}},
+		{"mm^2", baseUnit{Area, 1e-6, 0, false}},
+		{"C/m²", baseUnit{ChargeDensity, 1, 0, true}},
+		{"C/m2", baseUnit{ChargeDensity, 1, 0, true}},
+		{"C/m^2", baseUnit{ChargeDensity, 1, 0, true}},
+		{"m²/s", baseUnit{SpeedDiameter, 1, 0, false}},
+		{"m2/s", baseUnit{SpeedDiameter, 1, 0, false}},
+		{"m^2/s", baseUnit{SpeedDiameter, 1, 0, false}},
 	}
 }
 

@@ -2,8 +2,9 @@
 // functions in SI units, each documented with its formula, validity range and
 // source, and one entry point, Evaluate, that applies them to one surveyed object.
 // It does no I/O and words no verdicts; the assessment compares its results with
-// the limits (DefaultLimits, overridable by a survey; LimitSources names each
-// source and edition). Every default applied is recorded in Evaluation.Assumed,
+// the limits (LimitTable, one row per limit with its label, units, Site item,
+// default and source; DefaultLimits, overridable by a survey; References lists
+// the documents the sources cite by key, with editions). Every default applied is recorded in Evaluation.Assumed,
 // everything noticed in Evaluation.Flags, every missing input in
 // Evaluation.NotAssessed. The figures are screening estimates: they defer to
 // local codes, the site's hazardous-area classification and a competent person.

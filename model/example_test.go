@@ -22,7 +22,7 @@ func ExampleEvaluate() {
 	}
 	// Output:
 	// spark 5 mJ
-	// An isolated conductor at 10 kV can spark with W = C V^2/2 = 5 mJ.
+	// An isolated conductor at 10 kV can spark with W = C V²/2 = 5 mJ.
 	// assumed: resistance to earth not given: taken as not earthed (no leakage)
 }
 

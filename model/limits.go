@@ -1,8 +1,9 @@
 package model
 
 // Limits are the published limits and screening choices the model and the
-// assessment apply. DefaultLimits returns them with their sources; a survey may
-// override any of them (Site sheet). Per-group arrays are indexed by Group.
+// assessment apply. DefaultLimits returns them, LimitTable says for each its
+// label, units, Site item, default and source; a survey may override them
+// (Site sheet). Per-group arrays are indexed by Group.
 type Limits struct {
 	// Brush discharge: charge-density screen per gas group (C/m^2), the
 	// equivalent energy (J) and the area one brush drains (m^2).
@@ -96,8 +97,9 @@ type Limits struct {
 	// CoronaEnergy: the equivalent energy bound of a corona discharge (from a
 	// sharp point or edge, a type D bag). Corona is compared with an atmosphere's
 	// MIE only where it can ignite one, an MIE below this bound (hydrogen-like
-	// gases); above it corona is not counted (reference section 3: corona below
-	// about 0.1-1 mJ ignites only very sensitive gases such as hydrogen).
+	// gases); above it corona is not counted (corona below about 0.1-1 mJ ignites
+	// only very sensitive gases such as hydrogen; below 1 mJ confirmed, the rest
+	// from memory).
 	CoronaEnergy float64
 	// CoatingThickness, CoatingThicknessIIC: an insulating layer on earthed
 	// metal no thicker than this (IIA, IIB; IIC) and of measured breakdown at

@@ -303,7 +303,7 @@ type LiquidRule struct {
 }
 
 // Edition of IEC TS 60079-32-1 the liquid rules cite.
-const srcLiquids = srcTS32 + ", clause 7 (liquids)"
+var srcLiquids = reference(refTS32).Cite() + ", clause 7 (liquids)"
 
 // LiquidRules returns the rows of the liquid filling rules, in clause order. The
 // values are Limits fields, overridable on the Site sheet (the item names are in

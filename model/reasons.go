@@ -109,7 +109,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonSparkInsulator:
 		return "An insulating surface holds no free charge that could spark."
 	case ReasonSparkPossible:
-		return fmt.Sprintf("An isolated conductor at %s can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+		return fmt.Sprintf("An isolated conductor at %s can spark with W = C V²/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
 	case ReasonSparkBelowPaschen:
 		return fmt.Sprintf("The potential %s is below the %s any air gap needs to break down.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonSparkNoContainer:
@@ -198,7 +198,7 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonBagBelowQualifiedMIE:
 		return "Types C and D are qualified only for an MIE at or above 0.14 mJ."
 	case ReasonSparkSurface:
-		return fmt.Sprintf("The surface conducts (dissipative or conductive) but is not earthed: as an isolated conductor at %s it can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+		return fmt.Sprintf("The surface conducts (dissipative or conductive) but is not earthed: as an isolated conductor at %s it can spark with W = C V²/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
 	case ReasonSparkSurfaceEarthed:
 		if math.IsNaN(a) {
 			return "The conducting surface lies on earthed metal: no spark."
@@ -221,13 +221,13 @@ func (r Reason) Text(a, b float64) string {
 	case ReasonConeFieldAndVessel:
 		return fmt.Sprintf("The measured heap-surface field %s is at or below 500 kV/m and the container (%s) is below 0.25 m³: no cone discharge expected (JNIOSH-TR, both conditions together).", Quantity(a, "V/m"), Quantity(b, "m^3"))
 	case ReasonSparkReadingAboveMaximum:
-		return fmt.Sprintf("The reading of %s is beyond what air lets a plant conductor or body hold (it goes into corona first; reference sections 3 and 12, realistic potentials): the spark is taken at the realistic maximum of %s, W = C V^2/2, so that the energy and ranking do not rest on an artefact; check the meter, its range and unit.", Quantity(a, "V"), Quantity(b, "V"))
+		return fmt.Sprintf("The reading of %s is beyond what air lets a plant conductor or body hold (it goes into corona first; common practice, no source: plant conductors go into corona from edges and bolts at tens of kV): the spark is taken at the realistic maximum of %s, W = C V²/2, so that the energy and ranking do not rest on an artefact; check the meter, its range and unit.", Quantity(a, "V"), Quantity(b, "V"))
 	case ReasonCoronaBagC:
-		return fmt.Sprintf("The conductive threads of a type C bag are sharp electrodes that go into corona as the fabric charges (earthed, that is how the bag sheds its charge, IEC 61340-4-4): corona is counted at its equivalent energy bound of %s; it ignites only very sensitive gases such as hydrogen (reference section 3), for which no bag type is qualified.", Quantity(a, "J"))
+		return fmt.Sprintf("The conductive threads of a type C bag are sharp electrodes that go into corona as the fabric charges (earthed, that is how the bag sheds its charge, IEC 61340-4-4): corona is counted at its equivalent energy bound of %s; it ignites only very sensitive gases such as hydrogen (below 1 mJ confirmed, hydrogen only from memory), for which no bag type is qualified.", Quantity(a, "J"))
 	case ReasonSparkInsulatingVessel:
 		return "A low-conductivity liquid in an insulating vessel is no conductor: no spark from it (its surface is judged by the filling rules)."
 	case ReasonSparkLiquidIsolated:
-		return fmt.Sprintf("The conductive liquid in an insulating, lined or unearthed vessel is an isolated conductor at %s and can spark with W = C V^2/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
+		return fmt.Sprintf("The conductive liquid in an insulating, lined or unearthed vessel is an isolated conductor at %s and can spark with W = C V²/2 = %s.", Quantity(a, "V"), Quantity(b, "J"))
 	case ReasonBrushLiquidCompliant:
 		return "The fill meets every applicable filling clause of IEC TS 60079-32-1 for its vessel: no incendive brush from the liquid surface is expected (earthing still applies)."
 	case ReasonBrushLiquidBreach:

@@ -10,7 +10,6 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
-	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -64,13 +63,12 @@ func writeLibraryJSON(out io.Writer) error {
 		subs = append(subs, jm{"name": s.Name, "kind": s.Kind, "mie_mj": finite(s.MIE * 1e3), "group": s.Group,
 			"conductivity_ps_per_m": finite(s.Conductivity * 1e12), "relative_permittivity": finite(s.Permittivity), "source": s.Source})
 	}
-	ov := assess.LimitOverrides()
-	for _, c := range model.LimitSources() {
-		l := jm{"limit": c.Limit, "value_si": finite(c.Value), "unit_si": c.Unit, "source": c.Source, "from_memory": c.FromMemory,
-			"site_item": nil, "value": finite(c.Value), "unit": c.Unit}
-		if k, ok := ov[c.Limit]; ok {
+	for _, r := range model.LimitTable() {
+		l := jm{"limit": r.Key, "label": r.Label, "value_si": finite(r.Default), "unit_si": r.Unit, "source": r.Source(), "reference": r.Ref,
+			"edition": r.Edition(), "from_memory": r.FromMemory, "site_item": nil, "value": finite(r.Default), "unit": r.Unit}
+		if k, ok := inventory.LimitItemNamed(r.SiteItem); ok {
 			l["site_item"] = k.Name
-			if v, ok := k.FromSI(c.Value); ok {
+			if v, ok := k.FromSI(r.Default); ok {
 				l["value"], l["unit"] = finite(v), k.Unit
 			}
 		}
@@ -79,7 +77,11 @@ func writeLibraryJSON(out io.Writer) error {
 	for _, k := range inventory.LimitItems() {
 		items = append(items, jm{"item": k.Name, "unit": k.Unit, "sets": k.Note})
 	}
+	var refs []jm
+	for _, r := range model.References() {
+		refs = append(refs, jm{"key": r.Key, "edition": r.Edition, "kind": r.Kind, "title": r.Title, "note": r.Note})
+	}
 	enc := json.NewEncoder(out)
 	enc.SetIndent("", "  ")
-	return enc.Encode(jm{"materials": mats, "substances": subs, "limits": lims, "site_items": items, "cautions": templates.CautionLine})
+	return enc.Encode(jm{"materials": mats, "substances": subs, "limits": lims, "site_items": items, "references": refs, "cautions": templates.CautionLine})
 }

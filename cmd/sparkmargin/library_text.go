@@ -10,7 +10,6 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/model"
-	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/book"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
@@ -246,25 +245,20 @@ func writeLibrary(out io.Writer) {
 	fmt.Fprintln(out, "item and a value on the Site sheet to override one (Shock energy [mJ] | 500). [M]: recalled,")
 	fmt.Fprintln(out, "not confirmed against the standard's text here. *: no Site item overrides it.")
 	n = notes{}
-	ov := assess.LimitOverrides()
 	used := map[string]bool{}
 	tw, flush = tabbed(out)
 	fmt.Fprintln(tw, "Limit (Site item)\tValue\t\tSource")
-	for _, c := range model.LimitSources() {
-		name, value := limitWords(c.Limit)+" *", quantityText(c.Value, "")
-		if k, ok := ov[c.Limit]; ok {
+	for _, c := range model.LimitTable() {
+		name, value := limitWords(c.Key)+" *", quantityText(c.Default, "")
+		if k, ok := inventory.LimitItemNamed(c.SiteItem); ok && c.SiteItem != "" {
 			used[k.Name] = true
 			name = itemWords(k.Name)
-			// An item that sets several indexed limits: say which one this is.
-			if _, idx, ok := strings.Cut(c.Limit, "["); ok && !strings.Contains(k.Name, strings.ToLower(strings.TrimSuffix(idx, "]"))) {
-				name += " [" + idx
-			}
-			if v, ok := k.FromSI(c.Value); ok {
+			if v, ok := k.FromSI(c.Default); ok {
 				value = quantityText(v, k.Unit)
 			}
 		} else {
-			u := siDisplay(c.Unit, c.Value)
-			if v, ok := u.Display(c.Value); ok {
+			u := siDisplay(c.Unit, c.Default)
+			if v, ok := u.Display(c.Default); ok {
 				value = quantityText(v, u.Label())
 			}
 		}
@@ -272,7 +266,7 @@ func writeLibrary(out io.Writer) {
 		if c.FromMemory {
 			mark = "[M]"
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", name, value, mark, n.ref(c.Source))
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", name, value, mark, n.ref(c.Source()))
 	}
 	flush()
 	n.write(out)
@@ -287,6 +281,17 @@ func writeLibrary(out io.Writer) {
 		fmt.Fprintln(out, "\nSite items that set several of the limits above at once (a narrower item wins):")
 		for _, line := range wrapWords(strings.Join(several, "; "), libraryWidth-2) {
 			fmt.Fprintln(out, "  "+line)
+		}
+	}
+	fmt.Fprintln(out, "\nReferences (the sources above cite them by key)")
+	for _, r := range model.References() {
+		head := r.Key
+		if r.Edition != "" {
+			head += ", " + r.Edition
+		}
+		fmt.Fprintln(out, "  "+head)
+		for _, line := range wrapWords(r.Title, libraryWidth-6) {
+			fmt.Fprintln(out, "      "+line)
 		}
 	}
 	fmt.Fprintln(out, "\nThe survey contract, with the uncertainty items: inventory/SURVEY.md.")

@@ -403,7 +403,7 @@ func (x *objectContext) evalDefaults(r *ObjectResult) []Mark {
 		defs = append(defs, Mark{Item: ItemChargeDensity, Prov: ProvEstimated, Label: "Charge density", Value: uCm2(ev.ChargeDensity), Reason: fmt.Sprintf("the reading inverts to %s, more than air lets the surface hold: capped at the breakdown limit (CCPS glossary; a screening choice of this tool), the reading to be checked", uCm2(ev.ReadingDensity))})
 	}
 	if ev.Flags&model.FlagMeasuredAboveMaximum != 0 && !math.IsNaN(ev.UncappedPotential) {
-		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Potential used", Value: kV(ev.Potential), Reason: fmt.Sprintf("the reading of %s is beyond what air lets a plant conductor or body hold before it goes into corona (reference sections 3 and 12, realistic potentials): the spark energy and the ranking are taken at the realistic maximum, the reading kept as a contradiction finding", kV(ev.UncappedPotential))})
+		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Potential used", Value: kV(ev.Potential), Reason: fmt.Sprintf("the reading of %s is beyond what air lets a plant conductor or body hold before it goes into corona (common practice, no source: plant conductors go into corona from edges and bolts at tens of kV): the spark energy and the ranking are taken at the realistic maximum, the reading kept as a contradiction finding", kV(ev.UncappedPotential))})
 	}
 	if ev.Flags&model.FlagCappedConductor != 0 {
 		defs = append(defs, Mark{Item: ItemPotential, Prov: ProvEstimated, Label: "Conductor potential", Value: kV(ev.Potential), Reason: "not measured: the estimate is capped at the realistic plant maximum (corona from edges and bolts; common practice, no source)"})

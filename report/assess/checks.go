@@ -93,7 +93,7 @@ type checkDef struct {
 func dischargeGround(d model.DischargeType) string {
 	switch d {
 	case model.Spark:
-		return "spark energy W = C V^2/2 (textbook; JNIOSH-TR)"
+		return "spark energy W = C V²/2 (textbook; JNIOSH-TR)"
 	case model.Brush:
 		return "brush discharge equivalent energy 3-4 mJ (CLC/TR 50404 summaries; CCPS glossary), the 4 mJ upper end a screening choice of this tool"
 	case model.PropagatingBrush:
@@ -140,7 +140,7 @@ func checkTable() [NumChecks]checkDef {
 		CheckReadingAboveBreakdown: {"reading-above-breakdown", Marginal, "air breaks down at about 3 MV/m, so a surface holds at most eps0 x 3 MV/m with its field on one side, twice that as a free sheet (CCPS glossary; AMS Glossary of Meteorology); a reading above it is a bad reading or unit: the charge density used is capped at that limit, a screening choice of this tool (the reading's hazard is kept)", nil},
 		CheckConeAboveRange:        {"cone-above-range", Marginal, "Glor's cone discharge formula (from memory), valid for silo diameters 0.5-3 m and median particle sizes 0.1-3 mm; outside its range the formula is not valid (BG RCI FAQ 5.10, TRGS 727:2016 6.2.3): the value at the edge of the range is used and, above the range, is a lower bound, so it never clears (a screening choice of this tool)", nil},
 		CheckConeExtrapolated:      {"cone-extrapolated-reaches-mie", Incendive, "Glor's cone discharge formula (from memory) evaluated beyond its range (D 0.5-3 m, d 0.1-3 mm), where it is not valid, reaches the MIE: as the energy rises with D and d, the discharge is taken as able to ignite (unknown means the stricter case; a screening choice of this tool)", nil},
-		CheckMeasuredAboveMaximum:  {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic maximum (a plant conductor about 50 kV, common practice, no source; a body the walking-test maximum) contradicts what air lets it hold (reference sections 3 and 12, realistic potentials); the spark is kept, its energy taken at the maximum", nil},
+		CheckMeasuredAboveMaximum:  {"measured-potential-above-maximum", Marginal, "a screening choice of this tool: a measured potential above the realistic maximum (a plant conductor about 50 kV, common practice, no source; a body the walking-test maximum) contradicts what air lets it hold (conductors go into corona from edges and bolts at tens of kV); the spark is kept, its energy taken at the maximum", nil},
 	}
 }
 

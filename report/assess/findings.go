@@ -269,7 +269,7 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		if in.Kind == model.Person {
 			what = "body"
 		}
-		msg = fmt.Sprintf("measured potential %s is above the realistic maximum of %s a %s holds before it goes into corona: a contradiction between reading and model, the reading to be checked (meter, range, unit); the spark is kept but its energy taken at the maximum (W = %s), so the verdict and ranking do not rest on an artefact (reference sections 3 and 12, realistic potentials)", kV(ev.UncappedPotential), kV(ev.Potential), what, mJ(ev.StoredEnergy))
+		msg = fmt.Sprintf("measured potential %s is above the realistic maximum of %s a %s holds before it goes into corona: a contradiction between reading and model, the reading to be checked (meter, range, unit); the spark is kept but its energy taken at the maximum (W = %s), so the verdict and ranking do not rest on an artefact (plant conductors go into corona from edges and bolts at tens of kV: common practice, no source)", kV(ev.UncappedPotential), kV(ev.Potential), what, mJ(ev.StoredEnergy))
 	}
 	if k == CheckEnergyMIE || k == CheckEnergyMargin {
 		cls := mitigationClass(in, c.Discharge)

@@ -57,25 +57,34 @@ func sci(v float64) string {
 	return mant + "e" + exp
 }
 
-func mJ(j float64) string    { return sig(j*1e3) + " mJ" }
-func kV(v float64) string    { return sig(v/1e3) + " kV" }
-func volts(v float64) string { return sig(v) + " V" }
-func pF(f float64) string    { return sig(f*1e12) + " pF" }
+// unit appends the unit to a formatted number; an unknown value stays
+// "unknown", with no unit after it.
+func unit(num, u string) string {
+	if num == "unknown" {
+		return num
+	}
+	return num + " " + u
+}
+
+func mJ(j float64) string    { return unit(sig(j*1e3), "mJ") }
+func kV(v float64) string    { return unit(sig(v/1e3), "kV") }
+func volts(v float64) string { return unit(sig(v), "V") }
+func pF(f float64) string    { return unit(sig(f*1e12), "pF") }
 func nC(c float64) string {
 	if math.Abs(c) >= 1e-6 { // a propagating brush's charge: µC, not hundreds of thousands of nC
-		return sig(c*1e6) + " µC"
+		return unit(sig(c*1e6), "µC")
 	}
-	return sig(c*1e9) + " nC"
+	return unit(sig(c*1e9), "nC")
 }
-func cm2(a float64) string       { return sig(a*1e4) + " cm²" }
-func ohm(r float64) string       { return sci(r) + " Ω" }
-func uA(a float64) string        { return sig(a*1e6) + " µA" }
-func pSm(k float64) string       { return sig(k*1e12) + " pS/m" }
-func mps(v float64) string       { return sig(v) + " m/s" }
-func m2ps(v float64) string      { return sig(v) + " m²/s" }
-func seconds(t float64) string   { return sig(t) + " s" }
-func percent(rh float64) string  { return sig(rh) + " %" }
-func celsius(k float64) string   { return sig(k-273.15) + " °C" }
-func uCm2(s float64) string      { return sig(s*1e6) + " µC/m²" }
+func cm2(a float64) string       { return unit(sig(a*1e4), "cm²") }
+func ohm(r float64) string       { return unit(sci(r), "Ω") }
+func uA(a float64) string        { return unit(sig(a*1e6), "µA") }
+func pSm(k float64) string       { return unit(sig(k*1e12), "pS/m") }
+func mps(v float64) string       { return unit(sig(v), "m/s") }
+func m2ps(v float64) string      { return unit(sig(v), "m²/s") }
+func seconds(t float64) string   { return unit(sig(t), "s") }
+func percent(rh float64) string  { return unit(sig(rh), "%") }
+func celsius(k float64) string   { return unit(sig(k-273.15), "°C") }
+func uCm2(s float64) string      { return unit(sig(s*1e6), "µC/m²") }
 func plain(v float64) string     { return sig(v) }
 func ratioText(r float64) string { return sig(r) }

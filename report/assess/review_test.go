@@ -94,7 +94,7 @@ func TestReviewCoronaInHydrogen(t *testing.T) {
 // and the 1 J bound from memory; corona, the 0.1 mJ screening choice.
 func TestReviewEnergyBasisPerDischarge(t *testing.T) {
 	want := map[model.DischargeType][]string{
-		model.Spark:            {"C V^2/2", "JNIOSH-TR"},
+		model.Spark:            {"C V²/2", "JNIOSH-TR"},
 		model.Brush:            {"3-4 mJ", "CLC/TR 50404", "screening choice"},
 		model.PropagatingBrush: {"TRGS 727:2016 Annex C", "from memory"},
 		model.Cone:             {"Glor", "from memory", "0.5-3 m", "0.1-3 mm"},

@@ -1,7 +1,6 @@
 package assess
 
 import (
-	"slices"
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -12,24 +11,6 @@ import (
 func siteWith(items []inventory.SiteItem) (inventory.Site, []inventory.Problem) {
 	lims, uncs, probs := inventory.SiteSettings(items)
 	return inventory.Site{Items: items, Limits: lims, Uncertainties: uncs}, probs
-}
-
-// TestLimitItemsAllSet: every Site limit item inventory validates sets a
-// limit here, and every setter has its item (the two are joined by the name).
-func TestLimitItemsAllSet(t *testing.T) {
-	set := limitSetters()
-	var names []string
-	for _, k := range inventory.LimitItems() {
-		names = append(names, k.Name)
-		if set[k.Name] == nil {
-			t.Errorf("Site item %q sets no limit", k.Name)
-		}
-	}
-	for name := range set {
-		if !slices.Contains(names, name) {
-			t.Errorf("setter %q has no Site item in inventory.LimitItems", name)
-		}
-	}
 }
 
 // TestUncertaintyItemsMatchTable: inventory's uncertainty items are the

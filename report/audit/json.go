@@ -29,6 +29,10 @@ type jsonAudit struct {
 	Rejected []jsonProblem `json:"rejected"`
 	Warnings []jsonProblem `json:"warnings"`
 	Cautions []string      `json:"cautions"`
+	// References are the documents the sources cite by key; Verify the
+	// limits applied that were recalled, not confirmed against the text.
+	References []jsonReference `json:"references"`
+	Verify     []jsonVerify    `json:"verify"`
 }
 
 type jsonTool struct {
@@ -263,7 +267,7 @@ func WriteJSON(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if a == nil || a.Survey == nil {
 		return errors.New("write JSON: no audit or no survey")
 	}
-	doc := jsonDoc(a, info)
+	doc := jsonDoc(a, info, materialsUsed(a.Objects))
 	for i := range a.Objects {
 		doc.Objects = append(doc.Objects, objectJSON(&a.Objects[i]))
 	}
@@ -285,7 +289,44 @@ func workbookRecord(info RunInfo) *jsonSurvey {
 	return &jsonSurvey{File: info.Workbook, SHA256: info.WorkbookSHA256}
 }
 
-func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
+// jsonReference is one entry of the References list (model.References).
+type jsonReference struct {
+	Key     string `json:"key"`
+	Edition string `json:"edition"`
+	Kind    string `json:"kind"`
+	Title   string `json:"title"`
+	Note    string `json:"note"`
+}
+
+// jsonVerify is one value applied that was recalled, not confirmed against
+// its source's text (the Method sheet's "Verify before relying on these").
+type jsonVerify struct {
+	What     string   `json:"what"`  // limit, material or substance
+	Limit    string   `json:"limit"` // the limit's key, or the material's or substance's name
+	Label    string   `json:"label"`
+	ValueSI  *float64 `json:"value_si"`
+	UnitSI   string   `json:"unit_si"`
+	Override string   `json:"override"`
+	Source   string   `json:"source"`
+}
+
+// jsonSources are the References and Verify lists of the audit.
+func jsonSources(a *assess.Audit, used map[string]bool) ([]jsonReference, []jsonVerify) {
+	refs, verify := []jsonReference{}, []jsonVerify{}
+	for _, r := range model.References() {
+		refs = append(refs, jsonReference{r.Key, r.Edition, r.Kind, r.Title, r.Note})
+	}
+	for _, v := range verifyRows(a, used) {
+		var val *float64
+		if v.value != 0 {
+			val = book.Finite(v.value)
+		}
+		verify = append(verify, jsonVerify{v.what, v.key, v.name, val, v.unitSI, v.override, v.source})
+	}
+	return refs, verify
+}
+
+func jsonDoc(a *assess.Audit, info RunInfo, used map[string]bool) jsonAudit {
 	s := a.Survey
 	doc := jsonAudit{
 		Tool:     jsonTool{info.tool(), info.ToolVersion},
@@ -314,6 +355,7 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 	for _, sv := range siteValues(s.Site) {
 		doc.Site.Provenance[sv.item.Key()] = sv.prov.String()
 	}
+	doc.References, doc.Verify = jsonSources(a, used)
 	if a.Options.Samples > 0 {
 		tab := a.Options.Uncertainties
 		if tab == nil {

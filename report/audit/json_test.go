@@ -134,3 +134,52 @@ func TestEnergyAtLeastMIE(t *testing.T) {
 		t.Errorf("measured resistance: energy_note %q, want none", jo.EnergyNote)
 	}
 }
+
+// TestWriteJSONSources: the JSON carries the References list and the limits
+// to verify: the IEC 60079-0 transferred charge for IIB (25 nC, from memory)
+// is listed with the value applied, the TRGS 727 shock energy (confirmed,
+// Annex D) is not; every source cites a listed reference by its key.
+func TestWriteJSONSources(t *testing.T) {
+	var b bytes.Buffer
+	if err := WriteJSON(&b, testAudit(), testInfo()); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct {
+		References []struct{ Key, Edition string } `json:"references"`
+		Verify     []struct {
+			What    string   `json:"what"`
+			Limit   string   `json:"limit"`
+			ValueSI *float64 `json:"value_si"`
+			Source  string   `json:"source"`
+		} `json:"verify"`
+	}
+	if err := json.Unmarshal(b.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	keys := map[string]string{}
+	for _, r := range doc.References {
+		keys[r.Key] = r.Edition
+	}
+	if keys["TRGS 727"] != "2016" || keys["IEC 60079-0"] != "2017" {
+		t.Errorf("references %v: want TRGS 727:2016 and IEC 60079-0:2017", keys)
+	}
+	got := map[string]float64{}
+	for _, v := range doc.Verify {
+		if v.ValueSI != nil {
+			got[v.Limit] = *v.ValueSI
+		}
+		if v.What != "limit" {
+			continue // a built-in material or substance, from memory: its source says so
+		}
+		r, ok := model.ReferenceOf(v.Source)
+		if _, listed := keys[r.Key]; !ok || !listed {
+			t.Errorf("verify %s: source %q cites no listed reference", v.Limit, v.Source)
+		}
+	}
+	if !scalar.EqualWithinRel(got["TransferredCharge[IIB]"], 25e-9, 1e-12) { // Source: IEC 60079-0 7.4.2, 25 nC for IIB (from memory)
+		t.Errorf("verify list: TransferredCharge[IIB] = %g, want 25 nC", got["TransferredCharge[IIB]"])
+	}
+	if _, ok := got["ShockEnergy"]; ok {
+		t.Error("the confirmed shock energy (TRGS 727 Annex D) is in the verify list")
+	}
+}

@@ -3,7 +3,6 @@ package audit
 import (
 	"fmt"
 	"math"
-	"reflect"
 	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -25,176 +24,102 @@ type limitRow struct {
 	unit       book.Unit
 	source     string
 	fromMemory bool
+	siteItem   string // the Site item that overrides it, "" when none
 }
 
-// limitRows lists every limit of model.LimitSources with the value actually
-// applied (Options.Limits, survey overrides merged), the default and its source.
+// limitRows lists every row of the limit table (model.LimitTable) with the
+// value actually applied (Options.Limits, survey overrides merged), the
+// default and its source.
 func limitRows(applied model.Limits) []limitRow {
-	rv := reflect.ValueOf(applied)
 	var out []limitRow
-	for _, c := range model.LimitSources() {
-		v, ok := limitField(rv, c.Limit)
-		if !ok {
-			v = c.Value
-		}
-		out = append(out, limitRow{name: limitLabel(c.Limit), value: v, def: c.Value, unit: siDisplayUnit(c.Unit),
-			source: c.Source, fromMemory: c.FromMemory})
+	for _, s := range model.LimitTable() {
+		out = append(out, limitRow{name: s.Label, value: s.Value(applied), def: s.Default, unit: displayUnit(s.Display),
+			source: s.Source(), fromMemory: s.FromMemory, siteItem: s.SiteItem})
 	}
 	return out
 }
 
-// limitField reads the Limits field named as in model.Citation.Limit:
-// "ShockEnergy" or "TransferredCharge[IIB]" ("[other]" is the no-group entry).
-func limitField(rv reflect.Value, name string) (float64, bool) {
-	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
-	f := rv.FieldByName(field)
-	if !f.IsValid() {
-		return 0, false
-	}
-	if indexed {
-		if f.Kind() != reflect.Array {
-			return 0, false
-		}
-		i := int(model.GroupNone)
-		if group != "other" {
-			if pg, err := model.ParseGroup(group); err == nil {
-				i = int(pg)
-			} else if vc, err := model.ParseVesselClass(group); err == nil && strings.HasPrefix(field, "Vessel") {
-				i = int(vc) // per-vessel-class liquid limits: "VesselVDLow[road tanker]"
-			} else {
-				return 0, false
-			}
-		}
-		if i >= f.Len() {
-			return 0, false
-		}
-		f = f.Index(i)
-	}
-	if f.Kind() != reflect.Float64 {
-		return 0, false
-	}
-	return f.Float(), true
+// verifyRow is one value the audit applied that was recalled, not confirmed
+// against its source's text: a limit of the limit table, a built-in material
+// used by an object, or a built-in substance an atmosphere took its MIE or
+// group from. The Method sheet and the JSON list the same rows.
+type verifyRow struct {
+	what     string // "limit", "material" or "substance"
+	key      string // the limit's key, the material's or substance's name
+	name     string // in words
+	value    float64
+	unit     book.Unit
+	unitSI   string
+	override string // how a survey overrides it
+	source   string
 }
 
-// siDisplayUnit maps the SI unit of a citation to the audit's display unit.
-func siDisplayUnit(si string) book.Unit {
-	switch si {
-	case "C/m^2":
-		return book.UnitUCPerM2
-	case "J":
-		return book.UnitMJ
-	case "m^2":
-		return book.UnitCM2
-	case "C":
-		return book.UnitNC
-	case "V":
-		return book.UnitVolt
-	case "V/m":
-		return book.UnitKVPerM
-	case "ohm":
-		return book.UnitOhm
-	case "ohm m":
-		return book.UnitOhmM
-	case "F":
-		return book.UnitPF
-	case "S/m":
-		return book.UnitPSPerM
-	case "m^2/s":
-		return book.UnitM2PerS
-	case "m/s":
-		return book.UnitMPerS
-	case "A":
-		return book.UnitUA
-	case "m":
-		return book.UnitMillimetre
-	case "C/kg":
-		return book.UnitUCPerKg
-	case "m^3":
-		return book.UnitCubicMetre
-	case "s":
-		return book.UnitSecond
+// materialsUsed names the materials of the objects.
+func materialsUsed(objs []assess.ObjectResult) map[string]bool {
+	used := map[string]bool{}
+	for i := range objs {
+		if m := objs[i].Material; m != nil {
+			used[m.Name] = true
+		}
+	}
+	return used
+}
+
+// verifyRows lists the values of the audit to verify before relying on them;
+// used names the materials its objects used (materialsUsed).
+func verifyRows(a *assess.Audit, used map[string]bool) []verifyRow {
+	var out []verifyRow
+	for _, s := range model.LimitTable() {
+		if !s.FromMemory {
+			continue
+		}
+		over := ""
+		if s.SiteItem != "" {
+			over = "Site sheet item \"" + s.SiteItem + "\""
+		}
+		out = append(out, verifyRow{what: "limit", key: s.Key, name: s.Label, value: s.Value(a.Options.Limits), unit: displayUnit(s.Display),
+			unitSI: s.Unit, override: over, source: s.Source()})
+	}
+	if a.Survey == nil {
+		return out
+	}
+	listed := map[string]bool{}
+	for _, m := range a.Survey.Materials {
+		if used[m.Name] && m.BuiltIn && m.FromMemory && !listed[m.Name] {
+			listed[m.Name] = true
+			out = append(out, verifyRow{what: "material", key: m.Name, name: "Built-in material " + m.Name + " (class, resistivities, humidity slope)",
+				override: "a Materials sheet row of the same name", source: m.Source})
+		}
+	}
+	seen := map[string]bool{}
+	for _, at := range a.Survey.Atmospheres {
+		if !at.MIEFromSubstance && !at.GroupFromSubstance || seen[at.Substance] {
+			continue
+		}
+		sub, ok := inventory.LookupSubstance(at.Substance)
+		if !ok || !sub.FromMemory {
+			continue
+		}
+		seen[at.Substance] = true
+		out = append(out, verifyRow{what: "substance", key: sub.Name, name: "Built-in substance " + sub.Name + ": MIE (group " + sub.Group + ")",
+			value: sub.MIE, unit: book.UnitMJ, unitSI: "J", override: "the MIE and Group columns of the Atmospheres sheet", source: sub.Source})
+	}
+	return out
+}
+
+// displayUnits are the units the limit table shows limits in.
+var displayUnits = []book.Unit{book.UnitDimless, book.UnitVolt, book.UnitMJ, book.UnitUCPerM2, book.UnitKVPerM, book.UnitNC,
+	book.UnitUA, book.UnitOhm, book.UnitOhmM, book.UnitSecond, book.UnitMillimetre, book.UnitCM2, book.UnitMPerS,
+	book.UnitUCPerKg, book.UnitPSPerM, book.UnitM2PerS, book.UnitCubicMetre, book.UnitPF}
+
+// displayUnit is the audit unit of a limit table row's display unit (its label).
+func displayUnit(label string) book.Unit {
+	for _, u := range displayUnits {
+		if u.Label() == label {
+			return u
+		}
 	}
 	return book.UnitDimless
-}
-
-// limitLabel names a limit in words; an unknown field keeps its name.
-func limitLabel(name string) string {
-	field, group, indexed := strings.Cut(strings.TrimSuffix(name, "]"), "[")
-	labels := map[string]string{
-		"BrushChargeDensity":      "Brush discharge: charge-density screen",
-		"BrushEnergy":             "Brush discharge: equivalent energy",
-		"BrushArea":               "Brush discharge: area one discharge drains",
-		"TransferredCharge":       "Transferred charge, EPL Gb/Gc (zones 1, 2)",
-		"ZoneZeroChargeFactor":    "Zone 0 factor on the transferred charge",
-		"AreaGa":                  "Insulating area, EPL Ga (zone 0)",
-		"AreaGb":                  "Insulating area, EPL Gb/Gc (zones 1, 2)",
-		"PropagatingDensity":      "Propagating brush: charge density it needs",
-		"PropagatingBreakdown":    "Propagating brush: layer breakdown below which it is prevented",
-		"PropagatingThickness":    "Propagating brush: thickness above which it is not expected",
-		"PropagatingMaxEnergy":    "Propagating brush: upper bound of the energy",
-		"ConductorEarthing":       "Conductor resistance to earth",
-		"PersonEarthing":          "Person-to-earth resistance",
-		"PersonEarthingMIE":       "Person-to-earth limit applies at MIE up to",
-		"ShockEnergy":             "Shock energy to people",
-		"SafePotential":           "Safe conductor potential",
-		"SparkMinPotential":       "Spark minimum potential (Paschen)",
-		"AirBreakdown":            "Air breakdown field",
-		"NotEarthed":              "Resistance shown when not measured (the potential is computed with no leakage)",
-		"PersonMaxPotential":      "Cap on an estimated body potential",
-		"LowConductivity":         "Liquid: low conductivity at or below",
-		"HighConductivity":        "Liquid: high conductivity above",
-		"VDKappa":                 "Liquid filling: conductivity bound of the v·d limits",
-		"SlowStartVelocity":       "Liquid filling: velocity until the inlet is submerged",
-		"BagCToTab":               "Bag type C: any point to the earthing tab",
-		"BagTabToEarth":           "Bag type C: tab to plant earth",
-		"BagMinMIE":               "Bags C and D: lowest MIE of their qualification",
-		"BagMaxCurrent":           "Bags C and D: charging current of their qualification",
-		"MaxChargingCurrent":      "Largest charging current taken when none is known",
-		"DissipativeSurface":      "Surface resistance counted as dissipative",
-		"DissipativeEarthing":     "Earthing of a dissipative surface",
-		"ConeResistivity":         "Cone discharge: bulk resistivity needed",
-		"ConeChargeToMass":        "Cone discharge: charge-to-mass needed",
-		"ConeField":               "Cone discharge: heap field below which none is expected",
-		"ConeMinVolume":           "Cone discharge: container volume below which none is expected",
-		"BagDustLow":              "Bags: MIE band boundary (low)",
-		"BagDustHigh":             "Bags: MIE band boundary (high)",
-		"ConductorMaxPotential":   "Cap on an unmeasured conductor potential",
-		"SmallPartCapacitance":    "Small metal part exempt from earthing below",
-		"SmallPartCapacitanceIIC": "Small metal part exempt from earthing below (IIC, zone 0)",
-		"DustBrushMIE":            "Dust screened for brush discharges below MIE",
-
-		"VesselVDLow":             "Liquid filling: v·d limit at or below the conductivity bound, or unknown",
-		"VesselVDHigh":            "Liquid filling: v·d limit above the conductivity bound (low-conductivity liquids)",
-		"VesselMaxVelocity":       "Liquid filling: velocity ceiling",
-		"LargeTankDiameter":       "Liquid filling: fixed tank diameter with no v·d limit",
-		"SecondPhaseVelocity":     "Liquid filling: velocity ceiling with a second phase",
-		"SecondPhaseConductivity": "Liquid: with a second phase, low conductivity below",
-		"FilterResidenceFactor":   "Liquid: relaxation times of residence after a fine filter",
-		"FilterResidenceMax":      "Liquid: residence after a fine filter that always suffices",
-		"FilterChargeFactor":      "Liquid: streaming current factor after a fine filter",
-		"StrainerChargeFactor":    "Liquid: streaming current factor after a strainer",
-		"SecondPhaseChargeFactor": "Liquid: streaming current factor with a second phase",
-
-		"EarthingContradictionFactor": "Measured potential above this many times the earthing bound I R: a contradiction",
-		"SparkSurface":                "Surface resistance below which an unearthed surface sparks as a conductor",
-		"CoronaEnergy":                "Corona: equivalent energy bound (counted only against an MIE below it)",
-		"CoatingThickness":            "Coating on earthed metal exempt from the area limit up to (with breakdown at most 4 kV)",
-		"CoatingThicknessIIC":         "Coating on earthed metal exempt from the area limit up to, IIC (with breakdown at most 4 kV)",
-	}
-	l, ok := labels[field]
-	if !ok {
-		l = field
-	}
-	if field == "TransferredCharge" && strings.HasPrefix(group, "III") {
-		l = "Transferred charge, dust (against propagating brush discharges)"
-	}
-	if indexed {
-		if group == "other" {
-			group = "no group, dusts"
-		}
-		l += ", " + group
-	}
-	return l
 }
 
 // limitValue returns the display cell of a limit: empty when the limit is not
@@ -332,7 +257,7 @@ func (wb *workbook) method() error {
 		src  string
 	}{
 		{"Vacuum permittivity ε0", 8.8541878128e-12, "F/m", "0.0000000000E+00", "CODATA 2018"},
-		{"Air breakdown field (cm gaps)", breakdown / 1e3, "kV/m", "0", "AMS Glossary (about 3 MV/m); the value applied"},
+		{"Air breakdown field (cm gaps)", breakdown / 1e3, "kV/m", "0", "AMS Glossary of Meteorology (about 3 MV/m); the value applied"},
 		{"Breakdown-limited charge density, one side", 8.8541878128e-12 * breakdown / 1e-6, "µC/m²", "0.00", "derived: ε0 × air breakdown field; CCPS glossary 2.65e-5 C/m²"},
 		{"Paschen minimum in air", paschen, "V", "0", "Paschen's law; about 327 V, no gap breaks down below about 300 V"},
 		{"Corona onset, smooth cylinder r = 1 mm", 5860, "kV/m", "0", "Peek 1929: 30 δ m (1 + 0.301/√(δ r)) kV/cm, 58.6 kV/cm"},
@@ -371,7 +296,28 @@ func (wb *workbook) method() error {
 	}
 	r++
 
-	if err := section("Defaults applied", []string{"Quantity", "Value", "Provenance", "", "Why and from where"}); err != nil {
+	if err := section("Verify before relying on these", []string{"Value", "Value applied", "Unit", "How to override it", "Source: recalled, not confirmed against the text"}); err != nil {
+		return err
+	}
+	for _, v := range verifyRows(a, materialsUsed(a.Objects)) {
+		unit := v.unit.Label()
+		if unit == "" {
+			unit = "–"
+		}
+		val := book.Cell{}
+		if v.value != 0 && !math.IsNaN(v.value) {
+			val = leftAligned(book.Quantity(v.unit, v.value))
+		}
+		if v.what == "material" {
+			unit = ""
+		}
+		if err := put(book.WrapText(v.name), val, book.Text(unit), optWrap(v.override), book.WrapText(v.source)); err != nil {
+			return err
+		}
+	}
+	r++
+
+		if err := section("Defaults applied", []string{"Quantity", "Value", "Provenance", "", "Why and from where"}); err != nil {
 		return err
 	}
 	nd := 0
@@ -450,7 +396,25 @@ func (wb *workbook) method() error {
 			return err
 		}
 	}
+	r++
+
+	if err := section("References", []string{"Key (as the sources cite it)", "Document", "Edition", "Kind", "Note"}); err != nil {
+		return err
+	}
+	for _, ref := range model.References() {
+		if err := put(book.WrapText(ref.Key), book.WrapText(ref.Title), book.OptText(ref.Edition), book.Text(ref.Kind), optWrap(ref.Note)); err != nil {
+			return err
+		}
+	}
 	return wb.printSetup(s, 1, "", "")
+}
+
+// optWrap is a wrapped text cell, empty for "".
+func optWrap(s string) book.Cell {
+	if s == "" {
+		return book.Cell{}
+	}
+	return book.WrapText(s)
 }
 
 func leftAligned(c book.Cell) book.Cell {

@@ -196,6 +196,7 @@ type JSONWriter struct {
 	enc  *json.Encoder
 	n    int
 	done bool
+	used map[string]bool // built-in materials used by the objects (the verify list)
 }
 
 // NewJSONWriter starts an audit JSON; its temporary file is made in tmpDir
@@ -221,6 +222,12 @@ func (j *JSONWriter) Add(rs []assess.ObjectResult) error {
 		} else {
 			j.buf.WriteString("\n    ")
 		}
+		if m := rs[i].Material; m != nil {
+			if j.used == nil {
+				j.used = map[string]bool{}
+			}
+			j.used[m.Name] = true
+		}
 		if err := j.enc.Encode(objectJSON(&rs[i])); err != nil {
 			return fmt.Errorf("write JSON: %w", err)
 		}
@@ -242,7 +249,7 @@ func (j *JSONWriter) Finish(a *assess.Audit, info RunInfo, out io.Writer) error 
 	enc := json.NewEncoder(&doc)
 	enc.SetIndent("", "  ")
 	enc.SetEscapeHTML(false)
-	if err := enc.Encode(jsonDoc(a, info)); err != nil {
+	if err := enc.Encode(jsonDoc(a, info, j.used)); err != nil {
 		return fmt.Errorf("write JSON: %w", err)
 	}
 	const mark = "\n  \"objects\": [],\n"

@@ -15,6 +15,7 @@ import (
 
 	"github.com/sparkmargin/sparkmargin/model"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/templates"
 	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
 )
@@ -441,6 +442,55 @@ func TestSummaryIncompleteMark(t *testing.T) {
 			t.Errorf("no station incomplete, yet a Note column: %v", rows[header])
 		case rejected > 0 && (!hasNote || len(rows[station]) <= 11 || rows[station][11] != mark):
 			t.Errorf("incomplete station row %v under header %v; want Note %q", rows[station], rows[header], mark)
+		}
+	}
+}
+
+// TestWorkbookMethodSources: the Method sheet lists the references by key
+// with their editions, and under "Verify before relying on these" the limits
+// recalled, not confirmed (the IIC zone 0 area of IEC 60079-0, 4 cm², from
+// memory), not the confirmed ones (TRGS 727 Annex D shock energy).
+func TestWorkbookMethodSources(t *testing.T) {
+	f := openWorkbook(t, testWorkbook(t))
+	section := ""
+	inVerify, refs := map[string]bool{}, map[string]string{}
+	for _, r := range rowsOf(t, f, SheetMethod) {
+		if len(r) == 0 {
+			continue
+		}
+		if len(r) == 1 {
+			section = r[0]
+			continue
+		}
+		switch section {
+		case "Verify before relying on these":
+			inVerify[r[0]] = true
+		case "References":
+			if len(r) > 2 {
+				refs[r[0]] = r[2]
+			}
+		}
+	}
+	if !inVerify["Insulating area, EPL Ga (zone 0), IIC"] || inVerify["Shock energy to people"] {
+		t.Errorf("verify list %v: want the IIC zone 0 area, not the shock energy", inVerify)
+	}
+	if refs["TRGS 727"] != "2016" || refs["IEC TS 60079-32-1"] != "2013+A1:2017" {
+		t.Errorf("references %v", refs)
+	}
+}
+
+// TestMethodFormulaSourcesCiteReferences: every formula on the Method sheet
+// names its source by a key of the References list, or is this tool's own
+// rule (its principles and verdict rule, on the same sheet) or material data
+// (the Materials used list).
+func TestMethodFormulaSourcesCiteReferences(t *testing.T) {
+	for _, m := range templates.MethodNotes() {
+		ok := strings.Contains(m.Source, "this tool") || strings.Contains(m.Source, "material data")
+		for _, r := range model.References() {
+			ok = ok || strings.Contains(m.Source, r.Key)
+		}
+		if !ok || strings.Contains(m.Source, "reference section") {
+			t.Errorf("%s: source %q cites no entry of the References list", m.Quantity, m.Source)
 		}
 	}
 }
