@@ -207,7 +207,7 @@ func TestWorkbookRejectedFindingsStations(t *testing.T) {
 		t.Errorf("Rejected: %d errors, %d warnings; want 2 and 1", errorsN, warnings)
 	}
 	fs := rowsOf(t, f, SheetFindings)
-	if got := fs[0]; strings.Join(got, "|") != "#|Severity|Station|Object|Check|Finding|Mitigation|Basis|Action owner|Due|Status" {
+	if got := fs[0]; strings.Join(got, "|") != "#|Severity|Station|Object|Check|Finding|Mitigation|Basis|Action owner|Due|Status|Comment" {
 		t.Errorf("Findings header %v", got)
 	}
 	if len(fs)-1 != len(a.Findings) {
