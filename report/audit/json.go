@@ -23,6 +23,7 @@ type jsonAudit struct {
 	Survey   jsonSurvey    `json:"survey"`
 	Workbook *jsonSurvey   `json:"workbook,omitempty"` // the audit workbook written with this JSON
 	Site     jsonSite      `json:"site"`
+	SignOff  jsonSignOff   `json:"signoff"` // the sign-off block (signoff.go)
 	Counts   jsonCounts    `json:"counts"`
 	Stations []jsonStation `json:"stations"`
 	Objects  []jsonObject  `json:"objects"`
@@ -260,6 +261,7 @@ func jsonDoc(a *assess.Audit, info RunInfo) jsonAudit {
 			RequiredMargin:      book.Finite(s.Site.RequiredMargin.OrNaN()),
 			Defaults:            s.Site.DefaultTexts(),
 		},
+		SignOff: signoffJSON(s.Site.SignOff),
 		Counts: jsonCounts{
 			Objects:  verdictCounts(a.Counts),
 			Findings: len(a.Findings),
