@@ -2,6 +2,7 @@ package report
 
 import (
 	"bytes"
+	"fmt"
 	"os"
 	"path/filepath"
 	"strconv"
@@ -156,6 +157,14 @@ func TestActionsSurviveRerun(t *testing.T) {
 	g.Close()
 	if raw != "46142" || shown != "2026-04-30" {
 		t.Errorf("due date carried as raw %q shown %q, want 46142 shown 2026-04-30", raw, shown)
+	}
+
+	// The condensed report shows the actions beside their findings.
+	g, _ = excelize.OpenFile(book)
+	rep, _ := g.GetRows(audit.SheetReport)
+	g.Close()
+	if flat := fmt.Sprint(rep); !strings.Contains(flat, "J. Okafor (maintenance) · 2026-04-30 · open · earth bond ordered") || !strings.Contains(flat, "EHS · 2026-04-30 · in progress") {
+		t.Errorf("the Report sheet does not show the carried actions")
 	}
 
 	// Remove the first finding's object from the survey: its findings close.

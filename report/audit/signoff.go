@@ -116,6 +116,7 @@ func (wb *workbook) signoff(sheet string, r int, sp signoffSpans) (int, error) {
 		}
 		r++
 	}
+	r++
 	if err := put(r, 1, last, signoffNote, wb.st.Of(book.WrapText(""))); err != nil {
 		return r, err
 	}

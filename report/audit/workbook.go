@@ -14,7 +14,7 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
-// Sheet names of the audit workbook, in order.
+// Sheet names of the audit workbook, in order (SheetReport, first, is in report_sheet.go).
 const (
 	SheetSummary  = "Summary"
 	SheetStations = "Stations"
@@ -27,7 +27,7 @@ const (
 
 // Sheets returns the audit workbook's sheet names in order.
 func Sheets() []string {
-	return []string{SheetSummary, SheetStations, SheetObjects, SheetFindings, SheetMethod, SheetCautions, SheetRejected}
+	return []string{SheetReport, SheetSummary, SheetStations, SheetObjects, SheetFindings, SheetMethod, SheetCautions, SheetRejected}
 }
 
 // RunInfo identifies the run that produced an audit, so an auditor can tie the
@@ -123,7 +123,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	st := book.NewStyles(f)
 	wb := &workbook{f: f, st: st, a: a, info: info}
 
-	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
+	if err := f.SetSheetName("Sheet1", Sheets()[0]); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	for _, s := range Sheets()[1:] {
@@ -397,6 +397,7 @@ func (wb *workbook) stations() error {
 
 func (wb *workbook) objects() error {
 	cols := objectColumns(anyProbability(wb.a))
+	fitObjectIDs(cols, wb.a.Objects)
 	pagesWide := (len(cols) + 13) / 14 // about 14 columns a landscape page stays readable
 	return tableSheetStream(wb, SheetObjects, cols, len(wb.a.Objects),
 		func(i int) objRow { return &wb.a.Objects[i] }, pagesWide, "$A:$A", 1)
@@ -568,6 +569,7 @@ func (wb *workbook) writeSheets(withObjects bool) error {
 		step{SheetCautions, wb.cautions},
 		step{SheetRejected, wb.rejected},
 		step{SheetSummary, wb.summary},
+		step{SheetReport, wb.report},
 	)
 	for _, s := range steps {
 		if err := s.fn(); err != nil {
