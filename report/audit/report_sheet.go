@@ -336,10 +336,6 @@ func (wb *workbook) report() error {
 		r++
 	}
 	r++
-	// The sign-off starts a page of its own, so that the block is never cut in two.
-	if err := f.InsertPageBreak(s, fmt.Sprintf("A%d", r)); err != nil {
-		return err
-	}
 	last, err := wb.signoff(s, r, signoffSpans{{1, 2}, {3, 4}, {5, 5}, {6, 6}})
 	if err != nil {
 		return err
@@ -347,14 +343,23 @@ func (wb *workbook) report() error {
 	return wb.reportPrintSetup(last - 1)
 }
 
-// reportHeight is the height of a Report row: as book.RowHeight, a tenth of
-// each column kept spare (a printed line holds a little less than the width says).
+// reportHeight is the height of a Report row: every line of its wrapped
+// cells, without the cap of the table sheets (book.MaxLines), since the
+// Report is read on paper where a cut text is lost.
 func reportHeight(cells []book.Cell) float64 {
 	w := reportWidths()
-	for i := range w {
-		w[i] *= 0.9
+	lines := 1
+	for i, c := range cells {
+		t, ok := c.V.(string)
+		if !ok || !c.Wrap || i >= len(w) {
+			continue
+		}
+		lines = max(lines, book.WrappedLines(t, w[i]*0.95))
 	}
-	return book.RowHeight(w, cells)
+	if lines == 1 {
+		return 0
+	}
+	return book.LineHeight*float64(lines) + 4
 }
 
 // reportPrintSetup prints the Report in portrait A4, one page wide, with the

@@ -70,6 +70,10 @@ func (wb *workbook) signoff(sheet string, r int, sp signoffSpans) (int, error) {
 		return f.SetCellStyle(sheet, from, to, st)
 	}
 	last := sp[3][1]
+	// The block starts a printed page of its own, so that it is never cut in two.
+	if err := f.InsertPageBreak(sheet, cell(1, r)); err != nil {
+		return r, err
+	}
 	ref := cell(1, r)
 	if err := f.SetCellValue(sheet, ref, "Sign-off"); err != nil {
 		return r, err
