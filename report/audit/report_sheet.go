@@ -198,7 +198,7 @@ func (wb *workbook) report() error {
 		return err
 	}
 	r++
-	if err := span(r, templates.CautionLine, wb.st.Caution(), wrappedHeight(templates.CautionLine, total)+4); err != nil {
+	if err := span(r, templates.CautionLine, wb.st.Caution(), rowCap(wrappedHeight(templates.CautionLine, total)+4)); err != nil {
 		return err
 	}
 	r += 2
@@ -242,7 +242,7 @@ func (wb *workbook) report() error {
 		if err := sink.Row(r, []book.Cell{book.BoldText(kv[0]), {}, book.WrapText(kv[1])}, 0); err != nil {
 			return err
 		}
-		if err := f.SetRowHeight(s, r, wrappedHeight(kv[1], total-widths[0]-widths[1])); err != nil {
+		if err := f.SetRowHeight(s, r, rowCap(wrappedHeight(kv[1], total-widths[0]-widths[1]))); err != nil {
 			return err
 		}
 		r++
@@ -317,7 +317,7 @@ func (wb *workbook) report() error {
 	if pl := wb.actions; pl != nil && len(pl.ClosedSince) > 0 {
 		t := fmt.Sprintf("%d finding(s) of the previous audit closed since (%d with an action): listed at the foot of the Findings sheet; check that each closed because the hazard was removed.",
 			len(pl.ClosedSince), pl.Counts.ClosedActions)
-		if err := span(r, t, wb.st.Of(book.WrapText("")), wrappedHeight(t, total)); err != nil {
+		if err := span(r, t, wb.st.Of(book.WrapText("")), rowCap(wrappedHeight(t, total))); err != nil {
 			return err
 		}
 		r++
@@ -330,7 +330,7 @@ func (wb *workbook) report() error {
 	}
 	for i, c := range templates.Cautions() {
 		t := fmt.Sprintf("%d. %s", i+1, c)
-		if err := span(r, t, wb.st.Of(book.WrapText("")), wrappedHeight(t, total)); err != nil {
+		if err := span(r, t, wb.st.Of(book.WrapText("")), rowCap(wrappedHeight(t, total))); err != nil {
 			return err
 		}
 		r++
@@ -359,8 +359,15 @@ func reportHeight(cells []book.Cell) float64 {
 	if lines == 1 {
 		return 0
 	}
-	return book.LineHeight*float64(lines) + 4
+	return rowCap(book.LineHeight*float64(lines) + 4)
 }
+
+// maxRowHeight is the tallest row a spreadsheet takes, in points.
+const maxRowHeight = 409
+
+// rowCap keeps a row height within what a spreadsheet takes (a longer text
+// is still all in its cell).
+func rowCap(h float64) float64 { return min(h, maxRowHeight) }
 
 // reportPrintSetup prints the Report in portrait A4, one page wide, with the
 // title row repeated and the print area over the whole report.

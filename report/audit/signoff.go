@@ -89,7 +89,7 @@ func (wb *workbook) signoff(sheet string, r int, sp signoffSpans) (int, error) {
 		if err := put(r, sp[1][0], last, kv[1], line); err != nil {
 			return r, err
 		}
-		if err := f.SetRowHeight(sheet, r, wrappedHeight(kv[1], colsWidth(f, sheet, sp[1][0], last))+6); err != nil {
+		if err := f.SetRowHeight(sheet, r, rowCap(wrappedHeight(kv[1], colsWidth(f, sheet, sp[1][0], last))+6)); err != nil {
 			return r, err
 		}
 		r++
@@ -124,7 +124,7 @@ func (wb *workbook) signoff(sheet string, r int, sp signoffSpans) (int, error) {
 	if err := put(r, 1, last, signoffNote, wb.st.Of(book.WrapText(""))); err != nil {
 		return r, err
 	}
-	if err := f.SetRowHeight(sheet, r, wrappedHeight(signoffNote, colsWidth(f, sheet, 1, last))); err != nil {
+	if err := f.SetRowHeight(sheet, r, rowCap(wrappedHeight(signoffNote, colsWidth(f, sheet, 1, last)))); err != nil {
 		return r, err
 	}
 	return r + 1, nil
