@@ -49,6 +49,16 @@ func (wb *workbook) signoff(sheet string, r int, sp signoffSpans) (int, error) {
 	if err != nil {
 		return r, err
 	}
+	// Signature and date fields also ruled on their left, so that the three
+	// lines of a row read as three fields, not one.
+	field, err := f.NewStyle(&excelize.Style{
+		Border:    []excelize.Border{{Type: "bottom", Color: "000000", Style: 1}, {Type: "left", Color: "000000", Style: 1}},
+		Alignment: &excelize.Alignment{Vertical: "bottom", WrapText: true, Indent: 1},
+		Font:      &excelize.Font{Size: 10, Family: "Liberation Sans"},
+	})
+	if err != nil {
+		return r, err
+	}
 	label, err := f.NewStyle(&excelize.Style{Font: &excelize.Font{Bold: true, Size: 10, Family: "Liberation Sans"}, Alignment: &excelize.Alignment{Vertical: "bottom"}})
 	if err != nil {
 		return r, err
@@ -108,8 +118,11 @@ func (wb *workbook) signoff(sheet string, r int, sp signoffSpans) (int, error) {
 		}
 		for i, v := range []string{ro.role, ro.name, "", date} {
 			st := line
-			if i == 0 {
+			switch i {
+			case 0:
 				st = label
+			case 2, 3:
+				st = field
 			}
 			if err := put(r, sp[i][0], sp[i][1], v, st); err != nil {
 				return r, err
