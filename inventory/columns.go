@@ -99,6 +99,16 @@ var siteItems = []Column{
 	{Name: "Relative humidity", Unit: "%", Dim: Percent, Hint: "Ambient RH during the readings, 0-100 (required)"},
 	{Name: "Air temperature", Unit: "°C", Dim: Temperature, Hint: "For air density in the corona-onset cap; default 20 °C"},
 	{Name: "Required margin", Dim: Dimensionless, Hint: "Energy must stay below MIE / margin to count as non-incendive; default 10 (a site choice)"},
+	// The sign-off block of the audit (its Summary and Report sheets); each is
+	// optional: a blank item leaves a line to sign by hand.
+	{Name: SiteItemPreparedBy, Dim: Text, Hint: "Who prepared the assessment (optional; printed in the audit's sign-off block, else a blank line to sign)"},
+	{Name: SiteItemPreparedOn, Dim: Date, Hint: "Date prepared, e.g. 2026-03-20 (optional)"},
+	{Name: SiteItemReviewedBy, Dim: Text, Hint: "Who reviewed it (optional; else a blank line to sign)"},
+	{Name: SiteItemReviewedOn, Dim: Date, Hint: "Date reviewed (optional)"},
+	{Name: SiteItemApprovedBy, Dim: Text, Hint: "Who approved it (optional; else a blank line to sign)"},
+	{Name: SiteItemApprovedOn, Dim: Date, Hint: "Date approved (optional)"},
+	{Name: SiteItemRevision, Dim: Text, Hint: "Revision of the assessment, e.g. A or 2 (optional)"},
+	{Name: SiteItemScope, Dim: Text, Hint: "What the assessment covers, e.g. line C2, coating to rewind (optional)"},
 }
 
 // SiteItems returns the items of the Site sheet.

@@ -230,6 +230,9 @@ func demoSite() [][]any {
 		"Relative humidity": 35.0,                                               // invented for the demo: dry winter day
 		"Air temperature":   21.0,                                               // invented for the demo
 		"Required margin":   10.0,                                               // invented for the demo (the usual site choice)
+		// Sign-off: revision and scope given, names and dates left to sign by hand.
+		SiteItemRevision: "A (first issue)",                                                        // invented for the demo
+		SiteItemScope:    "Line C2: mixing, coating, drying, rewind, drum filling and loading bay", // invented for the demo
 	}
 	rows := [][]any{{"Item", "Value"}}
 	for _, it := range items {

@@ -66,7 +66,30 @@ type Site struct {
 	Uncertainties []SiteUncertainty
 	// Defaults lists the site values that were defaulted, for the Method sheet.
 	Defaults []SiteDefault
+	// SignOff is the sign-off block as the Site sheet gives it (all optional).
+	SignOff SignOff
 }
+
+// SignOff is who prepared, reviewed and approved the assessment, when, its
+// revision and its scope, from the Site sheet's optional items of those
+// names; an empty field is a line left to fill in by hand.
+type SignOff struct {
+	PreparedBy, ReviewedBy, ApprovedBy string
+	PreparedOn, ReviewedOn, ApprovedOn time.Time // UTC midnight; zero when not given
+	Revision, Scope                    string
+}
+
+// Names of the Site sheet's sign-off items (SiteItems).
+const (
+	SiteItemPreparedBy = "Prepared by"
+	SiteItemPreparedOn = "Prepared on"
+	SiteItemReviewedBy = "Reviewed by"
+	SiteItemReviewedOn = "Reviewed on"
+	SiteItemApprovedBy = "Approved by"
+	SiteItemApprovedOn = "Approved on"
+	SiteItemRevision   = "Revision"
+	SiteItemScope      = "Scope"
+)
 
 // Site items that the reader may default (SiteDefault.Item).
 const (

@@ -64,6 +64,16 @@ func (v *validator) applySite(ss *siteSheet) {
 				site.ID = r.Value
 			case "Surveyed by":
 				site.SurveyedBy = r.Value
+			case SiteItemPreparedBy:
+				site.SignOff.PreparedBy = r.Value
+			case SiteItemReviewedBy:
+				site.SignOff.ReviewedBy = r.Value
+			case SiteItemApprovedBy:
+				site.SignOff.ApprovedBy = r.Value
+			case SiteItemRevision:
+				site.SignOff.Revision = r.Value
+			case SiteItemScope:
+				site.SignOff.Scope = r.Value
 			}
 		case Date:
 			if r.Value == "" {
@@ -74,7 +84,16 @@ func (v *validator) applySite(ss *siteSheet) {
 				add(Error, err, fmt.Sprintf("%q is not a date", short(r.Value, 60)), "write the date as 2026-03-14, or enter it as a spreadsheet date")
 				continue
 			}
-			site.SurveyDate = d
+			switch name {
+			case SiteItemPreparedOn:
+				site.SignOff.PreparedOn = d
+			case SiteItemReviewedOn:
+				site.SignOff.ReviewedOn = d
+			case SiteItemApprovedOn:
+				site.SignOff.ApprovedOn = d
+			default:
+				site.SurveyDate = d
+			}
 		default:
 			p, err := ParseQuantity(r.Value, r.Match.Unit, r.Match.Column.Dim)
 			if err != nil {
@@ -166,6 +185,8 @@ func siteExample(name string) string {
 		return "20"
 	case "Required margin":
 		return "10"
+	case SiteItemPreparedOn, SiteItemReviewedOn, SiteItemApprovedOn:
+		return "2026-03-20"
 	}
 	return "a value"
 }

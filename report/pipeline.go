@@ -37,6 +37,10 @@ type Run struct {
 	ErrOut      io.Writer
 	Progress    Progress
 	Summary     audit.SummaryOptions // trims the terminal summary (--top, --quiet)
+	// Force writes an audit over a file that is not a sparkmargin audit
+	// (refused otherwise: see previousAudit in actions.go).
+	Force bool
+	plans map[string]*audit.ActionPlan // the actions carried, by audit workbook written
 }
 
 // Info returns the run facts the outputs record for survey s.
@@ -155,6 +159,10 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	if err != nil {
 		return nil, unusable(err)
 	}
+	prev, err := r.previousAudit(out.Workbook, tmp)
+	if err != nil {
+		return nil, err
+	}
 	opts := inventory.ReadOptions{TmpDir: tmp, CountObjectRows: r.Progress != nil}
 	s, err := inventory.StreamFile(path, opts, func(s *inventory.Survey) error {
 		r.total(s.DeclaredObjectRows)
@@ -192,6 +200,8 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	}
 	a = st.Finish()
 	a.Survey = s
+	plan := audit.PlanActions(prev, a.Findings)
+	ww.SetActions(plan)
 	// The workbook and the JSON are each written whole, then renamed into
 	// place together; the JSON records the workbook's name and SHA-256, so
 	// that a pair one of whose renames a kill prevented is told apart.
@@ -221,6 +231,7 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	if err := r.Workspace.Commit(pw, pj, ph); err != nil {
 		return nil, unusable(fmt.Errorf("writing the audit: %w", err))
 	}
+	r.notePlan(out.Workbook, plan)
 	return a, nil
 }
 
@@ -299,6 +310,7 @@ func (r *Run) printAudit(a *assess.Audit, out Outputs) {
 	w := r.out()
 	audit.WriteSummaryWith(w, a, r.Summary)
 	fmt.Fprintf(w, "\nAudit workbook: %s\n", out.Workbook)
+	r.printActions(out.Workbook)
 	if out.JSON != "" {
 		fmt.Fprintf(w, "Audit JSON:     %s\n", outfile.ShownPath(out.JSON))
 	}

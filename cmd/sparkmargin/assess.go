@@ -28,6 +28,7 @@ type assessOptions struct {
 	workers       int
 	top           int      // print only the top worst stations
 	quiet         bool     // no station table
+	force         bool     // write the audit over a file that is not a sparkmargin audit
 	args          []string // the command line, for the Method sheet
 }
 
@@ -46,7 +47,11 @@ func newAssessCmd(ws *outfile.Workspace) *cobra.Command {
 			"Exit status: 0 assessed, 1 nothing could be assessed or an Objects row was rejected (the audit is\n" +
 			"written, its stations marked incomplete; with --strict, any row rejected), 2 usage or unreadable\n" +
 			"input; with several surveys the worst\n" +
-			"of them, every survey being tried.",
+			"of them, every survey being tried.\n" +
+			"Rerun over an existing audit: the actions typed into its Findings sheet (Action owner, Due, Status,\n" +
+			"Comment) are carried to the same findings (station, object, check) of the new audit, findings that\n" +
+			"closed are listed at the foot of the Findings sheet, and the terminal says how many; a file there\n" +
+			"that is not a sparkmargin audit is not written over without --force.",
 		Args: cobra.MinimumNArgs(1),
 		RunE: func(c *cobra.Command, args []string) error {
 			if len(args) == 1 {
@@ -69,6 +74,7 @@ func newAssessCmd(ws *outfile.Workspace) *cobra.Command {
 	c.Flags().IntVar(&o.workers, "workers", 0, "Monte Carlo worker goroutines (0: all cores); results do not depend on it")
 	c.Flags().IntVar(&o.top, "top", 0, "print only the N worst stations, then how many more the workbook holds (0: all)")
 	c.Flags().BoolVarP(&o.quiet, "quiet", "q", false, "no station table: only the counts, the cautions and the files written (errors still printed)")
+	c.Flags().BoolVar(&o.force, "force", false, "write the audit workbook over an existing file that is not a sparkmargin audit (refused otherwise); an existing audit is always replaced, its actions carried over")
 	return c
 }
 
@@ -104,7 +110,7 @@ func runAssess(out, errOut io.Writer, o assessOptions) error {
 	r := &report.Run{
 		Workspace: o.ws, Samples: o.samples, Seed: o.seed, Workers: o.workers, Strict: o.strict,
 		ToolVersion: version, CommandLine: o.args, Out: out, ErrOut: errOut, Progress: progressFor(errOut),
-		Summary: audit.SummaryOptions{Top: o.top, Quiet: o.quiet},
+		Summary: audit.SummaryOptions{Top: o.top, Quiet: o.quiet}, Force: o.force,
 	}
 	pf := report.PortfolioFiles{Workbook: o.portfolio, JSON: o.portfolioJSON}
 	if o.survey == "" {

@@ -82,7 +82,8 @@ func TestInterruptedAssess(t *testing.T) {
 	env := append(os.Environ(), "TMPDIR="+tmp)
 	start := func() (*exec.Cmd, *bytes.Buffer) {
 		var errOut bytes.Buffer
-		c := exec.Command(sm, "assess", survey, "-o", audit, "--json", doc)
+		// --force: the "previous audit" here is a stand-in, not an audit.
+		c := exec.Command(sm, "assess", survey, "-o", audit, "--json", doc, "--force")
 		c.Env, c.Stderr = env, &errOut
 		if err := c.Start(); err != nil {
 			t.Fatal(err)

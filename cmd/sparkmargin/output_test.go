@@ -92,7 +92,8 @@ func TestAssessCleansStaleTemps(t *testing.T) {
 	if err := os.WriteFile(audit, []byte("previous"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	if code, _, errOut := runCLI(t, "assess", survey, "-o", audit, "--json", filepath.Join(dir, "audit.json")); code != exitOK {
+	// --force: "previous" stands in for an audit without being one.
+	if code, _, errOut := runCLI(t, "assess", survey, "-o", audit, "--json", filepath.Join(dir, "audit.json"), "--force"); code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
 	for _, p := range stale {

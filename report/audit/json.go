@@ -23,6 +23,7 @@ type jsonAudit struct {
 	Survey   jsonSurvey    `json:"survey"`
 	Workbook *jsonSurvey   `json:"workbook,omitempty"` // the audit workbook written with this JSON
 	Site     jsonSite      `json:"site"`
+	SignOff  jsonSignOff   `json:"signoff"` // the sign-off block (signoff.go)
 	Counts   jsonCounts    `json:"counts"`
 	Stations []jsonStation `json:"stations"`
 	Objects  []jsonObject  `json:"objects"`
@@ -341,6 +342,7 @@ func jsonDoc(a *assess.Audit, info RunInfo, used map[string]bool) jsonAudit {
 			Defaults:            s.Site.DefaultTexts(),
 			Provenance:          map[string]string{},
 		},
+		SignOff: signoffJSON(s.Site.SignOff),
 		Counts: jsonCounts{
 			Objects:  verdictCounts(a.Counts),
 			Findings: len(a.Findings),

@@ -317,7 +317,7 @@ func (wb *workbook) method() error {
 	}
 	r++
 
-		if err := section("Defaults applied", []string{"Quantity", "Value", "Provenance", "", "Why and from where"}); err != nil {
+	if err := section("Defaults applied", []string{"Quantity", "Value", "Provenance", "", "Why and from where"}); err != nil {
 		return err
 	}
 	nd := 0

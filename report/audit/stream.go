@@ -54,7 +54,7 @@ func NewWorkbookWriter(s *inventory.Survey, info RunInfo, sampled bool, tmpDir s
 	f := excelize.NewFile(excelize.Options{TmpDir: tmp})
 	w := &WorkbookWriter{tmp: tmp, sampled: sampled, matSeen: map[string]bool{}}
 	w.wb = &workbook{f: f, st: book.NewStyles(f), a: &assess.Audit{Survey: s}, info: info}
-	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
+	if err := f.SetSheetName("Sheet1", Sheets()[0]); err != nil {
 		w.Close()
 		return nil, fmt.Errorf("write workbook: %w", err)
 	}
@@ -68,8 +68,9 @@ func NewWorkbookWriter(s *inventory.Survey, info RunInfo, sampled bool, tmpDir s
 }
 
 // open starts the Objects sheet; its autofilter range is set again by Finish.
-func (w *WorkbookWriter) open(withProbability bool) error {
+func (w *WorkbookWriter) open(withProbability bool, first []assess.ObjectResult) error {
 	w.cols = objectColumns(withProbability)
+	fitObjectIDs(w.cols, first)
 	pagesWide := (len(w.cols) + 13) / 14
 	ts, err := openTableStream(w.wb, SheetObjects, w.cols, 1, pagesWide, "$A:$A", 1)
 	if err != nil {
@@ -84,7 +85,7 @@ func (w *WorkbookWriter) Add(rs []assess.ObjectResult) error {
 	for i := range rs {
 		r := &rs[i]
 		if w.objects == nil {
-			if err := w.open(w.sampled); err != nil {
+			if err := w.open(w.sampled, rs); err != nil {
 				return err
 			}
 		}
@@ -128,7 +129,7 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	}
 	wb.a = &stand
 	if w.objects == nil {
-		if err := w.open(false); err != nil {
+		if err := w.open(false, nil); err != nil {
 			return err
 		}
 	}
@@ -144,7 +145,7 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if wb.st.Err() != nil {
 		return fmt.Errorf("write workbook: %w", wb.st.Err())
 	}
-	// No SetActiveSheet: the Summary (the new file's first sheet, renamed) is
+	// No SetActiveSheet: the Report (the new file's first sheet, renamed) is
 	// already the active one, and SetActiveSheet would load every sheet,
 	// the whole streamed Objects sheet among them, back into memory.
 	info := wb.info

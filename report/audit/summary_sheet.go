@@ -245,6 +245,9 @@ func (wb *workbook) summary() error {
 		}
 		r++
 	}
+	if _, err := wb.signoff(s, r+1, summarySignoff); err != nil {
+		return err
+	}
 	return wb.printSetup(s, 1, "", "")
 }
 

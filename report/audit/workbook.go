@@ -14,7 +14,7 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
-// Sheet names of the audit workbook, in order.
+// Sheet names of the audit workbook, in order (SheetReport, first, is in report_sheet.go).
 const (
 	SheetSummary  = "Summary"
 	SheetStations = "Stations"
@@ -27,7 +27,7 @@ const (
 
 // Sheets returns the audit workbook's sheet names in order.
 func Sheets() []string {
-	return []string{SheetSummary, SheetStations, SheetObjects, SheetFindings, SheetMethod, SheetCautions, SheetRejected}
+	return []string{SheetReport, SheetSummary, SheetStations, SheetObjects, SheetFindings, SheetMethod, SheetCautions, SheetRejected}
 }
 
 // RunInfo identifies the run that produced an audit, so an auditor can tie the
@@ -123,7 +123,7 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	st := book.NewStyles(f)
 	wb := &workbook{f: f, st: st, a: a, info: info}
 
-	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
+	if err := f.SetSheetName("Sheet1", Sheets()[0]); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	for _, s := range Sheets()[1:] {
@@ -160,6 +160,8 @@ type workbook struct {
 	heading string
 	// methodNotes are extra sections of the Method sheet (a Book's); none in the audit.
 	methodNotes []MethodNotes
+	// actions are the site's actions carried from the previous audit (nil: a first run).
+	actions *ActionPlan
 }
 
 // footerEscape doubles '&', the header/footer control character.
@@ -442,6 +444,7 @@ func (wb *workbook) stations() error {
 
 func (wb *workbook) objects() error {
 	cols := objectColumns(anyProbability(wb.a))
+	fitObjectIDs(cols, wb.a.Objects)
 	pagesWide := (len(cols) + 13) / 14 // about 14 columns a landscape page stays readable
 	return tableSheetStream(wb, SheetObjects, cols, len(wb.a.Objects),
 		func(i int) objRow { return &wb.a.Objects[i] }, pagesWide, "$A:$A", 1)
@@ -450,29 +453,57 @@ func (wb *workbook) objects() error {
 // ---- Findings ----
 
 type findingRow struct {
-	n int
-	f *assess.Finding
+	n   int // the finding's number; 0 for a closed finding
+	f   *assess.Finding
+	act Action // what the site typed (carried from the previous audit)
 }
 
-func findingColumns() []book.Column[findingRow] {
+// findingColumns are the Findings sheet's columns; the Station and Object
+// columns are as wide as the longest ID of fs (and of the closed findings).
+// The last four are the site's: blank in a first run, carried over by a rerun.
+func findingColumns(fs ...[]assess.Finding) []book.Column[findingRow] {
+	var st, ob []string
+	for _, l := range fs {
+		for i := range l {
+			st, ob = append(st, l[i].StationID), append(ob, l[i].ObjectID)
+		}
+	}
 	return []book.Column[findingRow]{
-		{Header: "#", Width: 5, Value: func(r findingRow) book.Cell { return book.Integer(r.n) }},
-		{Header: "Severity", Width: 12, Value: func(r findingRow) book.Cell { return verdictCell(r.f.Severity) }},
-		{Header: "Station", Width: 10, Value: func(r findingRow) book.Cell { return book.Code(r.f.StationID) }},
-		{Header: "Object", Width: 12, Value: func(r findingRow) book.Cell { return book.Code(r.f.ObjectID) }},
-		{Header: "Check", Width: 18, Value: func(r findingRow) book.Cell { return book.Text(r.f.Check) }},
-		{Header: "Finding", Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Message) }},
-		{Header: "Mitigation", Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Mitigation) }},
-		{Header: "Basis", Width: 40, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Basis) }},
-		{Header: "Action owner", Width: 14, Value: func(findingRow) book.Cell { return book.Cell{} }},
-		{Header: "Due", Width: 10, Value: func(findingRow) book.Cell { return book.Cell{} }},
-		{Header: "Status", Width: 10, Value: func(findingRow) book.Cell { return book.Cell{} }},
+		{Header: "#", Width: 5, Value: func(r findingRow) book.Cell {
+			if r.n == 0 {
+				return book.Cell{}
+			}
+			return book.Integer(r.n)
+		}},
+		{Header: hdrSeverity, Width: 12, Value: func(r findingRow) book.Cell { return verdictCell(r.f.Severity) }},
+		{Header: hdrStation, Width: fitWidth(10, st), Value: func(r findingRow) book.Cell { return book.Code(r.f.StationID) }},
+		{Header: hdrObject, Width: fitWidth(12, ob), Value: func(r findingRow) book.Cell { return book.Code(r.f.ObjectID) }},
+		{Header: hdrCheck, Width: 18, Value: func(r findingRow) book.Cell { return book.Text(r.f.Check) }},
+		{Header: hdrFinding, Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Message) }},
+		{Header: hdrMitigation, Width: 50, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Mitigation) }},
+		{Header: hdrBasis, Width: 40, Value: func(r findingRow) book.Cell { return book.WrapText(r.f.Basis) }},
+		{Header: hdrOwner, Width: 14, Value: func(r findingRow) book.Cell { return book.Cell{V: optString(r.act.Owner), Wrap: true} }},
+		{Header: hdrDue, Width: 11, Value: func(r findingRow) book.Cell { return dueCell(r.act) }},
+		{Header: hdrStatus, Width: 10, Value: func(r findingRow) book.Cell { return book.Cell{V: optString(r.act.Status), Wrap: true} }},
+		{Header: hdrComment, Width: 30, Value: func(r findingRow) book.Cell { return book.Cell{V: optString(r.act.Comment), Wrap: true} }},
 	}
 }
 
 func (wb *workbook) findings() error {
-	return tableSheetStream(wb, SheetFindings, findingColumns(), len(wb.a.Findings),
-		func(i int) findingRow { return findingRow{i + 1, &wb.a.Findings[i]} }, 1, "", 0)
+	cols := findingColumns(wb.a.Findings, wb.actions.closed())
+	ts, err := openTableStream(wb, SheetFindings, cols, len(wb.a.Findings), 1, "", 0)
+	if err != nil {
+		return err
+	}
+	for i := range wb.a.Findings {
+		if err := ts.Row(findingRow{i + 1, &wb.a.Findings[i], wb.actions.open(i)}); err != nil {
+			return err
+		}
+	}
+	if err := wb.closedFindings(ts); err != nil {
+		return err
+	}
+	return ts.sw.Flush()
 }
 
 // ---- Cautions ----
@@ -585,6 +616,7 @@ func (wb *workbook) writeSheets(withObjects bool) error {
 		step{SheetCautions, wb.cautions},
 		step{SheetRejected, wb.rejected},
 		step{SheetSummary, wb.summary},
+		step{SheetReport, wb.report},
 	)
 	for _, s := range steps {
 		if err := s.fn(); err != nil {
@@ -608,6 +640,9 @@ func setDocProps(f *excelize.File, a *assess.Audit, info RunInfo) error {
 		Description:    "Survey " + info.file(a) + ", SHA-256 " + info.sha(a),
 		Language:       "en",
 	}); err != nil {
+		return fmt.Errorf("write workbook: document properties: %w", err)
+	}
+	if err := setAuditMark(f); err != nil {
 		return fmt.Errorf("write workbook: document properties: %w", err)
 	}
 	return nil

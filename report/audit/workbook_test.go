@@ -222,7 +222,7 @@ func TestWorkbookRejectedFindingsStations(t *testing.T) {
 		t.Errorf("Rejected: %d errors, %d warnings; want 2 and 1", errorsN, warnings)
 	}
 	fs := rowsOf(t, f, SheetFindings)
-	if got := fs[0]; strings.Join(got, "|") != "#|Severity|Station|Object|Check|Finding|Mitigation|Basis|Action owner|Due|Status" {
+	if got := fs[0]; strings.Join(got, "|") != "#|Severity|Station|Object|Check|Finding|Mitigation|Basis|Action owner|Due|Status|Comment" {
 		t.Errorf("Findings header %v", got)
 	}
 	if len(fs)-1 != len(a.Findings) {
@@ -272,8 +272,12 @@ func TestWorkbookLayout(t *testing.T) {
 			t.Errorf("%s: footer %q (%v)", s, hf.OddFooter, err)
 		}
 		pl, err := f.GetPageLayout(s)
-		if err != nil || pl.Orientation == nil || *pl.Orientation != "landscape" || pl.FitToWidth == nil {
-			t.Errorf("%s: page layout %+v (%v), want landscape fitted to width", s, pl, err)
+		want := "landscape"
+		if s == SheetReport {
+			want = "portrait" // the condensed report prints as a document
+		}
+		if err != nil || pl.Orientation == nil || *pl.Orientation != want || pl.FitToWidth == nil || *pl.FitToWidth != 1 && s != SheetObjects {
+			t.Errorf("%s: page layout %+v (%v), want %s fitted to width", s, pl, err, want)
 		}
 	}
 	props, err := f.GetDocProps()
