@@ -53,7 +53,7 @@ func NewWorkbookWriter(s *inventory.Survey, info RunInfo, sampled bool, tmpDir s
 	}
 	f := excelize.NewFile(excelize.Options{TmpDir: tmp})
 	w := &WorkbookWriter{tmp: tmp, sampled: sampled, matSeen: map[string]bool{}}
-	w.wb = &workbook{f: f, st: book.NewStyles(f), a: &assess.Audit{Survey: s}, info: info}
+	w.wb = &workbook{f: f, st: book.NewStyles(f), a: &assess.Audit{Survey: s}, info: info, direct: true, rowsDir: tmp}
 	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
 		w.Close()
 		return nil, fmt.Errorf("write workbook: %w", err)
@@ -168,7 +168,11 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
-	if err := book.CanonicalZip(tmp, n, out); err != nil {
+	rows, err := wb.finishRows()
+	if err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	if err := book.CanonicalZipRows(tmp, n, out, rows); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil
@@ -180,6 +184,7 @@ func (w *WorkbookWriter) Close() error {
 		return nil
 	}
 	w.closed = true
+	w.wb.closeRows()
 	err := w.wb.f.Close()
 	if rerr := os.RemoveAll(w.tmp); err == nil {
 		err = rerr

@@ -121,7 +121,8 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
 	st := book.NewStyles(f)
-	wb := &workbook{f: f, st: st, a: a, info: info}
+	wb := &workbook{f: f, st: st, a: a, info: info, direct: true, rowsDir: info.TmpDir}
+	defer wb.closeRows()
 
 	if err := f.SetSheetName("Sheet1", SheetSummary); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
@@ -141,7 +142,11 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if err := setDocProps(f, a, info); err != nil {
 		return err
 	}
-	if err := book.WriteCanonical(f, w, info.TmpDir); err != nil {
+	rows, err := wb.finishRows()
+	if err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	if err := book.WriteCanonicalRows(f, w, info.TmpDir, rows); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil
@@ -158,6 +163,33 @@ type workbook struct {
 	heading string
 	// methodNotes are extra sections of the Method sheet (a Book's); none in the audit.
 	methodNotes []MethodNotes
+	// direct says the streamed table sheets' data rows go through a
+	// book.RowWriter (into rowsDir) and are spliced into the package when
+	// it is written (finishRows, book.WriteCanonicalRows); excelize writes
+	// the rest of those sheets. Off, excelize's StreamWriter writes them.
+	direct  bool
+	rowsDir string
+	rows    map[string]*book.RowWriter
+}
+
+// finishRows ends the direct rows of every streamed sheet.
+func (wb *workbook) finishRows() (map[string]*book.Rows, error) {
+	out := map[string]*book.Rows{}
+	for sheet, rw := range wb.rows {
+		rs, err := rw.Finish()
+		if err != nil {
+			return nil, fmt.Errorf("sheet %s: %w", sheet, err)
+		}
+		out[sheet] = rs
+	}
+	return out, nil
+}
+
+// closeRows removes the direct rows' temporary files.
+func (wb *workbook) closeRows() {
+	for _, rw := range wb.rows {
+		_ = rw.Close()
+	}
 }
 
 // footerEscape doubles '&', the header/footer control character.
@@ -261,10 +293,13 @@ func tableSheetStream[T any](wb *workbook, sheet string, cols []book.Column[T], 
 	return ts.sw.Flush()
 }
 
-// tableStream is a table sheet being written through a StreamWriter.
+// tableStream is a table sheet being written through a StreamWriter: the
+// header row always, the data rows too unless direct is set (book.RowWriter).
 type tableStream[T any] struct {
 	sw     *excelize.StreamWriter
 	sink   book.StreamSink
+	direct *book.RowWriter
+	cells  []book.Cell // the row being written, reused
 	cols   []book.Column[T]
 	widths []float64
 	next   int // sheet row of the next data row
@@ -302,13 +337,37 @@ func openTableStream[T any](wb *workbook, sheet string, cols []book.Column[T], n
 	if err := ts.sink.Header(1, book.Headers(cols)); err != nil {
 		return nil, err
 	}
+	if wb.direct {
+		rw, err := book.NewRowWriter(wb.rowsDir, wb.st)
+		if err != nil {
+			return nil, err
+		}
+		if wb.rows == nil {
+			wb.rows = map[string]*book.RowWriter{}
+		}
+		wb.rows[sheet] = rw
+		ts.direct = rw
+	}
 	return ts, nil
 }
 
 // row writes the next data row.
 func (ts *tableStream[T]) Row(v T) error {
-	cells := book.RowCells(ts.cols, v)
-	if err := ts.sink.Row(ts.next, cells, book.RowHeight(ts.widths, cells)); err != nil {
+	if cap(ts.cells) < len(ts.cols) {
+		ts.cells = make([]book.Cell, len(ts.cols))
+	}
+	cells := ts.cells[:len(ts.cols)]
+	for i := range ts.cols {
+		cells[i] = ts.cols[i].Value(v)
+	}
+	h := book.RowHeight(ts.widths, cells)
+	var err error
+	if ts.direct != nil {
+		err = ts.direct.Row(ts.next, cells, h)
+	} else {
+		err = ts.sink.Row(ts.next, cells, h)
+	}
+	if err != nil {
 		return err
 	}
 	ts.next++
