@@ -2,9 +2,9 @@ package book
 
 import (
 	"bufio"
-	"compress/flate"
 	"errors"
 	"fmt"
+	"github.com/klauspost/compress/flate"
 	"hash/crc32"
 	"io"
 	"math"

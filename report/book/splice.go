@@ -3,10 +3,10 @@ package book
 import (
 	"archive/zip"
 	"bytes"
-	"compress/flate"
 	"encoding/xml"
 	"errors"
 	"fmt"
+	"github.com/klauspost/compress/flate"
 	"hash/crc32"
 	"io"
 	"os"
