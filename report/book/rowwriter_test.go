@@ -239,3 +239,57 @@ func TestRowWriterReadsAsStreamWriter(t *testing.T) {
 		_ = os.WriteFile(os.Getenv("ROWWRITER_KEEP"), got, 0o644)
 	}
 }
+
+// wrappedLinesSplit is the first form of WrappedLines (split into paragraphs
+// and fields): the one-pass form must count the same lines.
+func wrappedLinesSplit(s string, width float64) int {
+	capacity := int(width*1.4) - 1
+	if capacity < 4 {
+		capacity = 4
+	}
+	n := 0
+	for _, para := range strings.Split(s, "\n") {
+		n++
+		used := 0
+		for _, w := range strings.Fields(para) {
+			l := len([]rune(w))
+			switch {
+			case used == 0:
+				used = l
+			case used+1+l <= capacity:
+				used += 1 + l
+			default:
+				n++
+				used = l
+			}
+			for used > capacity {
+				n++
+				used -= capacity
+			}
+		}
+	}
+	return n
+}
+
+func TestWrappedLinesOnePass(t *testing.T) {
+	texts := append(oddTexts(t), "", "\n\n", "a  b\u00a0c\u2003d", "word "+strings.Repeat("long", 40)+" end\n\nnext para", "ü ü ü ü ü ü ü ü ü ü ü ü ü ü ü ü ü ü ü ü")
+	for _, s := range texts {
+		for _, w := range []float64{3, 9, 24, 50} {
+			if got, want := WrappedLines(s, w), wrappedLinesSplit(s, w); got != want {
+				t.Fatalf("WrappedLines(%.40q, %v) = %d, split form %d", s, w, got, want)
+			}
+		}
+	}
+}
+
+func FuzzWrappedLines(f *testing.F) {
+	f.Add("a b c\nd", 9.0)
+	f.Fuzz(func(t *testing.T, s string, w float64) {
+		if w < 0 || w > 500 || w != w {
+			return
+		}
+		if got, want := WrappedLines(s, w), wrappedLinesSplit(s, w); got != want {
+			t.Fatalf("WrappedLines(%q, %v) = %d, split form %d", s, w, got, want)
+		}
+	})
+}
