@@ -193,12 +193,12 @@ func (w *WorkbookWriter) Close() error {
 }
 
 // JSONWriter writes the audit JSON while the survey is assessed: each
-// object is encoded as it comes into a temporary file, and Finish writes the
-// document around them. The bytes are those WriteJSON writes for the same audit.
+// object is appended as it comes (appendObjectJSON, no reflection) into a
+// temporary file, and Finish writes the document around them. The bytes are
+// those WriteJSON writes for the same audit.
 type JSONWriter struct {
 	tmp  *os.File
-	buf  bytes.Buffer
-	enc  *json.Encoder
+	out  jsonOut
 	n    int
 	done bool
 }
@@ -210,30 +210,26 @@ func NewJSONWriter(tmpDir string) (*JSONWriter, error) {
 	if err != nil {
 		return nil, fmt.Errorf("write JSON: %w", err)
 	}
-	j := &JSONWriter{tmp: f}
-	j.enc = json.NewEncoder(&j.buf)
-	j.enc.SetIndent("    ", "  ") // the objects array's elements sit two levels deep
-	j.enc.SetEscapeHTML(false)
-	return j, nil
+	// the objects array's elements sit two levels deep
+	return &JSONWriter{tmp: f, out: jsonOut{prefix: "    "}}, nil
 }
 
-// Add encodes a batch of assessed objects, in survey order.
+// Add appends a batch of assessed objects, in survey order.
 func (j *JSONWriter) Add(rs []assess.ObjectResult) error {
+	o := &j.out
+	o.b = o.b[:0]
 	for i := range rs {
-		j.buf.Reset()
 		if j.n > 0 {
-			j.buf.WriteString(",\n    ")
+			o.b = append(o.b, ",\n    "...)
 		} else {
-			j.buf.WriteString("\n    ")
+			o.b = append(o.b, "\n    "...)
 		}
-		if err := j.enc.Encode(objectJSON(&rs[i])); err != nil {
-			return fmt.Errorf("write JSON: %w", err)
-		}
-		b := bytes.TrimSuffix(j.buf.Bytes(), []byte("\n"))
-		if _, err := j.tmp.Write(b); err != nil {
-			return fmt.Errorf("write JSON: %w", err)
-		}
+		o.depth, o.first = 0, true
+		appendObjectJSON(o, &rs[i])
 		j.n++
+	}
+	if _, err := j.tmp.Write(o.b); err != nil {
+		return fmt.Errorf("write JSON: %w", err)
 	}
 	return nil
 }
