@@ -3,6 +3,7 @@ module github.com/sparkmargin/sparkmargin
 go 1.26.8
 
 require (
+	github.com/klauspost/compress v1.20.4
 	github.com/spf13/cobra v1.10.2
 	github.com/spf13/pflag v1.0.9
 	github.com/xuri/excelize/v2 v2.11.1

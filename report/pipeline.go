@@ -208,6 +208,11 @@ func (r *Run) AssessFile(path string, out Outputs) (a *assess.Audit, err error) 
 	info := r.Info(s)
 	pw, err := r.Workspace.Prepare(out.Workbook, func(w io.Writer) error { return ww.Finish(a, w) })
 	if err != nil {
+		// The JSON is complete without the workbook: written all the same
+		// (it records no workbook), so the assessment is not lost.
+		if out.JSON != "" {
+			_ = r.Workspace.WriteFile(out.JSON, func(w io.Writer) error { return jw.Finish(a, info, w) })
+		}
 		return nil, unusable(fmt.Errorf("writing the audit workbook: %w", err))
 	}
 	var pj *outfile.Pending

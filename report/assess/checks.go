@@ -2,6 +2,7 @@ package assess
 
 import (
 	"math"
+	"sync"
 
 	"github.com/sparkmargin/sparkmargin/model"
 )
@@ -108,6 +109,14 @@ func dischargeGround(d model.DischargeType) string {
 
 // checkTable is the one table that defines each check; adding a check touches it
 // and the constant list above.
+// checkDefs returns the check table, built once: Severity runs for every
+// finding of every Monte Carlo draw, and building the table there was about a
+// third of a draw's time. The table is never written after it is built.
+var checkDefs = sync.OnceValue(func() *[NumChecks]checkDef {
+	t := checkTable()
+	return &t
+})
+
 func checkTable() [NumChecks]checkDef {
 	return [NumChecks]checkDef{
 		CheckEnergyMIE: {"energy-vs-mie", Incendive, "effective energy against the atmosphere's MIE: IEC TS 60079-32-1:2013+A1:2017; the discharge's energy on its own ground",
@@ -149,7 +158,7 @@ func (c Check) Name() string {
 	if c >= NumChecks {
 		return "unknown"
 	}
-	return checkTable()[c].name
+	return checkDefs()[c].name
 }
 
 // Severity returns the verdict the check alone implies when it fails: Incendive
@@ -158,7 +167,7 @@ func (c Check) Severity() Verdict {
 	if c >= NumChecks {
 		return Marginal
 	}
-	return checkTable()[c].severity
+	return checkDefs()[c].severity
 }
 
 // Basis returns the ground the check rests on: the standard, clause or table and
@@ -167,7 +176,7 @@ func (c Check) Basis() string {
 	if c >= NumChecks {
 		return ""
 	}
-	return checkTable()[c].basis
+	return checkDefs()[c].basis
 }
 
 // BasisFor returns the ground a finding of the check rests on when it judges
@@ -179,7 +188,7 @@ func (c Check) BasisFor(d model.DischargeType) string {
 	if c >= NumChecks {
 		return ""
 	}
-	def := checkTable()[c]
+	def := checkDefs()[c]
 	if def.basisOf != nil {
 		return def.basisOf(d)
 	}

@@ -53,7 +53,7 @@ func NewWorkbookWriter(s *inventory.Survey, info RunInfo, sampled bool, tmpDir s
 	}
 	f := excelize.NewFile(excelize.Options{TmpDir: tmp})
 	w := &WorkbookWriter{tmp: tmp, sampled: sampled, matSeen: map[string]bool{}}
-	w.wb = &workbook{f: f, st: book.NewStyles(f), a: &assess.Audit{Survey: s}, info: info}
+	w.wb = &workbook{f: f, st: book.NewStyles(f), a: &assess.Audit{Survey: s}, info: info, direct: true, rowsDir: tmp}
 	if err := f.SetSheetName("Sheet1", Sheets()[0]); err != nil {
 		w.Close()
 		return nil, fmt.Errorf("write workbook: %w", err)
@@ -169,7 +169,11 @@ func (w *WorkbookWriter) Finish(a *assess.Audit, out io.Writer) error {
 	if err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
-	if err := book.CanonicalZip(tmp, n, out); err != nil {
+	rows, err := wb.finishRows()
+	if err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	if err := book.CanonicalZipRows(tmp, n, out, rows); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil
@@ -181,6 +185,7 @@ func (w *WorkbookWriter) Close() error {
 		return nil
 	}
 	w.closed = true
+	w.wb.closeRows()
 	err := w.wb.f.Close()
 	if rerr := os.RemoveAll(w.tmp); err == nil {
 		err = rerr
@@ -189,12 +194,12 @@ func (w *WorkbookWriter) Close() error {
 }
 
 // JSONWriter writes the audit JSON while the survey is assessed: each
-// object is encoded as it comes into a temporary file, and Finish writes the
-// document around them. The bytes are those WriteJSON writes for the same audit.
+// object is appended as it comes (appendObjectJSON, no reflection) into a
+// temporary file, and Finish writes the document around them. The bytes are
+// those WriteJSON writes for the same audit.
 type JSONWriter struct {
 	tmp  *os.File
-	buf  bytes.Buffer
-	enc  *json.Encoder
+	out  jsonOut
 	n    int
 	done bool
 	used map[string]bool // built-in materials used by the objects (the verify list)
@@ -207,21 +212,19 @@ func NewJSONWriter(tmpDir string) (*JSONWriter, error) {
 	if err != nil {
 		return nil, fmt.Errorf("write JSON: %w", err)
 	}
-	j := &JSONWriter{tmp: f}
-	j.enc = json.NewEncoder(&j.buf)
-	j.enc.SetIndent("    ", "  ") // the objects array's elements sit two levels deep
-	j.enc.SetEscapeHTML(false)
-	return j, nil
+	// the objects array's elements sit two levels deep
+	return &JSONWriter{tmp: f, out: jsonOut{prefix: "    "}}, nil
 }
 
-// Add encodes a batch of assessed objects, in survey order.
+// Add appends a batch of assessed objects, in survey order.
 func (j *JSONWriter) Add(rs []assess.ObjectResult) error {
+	o := &j.out
+	o.b = o.b[:0]
 	for i := range rs {
-		j.buf.Reset()
 		if j.n > 0 {
-			j.buf.WriteString(",\n    ")
+			o.b = append(o.b, ",\n    "...)
 		} else {
-			j.buf.WriteString("\n    ")
+			o.b = append(o.b, "\n    "...)
 		}
 		if m := rs[i].Material; m != nil {
 			if j.used == nil {
@@ -229,14 +232,12 @@ func (j *JSONWriter) Add(rs []assess.ObjectResult) error {
 			}
 			j.used[m.Name] = true
 		}
-		if err := j.enc.Encode(objectJSON(&rs[i])); err != nil {
-			return fmt.Errorf("write JSON: %w", err)
-		}
-		b := bytes.TrimSuffix(j.buf.Bytes(), []byte("\n"))
-		if _, err := j.tmp.Write(b); err != nil {
-			return fmt.Errorf("write JSON: %w", err)
-		}
+		o.depth, o.first = 0, true
+		appendObjectJSON(o, &rs[i])
 		j.n++
+	}
+	if _, err := j.tmp.Write(o.b); err != nil {
+		return fmt.Errorf("write JSON: %w", err)
 	}
 	return nil
 }

@@ -157,6 +157,11 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 		if !quiet || rej > 0 || len(a.Survey.Warnings()) > 0 {
 			fmt.Fprintln(w, line)
 		}
+		if problemBound(a.Survey) > maxRejectedRows {
+			if total, listed := ProblemsListed(a.Survey); total > listed {
+				fmt.Fprintf(w, "Rejected sheet: the first %d of %d problems (a sheet holds %d rows); the audit JSON (--json) and 'sparkmargin check' list every problem\n", listed, total, book.MaxSheetRows)
+			}
+		}
 	}
 	_, err := fmt.Fprintf(w, "\n%s\n", templates.CautionLine)
 	if err != nil {

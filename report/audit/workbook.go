@@ -3,6 +3,7 @@ package audit
 import (
 	"errors"
 	"fmt"
+	"hash/fnv"
 	"io"
 	"strings"
 	"time"
@@ -121,7 +122,8 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	f := excelize.NewFile(excelize.Options{TmpDir: info.TmpDir})
 	defer func() { _ = f.Close() }()
 	st := book.NewStyles(f)
-	wb := &workbook{f: f, st: st, a: a, info: info}
+	wb := &workbook{f: f, st: st, a: a, info: info, direct: true, rowsDir: info.TmpDir}
+	defer wb.closeRows()
 
 	if err := f.SetSheetName("Sheet1", Sheets()[0]); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
@@ -141,7 +143,11 @@ func WriteWorkbook(w io.Writer, a *assess.Audit, info RunInfo) error {
 	if err := setDocProps(f, a, info); err != nil {
 		return err
 	}
-	if err := book.WriteCanonical(f, w, info.TmpDir); err != nil {
+	rows, err := wb.finishRows()
+	if err != nil {
+		return fmt.Errorf("write workbook: %w", err)
+	}
+	if err := book.WriteCanonicalRows(f, w, info.TmpDir, rows); err != nil {
 		return fmt.Errorf("write workbook: %w", err)
 	}
 	return nil
@@ -162,6 +168,33 @@ type workbook struct {
 	methodNotes []MethodNotes
 	// actions are the site's actions carried from the previous audit (nil: a first run).
 	actions *ActionPlan
+	// direct says the streamed table sheets' data rows go through a
+	// book.RowWriter (into rowsDir) and are spliced into the package when
+	// it is written (finishRows, book.WriteCanonicalRows); excelize writes
+	// the rest of those sheets. Off, excelize's StreamWriter writes them.
+	direct  bool
+	rowsDir string
+	rows    map[string]*book.RowWriter
+}
+
+// finishRows ends the direct rows of every streamed sheet.
+func (wb *workbook) finishRows() (map[string]*book.Rows, error) {
+	out := map[string]*book.Rows{}
+	for sheet, rw := range wb.rows {
+		rs, err := rw.Finish()
+		if err != nil {
+			return nil, fmt.Errorf("sheet %s: %w", sheet, err)
+		}
+		out[sheet] = rs
+	}
+	return out, nil
+}
+
+// closeRows removes the direct rows' temporary files.
+func (wb *workbook) closeRows() {
+	for _, rw := range wb.rows {
+		_ = rw.Close()
+	}
 }
 
 // footerEscape doubles '&', the header/footer control character.
@@ -265,10 +298,13 @@ func tableSheetStream[T any](wb *workbook, sheet string, cols []book.Column[T], 
 	return ts.sw.Flush()
 }
 
-// tableStream is a table sheet being written through a StreamWriter.
+// tableStream is a table sheet being written through a StreamWriter: the
+// header row always, the data rows too unless direct is set (book.RowWriter).
 type tableStream[T any] struct {
 	sw     *excelize.StreamWriter
 	sink   book.StreamSink
+	direct *book.RowWriter
+	cells  []book.Cell // the row being written, reused
 	cols   []book.Column[T]
 	widths []float64
 	next   int // sheet row of the next data row
@@ -306,13 +342,37 @@ func openTableStream[T any](wb *workbook, sheet string, cols []book.Column[T], n
 	if err := ts.sink.Header(1, book.Headers(cols)); err != nil {
 		return nil, err
 	}
+	if wb.direct {
+		rw, err := book.NewRowWriter(wb.rowsDir, wb.st)
+		if err != nil {
+			return nil, err
+		}
+		if wb.rows == nil {
+			wb.rows = map[string]*book.RowWriter{}
+		}
+		wb.rows[sheet] = rw
+		ts.direct = rw
+	}
 	return ts, nil
 }
 
 // row writes the next data row.
 func (ts *tableStream[T]) Row(v T) error {
-	cells := book.RowCells(ts.cols, v)
-	if err := ts.sink.Row(ts.next, cells, book.RowHeight(ts.widths, cells)); err != nil {
+	if cap(ts.cells) < len(ts.cols) {
+		ts.cells = make([]book.Cell, len(ts.cols))
+	}
+	cells := ts.cells[:len(ts.cols)]
+	for i := range ts.cols {
+		cells[i] = ts.cols[i].Value(v)
+	}
+	h := book.RowHeight(ts.widths, cells)
+	var err error
+	if ts.direct != nil {
+		err = ts.direct.Row(ts.next, cells, h)
+	} else {
+		err = ts.sink.Row(ts.next, cells, h)
+	}
+	if err != nil {
 		return err
 	}
 	ts.next++
@@ -541,11 +601,17 @@ func wrappedHeight(s string, width float64) float64 {
 type problemRow struct {
 	p      inventory.Problem
 	status string
+	note   bool // the closing row of a capped sheet: p.Message says what is not listed
 }
 
 func problemColumns() []book.Column[problemRow] {
 	return []book.Column[problemRow]{
-		{Header: "Severity", Width: 9, Value: func(r problemRow) book.Cell { return book.Code(r.p.Severity.String()) }},
+		{Header: "Severity", Width: 9, Value: func(r problemRow) book.Cell {
+			if r.note {
+				return book.Code("note")
+			}
+			return book.Code(r.p.Severity.String())
+		}},
 		{Header: "Row status", Width: 16, Value: func(r problemRow) book.Cell { return book.Text(r.status) }},
 		{Header: "Sheet", Width: 12, Value: func(r problemRow) book.Cell { return book.Text(r.p.Sheet) }},
 		{Header: "Row", Width: 6, Value: func(r problemRow) book.Cell {
@@ -562,40 +628,140 @@ func problemColumns() []book.Column[problemRow] {
 	}
 }
 
-func problemKey(p inventory.Problem) string {
-	return fmt.Sprintf("%s\x00%d\x00%s\x00%s\x00%s", p.Sheet, p.Row, p.Column, p.Field, p.Message)
+// problemHash identifies a problem by its place and message, for the set of
+// problems already listed (8 bytes a problem, not a built string key).
+func problemHash(p *inventory.Problem) uint64 {
+	h := fnv.New64a()
+	_, _ = io.WriteString(h, p.Sheet)
+	_, _ = h.Write([]byte{0, byte(p.Row), byte(p.Row >> 8), byte(p.Row >> 16), byte(p.Row >> 24), 0})
+	_, _ = io.WriteString(h, p.Column)
+	_, _ = h.Write([]byte{0})
+	_, _ = io.WriteString(h, p.Field)
+	_, _ = h.Write([]byte{0})
+	_, _ = io.WriteString(h, p.Message)
+	return h.Sum64()
 }
 
-// problemRows lists every problem of every rejected row, then the sheet-level
-// errors not tied to a rejected row, then the warnings (rows still accepted).
+func sameProblem(a, b *inventory.Problem) bool {
+	return a.Sheet == b.Sheet && a.Row == b.Row && a.Column == b.Column && a.Field == b.Field && a.Message == b.Message
+}
+
+// eachProblem calls fn with every problem of every rejected row, then the
+// sheet-level errors not tied to a rejected row, then the warnings (rows
+// still accepted), with the row status; it stops when fn returns false.
+func eachProblem(s *inventory.Survey, fn func(p *inventory.Problem, status string) bool) {
+	// A problem of a rejected row is also in s.Problems: listed once. The set
+	// keeps a hash and where the problem is; a hash met twice is compared in
+	// full, so a collision lists a problem twice rather than not at all.
+	type at struct{ row, i int32 }
+	seen := map[uint64]at{}
+	for ri := range s.Rejected {
+		for pi := range s.Rejected[ri].Problems {
+			p := &s.Rejected[ri].Problems[pi]
+			if !fn(p, "row rejected") {
+				return
+			}
+			seen[problemHash(p)] = at{int32(ri), int32(pi)}
+		}
+	}
+	for i := range s.Problems {
+		p := &s.Problems[i]
+		if p.Severity != inventory.Error {
+			continue
+		}
+		if a, ok := seen[problemHash(p)]; ok && sameProblem(p, &s.Rejected[a.row].Problems[a.i]) {
+			continue
+		}
+		status := "sheet not read"
+		if p.Row > 0 {
+			status = "row rejected"
+		}
+		if !fn(p, status) {
+			return
+		}
+	}
+	for i := range s.Problems {
+		if s.Problems[i].Severity == inventory.Warning {
+			if !fn(&s.Problems[i], "row accepted") {
+				return
+			}
+		}
+	}
+}
+
+// problemRows lists the problems in the order of eachProblem.
 func problemRows(s *inventory.Survey) []problemRow {
 	var out []problemRow
-	seen := map[string]bool{}
-	for _, r := range s.Rejected {
-		for _, p := range r.Problems {
-			out = append(out, problemRow{p, "row rejected"})
-			seen[problemKey(p)] = true
-		}
-	}
-	for _, p := range s.Problems {
-		if p.Severity == inventory.Error && !seen[problemKey(p)] {
-			status := "sheet not read"
-			if p.Row > 0 {
-				status = "row rejected"
-			}
-			out = append(out, problemRow{p, status})
-		}
-	}
-	for _, p := range s.Problems {
-		if p.Severity == inventory.Warning {
-			out = append(out, problemRow{p, "row accepted"})
-		}
-	}
+	eachProblem(s, func(p *inventory.Problem, status string) bool {
+		out = append(out, problemRow{p: *p, status: status})
+		return true
+	})
 	return out
 }
 
+// maxRejectedRows is the most problems the Rejected sheet lists: a sheet
+// holds 1,048,576 rows, less the header and the closing note. A variable so
+// that a test can lower it.
+var maxRejectedRows = book.MaxSheetRows - 2
+
+// problemBound is at least the number of problems eachProblem lists.
+func problemBound(s *inventory.Survey) int {
+	n := len(s.Problems)
+	for i := range s.Rejected {
+		n += len(s.Rejected[i].Problems)
+	}
+	return n
+}
+
+// ProblemsListed returns how many problems the audit lists (every one, in
+// the JSON) and how many of them the Rejected sheet holds.
+func ProblemsListed(s *inventory.Survey) (total, onSheet int) {
+	if s == nil {
+		return 0, 0
+	}
+	eachProblem(s, func(*inventory.Problem, string) bool { total++; return true })
+	return total, min(total, maxRejectedRows)
+}
+
+// rejectedNote is the closing row's message when the sheet cannot hold every problem.
+func rejectedNote(total, listed int) string {
+	return fmt.Sprintf("%d more problems are not listed here: a sheet holds at most %d rows, and %d of the %d problems are listed above. "+
+		"The audit JSON (--json) and 'sparkmargin check' list every problem.", total-listed, book.MaxSheetRows, listed, total)
+}
+
+// rejected writes the Rejected sheet, streamed; past maxRejectedRows it
+// ends with a note of how many problems are not listed and where they are.
 func (wb *workbook) rejected() error {
-	return tableSheetNormal(wb, SheetRejected, problemColumns(), problemRows(wb.a.Survey))
+	s := wb.a.Survey
+	total, listed := ProblemsListed(s)
+	rows := listed
+	if total > listed {
+		rows++
+	}
+	ts, err := openTableStream(wb, SheetRejected, problemColumns(), rows, 1, "", 0)
+	if err != nil {
+		return err
+	}
+	n := 0
+	eachProblem(s, func(p *inventory.Problem, status string) bool {
+		if n == listed {
+			return false
+		}
+		if err = ts.Row(problemRow{p: *p, status: status}); err != nil {
+			return false
+		}
+		n++
+		return true
+	})
+	if err != nil {
+		return err
+	}
+	if total > listed {
+		if err := ts.Row(problemRow{p: inventory.Problem{Message: rejectedNote(total, listed)}, status: "not listed", note: true}); err != nil {
+			return err
+		}
+	}
+	return ts.sw.Flush()
 }
 
 // writeSheets writes the audit's sheets in dependency order (the Summary last,

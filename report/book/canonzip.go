@@ -17,9 +17,31 @@ import (
 // modification time, so that the same cells give the same bytes: excelize
 // writes its parts in map order.
 func CanonicalZip(r io.ReaderAt, size int64, w io.Writer) error {
+	return CanonicalZipRows(r, size, w, nil)
+}
+
+// CanonicalZipRows is CanonicalZip that also splices into the worksheet of
+// each named sheet its data rows written by a RowWriter, after the rows
+// excelize wrote (the header) and before </sheetData>, and widens the
+// sheet's dimension to them.
+func CanonicalZipRows(r io.ReaderAt, size int64, w io.Writer, rows map[string]*Rows) error {
 	zr, err := zip.NewReader(r, size)
 	if err != nil {
 		return err
+	}
+	spliced := map[string]*Rows{}
+	if len(rows) > 0 {
+		paths, err := sheetParts(zr)
+		if err != nil {
+			return err
+		}
+		for name, rs := range rows {
+			p, ok := paths[name]
+			if !ok {
+				return fmt.Errorf("sheet %s: not in the workbook", name)
+			}
+			spliced[p] = rs
+		}
 	}
 	files := append([]*zip.File(nil), zr.File...)
 	rank := func(n string) int {
@@ -41,6 +63,12 @@ func CanonicalZip(r io.ReaderAt, size int64, w io.Writer) error {
 	zw := zip.NewWriter(w)
 	stamp := time.Date(1980, 1, 1, 0, 0, 0, 0, time.UTC)
 	for _, f := range files {
+		if rs := spliced[f.Name]; rs != nil {
+			if err := spliceRows(zw, f, stamp, rs); err != nil {
+				return fmt.Errorf("part %s: %w", f.Name, err)
+			}
+			continue
+		}
 		if f.Name == "[Content_Types].xml" {
 			if err := rewritePart(zw, f, stamp, sortContentTypes); err != nil {
 				return err
@@ -114,6 +142,12 @@ func sortContentTypes(b []byte) []byte {
 // audits stay out of memory) in tmpDir ("" for the system's temporary
 // folder) and copies it to w in canonical order.
 func WriteCanonical(f *excelize.File, w io.Writer, tmpDir string) error {
+	return WriteCanonicalRows(f, w, tmpDir, nil)
+}
+
+// WriteCanonicalRows is WriteCanonical with the data rows of the named sheets
+// spliced in (CanonicalZipRows).
+func WriteCanonicalRows(f *excelize.File, w io.Writer, tmpDir string, rows map[string]*Rows) error {
 	tmp, err := os.CreateTemp(tmpDir, "sparkmargin-audit-*.xlsx")
 	if err != nil {
 		return err
@@ -126,5 +160,5 @@ func WriteCanonical(f *excelize.File, w io.Writer, tmpDir string) error {
 	if err != nil {
 		return err
 	}
-	return CanonicalZip(tmp, n, w)
+	return CanonicalZipRows(tmp, n, w, rows)
 }

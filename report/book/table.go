@@ -2,7 +2,8 @@ package book
 
 import (
 	"fmt"
-	"strings"
+	"unicode"
+	"unicode/utf8"
 
 	"github.com/xuri/excelize/v2"
 )
@@ -158,27 +159,54 @@ func WrappedLines(s string, width float64) int {
 	if capacity < 4 {
 		capacity = 4
 	}
-	n := 0
-	for _, para := range strings.Split(s, "\n") {
-		n++
-		used := 0
-		for _, w := range strings.Fields(para) {
-			l := len([]rune(w))
+	// One pass over the bytes, no split strings: paragraphs at '\n', words
+	// between white space (unicode.IsSpace, as strings.Fields), word lengths
+	// in runes.
+	n, used, word := 1, 0, 0
+	endWord := func() {
+		if word == 0 {
+			return
+		}
+		switch {
+		case used == 0:
+			used = word
+		case used+1+word <= capacity:
+			used += 1 + word
+		default:
+			n++
+			used = word
+		}
+		for used > capacity { // a word longer than the column breaks
+			n++
+			used -= capacity
+		}
+		word = 0
+	}
+	for i := 0; i < len(s); {
+		c := s[i]
+		if c < utf8.RuneSelf {
+			i++
 			switch {
-			case used == 0:
-				used = l
-			case used+1+l <= capacity:
-				used += 1 + l
+			case c == '\n':
+				endWord()
+				n++
+				used = 0
+			case c == ' ' || c == '\t' || c == '\v' || c == '\f' || c == '\r':
+				endWord()
 			default:
-				n++
-				used = l
+				word++
 			}
-			for used > capacity { // a word longer than the column breaks
-				n++
-				used -= capacity
-			}
+			continue
+		}
+		r, size := utf8.DecodeRuneInString(s[i:])
+		i += size
+		if unicode.IsSpace(r) {
+			endWord()
+		} else {
+			word++
 		}
 	}
+	endWord()
 	return n
 }
 

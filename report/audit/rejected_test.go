@@ -1,0 +1,82 @@
+package audit
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"strings"
+	"testing"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/xuri/excelize/v2"
+)
+
+// TestRejectedSheetCapped: a survey with more problems than the Rejected
+// sheet holds (the cap lowered from 1,048,574 so that the test stays small)
+// gets its audit, with the first problems and a closing note on the sheet and
+// a line on the terminal, and a JSON listing every problem.
+func TestRejectedSheetCapped(t *testing.T) {
+	defer func(n int) { maxRejectedRows = n }(maxRejectedRows)
+	maxRejectedRows = 40
+	a := demoAudit(t, 0)
+	s := *a.Survey
+	s.Problems = append([]inventory.Problem(nil), s.Problems...)
+	const extra = 95
+	for i := 0; i < extra; i++ {
+		s.Problems = append(s.Problems, inventory.Problem{Sheet: inventory.SheetObjects, Row: 1000 + i, Column: "K", Field: "Field",
+			Severity: inventory.Warning, Message: fmt.Sprintf("made-up warning %d", i)})
+	}
+	a.Survey = &s
+	total, listed := ProblemsListed(&s)
+	if total < extra || listed != 40 {
+		t.Fatalf("ProblemsListed = %d, %d; want at least %d, 40", total, listed, extra)
+	}
+	for _, streamed := range []bool{false, true} {
+		var xb []byte
+		if streamed {
+			xb, _ = streamedOutputs(t, a, t.TempDir())
+		} else {
+			var buf bytes.Buffer
+			if err := WriteWorkbook(&buf, a, testInfo()); err != nil {
+				t.Fatal(err)
+			}
+			xb = buf.Bytes()
+		}
+		f, err := excelize.OpenReader(bytes.NewReader(xb))
+		if err != nil {
+			t.Fatal(err)
+		}
+		rows, err := f.GetRows(SheetRejected)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(rows) != 1+40+1 {
+			t.Fatalf("streamed %v: Rejected sheet has %d rows, want header + 40 + note", streamed, len(rows))
+		}
+		note := rows[len(rows)-1]
+		if note[0] != "note" || !strings.Contains(note[7], fmt.Sprintf("%d more problems are not listed", total-40)) {
+			t.Errorf("streamed %v: closing row %q", streamed, note)
+		}
+	}
+	var js bytes.Buffer
+	if err := WriteJSON(&js, a, testInfo()); err != nil {
+		t.Fatal(err)
+	}
+	var doc struct {
+		Rejected []json.RawMessage `json:"rejected"`
+		Warnings []json.RawMessage `json:"warnings"`
+	}
+	if err := json.Unmarshal(js.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if n := len(doc.Rejected) + len(doc.Warnings); n != total {
+		t.Errorf("JSON lists %d problems, want all %d", n, total)
+	}
+	var term bytes.Buffer
+	if err := WriteSummary(&term, a); err != nil {
+		t.Fatal(err)
+	}
+	if want := fmt.Sprintf("Rejected sheet: the first 40 of %d problems", total); !strings.Contains(term.String(), want) {
+		t.Errorf("terminal summary lacks %q:\n%s", want, term.String())
+	}
+}
