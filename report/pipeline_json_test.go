@@ -2,13 +2,13 @@ package report
 
 import (
 	"encoding/json"
-	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"io"
 	"os"
 	"path/filepath"
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 )
 
 // TestJSONWrittenWhenTheWorkbookFails: the audit JSON is complete without
