@@ -187,7 +187,7 @@ func TestActionsSurviveRerun(t *testing.T) {
 		}
 	}
 	if !closedA || !openB {
-		t.Errorf("after removing %s: finding %v listed closed with its action %v; finding %v still open with its action %v", a.key.Object, a.key, closedA, b.key, openB)
+		t.Errorf("after removing %s: finding %v listed closed with its action %v; finding %v still open with its action %v\n%s", a.key.Object, a.key, closedA, b.key, openB, out)
 	}
 
 	// A further rerun keeps the closed finding with its action (closed earlier).

@@ -405,11 +405,25 @@ func (wb *workbook) closedFindings(ts *tableStream[findingRow]) error {
 			continue // a part only when it holds something: an unchanged rerun gives the same workbook
 		}
 		ts.next++ // a blank row
-		if err := ts.sink.Row(ts.next, []book.Cell{{V: p.title, Bold: true}}, 0); err != nil {
+		// The title and header rows go through the writer the data rows
+		// go through, so that the sheet's rows stay in order.
+		title := []book.Cell{{V: p.title, Bold: true}}
+		var err error
+		if ts.direct != nil {
+			err = ts.direct.Row(ts.next, title, 0)
+		} else {
+			err = ts.sink.Row(ts.next, title, 0)
+		}
+		if err != nil {
 			return err
 		}
 		ts.next++
-		if err := ts.sink.Header(ts.next, book.Headers(ts.cols)); err != nil {
+		if ts.direct != nil {
+			err = ts.direct.HeaderRow(ts.next, book.Headers(ts.cols))
+		} else {
+			err = ts.sink.Header(ts.next, book.Headers(ts.cols))
+		}
+		if err != nil {
 			return err
 		}
 		ts.next++

@@ -41,6 +41,7 @@ type RowWriter struct {
 	lastID  []int
 	lastRow int
 	maxCol  int
+	fixed   int // a style id every cell of the row takes (HeaderRow); 0: each cell's own
 
 	// the compressing goroutine
 	work chan []byte
@@ -134,6 +135,10 @@ func (w *RowWriter) Row(r int, cells []Cell, height float64) error {
 		if w.lastID[i] < 0 || w.lastKey[i] != k {
 			w.lastKey[i], w.lastID[i] = k, w.st.get(k)
 		}
+		style := w.lastID[i]
+		if w.fixed != 0 {
+			style = w.fixed
+		}
 		b = append(b, "<c"...)
 		if skipped {
 			b = append(b, ` r="`...)
@@ -142,9 +147,9 @@ func (w *RowWriter) Row(r int, cells []Cell, height float64) error {
 			b = append(b, '"')
 			skipped = false
 		}
-		if s := w.lastID[i]; s != 0 {
+		if style != 0 {
 			b = append(b, ` s="`...)
-			b = strconv.AppendInt(b, int64(s), 10)
+			b = strconv.AppendInt(b, int64(style), 10)
 			b = append(b, '"')
 		}
 		b = AppendCellValue(b, c.V)
@@ -156,6 +161,19 @@ func (w *RowWriter) Row(r int, cells []Cell, height float64) error {
 		w.buf = <-w.free
 	}
 	return nil
+}
+
+// HeaderRow appends sheet row r as a table header (the header style, as
+// StreamSink.Header writes it): a header repeated below the data rows (the
+// Findings sheet's closed part) must come through the same writer, in order.
+func (w *RowWriter) HeaderRow(r int, headers []string) error {
+	cells := make([]Cell, len(headers))
+	for i, h := range headers {
+		cells[i] = Cell{V: h}
+	}
+	w.fixed = w.st.Header()
+	defer func() { w.fixed = 0 }()
+	return w.Row(r, cells, 42)
 }
 
 // MaxSheetRows is the most rows a worksheet holds (ECMA-376 and the
