@@ -17,7 +17,7 @@ import (
 // a line on the terminal, and a JSON listing every problem.
 func TestRejectedSheetCapped(t *testing.T) {
 	defer func(n int) { maxRejectedRows = n }(maxRejectedRows)
-	maxRejectedRows = 40
+	maxRejectedRows = 30
 	a := demoAudit(t, 0)
 	s := *a.Survey
 	s.Problems = append([]inventory.Problem(nil), s.Problems...)
@@ -28,8 +28,8 @@ func TestRejectedSheetCapped(t *testing.T) {
 	}
 	a.Survey = &s
 	total, listed := ProblemsListed(&s)
-	if total < extra || listed != 40 {
-		t.Fatalf("ProblemsListed = %d, %d; want at least %d, 40", total, listed, extra)
+	if total < extra || listed != 30 {
+		t.Fatalf("ProblemsListed = %d, %d; want at least %d, 30", total, listed, extra)
 	}
 	for _, streamed := range []bool{false, true} {
 		var xb []byte
@@ -50,13 +50,30 @@ func TestRejectedSheetCapped(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if len(rows) != 1+40+1 {
-			t.Fatalf("streamed %v: Rejected sheet has %d rows, want header + 40 + note", streamed, len(rows))
+		if len(rows) != 1+30+1 {
+			t.Fatalf("streamed %v: Rejected sheet has %d rows, want header + 30 + note", streamed, len(rows))
 		}
 		note := rows[len(rows)-1]
-		if note[0] != "note" || !strings.Contains(note[7], fmt.Sprintf("%d more problems are not listed", total-40)) {
+		if note[0] != "note" || !strings.Contains(note[7], fmt.Sprintf("%d more problems are not listed", total-30)) {
 			t.Errorf("streamed %v: closing row %q", streamed, note)
 		}
+	}
+	// The Findings sheet is capped the same way (the cap is below the demo's findings count here).
+	if len(a.Findings) > 30 {
+		var buf bytes.Buffer
+		if err := WriteWorkbook(&buf, a, testInfo()); err != nil {
+			t.Fatal(err)
+		}
+		f, err := excelize.OpenReader(bytes.NewReader(buf.Bytes()))
+		if err != nil {
+			t.Fatal(err)
+		}
+		rows, _ := f.GetRows(SheetFindings)
+		if len(rows) != 1+30+1 || rows[31][0] != "note" || !strings.Contains(rows[31][1], fmt.Sprintf("%d more findings are not listed", len(a.Findings)-30)) {
+			t.Errorf("Findings sheet: %d rows, last %q", len(rows), rows[len(rows)-1])
+		}
+	} else {
+		t.Errorf("the demo has %d findings: the Findings cap is not tried", len(a.Findings))
 	}
 	var js bytes.Buffer
 	if err := WriteJSON(&js, a, testInfo()); err != nil {
@@ -76,7 +93,7 @@ func TestRejectedSheetCapped(t *testing.T) {
 	if err := WriteSummary(&term, a); err != nil {
 		t.Fatal(err)
 	}
-	if want := fmt.Sprintf("Rejected sheet: the first 40 of %d problems", total); !strings.Contains(term.String(), want) {
+	if want := fmt.Sprintf("Rejected sheet: the first 30 of %d problems", total); !strings.Contains(term.String(), want) {
 		t.Errorf("terminal summary lacks %q:\n%s", want, term.String())
 	}
 }

@@ -124,6 +124,9 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 		total += a.Counts[v]
 	}
 	fmt.Fprintf(w, "\nObjects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
+	if len(a.Findings) > maxRejectedRows {
+		fmt.Fprintf(w, "Findings sheet: the first %d of %d findings (a sheet holds %d rows); the audit JSON (--json) lists every finding\n", maxRejectedRows, len(a.Findings), book.MaxSheetRows)
+	}
 	if a.Survey != nil && !a.Survey.Site.RelativeHumidity.Known {
 		fmt.Fprintf(w, "Warning: the Site sheet gives no relative humidity (an error for check): stations without their own were assessed at the dry-day %g %%RH, shown on the Summary sheet\n", assess.DryDayHumidity)
 	}

@@ -379,6 +379,25 @@ func (ts *tableStream[T]) Row(v T) error {
 	return nil
 }
 
+// Note writes a closing row that is no table row: "note" in the first
+// column and the text, wrapped, in the second.
+func (ts *tableStream[T]) Note(text string) error {
+	cells := make([]book.Cell, len(ts.cols))
+	cells[0] = book.Code("note")
+	if len(cells) > 1 {
+		cells[1] = book.WrapText(text)
+	}
+	h := book.RowHeight(ts.widths, cells)
+	var err error
+	if ts.direct != nil {
+		err = ts.direct.Row(ts.next, cells, h)
+	} else {
+		err = ts.sink.Row(ts.next, cells, h)
+	}
+	ts.next++
+	return err
+}
+
 // ---- Stations ----
 
 type stationRow = *assess.StationResult
@@ -549,16 +568,32 @@ func findingColumns(fs ...[]assess.Finding) []book.Column[findingRow] {
 	}
 }
 
+// findings writes the Findings sheet; past maxRejectedRows (what a sheet
+// holds) it ends with a note of how many findings are not listed.
 func (wb *workbook) findings() error {
+	total := len(wb.a.Findings)
+	listed := min(total, maxRejectedRows)
+	rows := listed
+	if total > listed {
+		rows++
+	}
 	cols := findingColumns(wb.a.Findings, wb.actions.closed())
-	ts, err := openTableStream(wb, SheetFindings, cols, len(wb.a.Findings), 1, "", 0)
+	ts, err := openTableStream(wb, SheetFindings, cols, rows, 1, "", 0)
 	if err != nil {
 		return err
 	}
-	for i := range wb.a.Findings {
+	for i := 0; i < listed; i++ {
 		if err := ts.Row(findingRow{i + 1, &wb.a.Findings[i], wb.actions.open(i)}); err != nil {
 			return err
 		}
+	}
+	if total > listed {
+		msg := fmt.Sprintf("%d more findings are not listed here: a sheet holds at most %d rows, and %d of the %d findings are listed above. "+
+			"The audit JSON (--json) lists every finding, with its object.", total-listed, book.MaxSheetRows, listed, total)
+		if err := ts.Note(msg); err != nil {
+			return err
+		}
+		return ts.sw.Flush() // no room left for the closed part: a sheet this full lists no closed findings (known limit)
 	}
 	if err := wb.closedFindings(ts); err != nil {
 		return err
