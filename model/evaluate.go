@@ -761,7 +761,9 @@ func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 // with no charging mechanism on its row: its earthing is judged instead (a
 // resistance within Limits.ConductorEarthing keeps even the worst-case industrial
 // current below the spark floor) and the spark is otherwise not evaluated, with
-// what to measure. An unmeasured potential is capped at Limits.ConductorMaxPotential
+// what to measure. A conductor the row shows charged by motion (chargedInMotion)
+// and not earthed within that bound takes the worst-case current instead
+// (FlagAssumedCurrent), the stricter case of its unknown charging. An unmeasured potential is capped at Limits.ConductorMaxPotential
 // (a person's at Limits.PersonMaxPotential) and at the corona onset of the object's
 // radius; a measured one is never capped: one above the cap is flagged as a
 // contradiction (FlagMeasuredAboveMaximum).
