@@ -110,11 +110,16 @@
 //  2. Resistance: measured; unknown is taken as not earthed with no leakage at all
 //     (the stricter case for any measured resistance).
 //  3. Charging current: measured; mass flow x charge-to-mass; a person walking
-//     1 uA. No current is invented for any other conductor with no charging on its
-//     row: earthed within Limits.ConductorEarthing it cannot reach the spark floor
-//     even at the worst-case 100 uA (ReasonSparkEarthedBound); otherwise the spark
-//     is not evaluated (MissingConductorCharging says what to measure) and only its
-//     earthing is judged.
+//     1 uA. No current is invented for a conductor with no charging mechanism on
+//     its row: earthed within Limits.ConductorEarthing it cannot reach the spark
+//     floor even at the worst-case 100 uA (ReasonSparkEarthedBound); otherwise the
+//     spark is not evaluated (MissingConductorCharging says what to measure) and
+//     only its earthing is judged. A conductor the row shows charged by motion (a
+//     conductive roller, or a Speed on the row; chargedInMotion) that is not
+//     earthed within that bound has an unknown potential: the stricter case is
+//     taken, the worst-case Limits.MaxChargingCurrent (100 uA, JNIOSH-TR) through
+//     its resistance, V = I R, so a measured resistance still leaks
+//     (AssumedMaxCurrent, FlagAssumedCurrent).
 //  4. Potential: measured (above Limits.ConductorMaxPotential, a person's above
 //     Limits.PersonMaxPotential, it is flagged as a contradiction,
 //     FlagMeasuredAboveMaximum, and the spark taken at that maximum: reference

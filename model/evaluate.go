@@ -761,7 +761,9 @@ func estimateCapacitance(ev *Evaluation, in *Input) (float64, CapModel) {
 // with no charging mechanism on its row: its earthing is judged instead (a
 // resistance within Limits.ConductorEarthing keeps even the worst-case industrial
 // current below the spark floor) and the spark is otherwise not evaluated, with
-// what to measure. An unmeasured potential is capped at Limits.ConductorMaxPotential
+// what to measure. A conductor the row shows charged by motion (chargedInMotion)
+// and not earthed within that bound takes the worst-case current instead
+// (FlagAssumedCurrent), the stricter case of its unknown charging. An unmeasured potential is capped at Limits.ConductorMaxPotential
 // (a person's at Limits.PersonMaxPotential) and at the corona onset of the object's
 // radius; a measured one is never capped: one above the cap is flagged as a
 // contradiction (FlagMeasuredAboveMaximum).
@@ -790,6 +792,23 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	case in.Kind == Person:
 		i = WalkingCurrent
 		ev.Assumed |= AssumedWalkingCurrent
+	case chargedInMotion(in) && !(given(in.Resistance) && lim.MaxChargingCurrent*in.Resistance < lim.SparkMinPotential):
+		// A conductor the row shows charged by motion (a roller, in rolling
+		// contact with the web or belt it carries, or a row with a Speed), not
+		// earthed within the bound (resistance unknown, or measured high enough
+		// that the worst-case current reaches the spark floor), with no current
+		// and no potential on the row: it charges whenever the line runs but by
+		// how much is unknown, so the stricter case is taken (principle 2): the
+		// worst-case industrial current Limits.MaxChargingCurrent (100 uA,
+		// JNIOSH-TR) through its resistance, so a measured resistance still
+		// leaks (V = I R), capped below at the realistic plant maximum and the
+		// corona onset. Marked (AssumedMaxCurrent, FlagAssumedCurrent): the spark
+		// is judged and the station ranks on it, never left out for the missing
+		// input. A conductor with no charging mechanism on its row (a drum in
+		// storage, a flange) gets no invented current (below).
+		i = lim.MaxChargingCurrent
+		ev.Assumed |= AssumedMaxCurrent
+		ev.Flags |= FlagAssumedCurrent
 	}
 	i = math.Abs(i)
 	ev.ChargingCurrent = i
@@ -878,6 +897,22 @@ func evalConductor(ev *Evaluation, in *Input, env *Environment, lim *Limits, cur
 	if w > lim.ShockEnergy {
 		ev.Flags |= FlagShock
 	}
+}
+
+// chargedInMotion reports whether a conductor row shows a charging mechanism
+// though it gives no current: a conductive roller (rolling contact with the
+// web or belt it carries charges it by contact and separation whenever the line
+// runs; reference section 7, belts and webs) or any conductor with a Speed on
+// its row. A person (walking current), a powder's receiving container and a
+// liquid's vessel (their streams) have their own charging.
+func chargedInMotion(in *Input) bool {
+	switch in.Kind {
+	case Roller:
+		return true
+	case Container, Part:
+		return positive(in.Speed)
+	}
+	return false
 }
 
 // measuredAboveMaximum bounds a measured potential *v above the realistic

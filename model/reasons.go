@@ -428,6 +428,8 @@ const (
 	FlagReadingAboveBreakdown
 	// Review fixes (appended).
 	FlagConeAboveRange
+	// Review 3 (appended).
+	FlagAssumedCurrent
 	numFlags = iota
 )
 
@@ -454,6 +456,7 @@ func flagTexts() [numFlags]string {
 		"measured potential far above what the measured earthing allows under the worst-case charging current: the earthing path or the reading is wrong; the reading is kept",
 		"reading above what air can hold at the surface: the charge density is capped at the breakdown limit; check the meter's distance, unit and range",
 		"silo diameter or particle size above Glor's range: formula not valid there, the edge value is a lower bound (never a clearance)",
+		"conductor not earthed within the limit with no charging current and no potential on its row: the worst-case industrial charging current taken through its resistance to earth (the stricter case): the energy is set by that assumption; measure the potential in operation or the charging current",
 	}
 }
 

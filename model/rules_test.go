@@ -122,8 +122,65 @@ func TestConductorNoChargingMechanism(t *testing.T) {
 	}
 	in.Resistance = 1e9
 	ev = Evaluate(in, env, lim)
-	if ev.NotAssessed&MissingConductorCharging == 0 || ev.Assumed&AssumedMaxCurrent != 0 {
+	if ev.NotAssessed&MissingConductorCharging == 0 || ev.Assumed&AssumedMaxCurrent != 0 || ev.Flags&FlagAssumedCurrent != 0 {
 		t.Errorf("unearthed part with no charging: missing %b, assumed %b", ev.NotAssessed, ev.Assumed)
+	}
+}
+
+// TestRollerWorstCaseCurrent: a conductive roller runs in rolling contact with
+// its web or belt, a charging mechanism even with no current on its row. Not
+// earthed within the bound, its potential is unknown, and the stricter case is
+// taken (principle 2; review 3 item 4, stricter than the earlier "not
+// evaluated", which left its spark out of the station's verdict): the
+// worst-case 100 uA through the measured resistance (V = I R, so the resistance
+// still leaks), capped at the 50 kV plant maximum. Earthed within the bound it
+// stays cleared; a current on the row is used as given.
+func TestRollerWorstCaseCurrent(t *testing.T) {
+	lim := DefaultLimits()
+	env := gasEnv(IIA, Zone1, 0.24e-3)
+	in := blank(Roller)
+	in.Material = Material{Name: "aluminium", Conductive: true}
+	in.Capacitance = 20e-12 // invented for the test
+	in.Resistance = 1e6
+	ev := Evaluate(in, env, lim)
+	if ev.Discharges[Spark].Possible || ev.Discharges[Spark].Code != ReasonSparkEarthedBound || ev.Flags&FlagAssumedCurrent != 0 {
+		t.Errorf("earthed roller: %s, flags %b", ev.Discharges[Spark].Reason(), ev.Flags)
+	}
+	cases := []struct {
+		name      string
+		r         float64 // ohm; NaN: not measured
+		potential float64 // V
+		energy    float64 // J
+		capped    bool
+	}{
+		// Source: reference sections 6/7 (100 uA, JNIOSH-TR) and 12 (50 kV, common
+		// practice, no source); W = C V^2 / 2 by hand (python3):
+		// 1e9 ohm: 100e-6 x 1e9 = 1e5 V, capped at 5e4 V: 0.5 x 20e-12 x 5e4^2 = 0.025 J.
+		{"1 Gohm", 1e9, 5e4, 0.025, true},
+		// 1e7 ohm: 100e-6 x 1e7 = 1000 V (the measured resistance leaks): 0.5 x 20e-12 x 1e6 = 1e-5 J.
+		{"10 Mohm", 1e7, 1000, 1e-5, false},
+		// Not measured: no leakage, unbounded, capped at 5e4 V: 0.025 J.
+		{"not measured", math.NaN(), 5e4, 0.025, true},
+	}
+	for _, c := range cases {
+		in.Resistance = c.r
+		ev = Evaluate(in, env, lim)
+		if ev.NotAssessed != 0 || ev.Assumed&AssumedMaxCurrent == 0 || ev.Flags&FlagAssumedCurrent == 0 {
+			t.Errorf("%s: missing %b, assumed %b, flags %b", c.name, ev.NotAssessed, ev.Assumed, ev.Flags)
+		}
+		near(t, c.name+" current", ev.ChargingCurrent, 100e-6, 1e-12)
+		near(t, c.name+" potential", ev.Potential, c.potential, 1e-9)
+		near(t, c.name+" energy", ev.Discharges[Spark].Energy, c.energy, 1e-9)
+		if !ev.Discharges[Spark].Possible || (ev.Flags&FlagCappedConductor != 0) != c.capped {
+			t.Errorf("%s: spark %s, flags %b", c.name, ev.Discharges[Spark].Reason(), ev.Flags)
+		}
+	}
+	// A charging current on the row is used as given: V = I R = 1e-6 x 1e9 = 1000 V (hand).
+	in.Resistance, in.ChargingCurrent = 1e9, 1e-6
+	ev = Evaluate(in, env, lim)
+	near(t, "row current", ev.Potential, 1000, 1e-9)
+	if ev.Flags&FlagAssumedCurrent != 0 || ev.Assumed&AssumedMaxCurrent != 0 {
+		t.Errorf("row current: flags %b, assumed %b", ev.Flags, ev.Assumed)
 	}
 }
 

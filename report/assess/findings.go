@@ -48,6 +48,34 @@ func AssumedResistanceDominates(ev *model.Evaluation, d model.DischargeType) boo
 	return d == model.Spark && ev.Flags&model.FlagAssumedResistance != 0
 }
 
+// AssumedCurrentDominates reports whether a spark's energy is set by the
+// worst-case charging current taken for an unearthed conductor the row shows
+// charged by motion but gives no current nor potential for
+// (model.FlagAssumedCurrent): its size is the stricter case, not a figure.
+func AssumedCurrentDominates(ev *model.Evaluation, d model.DischargeType) bool {
+	return d == model.Spark && ev.Flags&model.FlagAssumedCurrent != 0
+}
+
+// AssumedInputDominates reports whether a spark's energy is set by an assumed
+// input, the resistance to earth or the charging current: its ratio, at least
+// 1, is shown as RatioAssumedText and the station's rank is noted as resting on it.
+func AssumedInputDominates(ev *model.Evaluation, d model.DischargeType) bool {
+	return AssumedResistanceDominates(ev, d) || AssumedCurrentDominates(ev, d)
+}
+
+// worstPotentialWords says how the potential of an assumed worst-case charging
+// current came about: "V = I R = 100 kV, capped at the realistic plant maximum
+// of 50 kV" (common practice, no source), or "V = I R = 1 kV".
+func worstPotentialWords(ev *model.Evaluation) string {
+	if ev.Flags&model.FlagCappedConductor != 0 && !math.IsNaN(ev.UncappedPotential) {
+		return fmt.Sprintf("V = I R = %s, capped at the realistic plant maximum of %s", kV(ev.UncappedPotential), kV(ev.Potential))
+	}
+	if ev.Flags&model.FlagCappedCorona != 0 {
+		return fmt.Sprintf("V = I R capped at the corona onset of %s", kV(ev.Potential))
+	}
+	return "V = I R = " + kV(ev.Potential)
+}
+
 // findings writes one Finding per failed check, in check order.
 func (x *objectContext) findings(r *ObjectResult, c *Classification) []Finding {
 	if c.Failed == 0 {
@@ -127,6 +155,10 @@ func (x *objectContext) findingText(k Check, r *ObjectResult, c *Classification)
 		if AssumedResistanceDominates(ev, c.Discharge) {
 			// The size of the estimate is an artefact of the unknown resistance: no kilojoules.
 			msg = fmt.Sprintf("%s energy of at least the MIE of %s (assumed resistance dominates: the resistance to earth is not measured, so no leakage is assumed); measure the resistance to earth and the potential in operation", dischargeWords(c.Discharge), mJ(env.MIE))
+		} else if AssumedCurrentDominates(ev, c.Discharge) {
+			// Review 3 item 4: a moving conductor not earthed within the limit,
+			// its charging unknown: the stricter case, said as such.
+			msg = fmt.Sprintf("%s of up to %s at the assumed worst case reaches the MIE of %s (the ratio, %s, is no figure: at least 1 on this assumption): no charging current or potential on the row, so the worst-case industrial %s is taken through the resistance to earth of %s (%s; capacitance %s); measure the potential in operation (or the charging current), and earth the conductor", dischargeWords(c.Discharge), mJ(c.Energy), mJ(env.MIE), ratioText(c.Ratio), uA(ev.ChargingCurrent), ohm(in.Resistance), worstPotentialWords(ev), pF(ev.Capacitance))
 		}
 		if in.Kind == model.Liquid && c.Discharge == model.Spark {
 			msg += " (" + model.CurrentCase(in, ev) + ")"

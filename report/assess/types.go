@@ -157,8 +157,11 @@ func RatioText(r *float64) string {
 }
 
 // RatioAssumedText is shown instead of a ratio whose size is an artefact of an
-// assumed resistance to earth (the energy "at least the MIE").
-const RatioAssumedText = ">= 1 (assumed R)"
+// assumed input: an unmeasured resistance to earth (the energy "at least the
+// MIE") or the worst-case charging current of an unearthed conductor with no
+// current on its row (AssumedInputDominates). The object's findings and marks
+// say which.
+const RatioAssumedText = ">= 1 (assumed)"
 
 // RatioAssumed reports whether the object's ratio is at least 1 only because no
 // leakage was assumed for an unmeasured resistance to earth: its size (the 50 kV
@@ -172,18 +175,19 @@ func (r *ObjectResult) EnergyStated() bool {
 }
 
 func (r *ObjectResult) RatioAssumed() bool {
-	return r.Ratio != nil && *r.Ratio >= 1 && AssumedResistanceDominates(&r.Eval, r.Eval.Effective)
+	return r.Ratio != nil && *r.Ratio >= 1 && AssumedInputDominates(&r.Eval, r.Eval.Effective)
 }
 
 // Notes returns the station's marks for the terminal and the Stations sheet:
-// incomplete (rejected object rows) and a rank resting on an assumed resistance.
+// incomplete (rejected object rows) and a rank resting on an assumed resistance
+// or charging current.
 func (s StationResult) Notes() []string {
 	var out []string
 	if t := s.IncompleteText(); t != "" {
 		out = append(out, t)
 	}
 	if s.WorstRatioAssumed {
-		out = append(out, "rank rests on an assumed resistance to earth (worst ratio at least 1, its size not a figure)")
+		out = append(out, "rank rests on an assumed resistance to earth or charging current (worst ratio at least 1, its size not a figure)")
 	}
 	return out
 }

@@ -212,7 +212,7 @@ func (wb *workbook) summary() error {
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
 		if err := sink.Row(r, []book.Cell{book.WrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
 			"Every station with a verdict is listed with it; a station whose ratio is \"no discharge\" (no discharge possible) or \"n/a\" (no flammable atmosphere: judged on shock and earthing alone; or not assessed) has no bar; " +
-			"\">= 1 (assumed R)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth is assumed, its size is no figure. A ratio below the axis is drawn at its bottom.")}, 0); err != nil {
+			"\">= 1 (assumed)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth or the charging current is assumed, its size is no figure. A ratio below the axis is drawn at its bottom.")}, 0); err != nil {
 			return err
 		}
 		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
@@ -439,7 +439,7 @@ func siteProv(site inventory.Site, it assess.Item) assess.Provenance {
 }
 
 // stationRatioText is the text shown for a station's worst ratio where it is
-// no number to read: ">= 1 (assumed R)", "n/a", "no discharge"; "" otherwise.
+// no number to read: ">= 1 (assumed)", "n/a", "no discharge"; "" otherwise.
 func stationRatioText(st *assess.StationResult) string {
 	if st.WorstRatioAssumed {
 		return assess.RatioAssumedText

@@ -58,7 +58,7 @@ func TestWriteSummaryBlankSiteHumidity(t *testing.T) {
 }
 
 // TestStationNotes: a station with rejected object rows is marked incomplete,
-// and one ranked on an assumed resistance shows ">= 1 (assumed R)", on the
+// and one ranked on an assumed resistance shows ">= 1 (assumed)", on the
 // terminal and in the JSON (keys added, numbers kept) (review items 6 and 11).
 func TestStationNotes(t *testing.T) {
 	a := testAudit()
