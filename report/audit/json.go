@@ -236,7 +236,7 @@ type jsonObject struct {
 	EnergyJP50  *float64         `json:"energy_J_p50,omitempty"`
 	EnergyJP95  *float64         `json:"energy_J_p95,omitempty"`
 	// EnergyNote qualifies energy_J where the number is not to be read as it
-	// stands: "at least the MIE (assumed resistance dominates)".
+	// stands: EnergyAtLeastMIE ("at least the MIE", an assumed resistance or current dominating).
 	EnergyNote string `json:"energy_note,omitempty"`
 	// RatioAssumedResistance: ratio is an artefact of an assumed resistance to
 	// earth (read it as at least 1, with energy_note).
@@ -460,7 +460,7 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		if jo.EnergyJ != nil && *jo.EnergyJ > 0 {
 			jo.EffectiveDischarge = strPtr(e.Effective.String())
 		}
-		if assess.AssumedResistanceDominates(e, e.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
+		if assess.AssumedInputDominates(e, e.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
 			jo.EnergyNote = EnergyAtLeastMIE
 			jo.RatioAssumedResistance = true
 		}

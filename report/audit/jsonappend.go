@@ -193,7 +193,7 @@ func appendObjectJSON(j *jsonOut, o *assess.ObjectResult) {
 			s := e.Effective.String()
 			discharge = &s
 		}
-		note = assess.AssumedResistanceDominates(e, e.Effective) && o.Ratio != nil && *o.Ratio >= 1
+		note = assess.AssumedInputDominates(e, e.Effective) && o.Ratio != nil && *o.Ratio >= 1
 	}
 	j.num("energy_J", energy)
 	j.strOrNull("effective_discharge", discharge)

@@ -59,7 +59,7 @@ func dischargeReason(d model.Discharge) string {
 
 // EnergyAtLeastMIE is how the audit shows an energy set by an assumed (unknown)
 // resistance to earth that reaches the MIE: not as the estimate's kilojoules.
-const EnergyAtLeastMIE = "at least the MIE (assumed resistance dominates)"
+const EnergyAtLeastMIE = "at least the MIE (an assumed resistance to earth or charging current dominates)"
 
 // estimated reports whether any of the items is estimated on the object (a
 // computed value resting on it is marked est.).
@@ -255,7 +255,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 			if !o.EnergyStated() {
 				return book.Cell{NumFmt: book.UnitMJ.NumFmt()}
 			}
-			if assess.AssumedResistanceDominates(&o.Eval, o.Eval.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
+			if assess.AssumedInputDominates(&o.Eval, o.Eval.Effective) && o.Ratio != nil && *o.Ratio >= 1 {
 				return book.WrapText(EnergyAtLeastMIE)
 			}
 			c := book.Quantity(book.UnitMJ, o.Eval.EffectiveEnergy)
