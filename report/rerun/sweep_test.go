@@ -69,7 +69,7 @@ func TestSweepKeepsStationRH(t *testing.T) {
 			dry = c
 		}
 	}
-	if dry.Cause != HeldAtOwnRH || !strings.Contains(dry.Text, "kept at its own 20 % RH") {
+	if dry.Cause != HeldAtOwnRH || !strings.Contains(dry.Text, "held at its own RH 20 %") {
 		t.Errorf("ST-DRY clearance %v %q", dry.Cause, dry.Text)
 	}
 	// Terminal, JSON and Method sheet say which station was held.
@@ -202,5 +202,50 @@ func TestSweepManyStationsStayNarrow(t *testing.T) {
 	rows, _ := f.GetRows(SheetSweepLong)
 	if len(rows) != 1+40*len(rh) {
 		t.Errorf("%s has %d rows, want %d (a header and one per station and step)", SheetSweepLong, len(rows), 1+40*len(rh))
+	}
+}
+
+// The cause named for a station that never clears is that of the object that
+// sets its worst ratio at the highest step; the other rows' missing inputs are
+// "also missing". Invented for the demo, after the review's powder station: a
+// drum earthed through a measured 1e11 Ω and an unmeasured small part.
+func TestSweepCauseIsTheWorstObjects(t *testing.T) {
+	// DRUM: I = 0.5 kg/s x 10 µC/kg = 5 µA; R C = 1e11 x 100 pF = 10 s; after
+	// 1 s V = I R (1 - e^-0.1) = 47.6 kV; W = C V²/2 = 113 mJ; ratio to
+	// toluene's 0.24 mJ about 470 (hand calculation, W = C V²/2, textbook).
+	drum := inventory.Object{ID: "DRUM", Kind: "container", MassFlow: known(0.5), ChargeToMass: known(10e-6),
+		Resistance: known(1e11), Capacitance: known(100e-12), ChargingTime: known(1)}
+	// PART: same current, 10 pF, resistance not measured (taken as 1e13 Ω, no
+	// leakage): V at most the 50 kV cap, W <= 10 pF x (50 kV)² / 2 = 12.5 mJ,
+	// ratio at most 52, below the drum's (hand calculation).
+	part := inventory.Object{ID: "PART", Kind: "container", MassFlow: known(0.5), ChargeToMass: known(10e-6),
+		Capacitance: known(10e-12), ChargingTime: known(1)}
+	s := surveyOf(atmToluene, 30, drum, part)
+	s.Objects[1].Station = s.Stations[0].ID // both at ST-DRUM
+	s.Stations = s.Stations[:1]
+	rh, _ := ParseRange("20:80:30")
+	sw := RunSweep(s, rh, SweepOptions{})
+	c := sw.Clearances[0]
+	if c.ID != "ST-DRUM" || c.SetBy != "DRUM" || c.Cause != NeverHumidity {
+		t.Fatalf("clearance %s: set by %q, cause %q, want DRUM, %q: %s", c.ID, c.SetBy, c.Cause.Code(), NeverHumidity.Code(), c.Text)
+	}
+	for _, want := range []string{"set by DRUM (incendive, spark", "resistance to earth 1.0e11 Ω measured", "also missing: resistance to earth not measured (assumed no leakage, the stricter case) on PART"} {
+		if !strings.Contains(c.Text, want) {
+			t.Errorf("text lacks %q: %s", want, c.Text)
+		}
+	}
+	if strings.Contains(c.Text, "because an input is missing") {
+		t.Errorf("the worst ratio rests on a measured resistance, not a missing input: %s", c.Text)
+	}
+	if len(c.Missing) != 1 || !strings.HasPrefix(c.Missing[0], "PART: ") {
+		t.Errorf("missing %v, want PART's resistance only", c.Missing)
+	}
+
+	// Earth the drum (1e5 Ω, below the 1e6 Ω limit, TRGS 727 cl. 8.3): PART
+	// now sets the ratio, and its missing resistance is the cause.
+	s.Objects[0].Resistance = known(1e5)
+	c = RunSweep(s, rh, SweepOptions{}).Clearances[0]
+	if c.SetBy != "PART" || c.Cause != NeverMissingInput || !strings.Contains(c.Text, "set by PART") || strings.Contains(c.Text, "also missing") {
+		t.Errorf("earthed drum: set by %q, cause %q: %s", c.SetBy, c.Cause.Code(), c.Text)
 	}
 }
