@@ -249,3 +249,70 @@ func TestSweepCauseIsTheWorstObjects(t *testing.T) {
 		t.Errorf("earthed drum: set by %q, cause %q: %s", c.SetBy, c.Cause.Code(), c.Text)
 	}
 }
+
+// A station held at its own RH is marked as held wherever its values appear:
+// the Sweep sheet's headers and note, the Sweep by station rows, the Stations
+// sheet and the terminal table. Eleven invented stations (more than
+// SweepWideStations, so the long sheet is written); ST-D05 keeps 20 %.
+func TestSweepMarksHeldStation(t *testing.T) {
+	var objs []inventory.Object
+	for i := range SweepWideStations + 1 {
+		objs = append(objs, inventory.Object{ID: fmt.Sprintf("D%02d", i), Kind: "container", MassFlow: known(0.5), ChargeToMass: known(10e-6),
+			Resistance: known(1e11), Capacitance: known(float64(100-i) * 1e-12), ChargingTime: known(1)}) // invented for the demo
+	}
+	s := surveyOf(atmToluene, 30, objs...)
+	s.Stations[5].RelativeHumidity = known(20)
+	rh, _ := ParseRange("10:90:40")
+	sw := RunSweep(s, rh, SweepOptions{})
+
+	var term bytes.Buffer
+	if err := WriteSweepSummary(&term, sw, 0); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(term.String(), "ST-D05*") || !strings.Contains(term.String(), "* not swept: ST-D05 held at own RH 20 %") {
+		t.Errorf("terminal does not mark the held column:\n%s", term.String())
+	}
+	var x bytes.Buffer
+	if err := WriteSweepWorkbook(&x, sw, RunInfo{}); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows(SheetSweep)
+	hdr := strings.Join(rows[0], "|")
+	if !strings.Contains(hdr, "ST-D05 worst ratio [–] held at own RH 20 %|ST-D05 verdict held at own RH 20 %") || strings.Contains(hdr, "ST-D04 worst ratio [–] held") {
+		t.Errorf("Sweep headers: %s", hdr)
+	}
+	var noted bool
+	for _, r := range rows[len(rh)+1:] {
+		if len(r) > 0 && strings.Contains(r[0], "Not swept: ST-D05 held at own RH 20 %") {
+			noted = true
+		}
+	}
+	if !noted {
+		t.Errorf("Sweep sheet has no note of the held station: %q", rows[len(rh)+1:])
+	}
+	long, _ := f.GetRows(SheetSweepLong)
+	for _, r := range long[1:] {
+		isHeld := len(r) > 4 && r[4] == "held at own RH 20 %, not swept"
+		if isHeld != (r[0] == "ST-D05") {
+			t.Errorf("%s row %q: held mark %v", SheetSweepLong, r, isHeld)
+		}
+	}
+	st, _ := f.GetRows(SheetStations)
+	if !strings.Contains(strings.Join(st[0], "|"), "Verdict at swept 10 %") {
+		t.Errorf("Stations header %q", st[0])
+	}
+	for _, r := range st[1:] {
+		want := "swept"
+		if r[0] == "ST-D05" {
+			want = "held at own RH 20 % (not swept)"
+		}
+		if r[2] != want {
+			t.Errorf("Stations %s: %q, want %q", r[0], r[2], want)
+		}
+	}
+}

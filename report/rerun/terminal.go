@@ -92,7 +92,11 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 		hdr := []string{"RH %", "Incendive", "Marginal"}
 		for _, j := range block {
-			hdr = append(hdr, s.Steps[0].Stations[j].ID)
+			id := s.Steps[0].Stations[j].ID
+			if s.isHeld(id) {
+				id += "*" // held at its own RH: the footnote below says so
+			}
+			hdr = append(hdr, id)
 		}
 		fmt.Fprintln(tw, strings.Join(hdr, "\t")+"\t")
 		for _, st := range s.Steps {
@@ -109,6 +113,17 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 		}
 	}
 	fmt.Fprintln(w, "Station cells: worst ratio E/MIE; ! incendive, ~ marginal, ? not assessed, blank non-incendive.")
+	var heldShown []string
+	for _, j := range shown {
+		for _, h := range s.Held {
+			if h.ID == s.Steps[0].Stations[j].ID {
+				heldShown = append(heldShown, fmt.Sprintf("%s %s", h.ID, heldMark(h.RH)))
+			}
+		}
+	}
+	if len(heldShown) > 0 {
+		fmt.Fprint(w, wrapText("", "* not swept: "+strings.Join(heldShown, ", ")+"; every row shows its result at that RH.", terminalWidth, "  "))
+	}
 	fmt.Fprintln(w)
 	for _, j := range shown {
 		c := s.Clearances[j]
@@ -122,6 +137,16 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	fmt.Fprint(w, wrapText("", MeasuredReadingsNote, terminalWidth, ""))
 	caution(w)
 	return nil
+}
+
+// isHeld: the station was kept at its own RH.
+func (s *Sweep) isHeld(id string) bool {
+	for _, h := range s.Held {
+		if h.ID == id {
+			return true
+		}
+	}
+	return false
 }
 
 // sweepHeldText says how the sweep set the stations' RH: which stations kept

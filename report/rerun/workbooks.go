@@ -180,11 +180,22 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	b := newBook(base, info, SheetSweep, "Humidity sweep of the screening audit")
 	wide := sw.Top(SweepWideStations)
 	all := len(sw.Steps[0].Stations)
+	held := map[string]float64{}
+	for _, h := range sw.Held {
+		held[h.ID] = h.RH
+	}
 	headers := []string{"RH [%]", "Incendive objects", "Marginal objects"}
 	widths := []float64{8, 11, 11}
+	var heldShown []string
 	for _, j := range wide {
 		id := sw.Steps[0].Stations[j].ID
-		headers = append(headers, id+" worst ratio [–]", id+" verdict")
+		suffix := ""
+		if rh, ok := held[id]; ok {
+			// Its own RH is kept: the column repeats one value, it was not swept.
+			suffix = " " + heldMark(rh)
+			heldShown = append(heldShown, id+" "+heldMark(rh))
+		}
+		headers = append(headers, id+" worst ratio [–]"+suffix, id+" verdict"+suffix)
 		widths = append(widths, 11, 12)
 	}
 	var rows [][]audit.Cell
@@ -205,13 +216,23 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		return excelize.ChartSeries{Name: fmt.Sprintf("%s!$%s$1", sh, c), Categories: cat, Values: fmt.Sprintf("%s!$%s$2:$%s$%d", sh, c, c, n),
 			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}, Line: excelize.LineOptions{Width: 2, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}, Marker: excelize.ChartMarker{Symbol: "circle", Size: 5, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}}
 	}
-	chartRow := n + 3
+	noteRow := n + 2
+	note := func(text string) {
+		b.Put(SheetSweep, 1, noteRow, wr(text))
+		b.check(b.f.MergeCell(SheetSweep, fmt.Sprintf("A%d", noteRow), fmt.Sprintf("L%d", noteRow)))
+		b.check(b.f.SetRowHeight(SheetSweep, noteRow, 30))
+		noteRow++
+	}
+	if len(heldShown) > 0 {
+		note(fmt.Sprintf("Not swept: %s. A station that gives its own RH keeps it at every step (--all-stations sweeps it too); its columns show its result at that RH on every row.", strings.Join(heldShown, ", ")))
+	}
 	if len(wide) < all {
-		b.Put(SheetSweep, 1, n+2, wr(fmt.Sprintf("The columns show the %d worst of %d stations (by rank at %s %% RH); every station at every step is on the %q sheet, and what each does on the Stations sheet.",
-			len(wide), all, fmtSig(sw.Steps[0].RH), SheetSweepLong)))
-		b.check(b.f.MergeCell(SheetSweep, fmt.Sprintf("A%d", n+2), fmt.Sprintf("L%d", n+2)))
-		b.check(b.f.SetRowHeight(SheetSweep, n+2, 30))
-		chartRow = n + 4
+		note(fmt.Sprintf("The columns show the %d worst of %d stations (by rank at %s %% RH); every station at every step is on the %q sheet, and what each does on the Stations sheet.",
+			len(wide), all, fmtSig(sw.Steps[0].RH), SheetSweepLong))
+	}
+	chartRow := n + 3
+	if noteRow > n+2 {
+		chartRow = noteRow + 1
 	}
 	anchor := fmt.Sprintf("A%d", chartRow)
 	b.check(b.f.AddChart(SheetSweep, anchor, &excelize.Chart{
@@ -252,22 +273,22 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	b.PrintSetup(SheetSweep, "$1:$1")
 
 	if len(wide) < all {
-		// Every station at every step, one row each: four columns however many stations.
+		// Every station at every step, one row each: five columns however many stations.
 		rows = nil
 		for j := range sw.Steps[0].Stations {
 			for _, st := range sw.Steps {
 				x := st.Stations[j]
-				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String())})
+				mark := audit.EmptyCell()
+				if rh, ok := held[x.ID]; ok {
+					mark = tx(heldMark(rh) + ", not swept")
+				}
+				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()), mark})
 			}
 		}
-		b.Table(SheetSweepLong, 1, []string{"Station", "RH [%]", "Worst ratio [–]", "Verdict"}, []float64{12, 8, 12, 14}, rows)
+		b.Table(SheetSweepLong, 1, []string{"Station", "Swept RH [%]", "Worst ratio [–]", "Verdict", "Station RH"}, []float64{12, 8, 12, 14, 24}, rows)
 		b.PrintSetup(SheetSweepLong, "$1:$1")
 	}
 
-	held := map[string]float64{}
-	for _, h := range sw.Held {
-		held[h.ID] = h.RH
-	}
 	rows = nil
 	first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
 	for j, c := range sw.Clearances {
@@ -275,14 +296,14 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		if c.Cause == ClearsAlways || c.Cause == ClearsFrom {
 			clears = audit.QuantityCell(book.UnitPercentRH, c.ClearsAt)
 		}
-		own := audit.EmptyCell()
+		own, swept := audit.EmptyCell(), tx("swept")
 		if rh, ok := held[c.ID]; ok {
-			own = audit.QuantityCell(book.UnitPercentRH, rh)
+			own, swept = audit.QuantityCell(book.UnitPercentRH, rh), tx(heldMark(rh)+" (not swept)")
 		}
-		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
+		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), swept, own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Own RH kept [%]", fmt.Sprintf("Verdict at %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
-		[]float64{10, 28, 10, 14, 14, 14, 60}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Swept or held", "Own RH kept [%]", fmt.Sprintf("Verdict at swept %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at swept %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
+		[]float64{10, 28, 22, 10, 14, 14, 14, 60}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 	notes := append(rerunNotes()[2:3], [2]string{"Sweep", sweepMethodText(sw)})
 	b.AddMethodSheet(audit.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
@@ -290,6 +311,9 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	b.AddRejectedSheet(sw.Survey)
 	return b.write(w)
 }
+
+// heldMark marks a station kept at its own RH: "held at own RH 20 %".
+func heldMark(rh float64) string { return fmt.Sprintf("held at own RH %s %%", fmtSig(rh)) }
 
 // sweepMethodText is the Method sheet's note on how the sweep set the RH and
 // what its clearances mean.
