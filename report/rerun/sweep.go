@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -113,6 +114,10 @@ type Sweep struct {
 	Held        []HeldStation // stations kept at their own RH, survey order (none with AllStations)
 	Steps       []SweepStep
 	Clearances  []StationClearance // survey station order
+	// Warnings: swept RH values likely meant otherwise (below 1 %, a fraction
+	// of 1 meant as a percentage: inventory.LowRHWarning), as check warns
+	// for an RH cell; the sweep runs them as given.
+	Warnings []string
 }
 
 // ParseRange reads "FROM:TO:STEP" in %RH (e.g. "10:90:5") into the list of RH
@@ -193,6 +198,13 @@ func RunSweep(s *inventory.Survey, rh []float64, o SweepOptions) *Sweep {
 			if st.RelativeHumidity.Known {
 				sw.Held = append(sw.Held, HeldStation{ID: st.ID, Name: st.Name, RH: st.RelativeHumidity.Value})
 			}
+		}
+	}
+	// A range wholly below 1 % reads as fractions of 1 ("0.2:0.8:0.1"); a
+	// fine step from 0 up to a real RH ("0:90:0.5") does not.
+	if top := slices.Max(append([]float64{0}, rh...)); top > 0 {
+		if msg, fix := inventory.LowRHWarning(top); msg != "" {
+			sw.Warnings = append(sw.Warnings, fmt.Sprintf("--rh up to %s %%: %s; %s", fmtSig(top), msg, fix))
 		}
 	}
 	var last *assess.Audit

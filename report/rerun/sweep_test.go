@@ -316,3 +316,43 @@ func TestSweepMarksHeldStation(t *testing.T) {
 		}
 	}
 }
+
+// An RH below 1 % is most often a fraction of 1 meant as a percentage: the
+// whatif RH changes and a sweep range wholly below 1 % warn with the words
+// check uses for an RH cell (inventory.LowRHWarning), and run as given.
+func TestLowRHWarns(t *testing.T) {
+	// 0.4 read as a fraction is 0.4 x 100 = 40 % (arithmetic).
+	wantMsg := "relative humidity 0.4 % is very low: a cell formatted as a percentage stores 45 % as 0.45"
+	wantFix := "did you mean 40 %?"
+	web := inventory.Object{ID: "WEB", Kind: "sheet", Material: "paper", Length: known(1), Width: known(1), Thickness: known(50e-6),
+		Backing: "none", Field: known(500e3), FieldDistance: known(0.1), Resistance: known(1e6)} // invented for the demo
+	s := surveyOf(atmToluene, 40, web)
+	for _, f := range [][2]string{{"rh", "0.4"}, {"station-rh", "ST-WEB=0.4"}} {
+		w := run(t, s, f)
+		if got := w.Applied[0].Warning; got != wantMsg+"; "+wantFix || !strings.HasSuffix(w.Applied[0].Description, "warning: "+wantMsg+"; "+wantFix) {
+			t.Errorf("--%s %s: warning %q, description %q", f[0], f[1], got, w.Applied[0].Description)
+		}
+	}
+	if w := run(t, s, [2]string{"rh", "40"}); w.Applied[0].Warning != "" {
+		t.Errorf("--rh 40 warns: %q", w.Applied[0].Warning)
+	}
+	for _, c := range []struct {
+		rh   string
+		warn bool
+	}{{"0.4", true}, {"0.1:0.4:0.1", true}, {"0:90:0.5", false}, {"40", false}} {
+		rh, err := ParseRange(c.rh)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sw := RunSweep(s, rh, SweepOptions{})
+		var term bytes.Buffer
+		_ = WriteSweepSummary(&term, sw, 0)
+		flat := strings.Join(strings.Fields(term.String()), " ")
+		if got := strings.Contains(flat, "Warning: --rh up to 0.4 %: "+wantMsg+"; "+wantFix); got != c.warn {
+			t.Errorf("--rh %s: warned %v, want %v:\n%s", c.rh, got, c.warn, term.String())
+		}
+		if c.warn != strings.Contains(sweepMethodText(sw), wantMsg) {
+			t.Errorf("--rh %s: Method text %q", c.rh, sweepMethodText(sw))
+		}
+	}
+}

@@ -83,6 +83,9 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	if len(s.Steps) == 0 {
 		return nil
 	}
+	for _, t := range s.Warnings {
+		fmt.Fprint(w, wrapText("Warning: ", t, terminalWidth, "  "))
+	}
 	shown := s.Top(top)
 	for start := 0; start < len(shown) || start == 0; start += SweepColumnsPerTable {
 		block := shown[start:min(start+SweepColumnsPerTable, len(shown))]

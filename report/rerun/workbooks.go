@@ -318,7 +318,11 @@ func heldMark(rh float64) string { return fmt.Sprintf("held at own RH %s %%", fm
 // sweepMethodText is the Method sheet's note on how the sweep set the RH and
 // what its clearances mean.
 func sweepMethodText(sw *Sweep) string {
-	return "At each step the swept RH is set as the site RH and the survey is assessed again with the same limits. " +
+	warn := ""
+	if len(sw.Warnings) > 0 {
+		warn = "Warning: " + strings.Join(sw.Warnings, " ") + " "
+	}
+	return warn + "At each step the swept RH is set as the site RH and the survey is assessed again with the same limits. " +
 		sweepHeldText(sw, 0) + " " +
 		"A station becomes non-incendive at the lowest step from which every higher step is non-incendive. When the highest step is still incendive, marginal or not assessed, the Stations sheet says why: an input missing or assumed the stricter case (an unmeasured resistance to earth, a missing MIE or dimension) is named as the cause, since humidity cannot clear what is not known; a reading above its screen holds at every RH; otherwise humidity alone never gets it there. Steps are only as fine as the range given."
 }

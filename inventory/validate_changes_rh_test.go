@@ -1,0 +1,26 @@
+package inventory
+
+import "testing"
+
+// An RH change below 1 % is read and warned about with the words of an RH
+// cell's warning (checkRH); 0.4 as a fraction is 40 % (arithmetic).
+func TestChangeLowRHWarnsAsACell(t *testing.T) {
+	cell := checkRH(Known(0.4))
+	if len(cell) != 1 || cell[0].Severity != Warning {
+		t.Fatalf("checkRH(0.4) = %v", cell)
+	}
+	for _, c := range [][2]string{{"rh", ""}, {"station-rh", "ST-1"}} {
+		p, err := ParseChange(c[0], c[1], "0.4")
+		if err != nil {
+			t.Fatalf("%s 0.4: %v", c[0], err)
+		}
+		if p.Number != 0.4 || p.Warning != cell[0].Message || p.WarningFix != cell[0].Fix || p.WarningFix != "did you mean 40 %?" {
+			t.Errorf("%s 0.4: %v %q %q, want the cell's %q %q", c[0], p.Number, p.Warning, p.WarningFix, cell[0].Message, cell[0].Fix)
+		}
+	}
+	for _, v := range []string{"40", "0", "1"} {
+		if p, _ := ParseChange("rh", "", v); p.Warning != "" {
+			t.Errorf("rh %s warns %q", v, p.Warning)
+		}
+	}
+}
