@@ -54,6 +54,18 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
 	}
 	tw.Flush()
+	var worse []string
+	for _, o := range x.Objects {
+		if o.Worse != "" {
+			worse = append(worse, o.Worse)
+		}
+	}
+	if len(worse) > 0 {
+		fmt.Fprintln(w, "\nWhy worse:")
+		for _, t := range worse {
+			fmt.Fprint(w, wrapText("  ", t, terminalWidth, "    "))
+		}
+	}
 	fmt.Fprintf(w, "\nObjects: %d cleared, %d stayed, %d appeared, %d without hazard before and after",
 		x.Moved[Cleared], x.Moved[Stayed], x.Moved[Appeared], x.Moved[NoHazard])
 	if n := x.Moved[Unjudged]; n > 0 {

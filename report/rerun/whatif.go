@@ -52,6 +52,11 @@ type ObjectDelta struct {
 	Outcome           Outcome
 	Changed           bool   // a change reached this row or its station
 	Why               string // the physics of the difference, in words
+	// Worse says, in a line, why a change made the row worse (a more severe
+	// verdict, or a higher ratio), from its typed results before and after
+	// ("REW-BELT: now dissipative at 55 % RH and not earthed: judged as an
+	// isolated conductor; earth it"); "" when it is not worse.
+	Worse string
 }
 
 // StationDelta is one station before and after the changes.
@@ -117,6 +122,9 @@ func Diff(before, after *assess.Audit, applied []Applied) *Whatif {
 			d.Outcome = OutcomeOf(b.Verdict, d.After.Verdict)
 			d.Changed = reached[d.ID] || rhStations[d.Station] || siteWideChange
 			d.Why = why(b, d.After, d.Changed)
+			if d.Changed {
+				d.Worse = worse(b, d.After)
+			}
 		}
 		w.Moved[d.Outcome]++
 		w.Objects = append(w.Objects, d)
@@ -175,6 +183,56 @@ func why(b, a *assess.ObjectResult, changed bool) string {
 		parts = append(parts, "the change does not alter this row's result")
 	}
 	return strings.Join(parts, "; ") + ": " + verdictPhrase(a)
+}
+
+// worse says why the row got worse, from its typed results (empty when it
+// did not): a surface that became an unearthed conductor (its resistivity
+// now below the dissipative bound at this RH, or a conducting material on a
+// row not earthed), a discharge of another type, a higher resistance to
+// earth, else the ratio's move.
+func worse(b, a *assess.ObjectResult) string {
+	sb, sa := b.Verdict.Severity(), a.Verdict.Severity()
+	up := sa > sb
+	if sa == sb && a.Verdict != assess.NonIncendive && b.Ratio != nil && a.Ratio != nil && *a.Ratio > *b.Ratio*(1+1e-9) {
+		up = true
+	}
+	if !up {
+		return ""
+	}
+	id := a.Object.ID
+	move := fmt.Sprintf("%s → %s", verdictPhrase(b), verdictPhrase(a))
+	rb, ra := b.Object.Resistance, a.Object.Resistance
+	switch {
+	case a.Eval.IsolatedConductor && !b.Eval.IsolatedConductor:
+		how := "now conducts"
+		if x := a.Eval.SurfaceResistivity; !math.IsNaN(x) {
+			how = fmt.Sprintf("now %s (%s Ω/sq)", resistivityClass(x), fmtSig(x))
+		}
+		if b.Object.Material != a.Object.Material {
+			how = fmt.Sprintf("the new material %s is %s", orNone(a.Object.Material), strings.TrimPrefix(how, "now "))
+		} else if b.Environment.RelativeHumidity != a.Environment.RelativeHumidity {
+			how += fmt.Sprintf(" at %s %% RH", fmtSig(a.Environment.RelativeHumidity))
+		}
+		return fmt.Sprintf("%s: %s and not earthed: judged as an isolated conductor that can spark; earth it (%s)", id, how, move)
+	case a.Eval.Effective != b.Eval.Effective && a.Eval.Effective != model.NoDischarge && b.Eval.Effective != model.NoDischarge:
+		return fmt.Sprintf("%s: its worst discharge is now a %s (was a %s) (%s)", id, a.Eval.Effective, b.Eval.Effective, move)
+	case ra.Known && (!rb.Known || ra.Value > rb.Value) && ra != rb:
+		return fmt.Sprintf("%s: resistance to earth %s → %s Ω leaks less charge (%s)", id, ohmText(rb), ohmText(ra), move)
+	}
+	return fmt.Sprintf("%s: worse after the change (%s)", id, move)
+}
+
+// resistivityClass names a surface resistivity's class: conductive below
+// 1e5 Ω/sq, dissipative below 1e12 Ω/sq, insulating above (the classes of
+// the built-in materials, inventory/library.go; IEC TS 60079-32-1).
+func resistivityClass(x float64) string {
+	switch {
+	case x < 1e5:
+		return "conductive"
+	case x < 1e12:
+		return "dissipative"
+	}
+	return "insulating"
 }
 
 // humidityPhrase says how the row's material responds to an RH change, from its
