@@ -306,7 +306,12 @@ func (v *validator) changes(t *table, stations, objs map[string]refState) {
 			switch {
 			case p.Station != "":
 				if rid, ok := f.resolve("Target", p.Station, stations, SheetStations, v.tables[SheetStations].Present); ok {
-					c.Target = "station:" + rid
+					// Kept as the user wrote it: a bare station ID (station-rh
+					// takes one) stays bare, station:ID stays so.
+					c.Target = rid
+					if _, wrote := cutStation(strings.TrimSpace(f.text("Target"))); wrote {
+						c.Target = "station:" + rid
+					}
 				}
 			case p.Object != "" && !hasRef(objs, p.Object) && hasRef(stations, p.Object):
 				// As the whatif flag says it: a station is reached by station:ID.

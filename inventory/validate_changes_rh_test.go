@@ -24,3 +24,24 @@ func TestChangeLowRHWarnsAsACell(t *testing.T) {
 		}
 	}
 }
+
+// A Changes row's target is kept as the user wrote it: station-rh takes a
+// bare station ID and shows it bare; station:ID stays so. An RH of 0.4 on a
+// row is read, with the RH cell's warning on its Value cell.
+func TestChangesSheetTargetAsWritten(t *testing.T) {
+	b := append(utValidBook(), utSheet{SheetChanges, [][]any{
+		utHeader(SheetChanges),
+		utRow(SheetChanges, map[string]any{"Change": "station-rh", "Target": "ST-2", "Value": "40"}),
+		utRow(SheetChanges, map[string]any{"Change": "station-rh", "Target": "station:ST-2", "Value": "55"}),
+		utRow(SheetChanges, map[string]any{"Change": "rh", "Value": "0.4"}),
+	}})
+	s := utReadBook(t, b)
+	if len(s.Changes) != 3 || s.Changes[0].Target != "ST-2" || s.Changes[1].Target != "station:ST-2" {
+		t.Fatalf("changes %+v\n%s", s.Changes, utDump(s))
+	}
+	cell := checkRH(Known(0.4))[0]
+	ps := utProblemsAt(s, "Changes!C4")
+	if len(ps) != 1 || ps[0].Severity != Warning || ps[0].Message != cell.Message || ps[0].Fix != cell.Fix {
+		t.Errorf("Changes!C4: %+v, want the RH cell's warning %q", ps, cell.Message)
+	}
+}

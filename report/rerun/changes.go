@@ -52,7 +52,14 @@ type Change struct {
 	Value  string // the value as written, with its unit
 	Source string // "--earth" for a flag, "Changes!5" for a sheet row
 	Note   string // why (from the sheet's Notes)
+	// OverriddenBy is, for a Changes sheet row, the flag that sets the same
+	// target ("--station-rh ST-DRX=60"): the flag wins and the row is not
+	// applied (CollectChanges marks it); "" otherwise.
+	OverriddenBy string
 }
+
+// FromFlag: the change was given as a whatif flag (not a Changes sheet row).
+func (c Change) FromFlag() bool { return strings.HasPrefix(c.Source, "--") }
 
 // Text returns the change as a flag would write it: "--earth DRM-DRUM=1e6".
 func (c Change) Text() string {

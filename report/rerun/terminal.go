@@ -28,6 +28,12 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	for i, a := range x.Applied {
 		fmt.Fprintf(w, "  %d. %s (%s): %s\n", i+1, a.Text(), a.Source, a.Description)
 	}
+	if len(x.Overridden) > 0 {
+		fmt.Fprintln(w, "Overridden, not applied:")
+		for _, c := range x.Overridden {
+			fmt.Fprint(w, wrapText("  - ", OverriddenText(c), terminalWidth, "    "))
+		}
+	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "Station\tRank before\tVerdict before\tWorst ratio before\tRank after\tVerdict after\tWorst ratio after\tOutcome")

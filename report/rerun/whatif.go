@@ -70,6 +70,9 @@ type StationDelta struct {
 type Whatif struct {
 	Before, After *assess.Audit
 	Applied       []Applied
+	// Overridden are the Changes sheet rows a flag set again: not applied,
+	// the flag wins (Change.OverriddenBy).
+	Overridden []Change
 	Objects       []ObjectDelta  // survey order
 	Stations      []StationDelta // in the order of the ranking after the changes
 	Moved         map[Outcome]int
@@ -83,14 +86,39 @@ func Limits(s *inventory.Survey) model.Limits {
 
 // Run assesses s, applies the changes to a deep copy and assesses it again.
 // s is not modified.
+// A change marked overridden (a Changes sheet row a flag sets again) is
+// checked as the others but not applied, and listed in Whatif.Overridden.
 func Run(s *inventory.Survey, changes []Change) (*Whatif, error) {
 	before := assess.Assess(s, assess.Options{Limits: Limits(s)})
-	changed, applied, err := Apply(s, before, changes)
+	var active, overridden []Change
+	for _, c := range changes {
+		if c.OverriddenBy != "" {
+			// Checked all the same: a row in error is reported, not hidden by the flag.
+			if _, err := apply(CloneSurvey(s), before, c); err != nil {
+				return nil, err
+			}
+			overridden = append(overridden, c)
+			continue
+		}
+		active = append(active, c)
+	}
+	changed, applied, err := Apply(s, before, active)
 	if err != nil {
 		return nil, err
 	}
 	after := assess.Assess(changed, assess.Options{Limits: Limits(changed)})
-	return Diff(before, after, applied), nil
+	w := Diff(before, after, applied)
+	w.Overridden = overridden
+	return w, nil
+}
+
+// OverriddenText says, in a line, that a sheet row is overridden by a flag.
+func OverriddenText(c Change) string {
+	t := c.Kind + " " + c.Value
+	if c.Target != "" {
+		t = c.Kind + " " + c.Target + "=" + c.Value
+	}
+	return fmt.Sprintf("%s (%s): not applied, overridden by the flag %s (a flag wins over a Changes sheet row that sets the same target)", t, c.Source, c.OverriddenBy)
 }
 
 // Diff pairs the objects and stations of two audits of the same survey.

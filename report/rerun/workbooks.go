@@ -40,8 +40,13 @@ func rerunNotes() [][2]string {
 // whatifNotes are the whatif Method sheet's notes: the rerun notes and the
 // change kinds, from the change table.
 func whatifNotes() [][2]string {
-	return append(rerunNotes(), [2]string{"Change kinds", KindsNote()})
+	return append(rerunNotes(), [2]string{"Change kinds", KindsNote()}, [2]string{"Changes sheet and flags", SheetAndFlagsNote})
 }
+
+// SheetAndFlagsNote says how the Changes sheet and the flags combine.
+const SheetAndFlagsNote = "The survey's Changes sheet rows are applied first, then the flags in their order (--no-sheet-changes leaves the sheet out). " +
+	"When a flag sets the same target as a sheet row (the same change kind on the same object, station or the site), the flag wins: the sheet row is checked but not applied, and listed as overridden on the Changes applied sheet. " +
+	"The Changes sheet is used by whatif only: a problem on one of its rows is listed by assess, sweep and whatif --no-sheet-changes as a note (the sheet not used by this command), not as a rejected row."
 
 // WriteWhatifWorkbook writes the whatif workbook: Summary (counts before and
 // after, counts moved, a chart), Objects and Stations before/after, Changes
@@ -140,6 +145,10 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	rows = nil
 	for i, a := range x.Applied {
 		rows = append(rows, []audit.Cell{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
+	}
+	for _, c := range x.Overridden {
+		rows = append(rows, []audit.Cell{tx("–"), tx(c.Kind), tx(c.Target), tx(c.Value), tx("not applied"), tx(c.Source),
+			wr("overridden by the flag " + c.OverriddenBy + ": a flag wins over a Changes sheet row that sets the same target"), audit.EmptyCell(), wr(c.Note)})
 	}
 	if len(rows) == 0 {
 		rows = append(rows, []audit.Cell{audit.EmptyCell(), tx("none: the survey as it is")})
