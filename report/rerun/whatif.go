@@ -73,9 +73,9 @@ type Whatif struct {
 	// Overridden are the Changes sheet rows a flag set again: not applied,
 	// the flag wins (Change.OverriddenBy).
 	Overridden []Change
-	Objects       []ObjectDelta  // survey order
-	Stations      []StationDelta // in the order of the ranking after the changes
-	Moved         map[Outcome]int
+	Objects    []ObjectDelta  // survey order
+	Stations   []StationDelta // in the order of the ranking after the changes
+	Moved      map[Outcome]int
 }
 
 // Limits returns the limits an assessment of s uses: the defaults with the Site
