@@ -493,7 +493,7 @@ func rowCause(r *assess.ObjectResult) ([]string, ClearanceCause) {
 func setterText(r *assess.ObjectResult) string {
 	t := r.Verdict.String()
 	if r.Ratio != nil && r.Eval.Effective != model.NoDischarge {
-		t += fmt.Sprintf(", %s, ratio %s", r.Eval.Effective, fmtSig(*r.Ratio))
+		t += fmt.Sprintf(", %s, ratio %s", dischargeWords(r.Eval.Effective), fmtSig(*r.Ratio))
 	} else if r.Ratio != nil {
 		t += fmt.Sprintf(", ratio %s", fmtSig(*r.Ratio))
 	}
@@ -502,6 +502,9 @@ func setterText(r *assess.ObjectResult) string {
 	}
 	return t
 }
+
+// dischargeWords names a discharge type in words ("propagating brush").
+func dischargeWords(d model.DischargeType) string { return strings.ReplaceAll(d.String(), "_", " ") }
 
 // isConductorSpark: the row's effective discharge is a spark (a conductor's).
 func isConductorSpark(r *assess.ObjectResult) bool { return r.Eval.Effective == model.Spark }

@@ -243,7 +243,7 @@ func worse(b, a *assess.ObjectResult) string {
 		}
 		return fmt.Sprintf("%s: %s and not earthed: judged as an isolated conductor that can spark; earth it (%s)", id, how, move)
 	case a.Eval.Effective != b.Eval.Effective && a.Eval.Effective != model.NoDischarge && b.Eval.Effective != model.NoDischarge:
-		return fmt.Sprintf("%s: its worst discharge is now a %s (was a %s) (%s)", id, a.Eval.Effective, b.Eval.Effective, move)
+		return fmt.Sprintf("%s: its worst discharge is now a %s (was a %s) (%s)", id, dischargeWords(a.Eval.Effective), dischargeWords(b.Eval.Effective), move)
 	case ra.Known && (!rb.Known || ra.Value > rb.Value) && ra != rb:
 		return fmt.Sprintf("%s: resistance to earth %s → %s Ω leaks less charge (%s)", id, ohmText(rb), ohmText(ra), move)
 	}

@@ -40,7 +40,7 @@ func rerunNotes() [][2]string {
 // whatifNotes are the whatif Method sheet's notes: the rerun notes and the
 // change kinds, from the change table.
 func whatifNotes() [][2]string {
-	return append(rerunNotes(), [2]string{"Change kinds", KindsNote()}, [2]string{"Changes sheet and flags", SheetAndFlagsNote})
+	return append(rerunNotes(), [2]string{"Changes sheet and flags", SheetAndFlagsNote}, [2]string{"Change kinds", KindsNote()})
 }
 
 // SheetAndFlagsNote says how the Changes sheet and the flags combine.
