@@ -443,7 +443,12 @@ func (c stationCause) words() string {
 		t += "; also missing: " + byInput(also)
 	}
 	if len(c.Physics) > 0 {
-		t += "; humidity alone does not clear " + firstFew(c.Physics)
+		shown := c.Physics
+		more := ""
+		if len(shown) > 3 {
+			shown, more = shown[:3], fmt.Sprintf(" and %d more", len(c.Physics)-3)
+		}
+		t += "; humidity alone does not clear " + strings.Join(shown, ", ") + more
 	}
 	return t
 }
