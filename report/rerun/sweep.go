@@ -448,7 +448,7 @@ func (c stationCause) words() string {
 		if len(shown) > 3 {
 			shown, more = shown[:3], fmt.Sprintf(" and %d more", len(c.Physics)-3)
 		}
-		t += "; humidity alone does not clear " + strings.Join(shown, ", ") + more
+		t += "; also still a hazard: " + strings.Join(shown, ", ") + more
 	}
 	return t
 }
