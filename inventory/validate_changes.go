@@ -153,6 +153,9 @@ type PlannedChange struct {
 	Value   string  // as written, trimmed
 	Number  float64 // the value in SI (percent for RH, plain for margin); NaN for words
 	Word    string  // the canonical word (Choices), or the name as written (material)
+	// Warning is a value read but likely meant otherwise (an RH below 1 %,
+	// LowRHWarning: a fraction of 1 meant as a percentage), with its fix; "" none.
+	Warning, WarningFix string
 }
 
 // ChangeProblem is a change that does not read, with the part at fault.
@@ -259,6 +262,9 @@ func ParseChange(code, target, value string) (PlannedChange, error) {
 		}
 	}
 	p.Number = q.Value
+	if k.Dim == Percent {
+		p.Warning, p.WarningFix = LowRHWarning(q.Value)
+	}
 	return p, nil
 }
 
@@ -293,10 +299,19 @@ func (v *validator) changes(t *table, stations, objs map[string]refState) {
 			}
 		} else {
 			c.Change = p.Kind.Code
+			if p.Warning != "" {
+				// As check warns for an RH cell: the value is read, not refused.
+				f.warnf("Value", nil, p.WarningFix, "%s", p.Warning)
+			}
 			switch {
 			case p.Station != "":
 				if rid, ok := f.resolve("Target", p.Station, stations, SheetStations, v.tables[SheetStations].Present); ok {
-					c.Target = "station:" + rid
+					// Kept as the user wrote it: a bare station ID (station-rh
+					// takes one) stays bare, station:ID stays so.
+					c.Target = rid
+					if _, wrote := cutStation(strings.TrimSpace(f.text("Target"))); wrote {
+						c.Target = "station:" + rid
+					}
 				}
 			case p.Object != "" && !hasRef(objs, p.Object) && hasRef(stations, p.Object):
 				// As the whatif flag says it: a station is reached by station:ID.

@@ -219,8 +219,21 @@ func checkRH(q Quantity) []Problem {
 	switch {
 	case q.Value < 0 || q.Value > 100:
 		return []Problem{{Severity: Error, Err: ErrOutOfRange, Message: fmt.Sprintf("relative humidity %.4g %% is outside 0-100 %%", q.Value), Fix: "enter the RH in percent, e.g. 45"}}
-	case q.Value > 0 && q.Value < 1:
-		return []Problem{{Severity: Warning, Message: fmt.Sprintf("relative humidity %.4g %% is very low: a cell formatted as a percentage stores 45 %% as 0.45", q.Value), Fix: fmt.Sprintf("did you mean %.4g %%?", q.Value*100)}}
+	}
+	if msg, fix := LowRHWarning(q.Value); msg != "" {
+		return []Problem{{Severity: Warning, Message: msg, Fix: fix}}
 	}
 	return nil
+}
+
+// LowRHWarning is the warning for a relative humidity above 0 and below 1 %,
+// most often a fraction of 1 meant as a percentage (a cell formatted as a
+// percentage stores 45 % as 0.45): the message and the fix, "" when v is not
+// so. The survey's RH cells, the whatif RH changes (flags and Changes rows)
+// and the sweep's --rh values warn with these words; none refuses the value.
+func LowRHWarning(v float64) (msg, fix string) {
+	if !(v > 0 && v < 1) {
+		return "", ""
+	}
+	return fmt.Sprintf("relative humidity %.4g %% is very low: a cell formatted as a percentage stores 45 %% as 0.45", v), fmt.Sprintf("did you mean %.4g %%?", v*100)
 }

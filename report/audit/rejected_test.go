@@ -97,3 +97,44 @@ func TestRejectedSheetCapped(t *testing.T) {
 		t.Errorf("terminal summary lacks %q:\n%s", want, term.String())
 	}
 }
+
+// A problem on a Changes row is listed on the assess audit's Rejected sheet
+// as a note that the sheet is not used by this command (only whatif uses it),
+// not as a rejected row: by the workbook writer and the streamed one.
+func TestRejectedChangesRowIsANote(t *testing.T) {
+	a := demoAudit(t, 0)
+	s := *a.Survey
+	p := inventory.Problem{Sheet: inventory.SheetChanges, Row: 4, Column: "A", Field: "Change", Severity: inventory.Error, Message: `change "paint" is not known`}
+	s.Rejected = append(append([]inventory.Rejected(nil), s.Rejected...), inventory.Rejected{Sheet: inventory.SheetChanges, Row: 4, Problems: []inventory.Problem{p}})
+	s.Problems = append(append([]inventory.Problem(nil), s.Problems...), p)
+	a.Survey = &s
+	for _, streamed := range []bool{false, true} {
+		var xb []byte
+		if streamed {
+			xb, _ = streamedOutputs(t, a, t.TempDir())
+		} else {
+			var buf bytes.Buffer
+			if err := WriteWorkbook(&buf, a, testInfo()); err != nil {
+				t.Fatal(err)
+			}
+			xb = buf.Bytes()
+		}
+		f, err := excelize.OpenReader(bytes.NewReader(xb))
+		if err != nil {
+			t.Fatal(err)
+		}
+		rows, _ := f.GetRows(SheetRejected)
+		n := 0
+		for _, r := range rows {
+			if len(r) > 2 && r[2] == inventory.SheetChanges {
+				n++
+				if r[0] != "note" || r[1] != ChangesNotUsed {
+					t.Errorf("streamed %v: Changes row listed as %q", streamed, r)
+				}
+			}
+		}
+		if n != 1 {
+			t.Errorf("streamed %v: %d Changes rows on the Rejected sheet, want 1", streamed, n)
+		}
+	}
+}

@@ -636,7 +636,7 @@ func wrappedHeight(s string, width float64) float64 {
 type problemRow struct {
 	p      inventory.Problem
 	status string
-	note   bool // the closing row of a capped sheet: p.Message says what is not listed
+	note   bool // the closing row of a capped sheet (p.Message says what is not listed), or a Changes row (ChangesNotUsed)
 }
 
 func problemColumns() []book.Column[problemRow] {
@@ -693,7 +693,7 @@ func eachProblem(s *inventory.Survey, fn func(p *inventory.Problem, status strin
 	for ri := range s.Rejected {
 		for pi := range s.Rejected[ri].Problems {
 			p := &s.Rejected[ri].Problems[pi]
-			if !fn(p, "row rejected") {
+			if !fn(p, rejectedStatus(p)) {
 				return
 			}
 			seen[problemHash(p)] = at{int32(ri), int32(pi)}
@@ -709,7 +709,7 @@ func eachProblem(s *inventory.Survey, fn func(p *inventory.Problem, status strin
 		}
 		status := "sheet not read"
 		if p.Row > 0 {
-			status = "row rejected"
+			status = rejectedStatus(p)
 		}
 		if !fn(p, status) {
 			return
@@ -724,11 +724,25 @@ func eachProblem(s *inventory.Survey, fn func(p *inventory.Problem, status strin
 	}
 }
 
+// ChangesNotUsed is the Rejected sheet's status of a problem on the survey's
+// Changes sheet: only whatif uses that sheet, and whatif stops on a rejected
+// Changes row (unless --no-sheet-changes), so a workbook that lists one is
+// of a command that does not use the sheet: listed as a note, not a rejection.
+const ChangesNotUsed = "Changes sheet not used by this command"
+
+// rejectedStatus is the status of a rejected row's problem.
+func rejectedStatus(p *inventory.Problem) string {
+	if p.Sheet == inventory.SheetChanges {
+		return ChangesNotUsed
+	}
+	return "row rejected"
+}
+
 // problemRows lists the problems in the order of eachProblem.
 func problemRows(s *inventory.Survey) []problemRow {
 	var out []problemRow
 	eachProblem(s, func(p *inventory.Problem, status string) bool {
-		out = append(out, problemRow{p: *p, status: status})
+		out = append(out, problemRow{p: *p, status: status, note: status == ChangesNotUsed})
 		return true
 	})
 	return out
@@ -782,7 +796,7 @@ func (wb *workbook) rejected() error {
 		if n == listed {
 			return false
 		}
-		if err = ts.Row(problemRow{p: *p, status: status}); err != nil {
+		if err = ts.Row(problemRow{p: *p, status: status, note: status == ChangesNotUsed}); err != nil {
 			return false
 		}
 		n++

@@ -52,7 +52,14 @@ type Change struct {
 	Value  string // the value as written, with its unit
 	Source string // "--earth" for a flag, "Changes!5" for a sheet row
 	Note   string // why (from the sheet's Notes)
+	// OverriddenBy is, for a Changes sheet row, the flag that sets the same
+	// target ("--station-rh ST-DRX=60"): the flag wins and the row is not
+	// applied (CollectChanges marks it); "" otherwise.
+	OverriddenBy string
 }
+
+// FromFlag: the change was given as a whatif flag (not a Changes sheet row).
+func (c Change) FromFlag() bool { return strings.HasPrefix(c.Source, "--") }
 
 // Text returns the change as a flag would write it: "--earth DRM-DRUM=1e6".
 func (c Change) Text() string {
@@ -70,6 +77,10 @@ type Applied struct {
 	Description string   // what was changed, in words
 	Objects     []string // the object IDs the change reached, in survey order (nil for site-wide)
 	Stations    []string // the station IDs whose RH changed (RH changes)
+	// Warning: the value was applied but is likely meant otherwise (an RH
+	// below 1 %, inventory.LowRHWarning, with its fix); "" none. The
+	// Description ends with it.
+	Warning string
 }
 
 // ChangeError is a change that cannot be applied, with where it came from and a fix.
@@ -235,6 +246,7 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		if len(a.Stations) == 0 {
 			a.Description += " (every station gives its own: use --station-rh ID=VALUE to change them)"
 		}
+		a.warn(p)
 		return a, nil
 	case ChangeMargin:
 		v := p.Number
@@ -273,6 +285,7 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 		a.SI, a.SIText, a.Stations = v, num(v)+" %", []string{stationID}
 		a.Objects = objectsAt(s, stationID, func(*inventory.Object) bool { return true })
 		a.Description = fmt.Sprintf("RH at station %s set to %s %%; the model recomputes each material's surface resistivity from its humidity slope", stationID, num(v))
+		a.warn(p)
 		return a, nil
 	}
 	pick := func(ok func(*inventory.Object) bool, what string) error {
@@ -418,6 +431,16 @@ func apply(s *inventory.Survey, before *assess.Audit, c Change) (Applied, error)
 	}
 	a.Description += tail
 	return a, nil
+}
+
+// warn records the grammar's warning on the value (an RH below 1 %, as check
+// warns for an RH cell) and ends the description with it.
+func (a *Applied) warn(p inventory.PlannedChange) {
+	if p.Warning == "" {
+		return
+	}
+	a.Warning = p.Warning + "; " + p.WarningFix
+	a.Description += "; warning: " + a.Warning
 }
 
 // conductorTest says which rows a station-wide earthing change reaches: the rows

@@ -2,6 +2,7 @@ package rerun
 
 import (
 	"fmt"
+	"strings"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 )
@@ -12,6 +13,9 @@ type FlagArg struct{ Kind, Arg string }
 // CollectChanges gathers a what-if plan: the survey's Changes sheet first
 // (unless useSheet is false), then the flags in their order. A rejected
 // Changes row stops the run: a plan must not be half applied without notice.
+// A sheet row whose kind and target a flag sets too is marked overridden
+// (Change.OverriddenBy): the flag wins, and Run lists the row as overridden,
+// not applied.
 func CollectChanges(s *inventory.Survey, useSheet bool, flags []FlagArg) ([]Change, error) {
 	var out []Change
 	if useSheet {
@@ -29,5 +33,39 @@ func CollectChanges(s *inventory.Survey, useSheet bool, flags []FlagArg) ([]Chan
 		}
 		out = append(out, c)
 	}
+	markOverridden(out)
 	return out, nil
+}
+
+// markOverridden marks each Changes sheet row that a flag sets again (the
+// same kind and the same target: the site for a site-wide kind, a station ID
+// with or without station:, letter case ignored) as overridden by that flag.
+func markOverridden(cs []Change) {
+	for i := range cs {
+		if cs[i].FromFlag() {
+			continue
+		}
+		for j := range cs {
+			if cs[j].FromFlag() && sameTarget(cs[i], cs[j]) {
+				cs[i].OverriddenBy = cs[j].Text() // the last flag wins
+			}
+		}
+	}
+}
+
+// sameTarget: a and b set the same thing.
+func sameTarget(a, b Change) bool {
+	if !strings.EqualFold(strings.TrimSpace(a.Kind), strings.TrimSpace(b.Kind)) {
+		return false
+	}
+	norm := func(c Change) string {
+		t := strings.TrimSpace(c.Target)
+		if k, ok := inventory.LookupChangeKind(c.Kind); ok && k.Targets == inventory.TargetStation {
+			if len(t) >= 8 && strings.EqualFold(t[:8], "station:") {
+				t = strings.TrimSpace(t[8:])
+			}
+		}
+		return strings.ToLower(t)
+	}
+	return norm(a) == norm(b)
 }

@@ -11,6 +11,7 @@ import (
 	"testing"
 	"time"
 
+	"github.com/xuri/excelize/v2"
 	"gonum.org/v1/gonum/floats/scalar"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
@@ -694,3 +695,143 @@ func withRH(s *inventory.Survey, v float64) *inventory.Survey {
 }
 
 // hasFinding reports whether the object result has a finding of the check.
+
+// A change that makes a row worse says why in a line, from the typed results
+// (IsolatedConductor before and after), on the terminal and the workbook.
+// Rows invented for the demo after the review's belt and coater web.
+func TestWhatifSaysWhyWorse(t *testing.T) {
+	// Rubber belt: 1e12 Ω/sq at 50 %, 0.2 decade per 10 %RH (built-in list,
+	// from memory): at 40 % 1e12 x 10^0.2 = 1.58e12 (insulating), at 55 %
+	// 1e12 x 10^-0.1 = 7.94e11 Ω/sq, below the 1e12 dissipative bound
+	// (hand calculation): not earthed, it becomes an isolated conductor.
+	belt := inventory.Object{ID: "BELT", Kind: "belt", Material: "rubber belt", Length: known(3), Width: known(0.3), Thickness: known(3e-3),
+		Backing: "none", Field: known(10e3), FieldDistance: known(0.05), Speed: known(0.5)}
+	// PE web swapped to antistatic PE: 1e10 Ω/sq at 50 %, 0.5 decade per
+	// 10 %RH, so 1e10 x 10^1 = 1e11 Ω/sq at 30 % (hand calculation).
+	web := inventory.Object{ID: "WEB", Kind: "sheet", Material: "PE", Length: known(1), Width: known(1), Thickness: known(50e-6),
+		Backing: "none", Field: known(100e3), FieldDistance: known(0.1)}
+
+	w := run(t, surveyOf(atmToluene, 40, belt), [2]string{"rh", "55"})
+	d := delta(t, w, "BELT")
+	if d.Before.Eval.IsolatedConductor || !d.After.Eval.IsolatedConductor {
+		t.Fatalf("belt isolated conductor before %v after %v", d.Before.Eval.IsolatedConductor, d.After.Eval.IsolatedConductor)
+	}
+	if want := "BELT: now dissipative (7.94e11 Ω/sq) at 55 % RH and not earthed: judged as an isolated conductor that can spark; earth it"; !strings.HasPrefix(d.Worse, want) {
+		t.Errorf("belt: %q, want it to start %q", d.Worse, want)
+	}
+	var term bytes.Buffer
+	_ = WriteWhatifSummary(&term, w)
+	if flat := strings.Join(strings.Fields(term.String()), " "); !strings.Contains(flat, "Why worse: BELT: now dissipative") {
+		t.Errorf("terminal:\n%s", term.String())
+	}
+	var x bytes.Buffer
+	if err := WriteWhatifWorkbook(&x, w, RunInfo{}); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows(SheetObjects)
+	if rows[0][9] != "Why worse" || rows[1][9] != d.Worse {
+		t.Errorf("Objects sheet: %q / %q", rows[0], rows[1])
+	}
+
+	w = run(t, surveyOf(atmToluene, 30, web), [2]string{"material", "WEB=antistatic PE"})
+	d = delta(t, w, "WEB")
+	if !strings.HasPrefix(d.Worse, "WEB: the new material antistatic PE is dissipative (1e11 Ω/sq) and not earthed") {
+		t.Errorf("web: %q (before %s %v, after %s %v)", d.Worse, d.Before.Verdict, d.Before.Ratio, d.After.Verdict, d.After.Ratio)
+	}
+	// A change that clears a row says nothing of the kind.
+	w = run(t, surveyOf(atmToluene, 30, web), [2]string{"earth", "WEB=1e5"})
+	if d := delta(t, w, "WEB"); d.Worse != "" {
+		t.Errorf("earthing: %q", d.Worse)
+	}
+}
+
+// A flag that sets the same target as a Changes sheet row wins: the row is
+// listed as overridden, not applied, on the terminal and the Changes applied
+// sheet, and the Method sheet says the rule. Invented for the demo.
+func TestFlagOverridesSheetRow(t *testing.T) {
+	web := inventory.Object{ID: "WEB", Kind: "sheet", Material: "paper", Length: known(1), Width: known(1), Thickness: known(50e-6),
+		Backing: "none", Field: known(500e3), FieldDistance: known(0.1), Resistance: known(1e6)}
+	s := surveyOf(atmToluene, 30, web)
+	s.Changes = []inventory.Change{
+		{Row: 2, Change: "station-rh", Target: "ST-WEB", Value: "40"},
+		{Row: 3, Change: "rh", Value: "45"},
+	}
+	cs, err := CollectChanges(s, true, []FlagArg{{Kind: "station-rh", Arg: "station:ST-WEB=60"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	w, err := Run(s, cs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(w.Overridden) != 1 || w.Overridden[0].Source != "Changes!2" || w.Overridden[0].Target != "ST-WEB" || w.Overridden[0].OverriddenBy != "--station-rh station:ST-WEB=60" {
+		t.Fatalf("overridden %+v", w.Overridden)
+	}
+	if len(w.Applied) != 2 || w.Applied[0].Kind != "rh" || w.Applied[1].Source != "--station-rh" {
+		t.Fatalf("applied %+v", w.Applied)
+	}
+	// The flag's 60 %, not the row's 40 %, reaches the station.
+	if got := delta(t, w, "WEB").After.Environment.RelativeHumidity; got != 60 {
+		t.Errorf("WEB assessed at %g %% RH, want the flag's 60", got)
+	}
+	var term bytes.Buffer
+	_ = WriteWhatifSummary(&term, w)
+	flat := strings.Join(strings.Fields(term.String()), " ")
+	if !strings.Contains(flat, "Overridden, not applied: - station-rh ST-WEB=40 (Changes!2): not applied, overridden by the flag --station-rh station:ST-WEB=60") {
+		t.Errorf("terminal:\n%s", term.String())
+	}
+	var x bytes.Buffer
+	if err := WriteWhatifWorkbook(&x, w, RunInfo{}); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows(SheetChanges)
+	last := rows[len(rows)-1]
+	if len(rows) != 4 || last[2] != "ST-WEB" || last[4] != "not applied" || !strings.Contains(last[6], "overridden by the flag --station-rh station:ST-WEB=60") {
+		t.Errorf("Changes applied sheet: %q", rows)
+	}
+	if !strings.Contains(SheetAndFlagsNote, "the flag wins") {
+		t.Errorf("Method note: %s", SheetAndFlagsNote)
+	}
+	// A flag on another target overrides nothing.
+	cs, _ = CollectChanges(s, true, []FlagArg{{Kind: "station-rh", Arg: "ST-OTHER=60"}})
+	for _, c := range cs {
+		if c.OverriddenBy != "" {
+			t.Errorf("%s overridden by %s", c.Source, c.OverriddenBy)
+		}
+	}
+}
+
+// A problem on a Changes row is listed on the sweep's Rejected sheet as a
+// note that the sheet is not used, not as a rejected row.
+func TestSweepRejectedChangesRowIsANote(t *testing.T) {
+	web := inventory.Object{ID: "WEB", Kind: "sheet", Material: "paper", Length: known(1), Width: known(1), Thickness: known(50e-6),
+		Backing: "none", Field: known(500e3), FieldDistance: known(0.1), Resistance: known(1e6)}
+	s := surveyOf(atmToluene, 30, web)
+	p := inventory.Problem{Sheet: inventory.SheetChanges, Row: 4, Column: "A", Field: "Change", Severity: inventory.Error, Message: `change "paint" is not known`}
+	s.Rejected = []inventory.Rejected{{Sheet: inventory.SheetChanges, Row: 4, Problems: []inventory.Problem{p}}}
+	s.Problems = []inventory.Problem{p}
+	sw := RunSweep(s, []float64{30}, SweepOptions{})
+	var x bytes.Buffer
+	if err := WriteSweepWorkbook(&x, sw, RunInfo{}); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows(SheetRejected)
+	if len(rows) != 2 || rows[1][0] != "note" || rows[1][1] != "Changes sheet not used by this command" {
+		t.Errorf("Rejected sheet: %q", rows)
+	}
+}

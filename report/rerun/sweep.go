@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -83,6 +84,9 @@ type StationClearance struct {
 	// highest step ("MIX-DRUM: resistance to earth not measured"), when an
 	// input is the cause (alone or beside the physics).
 	Missing []string
+	// SetBy is the object that sets the station's worst verdict and ratio at
+	// the highest step (or at its own RH when held): the cause is its.
+	SetBy string
 	// Readings names the rows whose reading holds the hazard.
 	Readings []string
 	Text     string // the sentence a report shows
@@ -110,6 +114,10 @@ type Sweep struct {
 	Held        []HeldStation // stations kept at their own RH, survey order (none with AllStations)
 	Steps       []SweepStep
 	Clearances  []StationClearance // survey station order
+	// Warnings: swept RH values likely meant otherwise (below 1 %, a fraction
+	// of 1 meant as a percentage: inventory.LowRHWarning), as check warns
+	// for an RH cell; the sweep runs them as given.
+	Warnings []string
 }
 
 // ParseRange reads "FROM:TO:STEP" in %RH (e.g. "10:90:5") into the list of RH
@@ -190,6 +198,13 @@ func RunSweep(s *inventory.Survey, rh []float64, o SweepOptions) *Sweep {
 			if st.RelativeHumidity.Known {
 				sw.Held = append(sw.Held, HeldStation{ID: st.ID, Name: st.Name, RH: st.RelativeHumidity.Value})
 			}
+		}
+	}
+	// A range wholly below 1 % reads as fractions of 1 ("0.2:0.8:0.1"); a
+	// fine step from 0 up to a real RH ("0:90:0.5") does not.
+	if top := slices.Max(append([]float64{0}, rh...)); top > 0 {
+		if msg, fix := inventory.LowRHWarning(top); msg != "" {
+			sw.Warnings = append(sw.Warnings, fmt.Sprintf("--rh up to %s %%: %s; %s", fmtSig(top), msg, fix))
 		}
 	}
 	var last *assess.Audit
@@ -291,13 +306,14 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 		if rh, ok := own[st.ID]; ok {
 			c.Cause = HeldAtOwnRH
 			c.Always = st.Verdict == assess.NonIncendive
-			c.Text = fmt.Sprintf("kept at its own %s %% RH (not swept; --all-stations sweeps it too): %s", fmtSig(rh), st.Verdict)
+			c.Text = fmt.Sprintf("held at its own RH %s %% (not swept; --all-stations sweeps it too): %s", fmtSig(rh), st.Verdict)
 			if st.WorstRatio != nil {
 				c.Text += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
 			}
-			c.Missing, c.Readings, _ = stationCauses(last, st.ID)
-			if st.Verdict != assess.NonIncendive && len(c.Missing) > 0 {
-				c.Text += "; missing: " + byInput(c.Missing)
+			if st.Verdict != assess.NonIncendive {
+				sc := stationCauses(last, st.ID)
+				c.SetBy, c.Missing, c.Readings = sc.SetBy, sc.Missing(), sc.Readings
+				c.Text += "; " + sc.words()
 			}
 			out = append(out, c)
 			continue
@@ -311,24 +327,22 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			c.Always, c.ClearsAt, c.Cause = true, steps[0].RH, ClearsAlways
 			c.Text = fmt.Sprintf("non-incendive over the whole range (%s-%s %% RH)", fmtSig(steps[0].RH), fmtSig(lastStep.RH))
 		case k == len(steps):
-			c.Missing, c.Readings, c.Cause = stationCauses(last, st.ID)
+			sc := stationCauses(last, st.ID)
+			c.SetBy, c.Missing, c.Readings, c.Cause = sc.SetBy, sc.Missing(), sc.Readings, sc.Cause
 			still := fmt.Sprintf("still %s at %s %% RH", st.Verdict, fmtSig(lastStep.RH))
 			if st.WorstRatio != nil {
 				still += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
 			}
 			switch c.Cause {
 			case NeverMissingInput:
-				c.Text = fmt.Sprintf("never non-incendive over the range because an input is missing, not because of humidity: %s; %s", byInput(c.Missing), still)
+				c.Text = "never non-incendive over the range because an input is missing, not because of humidity: " + sc.words() + "; " + still
+				if len(sc.Physics) > 0 {
+					c.Text = "never non-incendive over the range; the worst ratio rests on a missing input: " + sc.words() + "; " + still
+				}
 			case NeverReading:
-				c.Text = fmt.Sprintf("a measured reading holds the hazard at every RH (%s): take a new reading at the new RH; %s", firstFew(c.Readings), still)
-				if len(c.Missing) > 0 {
-					c.Text += "; also missing: " + byInput(c.Missing)
-				}
+				c.Text = fmt.Sprintf("a measured reading holds the hazard at every RH (%s): take a new reading at the new RH; %s; %s", firstFew(c.Readings), sc.words(), still)
 			default:
-				c.Text = "humidity alone never gets it there: " + still
-				if len(c.Missing) > 0 {
-					c.Text += "; also missing: " + byInput(c.Missing)
-				}
+				c.Text = "humidity alone never gets it there: " + sc.words() + "; " + still
 			}
 		default:
 			c.ClearsAt, c.Cause = steps[k].RH, ClearsFrom
@@ -339,55 +353,166 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 	return out
 }
 
+// stationCause is what keeps a station from non-incendive at the highest
+// step: the object that sets its worst verdict and ratio (SetBy), the inputs
+// missing or assumed on that object (SetMissing) and on the station's other
+// rows (Also), the rows whose reading holds a hazard, the other rows the
+// physics keeps a hazard (Physics), and the cause, taken from the setter.
+type stationCause struct {
+	SetBy      string
+	SetText    string // what sets it: "spark, ratio 25; not earthed (resistance to earth 1.0e+11 Ω measured)"
+	SetMissing []string
+	Also       []string
+	Readings   []string
+	Physics    []string
+	Cause      ClearanceCause
+}
+
+// Missing is every missing input, the setter's first ("ID: input").
+func (c stationCause) Missing() []string {
+	return append(append([]string(nil), c.SetMissing...), c.Also...)
+}
+
 // stationCauses says what keeps a station from non-incendive in audit a (the
-// highest step): the inputs missing or assumed on its rows, the rows whose
-// reading holds a hazard, and the cause: NeverMissingInput when every row that
-// is not non-incendive is so for a missing or assumed input, NeverReading when
-// the rest are readings, else NeverHumidity.
-func stationCauses(a *assess.Audit, station string) (missing, readings []string, cause ClearanceCause) {
-	cause = NeverHumidity
+// highest step). The cause is the setter's, the object with the station's
+// worst verdict and, among those, the highest ratio (first in survey order on
+// a tie): NeverMissingInput when its verdict rests on a missing input or an
+// assumed (unmeasured) resistance to earth, NeverReading when its reading
+// holds the hazard, else NeverHumidity. The other rows' missing inputs are
+// listed as also missing.
+func stationCauses(a *assess.Audit, station string) stationCause {
+	out := stationCause{Cause: NeverHumidity}
 	if a == nil {
-		return nil, nil, cause
+		return out
 	}
-	physics := false
+	var setter *assess.ObjectResult
 	for i := range a.Objects {
 		r := &a.Objects[i]
 		if r.Station.ID != station || r.Verdict == assess.NonIncendive {
 			continue
 		}
-		id := r.Object.ID
-		switch {
-		case r.Verdict == assess.NotAssessed && r.Eval.NotAssessed != 0:
-			for _, t := range r.Eval.NotAssessed.Texts() {
-				missing = append(missing, id+": "+t)
-			}
-		case r.Verdict == assess.NotAssessed:
-			missing = append(missing, id+": "+strings.TrimSuffix(r.Reason, "."))
-		case r.RatioAssumed():
-			missing = append(missing, id+": resistance to earth not measured (assumed no leakage, the stricter case)")
-		case r.Eval.Flags&model.FlagHumidityContradiction != 0:
-			readings = append(readings, id)
-		default:
-			physics = true
-			// A hazard the physics shows: inputs missing beside it are named too.
-			if r.Atmosphere != nil && !r.Atmosphere.MIE.Known {
-				missing = append(missing, fmt.Sprintf("%s: the MIE of atmosphere %s is not given", id, r.Atmosphere.ID))
-			}
-			for _, t := range r.Eval.NotAssessed.Texts() {
-				missing = append(missing, id+": "+t)
-			}
+		if setter == nil || worseRow(r, setter) {
+			setter = r
 		}
 	}
-	switch {
-	case physics || (len(missing) == 0 && len(readings) == 0):
-		cause = NeverHumidity
-	case len(readings) > 0:
-		cause = NeverReading
-	default:
-		cause = NeverMissingInput
+	if setter == nil {
+		return out
 	}
-	return missing, readings, cause
+	out.SetBy = setter.Object.ID
+	for i := range a.Objects {
+		r := &a.Objects[i]
+		if r.Station.ID != station || r.Verdict == assess.NonIncendive {
+			continue
+		}
+		miss, cause := rowCause(r)
+		if r == setter {
+			out.SetMissing, out.Cause = miss, cause
+			out.SetText = setterText(r)
+			if cause == NeverReading {
+				out.Readings = append(out.Readings, r.Object.ID)
+			}
+			continue
+		}
+		out.Also = append(out.Also, miss...)
+		switch cause {
+		case NeverReading:
+			out.Readings = append(out.Readings, r.Object.ID)
+		case NeverHumidity:
+			out.Physics = append(out.Physics, fmt.Sprintf("%s (%s)", r.Object.ID, r.Verdict))
+		}
+	}
+	return out
 }
+
+// words says it in a line: the setter and its cause first, then what else
+// is missing and what else the physics keeps a hazard.
+func (c stationCause) words() string {
+	if c.SetBy == "" {
+		return "no row sets it"
+	}
+	t := fmt.Sprintf("set by %s (%s)", c.SetBy, c.SetText)
+	also := c.Also
+	switch {
+	case c.Cause == NeverHumidity:
+		// The physics sets it: the setter's own missing inputs are beside it.
+		also = c.Missing()
+	case len(c.SetMissing) > 0:
+		t += ": " + byInput(c.SetMissing)
+	}
+	if len(also) > 0 {
+		t += "; also missing: " + byInput(also)
+	}
+	if len(c.Physics) > 0 {
+		shown := c.Physics
+		more := ""
+		if len(shown) > 3 {
+			shown, more = shown[:3], fmt.Sprintf(" and %d more", len(c.Physics)-3)
+		}
+		t += "; also still a hazard: " + strings.Join(shown, ", ") + more
+	}
+	return t
+}
+
+// worseRow: r sets a worse station result than b: a more severe verdict, or
+// the same verdict with a higher ratio (a row with no ratio lowest).
+func worseRow(r, b *assess.ObjectResult) bool {
+	if r.Verdict.Severity() != b.Verdict.Severity() {
+		return r.Verdict.Severity() > b.Verdict.Severity()
+	}
+	if r.Ratio == nil {
+		return false
+	}
+	return b.Ratio == nil || *r.Ratio > *b.Ratio
+}
+
+// rowCause says, from the row's typed result, why a row that is not
+// non-incendive stays so: its missing or assumed inputs ("ID: input") and the
+// cause it gives the station were it the setter.
+func rowCause(r *assess.ObjectResult) ([]string, ClearanceCause) {
+	id := r.Object.ID
+	var miss []string
+	for _, t := range r.Eval.NotAssessed.Texts() {
+		miss = append(miss, id+": "+t)
+	}
+	if r.Atmosphere != nil && !r.Atmosphere.MIE.Known {
+		miss = append(miss, fmt.Sprintf("%s: the MIE of atmosphere %s is not given", id, r.Atmosphere.ID))
+	}
+	switch {
+	case r.Verdict == assess.NotAssessed:
+		if len(miss) == 0 {
+			miss = append(miss, id+": "+strings.TrimSuffix(r.Reason, "."))
+		}
+		return miss, NeverMissingInput
+	case r.RatioAssumed():
+		return append([]string{id + ": resistance to earth not measured (assumed no leakage, the stricter case)"}, miss...), NeverMissingInput
+	case r.Eval.IsolatedConductor && math.IsNaN(r.Input.Resistance):
+		return append([]string{id + ": resistance to earth not measured (taken as not earthed, the stricter case)"}, miss...), NeverMissingInput
+	case r.Eval.Flags&model.FlagHumidityContradiction != 0:
+		return miss, NeverReading
+	}
+	return miss, NeverHumidity
+}
+
+// setterText says what the setter shows: its verdict, discharge and ratio,
+// and a measured resistance to earth that leaves a conductor unearthed.
+func setterText(r *assess.ObjectResult) string {
+	t := r.Verdict.String()
+	if r.Ratio != nil && r.Eval.Effective != model.NoDischarge {
+		t += fmt.Sprintf(", %s, ratio %s", dischargeWords(r.Eval.Effective), fmtSig(*r.Ratio))
+	} else if r.Ratio != nil {
+		t += fmt.Sprintf(", ratio %s", fmtSig(*r.Ratio))
+	}
+	if x := r.Input.Resistance; !math.IsNaN(x) && !r.Eval.Earthed && isConductorSpark(r) {
+		t += "; not earthed: resistance to earth " + strings.Replace(fmt.Sprintf("%.1e", x), "e+", "e", 1) + " Ω measured"
+	}
+	return t
+}
+
+// dischargeWords names a discharge type in words ("propagating brush").
+func dischargeWords(d model.DischargeType) string { return strings.ReplaceAll(d.String(), "_", " ") }
+
+// isConductorSpark: the row's effective discharge is a spark (a conductor's).
+func isConductorSpark(r *assess.ObjectResult) bool { return r.Eval.Effective == model.Spark }
 
 // byInput words "ID: input" entries grouped by input: "resistance to earth
 // not measured (...) on BAY-1, BAY-2 and 3 more".

@@ -28,6 +28,12 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	for i, a := range x.Applied {
 		fmt.Fprintf(w, "  %d. %s (%s): %s\n", i+1, a.Text(), a.Source, a.Description)
 	}
+	if len(x.Overridden) > 0 {
+		fmt.Fprintln(w, "Overridden, not applied:")
+		for _, c := range x.Overridden {
+			fmt.Fprint(w, wrapText("  - ", OverriddenText(c), terminalWidth, "    "))
+		}
+	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "Station\tRank before\tVerdict before\tWorst ratio before\tRank after\tVerdict after\tWorst ratio after\tOutcome")
@@ -54,6 +60,18 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
 	}
 	tw.Flush()
+	var worse []string
+	for _, o := range x.Objects {
+		if o.Worse != "" {
+			worse = append(worse, o.Worse)
+		}
+	}
+	if len(worse) > 0 {
+		fmt.Fprintln(w, "\nWhy worse:")
+		for _, t := range worse {
+			fmt.Fprint(w, wrapText("  ", t, terminalWidth, "    "))
+		}
+	}
 	fmt.Fprintf(w, "\nObjects: %d cleared, %d stayed, %d appeared, %d without hazard before and after",
 		x.Moved[Cleared], x.Moved[Stayed], x.Moved[Appeared], x.Moved[NoHazard])
 	if n := x.Moved[Unjudged]; n > 0 {
@@ -83,6 +101,9 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	if len(s.Steps) == 0 {
 		return nil
 	}
+	for _, t := range s.Warnings {
+		fmt.Fprint(w, wrapText("Warning: ", t, terminalWidth, "  "))
+	}
 	shown := s.Top(top)
 	for start := 0; start < len(shown) || start == 0; start += SweepColumnsPerTable {
 		block := shown[start:min(start+SweepColumnsPerTable, len(shown))]
@@ -92,7 +113,11 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 		hdr := []string{"RH %", "Incendive", "Marginal"}
 		for _, j := range block {
-			hdr = append(hdr, s.Steps[0].Stations[j].ID)
+			id := s.Steps[0].Stations[j].ID
+			if s.isHeld(id) {
+				id += "*" // held at its own RH: the footnote below says so
+			}
+			hdr = append(hdr, id)
 		}
 		fmt.Fprintln(tw, strings.Join(hdr, "\t")+"\t")
 		for _, st := range s.Steps {
@@ -109,6 +134,17 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 		}
 	}
 	fmt.Fprintln(w, "Station cells: worst ratio E/MIE; ! incendive, ~ marginal, ? not assessed, blank non-incendive.")
+	var heldShown []string
+	for _, j := range shown {
+		for _, h := range s.Held {
+			if h.ID == s.Steps[0].Stations[j].ID {
+				heldShown = append(heldShown, fmt.Sprintf("%s %s", h.ID, heldMark(h.RH)))
+			}
+		}
+	}
+	if len(heldShown) > 0 {
+		fmt.Fprint(w, wrapText("", "* not swept: "+strings.Join(heldShown, ", ")+"; every row shows its result at that RH.", terminalWidth, "  "))
+	}
 	fmt.Fprintln(w)
 	for _, j := range shown {
 		c := s.Clearances[j]
@@ -122,6 +158,16 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	fmt.Fprint(w, wrapText("", MeasuredReadingsNote, terminalWidth, ""))
 	caution(w)
 	return nil
+}
+
+// isHeld: the station was kept at its own RH.
+func (s *Sweep) isHeld(id string) bool {
+	for _, h := range s.Held {
+		if h.ID == id {
+			return true
+		}
+	}
+	return false
 }
 
 // sweepHeldText says how the sweep set the stations' RH: which stations kept

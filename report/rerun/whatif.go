@@ -52,6 +52,11 @@ type ObjectDelta struct {
 	Outcome           Outcome
 	Changed           bool   // a change reached this row or its station
 	Why               string // the physics of the difference, in words
+	// Worse says, in a line, why a change made the row worse (a more severe
+	// verdict, or a higher ratio), from its typed results before and after
+	// ("REW-BELT: now dissipative at 55 % RH and not earthed: judged as an
+	// isolated conductor; earth it"); "" when it is not worse.
+	Worse string
 }
 
 // StationDelta is one station before and after the changes.
@@ -65,9 +70,12 @@ type StationDelta struct {
 type Whatif struct {
 	Before, After *assess.Audit
 	Applied       []Applied
-	Objects       []ObjectDelta  // survey order
-	Stations      []StationDelta // in the order of the ranking after the changes
-	Moved         map[Outcome]int
+	// Overridden are the Changes sheet rows a flag set again: not applied,
+	// the flag wins (Change.OverriddenBy).
+	Overridden []Change
+	Objects    []ObjectDelta  // survey order
+	Stations   []StationDelta // in the order of the ranking after the changes
+	Moved      map[Outcome]int
 }
 
 // Limits returns the limits an assessment of s uses: the defaults with the Site
@@ -78,14 +86,39 @@ func Limits(s *inventory.Survey) model.Limits {
 
 // Run assesses s, applies the changes to a deep copy and assesses it again.
 // s is not modified.
+// A change marked overridden (a Changes sheet row a flag sets again) is
+// checked as the others but not applied, and listed in Whatif.Overridden.
 func Run(s *inventory.Survey, changes []Change) (*Whatif, error) {
 	before := assess.Assess(s, assess.Options{Limits: Limits(s)})
-	changed, applied, err := Apply(s, before, changes)
+	var active, overridden []Change
+	for _, c := range changes {
+		if c.OverriddenBy != "" {
+			// Checked all the same: a row in error is reported, not hidden by the flag.
+			if _, err := apply(CloneSurvey(s), before, c); err != nil {
+				return nil, err
+			}
+			overridden = append(overridden, c)
+			continue
+		}
+		active = append(active, c)
+	}
+	changed, applied, err := Apply(s, before, active)
 	if err != nil {
 		return nil, err
 	}
 	after := assess.Assess(changed, assess.Options{Limits: Limits(changed)})
-	return Diff(before, after, applied), nil
+	w := Diff(before, after, applied)
+	w.Overridden = overridden
+	return w, nil
+}
+
+// OverriddenText says, in a line, that a sheet row is overridden by a flag.
+func OverriddenText(c Change) string {
+	t := c.Kind + " " + c.Value
+	if c.Target != "" {
+		t = c.Kind + " " + c.Target + "=" + c.Value
+	}
+	return fmt.Sprintf("%s (%s): not applied, overridden by the flag %s (a flag wins over a Changes sheet row that sets the same target)", t, c.Source, c.OverriddenBy)
 }
 
 // Diff pairs the objects and stations of two audits of the same survey.
@@ -117,6 +150,9 @@ func Diff(before, after *assess.Audit, applied []Applied) *Whatif {
 			d.Outcome = OutcomeOf(b.Verdict, d.After.Verdict)
 			d.Changed = reached[d.ID] || rhStations[d.Station] || siteWideChange
 			d.Why = why(b, d.After, d.Changed)
+			if d.Changed {
+				d.Worse = worse(b, d.After)
+			}
 		}
 		w.Moved[d.Outcome]++
 		w.Objects = append(w.Objects, d)
@@ -175,6 +211,56 @@ func why(b, a *assess.ObjectResult, changed bool) string {
 		parts = append(parts, "the change does not alter this row's result")
 	}
 	return strings.Join(parts, "; ") + ": " + verdictPhrase(a)
+}
+
+// worse says why the row got worse, from its typed results (empty when it
+// did not): a surface that became an unearthed conductor (its resistivity
+// now below the dissipative bound at this RH, or a conducting material on a
+// row not earthed), a discharge of another type, a higher resistance to
+// earth, else the ratio's move.
+func worse(b, a *assess.ObjectResult) string {
+	sb, sa := b.Verdict.Severity(), a.Verdict.Severity()
+	up := sa > sb
+	if sa == sb && a.Verdict != assess.NonIncendive && b.Ratio != nil && a.Ratio != nil && *a.Ratio > *b.Ratio*(1+1e-9) {
+		up = true
+	}
+	if !up {
+		return ""
+	}
+	id := a.Object.ID
+	move := fmt.Sprintf("%s → %s", verdictPhrase(b), verdictPhrase(a))
+	rb, ra := b.Object.Resistance, a.Object.Resistance
+	switch {
+	case a.Eval.IsolatedConductor && !b.Eval.IsolatedConductor:
+		how := "now conducts"
+		if x := a.Eval.SurfaceResistivity; !math.IsNaN(x) {
+			how = fmt.Sprintf("now %s (%s Ω/sq)", resistivityClass(x), fmtSig(x))
+		}
+		if b.Object.Material != a.Object.Material {
+			how = fmt.Sprintf("the new material %s is %s", orNone(a.Object.Material), strings.TrimPrefix(how, "now "))
+		} else if b.Environment.RelativeHumidity != a.Environment.RelativeHumidity {
+			how += fmt.Sprintf(" at %s %% RH", fmtSig(a.Environment.RelativeHumidity))
+		}
+		return fmt.Sprintf("%s: %s and not earthed: judged as an isolated conductor that can spark; earth it (%s)", id, how, move)
+	case a.Eval.Effective != b.Eval.Effective && a.Eval.Effective != model.NoDischarge && b.Eval.Effective != model.NoDischarge:
+		return fmt.Sprintf("%s: its worst discharge is now a %s (was a %s) (%s)", id, dischargeWords(a.Eval.Effective), dischargeWords(b.Eval.Effective), move)
+	case ra.Known && (!rb.Known || ra.Value > rb.Value) && ra != rb:
+		return fmt.Sprintf("%s: resistance to earth %s → %s Ω leaks less charge (%s)", id, ohmText(rb), ohmText(ra), move)
+	}
+	return fmt.Sprintf("%s: worse after the change (%s)", id, move)
+}
+
+// resistivityClass names a surface resistivity's class: conductive below
+// 1e5 Ω/sq, dissipative below 1e12 Ω/sq, insulating above (the classes of
+// the built-in materials, inventory/library.go; IEC TS 60079-32-1).
+func resistivityClass(x float64) string {
+	switch {
+	case x < 1e5:
+		return "conductive"
+	case x < 1e12:
+		return "dissipative"
+	}
+	return "insulating"
 }
 
 // humidityPhrase says how the row's material responds to an RH change, from its

@@ -40,8 +40,13 @@ func rerunNotes() [][2]string {
 // whatifNotes are the whatif Method sheet's notes: the rerun notes and the
 // change kinds, from the change table.
 func whatifNotes() [][2]string {
-	return append(rerunNotes(), [2]string{"Change kinds", KindsNote()})
+	return append(rerunNotes(), [2]string{"Changes sheet and flags", SheetAndFlagsNote}, [2]string{"Change kinds", KindsNote()})
 }
+
+// SheetAndFlagsNote says how the Changes sheet and the flags combine.
+const SheetAndFlagsNote = "The survey's Changes sheet rows are applied first, then the flags in their order (--no-sheet-changes leaves the sheet out). " +
+	"When a flag sets the same target as a sheet row (the same change kind on the same object, station or the site), the flag wins: the sheet row is checked but not applied, and listed as overridden on the Changes applied sheet. " +
+	"The Changes sheet is used by whatif only: a problem on one of its rows is listed by assess, sweep and whatif --no-sheet-changes as a note (the sheet not used by this command), not as a rejected row."
 
 // WriteWhatifWorkbook writes the whatif workbook: Summary (counts before and
 // after, counts moved, a chart), Objects and Stations before/after, Changes
@@ -112,12 +117,12 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		}
 		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), audit.RatioCell(o.Before.Ratio)}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), audit.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), audit.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Worse), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
-	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "What changed and why", "Reason after"},
-		[]float64{12, 10, 10, 14, 14, 12, 14, 12, 11, 55, 55}, rows)
+	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "Why worse", "What changed and why", "Reason after"},
+		[]float64{12, 10, 10, 14, 14, 12, 14, 12, 11, 40, 55, 55}, rows)
 	b.PrintSetup(SheetObjects, "$1:$1")
 
 	// Stations.
@@ -140,6 +145,10 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	rows = nil
 	for i, a := range x.Applied {
 		rows = append(rows, []audit.Cell{in(i + 1), tx(a.Kind), tx(a.Target), tx(a.Value), tx(a.SIText), tx(a.Source), wr(a.Description), wr(strings.Join(a.Objects, ", ")), wr(a.Note)})
+	}
+	for _, c := range x.Overridden {
+		rows = append(rows, []audit.Cell{tx("–"), tx(c.Kind), tx(c.Target), tx(c.Value), tx("not applied"), tx(c.Source),
+			wr("overridden by the flag " + c.OverriddenBy + ": a flag wins over a Changes sheet row that sets the same target"), audit.EmptyCell(), wr(c.Note)})
 	}
 	if len(rows) == 0 {
 		rows = append(rows, []audit.Cell{audit.EmptyCell(), tx("none: the survey as it is")})
@@ -180,11 +189,22 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	b := newBook(base, info, SheetSweep, "Humidity sweep of the screening audit")
 	wide := sw.Top(SweepWideStations)
 	all := len(sw.Steps[0].Stations)
+	held := map[string]float64{}
+	for _, h := range sw.Held {
+		held[h.ID] = h.RH
+	}
 	headers := []string{"RH [%]", "Incendive objects", "Marginal objects"}
 	widths := []float64{8, 11, 11}
+	var heldShown []string
 	for _, j := range wide {
 		id := sw.Steps[0].Stations[j].ID
-		headers = append(headers, id+" worst ratio [–]", id+" verdict")
+		suffix := ""
+		if rh, ok := held[id]; ok {
+			// Its own RH is kept: the column repeats one value, it was not swept.
+			suffix = " " + heldMark(rh)
+			heldShown = append(heldShown, id+" "+heldMark(rh))
+		}
+		headers = append(headers, id+" worst ratio [–]"+suffix, id+" verdict"+suffix)
 		widths = append(widths, 11, 12)
 	}
 	var rows [][]audit.Cell
@@ -205,13 +225,23 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		return excelize.ChartSeries{Name: fmt.Sprintf("%s!$%s$1", sh, c), Categories: cat, Values: fmt.Sprintf("%s!$%s$2:$%s$%d", sh, c, c, n),
 			Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}, Line: excelize.LineOptions{Width: 2, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}, Marker: excelize.ChartMarker{Symbol: "circle", Size: 5, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colour}}}}
 	}
-	chartRow := n + 3
+	noteRow := n + 2
+	note := func(text string) {
+		b.Put(SheetSweep, 1, noteRow, wr(text))
+		b.check(b.f.MergeCell(SheetSweep, fmt.Sprintf("A%d", noteRow), fmt.Sprintf("L%d", noteRow)))
+		b.check(b.f.SetRowHeight(SheetSweep, noteRow, 30))
+		noteRow++
+	}
+	if len(heldShown) > 0 {
+		note(fmt.Sprintf("Not swept: %s. A station that gives its own RH keeps it at every step (--all-stations sweeps it too); its columns show its result at that RH on every row.", strings.Join(heldShown, ", ")))
+	}
 	if len(wide) < all {
-		b.Put(SheetSweep, 1, n+2, wr(fmt.Sprintf("The columns show the %d worst of %d stations (by rank at %s %% RH); every station at every step is on the %q sheet, and what each does on the Stations sheet.",
-			len(wide), all, fmtSig(sw.Steps[0].RH), SheetSweepLong)))
-		b.check(b.f.MergeCell(SheetSweep, fmt.Sprintf("A%d", n+2), fmt.Sprintf("L%d", n+2)))
-		b.check(b.f.SetRowHeight(SheetSweep, n+2, 30))
-		chartRow = n + 4
+		note(fmt.Sprintf("The columns show the %d worst of %d stations (by rank at %s %% RH); every station at every step is on the %q sheet, and what each does on the Stations sheet.",
+			len(wide), all, fmtSig(sw.Steps[0].RH), SheetSweepLong))
+	}
+	chartRow := n + 3
+	if noteRow > n+2 {
+		chartRow = noteRow + 1
 	}
 	anchor := fmt.Sprintf("A%d", chartRow)
 	b.check(b.f.AddChart(SheetSweep, anchor, &excelize.Chart{
@@ -252,22 +282,22 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	b.PrintSetup(SheetSweep, "$1:$1")
 
 	if len(wide) < all {
-		// Every station at every step, one row each: four columns however many stations.
+		// Every station at every step, one row each: five columns however many stations.
 		rows = nil
 		for j := range sw.Steps[0].Stations {
 			for _, st := range sw.Steps {
 				x := st.Stations[j]
-				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String())})
+				mark := audit.EmptyCell()
+				if rh, ok := held[x.ID]; ok {
+					mark = tx(heldMark(rh) + ", not swept")
+				}
+				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()), mark})
 			}
 		}
-		b.Table(SheetSweepLong, 1, []string{"Station", "RH [%]", "Worst ratio [–]", "Verdict"}, []float64{12, 8, 12, 14}, rows)
+		b.Table(SheetSweepLong, 1, []string{"Station", "Swept RH [%]", "Worst ratio [–]", "Verdict", "Station RH"}, []float64{12, 8, 12, 14, 24}, rows)
 		b.PrintSetup(SheetSweepLong, "$1:$1")
 	}
 
-	held := map[string]float64{}
-	for _, h := range sw.Held {
-		held[h.ID] = h.RH
-	}
 	rows = nil
 	first, last := sw.Steps[0], sw.Steps[len(sw.Steps)-1]
 	for j, c := range sw.Clearances {
@@ -275,14 +305,14 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		if c.Cause == ClearsAlways || c.Cause == ClearsFrom {
 			clears = audit.QuantityCell(book.UnitPercentRH, c.ClearsAt)
 		}
-		own := audit.EmptyCell()
+		own, swept := audit.EmptyCell(), tx("swept")
 		if rh, ok := held[c.ID]; ok {
-			own = audit.QuantityCell(book.UnitPercentRH, rh)
+			own, swept = audit.QuantityCell(book.UnitPercentRH, rh), tx(heldMark(rh)+" (not swept)")
 		}
-		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
+		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), swept, own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Own RH kept [%]", fmt.Sprintf("Verdict at %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
-		[]float64{10, 28, 10, 14, 14, 14, 60}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Swept or held", "Own RH kept [%]", fmt.Sprintf("Verdict at swept %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at swept %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
+		[]float64{10, 28, 22, 10, 14, 14, 14, 60}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 	notes := append(rerunNotes()[2:3], [2]string{"Sweep", sweepMethodText(sw)})
 	b.AddMethodSheet(audit.MethodNotes{Title: "How this sweep works (the formulas, limits and defaults below are those of the survey as it is; only the RH is replaced at each step)", Notes: notes})
@@ -291,10 +321,17 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	return b.write(w)
 }
 
+// heldMark marks a station kept at its own RH: "held at own RH 20 %".
+func heldMark(rh float64) string { return fmt.Sprintf("held at own RH %s %%", fmtSig(rh)) }
+
 // sweepMethodText is the Method sheet's note on how the sweep set the RH and
 // what its clearances mean.
 func sweepMethodText(sw *Sweep) string {
-	return "At each step the swept RH is set as the site RH and the survey is assessed again with the same limits. " +
+	warn := ""
+	if len(sw.Warnings) > 0 {
+		warn = "Warning: " + strings.Join(sw.Warnings, " ") + " "
+	}
+	return warn + "At each step the swept RH is set as the site RH and the survey is assessed again with the same limits. " +
 		sweepHeldText(sw, 0) + " " +
 		"A station becomes non-incendive at the lowest step from which every higher step is non-incendive. When the highest step is still incendive, marginal or not assessed, the Stations sheet says why: an input missing or assumed the stricter case (an unmeasured resistance to earth, a missing MIE or dimension) is named as the cause, since humidity cannot clear what is not known; a reading above its screen holds at every RH; otherwise humidity alone never gets it there. Steps are only as fine as the range given."
 }
