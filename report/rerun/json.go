@@ -241,7 +241,26 @@ type jsonRankMove struct {
 	VerdictAfter     *string  `json:"verdict_after"`
 	WorstRatioBefore *float64 `json:"worst_ratio_before"`
 	WorstRatioAfter  *float64 `json:"worst_ratio_after"`
-	Move             string   `json:"move"`
+	// the worst ratio rests on an assumed resistance to earth: at least 1, its size no figure
+	AssumedBefore bool     `json:"worst_ratio_before_assumed_resistance"`
+	AssumedAfter  bool     `json:"worst_ratio_after_assumed_resistance"`
+	Added         []string `json:"objects_added"`
+	Removed       []string `json:"objects_removed"`
+	Rejected      []string `json:"objects_rejected"`
+	Move          string   `json:"move"`
+}
+
+type jsonRejected struct {
+	ID      string `json:"id"`
+	Station string `json:"station"`
+	Row     int    `json:"row"`
+	Why     string `json:"why"`
+}
+
+type jsonStationCounts struct {
+	Moved   int `json:"moved"`    // on both sides, rank or verdict moved
+	OnlyNew int `json:"only_new"` // stations added
+	OnlyOld int `json:"only_old"` // stations removed
 }
 
 type jsonIdentity struct {
@@ -251,6 +270,7 @@ type jsonIdentity struct {
 	SiteID       string  `json:"site_id"`
 	SurveyDate   *string `json:"survey_date"` // null: not given
 	SurveySHA256 string  `json:"survey_sha256,omitempty"`
+	FileSHA256   string  `json:"file_sha256,omitempty"` // an audit JSON's own checksum
 	ResultsOnly  bool    `json:"results_only"`
 }
 
@@ -267,9 +287,21 @@ type jsonCompare struct {
 	StationChanges []jsonStationChange `json:"station_changes"`
 	Added          []string            `json:"added"`
 	Removed        []string            `json:"removed"`
+	RejectedOld    []jsonRejected      `json:"rejected_old"`
+	RejectedNew    []jsonRejected      `json:"rejected_new"`
 	Changed        []jsonChanged       `json:"changed"`
 	Stations       []jsonRankMove      `json:"stations"`
+	StationCounts  jsonStationCounts   `json:"station_counts"`
+	DifferentSites bool                `json:"different_sites"`
 	Cautions       []string            `json:"cautions"`
+}
+
+func jrejected(rs []RejectedObject) []jsonRejected {
+	out := []jsonRejected{}
+	for _, r := range rs {
+		out = append(out, jsonRejected{r.ID, r.Station, r.Row, r.Why})
+	}
+	return out
 }
 
 func rankPtr(r int) *int {
@@ -287,7 +319,7 @@ func strPtr(s string) *string {
 }
 
 func jidentity(id Identity) jsonIdentity {
-	j := jsonIdentity{Path: id.Path, SHA256: id.SHA256, Site: id.Site, SiteID: id.SiteID, SurveySHA256: id.SurveySHA256, ResultsOnly: id.Results}
+	j := jsonIdentity{Path: id.Path, SHA256: id.SHA256, Site: id.Site, SiteID: id.SiteID, SurveySHA256: id.SurveySHA256, FileSHA256: id.FileSHA256, ResultsOnly: id.Results}
 	if !id.SurveyDate.IsZero() {
 		j.SurveyDate = strPtr(id.DateText())
 	}
@@ -305,8 +337,9 @@ func jidentity(id Identity) jsonIdentity {
 // on that side) and "cautions" (the screening cautions).
 func WriteCompareJSON(w io.Writer, c *Comparison) error {
 	d := jsonCompare{Old: jidentity(c.Old.Identity), New: jidentity(c.New.Identity), Warnings: []jsonCaution{}, SiteChanges: []jsonFieldChange{},
-		StationChanges: []jsonStationChange{}, Added: nonNil(c.Added), Removed: nonNil(c.Removed), Changed: []jsonChanged{}, Stations: []jsonRankMove{},
-		Cautions: templates.Cautions()}
+		StationChanges: []jsonStationChange{}, Added: nonNil(c.Added), Removed: nonNil(c.Removed), RejectedOld: jrejected(c.RejectedOld), RejectedNew: jrejected(c.RejectedNew),
+		Changed: []jsonChanged{}, Stations: []jsonRankMove{}, StationCounts: jsonStationCounts{c.StationsMoved(), c.StationsAdded(), c.StationsRemoved()},
+		DifferentSites: c.HasCaution(CautionDifferentSites), Cautions: templates.Cautions()}
 	for _, k := range c.Cautions {
 		d.Warnings = append(d.Warnings, jsonCaution{string(k.Kind), k.Text})
 	}
@@ -325,7 +358,8 @@ func WriteCompareJSON(w io.Writer, c *Comparison) error {
 	}
 	for _, m := range c.Stations {
 		d.Stations = append(d.Stations, jsonRankMove{m.ID, rankPtr(m.RankBefore), rankPtr(m.RankAfter), strPtr(m.VerdictBefore), strPtr(m.VerdictAfter),
-			finite(m.WorstRatioBefore), finite(m.WorstRatioAfter), m.Move()})
+			finite(m.WorstRatioBefore), finite(m.WorstRatioAfter), m.WorstRatioAssumedBefore, m.WorstRatioAssumedAfter,
+			nonNil(m.Added), nonNil(m.Removed), nonNil(m.Rejected), m.Move()})
 	}
 	return encode(w, d)
 }

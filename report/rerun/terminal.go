@@ -7,6 +7,7 @@ import (
 	"text/tabwriter"
 	"unicode/utf8"
 
+	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
@@ -167,7 +168,7 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 		side *Side
 	}{{"Old", c.Old}, {"New", c.New}} {
 		id := s.side.Identity
-		fmt.Fprintf(w, "%s: %s\n     site %s, surveyed %s, SHA-256 %s\n", s.role, dash(id.Path), id.SiteText(), id.DateText(), shortSum(id.SHA256))
+		fmt.Fprintf(w, "%s: %s\n     site %s, surveyed %s, survey SHA-256 %s\n", s.role, dash(id.Path), id.SiteText(), id.DateText(), shortSum(id.SHA256))
 	}
 	for _, k := range c.Cautions {
 		fmt.Fprintf(w, "WARNING (%s): %s\n", k.Kind, k.Text)
@@ -188,7 +189,21 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	tw.Flush()
 	fmt.Fprintln(w)
 	fmt.Fprintf(w, "Added (%d):   %s\n", len(c.Added), listOrNone(c.Added))
-	fmt.Fprintf(w, "Removed (%d): %s\n\n", len(c.Removed), listOrNone(c.Removed))
+	fmt.Fprintf(w, "Removed (%d): %s\n", len(c.Removed), listOrNone(c.Removed))
+	for _, g := range []struct {
+		side string
+		rs   []RejectedObject
+	}{{"OLD", c.RejectedOld}, {"NEW", c.RejectedNew}} {
+		if len(g.rs) == 0 {
+			continue
+		}
+		var ids []string
+		for _, r := range g.rs {
+			ids = append(ids, r.Text())
+		}
+		fmt.Fprint(w, wrapText("", fmt.Sprintf("Rejected in %s (%d, not compared, neither added nor removed: see its audit / Rejected sheet): %s", g.side, len(g.rs), strings.Join(ids, "; ")), terminalWidth, "  "))
+	}
+	fmt.Fprintln(w)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "Changed object\tStation\tVerdict before\tVerdict after\tFields changed")
 	for _, ch := range c.Changed {
@@ -203,14 +218,30 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	fmt.Fprintln(tw, "Station\tRank before\tRank after\tVerdict before\tVerdict after\tWorst ratio before\tWorst ratio after\tMove")
 	for _, m := range c.Stations {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", m.ID, rankText(m.RankBefore), rankText(m.RankAfter), dash(m.VerdictBefore), dash(m.VerdictAfter),
-			audit.FormatRatio(m.WorstRatioBefore), audit.FormatRatio(m.WorstRatioAfter), m.Move())
+			markedRatio(m.WorstRatioBefore, m.WorstRatioAssumedBefore, m.RankBefore != 0), markedRatio(m.WorstRatioAfter, m.WorstRatioAssumedAfter, m.RankAfter != 0), m.Move())
 	}
 	if len(c.Stations) == 0 {
 		fmt.Fprintln(tw, "(no station's rank or verdict moved)")
 	}
 	tw.Flush()
+	fmt.Fprintf(w, "Stations: %d on both sides whose rank or verdict moved, %d only in NEW, %d only in OLD\n", c.StationsMoved(), c.StationsAdded(), c.StationsRemoved())
+	if c.HasCaution(CautionDifferentSites) {
+		fmt.Fprintln(w, "Different sites: the lists above compare two places, not a survey repeated over time.")
+	}
 	caution(w)
 	return nil
+}
+
+// markedRatio is a ratio as text, RatioAssumedText when it rests on an
+// assumed resistance to earth, "–" when the side has none (on is false).
+func markedRatio(r *float64, assumed, on bool) string {
+	switch {
+	case !on:
+		return "–"
+	case assumed:
+		return assess.RatioAssumedText
+	}
+	return audit.FormatRatio(r)
 }
 
 // shortSum is the first 12 hex digits of a checksum, "not known" for none.
