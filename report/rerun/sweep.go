@@ -26,6 +26,10 @@ type SweepStation struct {
 	Verdict    assess.Verdict
 	WorstRatio *float64
 	Rank       int // the station's rank at this step (1 = worst)
+	// WorstRatioAssumed: the worst ratio rests on an assumed resistance to
+	// earth (assess.StationResult.WorstRatioAssumed): at least 1, its size no figure.
+	WorstRatioAssumed bool
+	RejectedRows      int // Objects rows naming the station rejected: incomplete
 }
 
 // ClearanceCause says, typed, why a station clears where it does or never does.
@@ -205,6 +209,7 @@ func RunSweep(s *inventory.Survey, rh []float64, o SweepOptions) *Sweep {
 			x := SweepStation{ID: id, Verdict: assess.NotAssessed}
 			if st := byID[id]; st != nil {
 				x.Verdict, x.WorstRatio, x.Rank = st.Verdict, st.WorstRatio, st.Rank
+				x.WorstRatioAssumed, x.RejectedRows = st.WorstRatioAssumed, st.RejectedRows
 			}
 			step.Stations = append(step.Stations, x)
 		}

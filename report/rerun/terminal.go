@@ -3,6 +3,7 @@ package rerun
 import (
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"text/tabwriter"
 	"unicode/utf8"
@@ -31,13 +32,25 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "Station\tRank before\tVerdict before\tWorst ratio before\tRank after\tVerdict after\tWorst ratio after\tOutcome")
+	noted := false // a Note column only when a station is incomplete or ranked on an assumed resistance
+	for _, s := range x.Stations {
+		noted = noted || len(s.After.Notes()) > 0 || (s.Before != nil && len(s.Before.Notes()) > 0)
+	}
+	hdr := "Station\tRank before\tVerdict before\tWorst ratio before\tRank after\tVerdict after\tWorst ratio after\tOutcome"
+	if noted {
+		hdr += "\tNote"
+	}
+	fmt.Fprintln(tw, hdr)
 	for _, s := range x.Stations {
 		b := [3]string{"–", "–", "–"}
 		if s.Before != nil {
-			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), audit.FormatRatio(s.Before.WorstRatio)}
+			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), StationRatioText(s.Before)}
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s\n", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, audit.FormatRatio(s.After.WorstRatio), s.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, StationRatioText(s.After), s.Outcome)
+		if noted {
+			fmt.Fprint(tw, "\t"+strings.Join(StationNotes(s.Before, s.After), "; "))
+		}
+		fmt.Fprintln(tw)
 	}
 	tw.Flush()
 	fmt.Fprintln(w)
@@ -49,7 +62,7 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 			continue
 		}
 		moved++
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, audit.FormatRatio(o.Before.Ratio), o.After.Verdict, audit.FormatRatio(o.After.Ratio), o.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, ObjectRatioText(o.Before), o.After.Verdict, ObjectRatioText(o.After), o.Outcome)
 	}
 	if moved == 0 {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
@@ -64,6 +77,44 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	fmt.Fprintln(w, MeasuredReadingsNote)
 	caution(w)
 	return nil
+}
+
+// StationRatioText is a station's worst ratio as the terminal shows it:
+// assess.RatioAssumedText when it rests on an assumed resistance to earth (its
+// size no figure), "no discharge" or "n/a" where there is no number.
+func StationRatioText(s *assess.StationResult) string {
+	return markedRatio(s.WorstRatio, s.WorstRatioAssumed, true)
+}
+
+// ObjectRatioText is an object's ratio as the terminal shows it, the
+// assumed-resistance text where its size is an artefact.
+func ObjectRatioText(r *assess.ObjectResult) string {
+	return markedRatio(r.Ratio, r.RatioAssumed(), true)
+}
+
+// StationNotes are a station's marks before and after a rerun: incomplete
+// (Objects rows rejected: its rank leaves them out) and ranked on an assumed
+// resistance, each said once, "before:"/"after:" where only one side has it.
+func StationNotes(before, after *assess.StationResult) []string {
+	var out []string
+	var b []string
+	if before != nil {
+		b = before.Notes()
+	}
+	a := after.Notes()
+	for _, n := range a {
+		if slices.Contains(b, n) {
+			out = append(out, n)
+		} else {
+			out = append(out, "after: "+n)
+		}
+	}
+	for _, n := range b {
+		if !slices.Contains(a, n) {
+			out = append(out, "before: "+n)
+		}
+	}
+	return out
 }
 
 // SweepColumnsPerTable is how many station columns one terminal table of a
@@ -100,7 +151,7 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 			row := []string{fmtSig(st.RH), fmt.Sprint(st.Incendive), fmt.Sprint(st.Marginal)}
 			for _, j := range block {
 				x := st.Stations[j]
-				row = append(row, audit.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
+				row = append(row, markedRatio(x.WorstRatio, x.WorstRatioAssumed, true)+verdictMark(x.Verdict.String()))
 			}
 			fmt.Fprintln(tw, strings.Join(row, "\t")+"\t")
 		}
@@ -110,6 +161,11 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 		}
 	}
 	fmt.Fprintln(w, "Station cells: worst ratio E/MIE; ! incendive, ~ marginal, ? not assessed, blank non-incendive.")
+	for _, x := range s.Steps[0].Stations {
+		if x.RejectedRows > 0 {
+			fmt.Fprint(w, wrapText("", x.ID+" "+sweepStationText(x, ""), terminalWidth, "  "))
+		}
+	}
 	fmt.Fprintln(w)
 	for _, j := range shown {
 		c := s.Clearances[j]

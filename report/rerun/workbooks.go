@@ -113,14 +113,14 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		if o.After != nil {
 			mat = o.After.Object.Material
 		}
-		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), audit.RatioCell(o.Before.Ratio)}
+		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio, o.Before.RatioAssumed())}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), audit.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio, o.After.RatioAssumed()), ct(string(o.Outcome)), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
 	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "What changed and why", "Reason after"},
-		[]float64{12, 10, 10, 14, 14, 12, 14, 12, 11, 55, 55}, rows)
+		[]float64{12, 10, 10, 14, 14, 16, 14, 16, 11, 55, 55}, rows)
 	b.PrintSetup(SheetObjects, "$1:$1")
 
 	// Stations.
@@ -128,15 +128,16 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	for _, d := range x.Stations {
 		row := []audit.Cell{tx(d.ID), tx(d.Name)}
 		if d.Before != nil {
-			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), audit.RatioCell(d.Before.WorstRatio))
+			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), ratioCell(d.Before.WorstRatio, d.Before.WorstRatioAssumed))
 		} else {
 			row = append(row, audit.EmptyCell(), audit.EmptyCell(), audit.EmptyCell())
 		}
-		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), audit.RatioCell(d.After.WorstRatio), ct(string(d.Outcome)))
+		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), ratioCell(d.After.WorstRatio, d.After.WorstRatioAssumed), ct(string(d.Outcome)),
+			wr(strings.Join(StationNotes(d.Before, d.After), "; ")))
 		rows = append(rows, row)
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
-		[]float64{10, 28, 8, 14, 12, 8, 14, 12, 11}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome", "Note"},
+		[]float64{10, 28, 8, 14, 16, 8, 14, 16, 11, 45}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 
 	// Changes applied.
@@ -195,7 +196,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		row := []audit.Cell{audit.QuantityCell(book.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
 		for _, j := range wide {
 			x := st.Stations[j]
-			row = append(row, audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
+			row = append(row, ratioCell(x.WorstRatio, x.WorstRatioAssumed), vd(x.Verdict.String()))
 		}
 		rows = append(rows, row)
 	}
@@ -260,7 +261,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		for j := range sw.Steps[0].Stations {
 			for _, st := range sw.Steps {
 				x := st.Stations[j]
-				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String())})
+				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), ratioCell(x.WorstRatio, x.WorstRatioAssumed), vd(x.Verdict.String())})
 			}
 		}
 		b.Table(SheetSweepLong, 1, []string{"Station", "RH [%]", "Worst ratio [–]", "Verdict"}, []float64{12, 8, 12, 14}, rows)
@@ -282,7 +283,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		if rh, ok := held[c.ID]; ok {
 			own = audit.QuantityCell(book.UnitPercentRH, rh)
 		}
-		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
+		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(sweepStationText(first.Stations[j], c.Text))})
 	}
 	b.Table(SheetStations, 1, []string{"Station", "Name", "Own RH kept [%]", fmt.Sprintf("Verdict at %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
 		[]float64{10, 28, 10, 14, 14, 14, 60}, rows)
@@ -292,6 +293,15 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 	b.AddCautionsSheet()
 	b.AddRejectedSheet(sw.Survey)
 	return b.write(w)
+}
+
+// sweepStationText is a station's sweep text, led by its incomplete mark
+// (Objects rows naming it rejected: its ranks leave those objects out).
+func sweepStationText(x SweepStation, text string) string {
+	if t := (assess.StationResult{RejectedRows: x.RejectedRows}).IncompleteText(); t != "" {
+		return t + "; its verdicts and ranks leave those objects out. " + text
+	}
+	return text
 }
 
 // sweepMethodText is the Method sheet's note on how the sweep set the RH and
