@@ -515,14 +515,13 @@ func methodNotes(b *rerunBook, sh string, r int, headers []string, rows [][2]str
 }
 
 // notesHeight is the height in points of a wrapped note of width characters,
-// one line more than counted for the printer's margin, at most a sheet row's
-// maximum (409 points); 0 for one line.
+// at most a sheet row's maximum (409 points); 0 for one line.
 func notesHeight(s string, width float64) float64 {
 	n := book.WrappedLines(s, width)
 	if n <= 1 {
 		return 0
 	}
-	return min(book.LineHeight*float64(n+1)+2, 409)
+	return min(book.LineHeight*float64(n)+2, 409)
 }
 
 // ratioCell is a ratio cell, the assumed-resistance text instead of the
