@@ -222,6 +222,10 @@ type RankMove struct {
 	// removed, or rejected on either side: the station's set of objects is
 	// not the same, so a move is not called better or worse.
 	Added, Removed, Rejected []string
+	// OnlyOthers: the station's own objects, verdict and worst ratio are the
+	// same on both sides, and its rank moved only because objects were added,
+	// removed or rejected at other stations: not better, not worse.
+	OnlyOthers bool
 }
 
 // ObjectsDiffer reports whether the station's objects are not the same on
@@ -241,19 +245,22 @@ func (m RankMove) Move() string {
 		return "station removed"
 	case m.RankAfter < m.RankBefore:
 		s = fmt.Sprintf("up %d", m.RankBefore-m.RankAfter)
-		if !m.ObjectsDiffer() {
+		if !m.ObjectsDiffer() && !m.OnlyOthers {
 			s += " (worse)"
 		}
 	case m.RankAfter > m.RankBefore:
 		s = fmt.Sprintf("down %d", m.RankAfter-m.RankBefore)
-		if !m.ObjectsDiffer() {
+		if !m.ObjectsDiffer() && !m.OnlyOthers {
 			s += " (better)"
 		}
 	default:
 		s = "same rank, verdict changed"
 	}
-	if m.ObjectsDiffer() {
+	switch {
+	case m.ObjectsDiffer():
 		s += ": " + m.objectsText()
+	case m.OnlyOthers:
+		s += ": its own result unchanged, objects added, removed or rejected at other stations"
 	}
 	return s
 }
@@ -774,6 +781,7 @@ func Compare(old, new *Side) *Comparison {
 	if n := c.Rejected(); n > 0 {
 		c.Cautions = append(c.Cautions, Caution{CautionRejected, rejectedCautionText(c)})
 	}
+	anyDiffer := len(added)+len(removed)+len(rejected) > 0
 	oldSt := map[string]SideStation{}
 	for _, s := range old.Stations {
 		oldSt[s.ID] = s
@@ -789,6 +797,7 @@ func Compare(old, new *Side) *Comparison {
 			Added: added[n.ID], Removed: removed[n.ID], Rejected: rejected[n.ID]}
 		if ok {
 			m.RankBefore, m.VerdictBefore, m.WorstRatioBefore, m.WorstRatioAssumedBefore = o.Rank, o.Verdict, o.WorstRatio, o.WorstRatioAssumed
+			m.OnlyOthers = anyDiffer && !m.ObjectsDiffer() && o.Verdict == n.Verdict && o.WorstRatioAssumed == n.WorstRatioAssumed && ratioEq(o.WorstRatio, n.WorstRatio)
 		}
 		c.Stations = append(c.Stations, m)
 	}

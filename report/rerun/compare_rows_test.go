@@ -61,8 +61,9 @@ func TestCompareObjectsMissingAtStation(t *testing.T) {
 	if got, want := a.Move(), "down 1: object BIG removed"; got != want {
 		t.Errorf("ST-A move %q, want %q", got, want)
 	}
-	// ST-B's objects are the same on both sides: its move keeps its word.
-	if got, want := moves["ST-B"].Move(), "up 1 (worse)"; got != want {
+	// ST-B's objects and result (57 mJ, ratio 5.7) are the same on both
+	// sides: it moved up only because ST-A lost BIG, so it is not "worse".
+	if got, want := moves["ST-B"].Move(), "up 1: its own result unchanged, objects added, removed or rejected at other stations"; got != want {
 		t.Errorf("ST-B move %q, want %q", got, want)
 	}
 
