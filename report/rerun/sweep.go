@@ -298,7 +298,7 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			c.Always = st.Verdict == assess.NonIncendive
 			c.Text = fmt.Sprintf("kept at its own %s %% RH (not swept; --all-stations sweeps it too): %s", fmtSig(rh), st.Verdict)
 			if st.WorstRatio != nil {
-				c.Text += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+				c.Text += fmt.Sprintf(" (worst ratio %s)", sigOrAssumed(*st.WorstRatio, st.WorstRatioAssumed))
 			}
 			c.Missing, c.Readings, _ = stationCauses(last, st.ID)
 			if st.Verdict != assess.NonIncendive && len(c.Missing) > 0 {
@@ -319,7 +319,7 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			c.Missing, c.Readings, c.Cause = stationCauses(last, st.ID)
 			still := fmt.Sprintf("still %s at %s %% RH", st.Verdict, fmtSig(lastStep.RH))
 			if st.WorstRatio != nil {
-				still += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+				still += fmt.Sprintf(" (worst ratio %s)", sigOrAssumed(*st.WorstRatio, st.WorstRatioAssumed))
 			}
 			switch c.Cause {
 			case NeverMissingInput:

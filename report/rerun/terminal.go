@@ -357,3 +357,12 @@ func wrapText(prefix, s string, width int, indent string) string {
 	b.WriteByte('\n')
 	return b.String()
 }
+
+// sigOrAssumed is a ratio to 3 significant digits (fmtSig), or
+// assess.RatioAssumedText when it rests on an assumed resistance to earth.
+func sigOrAssumed(r float64, assumed bool) string {
+	if assumed {
+		return assess.RatioAssumedText
+	}
+	return fmtSig(r)
+}
