@@ -37,7 +37,9 @@ func newCompareCmd(ws *outfile.Workspace) *cobra.Command {
 			"settings changed (RH, zone, MIE, gas group...), the objects added, removed and changed, and every station\n" +
 			"whose rank moved or verdict changed. When either side is a JSON file both sides are compared on the\n" +
 			"audit's results (the JSON holds no readings).\n" +
-			"Exit status: 0 done, 1 nothing could be assessed, 2 usage or unreadable input.",
+			"Exit status: 0 done, 1 an Objects row was rejected on either side (listed apart, never as removed), the\n" +
+			"two sides are different sites, or nothing could be assessed (the outputs are written in the first two\n" +
+			"cases), 2 usage or unreadable input.",
 		Example: "  sparkmargin compare last-year.xlsx this-year.xlsx -o compare.xlsx\n" +
 			"  sparkmargin compare old-audit.json new-audit.json --json compare.json",
 		Args: cobra.ExactArgs(2),
@@ -130,6 +132,21 @@ func runCompare(out io.Writer, o compareOptions) error {
 	}
 	if o.json != "" {
 		fmt.Fprintf(out, "Compare JSON:     %s\n", outfile.ShownPath(o.json))
+	}
+	return compareShortfall(c)
+}
+
+// compareShortfall is the exit rule of compare, after its outputs are
+// written: an Objects row rejected on either side fails the run as it fails
+// assess (an object not assessed is a hazard the comparison does not cover),
+// and so does a comparison of two different sites (not a repeat survey).
+func compareShortfall(c *rerun.Comparison) error {
+	switch {
+	case c.Rejected() > 0:
+		return withCode(exitProblems, fmt.Errorf("%d object row(s) were rejected (OLD %d, NEW %d): they are listed apart, not as added or removed, and their stations are compared without them; see each side's audit / Rejected sheet",
+			c.Rejected(), len(c.RejectedOld), len(c.RejectedNew)))
+	case c.HasCaution(rerun.CautionDifferentSites):
+		return withCode(exitProblems, fmt.Errorf("the two sides are different sites: the comparison is written, but it is of two places, not a repeat survey"))
 	}
 	return nil
 }

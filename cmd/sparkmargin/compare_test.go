@@ -22,7 +22,8 @@ func TestCompareReversedOtherSite(t *testing.T) {
 	writeDemoSite(t, earlier, map[string]any{"Survey date": "2025-02-10", "Site": "Bramley mill (invented)", "Relative humidity": 55.0})
 	js, wb := filepath.Join(dir, "c.json"), filepath.Join(dir, "c.xlsx")
 	code, out, errOut := runCLI(t, "compare", later, earlier, "-o", wb, "--json", js)
-	if code != exitOK {
+	// different sites: written, warned, and exit 1 (README: Exit codes)
+	if code != exitProblems || !strings.Contains(errOut, "different sites") {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
 	for _, want := range []string{"WARNING (different sites)", "WARNING (dates reversed)", "c2-2026.xlsx", "other-2025.xlsx", "2026-02-10", "2025-02-10", "Bramley mill (invented)", "Relative humidity  Site   35 %    55 %"} {
@@ -58,7 +59,7 @@ func TestCompareReversedOtherSite(t *testing.T) {
 		t.Fatal(err)
 	}
 	defer f.Close()
-	if got := f.GetSheetList(); !slices.Equal(got, []string{"Summary", "Settings changed", "Added", "Removed", "Changed", "Stations", "Method", "Cautions"}) {
+	if got := f.GetSheetList(); !slices.Equal(got, []string{"Summary", "Settings changed", "Added", "Removed", "Rejected objects", "Changed", "Stations", "Method", "Cautions"}) {
 		t.Errorf("sheets %v", got)
 	}
 	rows, _ := f.GetRows("Method")

@@ -73,14 +73,14 @@ func TestWhatifCommand(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	top := wantKeys(t, "whatif", data, "survey", "changes", "objects", "stations", "cautions")
+	top := wantKeys(t, "whatif", data, "tool", "survey", "workbook", "changes", "objects", "stations", "cautions")
 	wantKeys(t, "whatif survey", top["survey"], "site", "survey_date", "file", "sha256")
 	obj := wantKeys(t, "whatif object", firstOf(t, top["objects"]), "id", "station", "before", "after")
-	wantKeys(t, "whatif object before", obj["before"], "verdict", "ratio")
-	wantKeys(t, "whatif object after", obj["after"], "verdict", "ratio")
+	wantKeys(t, "whatif object before", obj["before"], "verdict", "ratio", "ratio_assumed_resistance")
+	wantKeys(t, "whatif object after", obj["after"], "verdict", "ratio", "ratio_assumed_resistance")
 	st := wantKeys(t, "whatif station", firstOf(t, top["stations"]), "id", "before", "after")
-	wantKeys(t, "whatif station before", st["before"], "rank", "verdict", "worst_ratio")
-	wantKeys(t, "whatif station after", st["after"], "rank", "verdict", "worst_ratio")
+	wantKeys(t, "whatif station before", st["before"], "rank", "verdict", "worst_ratio", "worst_ratio_assumed_resistance", "rejected_rows")
+	wantKeys(t, "whatif station after", st["after"], "rank", "verdict", "worst_ratio", "worst_ratio_assumed_resistance", "rejected_rows")
 
 	var doc struct {
 		Changes []struct {
@@ -211,7 +211,7 @@ func TestSweepCommand(t *testing.T) {
 		t.Errorf("terminal table missing:\n%s", out)
 	}
 	data, _ := os.ReadFile(js)
-	top := wantKeys(t, "sweep", data, "survey", "all_stations", "held_stations", "steps", "clearances", "cautions")
+	top := wantKeys(t, "sweep", data, "tool", "survey", "workbook", "all_stations", "held_stations", "steps", "clearances", "cautions")
 	wantKeys(t, "sweep survey", top["survey"], "site", "survey_date", "file", "sha256")
 	wantKeys(t, "sweep clearance", firstOf(t, top["clearances"]), "id", "clears_at_rh_pct", "cause", "missing_inputs", "readings_holding", "text")
 	var steps []json.RawMessage
@@ -220,7 +220,7 @@ func TestSweepCommand(t *testing.T) {
 		t.Fatalf("%d steps, want 3", len(steps))
 	}
 	step := wantKeys(t, "sweep step", steps[0], "rh_pct", "incendive", "marginal", "stations")
-	wantKeys(t, "sweep station", firstOf(t, step["stations"]), "id", "verdict", "worst_ratio")
+	wantKeys(t, "sweep station", firstOf(t, step["stations"]), "id", "verdict", "worst_ratio", "worst_ratio_assumed_resistance", "rejected_rows")
 	f, err := excelize.OpenFile(xlsx)
 	if err != nil {
 		t.Fatal(err)
@@ -245,8 +245,10 @@ func TestCompareCommand(t *testing.T) {
 			t.Fatalf("compare %v: exit %d: %s", pair, code, errOut)
 		}
 		data, _ := os.ReadFile(js)
-		top := wantKeys(t, "compare", data, "old", "new", "warnings", "site_changes", "station_changes", "added", "removed", "changed", "stations", "cautions")
-		if !strings.Contains(string(top["warnings"]), `"same survey date"`) || !strings.Contains(string(top["old"]), `"survey_date": "2026-02-10"`) {
+		top := wantKeys(t, "compare", data, "old", "new", "warnings", "site_changes", "station_changes", "added", "removed", "rejected_old", "rejected_new",
+			"changed", "stations", "station_counts", "different_sites", "cautions")
+		// the same survey on both sides (an audit JSON is known by its survey's checksum): "same file", not "same survey date"
+		if !strings.Contains(string(top["warnings"]), `"same file"`) || strings.Contains(string(top["warnings"]), `"same survey date"`) || !strings.Contains(string(top["old"]), `"survey_date": "2026-02-10"`) {
 			t.Errorf("compare %v: warnings %s, old %s", pair, top["warnings"], top["old"])
 		}
 		for _, k := range []string{"site_changes", "station_changes", "added", "removed", "changed", "stations"} {

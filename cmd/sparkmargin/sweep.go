@@ -32,7 +32,8 @@ func newSweepCmd(ws *outfile.Workspace) *cobra.Command {
 			"station becomes non-incendive, or why it never does (an input missing, a reading that holds, or humidity\n" +
 			"alone not enough). A station that gives its own RH (a dryer exit at 20 %) keeps it unless --all-stations.\n" +
 			"Only materials whose surface resistivity responds to humidity change. The survey file is never modified.\n" +
-			"Exit status: 0 done, 1 nothing could be assessed, 2 usage or unreadable survey.",
+			"Exit status: 0 done, 1 an Objects row was rejected (the outputs are written, its station marked incomplete,\n" +
+			"as assess) or nothing could be assessed, 2 usage or unreadable survey.",
 		Example: "  sparkmargin sweep demo-out/demo-survey.xlsx --rh 10:90:5 -o sweep.xlsx",
 		Args:    cobra.ExactArgs(1),
 		RunE: func(c *cobra.Command, args []string) error {
@@ -73,9 +74,9 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
-	if err := o.ws.WritePair(o.output, o.json,
+	if err := writeLinked(o.ws, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteSweepWorkbook(w, sw, info) },
-		func(w io.Writer) error { return rerun.WriteSweepJSON(w, sw) }); err != nil {
+		func(w io.Writer, ji rerun.JSONInfo) error { return rerun.WriteSweepJSONWith(w, sw, ji) }); err != nil {
 		return err
 	}
 	rerun.WriteSweepSummary(out, sw, o.top)
@@ -85,5 +86,5 @@ func runSweep(out io.Writer, o sweepOptions) error {
 	if o.json != "" {
 		fmt.Fprintf(out, "Sweep JSON:     %s\n", outfile.ShownPath(o.json))
 	}
-	return nil
+	return rejectedShortfall(s)
 }

@@ -3,11 +3,13 @@ package main
 import (
 	"fmt"
 	"io"
+	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
@@ -62,7 +64,8 @@ func newWhatifCmd(ws *outfile.Workspace) *cobra.Command {
 			"survey's Changes sheet (first) and from the flags (then, in their order).\n" +
 			"Targets: an object ID, or station:ID for every matching row of a station (a station ID for --station-rh).\n" +
 			"A flag and a Changes sheet row read the same way; quote a value with a space (--earth \"X=5 kV\").\n" +
-			"Exit status: 0 done, 1 nothing could be assessed, 2 usage, unreadable survey or a bad change.",
+			"Exit status: 0 done, 1 an Objects row was rejected (the outputs are written, its station marked\n" +
+			"incomplete, as assess) or nothing could be assessed, 2 usage, unreadable survey or a bad change.",
 		Example: "  sparkmargin whatif demo-out/demo-survey.xlsx --rh 55 --earth PWD-DRU1=1e6 -o whatif.xlsx\n" +
 			"  sparkmargin whatif survey.xlsx --station-rh ST-LAM=65 --material COAT-WEB=PE --json whatif.json -o whatif.xlsx",
 		Args: whatifArgs,
@@ -127,9 +130,9 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
-	if err := o.ws.WritePair(xlsx, o.json,
+	if err := writeLinked(o.ws, xlsx, o.json,
 		func(w io.Writer) error { return rerun.WriteWhatifWorkbook(w, x, info) },
-		func(w io.Writer) error { return rerun.WriteWhatifJSON(w, x) }); err != nil {
+		func(w io.Writer, ji rerun.JSONInfo) error { return rerun.WriteWhatifJSON(w, x, ji) }); err != nil {
 		return err
 	}
 	rerun.WriteWhatifSummary(out, x)
@@ -139,6 +142,40 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	}
 	if len(x.Before.Objects) == 0 {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
+	}
+	return rejectedShortfall(s)
+}
+
+// rejectedShortfall is assess's exit rule for a rerun, after its outputs are
+// written: an Objects row rejected fails the run (status 1), since the
+// stations marked incomplete are ranked without that object.
+func rejectedShortfall(s *inventory.Survey) error {
+	if n := report.RejectedObjects(s); n > 0 {
+		return withCode(exitProblems, fmt.Errorf("%d object row(s) were rejected: the outputs are written, but the stations marked incomplete are ranked without them; see the Rejected sheet", n))
+	}
+	return nil
+}
+
+// writeLinked writes a rerun's workbook and JSON as one pair, the JSON
+// recording the workbook's file name and SHA-256 as the assess JSON does.
+func writeLinked(ws *outfile.Workspace, xlsx, jsonPath string, book func(io.Writer) error, doc func(io.Writer, rerun.JSONInfo) error) error {
+	var pw, pj *outfile.Pending
+	var err error
+	ji := rerun.JSONInfo{ToolVersion: version}
+	if xlsx != "" {
+		if pw, err = ws.Prepare(xlsx, book); err != nil {
+			return fmt.Errorf("writing the workbook: %w", err)
+		}
+		ji.Workbook, ji.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
+	}
+	if jsonPath != "" {
+		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return doc(w, ji) }); err != nil {
+			ws.Discard(pw)
+			return fmt.Errorf("writing the JSON: %w", err)
+		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return fmt.Errorf("writing the outputs: %w", err)
 	}
 	return nil
 }

@@ -132,7 +132,8 @@ func (h *HTMLWriter) Add(rs []assess.ObjectResult) error {
 			p.prob = &pp
 		}
 		if p.prob != nil && p.prob.Borderline(r.Verdict) {
-			if hasMIE && p.prob.EnergyP95 > 0 {
+			// an energy resting on an assumed resistance has no spread to draw (PercentilesWithheldText)
+			if hasMIE && p.prob.EnergyP95 > 0 && !p.assumedR {
 				p.borderKey = p.prob.EnergyP95 / mie
 				h.spreadAll++
 				h.spread = keepWorst(h.spread, p, htmlMaxSpreadRows, func(a, b energyPoint) bool {

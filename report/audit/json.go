@@ -493,9 +493,11 @@ func objectJSON(o *assess.ObjectResult) jsonObject {
 		if d := p.Driver; d.Input != "" {
 			jo.Probability.Driver = &jsonDriver{d.Input, d.Correlation, o.MeasureText()}
 		}
-		jo.EnergyJP05 = book.Finite(p.EnergyP05)
-		jo.EnergyJP50 = book.Finite(p.EnergyP50)
-		jo.EnergyJP95 = book.Finite(p.EnergyP95)
+		if !o.RatioAssumed() { // withheld: they would be the spread of an assumption (PercentilesWithheldText)
+			jo.EnergyJP05 = book.Finite(p.EnergyP05)
+			jo.EnergyJP50 = book.Finite(p.EnergyP50)
+			jo.EnergyJP95 = book.Finite(p.EnergyP95)
+		}
 	}
 	return jo
 }

@@ -326,9 +326,11 @@ func appendObjectJSON(j *jsonOut, o *assess.ObjectResult) {
 			j.close('}')
 		}
 		j.close('}')
-		j.numOmit("energy_J_p05", p.EnergyP05)
-		j.numOmit("energy_J_p50", p.EnergyP50)
-		j.numOmit("energy_J_p95", p.EnergyP95)
+		if !o.RatioAssumed() { // withheld: they would be the spread of an assumption (PercentilesWithheldText)
+			j.numOmit("energy_J_p05", p.EnergyP05)
+			j.numOmit("energy_J_p50", p.EnergyP50)
+			j.numOmit("energy_J_p95", p.EnergyP95)
+		}
 	}
 	if note {
 		j.str("energy_note", EnergyAtLeastMIE)

@@ -432,6 +432,10 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 				if o.Probability == nil {
 					return book.Cell{NumFmt: u.NumFmt()}
 				}
+				if o.RatioAssumed() {
+					// the sampled energies rest on the assumed resistance: no figure to read
+					return book.Code(PercentilesWithheldText)
+				}
 				return book.Quantity(u, f(o.Probability))
 			}
 		}
@@ -450,6 +454,13 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 	}
 	return cols
 }
+
+// PercentilesWithheldText stands in the energy percentile cells of an object
+// whose energy rests on an assumed resistance to earth (assess.ObjectResult.
+// RatioAssumed): sampling the other inputs around an assumed "no leakage"
+// gives a spread of the assumption, not of the hazard, so no figure is shown
+// (the JSON leaves the percentiles out for it).
+const PercentilesWithheldText = "withheld: assumed R"
 
 // sampled reports whether the object's verdicts were sampled (it was
 // assessed and has a Probability).

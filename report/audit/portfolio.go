@@ -47,8 +47,12 @@ type PortfolioStation struct {
 	SiteRank       int // the station's rank within its survey
 	Verdict        assess.Verdict
 	WorstRatio     *float64
-	Objects        int
-	Counts         map[assess.Verdict]int
+	// WorstRatioAssumed: the worst ratio rests on an assumed resistance to
+	// earth (assess.StationResult.WorstRatioAssumed): at least 1, its size no
+	// figure, so the portfolio neither ranks nor draws by it.
+	WorstRatioAssumed bool
+	Objects           int
+	Counts            map[assess.Verdict]int
 }
 
 // PortfolioFailure is a survey that could not be assessed, and why.
@@ -80,7 +84,7 @@ func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 	}
 	for _, st := range a.Stations {
 		ps := PortfolioStation{ID: st.Station.ID, Name: st.Station.Name, Line: st.Station.Line, SiteRank: st.Rank,
-			Verdict: st.Verdict, Objects: len(st.Objects), Counts: map[assess.Verdict]int{}}
+			Verdict: st.Verdict, WorstRatioAssumed: st.WorstRatioAssumed, Objects: len(st.Objects), Counts: map[assess.Verdict]int{}}
 		if r := book.FinitePtr(st.WorstRatio); r != nil {
 			v := *r
 			ps.WorstRatio = &v
@@ -221,15 +225,19 @@ type RankedSite struct {
 	Label  string
 	*PortfolioSurvey
 	Verdict    assess.Verdict // the worst station's
-	WorstRatio *float64
-	Earlier    []EarlierSurvey // the site's earlier surveys, newest first
+	WorstRatio *float64       // the worst ratio not resting on an assumed resistance
+	// WorstRatioAssumed: a station's worst ratio rests on an assumed
+	// resistance to earth: the site's worst is at least 1, its size unknown.
+	WorstRatioAssumed bool
+	Earlier           []EarlierSurvey // the site's earlier surveys, newest first
 }
 
 // EarlierSurvey is an earlier survey of a ranked site, for its trend.
 type EarlierSurvey struct {
 	*PortfolioSurvey
-	Verdict    assess.Verdict
-	WorstRatio *float64
+	Verdict           assess.Verdict
+	WorstRatio        *float64
+	WorstRatioAssumed bool
 }
 
 // RankText is the rank as shown: "=2" when shared.
@@ -251,10 +259,18 @@ type RankedStation struct {
 	*PortfolioStation
 }
 
-// ratioFirst orders worst ratio (descending, none last), then incendive and
-// marginal counts (more first); 0 when those tie.
-func ratioFirst(ra, rb *float64, ca, cb map[assess.Verdict]int) int {
+// ratioFirst orders a worst ratio resting on an assumed resistance first (at
+// least 1, its size unknown: the stricter case, never ranked by the
+// artefact's size), then worst ratio (descending, none last), then incendive
+// and marginal counts (more first); 0 when those tie.
+func ratioFirst(ra, rb *float64, aa, ab bool, ca, cb map[assess.Verdict]int) int {
 	switch {
+	case aa && !ab:
+		return -1
+	case !aa && ab:
+		return 1
+	case aa && ab:
+		// both assumed: neither size is a figure; counts decide
 	case ra != nil && rb == nil:
 		return -1
 	case ra == nil && rb != nil:
@@ -269,27 +285,38 @@ func ratioFirst(ra, rb *float64, ca, cb map[assess.Verdict]int) int {
 }
 
 // tied reports whether two ranked entries share a rank: the same verdict and
-// the same worst ratio (or none on both).
-func tied(va, vb assess.Verdict, ra, rb *float64) bool {
-	if va != vb || (ra == nil) != (rb == nil) {
+// the same worst ratio (or none on both), or both resting on an assumed resistance.
+func tied(va, vb assess.Verdict, ra, rb *float64, aa, ab bool) bool {
+	if va != vb || aa != ab {
+		return false
+	}
+	if aa {
+		return true
+	}
+	if (ra == nil) != (rb == nil) {
 		return false
 	}
 	return ra == nil || *ra == *rb
 }
 
-// worstOf is a survey's verdict (its worst station's) and worst ratio.
-func worstOf(s *PortfolioSurvey) (assess.Verdict, *float64) {
-	v, r := assess.NotAssessed, (*float64)(nil)
+// worstOf is a survey's verdict (its worst station's), its worst ratio not
+// resting on an assumed resistance, and whether a station's worst does.
+func worstOf(s *PortfolioSurvey) (assess.Verdict, *float64, bool) {
+	v, r, assumed := assess.NotAssessed, (*float64)(nil), false
 	for j := range s.Stations {
 		st := &s.Stations[j]
 		if st.Objects > 0 && (v == assess.NotAssessed || st.Verdict.Severity() > v.Severity()) {
 			v = st.Verdict
 		}
+		if st.WorstRatioAssumed {
+			assumed = true
+			continue
+		}
 		if st.WorstRatio != nil && (r == nil || *st.WorstRatio > *r) {
 			r = st.WorstRatio
 		}
 	}
-	return v, r
+	return v, r, assumed
 }
 
 // uniqueLabels makes each label unique: the site and its date, then the file
@@ -331,10 +358,10 @@ func (p *Portfolio) Sites() []RankedSite {
 	out := make([]RankedSite, len(groups))
 	for i, g := range groups {
 		rs := RankedSite{PortfolioSurvey: g.Latest}
-		rs.Verdict, rs.WorstRatio = worstOf(g.Latest)
+		rs.Verdict, rs.WorstRatio, rs.WorstRatioAssumed = worstOf(g.Latest)
 		for _, e := range g.Earlier {
-			v, r := worstOf(e)
-			rs.Earlier = append(rs.Earlier, EarlierSurvey{e, v, r})
+			v, r, a := worstOf(e)
+			rs.Earlier = append(rs.Earlier, EarlierSurvey{e, v, r, a})
 		}
 		out[i] = rs
 	}
@@ -346,14 +373,14 @@ func (p *Portfolio) Sites() []RankedSite {
 		out[i].Label = l
 	}
 	slices.SortStableFunc(out, func(a, b RankedSite) int {
-		if c := ratioFirst(a.WorstRatio, b.WorstRatio, a.Counts, b.Counts); c != 0 {
+		if c := ratioFirst(a.WorstRatio, b.WorstRatio, a.WorstRatioAssumed, b.WorstRatioAssumed, a.Counts, b.Counts); c != 0 {
 			return c
 		}
 		return cmp.Compare(a.Label, b.Label)
 	})
 	for i := range out {
 		out[i].Rank = i + 1
-		if i > 0 && tied(out[i-1].Verdict, out[i].Verdict, out[i-1].WorstRatio, out[i].WorstRatio) {
+		if i > 0 && tied(out[i-1].Verdict, out[i].Verdict, out[i-1].WorstRatio, out[i].WorstRatio, out[i-1].WorstRatioAssumed, out[i].WorstRatioAssumed) {
 			out[i].Rank, out[i].Shared, out[i-1].Shared = out[i-1].Rank, true, true
 		}
 	}
@@ -371,7 +398,7 @@ func (p *Portfolio) Stations() []RankedStation {
 		}
 	}
 	slices.SortStableFunc(out, func(a, b RankedStation) int {
-		if c := ratioFirst(a.WorstRatio, b.WorstRatio, a.Counts, b.Counts); c != 0 {
+		if c := ratioFirst(a.WorstRatio, b.WorstRatio, a.WorstRatioAssumed, b.WorstRatioAssumed, a.Counts, b.Counts); c != 0 {
 			return c
 		}
 		if c := cmp.Compare(a.ID, b.ID); c != 0 {
@@ -381,7 +408,7 @@ func (p *Portfolio) Stations() []RankedStation {
 	})
 	for i := range out {
 		out[i].Rank = i + 1
-		if i > 0 && tied(out[i-1].Verdict, out[i].Verdict, out[i-1].WorstRatio, out[i].WorstRatio) {
+		if i > 0 && tied(out[i-1].Verdict, out[i].Verdict, out[i-1].WorstRatio, out[i].WorstRatio, out[i-1].WorstRatioAssumed, out[i].WorstRatioAssumed) {
 			out[i].Rank, out[i].Shared, out[i-1].Shared = out[i-1].Rank, true, true
 		}
 	}
@@ -392,7 +419,7 @@ func (p *Portfolio) Stations() []RankedStation {
 func (s RankedSite) TrendText() string {
 	var parts []string
 	for _, e := range s.Earlier {
-		parts = append(parts, fmt.Sprintf("%s: %s, worst %s (%d incendive, %d marginal)", e.dateText(), e.Verdict, FormatRatio(e.WorstRatio),
+		parts = append(parts, fmt.Sprintf("%s: %s, worst %s (%d incendive, %d marginal)", e.dateText(), e.Verdict, assumedRatioText(e.WorstRatio, e.WorstRatioAssumed),
 			e.Counts[assess.Incendive], e.Counts[assess.Marginal]))
 	}
 	return strings.Join(parts, "; ")
@@ -410,11 +437,41 @@ func (p *Portfolio) totals() map[assess.Verdict]int {
 	return t
 }
 
-// Columns of the portfolio's Sites sheet the Summary chart points at.
-const (
-	sitesLabelCol = "B"
-	sitesRatioCol = "F"
-)
+// assumedRatioText is a worst ratio as text, assess.RatioAssumedText when it
+// rests on an assumed resistance to earth.
+func assumedRatioText(r *float64, assumed bool) string {
+	if assumed {
+		return assess.RatioAssumedText
+	}
+	return FormatRatio(r)
+}
+
+// assumedRatioCell is a worst ratio cell: the assumed-resistance text instead
+// of a number whose size is an artefact.
+func assumedRatioCell(r *float64, assumed bool) book.Cell {
+	if assumed {
+		return book.Code(assess.RatioAssumedText)
+	}
+	return ratioText(r)
+}
+
+// siteChartLabel is a site's category on the portfolio chart: its label and
+// verdict, with the ratio's text where the bar is no figure.
+func siteChartLabel(s RankedSite) string {
+	st := assess.StationResult{Verdict: s.Verdict, WorstRatio: s.WorstRatio, WorstRatioAssumed: s.WorstRatioAssumed}
+	l := s.Label + " " + s.Verdict.String()
+	if t := stationRatioText(&st); t != "" {
+		l += " (" + t + ")"
+	}
+	return l
+}
+
+// siteChartValue is the bar drawn for a site, as the audit's Summary chart
+// draws a station (chartValue): 1 for an assumed resistance.
+func siteChartValue(s RankedSite) *float64 {
+	st := assess.StationResult{Verdict: s.Verdict, WorstRatio: s.WorstRatio, WorstRatioAssumed: s.WorstRatioAssumed}
+	return chartValue(&st)
+}
 
 // PortfolioTitlePrefix begins the document title of every portfolio
 // workbook; a folder run knows its previous portfolio by it.
@@ -446,7 +503,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		{Header: "Survey file", Width: 22, Value: func(s RankedSite) book.Cell { return book.WrapText(s.File) }},
 		{Header: "Survey date", Width: 11, Value: func(s RankedSite) book.Cell { return book.Text(s.dateText()) }},
 		{Header: "Verdict", Width: 14, Value: func(s RankedSite) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell { return ratioText(s.WorstRatio) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell { return assumedRatioCell(s.WorstRatio, s.WorstRatioAssumed) }},
 		{Header: "Stations [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(len(s.Stations)) }},
 		{Header: "Objects [count]", Width: 9, Value: func(s RankedSite) book.Cell { return book.Integer(total(s.Counts)) }},
 		{Header: "Incendive [count]", Width: 10, Value: func(s RankedSite) book.Cell { return count(s.Counts, assess.Incendive) }},
@@ -466,8 +523,12 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 			return prev(s, func(e EarlierSurvey) book.Cell { return verdictCell(e.Verdict) })
 		}},
 		{Header: book.UnitRatio.Header("Previous worst ratio E/MIE"), Width: 11, Value: func(s RankedSite) book.Cell {
-			return prev(s, func(e EarlierSurvey) book.Cell { return ratioCell(e.WorstRatio) })
+			return prev(s, func(e EarlierSurvey) book.Cell { return assumedRatioCell(e.WorstRatio, e.WorstRatioAssumed) })
 		}},
+		// What the Summary chart draws: a site resting on an assumed resistance
+		// as a bar at 1 (at least the MIE), labelled so, never its artefact size.
+		{Header: chartLabelHeader, Width: 30, Value: func(s RankedSite) book.Cell { return book.Text(siteChartLabel(s)) }},
+		{Header: chartValueHeader, Width: 10, Value: func(s RankedSite) book.Cell { return ratioCell(siteChartValue(s)) }},
 		{Header: "Trend (earlier surveys, newest first)", Width: 60, Value: func(s RankedSite) book.Cell { return book.WrapText(s.TrendText()) }},
 	}
 	trend := trendRows(sites)
@@ -478,7 +539,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		{Header: "Survey file", Width: 22, Value: func(t trendRow) book.Cell { return book.WrapText(t.s.File) }},
 		{Header: "Role", Width: 22, Value: func(t trendRow) book.Cell { return book.WrapText(t.role) }},
 		{Header: "Verdict", Width: 14, Value: func(t trendRow) book.Cell { return verdictCell(t.v) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(t trendRow) book.Cell { return ratioCell(t.r) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(t trendRow) book.Cell { return assumedRatioCell(t.r, t.assumed) }},
 		{Header: "Incendive [count]", Width: 10, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.Incendive) }},
 		{Header: "Marginal [count]", Width: 10, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.Marginal) }},
 		{Header: "Non-incendive [count]", Width: 11, Value: func(t trendRow) book.Cell { return count(t.s.Counts, assess.NonIncendive) }},
@@ -495,11 +556,14 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		{Header: "Line", Width: 14, Value: func(s RankedStation) book.Cell { return book.WrapText(s.Line) }},
 		{Header: "Rank in site", Width: 8, Value: func(s RankedStation) book.Cell { return book.Integer(s.SiteRank) }},
 		{Header: "Verdict", Width: 14, Value: func(s RankedStation) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedStation) book.Cell { return ratioText(s.WorstRatio) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s RankedStation) book.Cell {
+			return assumedRatioCell(s.WorstRatio, s.WorstRatioAssumed)
+		}},
 		{Header: "Objects [count]", Width: 9, Value: func(s RankedStation) book.Cell { return book.Integer(s.Objects) }},
 		{Header: "Incendive [count]", Width: 10, Value: func(s RankedStation) book.Cell { return count(s.Counts, assess.Incendive) }},
 		{Header: "Marginal [count]", Width: 10, Value: func(s RankedStation) book.Cell { return count(s.Counts, assess.Marginal) }},
 	}
+	wb.chartLabelCol, wb.chartValueCol = columnLetter(siteCols, chartLabelHeader), columnLetter(siteCols, chartValueHeader)
 	if err := tableSheetNormal(wb, PortfolioSites, siteCols, sites); err != nil {
 		return fmt.Errorf("write portfolio: sheet %s: %w", PortfolioSites, err)
 	}
@@ -557,19 +621,20 @@ type trendRow struct {
 	s           *PortfolioSurvey
 	v           assess.Verdict
 	r           *float64
+	assumed     bool
 }
 
 // trendRows lists every survey by site, in rank order, the latest first.
 func trendRows(sites []RankedSite) []trendRow {
 	var out []trendRow
 	for _, s := range sites {
-		out = append(out, trendRow{s.Label, "latest: ranked", s.Rank, s.Shared, s.PortfolioSurvey, s.Verdict, s.WorstRatio})
+		out = append(out, trendRow{s.Label, "latest: ranked", s.Rank, s.Shared, s.PortfolioSurvey, s.Verdict, s.WorstRatio, s.WorstRatioAssumed})
 		for _, e := range s.Earlier {
 			role := "earlier: not ranked"
 			if e.SurveyDate.IsZero() {
 				role = "draft (no date): not ranked"
 			}
-			out = append(out, trendRow{s.Label, role, s.Rank, s.Shared, e.PortfolioSurvey, e.Verdict, e.WorstRatio})
+			out = append(out, trendRow{s.Label, role, s.Rank, s.Shared, e.PortfolioSurvey, e.Verdict, e.WorstRatio, e.WorstRatioAssumed})
 		}
 	}
 	return out
@@ -689,7 +754,7 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 		n := len(sites) + 1
 		var st []assess.StationResult
 		for _, x := range sites {
-			st = append(st, assess.StationResult{WorstRatio: x.WorstRatio})
+			st = append(st, assess.StationResult{WorstRatio: x.WorstRatio, WorstRatioAssumed: x.WorstRatioAssumed})
 		}
 		lo, hi := ratioAxis(st)
 		sheet := "'" + PortfolioSites + "'"
@@ -697,9 +762,9 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 		if err := f.AddChart(s, fmt.Sprintf("A%d", r), &excelize.Chart{
 			Type: excelize.Bar,
 			Series: []excelize.ChartSeries{{
-				Name:       sheet + "!$" + sitesRatioCol + "$1",
-				Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, sitesLabelCol, sitesLabelCol, n),
-				Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, sitesRatioCol, sitesRatioCol, n),
+				Name:       sheet + "!$" + wb.chartValueCol + "$1",
+				Categories: fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, wb.chartLabelCol, wb.chartLabelCol, n),
+				Values:     fmt.Sprintf("%s!$%s$2:$%s$%d", sheet, wb.chartValueCol, wb.chartValueCol, n),
 				Fill:       excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{"4D4D4D"}},
 			}},
 			Format:    excelize.GraphicOptions{OffsetX: 4, OffsetY: 4},
@@ -721,6 +786,11 @@ func portfolioSummary(wb *workbook, p Portfolio, sites []RankedSite, info RunInf
 // WritePortfolioJSON writes the portfolio as JSON: the surveys assessed and
 // not, the sites ranked and every station ranked across the portfolio, SI
 // values, null where there is no ratio, and the cautions. Key order is fixed.
+// "worst_ratio_assumed_resistance" (sites, earlier surveys, stations) marks a
+// worst ratio resting on an assumed resistance to earth, as in the assess
+// JSON: such an entry ranks ahead of every figure (the stricter case; its
+// size is no figure); a site's "worst_ratio" is then its worst ratio that does
+// not rest on an assumption (null when none).
 func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 	type jearlier struct {
 		File       string            `json:"file"`
@@ -729,6 +799,7 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 		Audit      string            `json:"audit"`
 		Verdict    string            `json:"verdict"`
 		WorstRatio *float64          `json:"worst_ratio"`
+		Assumed    bool              `json:"worst_ratio_assumed_resistance"`
 		Objects    jsonVerdictCounts `json:"objects"`
 		Findings   int               `json:"findings"`
 	}
@@ -744,7 +815,8 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 		SurveyDate string            `json:"survey_date"`
 		Audit      string            `json:"audit"`
 		Verdict    string            `json:"verdict"`
-		WorstRatio *float64          `json:"worst_ratio"`
+		WorstRatio *float64          `json:"worst_ratio"` // the worst not resting on an assumed resistance
+		Assumed    bool              `json:"worst_ratio_assumed_resistance"`
 		Stations   int               `json:"stations"`
 		Objects    jsonVerdictCounts `json:"objects"`
 		Findings   int               `json:"findings"`
@@ -763,6 +835,7 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 		SiteRank   int               `json:"rank_in_site"`
 		Verdict    string            `json:"verdict"`
 		WorstRatio *float64          `json:"worst_ratio"`
+		Assumed    bool              `json:"worst_ratio_assumed_resistance"`
 		Objects    jsonVerdictCounts `json:"objects"`
 	}
 	type jfail struct {
@@ -784,20 +857,20 @@ func WritePortfolioJSON(w io.Writer, p Portfolio, info RunInfo) error {
 			lines = []string{}
 		}
 		js := jsite{s.Rank, s.Shared, s.Label, s.Site, s.SiteID, lines, s.File, s.SHA256, dateOf(s.SurveyDate), s.Audit, s.Verdict.String(),
-			s.WorstRatio, len(s.Stations), verdictCounts(s.Counts), s.Findings, s.Rejected, []jearlier{}}
+			s.WorstRatio, s.WorstRatioAssumed, len(s.Stations), verdictCounts(s.Counts), s.Findings, s.Rejected, []jearlier{}}
 		for _, e := range s.Earlier {
 			var d *string
 			if !e.SurveyDate.IsZero() {
 				t := dateOf(e.SurveyDate)
 				d = &t
 			}
-			js.Earlier = append(js.Earlier, jearlier{e.File, e.SHA256, d, e.Audit, e.Verdict.String(), e.WorstRatio, verdictCounts(e.Counts), e.Findings})
+			js.Earlier = append(js.Earlier, jearlier{e.File, e.SHA256, d, e.Audit, e.Verdict.String(), e.WorstRatio, e.WorstRatioAssumed, verdictCounts(e.Counts), e.Findings})
 		}
 		doc.Sites = append(doc.Sites, js)
 	}
 	for _, s := range p.Stations() {
 		doc.Stations = append(doc.Stations, jstation{s.Rank, s.Shared, s.Label, s.Site.Site, s.Site.File, s.ID, s.Name, s.Line, s.SiteRank,
-			s.Verdict.String(), s.WorstRatio, verdictCounts(s.Counts)})
+			s.Verdict.String(), s.WorstRatio, s.WorstRatioAssumed, verdictCounts(s.Counts)})
 	}
 	for _, fl := range p.Failed {
 		doc.Failed = append(doc.Failed, jfail{fl.File, fl.Reason})

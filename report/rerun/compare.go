@@ -32,8 +32,13 @@ import (
 
 // Identity is what is known of the survey behind one side.
 type Identity struct {
-	Path       string    // the file as given
-	SHA256     string    // of the file's bytes
+	Path string // the file as given
+	// SHA256 is the survey's checksum: of the file's bytes for a survey side,
+	// the survey's recorded inside an audit JSON for a JSON side (so an audit
+	// JSON and the survey it was made from have the same identity); the JSON
+	// file's own checksum is FileSHA256.
+	SHA256     string
+	FileSHA256 string    // of the audit JSON file's bytes; "" for a survey side
 	Site       string    // the Site item, "" when not named
 	SiteID     string    // the optional Site ID item
 	SurveyDate time.Time // zero: not given
@@ -144,6 +149,16 @@ type Side struct {
 	StationFields []StationFields
 	Objects       []SideObject
 	Stations      []SideStation // ranked, worst first
+	// Rejected are the Objects rows the side's reader rejected: not assessed,
+	// so neither "added" nor "removed" (see that side's audit, Rejected sheet).
+	Rejected []RejectedObject
+}
+
+// RejectedObject is one Objects row rejected on a side.
+type RejectedObject struct {
+	ID, Station string // as far as the row could be read ("" when not)
+	Row         int    // the row of the Objects sheet; 0 when not known
+	Why         string // the first problem of the row
 }
 
 // StationFields is one station's settings.
@@ -157,7 +172,10 @@ type SideObject struct {
 	ID, Station string
 	Verdict     string
 	Ratio       *float64
-	Fields      []Field // in column order
+	// RatioAssumed: the ratio is at least 1 only because of an assumed
+	// resistance to earth (assess.ObjectResult.RatioAssumed): its size is no figure.
+	RatioAssumed bool
+	Fields       []Field // in column order
 }
 
 // SideStation is one station's rank and verdict.
@@ -166,6 +184,10 @@ type SideStation struct {
 	Rank       int
 	Verdict    string
 	WorstRatio *float64
+	// WorstRatioAssumed: the worst ratio rests on an assumed resistance to
+	// earth (assess.StationResult.WorstRatioAssumed): at least 1, its size no figure.
+	WorstRatioAssumed bool
+	RejectedRows      int // Objects rows naming the station that were rejected
 }
 
 // Changed is one object found in both with different fields.
@@ -175,6 +197,8 @@ type Changed struct {
 	Before, After               []Value  // their values, aligned with Fields
 	VerdictBefore, VerdictAfter string
 	RatioBefore, RatioAfter     *float64
+	// RatioAssumedBefore/After: that side's ratio rests on an assumed resistance.
+	RatioAssumedBefore, RatioAssumedAfter bool
 }
 
 // FieldChange is one Site item or station setting that differs.
@@ -191,21 +215,73 @@ type RankMove struct {
 	RankBefore, RankAfter             int // 0: not on that side
 	VerdictBefore, VerdictAfter       string
 	WorstRatioBefore, WorstRatioAfter *float64
+	// WorstRatioAssumedBefore/After: that side's worst ratio rests on an
+	// assumed resistance to earth (at least 1, its size no figure).
+	WorstRatioAssumedBefore, WorstRatioAssumedAfter bool
+	// Added, Removed and Rejected are the objects of the station added,
+	// removed, or rejected on either side: the station's set of objects is
+	// not the same, so a move is not called better or worse.
+	Added, Removed, Rejected []string
+	// OnlyOthers: the station's own objects, verdict and worst ratio are the
+	// same on both sides, and its rank moved only because objects were added,
+	// removed or rejected at other stations: not better, not worse.
+	OnlyOthers bool
 }
 
-// Move says what happened to the station, "up 2 (worse)", "verdict changed, same rank".
+// ObjectsDiffer reports whether the station's objects are not the same on
+// both sides (added, removed or rejected on a side).
+func (m RankMove) ObjectsDiffer() bool { return len(m.Added)+len(m.Removed)+len(m.Rejected) > 0 }
+
+// Move says what happened to the station: "up 2 (worse)", "same rank, verdict
+// changed", or, when its objects differ between the sides, the move and why
+// ("down 1: object COT-PAN removed"), never "better" or "worse": a station
+// that lost an object is not improved by it.
 func (m RankMove) Move() string {
+	var s string
 	switch {
 	case m.RankBefore == 0:
 		return "new station"
 	case m.RankAfter == 0:
 		return "station removed"
 	case m.RankAfter < m.RankBefore:
-		return fmt.Sprintf("up %d (worse)", m.RankBefore-m.RankAfter)
+		s = fmt.Sprintf("up %d", m.RankBefore-m.RankAfter)
+		if !m.ObjectsDiffer() && !m.OnlyOthers {
+			s += " (worse)"
+		}
 	case m.RankAfter > m.RankBefore:
-		return fmt.Sprintf("down %d (better)", m.RankAfter-m.RankBefore)
+		s = fmt.Sprintf("down %d", m.RankAfter-m.RankBefore)
+		if !m.ObjectsDiffer() && !m.OnlyOthers {
+			s += " (better)"
+		}
+	default:
+		s = "same rank, verdict changed"
 	}
-	return "same rank, verdict changed"
+	switch {
+	case m.ObjectsDiffer():
+		s += ": " + m.objectsText()
+	case m.OnlyOthers:
+		s += ": its own result unchanged, objects added, removed or rejected at other stations"
+	}
+	return s
+}
+
+// objectsText says which objects of the station differ: "object COT-PAN
+// removed; objects A, B added; object X rejected on one side".
+func (m RankMove) objectsText() string {
+	var parts []string
+	for _, g := range []struct {
+		ids  []string
+		what string
+	}{{m.Removed, "removed"}, {m.Added, "added"}, {m.Rejected, "rejected on one side (not compared)"}} {
+		switch len(g.ids) {
+		case 0:
+		case 1:
+			parts = append(parts, "object "+g.ids[0]+" "+g.what)
+		default:
+			parts = append(parts, "objects "+strings.Join(g.ids, ", ")+" "+g.what)
+		}
+	}
+	return strings.Join(parts, "; ")
 }
 
 // CautionKind names a reason the two sides may not compare as a repeat survey.
@@ -220,6 +296,9 @@ const (
 	CautionOneSiteID      CautionKind = "Site ID on one side"
 	CautionSameFile       CautionKind = "same file"
 	CautionResultsOnly    CautionKind = "results only"
+	// CautionRejected: Objects rows were rejected on a side; those objects
+	// are not assessed there, so they are listed apart, never as added or removed.
+	CautionRejected CautionKind = "rows rejected"
 )
 
 // Caution is one warning about the comparison, with its kind for programs.
@@ -235,8 +314,40 @@ type Comparison struct {
 	SiteChanges    []FieldChange // Site items, in the order of the new side then removed ones
 	StationChanges []FieldChange // station settings of stations on both sides
 	Added, Removed []string      // object IDs, in the order of their side
-	Changed        []Changed
-	Stations       []RankMove // new side's ranking order, then removed stations
+	// RejectedOld and RejectedNew are the Objects rows rejected on each side:
+	// not assessed there, so neither added nor removed.
+	RejectedOld, RejectedNew []RejectedObject
+	Changed                  []Changed
+	Stations                 []RankMove // new side's ranking order, then removed stations
+}
+
+// Rejected is the number of Objects rows rejected on either side.
+func (c *Comparison) Rejected() int { return len(c.RejectedOld) + len(c.RejectedNew) }
+
+// StationsAdded and StationsRemoved count the stations on one side only;
+// StationsMoved the stations on both whose rank or verdict moved.
+func (c *Comparison) StationsAdded() int {
+	return countMoves(c.Stations, func(m RankMove) bool { return m.RankBefore == 0 })
+}
+
+// StationsRemoved counts the stations only on the old side.
+func (c *Comparison) StationsRemoved() int {
+	return countMoves(c.Stations, func(m RankMove) bool { return m.RankAfter == 0 })
+}
+
+// StationsMoved counts the stations on both sides whose rank or verdict moved.
+func (c *Comparison) StationsMoved() int {
+	return countMoves(c.Stations, func(m RankMove) bool { return m.RankBefore != 0 && m.RankAfter != 0 })
+}
+
+func countMoves(ms []RankMove, f func(RankMove) bool) int {
+	n := 0
+	for _, m := range ms {
+		if f(m) {
+			n++
+		}
+	}
+	return n
 }
 
 // SideFromAudit takes an audit of a survey: the Site items, each station's
@@ -251,13 +362,30 @@ func SideFromAudit(label string, a *assess.Audit) *Side {
 	}
 	for i := range a.Objects {
 		r := &a.Objects[i]
-		o := SideObject{ID: r.Object.ID, Station: r.Object.Station, Verdict: r.Verdict.String(), Ratio: r.Ratio}
+		o := SideObject{ID: r.Object.ID, Station: r.Object.Station, Verdict: r.Verdict.String(), Ratio: r.Ratio, RatioAssumed: r.RatioAssumed()}
 		o.Fields = objectFields(&r.Object)
-		o.Fields = append(o.Fields, Field{"Verdict", textValue(o.Verdict)}, Field{"Ratio E/MIE", ratioValue(r.Ratio)})
+		rv := ratioValue(r.Ratio)
+		if o.RatioAssumed {
+			rv = textValue(assess.RatioAssumedText)
+		}
+		o.Fields = append(o.Fields, Field{"Verdict", textValue(o.Verdict)}, Field{"Ratio E/MIE", rv})
 		s.Objects = append(s.Objects, o)
 	}
 	for _, st := range a.Stations {
-		s.Stations = append(s.Stations, SideStation{ID: st.Station.ID, Name: st.Station.Name, Rank: st.Rank, Verdict: st.Verdict.String(), WorstRatio: st.WorstRatio})
+		s.Stations = append(s.Stations, SideStation{ID: st.Station.ID, Name: st.Station.Name, Rank: st.Rank, Verdict: st.Verdict.String(), WorstRatio: st.WorstRatio,
+			WorstRatioAssumed: st.WorstRatioAssumed, RejectedRows: st.RejectedRows})
+	}
+	if a.Survey != nil {
+		for _, r := range a.Survey.Rejected {
+			if r.Sheet != inventory.SheetObjects {
+				continue
+			}
+			x := RejectedObject{ID: r.ID, Station: r.Station, Row: r.Row}
+			if len(r.Problems) > 0 {
+				x.Why = r.Problems[0].Message
+			}
+			s.Rejected = append(s.Rejected, x)
+		}
 	}
 	return s
 }
@@ -369,8 +497,16 @@ type auditJSON struct {
 		Rank       int      `json:"rank"`
 		Verdict    string   `json:"verdict"`
 		WorstRatio *float64 `json:"worst_ratio"`
+		Assumed    bool     `json:"worst_ratio_assumed_resistance"`
+		Rejected   int      `json:"rejected_rows"`
 	} `json:"stations"`
-	Objects []map[string]json.RawMessage `json:"objects"`
+	Objects  []map[string]json.RawMessage `json:"objects"`
+	Rejected []struct {
+		Sheet   string `json:"sheet"`
+		Row     int    `json:"row"`
+		ID      string `json:"id"`
+		Message string `json:"message"`
+	} `json:"rejected"`
 }
 
 // jsonField is an object key of an audit JSON compared, its name and display unit.
@@ -410,7 +546,9 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 		return nil, fmt.Errorf("%s: not an audit JSON: no \"objects\" nor \"stations\"", label)
 	}
 	sum := sha256.Sum256(data)
-	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SurveySHA256: d.Survey.SHA256, Results: true}}
+	// The survey's identity is the checksum recorded in the JSON; the JSON
+	// file's own checksum is kept apart.
+	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: d.Survey.SHA256, FileSHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SurveySHA256: d.Survey.SHA256, Results: true}}
 	if t, err := time.Parse("2006-01-02", d.Site.SurveyDate); err == nil {
 		s.Identity.SurveyDate = t
 	}
@@ -441,6 +579,11 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 					val = numValue(k.Unit, f)
 					if k.Key == "ratio" {
 						o.Ratio = &f
+						var assumed bool
+						if raw, ok := m["ratio_assumed_resistance"]; ok && json.Unmarshal(raw, &assumed) == nil && assumed {
+							o.RatioAssumed = true
+							val = textValue(assess.RatioAssumedText)
+						}
 					}
 				default:
 					val = textValue(string(raw))
@@ -457,10 +600,18 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 		s.Objects = append(s.Objects, o)
 	}
 	for _, st := range d.Stations {
-		s.Stations = append(s.Stations, SideStation{ID: st.ID, Name: st.Name, Rank: st.Rank, Verdict: st.Verdict, WorstRatio: st.WorstRatio})
+		s.Stations = append(s.Stations, SideStation{ID: st.ID, Name: st.Name, Rank: st.Rank, Verdict: st.Verdict, WorstRatio: st.WorstRatio,
+			WorstRatioAssumed: st.Assumed, RejectedRows: st.Rejected})
 		s.StationFields = append(s.StationFields, StationFields{ID: st.ID, Fields: []Field{
 			{"Name", textValue(st.Name)}, {"Line", textValue(st.Line)}, {"Atmosphere", textValue(strOf(st.Atmosphere))},
 			{"Zone", textValue(strOf(st.Zone))}, {"MIE", num(book.UnitMJ, st.MIEJ)}, {"Gas or dust group", textValue(strOf(st.Group))}}})
+	}
+	rows := map[int]bool{} // the JSON lists each problem: one entry per row
+	for _, r := range d.Rejected {
+		if r.Sheet == inventory.SheetObjects && !rows[r.Row] {
+			rows[r.Row] = true
+			s.Rejected = append(s.Rejected, RejectedObject{ID: r.ID, Row: r.Row, Why: r.Message})
+		}
 	}
 	return s, nil
 }
@@ -488,17 +639,28 @@ func cautions(old, new Identity) []Caution {
 		add(CautionNoDate, "A survey date is missing (old: %s, new: %s): the order of the two surveys cannot be checked.", old.DateText(), new.DateText())
 	case old.SurveyDate.After(new.SurveyDate):
 		add(CautionReversedDates, "The old survey (%s) is dated after the new one (%s): the order looks reversed, so 'added', 'removed', 'before' and 'after' read backwards. Swap OLD and NEW unless this is meant.", old.DateText(), new.DateText())
+	case old.SurveyDate.Equal(new.SurveyDate) && sameSurvey(old, new):
+		// said below: the same survey
 	case old.SurveyDate.Equal(new.SurveyDate):
 		add(CautionSameDate, "Both surveys carry the same date (%s): two versions of one survey, not a repeat survey.", old.DateText())
 	}
-	if old.SHA256 != "" && old.SHA256 == new.SHA256 {
-		add(CautionSameFile, "The two files are identical (same SHA-256 checksum): nothing can have changed.")
+	switch {
+	case sameSurvey(old, new) && (old.FileSHA256 == "") != (new.FileSHA256 == ""):
+		add(CautionSameFile, "Both sides are the same survey (same SHA-256 checksum %s; one side is the audit JSON made from it): nothing in the survey can have changed.", shortSum(old.SHA256))
+	case sameSurvey(old, new) && old.FileSHA256 != "" && old.FileSHA256 != new.FileSHA256:
+		add(CautionSameFile, "Both audit JSON files were made from the same survey (same SHA-256 checksum %s): nothing in the survey can have changed; any difference is of the tool or its options.", shortSum(old.SHA256))
+	case sameSurvey(old, new):
+		add(CautionSameFile, "The two files are identical (same SHA-256 checksum): the same survey, nothing can have changed.")
 	}
 	if old.Results || new.Results {
 		add(CautionResultsOnly, "At least one side is an audit JSON, which holds results and no readings: both sides are compared on the audit's results (potential, energy, verdict), and Site items, limit overrides and readings are not compared.")
 	}
 	return out
 }
+
+// sameSurvey reports whether both sides are of the same survey file (their
+// survey checksums agree).
+func sameSurvey(old, new Identity) bool { return old.SHA256 != "" && old.SHA256 == new.SHA256 }
 
 // fieldChanges lists the fields of after whose value differs in before, then
 // the fields only in before (a limit override removed).
@@ -547,20 +709,39 @@ func Compare(old, new *Side) *Comparison {
 			c.StationChanges = append(c.StationChanges, fieldChanges(s.ID, b, s.Fields)...)
 		}
 	}
+	c.RejectedOld, c.RejectedNew = old.Rejected, new.Rejected
+	rejOld, rejNew := rejectedIDs(old.Rejected), rejectedIDs(new.Rejected)
+	// stationOf finds an object's station on either side (rejected rows give theirs when readable).
+	stationOf := map[string]string{}
+	for _, r := range append(append([]RejectedObject(nil), old.Rejected...), new.Rejected...) {
+		if r.ID != "" && r.Station != "" {
+			stationOf[r.ID] = r.Station
+		}
+	}
 	oldByID := map[string]*SideObject{}
 	for i := range old.Objects {
 		oldByID[old.Objects[i].ID] = &old.Objects[i]
+		stationOf[old.Objects[i].ID] = old.Objects[i].Station
 	}
+	added, removed, rejected := map[string][]string{}, map[string][]string{}, map[string][]string{}
 	newIDs := map[string]bool{}
 	for i := range new.Objects {
 		n := &new.Objects[i]
 		newIDs[n.ID] = true
+		stationOf[n.ID] = n.Station
 		o, ok := oldByID[n.ID]
 		if !ok {
+			if rejOld[n.ID] {
+				// rejected in OLD: not assessed there, so not "added"
+				rejected[n.Station] = append(rejected[n.Station], n.ID)
+				continue
+			}
 			c.Added = append(c.Added, n.ID)
+			added[n.Station] = append(added[n.Station], n.ID)
 			continue
 		}
-		ch := Changed{ID: n.ID, Station: n.Station, VerdictBefore: o.Verdict, VerdictAfter: n.Verdict, RatioBefore: o.Ratio, RatioAfter: n.Ratio}
+		ch := Changed{ID: n.ID, Station: n.Station, VerdictBefore: o.Verdict, VerdictAfter: n.Verdict, RatioBefore: o.Ratio, RatioAfter: n.Ratio,
+			RatioAssumedBefore: o.RatioAssumed, RatioAssumedAfter: n.RatioAssumed}
 		ov := map[string]Value{}
 		for _, f := range o.Fields {
 			ov[f.Name] = f.Value
@@ -577,10 +758,30 @@ func Compare(old, new *Side) *Comparison {
 		}
 	}
 	for _, o := range old.Objects {
-		if !newIDs[o.ID] {
-			c.Removed = append(c.Removed, o.ID)
+		if newIDs[o.ID] {
+			continue
 		}
+		if rejNew[o.ID] {
+			// rejected in NEW: not assessed there, so never "removed"
+			rejected[o.Station] = append(rejected[o.Station], o.ID)
+			continue
+		}
+		c.Removed = append(c.Removed, o.ID)
+		removed[o.Station] = append(removed[o.Station], o.ID)
 	}
+	// A row rejected on both sides, or rejected on one side and absent on
+	// the other, still leaves its station's objects uncertain.
+	for _, r := range append(append([]RejectedObject(nil), old.Rejected...), new.Rejected...) {
+		st := stationOf[r.ID]
+		if r.ID == "" || st == "" || slices.Contains(rejected[st], r.ID) {
+			continue
+		}
+		rejected[st] = append(rejected[st], r.ID)
+	}
+	if n := c.Rejected(); n > 0 {
+		c.Cautions = append(c.Cautions, Caution{CautionRejected, rejectedCautionText(c)})
+	}
+	anyDiffer := len(added)+len(removed)+len(rejected) > 0
 	oldSt := map[string]SideStation{}
 	for _, s := range old.Stations {
 		oldSt[s.ID] = s
@@ -592,18 +793,69 @@ func Compare(old, new *Side) *Comparison {
 		if ok && o.Rank == n.Rank && o.Verdict == n.Verdict {
 			continue
 		}
-		m := RankMove{ID: n.ID, Name: n.Name, RankAfter: n.Rank, VerdictAfter: n.Verdict, WorstRatioAfter: n.WorstRatio}
+		m := RankMove{ID: n.ID, Name: n.Name, RankAfter: n.Rank, VerdictAfter: n.Verdict, WorstRatioAfter: n.WorstRatio, WorstRatioAssumedAfter: n.WorstRatioAssumed,
+			Added: added[n.ID], Removed: removed[n.ID], Rejected: rejected[n.ID]}
 		if ok {
-			m.RankBefore, m.VerdictBefore, m.WorstRatioBefore = o.Rank, o.Verdict, o.WorstRatio
+			m.RankBefore, m.VerdictBefore, m.WorstRatioBefore, m.WorstRatioAssumedBefore = o.Rank, o.Verdict, o.WorstRatio, o.WorstRatioAssumed
+			m.OnlyOthers = anyDiffer && !m.ObjectsDiffer() && o.Verdict == n.Verdict && o.WorstRatioAssumed == n.WorstRatioAssumed && ratioEq(o.WorstRatio, n.WorstRatio)
 		}
 		c.Stations = append(c.Stations, m)
 	}
 	for _, o := range old.Stations {
 		if !seen[o.ID] {
-			c.Stations = append(c.Stations, RankMove{ID: o.ID, Name: o.Name, RankBefore: o.Rank, VerdictBefore: o.Verdict, WorstRatioBefore: o.WorstRatio})
+			c.Stations = append(c.Stations, RankMove{ID: o.ID, Name: o.Name, RankBefore: o.Rank, VerdictBefore: o.Verdict, WorstRatioBefore: o.WorstRatio,
+				WorstRatioAssumedBefore: o.WorstRatioAssumed})
 		}
 	}
 	return c
+}
+
+func rejectedIDs(rs []RejectedObject) map[string]bool {
+	out := map[string]bool{}
+	for _, r := range rs {
+		if r.ID != "" {
+			out[r.ID] = true
+		}
+	}
+	return out
+}
+
+// rejectedCautionText says which side rejected Objects rows and where to look.
+func rejectedCautionText(c *Comparison) string {
+	var parts []string
+	for _, g := range []struct {
+		side string
+		rs   []RejectedObject
+	}{{"OLD", c.RejectedOld}, {"NEW", c.RejectedNew}} {
+		if len(g.rs) == 0 {
+			continue
+		}
+		var ids []string
+		for _, r := range g.rs {
+			ids = append(ids, r.Text())
+		}
+		parts = append(parts, fmt.Sprintf("%d object row(s) rejected in %s (%s): see its audit's Rejected sheet ('sparkmargin check')", len(g.rs), g.side, strings.Join(ids, "; ")))
+	}
+	return strings.Join(parts, "; ") + ". Those objects are not assessed on that side: they are listed as rejected, never as added or removed, and their stations' ranks leave them out."
+}
+
+// Text names a rejected row: "PWD-DRUM (row 4: ...)".
+func (r RejectedObject) Text() string {
+	id := r.ID
+	if id == "" {
+		id = "ID not readable"
+	}
+	var at []string
+	if r.Row > 0 {
+		at = append(at, fmt.Sprintf("row %d", r.Row))
+	}
+	if r.Why != "" {
+		at = append(at, r.Why)
+	}
+	if len(at) == 0 {
+		return id
+	}
+	return id + " (" + strings.Join(at, ": ") + ")"
 }
 
 // HasCaution reports whether the comparison carries a caution of kind k.

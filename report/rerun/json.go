@@ -6,6 +6,7 @@ import (
 	"math"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -27,6 +28,8 @@ type jsonChange struct {
 type jsonVerdictRatio struct {
 	Verdict string   `json:"verdict"`
 	Ratio   *float64 `json:"ratio"`
+	// the ratio is at least 1 only because of an assumed resistance to earth: its size is no figure
+	RatioAssumed bool `json:"ratio_assumed_resistance"`
 }
 
 type jsonWhatifObject struct {
@@ -40,6 +43,44 @@ type jsonStationState struct {
 	Rank       int      `json:"rank"`
 	Verdict    string   `json:"verdict"`
 	WorstRatio *float64 `json:"worst_ratio"`
+	// as the assess JSON: the worst ratio rests on an assumed resistance to earth
+	WorstRatioAssumed bool `json:"worst_ratio_assumed_resistance"`
+	// Objects rows naming the station were rejected: its rank leaves them out
+	RejectedRows   int    `json:"rejected_rows"`
+	IncompleteText string `json:"incomplete,omitempty"`
+}
+
+func stationState(s *assess.StationResult) *jsonStationState {
+	return &jsonStationState{s.Rank, s.Verdict.String(), finite(s.WorstRatio), s.WorstRatioAssumed, s.RejectedRows, s.IncompleteText()}
+}
+
+// jsonTool names the program that wrote a document, as the assess JSON does.
+type jsonTool struct {
+	Name    string `json:"name"`
+	Version string `json:"version"`
+}
+
+// jsonFile is a file and its SHA-256, as the assess JSON records its workbook.
+type jsonFile struct {
+	File   string `json:"file"`
+	SHA256 string `json:"sha256"`
+}
+
+// JSONInfo is what a whatif or sweep JSON records of its run: the tool's
+// version and the workbook written with it (file name and SHA-256; "" when none).
+type JSONInfo struct {
+	ToolVersion    string
+	Workbook       string
+	WorkbookSHA256 string
+}
+
+func (ji JSONInfo) tool() jsonTool { return jsonTool{"sparkmargin", ji.ToolVersion} }
+
+func (ji JSONInfo) workbook() *jsonFile {
+	if ji.Workbook == "" {
+		return nil
+	}
+	return &jsonFile{ji.Workbook, ji.WorkbookSHA256}
 }
 
 type jsonWhatifStation struct {
@@ -49,7 +90,9 @@ type jsonWhatifStation struct {
 }
 
 type jsonWhatif struct {
+	Tool     jsonTool            `json:"tool"`
 	Survey   jsonRerunSurvey     `json:"survey"`
+	Workbook *jsonFile           `json:"workbook,omitempty"` // the workbook written with this JSON
 	Changes  []jsonChange        `json:"changes"`
 	Objects  []jsonWhatifObject  `json:"objects"`
 	Stations []jsonWhatifStation `json:"stations"`
@@ -95,8 +138,14 @@ func encode(w io.Writer, v any) error {
 // "before": {"rank", "verdict", "worst_ratio"}, "after": {...}}]}. Each change
 // carries change, target, value (as written), si_value, applied, source, note and
 // the objects it reached; "cautions" closes the document.
-func WriteWhatifJSON(w io.Writer, x *Whatif) error {
-	d := jsonWhatif{Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}, Cautions: templates.Cautions()}
+//
+// "tool" ({"name", "version"}) and "workbook" ({"file", "sha256"}, the
+// workbook written with the JSON, absent when none) are as in the assess JSON;
+// a ratio carries "ratio_assumed_resistance" and a station state
+// "worst_ratio_assumed_resistance", "rejected_rows" and "incomplete" as the
+// assess JSON's stations do.
+func WriteWhatifJSON(w io.Writer, x *Whatif, info JSONInfo) error {
+	d := jsonWhatif{Tool: info.tool(), Workbook: info.workbook(), Changes: []jsonChange{}, Objects: []jsonWhatifObject{}, Stations: []jsonWhatifStation{}, Cautions: templates.Cautions()}
 	if x.Before != nil {
 		d.Survey = rerunSurvey(x.Before.Survey)
 	}
@@ -111,20 +160,20 @@ func WriteWhatifJSON(w io.Writer, x *Whatif) error {
 	for _, o := range x.Objects {
 		j := jsonWhatifObject{ID: o.ID, Station: o.Station}
 		if o.Before != nil {
-			j.Before = jsonVerdictRatio{o.Before.Verdict.String(), finite(o.Before.Ratio)}
+			j.Before = jsonVerdictRatio{o.Before.Verdict.String(), finite(o.Before.Ratio), o.Before.RatioAssumed()}
 		}
 		if o.After != nil {
-			j.After = jsonVerdictRatio{o.After.Verdict.String(), finite(o.After.Ratio)}
+			j.After = jsonVerdictRatio{o.After.Verdict.String(), finite(o.After.Ratio), o.After.RatioAssumed()}
 		}
 		d.Objects = append(d.Objects, j)
 	}
 	for _, s := range x.Stations {
 		j := jsonWhatifStation{ID: s.ID}
 		if s.Before != nil {
-			j.Before = &jsonStationState{s.Before.Rank, s.Before.Verdict.String(), finite(s.Before.WorstRatio)}
+			j.Before = stationState(s.Before)
 		}
 		if s.After != nil {
-			j.After = &jsonStationState{s.After.Rank, s.After.Verdict.String(), finite(s.After.WorstRatio)}
+			j.After = stationState(s.After)
 		}
 		d.Stations = append(d.Stations, j)
 	}
@@ -132,9 +181,11 @@ func WriteWhatifJSON(w io.Writer, x *Whatif) error {
 }
 
 type jsonSweepStation struct {
-	ID         string   `json:"id"`
-	Verdict    string   `json:"verdict"`
-	WorstRatio *float64 `json:"worst_ratio"`
+	ID                string   `json:"id"`
+	Verdict           string   `json:"verdict"`
+	WorstRatio        *float64 `json:"worst_ratio"`
+	WorstRatioAssumed bool     `json:"worst_ratio_assumed_resistance"`
+	RejectedRows      int      `json:"rejected_rows"`
 }
 
 type jsonSweepStep struct {
@@ -161,7 +212,9 @@ type jsonSweepClearance struct {
 }
 
 type jsonSweep struct {
+	Tool        jsonTool             `json:"tool"`
 	Survey      jsonRerunSurvey      `json:"survey"`
+	Workbook    *jsonFile            `json:"workbook,omitempty"` // the workbook written with this JSON
 	AllStations bool                 `json:"all_stations"`
 	Held        []jsonSweepHeld      `json:"held_stations"`
 	Steps       []jsonSweepStep      `json:"steps"`
@@ -174,9 +227,15 @@ type jsonSweep struct {
 // stations kept at their own RH), "steps": [{"rh_pct", "incendive",
 // "marginal", "stations": [{"id", "verdict", "worst_ratio"}]}], "clearances":
 // [{"id", "clears_at_rh_pct", "cause", "missing_inputs", "readings_holding",
-// "text"}], "cautions"}.
-func WriteSweepJSON(w io.Writer, s *Sweep) error {
-	d := jsonSweep{Survey: rerunSurvey(s.Survey), AllStations: s.AllStations, Held: []jsonSweepHeld{}, Steps: []jsonSweepStep{},
+// "text"}], "cautions"}, with "tool" and "workbook" as the assess JSON; a
+// station at a step carries "worst_ratio_assumed_resistance" and
+// "rejected_rows" (incomplete: its rank leaves those objects out).
+func WriteSweepJSON(w io.Writer, s *Sweep) error { return WriteSweepJSONWith(w, s, JSONInfo{}) }
+
+// WriteSweepJSONWith is WriteSweepJSON recording the run's tool version and
+// the workbook written with the JSON.
+func WriteSweepJSONWith(w io.Writer, s *Sweep, info JSONInfo) error {
+	d := jsonSweep{Tool: info.tool(), Workbook: info.workbook(), Survey: rerunSurvey(s.Survey), AllStations: s.AllStations, Held: []jsonSweepHeld{}, Steps: []jsonSweepStep{},
 		Clearances: []jsonSweepClearance{}, Cautions: templates.Cautions()}
 	for _, h := range s.Held {
 		d.Held = append(d.Held, jsonSweepHeld{h.ID, h.RH})
@@ -184,7 +243,7 @@ func WriteSweepJSON(w io.Writer, s *Sweep) error {
 	for _, st := range s.Steps {
 		j := jsonSweepStep{RHPct: st.RH, Incendive: st.Incendive, Marginal: st.Marginal, Stations: []jsonSweepStation{}}
 		for _, x := range st.Stations {
-			j.Stations = append(j.Stations, jsonSweepStation{x.ID, x.Verdict.String(), finite(x.WorstRatio)})
+			j.Stations = append(j.Stations, jsonSweepStation{x.ID, x.Verdict.String(), finite(x.WorstRatio), x.WorstRatioAssumed, x.RejectedRows})
 		}
 		d.Steps = append(d.Steps, j)
 	}
@@ -241,7 +300,26 @@ type jsonRankMove struct {
 	VerdictAfter     *string  `json:"verdict_after"`
 	WorstRatioBefore *float64 `json:"worst_ratio_before"`
 	WorstRatioAfter  *float64 `json:"worst_ratio_after"`
-	Move             string   `json:"move"`
+	// the worst ratio rests on an assumed resistance to earth: at least 1, its size no figure
+	AssumedBefore bool     `json:"worst_ratio_before_assumed_resistance"`
+	AssumedAfter  bool     `json:"worst_ratio_after_assumed_resistance"`
+	Added         []string `json:"objects_added"`
+	Removed       []string `json:"objects_removed"`
+	Rejected      []string `json:"objects_rejected"`
+	Move          string   `json:"move"`
+}
+
+type jsonRejected struct {
+	ID      string `json:"id"`
+	Station string `json:"station"`
+	Row     int    `json:"row"`
+	Why     string `json:"why"`
+}
+
+type jsonStationCounts struct {
+	Moved   int `json:"moved"`    // on both sides, rank or verdict moved
+	OnlyNew int `json:"only_new"` // stations added
+	OnlyOld int `json:"only_old"` // stations removed
 }
 
 type jsonIdentity struct {
@@ -251,6 +329,7 @@ type jsonIdentity struct {
 	SiteID       string  `json:"site_id"`
 	SurveyDate   *string `json:"survey_date"` // null: not given
 	SurveySHA256 string  `json:"survey_sha256,omitempty"`
+	FileSHA256   string  `json:"file_sha256,omitempty"` // an audit JSON's own checksum
 	ResultsOnly  bool    `json:"results_only"`
 }
 
@@ -267,9 +346,21 @@ type jsonCompare struct {
 	StationChanges []jsonStationChange `json:"station_changes"`
 	Added          []string            `json:"added"`
 	Removed        []string            `json:"removed"`
+	RejectedOld    []jsonRejected      `json:"rejected_old"`
+	RejectedNew    []jsonRejected      `json:"rejected_new"`
 	Changed        []jsonChanged       `json:"changed"`
 	Stations       []jsonRankMove      `json:"stations"`
+	StationCounts  jsonStationCounts   `json:"station_counts"`
+	DifferentSites bool                `json:"different_sites"`
 	Cautions       []string            `json:"cautions"`
+}
+
+func jrejected(rs []RejectedObject) []jsonRejected {
+	out := []jsonRejected{}
+	for _, r := range rs {
+		out = append(out, jsonRejected{r.ID, r.Station, r.Row, r.Why})
+	}
+	return out
 }
 
 func rankPtr(r int) *int {
@@ -287,7 +378,7 @@ func strPtr(s string) *string {
 }
 
 func jidentity(id Identity) jsonIdentity {
-	j := jsonIdentity{Path: id.Path, SHA256: id.SHA256, Site: id.Site, SiteID: id.SiteID, SurveySHA256: id.SurveySHA256, ResultsOnly: id.Results}
+	j := jsonIdentity{Path: id.Path, SHA256: id.SHA256, Site: id.Site, SiteID: id.SiteID, SurveySHA256: id.SurveySHA256, FileSHA256: id.FileSHA256, ResultsOnly: id.Results}
 	if !id.SurveyDate.IsZero() {
 		j.SurveyDate = strPtr(id.DateText())
 	}
@@ -305,8 +396,9 @@ func jidentity(id Identity) jsonIdentity {
 // on that side) and "cautions" (the screening cautions).
 func WriteCompareJSON(w io.Writer, c *Comparison) error {
 	d := jsonCompare{Old: jidentity(c.Old.Identity), New: jidentity(c.New.Identity), Warnings: []jsonCaution{}, SiteChanges: []jsonFieldChange{},
-		StationChanges: []jsonStationChange{}, Added: nonNil(c.Added), Removed: nonNil(c.Removed), Changed: []jsonChanged{}, Stations: []jsonRankMove{},
-		Cautions: templates.Cautions()}
+		StationChanges: []jsonStationChange{}, Added: nonNil(c.Added), Removed: nonNil(c.Removed), RejectedOld: jrejected(c.RejectedOld), RejectedNew: jrejected(c.RejectedNew),
+		Changed: []jsonChanged{}, Stations: []jsonRankMove{}, StationCounts: jsonStationCounts{c.StationsMoved(), c.StationsAdded(), c.StationsRemoved()},
+		DifferentSites: c.HasCaution(CautionDifferentSites), Cautions: templates.Cautions()}
 	for _, k := range c.Cautions {
 		d.Warnings = append(d.Warnings, jsonCaution{string(k.Kind), k.Text})
 	}
@@ -325,7 +417,8 @@ func WriteCompareJSON(w io.Writer, c *Comparison) error {
 	}
 	for _, m := range c.Stations {
 		d.Stations = append(d.Stations, jsonRankMove{m.ID, rankPtr(m.RankBefore), rankPtr(m.RankAfter), strPtr(m.VerdictBefore), strPtr(m.VerdictAfter),
-			finite(m.WorstRatioBefore), finite(m.WorstRatioAfter), m.Move()})
+			finite(m.WorstRatioBefore), finite(m.WorstRatioAfter), m.WorstRatioAssumedBefore, m.WorstRatioAssumedAfter,
+			nonNil(m.Added), nonNil(m.Removed), nonNil(m.Rejected), m.Move()})
 	}
 	return encode(w, d)
 }

@@ -607,7 +607,7 @@ func TestGoldenOutputs(t *testing.T) {
 	sw := RunSweep(s, rh, SweepOptions{})
 	outs := map[string]func(*bytes.Buffer) error{
 		"whatif.txt":  func(b *bytes.Buffer) error { return WriteWhatifSummary(b, w) },
-		"whatif.json": func(b *bytes.Buffer) error { return WriteWhatifJSON(b, w) },
+		"whatif.json": func(b *bytes.Buffer) error { return WriteWhatifJSON(b, w, JSONInfo{ToolVersion: "test"}) },
 		"sweep.txt":   func(b *bytes.Buffer) error { return WriteSweepSummary(b, sw, 0) },
 		"sweep.json":  func(b *bytes.Buffer) error { return WriteSweepJSON(b, sw) },
 	}

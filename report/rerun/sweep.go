@@ -27,6 +27,10 @@ type SweepStation struct {
 	Verdict    assess.Verdict
 	WorstRatio *float64
 	Rank       int // the station's rank at this step (1 = worst)
+	// WorstRatioAssumed: the worst ratio rests on an assumed resistance to
+	// earth (assess.StationResult.WorstRatioAssumed): at least 1, its size no figure.
+	WorstRatioAssumed bool
+	RejectedRows      int // Objects rows naming the station rejected: incomplete
 }
 
 // ClearanceCause says, typed, why a station clears where it does or never does.
@@ -220,6 +224,7 @@ func RunSweep(s *inventory.Survey, rh []float64, o SweepOptions) *Sweep {
 			x := SweepStation{ID: id, Verdict: assess.NotAssessed}
 			if st := byID[id]; st != nil {
 				x.Verdict, x.WorstRatio, x.Rank = st.Verdict, st.WorstRatio, st.Rank
+				x.WorstRatioAssumed, x.RejectedRows = st.WorstRatioAssumed, st.RejectedRows
 			}
 			step.Stations = append(step.Stations, x)
 		}
@@ -308,7 +313,7 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			c.Always = st.Verdict == assess.NonIncendive
 			c.Text = fmt.Sprintf("held at its own RH %s %% (not swept; --all-stations sweeps it too): %s", fmtSig(rh), st.Verdict)
 			if st.WorstRatio != nil {
-				c.Text += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+				c.Text += fmt.Sprintf(" (worst ratio %s)", sigOrAssumed(*st.WorstRatio, st.WorstRatioAssumed))
 			}
 			if st.Verdict != assess.NonIncendive {
 				sc := stationCauses(last, st.ID)
@@ -331,7 +336,7 @@ func clearances(s *inventory.Survey, steps []SweepStep, last *assess.Audit, held
 			c.SetBy, c.Missing, c.Readings, c.Cause = sc.SetBy, sc.Missing(), sc.Readings, sc.Cause
 			still := fmt.Sprintf("still %s at %s %% RH", st.Verdict, fmtSig(lastStep.RH))
 			if st.WorstRatio != nil {
-				still += fmt.Sprintf(" (worst ratio %s)", fmtSig(*st.WorstRatio))
+				still += fmt.Sprintf(" (worst ratio %s)", sigOrAssumed(*st.WorstRatio, st.WorstRatioAssumed))
 			}
 			switch c.Cause {
 			case NeverMissingInput:

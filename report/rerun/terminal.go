@@ -3,10 +3,12 @@ package rerun
 import (
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 	"text/tabwriter"
 	"unicode/utf8"
 
+	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/audit"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
@@ -36,13 +38,25 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "Station\tRank before\tVerdict before\tWorst ratio before\tRank after\tVerdict after\tWorst ratio after\tOutcome")
+	noted := false // a Note column only when a station is incomplete or ranked on an assumed resistance
+	for _, s := range x.Stations {
+		noted = noted || len(s.After.Notes()) > 0 || (s.Before != nil && len(s.Before.Notes()) > 0)
+	}
+	hdr := "Station\tRank before\tVerdict before\tWorst ratio before\tRank after\tVerdict after\tWorst ratio after\tOutcome"
+	if noted {
+		hdr += "\tNote"
+	}
+	fmt.Fprintln(tw, hdr)
 	for _, s := range x.Stations {
 		b := [3]string{"–", "–", "–"}
 		if s.Before != nil {
-			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), audit.FormatRatio(s.Before.WorstRatio)}
+			b = [3]string{fmt.Sprint(s.Before.Rank), s.Before.Verdict.String(), StationRatioText(s.Before)}
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s\n", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, audit.FormatRatio(s.After.WorstRatio), s.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%d\t%s\t%s\t%s", s.ID, b[0], b[1], b[2], s.After.Rank, s.After.Verdict, StationRatioText(s.After), s.Outcome)
+		if noted {
+			fmt.Fprint(tw, "\t"+strings.Join(StationNotes(s.Before, s.After), "; "))
+		}
+		fmt.Fprintln(tw)
 	}
 	tw.Flush()
 	fmt.Fprintln(w)
@@ -54,7 +68,7 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 			continue
 		}
 		moved++
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, audit.FormatRatio(o.Before.Ratio), o.After.Verdict, audit.FormatRatio(o.After.Ratio), o.Outcome)
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\n", o.ID, o.Station, o.Before.Verdict, ObjectRatioText(o.Before), o.After.Verdict, ObjectRatioText(o.After), o.Outcome)
 	}
 	if moved == 0 {
 		fmt.Fprintln(tw, "(no object's verdict or ratio moved)")
@@ -81,6 +95,44 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 	fmt.Fprintln(w, MeasuredReadingsNote)
 	caution(w)
 	return nil
+}
+
+// StationRatioText is a station's worst ratio as the terminal shows it:
+// assess.RatioAssumedText when it rests on an assumed resistance to earth (its
+// size no figure), "no discharge" or "n/a" where there is no number.
+func StationRatioText(s *assess.StationResult) string {
+	return markedRatio(s.WorstRatio, s.WorstRatioAssumed, true)
+}
+
+// ObjectRatioText is an object's ratio as the terminal shows it, the
+// assumed-resistance text where its size is an artefact.
+func ObjectRatioText(r *assess.ObjectResult) string {
+	return markedRatio(r.Ratio, r.RatioAssumed(), true)
+}
+
+// StationNotes are a station's marks before and after a rerun: incomplete
+// (Objects rows rejected: its rank leaves them out) and ranked on an assumed
+// resistance, each said once, "before:"/"after:" where only one side has it.
+func StationNotes(before, after *assess.StationResult) []string {
+	var out []string
+	var b []string
+	if before != nil {
+		b = before.Notes()
+	}
+	a := after.Notes()
+	for _, n := range a {
+		if slices.Contains(b, n) {
+			out = append(out, n)
+		} else {
+			out = append(out, "after: "+n)
+		}
+	}
+	for _, n := range b {
+		if !slices.Contains(a, n) {
+			out = append(out, "before: "+n)
+		}
+	}
+	return out
 }
 
 // SweepColumnsPerTable is how many station columns one terminal table of a
@@ -124,7 +176,7 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 			row := []string{fmtSig(st.RH), fmt.Sprint(st.Incendive), fmt.Sprint(st.Marginal)}
 			for _, j := range block {
 				x := st.Stations[j]
-				row = append(row, audit.FormatRatio(x.WorstRatio)+verdictMark(x.Verdict.String()))
+				row = append(row, markedRatio(x.WorstRatio, x.WorstRatioAssumed, true)+verdictMark(x.Verdict.String()))
 			}
 			fmt.Fprintln(tw, strings.Join(row, "\t")+"\t")
 		}
@@ -144,6 +196,11 @@ func WriteSweepSummary(w io.Writer, s *Sweep, top int) error {
 	}
 	if len(heldShown) > 0 {
 		fmt.Fprint(w, wrapText("", "* not swept: "+strings.Join(heldShown, ", ")+"; every row shows its result at that RH.", terminalWidth, "  "))
+	}
+	for _, x := range s.Steps[0].Stations {
+		if x.RejectedRows > 0 {
+			fmt.Fprint(w, wrapText("", x.ID+" "+sweepStationText(x, ""), terminalWidth, "  "))
+		}
 	}
 	fmt.Fprintln(w)
 	for _, j := range shown {
@@ -213,7 +270,7 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 		side *Side
 	}{{"Old", c.Old}, {"New", c.New}} {
 		id := s.side.Identity
-		fmt.Fprintf(w, "%s: %s\n     site %s, surveyed %s, SHA-256 %s\n", s.role, dash(id.Path), id.SiteText(), id.DateText(), shortSum(id.SHA256))
+		fmt.Fprintf(w, "%s: %s\n     site %s, surveyed %s, survey SHA-256 %s\n", s.role, dash(id.Path), id.SiteText(), id.DateText(), shortSum(id.SHA256))
 	}
 	for _, k := range c.Cautions {
 		fmt.Fprintf(w, "WARNING (%s): %s\n", k.Kind, k.Text)
@@ -234,7 +291,21 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	tw.Flush()
 	fmt.Fprintln(w)
 	fmt.Fprintf(w, "Added (%d):   %s\n", len(c.Added), listOrNone(c.Added))
-	fmt.Fprintf(w, "Removed (%d): %s\n\n", len(c.Removed), listOrNone(c.Removed))
+	fmt.Fprintf(w, "Removed (%d): %s\n", len(c.Removed), listOrNone(c.Removed))
+	for _, g := range []struct {
+		side string
+		rs   []RejectedObject
+	}{{"OLD", c.RejectedOld}, {"NEW", c.RejectedNew}} {
+		if len(g.rs) == 0 {
+			continue
+		}
+		var ids []string
+		for _, r := range g.rs {
+			ids = append(ids, r.Text())
+		}
+		fmt.Fprint(w, wrapText("", fmt.Sprintf("Rejected in %s (%d, not compared, neither added nor removed: see its audit / Rejected sheet): %s", g.side, len(g.rs), strings.Join(ids, "; ")), terminalWidth, "  "))
+	}
+	fmt.Fprintln(w)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "Changed object\tStation\tVerdict before\tVerdict after\tFields changed")
 	for _, ch := range c.Changed {
@@ -249,14 +320,30 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	fmt.Fprintln(tw, "Station\tRank before\tRank after\tVerdict before\tVerdict after\tWorst ratio before\tWorst ratio after\tMove")
 	for _, m := range c.Stations {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", m.ID, rankText(m.RankBefore), rankText(m.RankAfter), dash(m.VerdictBefore), dash(m.VerdictAfter),
-			audit.FormatRatio(m.WorstRatioBefore), audit.FormatRatio(m.WorstRatioAfter), m.Move())
+			markedRatio(m.WorstRatioBefore, m.WorstRatioAssumedBefore, m.RankBefore != 0), markedRatio(m.WorstRatioAfter, m.WorstRatioAssumedAfter, m.RankAfter != 0), m.Move())
 	}
 	if len(c.Stations) == 0 {
 		fmt.Fprintln(tw, "(no station's rank or verdict moved)")
 	}
 	tw.Flush()
+	fmt.Fprintf(w, "Stations: %d on both sides whose rank or verdict moved, %d only in NEW, %d only in OLD\n", c.StationsMoved(), c.StationsAdded(), c.StationsRemoved())
+	if c.HasCaution(CautionDifferentSites) {
+		fmt.Fprintln(w, "Different sites: the lists above compare two places, not a survey repeated over time.")
+	}
 	caution(w)
 	return nil
+}
+
+// markedRatio is a ratio as text, RatioAssumedText when it rests on an
+// assumed resistance to earth, "–" when the side has none (on is false).
+func markedRatio(r *float64, assumed, on bool) string {
+	switch {
+	case !on:
+		return "–"
+	case assumed:
+		return assess.RatioAssumedText
+	}
+	return audit.FormatRatio(r)
 }
 
 // shortSum is the first 12 hex digits of a checksum, "not known" for none.
@@ -315,4 +402,13 @@ func wrapText(prefix, s string, width int, indent string) string {
 	}
 	b.WriteByte('\n')
 	return b.String()
+}
+
+// sigOrAssumed is a ratio to 3 significant digits (fmtSig), or
+// assess.RatioAssumedText when it rests on an assumed resistance to earth.
+func sigOrAssumed(r float64, assumed bool) string {
+	if assumed {
+		return assess.RatioAssumedText
+	}
+	return fmtSig(r)
 }

@@ -26,6 +26,9 @@ const (
 	SheetAdded    = "Added"
 	SheetRemoved  = "Removed"
 	SheetChanged  = "Changed"
+	// SheetRejectedObjects is the compare workbook's list of the Objects rows
+	// rejected on either side (not compared: neither added nor removed).
+	SheetRejectedObjects = "Rejected objects"
 )
 
 func rerunNotes() [][2]string {
@@ -115,14 +118,14 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		if o.After != nil {
 			mat = o.After.Object.Material
 		}
-		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), audit.RatioCell(o.Before.Ratio)}
+		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio, o.Before.RatioAssumed())}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), audit.RatioCell(o.After.Ratio), ct(string(o.Outcome)), wr(o.Worse), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio, o.After.RatioAssumed()), ct(string(o.Outcome)), wr(o.Worse), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
 	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "Why worse", "What changed and why", "Reason after"},
-		[]float64{12, 10, 10, 14, 14, 12, 14, 12, 11, 40, 55, 55}, rows)
+		[]float64{12, 10, 10, 14, 14, 16, 14, 16, 11, 40, 55, 55}, rows)
 	b.PrintSetup(SheetObjects, "$1:$1")
 
 	// Stations.
@@ -130,15 +133,16 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 	for _, d := range x.Stations {
 		row := []audit.Cell{tx(d.ID), tx(d.Name)}
 		if d.Before != nil {
-			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), audit.RatioCell(d.Before.WorstRatio))
+			row = append(row, in(d.Before.Rank), vd(d.Before.Verdict.String()), ratioCell(d.Before.WorstRatio, d.Before.WorstRatioAssumed))
 		} else {
 			row = append(row, audit.EmptyCell(), audit.EmptyCell(), audit.EmptyCell())
 		}
-		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), audit.RatioCell(d.After.WorstRatio), ct(string(d.Outcome)))
+		row = append(row, in(d.After.Rank), vd(d.After.Verdict.String()), ratioCell(d.After.WorstRatio, d.After.WorstRatioAssumed), ct(string(d.Outcome)),
+			wr(strings.Join(StationNotes(d.Before, d.After), "; ")))
 		rows = append(rows, row)
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome"},
-		[]float64{10, 28, 8, 14, 12, 8, 14, 12, 11}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank before", "Verdict before", "Worst ratio before [–]", "Rank after", "Verdict after", "Worst ratio after [–]", "Outcome", "Note"},
+		[]float64{10, 28, 8, 14, 16, 8, 14, 16, 11, 45}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 
 	// Changes applied.
@@ -212,7 +216,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		row := []audit.Cell{audit.QuantityCell(book.UnitPercentRH, st.RH), in(st.Incendive), in(st.Marginal)}
 		for _, j := range wide {
 			x := st.Stations[j]
-			row = append(row, audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()))
+			row = append(row, ratioCell(x.WorstRatio, x.WorstRatioAssumed), vd(x.Verdict.String()))
 		}
 		rows = append(rows, row)
 	}
@@ -291,7 +295,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 				if rh, ok := held[x.ID]; ok {
 					mark = tx(heldMark(rh) + ", not swept")
 				}
-				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), audit.RatioCell(x.WorstRatio), vd(x.Verdict.String()), mark})
+				rows = append(rows, []audit.Cell{tx(x.ID), audit.QuantityCell(book.UnitPercentRH, st.RH), ratioCell(x.WorstRatio, x.WorstRatioAssumed), vd(x.Verdict.String()), mark})
 			}
 		}
 		b.Table(SheetSweepLong, 1, []string{"Station", "Swept RH [%]", "Worst ratio [–]", "Verdict", "Station RH"}, []float64{12, 8, 12, 14, 24}, rows)
@@ -309,7 +313,7 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 		if rh, ok := held[c.ID]; ok {
 			own, swept = audit.QuantityCell(book.UnitPercentRH, rh), tx(heldMark(rh)+" (not swept)")
 		}
-		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), swept, own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(c.Text)})
+		rows = append(rows, []audit.Cell{tx(c.ID), tx(c.Name), swept, own, vd(first.Stations[j].Verdict.String()), vd(last.Stations[j].Verdict.String()), clears, wr(sweepStationText(first.Stations[j], c.Text))})
 	}
 	b.Table(SheetStations, 1, []string{"Station", "Name", "Swept or held", "Own RH kept [%]", fmt.Sprintf("Verdict at swept %s %%", fmtSig(first.RH)), fmt.Sprintf("Verdict at swept %s %%", fmtSig(last.RH)), "Non-incendive from RH [%]", "What humidity does"},
 		[]float64{10, 28, 22, 10, 14, 14, 14, 60}, rows)
@@ -323,6 +327,15 @@ func WriteSweepWorkbook(w io.Writer, sw *Sweep, info RunInfo) error {
 
 // heldMark marks a station kept at its own RH: "held at own RH 20 %".
 func heldMark(rh float64) string { return fmt.Sprintf("held at own RH %s %%", fmtSig(rh)) }
+
+// sweepStationText is a station's sweep text, led by its incomplete mark
+// (Objects rows naming it rejected: its ranks leave those objects out).
+func sweepStationText(x SweepStation, text string) string {
+	if t := (assess.StationResult{RejectedRows: x.RejectedRows}).IncompleteText(); t != "" {
+		return t + "; its verdicts and ranks leave those objects out. " + text
+	}
+	return text
+}
 
 // sweepMethodText is the Method sheet's note on how the sweep set the RH and
 // what its clearances mean.
@@ -344,9 +357,12 @@ func compareNotes() [][2]string {
 	return [][2]string{
 		{"What compare does", "Each survey is read and assessed on its own, with its own Site items, limits and atmospheres, exactly as 'assess' would; the two audits are then matched by object ID and station ID. An object only in NEW is added, only in OLD removed; an object in both is changed when any reading, setting, verdict or ratio differs. A station is listed when its rank moved or its verdict changed (even at the same rank), or when it is on one side only. Site items (RH, air temperature, required margin, limit overrides, Surveyed by, Site ID) and station settings (name, line, RH, atmosphere, substance, zone, MIE, gas or dust group) are compared one by one."},
 		{"Units", "Values are shown as numbers in the display units of the survey and the audit (kV/m, kV, mJ, pF, µA, Ω, %...), the unit in its own column; the JSON gives each value in SI as well."},
-		{"Same site", "Two surveys are taken as one site when both give a Site ID and the IDs agree, else when their site names agree (case and spaces aside): a screening choice of this tool. A mismatch is a warning, not an error: the comparison is still made. A Site ID on one side only is noted: the portfolio (assess of several surveys) keeps such surveys apart."},
+		{"Same site", "Two surveys are taken as one site when both give a Site ID and the IDs agree, else when their site names agree (case and spaces aside): a screening choice of this tool. On a mismatch the comparison is still made and written, with a warning, stations only on one side counted apart from those whose rank or verdict moved, and compare exits with status 1 so that a script does not read two places as a repeat survey. A Site ID on one side only is noted: the portfolio (assess of several surveys) keeps such surveys apart."},
+		{"Identity", "Each side is identified by its survey's SHA-256 checksum; for an audit JSON that is the survey's checksum recorded inside the JSON (the JSON file's own checksum is shown apart), so an audit JSON and the survey it was made from are recognised as the same survey."},
 		{"Date order", "OLD should be the earlier survey. When OLD is dated after NEW, or a date is missing, a warning says so: 'added', 'removed', 'before' and 'after' then read backwards or cannot be ordered."},
-		{"What compare does not say", "It does not say why a value changed (a new reading, a process change, a typing error), nor that a change is an improvement: a verdict that went from incendive to non-incendive rests on the new survey's readings and inputs, which a competent person should check. A rank is relative to the other stations of the same survey, so a rank can move while nothing changed at the station. Rows rejected on either side are not compared (see each survey's audit). When either side is an audit JSON, the sides are compared on results only (no readings, no Site items)."},
+		{"What compare does not say", "It does not say why a value changed (a new reading, a process change, a typing error), nor that a change is an improvement: a verdict that went from incendive to non-incendive rests on the new survey's readings and inputs, which a competent person should check. A rank is relative to the other stations of the same survey, so a rank can move while nothing changed at the station. When objects were added, removed or rejected at a station, its move is not called better or worse: the Move column says which objects differ (a station that lost an object is not improved by it). When either side is an audit JSON, the sides are compared on results only (no readings, no Site items)."},
+		{"Rejected rows", "An Objects row rejected on either side (a typing error, a missing required reading) is not assessed on that side, so it is listed on the Rejected objects sheet, never as added or removed, and its station's rank leaves it out. compare then warns and exits with status 1, as assess does: see that side's audit and its Rejected sheet, or run 'sparkmargin check'."},
+		{"Assumed resistance", "A worst ratio or ratio shown as '" + assess.RatioAssumedText + "' is a spark energy set by an unmeasured resistance to earth taken as no leakage: at least the MIE, its size no figure to read or compare; measure the resistance to earth."},
 		{"Screening", "Both audits are screening estimates: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."},
 	}
 }
@@ -397,7 +413,9 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		k string
 		n int
 	}{{"Site items changed", len(c.SiteChanges)}, {"Station settings changed", len(c.StationChanges)}, {"Objects added", len(c.Added)}, {"Objects removed", len(c.Removed)},
-		{"Objects changed", len(c.Changed)}, {"Object verdicts changed", countVerdictChanges(c)}, {"Stations whose rank or verdict moved", len(c.Stations)}} {
+		{"Object rows rejected in OLD (not compared)", len(c.RejectedOld)}, {"Object rows rejected in NEW (not compared)", len(c.RejectedNew)},
+		{"Objects changed", len(c.Changed)}, {"Object verdicts changed", countVerdictChanges(c)}, {"Stations on both sides whose rank or verdict moved", c.StationsMoved()},
+		{"Stations only in NEW", c.StationsAdded()}, {"Stations only in OLD", c.StationsRemoved()}} {
 		rows = append(rows, []audit.Cell{tx(kv.k), in(kv.n)})
 	}
 	r = b.Table(sh, r, []string{"What", "Count"}, []float64{30, 44, 44}, rows) + 1
@@ -428,7 +446,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		var rows [][]audit.Cell
 		for _, id := range ids {
 			o := byID[id]
-			rows = append(rows, []audit.Cell{tx(id), tx(o.Station), vd(o.Verdict), audit.RatioCell(o.Ratio)})
+			rows = append(rows, []audit.Cell{tx(id), tx(o.Station), vd(o.Verdict), ratioCell(o.Ratio, o.RatioAssumed)})
 		}
 		if len(rows) == 0 {
 			rows = append(rows, []audit.Cell{tx("none")})
@@ -438,6 +456,21 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	}
 	one(SheetAdded, c.Added, c.New)
 	one(SheetRemoved, c.Removed, c.Old)
+
+	rows = nil
+	for _, g := range []struct {
+		side string
+		rs   []RejectedObject
+	}{{"OLD", c.RejectedOld}, {"NEW", c.RejectedNew}} {
+		for _, x := range g.rs {
+			rows = append(rows, []audit.Cell{tx(g.side), tx(x.ID), tx(x.Station), in(x.Row), wr(x.Why), wr("rejected in " + g.side + ": see its audit / Rejected sheet; not compared, neither added nor removed")})
+		}
+	}
+	if len(rows) == 0 {
+		rows = append(rows, []audit.Cell{tx("none"), tx("no Objects row was rejected on either side")})
+	}
+	b.Table(SheetRejectedObjects, 1, []string{"Side", "ID", "Station", "Row", "Why rejected", "Note"}, []float64{8, 14, 12, 6, 50, 40}, rows)
+	b.PrintSetup(SheetRejectedObjects, "$1:$1")
 
 	rows = nil
 	for _, ch := range c.Changed {
@@ -453,7 +486,8 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 
 	rows = nil
 	for _, m := range c.Stations {
-		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter), audit.RatioCell(m.WorstRatioBefore), audit.RatioCell(m.WorstRatioAfter), ct(m.Move())}
+		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter),
+			ratioCell(m.WorstRatioBefore, m.WorstRatioAssumedBefore), ratioCell(m.WorstRatioAfter, m.WorstRatioAssumedAfter), wr(m.Move())}
 		if m.RankBefore > 0 {
 			row[2] = in(m.RankBefore)
 		}
@@ -465,7 +499,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	if len(rows) == 0 {
 		rows = append(rows, []audit.Cell{tx("none"), tx("no station's rank or verdict moved")})
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Worst ratio old [–]", "Worst ratio new [–]", "Move"}, []float64{10, 28, 9, 9, 14, 14, 11, 11, 24}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Worst ratio old [–]", "Worst ratio new [–]", "Move"}, []float64{10, 28, 9, 9, 14, 14, 16, 16, 40}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 
 	// Method: both identities, the warnings, what compare does and does not say.
@@ -482,24 +516,58 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	r++
 	b.Put(m, 1, r, audit.SectionCell("Warnings of this comparison"))
 	r++
-	rows = nil
+	var notes [][2]string
 	for _, k := range c.Cautions {
-		rows = append(rows, []audit.Cell{ct(string(k.Kind)), wr(k.Text)})
+		notes = append(notes, [2]string{string(k.Kind), k.Text})
 	}
-	if len(rows) == 0 {
-		rows = append(rows, []audit.Cell{tx("none"), wr("Same site, OLD dated before NEW, two different files.")})
+	if len(notes) == 0 {
+		notes = append(notes, [2]string{"none", "Same site, OLD dated before NEW, two different files."})
 	}
-	r = b.Table(m, r, []string{"Warning", "What it means"}, nil, rows) + 1
+	r = methodNotes(b, m, r, []string{"Warning", "What it means"}, notes) + 1
 	b.Put(m, 1, r, audit.SectionCell("What compare does and does not say"))
 	r++
-	rows = nil
-	for _, n := range compareNotes() {
-		rows = append(rows, []audit.Cell{tx(n[0]), wr(n[1])})
-	}
-	b.Table(m, r, []string{"Topic", "Note"}, nil, rows)
+	methodNotes(b, m, r, []string{"Topic", "Note"}, compareNotes())
 	b.PrintSetup(m, "")
 	b.AddCautionsSheet()
 	return b.write(w)
+}
+
+// methodNotes writes a two-column table of notes at row r of the compare
+// Method sheet, whose columns are the identity table's (30 | 44 | 44): each
+// note spans columns B and C, wrapped, its row as tall as its lines (no cap:
+// the note is read in print). It returns the row after the table.
+func methodNotes(b *rerunBook, sh string, r int, headers []string, rows [][2]string) int {
+	r = b.Table(sh, r, headers, []float64{30, 44, 44}, nil)
+	const noteWidth = 44 + 44
+	for _, row := range rows {
+		b.Put(sh, 1, r, wr(row[0]))
+		b.Put(sh, 2, r, wr(row[1]))
+		b.check(b.f.MergeCell(sh, fmt.Sprintf("B%d", r), fmt.Sprintf("C%d", r)))
+		if h := notesHeight(row[1], noteWidth); h > 0 {
+			b.check(b.f.SetRowHeight(sh, r, h))
+		}
+		r++
+	}
+	return r
+}
+
+// notesHeight is the height in points of a wrapped note of width characters,
+// at most a sheet row's maximum (409 points); 0 for one line.
+func notesHeight(s string, width float64) float64 {
+	n := book.WrappedLines(s, width)
+	if n <= 1 {
+		return 0
+	}
+	return min(book.LineHeight*float64(n)+2, 409)
+}
+
+// ratioCell is a ratio cell, the assumed-resistance text instead of the
+// number when the ratio rests on an assumed resistance to earth.
+func ratioCell(r *float64, assumed bool) audit.Cell {
+	if assumed {
+		return ct(assess.RatioAssumedText)
+	}
+	return audit.RatioCell(r)
 }
 
 // identityTable writes both sides' identity at row r of sheet sh (Item | Old |
@@ -519,10 +587,10 @@ func identityTable(b *rerunBook, sh string, r int, c *Comparison) int {
 		{"Site", o.SiteText(), n.SiteText()},
 		{"Site ID", o.SiteID, n.SiteID},
 		{"Survey date", o.DateText(), n.DateText()},
-		{"SHA-256 of the file", o.SHA256, n.SHA256},
-		{"SHA-256 of the survey behind the JSON", o.SurveySHA256, n.SurveySHA256},
+		{"SHA-256 of the survey", o.SHA256, n.SHA256},
+		{"SHA-256 of the audit JSON file", o.FileSHA256, n.FileSHA256},
 	} {
-		if kv[0] == "SHA-256 of the survey behind the JSON" && kv[1] == "" && kv[2] == "" {
+		if kv[0] == "SHA-256 of the audit JSON file" && kv[1] == "" && kv[2] == "" {
 			continue
 		}
 		rows = append(rows, []audit.Cell{tx(kv[0]), wr(kv[1]), wr(kv[2])})
