@@ -503,9 +503,9 @@ func rowCause(r *assess.ObjectResult) ([]string, ClearanceCause) {
 func setterText(r *assess.ObjectResult) string {
 	t := r.Verdict.String()
 	if r.Ratio != nil && r.Eval.Effective != model.NoDischarge {
-		t += fmt.Sprintf(", %s, ratio %s", dischargeWords(r.Eval.Effective), fmtSig(*r.Ratio))
+		t += fmt.Sprintf(", %s, ratio %s", dischargeWords(r.Eval.Effective), sigOrAssumed(*r.Ratio, r.RatioAssumed()))
 	} else if r.Ratio != nil {
-		t += fmt.Sprintf(", ratio %s", fmtSig(*r.Ratio))
+		t += fmt.Sprintf(", ratio %s", sigOrAssumed(*r.Ratio, r.RatioAssumed()))
 	}
 	if x := r.Input.Resistance; !math.IsNaN(x) && !r.Eval.Earthed && isConductorSpark(r) {
 		t += "; not earthed: resistance to earth " + strings.Replace(fmt.Sprintf("%.1e", x), "e+", "e", 1) + " Ω measured"
