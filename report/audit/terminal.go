@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"io"
 	"strings"
-	"text/tabwriter"
+	"unicode/utf8"
 
 	"github.com/sparkmargin/sparkmargin/report/assess"
 	"github.com/sparkmargin/sparkmargin/report/book"
@@ -53,47 +53,69 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 		stations, more = stations[:top], len(stations)-top
 	}
 	sampled := a.Options.Samples > 0
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	header := "Rank\tStation\tVerdict\tWorst ratio E/MIE\tObjects\tIncendive\tMarginal\tNon-incendive\tNot assessed"
+	// Five short columns, then each station's main reason on a line of its
+	// own under the station, and its notes (incomplete, ranked on an
+	// assumption) as numbered notes under the table: the table fits a
+	// 100-column terminal.
+	header := []string{"Rank", "Station", "Verdict", "Worst E/MIE"}
 	if sampled {
-		header += "\tP(any incendive)"
+		header = append(header, "P(any incendive)")
 	}
-	noted := false // a Note column only when a shown station has one (incomplete, or ranked on an assumed resistance)
-	for i := range stations {
-		noted = noted || len(stations[i].Notes()) > 0
-	}
-	if noted {
-		header += "\tNote"
-	}
-	header += "\tMain reason"
-	fmt.Fprintln(tw, header)
+	header = append(header, "Objects (incendive/marginal/non-incendive/not assessed)")
+	rows := [][]string{header}
+	var reasons, notes []string
 	for i := range stations {
 		s := &stations[i]
 		name := s.Station.ID
 		if s.Station.Name != "" {
-			name += " " + s.Station.Name
+			name = shorten(name+" "+s.Station.Name, stationRunes)
 		}
 		ratio := stationRatioText(s) // never a 0 beside a verdict: "no discharge", "n/a"
 		if ratio == "" {
 			ratio = book.FormatRatio(book.FinitePtr(s.WorstRatio))
 		}
-		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%d\t%d\t%d\t%d", s.Rank, name, s.Verdict, ratio,
-			len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed])
+		if n := s.Notes(); len(n) > 0 {
+			notes = append(notes, fmt.Sprintf("[%d] %s: %s", len(notes)+1, s.Station.ID, strings.Join(n, "; ")))
+			ratio += fmt.Sprintf(" [%d]", len(notes))
+		}
+		row := []string{fmt.Sprint(s.Rank), name, s.Verdict.String(), ratio}
 		if sampled {
 			p := "–"
 			if s.ProbabilityAnyIncendive != nil {
 				p = fmt.Sprintf("%.3f", *s.ProbabilityAnyIncendive)
 			}
-			fmt.Fprint(tw, "\t"+p)
+			row = append(row, p)
 		}
-		if noted {
-			fmt.Fprint(tw, "\t"+strings.Join(s.Notes(), "; "))
-		}
-		fmt.Fprint(tw, "\t"+shorten(s.Main.String(), mainReasonRunes))
-		fmt.Fprintln(tw)
+		row = append(row, fmt.Sprintf("%d (%d/%d/%d/%d)", len(s.Objects), s.Counts[assess.Incendive], s.Counts[assess.Marginal], s.Counts[assess.NonIncendive], s.Counts[assess.NotAssessed]))
+		rows = append(rows, row)
+		reasons = append(reasons, shorten(s.Main.String(), mainReasonRunes))
 	}
-	if err := tw.Flush(); err != nil {
-		return fmt.Errorf("write summary: %w", err)
+	width := make([]int, len(header))
+	for _, r := range rows {
+		for c, v := range r {
+			width[c] = max(width[c], utf8.RuneCountInString(v))
+		}
+	}
+	for k, r := range rows {
+		var b strings.Builder
+		for c, v := range r {
+			b.WriteString(v)
+			if c < len(r)-1 {
+				b.WriteString(strings.Repeat(" ", width[c]-utf8.RuneCountInString(v)+2))
+			}
+		}
+		if _, err := fmt.Fprintln(w, b.String()); err != nil {
+			return fmt.Errorf("write summary: %w", err)
+		}
+		if k > 0 && reasons[k-1] != "" {
+			fmt.Fprintln(w, strings.Repeat(" ", width[0]+2)+reasons[k-1])
+		}
+	}
+	if len(notes) > 0 {
+		fmt.Fprintln(w, "Notes:")
+		for _, n := range notes {
+			fmt.Fprintln(w, "  "+n)
+		}
 	}
 	if more > 0 {
 		fmt.Fprintf(w, "... %d more station(s) in the audit workbook's %s sheet\n", more, SheetStations)
@@ -102,8 +124,12 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 }
 
 // mainReasonRunes is how much of a station's main reason the terminal shows
-// (the whole text is on the Stations sheet).
-const mainReasonRunes = 90
+// under the station (the whole text is on the Stations sheet); stationRunes
+// how much of its ID and name.
+const (
+	mainReasonRunes = 92
+	stationRunes    = 32
+)
 
 // shorten cuts s to at most n runes, ending in "…" when cut.
 func shorten(s string, n int) string {
