@@ -72,6 +72,7 @@ func (wb *workbook) summary() error {
 	r++
 	ident := [][2]book.Cell{
 		{book.Text("Site"), book.Text(siteName(a))},
+		{book.Text("Site ID"), book.OptText(site.ID)},
 		{book.Text("Survey date"), book.Text(dateText(a))},
 		{book.Text("Surveyed by"), book.OptText(site.SurveyedBy)},
 		{book.Text(book.UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
@@ -82,6 +83,9 @@ func (wb *workbook) summary() error {
 		{book.Text("Tool"), book.Text(wb.info.tool() + " " + wb.info.ToolVersion)},
 	}
 	for _, kv := range ident {
+		if kv[0].V == "Site ID" && site.ID == "" {
+			continue // optional: no row when the survey gives none
+		}
 		kv[0].Bold = true
 		kv[1].Align = "left"
 		if err := sink.Row(r, []book.Cell{kv[0], kv[1]}, 0); err != nil {

@@ -351,6 +351,7 @@ type auditJSON struct {
 		SHA256 string `json:"sha256"`
 	} `json:"survey"`
 	Site struct {
+		ID              string   `json:"id"`
 		Name            string   `json:"name"`
 		SurveyDate      string   `json:"survey_date"`
 		SurveyedBy      string   `json:"surveyed_by"`
@@ -410,7 +411,7 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 		return nil, fmt.Errorf("%s: not an audit JSON: no \"objects\" nor \"stations\"", label)
 	}
 	sum := sha256.Sum256(data)
-	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SurveySHA256: d.Survey.SHA256, Results: true}}
+	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SiteID: d.Site.ID, SurveySHA256: d.Survey.SHA256, Results: true}}
 	if t, err := time.Parse("2006-01-02", d.Site.SurveyDate); err == nil {
 		s.Identity.SurveyDate = t
 	}
