@@ -421,7 +421,7 @@ func stationColumns(site inventory.Site, withProbability bool) []book.Column[sta
 			return siteHumidityCell(site)
 		}},
 		{Header: "Verdict", Width: 14, Value: func(s stationRow) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s stationRow) book.Cell { return stationRatioCell(s) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: ratioTextWidth, Value: func(s stationRow) book.Cell { return stationRatioCell(s) }},
 		{Header: "Main reason", Width: 40, Value: func(s stationRow) book.Cell { return book.WrapText(s.Main.String()) }},
 		{Header: "Objects [count]", Width: 9, Value: func(s stationRow) book.Cell { return book.Integer(len(s.Objects)) }},
 		{Header: "Incendive [count]", Width: 10, Value: count(assess.Incendive)},
@@ -813,3 +813,7 @@ func setDocProps(f *excelize.File, a *assess.Audit, info RunInfo) error {
 	}
 	return nil
 }
+
+// ratioTextWidth is the width of a ratio column: wide enough for the longest
+// ratio text, ">= 1 (assumed R)", printed whole.
+const ratioTextWidth = 17
