@@ -400,10 +400,8 @@ func (wb *workbook) method() error {
 		if !used[strings.ToLower(m.Name)] {
 			continue
 		}
+		// A survey material's Source already names its sheet and row.
 		src := m.Source
-		if !m.BuiltIn {
-			src = fmt.Sprintf("survey Materials sheet, row %d: %s", m.Row, m.Source)
-		}
 		if err := put(book.Text(m.Name), book.Text(m.Class), book.Quantity(book.UnitOhmSq, m.SurfaceResistivity), book.Quantity(book.UnitDimless, m.HumiditySlope), book.WrapText(src)); err != nil {
 			return err
 		}
