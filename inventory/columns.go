@@ -178,7 +178,7 @@ var materialColumns = []Column{
 	{Name: "Name", Dim: Text, Hint: "Unique; a built-in name here overrides the built-in values"},
 	{Name: "Class", Dim: Text, List: ListMaterialClass, Hint: "conductive, dissipative or insulating"},
 	{Name: "Relative permittivity", Dim: Dimensionless, Hint: "epsr"},
-	{Name: "Surface resistivity", Unit: "Ω", Dim: Resistance, Hint: "At 50 % RH (ohm per square)"},
+	{Name: "Surface resistivity", Unit: "Ω/sq", Dim: Resistance, Hint: "At 50 % RH (ohm per square; a header in [Ω] is read the same)"},
 	{Name: "Humidity slope", Unit: "decades per 10 %RH", Dim: Slope, Hint: "How fast log10 of surface resistivity falls with RH (0 for hydrophobic plastics)"},
 	{Name: "Volume resistivity", Unit: "Ω·m", Dim: Resistivity, Hint: "Bulk resistivity (powders, thick parts)"},
 	{Name: "Breakdown strength", Unit: "kV/mm", Dim: ElectricField, Hint: "Dielectric strength of the layer"},

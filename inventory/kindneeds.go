@@ -54,10 +54,19 @@ func cols(groups ...[]ColumnNeed) []ColumnNeed {
 	return out
 }
 
+// surfaceExtras are the optional columns of an insulating surface (sheet, belt,
+// a roller assessed as a surface): Charging time (how long a dissipative
+// surface charges before it leaves the zone, and a conducting surface's
+// charging), Layer breakdown (a measured breakdown of a backed or double layer,
+// else the material's strength), Process (what the surface is: process material
+// or fixed equipment; pneumatic conveying for a double layer).
+var surfaceExtras = []ColumnNeed{{"Charging time", Optional}, {"Layer breakdown", Optional}, {"Process", Optional}}
+
 var sheetNeeds = cols(
 	[]ColumnNeed{{"Material", Optional}, {"Length", Required}, {"Width", Required}, {"Thickness", Conditional}, {"Backing", Conditional}, {"Distance to earth", Conditional}},
 	readingAlternatives,
 	[]ColumnNeed{{"Resistance to earth", OneOf}},
+	surfaceExtras,
 )
 
 var kindNeedTable = []KindNeed{
@@ -65,24 +74,30 @@ var kindNeedTable = []KindNeed{
 		"Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed; a Surface potential alone also needs Backing earthed or Distance to earth (a warning)"},
 	{KindBelt, cols(sheetNeeds, []ColumnNeed{{"Speed", Optional}}),
 		"as sheet (Speed optional: it gives the charging current)"},
-	{KindRoller, cols([]ColumnNeed{{"Material", Optional}, {"Diameter", Required}}, readingAlternatives, []ColumnNeed{{"Resistance to earth", OneOf}}),
-		"Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth"},
-	{KindContainer, containerNeeds,
-		"nothing beyond Kind and Station; Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass) and Resistance to earth are used when given; with no reading and no charging, a warning: the spark is not evaluated and the earthing is judged (a blank Resistance taken as not earthed)"},
+	{KindRoller, cols([]ColumnNeed{{"Material", Optional}, {"Diameter", Required}}, readingAlternatives, []ColumnNeed{{"Resistance to earth", OneOf}, {"Capacitance", Optional}}, surfaceExtras),
+		"Diameter, and a reading (Field with Field distance, or Surface potential) or Resistance to earth; Capacitance, Charging time, Layer breakdown and Process used when given"},
+	{KindContainer, cols(containerNeeds, containerOnlyNeeds),
+		"nothing beyond Kind and Station; Surface potential, its charging (Charging current, or Mass flow with Charge-to-mass; Charging time), Resistance to earth and Capacitance are used when given (Relative permittivity: of the container's insulating floor, with Diameter and Thickness); with no reading and no charging, a warning: the spark is not evaluated and the earthing is judged (a blank Resistance taken as not earthed)"},
 	{KindPart, containerNeeds, "as container"},
 	{KindPerson, []ColumnNeed{{"Surface potential", Optional}, {"Resistance to earth", Optional}},
 		"nothing beyond Kind and Station; with neither Surface potential nor Resistance to earth, a warning: taken as not earthed, the body potential estimated from walking (capped at the person maximum)"},
 	{KindPowder, []ColumnNeed{{"Mass flow", Optional}, {"Diameter", Optional}, {"Particle size", Optional}, {"Charge-to-mass", Optional}},
 		"nothing beyond Kind and Station; Mass flow, Diameter (silo or container) and Particle size blank are each a warning (the brush of the charged powder is counted whatever the flow; the cone discharge is not evaluated without Diameter and Particle size); Charge-to-mass optional"},
-	{KindLiquid, []ColumnNeed{{"Speed", Required}, {"Diameter", Required}, {"Conductivity", Optional},
+	{KindLiquid, []ColumnNeed{{"Speed", Required}, {"Diameter", Required}, {"Charging current", Optional},
+		{"Resistance to earth", Optional}, {"Capacitance", Optional}, {"Conductivity", Optional}, {"Relative permittivity", Optional},
 		{"Filling", Optional}, {"Vessel material", Optional}, {"Vessel class", Optional}, {"Vessel diameter", Conditional},
 		{"Filter", Optional}, {"Residence time", Conditional}, {"Second phase", Optional}, {"Inlet velocity", Conditional}},
-		"Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid); a blank transfer input (Vessel material, Vessel class, Filling, Filter, Second phase) is assessed as the stricter case with a warning"},
+		"Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid); a blank transfer input (Vessel material, Vessel class, Filling, Filter, Second phase) is assessed as the stricter case with a warning; Resistance to earth and Capacitance are the receiving vessel's (blank: not earthed, the Vessel class's typical capacitance), Relative permittivity the liquid's (blank: the substance list's, else 2, marked), Charging current used when measured"},
 	{KindBag, []ColumnNeed{{"Station", Conditional}, {"Bag type", Optional}},
 		"a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
 }
 
-var containerNeeds = []ColumnNeed{{"Surface potential", Optional}, {"Mass flow", Optional}, {"Charge-to-mass", Optional}, {"Charging current", Optional}, {"Resistance to earth", Optional}, {"Capacitance", Optional}}
+var containerNeeds = []ColumnNeed{{"Surface potential", Optional}, {"Mass flow", Optional}, {"Charge-to-mass", Optional}, {"Charging current", Optional}, {"Charging time", Optional}, {"Resistance to earth", Optional}, {"Capacitance", Optional}}
+
+// containerOnlyNeeds: a container's capacitance is estimated as a plate over its
+// base when Diameter and Thickness (of an insulating floor or liner) are given;
+// Relative permittivity is that layer's (blank: 2, marked).
+var containerOnlyNeeds = []ColumnNeed{{"Relative permittivity", Optional}}
 
 // KindNeeds returns the per-kind needs (a copy of the one table).
 func KindNeeds() []KindNeed {

@@ -181,3 +181,37 @@ func TestTemplateHighlightsAndWholeColumns(t *testing.T) {
 		t.Errorf("Length highlight %q names roller, which does not need it", rules[0].Criteria)
 	}
 }
+
+// TestKindNeedsNameWhatTheModelReads: the table marks as used the columns the
+// model reads for each kind. Source: model/evaluate.go (evalLiquid reads the
+// receiving vessel's Resistance and Capacitance, the liquid's Permittivity and a
+// measured ChargingCurrent; evalSurface reads ChargingTime, LayerBreakdown and
+// Process; evalConductor, for containers and parts, ChargingTime; the plate
+// capacitance of a container its layer's Permittivity).
+func TestKindNeedsNameWhatTheModelReads(t *testing.T) {
+	used := map[string][]string{
+		KindLiquid:    {"Resistance to earth", "Capacitance", "Relative permittivity", "Charging current"},
+		KindSheet:     {"Charging time", "Layer breakdown", "Process"},
+		KindBelt:      {"Charging time", "Layer breakdown", "Process"},
+		KindRoller:    {"Charging time", "Layer breakdown", "Process", "Capacitance"},
+		KindContainer: {"Charging time", "Relative permittivity", "Capacitance"},
+		KindPart:      {"Charging time"},
+	}
+	for kind, columns := range used {
+		for _, c := range columns {
+			if n := kindColumnNeed(kind, c); n == NotNeeded {
+				t.Errorf("%s: %s marked not needed, but the model reads it", kind, c)
+			}
+		}
+	}
+	// Each of the four columns appears on the help sheet.
+	on := map[string]bool{}
+	for _, c := range kindNeedColumns() {
+		on[c.Name] = true
+	}
+	for _, c := range []string{"Charging time", "Relative permittivity", "Layer breakdown", "Process"} {
+		if !on[c] {
+			t.Errorf("the kind-needs sheet has no %s column", c)
+		}
+	}
+}

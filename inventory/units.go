@@ -441,7 +441,7 @@ func (e *QuantityError) DescribeFor(col string) string {
 	case errors.Is(e.Err, ErrWrongDimension):
 		return fmt.Sprintf("%q has the dimension of %s but %s needs a %s", e.Text, e.UnitDim, col, want)
 	case errors.Is(e.Err, ErrAmbiguousUnit):
-		return fmt.Sprintf("%q is ambiguous: %q could be %s, or %s; %s needs a %s, so write its unit in full",
+		return fmt.Sprintf("%q is ambiguous: %q could be %s, or %s; %s needs a %s",
 			e.Text, strings.TrimSpace(e.Unit), e.Readings[0], e.Readings[1], col, want)
 	case errors.Is(e.Err, ErrUnknownUnit):
 		return fmt.Sprintf("%q: unit %q is not known; %s needs a %s", e.Text, e.Unit, col, want)

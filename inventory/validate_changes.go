@@ -138,6 +138,23 @@ func LookupChangeKind(code string) (ChangeKind, bool) {
 // FlagArg is the change as a flag takes it: "55" or "TARGET=VALUE".
 func (k ChangeKind) FlagArg() string { return k.Example }
 
+// exampleFor is the flag example an error hint gives: on the user's own target
+// when there is one, else on a placeholder (OBJECT-ID, STATION-ID), never on the
+// demo survey's IDs of the table's Example, which a user's survey does not have.
+func (k ChangeKind) exampleFor(target string) string {
+	ex := k.Example
+	if _, value, ok := strings.Cut(ex, "="); ok && k.Targets != TargetSite {
+		if target == "" {
+			target = "OBJECT-ID"
+			if k.Targets == TargetStation {
+				target = "STATION-ID"
+			}
+		}
+		ex = target + "=" + value
+	}
+	return "--" + k.Code + " " + ex
+}
+
 // Usage is the kind's help line with its example: "a station's relative humidity in %, e.g. --station-rh ST-UNW=60".
 func (k ChangeKind) Usage() string {
 	return fmt.Sprintf("%s, e.g. --%s %s", k.Help, k.Code, k.Example)
@@ -202,7 +219,7 @@ func ParseChange(code, target, value string) (PlannedChange, error) {
 		}
 	case TargetStation:
 		if t == "" || (isStation && st == "") {
-			return fail("Target", ErrChangeSyntax, fmt.Sprintf("give a station ID, e.g. --%s %s", k.Code, k.Example), "change %s needs a station", k.Code)
+			return fail("Target", ErrChangeSyntax, fmt.Sprintf("give a station ID, e.g. %s", k.exampleFor("")), "change %s needs a station", k.Code)
 		}
 		p.Station = t
 		if isStation {
@@ -210,7 +227,7 @@ func ParseChange(code, target, value string) (PlannedChange, error) {
 		}
 	case TargetObject:
 		if t == "" || (isStation && st == "") {
-			return fail("Target", ErrChangeSyntax, fmt.Sprintf("give an object ID or station:ID, e.g. --%s %s", k.Code, k.Example), "change %s needs a target", k.Code)
+			return fail("Target", ErrChangeSyntax, fmt.Sprintf("give an object ID or station:ID, e.g. %s", k.exampleFor("")), "change %s needs a target", k.Code)
 		}
 		if isStation {
 			p.Station = st
@@ -219,7 +236,7 @@ func ParseChange(code, target, value string) (PlannedChange, error) {
 		}
 	}
 	if p.Value == "" {
-		return fail("Value", ErrChangeSyntax, fmt.Sprintf("write the new value, e.g. --%s %s", k.Code, k.Example), "the value is blank")
+		return fail("Value", ErrChangeSyntax, fmt.Sprintf("write the new value, e.g. %s", k.exampleFor(t)), "the value is blank")
 	}
 	if k.Dim == Text {
 		w := strings.Trim(p.Value, `"'`)
@@ -251,10 +268,10 @@ func ParseChange(code, target, value string) (PlannedChange, error) {
 		if errors.As(err, &qe) {
 			msg = qe.DescribeFor("the " + k.Code + " change")
 		}
-		return p, &ChangeProblem{Field: "Value", Message: msg, Fix: fmt.Sprintf("write e.g. --%s %s", k.Code, k.Example), Err: fmt.Errorf("%w: %w", ErrBadChangeValue, err)}
+		return p, &ChangeProblem{Field: "Value", Message: msg, Fix: fmt.Sprintf("write e.g. %s", k.exampleFor(t)), Err: fmt.Errorf("%w: %w", ErrBadChangeValue, err)}
 	}
 	if !q.Known {
-		return fail("Value", ErrBadChangeValue, fmt.Sprintf("write e.g. --%s %s", k.Code, k.Example), "%q gives no value", p.Value)
+		return fail("Value", ErrBadChangeValue, fmt.Sprintf("write e.g. %s", k.exampleFor(t)), "%q gives no value", p.Value)
 	}
 	if k.Check != nil {
 		if msg, fix := k.Check(q.Value); msg != "" {

@@ -319,7 +319,7 @@ func limitTable() []LimitSpec {
 		refESDA, "material classes: dissipative 1e5 to < 1e12 Ω/sq; a surface below it, or of dissipative class, sparks when not earthed ("+reference(refTS32).Cite()+" principle: conductors must be earthed)", false,
 		func(l *Limits) *float64 { return &l.SparkSurface })
 	scalar("CoronaEnergy", "Corona: equivalent energy bound (counted only against an MIE below it)", "J", "mJ", "corona energy", "mJ", 0.1e-3,
-		refChoice, ": corona is below about 0.1-1 mJ and ignites only very sensitive gases such as hydrogen (below 1 mJ confirmed in the trade literature, the 0.1 mJ end and the hydrogen-only ignition from memory); the lower end is taken as its equivalent energy and compared only with an MIE below it, so IIA and IIB atmospheres (MIE ≥ 0.14 mJ for the usual gases) are not judged on corona", true,
+		refChoice, ": corona is below about 0.1-1 mJ and ignites only very sensitive gases such as hydrogen (below 1 mJ confirmed in the trade literature, the 0.1 mJ end and the hydrogen-only ignition from memory); the lower end is taken as its equivalent energy and compared only with an MIE below it, so only an atmosphere whose MIE is below it is judged on corona, whatever its group (ethylene, IIB, 0.07 mJ, is; most IIA and IIB gases and vapours are not)", true,
 		func(l *Limits) *float64 { return &l.CoronaEnergy })
 	scalar("CoatingThickness", "Coating on earthed metal exempt from the area limit up to (with breakdown at most 4 kV)", "m", "mm", "", "", 2e-3,
 		ref0, "coatings on earthed metal (IIA, IIB), with a breakdown voltage of at most 4 kV measured on the layer (the 4 kV condition confirmed in the 2017 foreword)", true,

@@ -73,7 +73,7 @@ func newAssessCmd(ws *outfile.Workspace) *cobra.Command {
 	c.Flags().Uint64Var(&o.seed, "seed", assess.DefaultSeed, "Monte Carlo seed, recorded on the Method sheet and in the JSON")
 	c.Flags().IntVar(&o.workers, "workers", 0, "Monte Carlo worker goroutines (0: all cores); results do not depend on it")
 	c.Flags().IntVar(&o.top, "top", 0, "print only the N worst stations, then how many more the workbook holds (0: all)")
-	c.Flags().BoolVarP(&o.quiet, "quiet", "q", false, "no station table: only the counts, the cautions and the files written (errors still printed)")
+	c.Flags().BoolVarP(&o.quiet, "quiet", "q", false, "no station table: only the counts, the survey rows line, the cautions and the files written (errors still printed); not with --top")
 	c.Flags().BoolVar(&o.force, "force", false, "write the audit workbook over an existing file that is not a sparkmargin audit (refused otherwise); an existing audit is always replaced, its actions carried over")
 	return c
 }
@@ -83,6 +83,9 @@ func newAssessCmd(ws *outfile.Workspace) *cobra.Command {
 func runAssess(out, errOut io.Writer, o assessOptions) error {
 	if o.top < 0 {
 		return withCode(exitUsage, fmt.Errorf("--top takes a count of 1 or more, or 0 for all stations (got %d)", o.top))
+	}
+	if o.top > 0 && o.quiet {
+		return withCode(exitUsage, fmt.Errorf("--top and --quiet do not go together: --top %d prints the worst stations, --quiet no station table; give one", o.top))
 	}
 	if o.survey != "" {
 		if fi, err := os.Stat(o.survey); err == nil && fi.IsDir() {

@@ -155,6 +155,26 @@ func TestCheckJSON(t *testing.T) {
 	}
 }
 
+// TestTemplateOutputFlag: template takes -o FILE as every other writer does,
+// as well as the positional FILE; giving the file both ways, or not at all, is a usage error.
+func TestTemplateOutputFlag(t *testing.T) {
+	dir := t.TempDir()
+	p := filepath.Join(dir, "blank.xlsx")
+	if code, _, errOut := runCLI(t, "template", "-o", p); code != exitOK {
+		t.Fatalf("template -o: exit %d: %s", code, errOut)
+	}
+	if _, err := os.Stat(p); err != nil {
+		t.Fatalf("template -o wrote nothing: %v", err)
+	}
+	q := filepath.Join(dir, "other.xlsx")
+	if code, _, _ := runCLI(t, "template", q, "-o", filepath.Join(dir, "third.xlsx")); code != exitUsage {
+		t.Errorf("template FILE -o FILE: exit %d, want %d", code, exitUsage)
+	}
+	if code, _, _ := runCLI(t, "template"); code != exitUsage {
+		t.Errorf("template without a file: exit %d, want %d", code, exitUsage)
+	}
+}
+
 // TestTemplateRoundTrip writes the template, fills one valid row per sheet, and checks it.
 func TestTemplateRoundTrip(t *testing.T) {
 	dir := t.TempDir()

@@ -178,7 +178,7 @@ func TestRerunExitCodes(t *testing.T) {
 		{"unknown ID", []string{"whatif", survey, "--earth", "BAG-CUU=1e6", "-o", out}, 2, `did you mean "BAG-CU"?`},
 		{"wrong unit", []string{"whatif", survey, "--earth", "BAG-CU=5 kV", "-o", out}, 2, "dimension of potential"},
 		{"bad syntax", []string{"whatif", survey, "--station-rh", "60", "-o", out}, 2, "not TARGET=VALUE"},
-		{"value with a space", []string{"whatif", survey, "--earth", "BAG-CU=5", "kV", "-o", out}, 2, `a change value with a space must be quoted, e.g. --earth "DRM-DRUM=5 kV"`},
+		{"value with a space", []string{"whatif", survey, "--earth", "BAG-CU=5", "kV", "-o", out}, 2, `a change value with a space must be quoted, e.g. --earth "OBJECT-ID=5 kV"`},
 		{"ambiguous unit", []string{"whatif", survey, "--earth", "BAG-CU=1M", "-o", out}, 2, "mega, with its unit left out (write MΩ), or metres (write m)"},
 		{"sweep rh ambiguous", []string{"sweep", survey, "--rh", "10:90:5K"}, 2, "kilo"},
 		{"overwrite survey", []string{"whatif", survey, "--rh", "50", "-o", survey}, 2, "it is the survey itself"},

@@ -12,24 +12,36 @@ import (
 )
 
 type templateOptions struct {
-	ws    *outfile.Workspace
-	path  string
-	force bool
+	ws     *outfile.Workspace
+	path   string
+	output string // -o, the same file as the positional argument
+	force  bool
 }
 
 func newTemplateCmd(ws *outfile.Workspace) *cobra.Command {
 	o := templateOptions{ws: ws}
 	c := &cobra.Command{
-		Use:   "template FILE.xlsx",
+		Use:   "template FILE.xlsx | -o FILE.xlsx",
 		Short: "Write a blank survey workbook to fill in on the floor",
 		Long: "template writes a blank line-survey workbook: the sheets Site, Atmospheres, Stations, Objects and\n" +
-			"Materials, with units in the headers, an input hint on every header and drop-down lists.",
-		Args: cobra.ExactArgs(1),
+			"Materials, with units in the headers, an input hint on every header and drop-down lists.\n" +
+			"The file is given as the argument or with -o, as for every other writer; not both.",
+		Args: cobra.MaximumNArgs(1),
 		RunE: func(c *cobra.Command, args []string) error {
-			o.path = args[0]
+			switch {
+			case len(args) == 1 && o.output != "":
+				return withCode(exitUsage, fmt.Errorf("template: the file is given twice (%s and -o %s): give it once", args[0], o.output))
+			case len(args) == 1:
+				o.path = args[0]
+			case o.output != "":
+				o.path = o.output
+			default:
+				return withCode(exitUsage, fmt.Errorf("template: name the file to write (template FILE.xlsx or template -o FILE.xlsx)"))
+			}
 			return runTemplate(c.OutOrStdout(), o)
 		},
 	}
+	c.Flags().StringVarP(&o.output, "output", "o", "", "blank survey workbook to write (the same as the FILE argument)")
 	c.Flags().BoolVarP(&o.force, "force", "f", false, "overwrite FILE if it exists")
 	return c
 }

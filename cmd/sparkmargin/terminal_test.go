@@ -33,7 +33,7 @@ func TestAssessTopAndQuiet(t *testing.T) {
 	}{
 		{"top 1", []string{"--top", "1"}, 1, []string{"... " + itoa(rows-1) + " more station(s)"}, false},
 		{"quiet", []string{"--quiet"}, 0, nil, true},
-		{"quiet short", []string{"-q", "--top", "2"}, 0, nil, true},
+		{"quiet short", []string{"-q"}, 0, []string{"Survey rows: "}, true},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
@@ -54,6 +54,10 @@ func TestAssessTopAndQuiet(t *testing.T) {
 				t.Errorf("quiet output holds the station table:\n%s", out)
 			}
 		})
+	}
+	// --top and --quiet contradict each other: a usage error naming both.
+	if code, _, errOut := runCLI(t, "assess", demo, "-q", "--top", "2"); code != exitUsage || !strings.Contains(errOut, "--quiet") {
+		t.Errorf("-q --top 2: exit %d, stderr %q; want a usage error naming --top and --quiet", code, errOut)
 	}
 	if code, _, errOut := runCLI(t, "assess", demo, "--top", "-1"); code != exitUsage || !strings.Contains(errOut, "--top") {
 		t.Errorf("--top -1: exit %d, stderr %q; want a usage error naming --top", code, errOut)

@@ -92,7 +92,7 @@ func whatifArgs(c *cobra.Command, args []string) error {
 	case len(args) == 0:
 		return fmt.Errorf("give the survey: sparkmargin whatif SURVEY.xlsx --rh 55 -o whatif.xlsx")
 	case len(args) > 1:
-		return fmt.Errorf("%q follows the survey %q: a change value with a space must be quoted, e.g. --earth \"DRM-DRUM=5 kV\" (or written without the space, DRM-DRUM=5kV); whatif takes one survey",
+		return fmt.Errorf("%q follows the survey %q: a change value with a space must be quoted, e.g. --earth \"OBJECT-ID=5 kV\" (or written without the space, OBJECT-ID=5kV); whatif takes one survey",
 			strings.Join(args[1:], " "), args[0])
 	}
 	return nil

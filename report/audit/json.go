@@ -65,6 +65,9 @@ type jsonSurvey struct {
 }
 
 type jsonSite struct {
+	// ID is the optional Site ID item ("" when not given): compare and the
+	// portfolio group repeat surveys of one site by it.
+	ID                  string   `json:"id"`
 	Name                string   `json:"name"`
 	SurveyDate          string   `json:"survey_date"`
 	SurveyedBy          string   `json:"surveyed_by"`
@@ -334,6 +337,7 @@ func jsonDoc(a *assess.Audit, info RunInfo, used map[string]bool) jsonAudit {
 		Survey:   jsonSurvey{info.file(a), info.sha(a)},
 		Workbook: workbookRecord(info),
 		Site: jsonSite{
+			ID:                  s.Site.ID,
 			Name:                s.Site.Name,
 			SurveyedBy:          s.Site.SurveyedBy,
 			RelativeHumidityPct: book.Finite(s.Site.RelativeHumidity.OrNaN()),

@@ -33,7 +33,7 @@ type limitRow struct {
 func limitRows(applied model.Limits) []limitRow {
 	var out []limitRow
 	for _, s := range model.LimitTable() {
-		out = append(out, limitRow{name: s.Label, value: s.Value(applied), def: s.Default, unit: displayUnit(s.Display),
+		out = append(out, limitRow{name: s.Label, value: s.Value(applied), def: s.Default, unit: limitUnit(s),
 			source: s.Source(), fromMemory: s.FromMemory, siteItem: s.SiteItem})
 	}
 	return out
@@ -108,9 +108,21 @@ func verifyRows(a *assess.Audit, used map[string]bool) []verifyRow {
 }
 
 // displayUnits are the units the limit table shows limits in.
-var displayUnits = []book.Unit{book.UnitDimless, book.UnitVolt, book.UnitMJ, book.UnitUCPerM2, book.UnitKVPerM, book.UnitNC,
+var displayUnits = []book.Unit{book.UnitDimless, book.UnitVolt, book.UnitKV, book.UnitMetre, book.UnitMJ, book.UnitUCPerM2, book.UnitKVPerM, book.UnitNC,
 	book.UnitUA, book.UnitOhm, book.UnitOhmM, book.UnitSecond, book.UnitMillimetre, book.UnitCM2, book.UnitMPerS,
 	book.UnitUCPerKg, book.UnitPSPerM, book.UnitM2PerS, book.UnitCubicMetre, book.UnitPF}
+
+// limitUnit is the unit the Method sheet shows a limit in: the practical unit
+// of the Site item that overrides it, so that the value applied and the Site
+// item read alike (kV, m), else the table's display unit.
+func limitUnit(s model.LimitSpec) book.Unit {
+	if s.SiteUnit != "" {
+		if u := displayUnit(s.SiteUnit); u != book.UnitDimless {
+			return u
+		}
+	}
+	return displayUnit(s.Display)
+}
 
 // displayUnit is the audit unit of a limit table row's display unit (its label).
 func displayUnit(label string) book.Unit {
@@ -388,10 +400,8 @@ func (wb *workbook) method() error {
 		if !used[strings.ToLower(m.Name)] {
 			continue
 		}
+		// A survey material's Source already names its sheet and row.
 		src := m.Source
-		if !m.BuiltIn {
-			src = fmt.Sprintf("survey Materials sheet, row %d: %s", m.Row, m.Source)
-		}
 		if err := put(book.Text(m.Name), book.Text(m.Class), book.Quantity(book.UnitOhmSq, m.SurfaceResistivity), book.Quantity(book.UnitDimless, m.HumiditySlope), book.WrapText(src)); err != nil {
 			return err
 		}

@@ -245,7 +245,7 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 		)
 	}
 	cols = append(cols, []book.Column[objRow]{
-		{Header: book.UnitRatio.Header("Ratio E/MIE"), Width: 10, Value: func(o objRow) book.Cell {
+		{Header: book.UnitRatio.Header("Ratio E/MIE"), Width: ratioTextWidth, Value: func(o objRow) book.Cell {
 			if o.RatioAssumed() {
 				return book.Text(assess.RatioAssumedText) // beside "at least the MIE": no figure to read
 			}

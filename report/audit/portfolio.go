@@ -496,6 +496,7 @@ func WritePortfolio(w io.Writer, p Portfolio, info RunInfo) error {
 		}
 	}
 	sites, stations := p.Sites(), p.Stations()
+	wb.footerDate = portfolioFooterDate(sites)
 	count := func(c map[assess.Verdict]int, v assess.Verdict) book.Cell { return book.Integer(c[v]) }
 	siteCols := []book.Column[RankedSite]{
 		{Header: "Rank", Width: 6, Value: func(s RankedSite) book.Cell { return rankCell(s.Rank, s.Shared) }},
@@ -613,6 +614,31 @@ func prev(s RankedSite, f func(EarlierSurvey) book.Cell) book.Cell {
 	return f(s.Earlier[0])
 }
 
+// portfolioFooterDate is the page footer's date of a portfolio: the latest
+// survey date of every ranked site, as one date or the span of them.
+func portfolioFooterDate(sites []RankedSite) string {
+	var first, last time.Time
+	for _, s := range sites {
+		d := s.SurveyDate
+		if d.IsZero() {
+			continue
+		}
+		if first.IsZero() || d.Before(first) {
+			first = d
+		}
+		if last.IsZero() || d.After(last) {
+			last = d
+		}
+	}
+	switch {
+	case last.IsZero():
+		return "Survey dates not given"
+	case first.Equal(last):
+		return "Survey date " + dateOf(last)
+	}
+	return "Latest survey dates " + dateOf(first) + " to " + dateOf(last)
+}
+
 // trendRow is one survey on the Trend sheet.
 type trendRow struct {
 	label, role string
@@ -634,7 +660,9 @@ func trendRows(sites []RankedSite) []trendRow {
 			if e.SurveyDate.IsZero() {
 				role = "draft (no date): not ranked"
 			}
-			out = append(out, trendRow{s.Label, role, s.Rank, s.Shared, e.PortfolioSurvey, e.Verdict, e.WorstRatio, e.WorstRatioAssumed})
+			// An earlier survey is labelled with its own date, not the latest's.
+			label := siteLabel(e.PortfolioSurvey) + " (" + e.dateText() + ")"
+			out = append(out, trendRow{label, role, s.Rank, s.Shared, e.PortfolioSurvey, e.Verdict, e.WorstRatio, e.WorstRatioAssumed})
 		}
 	}
 	return out

@@ -200,6 +200,25 @@ func TestPortfolioRepeatSurveys(t *testing.T) {
 	if tr := rowsOf(t, f, PortfolioTrend); len(tr) != 6 {
 		t.Errorf("Trend sheet: %d rows, want the 5 surveys", len(tr)-1)
 	}
+	// Each Trend row is labelled with its own survey's date (c2-2025's row with
+	// 2025-02-10, not its site's latest 2026-02-10).
+	tr := rowsOf(t, f, PortfolioTrend)
+	tsite, tdate := colIndex(t, tr[0], "Site"), colIndex(t, tr[0], "Survey date")
+	for _, r := range tr[1:] {
+		if !strings.Contains(r[tsite], "("+r[tdate]) {
+			t.Errorf("Trend row %q labelled with another survey's date (its own: %s)", r[tsite], r[tdate])
+		}
+	}
+	// Page footers give the ranked surveys' date (all three latest on 2026-02-10), not "not given".
+	for _, sh := range []string{PortfolioSummary, PortfolioSites, PortfolioTrend} {
+		hf, err := f.GetHeaderFooter(sh)
+		if err != nil || !strings.Contains(hf.OddFooter, "Survey date 2026-02-10") {
+			t.Errorf("%s footer %q (%v), want the surveys' date 2026-02-10", sh, hf.OddFooter, err)
+		}
+	}
+	if got := portfolioFooterDate([]RankedSite{{PortfolioSurvey: &PortfolioSurvey{SurveyDate: d(2025)}}, {PortfolioSurvey: &PortfolioSurvey{SurveyDate: d(2026)}}}); got != "Latest survey dates 2025-02-10 to 2026-02-10" {
+		t.Errorf("footer date of two sites %q", got)
+	}
 	var j bytes.Buffer
 	if err := WritePortfolioJSON(&j, p, testInfo()); err != nil {
 		t.Fatal(err)

@@ -222,6 +222,7 @@ func (wb *workbook) report() error {
 	}
 	ident := [][2]string{
 		{"Site", siteName(a)},
+		{"Site ID", site.ID},
 		{"Survey date", dateText(a)},
 		{"Surveyed by", site.SurveyedBy},
 		{"Scope", site.SignOff.Scope},

@@ -13,7 +13,7 @@ import (
 )
 
 // summaryWidths are the Summary column widths: A labels, A-J the ranked stations table.
-func summaryWidths() []float64 { return []float64{22, 12, 26, 14, 12, 9, 10, 10, 11, 10} }
+func summaryWidths() []float64 { return []float64{22, 12, 26, 14, ratioTextWidth, 9, 10, 10, 11, 10} }
 
 // summaryMainWidth is the width of the station table's Main reason column (K).
 const summaryMainWidth = 40
@@ -72,6 +72,7 @@ func (wb *workbook) summary() error {
 	r++
 	ident := [][2]book.Cell{
 		{book.Text("Site"), book.Text(siteName(a))},
+		{book.Text("Site ID"), book.OptText(site.ID)},
 		{book.Text("Survey date"), book.Text(dateText(a))},
 		{book.Text("Surveyed by"), book.OptText(site.SurveyedBy)},
 		{book.Text(book.UnitPercentRH.Header("Relative humidity")), siteHumidityCell(site)},
@@ -82,6 +83,9 @@ func (wb *workbook) summary() error {
 		{book.Text("Tool"), book.Text(wb.info.tool() + " " + wb.info.ToolVersion)},
 	}
 	for _, kv := range ident {
+		if kv[0].V == "Site ID" && site.ID == "" {
+			continue // optional: no row when the survey gives none
+		}
 		kv[0].Bold = true
 		kv[1].Align = "left"
 		if err := sink.Row(r, []book.Cell{kv[0], kv[1]}, 0); err != nil {
@@ -210,15 +214,18 @@ func (wb *workbook) summary() error {
 			return err
 		}
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
-		if err := sink.Row(r, []book.Cell{book.WrapText("Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
+		caption := "Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
 			"Every station with a verdict is listed with it; a station whose ratio is \"no discharge\" (no discharge possible) or \"n/a\" (no flammable atmosphere: judged on shock and earthing alone; or not assessed) has no bar; " +
-			"\">= 1 (assumed)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth or the charging current is assumed, its size is no figure. A ratio below the axis is drawn at its bottom.")}, 0); err != nil {
+			"\">= 1 (assumed)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth or the charging current is assumed, its size is no figure. A ratio below the axis is drawn at its bottom."
+		if err := sink.Row(r, []book.Cell{book.WrapText(caption)}, 0); err != nil {
 			return err
 		}
 		if err := f.MergeCell(s, fmt.Sprintf("A%d", r), fmt.Sprintf("J%d", r)); err != nil {
 			return err
 		}
-		if err := f.SetRowHeight(s, r, 30); err != nil {
+		// The caption's own height, wrapped over the merged width, so that it is
+		// printed whole below the chart.
+		if err := f.SetRowHeight(s, r, wrappedHeight(caption, sum(summaryWidths()))); err != nil {
 			return err
 		}
 		r += 2

@@ -18,8 +18,9 @@ type SummaryOptions struct {
 	// Top > 0 prints only the Top worst-ranked stations, then a line saying
 	// how many more the workbook's Stations sheet holds.
 	Top int
-	// Quiet prints no station table, no Monte Carlo line, and the survey-rows
-	// line only when a row was rejected or warned about.
+	// Quiet prints no station table, no Monte Carlo line and no blank line
+	// before the counts; the counts and the survey-rows line are always printed.
+	// Top and Quiet do not go together (assess refuses both).
 	Quiet bool
 }
 
@@ -149,7 +150,10 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 		parts = append(parts, fmt.Sprintf("%d %s", a.Counts[v], v))
 		total += a.Counts[v]
 	}
-	fmt.Fprintf(w, "\nObjects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
+	if !quiet {
+		fmt.Fprintln(w) // a blank line after the station table
+	}
+	fmt.Fprintf(w, "Objects: %d (%s); findings: %d\n", total, strings.Join(parts, ", "), len(a.Findings))
 	if len(a.Findings) > maxRejectedRows {
 		fmt.Fprintf(w, "Findings sheet: the first %d of %d findings (a sheet holds %d rows); the audit JSON (--json) lists every finding\n", maxRejectedRows, len(a.Findings), book.MaxSheetRows)
 	}
@@ -183,9 +187,7 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 		if rej > 0 || len(a.Survey.Warnings()) > 0 {
 			line += " (see the Rejected sheet)"
 		}
-		if !quiet || rej > 0 || len(a.Survey.Warnings()) > 0 {
-			fmt.Fprintln(w, line)
-		}
+		fmt.Fprintln(w, line)
 		if problemBound(a.Survey) > maxRejectedRows {
 			if total, listed := ProblemsListed(a.Survey); total > listed {
 				fmt.Fprintf(w, "Rejected sheet: the first %d of %d problems (a sheet holds %d rows); the audit JSON (--json) and 'sparkmargin check' list every problem\n", listed, total, book.MaxSheetRows)

@@ -164,6 +164,9 @@ type workbook struct {
 	chartLabelCol, chartValueCol string
 	// heading is the page-header text before the sheet name; "" is the audit's.
 	heading string
+	// footerDate is the page footer's centre text; "" is "Survey date " and the
+	// audit's date (a portfolio gives its surveys' dates).
+	footerDate string
 	// methodNotes are extra sections of the Method sheet (a Book's); none in the audit.
 	methodNotes []MethodNotes
 	// actions are the site's actions carried from the previous audit (nil: a first run).
@@ -225,13 +228,17 @@ func (wb *workbook) printSetup(sheet string, pagesWide int, titleRows, titleCols
 	if len([]rune(site)) > 80 {
 		site = string([]rune(site)[:80]) + "…"
 	}
+	date := "Survey date " + dateText(wb.a)
+	if wb.footerDate != "" {
+		date = wb.footerDate
+	}
 	heading := "Electrostatic screening audit"
 	if wb.heading != "" {
 		heading = footerEscape(wb.heading)
 	}
 	if err := f.SetHeaderFooter(sheet, &excelize.HeaderFooterOptions{
 		OddHeader: "&L&8" + heading + ": &A&R&8" + footerEscape(wb.info.tool()+" "+wb.info.ToolVersion),
-		OddFooter: "&L&8" + site + "&C&8Survey date " + dateText(wb.a) + "&R&8Page &P of &N",
+		OddFooter: "&L&8" + site + "&C&8" + footerEscape(date) + "&R&8Page &P of &N",
 	}); err != nil {
 		return err
 	}
@@ -440,7 +447,7 @@ func stationColumns(site inventory.Site, withProbability bool) []book.Column[sta
 			return siteHumidityCell(site)
 		}},
 		{Header: "Verdict", Width: 14, Value: func(s stationRow) book.Cell { return verdictCell(s.Verdict) }},
-		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: 11, Value: func(s stationRow) book.Cell { return stationRatioCell(s) }},
+		{Header: book.UnitRatio.Header("Worst ratio E/MIE"), Width: ratioTextWidth, Value: func(s stationRow) book.Cell { return stationRatioCell(s) }},
 		{Header: "Main reason", Width: 40, Value: func(s stationRow) book.Cell { return book.WrapText(s.Main.String()) }},
 		{Header: "Objects [count]", Width: 9, Value: func(s stationRow) book.Cell { return book.Integer(len(s.Objects)) }},
 		{Header: "Incendive [count]", Width: 10, Value: count(assess.Incendive)},
@@ -862,3 +869,7 @@ func setDocProps(f *excelize.File, a *assess.Audit, info RunInfo) error {
 	}
 	return nil
 }
+
+// ratioTextWidth is the width of a ratio column: wide enough for the longest
+// ratio text, ">= 1 (assumed R)", printed whole.
+const ratioTextWidth = 17

@@ -84,7 +84,7 @@ func (u Unit) spec() unitSpec {
 	case UnitKgPerS:
 		return unitSpec{"kg/s", 1, 0, fmtWide3}
 	case UnitUCPerKg:
-		return unitSpec{"µC/kg", 1e-6, 0, fmtSci}
+		return unitSpec{"µC/kg", 1e-6, 0, fmtWide1}
 	case UnitPSPerM:
 		return unitSpec{"pS/m", 1e-12, 0, fmtSci}
 	case UnitM2PerS:
@@ -114,6 +114,7 @@ const (
 	fmtSci      = "0.0E+00"
 	fmtWide3    = `[=0]0;[<0.001]0.0E+00;0.000`
 	fmtWide2    = `[=0]0;[<0.01]0.0E+00;0.00`
+	fmtWide1    = `[=0]0;[<0.1]0.0E+00;0.0`
 	fmtFixed0   = "0"
 	fmtFixed1   = "0.0"
 	fmtFixed2   = "0.00"
@@ -221,6 +222,29 @@ func FormatSig(v float64, digits int) string {
 		}
 	}
 	return s
+}
+
+// SigNumFmt is the spreadsheet number format that shows v with the given
+// number of significant digits as FormatSig writes it (fixed notation between
+// 0.001 and 1e6, scientific outside), so that a workbook cell and the terminal
+// show the same figures: 0.333, 25.0, 408, 0.00650.
+func SigNumFmt(v float64, digits int) string {
+	if digits < 1 {
+		digits = 1
+	}
+	a := math.Abs(v)
+	switch {
+	case math.IsNaN(v) || math.IsInf(v, 0) || a == 0:
+		return fmtFixed0
+	case a < 1e-3 || a >= 1e6:
+		return "0." + strings.Repeat("0", digits-1) + "E+00"
+	}
+	// The decimals FormatSig gives: from its text, after its rounding.
+	t := FormatSig(v, digits)
+	if _, frac, ok := strings.Cut(t, "."); ok {
+		return "0." + strings.Repeat("0", len(frac))
+	}
+	return fmtFixed0
 }
 
 // FormatRatio formats an energy-to-MIE ratio for text: "–" for nil (no

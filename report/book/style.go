@@ -41,7 +41,15 @@ func Code(s string) Cell {
 }
 
 // Quantity returns the cell of an SI value shown in unit u; NaN is an empty cell.
-func Quantity(u Unit, si float64) Cell { return Cell{V: u.Cell(si), NumFmt: u.NumFmt()} }
+func Quantity(u Unit, si float64) Cell {
+	c := Cell{V: u.Cell(si), NumFmt: u.NumFmt()}
+	if v, ok := u.Display(si); ok && u == UnitRatio {
+		// A ratio shows three significant digits, as the terminal and JSON
+		// readers see it (FormatRatio): 0.333, 25.0, 0.0065.
+		c.NumFmt = SigNumFmt(v, 3)
+	}
+	return c
+}
 
 // OptText returns an empty cell for "".
 func OptText(s string) Cell {

@@ -479,6 +479,7 @@ type auditJSON struct {
 		SHA256 string `json:"sha256"`
 	} `json:"survey"`
 	Site struct {
+		ID              string   `json:"id"`
 		Name            string   `json:"name"`
 		SurveyDate      string   `json:"survey_date"`
 		SurveyedBy      string   `json:"surveyed_by"`
@@ -548,7 +549,7 @@ func SideFromJSON(label string, data []byte) (*Side, error) {
 	sum := sha256.Sum256(data)
 	// The survey's identity is the checksum recorded in the JSON; the JSON
 	// file's own checksum is kept apart.
-	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: d.Survey.SHA256, FileSHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SurveySHA256: d.Survey.SHA256, Results: true}}
+	s := &Side{Label: label, Identity: Identity{Path: label, SHA256: d.Survey.SHA256, FileSHA256: hex.EncodeToString(sum[:]), Site: d.Site.Name, SiteID: d.Site.ID, SurveySHA256: d.Survey.SHA256, Results: true}}
 	if t, err := time.Parse("2006-01-02", d.Site.SurveyDate); err == nil {
 		s.Identity.SurveyDate = t
 	}
