@@ -74,7 +74,7 @@ func stationRows(out string) int {
 			in = true
 		case in && strings.TrimSpace(l) == "":
 			return n
-		case in && !strings.HasPrefix(l, "..."):
+		case in && l[0] >= '0' && l[0] <= '9': // a station row starts with its rank; its reason and the notes are indented
 			n++
 		}
 	}
