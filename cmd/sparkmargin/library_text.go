@@ -123,19 +123,8 @@ var ohmPrefixes = []struct {
 	scale float64
 }{{"T", 1e12}, {"G", 1e9}, {"M", 1e6}, {"k", 1e3}}
 
-// plain writes v with up to 3 significant digits and no trailing zeros:
-// 5, 0.4, 1e15, 2.5e-7.
-func plain(v float64) string {
-	s := book.FormatSig(v, 3)
-	mant, exp, sci := strings.Cut(s, "e")
-	if strings.Contains(mant, ".") {
-		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
-	}
-	if sci {
-		return mant + "e" + exp
-	}
-	return mant
-}
+// plain is v to 3 significant digits without trailing zeros (book.FormatSigTrim).
+func plain(v float64) string { return book.FormatSigTrim(v, 3) }
 
 // unitText writes an SI value in a display unit, trimmed: "20 kV/mm".
 func unitText(u book.Unit, si float64) string {

@@ -183,6 +183,20 @@ func (u Unit) Text(si float64) string {
 	return s + " " + u.Label()
 }
 
+// FormatSigTrim is FormatSig with the trailing zeros of the mantissa dropped:
+// "30", "0.156", "1e6", "1.5e-5" (the short form of a plain number in running text).
+func FormatSigTrim(v float64, digits int) string {
+	s := FormatSig(v, digits)
+	mant, exp, hasExp := strings.Cut(s, "e")
+	if strings.Contains(mant, ".") {
+		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
+	}
+	if hasExp {
+		return mant + "e" + exp
+	}
+	return mant
+}
+
 // FormatSig formats v with the given number of significant digits for plain
 // text: fixed notation between 0.001 and 1e6, scientific outside, exact 0 as
 // "0" and NaN or Inf as "–".

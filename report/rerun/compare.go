@@ -84,18 +84,8 @@ type Value struct {
 	NumFmt string   // the workbook's number format for Shown
 }
 
-// sig4 is v to 4 significant digits without trailing zeros: "30", "1.5e-05".
-func sig4(v float64) string {
-	s := book.FormatSig(v, 4)
-	mant, exp, hasExp := strings.Cut(s, "e")
-	if strings.Contains(mant, ".") {
-		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
-	}
-	if hasExp {
-		return mant + "e" + exp
-	}
-	return mant
-}
+// sig4 is v to 4 significant digits without trailing zeros (book.FormatSigTrim).
+func sig4(v float64) string { return book.FormatSigTrim(v, 4) }
 
 func textValue(s string) Value { return Value{Text: s} }
 
@@ -824,6 +814,23 @@ func rejectedIDs(rs []RejectedObject) map[string]bool {
 // rejectedCautionText says which side rejected Objects rows and where to look.
 func rejectedCautionText(c *Comparison) string {
 	var parts []string
+	for _, g := range c.rejectedSides() {
+		parts = append(parts, fmt.Sprintf("%d object row(s) rejected in %s (%s): see its audit's Rejected sheet ('sparkmargin check')", g.n, g.side, g.ids))
+	}
+	return strings.Join(parts, "; ") + ". Those objects are not assessed on that side: they are listed as rejected, never as added or removed, and their stations' ranks leave them out."
+}
+
+// rejectedSide is one side's rejected object rows: "OLD" or "NEW", how
+// many, and their texts joined by "; ".
+type rejectedSide struct {
+	side string
+	n    int
+	ids  string
+}
+
+// rejectedSides lists the sides with rejected object rows, OLD first.
+func (c *Comparison) rejectedSides() []rejectedSide {
+	var out []rejectedSide
 	for _, g := range []struct {
 		side string
 		rs   []RejectedObject
@@ -831,13 +838,13 @@ func rejectedCautionText(c *Comparison) string {
 		if len(g.rs) == 0 {
 			continue
 		}
-		var ids []string
-		for _, r := range g.rs {
-			ids = append(ids, r.Text())
+		ids := make([]string, len(g.rs))
+		for k, r := range g.rs {
+			ids[k] = r.Text()
 		}
-		parts = append(parts, fmt.Sprintf("%d object row(s) rejected in %s (%s): see its audit's Rejected sheet ('sparkmargin check')", len(g.rs), g.side, strings.Join(ids, "; ")))
+		out = append(out, rejectedSide{g.side, len(g.rs), strings.Join(ids, "; ")})
 	}
-	return strings.Join(parts, "; ") + ". Those objects are not assessed on that side: they are listed as rejected, never as added or removed, and their stations' ranks leave them out."
+	return out
 }
 
 // Text names a rejected row: "PWD-DRUM (row 4: ...)".

@@ -292,18 +292,8 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 	fmt.Fprintln(w)
 	fmt.Fprintf(w, "Added (%d):   %s\n", len(c.Added), listOrNone(c.Added))
 	fmt.Fprintf(w, "Removed (%d): %s\n", len(c.Removed), listOrNone(c.Removed))
-	for _, g := range []struct {
-		side string
-		rs   []RejectedObject
-	}{{"OLD", c.RejectedOld}, {"NEW", c.RejectedNew}} {
-		if len(g.rs) == 0 {
-			continue
-		}
-		var ids []string
-		for _, r := range g.rs {
-			ids = append(ids, r.Text())
-		}
-		fmt.Fprint(w, wrapText("", fmt.Sprintf("Rejected in %s (%d, not compared, neither added nor removed: see its audit / Rejected sheet): %s", g.side, len(g.rs), strings.Join(ids, "; ")), terminalWidth, "  "))
+	for _, g := range c.rejectedSides() {
+		fmt.Fprint(w, wrapText("", fmt.Sprintf("Rejected in %s (%d, not compared, neither added nor removed: see its audit / Rejected sheet): %s", g.side, g.n, g.ids), terminalWidth, "  "))
 	}
 	fmt.Fprintln(w)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)

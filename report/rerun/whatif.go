@@ -346,16 +346,5 @@ func orNone(s string) string {
 	return s
 }
 
-// fmtSig formats v with 3 significant digits (book.FormatSig), trailing zeros
-// of the mantissa dropped: "55", "1e6", "0.156".
-func fmtSig(v float64) string {
-	s := book.FormatSig(v, 3)
-	mant, exp, hasExp := strings.Cut(s, "e")
-	if strings.Contains(mant, ".") {
-		mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
-	}
-	if hasExp {
-		return mant + "e" + exp
-	}
-	return mant
-}
+// fmtSig is v to 3 significant digits without trailing zeros (book.FormatSigTrim).
+func fmtSig(v float64) string { return book.FormatSigTrim(v, 3) }
