@@ -10,6 +10,9 @@ import (
 	"testing/iotest"
 )
 
+// Row numbers in these tests are invented for the test; the dimension grammar is ECMA-376 Part 1,
+// 18.3.1.35 (Source: the standard's text as quoted in the test).
+
 // TestDimensionLastRow: the last row of a sheet's declared range, as
 // spreadsheet programs write it (ECMA-376 Part 1, 18.3.1.35: ref is a cell
 // range "A1:K5001", or one cell "A1" for a sheet of one cell).

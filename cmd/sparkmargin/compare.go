@@ -54,8 +54,6 @@ func newCompareCmd(ws *outfile.Workspace) *cobra.Command {
 	return c
 }
 
-func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".json") }
-
 // compareSide loads one side: an audit JSON as it is, a survey assessed (and,
 // when the other side is JSON, turned into the audit JSON so both compare alike).
 func compareSide(ws *outfile.Workspace, path string, asJSON bool) (*rerun.Side, *inventory.Survey, error) {

@@ -6,6 +6,9 @@ import (
 	"testing"
 )
 
+// The numbers in these tests are invented for the test (any value would do): only their unit
+// signs are translated. The ASCII spellings are those the survey reader accepts (inventory units).
+
 func TestASCIIMode(t *testing.T) {
 	yes := func() bool { return true }
 	no := func() bool { return false }

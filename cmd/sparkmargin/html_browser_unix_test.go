@@ -14,6 +14,9 @@ import (
 	"time"
 )
 
+// The thresholds here (window size, 2 % inked) are screening choices of this test, invented for it:
+// a blank or failed render has next to no ink; the demo page has far more.
+
 // requireBrowserEnv, when set, makes a missing browser a failure rather than
 // a skip: CI (.ci/run) installs Chromium and sets it, so the HTML report is
 // never left untested there without notice.

@@ -83,6 +83,9 @@ func checkHTML(path string, several bool) error {
 	return nil
 }
 
+// isJSON: the path names a JSON file (compare takes an audit JSON for a side).
+func isJSON(path string) bool { return strings.EqualFold(filepath.Ext(path), ".json") }
+
 func hasExt(path string, exts []string) bool {
 	ext := filepath.Ext(path)
 	for _, e := range exts {

@@ -10,6 +10,8 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
+// No numeric check values: the numbers in comments name formulas (common practice, no source).
+
 // asciiUnits are unit spellings the outputs must not use: the audit writes µ,
 // Ω, ² and ³ (issue 14 found "uJ" and "uC/m^2" in discharge reasons beside
 // "µC/m²" and "Ω" elsewhere). A power with a decimal exponent (Glor's

@@ -74,7 +74,7 @@ func runSweep(out io.Writer, o sweepOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
-	if err := writeLinked(o.ws, o.output, o.json,
+	if err := rerun.WriteLinked(o.ws, version, o.output, o.json,
 		func(w io.Writer) error { return rerun.WriteSweepWorkbook(w, sw, info) },
 		func(w io.Writer, ji rerun.JSONInfo) error { return rerun.WriteSweepJSONWith(w, sw, ji) }); err != nil {
 		return err

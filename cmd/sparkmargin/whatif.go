@@ -3,7 +3,6 @@ package main
 import (
 	"fmt"
 	"io"
-	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -20,37 +19,8 @@ type whatifOptions struct {
 	output         string
 	json           string
 	noSheetChanges bool
-	flags          []flagChange // in command-line order
+	flags          []rerun.FlagArg // in command-line order
 	args           []string
-}
-
-// flagChange is one change flag as given.
-type flagChange struct{ kind, arg string }
-
-// changeFlag is a repeatable flag that appends to one shared list, so that
-// changes of different kinds keep their command-line order.
-type changeFlag struct {
-	kind string
-	list *[]flagChange
-}
-
-func (f changeFlag) Set(s string) error { *f.list = append(*f.list, flagChange{f.kind, s}); return nil }
-func (f changeFlag) Type() string {
-	if k, _ := inventory.LookupChangeKind(f.kind); k.Targets == inventory.TargetSite {
-		return "value"
-	}
-	return "ID=value"
-}
-func (f changeFlag) String() string {
-	var out []string
-	if f.list != nil {
-		for _, c := range *f.list {
-			if c.kind == f.kind {
-				out = append(out, c.arg)
-			}
-		}
-	}
-	return strings.Join(out, ",")
 }
 
 func newWhatifCmd(ws *outfile.Workspace) *cobra.Command {
@@ -79,7 +49,7 @@ func newWhatifCmd(ws *outfile.Workspace) *cobra.Command {
 	c.Flags().StringVar(&o.json, "json", "", "also write the result as JSON to this file (- for standard output, the summary then going to standard error)")
 	c.Flags().BoolVar(&o.noSheetChanges, "no-sheet-changes", false, "ignore the survey's Changes sheet")
 	for _, k := range inventory.ChangeKinds() {
-		c.Flags().Var(changeFlag{kind: k, list: &o.flags}, k, rerun.FlagHelp(k))
+		c.Flags().Var(rerun.ChangeFlag{Kind: k, List: &o.flags}, k, rerun.FlagHelp(k))
 	}
 	return c
 }
@@ -110,11 +80,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 	if err := outfile.RefuseClashes([]outfile.NamedPath{{Role: "the survey", Path: o.survey}}, []outfile.NamedPath{{Role: "the workbook", Path: xlsx}, {Role: "--json", Path: o.json}}); err != nil {
 		return err
 	}
-	flags := make([]rerun.FlagArg, len(o.flags))
-	for i, f := range o.flags {
-		flags[i] = rerun.FlagArg{Kind: f.kind, Arg: f.arg}
-	}
-	changes, err := rerun.CollectChanges(s, !o.noSheetChanges, flags)
+	changes, err := rerun.CollectChanges(s, !o.noSheetChanges, o.flags)
 	if err != nil {
 		return withCode(exitUsage, err)
 	}
@@ -130,7 +96,7 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 		return withCode(exitUsage, err)
 	}
 	info := rerun.RunInfo{ToolVersion: version, CommandLine: strings.Join(o.args, " "), TmpDir: tmp}
-	if err := writeLinked(o.ws, xlsx, o.json,
+	if err := rerun.WriteLinked(o.ws, version, xlsx, o.json,
 		func(w io.Writer) error { return rerun.WriteWhatifWorkbook(w, x, info) },
 		func(w io.Writer, ji rerun.JSONInfo) error { return rerun.WriteWhatifJSON(w, x, ji) }); err != nil {
 		return err
@@ -156,36 +122,12 @@ func rejectedShortfall(s *inventory.Survey) error {
 	return nil
 }
 
-// writeLinked writes a rerun's workbook and JSON as one pair, the JSON
-// recording the workbook's file name and SHA-256 as the assess JSON does.
-func writeLinked(ws *outfile.Workspace, xlsx, jsonPath string, book func(io.Writer) error, doc func(io.Writer, rerun.JSONInfo) error) error {
-	var pw, pj *outfile.Pending
-	var err error
-	ji := rerun.JSONInfo{ToolVersion: version}
-	if xlsx != "" {
-		if pw, err = ws.Prepare(xlsx, book); err != nil {
-			return fmt.Errorf("writing the workbook: %w", err)
-		}
-		ji.Workbook, ji.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
-	}
-	if jsonPath != "" {
-		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return doc(w, ji) }); err != nil {
-			ws.Discard(pw)
-			return fmt.Errorf("writing the JSON: %w", err)
-		}
-	}
-	if err := ws.Commit(pw, pj); err != nil {
-		return fmt.Errorf("writing the outputs: %w", err)
-	}
-	return nil
-}
-
 // whatifCommandLine rebuilds the command for the Method sheet with the changes
 // in the order they were given (the order they are applied in).
 func whatifCommandLine(o whatifOptions) []string {
 	out := []string{"sparkmargin", "whatif", o.survey}
 	for _, f := range o.flags {
-		out = append(out, "--"+f.kind, f.arg)
+		out = append(out, "--"+f.Kind, f.Arg)
 	}
 	if o.noSheetChanges {
 		out = append(out, "--no-sheet-changes")

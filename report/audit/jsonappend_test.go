@@ -7,6 +7,9 @@ import (
 	"testing"
 )
 
+// The numbers are invented for the test (edge cases of float formatting); the expected bytes
+// are encoding/json's own for the same value (Source: the Go standard library, the outside oracle).
+
 // encodingJSON is what encoding/json writes for v with HTML escaping off.
 func encodingJSON(t testing.TB, v any) string {
 	var buf bytes.Buffer

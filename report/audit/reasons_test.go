@@ -8,6 +8,9 @@ import (
 	"github.com/sparkmargin/sparkmargin/report/assess"
 )
 
+// The probabilities and ratios are invented for the test; the expected texts follow from them by
+// the rules stated on the Method sheet (borderline threshold, "no discharge" for a zero ratio).
+
 // TestNoZeroRatioBesideAHazard: a station judged marginal (or incendive) on
 // a finding other than the energy, with no discharge possible (ratio 0), shows
 // "no discharge" on the terminal, the Summary and the Stations sheet, never 0;

@@ -14,6 +14,9 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
+// The numbers and texts are invented for the test (edge cases); the expected cells are what
+// excelize's StreamWriter writes for the same cells (Source: excelize, the outside oracle).
+
 func TestCRC32Combine(t *testing.T) {
 	// Expected: the CRC of the concatenation computed directly (hash/crc32).
 	parts := [][]byte{[]byte("<worksheet>"), bytes.Repeat([]byte("<row r=\"2\"/>"), 10000), []byte(""), []byte("</sheetData></worksheet>")}

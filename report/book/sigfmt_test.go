@@ -6,6 +6,9 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
+// Expected texts worked by hand from three significant figures (see the comment below);
+// the values are invented for the test.
+
 // TestSigNumFmtMatchesTerminal: a ratio cell shows the figures the terminal
 // prints (three significant digits, no scientific format for everyday
 // magnitudes). Expected texts worked by hand: 0.3333 -> 0.333; 25 -> 25.0;

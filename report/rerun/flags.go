@@ -10,6 +10,38 @@ import (
 // FlagArg is one change flag as given on the command line.
 type FlagArg struct{ Kind, Arg string }
 
+// ChangeFlag is a repeatable command-line flag of one change kind that
+// appends to one list shared by every kind, so that changes of different
+// kinds keep their command-line order (a flag value: Set, Type, String).
+type ChangeFlag struct {
+	Kind string
+	List *[]FlagArg
+}
+
+// Set appends one occurrence of the flag.
+func (f ChangeFlag) Set(s string) error { *f.List = append(*f.List, FlagArg{f.Kind, s}); return nil }
+
+// Type names the flag's value in the help: "value" for a site-wide kind, else "ID=value".
+func (f ChangeFlag) Type() string {
+	if k, _ := inventory.LookupChangeKind(f.Kind); k.Targets == inventory.TargetSite {
+		return "value"
+	}
+	return "ID=value"
+}
+
+// String is the flag's values given so far, joined by commas.
+func (f ChangeFlag) String() string {
+	var out []string
+	if f.List != nil {
+		for _, c := range *f.List {
+			if c.Kind == f.Kind {
+				out = append(out, c.Arg)
+			}
+		}
+	}
+	return strings.Join(out, ",")
+}
+
 // CollectChanges gathers a what-if plan: the survey's Changes sheet first
 // (unless useSheet is false), then the flags in their order. A rejected
 // Changes row stops the run: a plan must not be half applied without notice.

@@ -2,11 +2,14 @@ package rerun
 
 import (
 	"encoding/json"
+	"fmt"
 	"io"
 	"math"
+	"path/filepath"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/templates"
 )
 
@@ -428,4 +431,29 @@ func nonNil(s []string) []string {
 		return []string{}
 	}
 	return s
+}
+
+// WriteLinked writes a rerun's workbook and JSON (either may be "") as one
+// pair in the run's workspace, the JSON recording the tool version and the
+// workbook's file name and SHA-256 as the assess JSON does.
+func WriteLinked(ws *outfile.Workspace, toolVersion, xlsx, jsonPath string, book func(io.Writer) error, doc func(io.Writer, JSONInfo) error) error {
+	var pw, pj *outfile.Pending
+	var err error
+	ji := JSONInfo{ToolVersion: toolVersion}
+	if xlsx != "" {
+		if pw, err = ws.Prepare(xlsx, book); err != nil {
+			return fmt.Errorf("writing the workbook: %w", err)
+		}
+		ji.Workbook, ji.WorkbookSHA256 = filepath.Base(xlsx), pw.SHA256()
+	}
+	if jsonPath != "" {
+		if pj, err = ws.Prepare(jsonPath, func(w io.Writer) error { return doc(w, ji) }); err != nil {
+			ws.Discard(pw)
+			return fmt.Errorf("writing the JSON: %w", err)
+		}
+	}
+	if err := ws.Commit(pw, pj); err != nil {
+		return fmt.Errorf("writing the outputs: %w", err)
+	}
+	return nil
 }

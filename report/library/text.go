@@ -1,10 +1,11 @@
-package main
+package library
 
 import (
 	"fmt"
 	"io"
 	"math"
 	"strings"
+	"text/tabwriter"
 	"unicode"
 	"unicode/utf8"
 
@@ -205,7 +206,24 @@ func itemWords(name string) string {
 	return strings.ToUpper(s[:1]) + s[1:]
 }
 
-func writeLibrary(out io.Writer) {
+// Tabber makes the aligned-table writer of a table of out and the function
+// that flushes it (the terminal's own, which spells µ and Ω in ASCII where
+// the console cannot show them, before the columns are aligned).
+type Tabber func(out io.Writer) (w io.Writer, flush func())
+
+// plainTabs is a Tabber with no console translation.
+func plainTabs(out io.Writer) (io.Writer, func()) {
+	tw := tabwriter.NewWriter(out, 0, 0, 2, ' ', 0)
+	return tw, func() { _ = tw.Flush() }
+}
+
+// WriteText writes the library as plain text in the Site sheet's practical
+// units, each line under libraryWidth characters; tabbed aligns its tables
+// (nil: a plain tabwriter).
+func WriteText(out io.Writer, tabbed Tabber) {
+	if tabbed == nil {
+		tabbed = plainTabs
+	}
 	fmt.Fprintln(out, "Materials: surface resistivity at 50 % RH; a survey's Materials sheet overrides a built-in")
 	fmt.Fprintln(out, "of the same name. Slope: decades of surface resistivity per 10 %RH.")
 	var n notes

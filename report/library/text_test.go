@@ -1,4 +1,4 @@
-package main
+package library
 
 import (
 	"bytes"
@@ -15,7 +15,7 @@ import (
 // values in the Site sheet's practical units.
 func TestLibraryText(t *testing.T) {
 	var b bytes.Buffer
-	writeLibrary(&b)
+	WriteText(&b, nil)
 	out := b.String()
 	for i, line := range strings.Split(out, "\n") {
 		if n := utf8.RuneCountInString(line); n > libraryWidth {
