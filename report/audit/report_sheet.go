@@ -18,8 +18,8 @@ import (
 // with its own print setup.
 //
 // Findings are grouped by station, check and severity: one row per group
-// with its objects, the first finding's words, the mitigation once and the
-// actions typed against any of them, so that a thousand-object survey with a
+// with its objects worst first, the worst finding's words, the mitigation once
+// and each object's action under its name, so that a thousand-object survey with a
 // recurring fault reads as one line per fault and station.
 
 // SheetReport is the condensed, printable sheet.
@@ -33,38 +33,74 @@ func reportWidths() []float64 { return []float64{6, 14, 13, 36, 34, 18} }
 type reportFinding struct {
 	station, check string
 	severity       assess.Verdict
-	objects        []string
-	message        string   // the first finding's
+	objects        []string // worst first
+	message        string   // the worst finding's
 	mitigations    []string // each different one, in order
-	actions        []string
+	actions        []string // per object: "OBJ: owner · due · status"
 }
 
 // groupFindings groups the audit's findings for the Report, most severe first,
-// then by station rank, then in the order of the Findings sheet.
+// then by station rank, then in the order of the Findings sheet. Within a
+// group the objects are listed worst first (highest ratio of energy to MIE;
+// no ratio counts as least) and the group's words are the worst finding's, so
+// that the object that sets the station's rank leads its row. Actions are
+// listed per object ("OBJ: owner · due · status"), never one object's action
+// for the whole group.
 func groupFindings(a *assess.Audit, pl *ActionPlan) []*reportFinding {
 	rank := map[string]int{}
 	for i := range a.Stations {
 		rank[a.Stations[i].Station.ID] = a.Stations[i].Rank
 	}
+	ratio := map[string]float64{}
+	for i := range a.Objects {
+		if r := a.Objects[i].Ratio; r != nil {
+			ratio[a.Objects[i].Object.ID] = *r
+		}
+	}
+	worth := func(id string) float64 {
+		if r, ok := ratio[id]; ok {
+			return r
+		}
+		return -1
+	}
+	type member struct {
+		object, message, action string
+	}
 	var out []*reportFinding
+	members := map[*reportFinding][]member{}
 	idx := map[string]*reportFinding{}
 	for i := range a.Findings {
 		f := &a.Findings[i]
 		k := f.StationID + "\x00" + f.Check + "\x00" + f.Severity.String()
 		g := idx[k]
 		if g == nil {
-			g = &reportFinding{station: f.StationID, check: f.Check, severity: f.Severity, message: f.Message}
+			g = &reportFinding{station: f.StationID, check: f.Check, severity: f.Severity}
 			idx[k] = g
 			out = append(out, g)
 		}
 		if f.Mitigation != "" && !contains(g.mitigations, f.Mitigation) {
 			g.mitigations = append(g.mitigations, f.Mitigation)
 		}
-		if f.ObjectID != "" {
-			g.objects = append(g.objects, f.ObjectID)
-		}
-		if t := actionText(pl.open(i)); t != "" && !contains(g.actions, t) {
-			g.actions = append(g.actions, t)
+		members[g] = append(members[g], member{f.ObjectID, f.Message, actionText(pl.open(i))})
+	}
+	for _, g := range out {
+		ms := members[g]
+		sort.SliceStable(ms, func(i, j int) bool { return worth(ms[i].object) > worth(ms[j].object) })
+		g.message = ms[0].message
+		for _, m := range ms {
+			if m.object != "" {
+				g.objects = append(g.objects, m.object)
+			}
+			if m.action == "" {
+				continue
+			}
+			t := m.action
+			if m.object != "" {
+				t = m.object + ": " + t
+			}
+			if !contains(g.actions, t) {
+				g.actions = append(g.actions, t)
+			}
 		}
 	}
 	sort.SliceStable(out, func(i, j int) bool {
@@ -289,7 +325,7 @@ func (wb *workbook) report() error {
 	if err := section("Findings and actions"); err != nil {
 		return err
 	}
-	if err := sink.Header(r, []string{"#", "Station: objects", "Severity", "Finding (first of the group)", "Mitigation", "Action (owner · due · status)"}); err != nil {
+	if err := sink.Header(r, []string{"#", "Station: objects", "Severity", "Finding (worst of the group)", "Mitigation", "Action (owner · due · status)"}); err != nil {
 		return err
 	}
 	if err := f.SetRowHeight(s, r, 30); err != nil {
@@ -304,7 +340,7 @@ func (wb *workbook) report() error {
 		}
 		msg := g.message
 		if n := len(g.objects); n > 1 {
-			msg += fmt.Sprintf(" (first of %d objects)", n)
+			msg += fmt.Sprintf(" (worst of %d objects)", n)
 		}
 		cells := []book.Cell{book.Integer(i + 1), book.WrapText(where), verdictCell(g.severity),
 			book.WrapText(msg), book.WrapText(strings.Join(g.mitigations, "\n")), book.WrapText(strings.Join(g.actions, "\n"))}

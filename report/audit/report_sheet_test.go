@@ -3,6 +3,9 @@ package audit
 import (
 	"strings"
 	"testing"
+
+	"github.com/sparkmargin/sparkmargin/inventory"
+	"github.com/sparkmargin/sparkmargin/report/assess"
 )
 
 // TestReportSheet: the condensed report is the first sheet, prints in
@@ -44,5 +47,38 @@ func TestReportSheet(t *testing.T) {
 		if !strings.Contains(flat, w) {
 			t.Errorf("Report lacks %q", w)
 		}
+	}
+}
+
+// TestGroupFindingsWorstLeads: a group of one station, check and severity is
+// led by its worst object (the highest ratio of energy to MIE) whatever the
+// order of the findings, and each action stays with its object. The case is
+// the review's ST-PWD group: PWD-DRU1 at ratio 12.5 listed first with an
+// action typed against it, PWD-LIN at 100 with none; the expected lead is
+// PWD-LIN by the rule "the worst finding leads".
+func TestGroupFindingsWorstLeads(t *testing.T) {
+	r1, r2 := 12.5, 100.0
+	a := &assess.Audit{
+		Objects: []assess.ObjectResult{
+			{Object: inventory.Object{ID: "PWD-DRU1"}, Ratio: &r1},
+			{Object: inventory.Object{ID: "PWD-LIN"}, Ratio: &r2},
+		},
+		Stations: []assess.StationResult{{Station: inventory.Station{ID: "ST-PWD"}, Rank: 1}},
+		Findings: []assess.Finding{
+			{ObjectID: "PWD-DRU1", StationID: "ST-PWD", Check: "energy-vs-mie", Severity: assess.Incendive, Message: "drum message"},
+			{ObjectID: "PWD-LIN", StationID: "ST-PWD", Check: "energy-vs-mie", Severity: assess.Incendive, Message: "liner message"},
+		},
+	}
+	pl := &ActionPlan{Open: []Action{{Owner: "M. Kell", Status: "in progress"}, {}}}
+	gs := groupFindings(a, pl)
+	if len(gs) != 1 {
+		t.Fatalf("%d groups, want 1", len(gs))
+	}
+	g := gs[0]
+	if g.message != "liner message" || strings.Join(g.objects, ",") != "PWD-LIN,PWD-DRU1" {
+		t.Errorf("group led by %q with objects %v; want the liner (ratio 100) first", g.message, g.objects)
+	}
+	if want := []string{"PWD-DRU1: M. Kell · in progress"}; strings.Join(g.actions, "|") != strings.Join(want, "|") {
+		t.Errorf("actions %q, want %q (the drum's action under its name, none for the liner)", g.actions, want)
 	}
 }
