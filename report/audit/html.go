@@ -40,8 +40,8 @@ var htmlTmpl = template.Must(template.New("report").Funcs(template.FuncMap{
 }).Parse(htmlTemplate))
 
 // HumidityGrid is each station's verdict over a fixed grid of relative
-// humidity, as the sweep computes it (the same RH at the site and at every
-// station); the caller (the report pipeline) runs the sweep and fills it.
+// humidity, as the sweep computes it by default (the site's RH swept; a
+// station with its own RH held at it); the caller (the report pipeline) runs the sweep and fills it.
 type HumidityGrid struct {
 	RH       []float64         // % RH, ascending
 	Stations []HumidityStation // in the order the caller gives (the report draws them in rank order)
@@ -127,6 +127,13 @@ func (h *HTMLWriter) Add(rs []assess.ObjectResult) error {
 		e := r.Eval.EffectiveEnergy
 		p := energyPoint{seq: h.n, object: r.Object.ID, station: id, verdict: r.Verdict, energy: e, mie: mie,
 			ratio: ratio, assumedR: r.RatioAssumed()}
+		if p.assumedR && hasMIE {
+			// The energy rests on an assumed input (resistance to earth or
+			// charging current): its size is an artefact of the assumption.
+			// Drawn at the MIE (ratio 1) and labelled as assumed, as the
+			// Summary chart does.
+			p.energy, p.ratio = mie, 1
+		}
 		if r.Probability != nil {
 			pp := *r.Probability
 			p.prob = &pp
@@ -154,7 +161,7 @@ func (h *HTMLWriter) Add(rs []assess.ObjectResult) error {
 		if !hasMIE || r.Ratio == nil || math.IsNaN(ratio) || !r.EnergyStated() {
 			continue
 		}
-		if !(e > 0) || math.IsInf(e, 0) {
+		if (!(e > 0) || math.IsInf(e, 0)) && !p.assumedR {
 			h.noDischarg++
 			continue
 		}

@@ -143,11 +143,13 @@ func energyChart(ps []energyPoint, margin float64, spread bool) *rowChart {
 				book.UnitMJ.Text(p.mie), book.UnitProbability.Text(p.prob.Incendive), book.UnitProbability.Text(p.prob.Marginal), book.UnitProbability.Text(p.prob.NonIncendive))
 		} else {
 			r.Value = book.UnitRatio.Text(p.ratio)
-			if p.assumedR {
-				r.Value = assess.RatioAssumedText
-			}
 			r.Title = fmt.Sprintf("%s at station %s: %s; effective energy %s; MIE %s; MIE / margin %s",
 				p.object, p.station, p.verdict, book.UnitMJ.Text(p.energy), book.UnitMJ.Text(p.mie), book.UnitMJ.Text(p.mie/margin))
+			if p.assumedR {
+				r.Value = assess.RatioAssumedText
+				r.Title = fmt.Sprintf("%s at station %s: %s; energy rests on an assumed input (not measured): drawn at the MIE %s (ratio 1), %s",
+					p.object, p.station, p.verdict, book.UnitMJ.Text(p.mie), assess.RatioAssumedText)
+			}
 		}
 		r.Mark = markPath(p.verdict, x, y, 6)
 		r.ClipHi = clipped
