@@ -4,6 +4,8 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"github.com/sparkmargin/sparkmargin/report/book"
 )
 
 // The formatters below write SI values in the engineering units people read in
@@ -87,4 +89,13 @@ func percent(rh float64) string  { return unit(sig(rh), "%") }
 func celsius(k float64) string   { return unit(sig(k-273.15), "°C") }
 func uCm2(s float64) string      { return unit(sig(s*1e6), "µC/m²") }
 func plain(v float64) string     { return sig(v) }
-func ratioText(r float64) string { return sig(r) }
+// ratioText is a ratio of energy to MIE in running text, rounded by the one
+// formatter every output uses for ratios (book.FormatSigTrim, three
+// significant digits), so that a finding and a table never round one ratio
+// two ways (1.125: "1.12" in both).
+func ratioText(r float64) string {
+	if math.IsNaN(r) || math.IsInf(r, 0) {
+		return sig(r)
+	}
+	return book.FormatSigTrim(r, 3)
+}

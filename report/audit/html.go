@@ -433,17 +433,11 @@ func orText(s, alt string) string {
 // kelvinToCelsius gives a temperature in °C to 0.1 °C.
 func kelvinToCelsius(k float64) float64 { return math.Round((k-273.15)*10) / 10 }
 
-// htmlRatioText is the worst ratio in words: never a bare 0 beside a verdict.
+// htmlRatioText is the worst ratio in words, as every output writes it
+// (stationRatioText): never a bare 0 beside a verdict.
 func htmlRatioText(st *assess.StationResult) string {
-	switch {
-	case st.WorstRatioAssumed:
-		return assess.RatioAssumedText
-	case st.Atmosphere == nil:
-		return "no atmosphere"
-	case st.WorstRatio == nil || math.IsNaN(*st.WorstRatio):
-		return "not stated"
-	case *st.WorstRatio == 0:
-		return "no discharge"
+	if t := stationRatioText(st); t != "" {
+		return t
 	}
 	return book.UnitRatio.Text(*st.WorstRatio)
 }

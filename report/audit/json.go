@@ -128,7 +128,7 @@ type jsonStation struct {
 	// GroupAssessed is the group the station was assessed with, "est." when
 	// assumed, "lib." when from the substance list.
 	GroupAssessed string `json:"group_assessed,omitempty"`
-	// WorstRatioText says why worst_ratio is no number to read: "n/a" or "no discharge".
+	// WorstRatioText says why worst_ratio is no number to read: "no atmosphere", "no discharge", "n/a" (none computed) or ">= 1 (assumed)" (stationRatioText).
 	WorstRatioText string `json:"worst_ratio_text,omitempty"`
 	// MainReason is the finding (or object reason) that set the verdict.
 	MainReason *jsonMainReason `json:"main_reason,omitempty"`

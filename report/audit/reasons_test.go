@@ -28,8 +28,8 @@ func TestNoZeroRatioBesideAHazard(t *testing.T) {
 		if f := strings.Fields(line); len(f) < 7 || f[4] != v.String() || f[5]+" "+f[6] != "no discharge" { // rank, ID, name (two words), verdict, ratio
 			t.Errorf("%v: terminal line %q, want the verdict beside \"no discharge\"", v, line)
 		}
-		if s3 := lineWith(term.String(), "S3 "); !strings.Contains(s3, "n/a") {
-			t.Errorf("terminal S3 line %q, want n/a", s3)
+		if s3 := lineWith(term.String(), "S3 "); !strings.Contains(s3, NoAtmosphereText) {
+			t.Errorf("terminal S3 line %q, want %q (S3 has no atmosphere)", s3, NoAtmosphereText)
 		}
 		var b bytes.Buffer
 		if err := WriteWorkbook(&b, a, testInfo()); err != nil {

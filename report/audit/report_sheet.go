@@ -2,6 +2,7 @@ package audit
 
 import (
 	"fmt"
+	"math"
 	"sort"
 	"strings"
 
@@ -46,19 +47,15 @@ type reportFinding struct {
 // that the object that sets the station's rank leads its row. Actions are
 // listed per object ("OBJ: owner · due · status"), never one object's action
 // for the whole group.
-func groupFindings(a *assess.Audit, pl *ActionPlan) []*reportFinding {
+// ratio gives the objects' ratios (objectRatios); an object without one counts
+// as least.
+func groupFindings(a *assess.Audit, pl *ActionPlan, ratio map[string]float64) []*reportFinding {
 	rank := map[string]int{}
 	for i := range a.Stations {
 		rank[a.Stations[i].Station.ID] = a.Stations[i].Rank
 	}
-	ratio := map[string]float64{}
-	for i := range a.Objects {
-		if r := a.Objects[i].Ratio; r != nil {
-			ratio[a.Objects[i].Object.ID] = *r
-		}
-	}
 	worth := func(id string) float64 {
-		if r, ok := ratio[id]; ok {
+		if r, ok := ratio[id]; ok && !math.IsNaN(r) {
 			return r
 		}
 		return -1
@@ -111,6 +108,26 @@ func groupFindings(a *assess.Audit, pl *ActionPlan) []*reportFinding {
 		return stationOrder(rank, out[i].station) < stationOrder(rank, out[j].station)
 	})
 	return out
+}
+
+// objectRatios is the ratio of energy to MIE of each object with a finding
+// and a ratio (an assumed ratio counts as 1, its size being no figure).
+func objectRatios(rs []assess.ObjectResult, into map[string]float64) map[string]float64 {
+	if into == nil {
+		into = map[string]float64{}
+	}
+	for i := range rs {
+		r := &rs[i]
+		if r.Ratio == nil || len(r.Findings) == 0 {
+			continue
+		}
+		v := *r.Ratio
+		if r.RatioAssumed() {
+			v = 1
+		}
+		into[r.Object.ID] = v
+	}
+	return into
 }
 
 func stationOrder(rank map[string]int, id string) int {
@@ -176,20 +193,6 @@ func reportReason(a *assess.Audit, st *assess.StationResult) string {
 		return "no object could be judged: inputs missing (see the Objects sheet)"
 	}
 	return ""
-}
-
-// reportRatio is the worst ratio as the Report shows it: no bare 0 beside a
-// verdict (no discharge possible says so) and no size for an assumed resistance.
-func reportRatio(st *assess.StationResult) book.Cell {
-	switch {
-	case st.WorstRatioAssumed:
-		return book.Code(assess.RatioAssumedText)
-	case st.WorstRatio == nil || book.FinitePtr(st.WorstRatio) == nil:
-		return book.Code("no MIE to compare")
-	case *st.WorstRatio == 0:
-		return book.Code("no discharge")
-	}
-	return ratioCell(st.WorstRatio)
 }
 
 // report writes the Report sheet.
@@ -313,7 +316,7 @@ func (wb *workbook) report() error {
 			name += "\n" + t
 		}
 		cells := []book.Cell{book.Integer(st.Rank), book.Cell{V: st.Station.ID, Bold: true, Wrap: true}, verdictCell(st.Verdict),
-			book.WrapText(name), book.WrapText(reportReason(a, st)), reportRatio(st)}
+			book.WrapText(name), book.WrapText(reportReason(a, st)), stationRatioCell(st)}
 		if err := sink.Row(r, cells, reportHeight(cells)); err != nil {
 			return err
 		}
@@ -332,7 +335,11 @@ func (wb *workbook) report() error {
 		return err
 	}
 	r++
-	groups := groupFindings(a, wb.actions)
+	ratios := wb.findingRatios
+	if ratios == nil {
+		ratios = objectRatios(a.Objects, nil)
+	}
+	groups := groupFindings(a, wb.actions, ratios)
 	for i, g := range groups {
 		where := g.station
 		if len(g.objects) > 0 {

@@ -60,8 +60,8 @@ func TestGroupFindingsWorstLeads(t *testing.T) {
 	r1, r2 := 12.5, 100.0
 	a := &assess.Audit{
 		Objects: []assess.ObjectResult{
-			{Object: inventory.Object{ID: "PWD-DRU1"}, Ratio: &r1},
-			{Object: inventory.Object{ID: "PWD-LIN"}, Ratio: &r2},
+			{Object: inventory.Object{ID: "PWD-DRU1"}, Ratio: &r1, Findings: []assess.Finding{{ObjectID: "PWD-DRU1"}}},
+			{Object: inventory.Object{ID: "PWD-LIN"}, Ratio: &r2, Findings: []assess.Finding{{ObjectID: "PWD-LIN"}}},
 		},
 		Stations: []assess.StationResult{{Station: inventory.Station{ID: "ST-PWD"}, Rank: 1}},
 		Findings: []assess.Finding{
@@ -70,7 +70,7 @@ func TestGroupFindingsWorstLeads(t *testing.T) {
 		},
 	}
 	pl := &ActionPlan{Open: []Action{{Owner: "M. Kell", Status: "in progress"}, {}}}
-	gs := groupFindings(a, pl)
+	gs := groupFindings(a, pl, objectRatios(a.Objects, nil))
 	if len(gs) != 1 {
 		t.Fatalf("%d groups, want 1", len(gs))
 	}

@@ -93,6 +93,7 @@ func (w *WorkbookWriter) Add(rs []assess.ObjectResult) error {
 			return fmt.Errorf("write workbook: sheet %s: %w", SheetObjects, err)
 		}
 		w.n++
+		w.wb.findingRatios = objectRatios(rs[i:i+1], w.wb.findingRatios)
 		if m := r.Material; m != nil && !w.matSeen[strings.ToLower(m.Name)] {
 			w.matSeen[strings.ToLower(m.Name)] = true
 			mm := *m

@@ -215,7 +215,7 @@ func (wb *workbook) summary() error {
 		}
 		r += rows + 2 // spreadsheet programs draw default rows a little lower than 20 px
 		caption := "Ratio = effective discharge energy / MIE of the station's atmosphere, log scale; 1 means the MIE is reached. " +
-			"Every station with a verdict is listed with it; a station whose ratio is \"no discharge\" (no discharge possible) or \"n/a\" (no flammable atmosphere: judged on shock and earthing alone; or not assessed) has no bar; " +
+			"Every station with a verdict is listed with it; a station whose ratio is \"no discharge\" (no discharge possible), \"" + NoAtmosphereText + "\" (no flammable atmosphere: judged on shock and earthing alone) or \"n/a\" (not assessed) has no bar; " +
 			"\">= 1 (assumed)\" is drawn at 1: the energy reaches the MIE only because the resistance to earth or the charging current is assumed, its size is no figure. A ratio below the axis is drawn at its bottom."
 		if err := sink.Row(r, []book.Cell{book.WrapText(caption)}, 0); err != nil {
 			return err
@@ -445,11 +445,21 @@ func siteProv(site inventory.Site, it assess.Item) assess.Provenance {
 	return assess.ProvNone
 }
 
+// NoAtmosphereText is a station's worst ratio where the station has no
+// flammable atmosphere: no MIE to compare with. It is the one wording of the
+// terminal, the Summary, Stations and Report sheets and the HTML.
+const NoAtmosphereText = "no atmosphere"
+
 // stationRatioText is the text shown for a station's worst ratio where it is
-// no number to read: ">= 1 (assumed)", "n/a", "no discharge"; "" otherwise.
+// no number to read: ">= 1 (assumed)", "no atmosphere", "no discharge", "n/a"
+// (assess.RatioText: none computed); "" otherwise. Every output of a station's
+// ratio goes through it.
 func stationRatioText(st *assess.StationResult) string {
-	if st.WorstRatioAssumed {
+	switch {
+	case st.WorstRatioAssumed:
 		return assess.RatioAssumedText
+	case st.Atmosphere == nil:
+		return NoAtmosphereText
 	}
 	return assess.RatioText(book.FinitePtr(st.WorstRatio))
 }

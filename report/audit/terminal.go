@@ -71,7 +71,7 @@ func writeStationTable(w io.Writer, a *assess.Audit, top int) error {
 		if s.Station.Name != "" {
 			name = shorten(name+" "+s.Station.Name, stationRunes)
 		}
-		ratio := stationRatioText(s) // never a 0 beside a verdict: "no discharge", "n/a"
+		ratio := stationRatioText(s) // never a 0 beside a verdict: "no atmosphere", "no discharge", "n/a"
 		if ratio == "" {
 			ratio = book.FormatRatio(book.FinitePtr(s.WorstRatio))
 		}

@@ -178,6 +178,10 @@ type workbook struct {
 	direct  bool
 	rowsDir string
 	rows    map[string]*book.RowWriter
+	// findingRatios is each object's ratio of energy to MIE for the objects
+	// with a finding, kept by the streamed writer (which holds no objects)
+	// so that the Report leads each group with its worst; nil: from a.Objects.
+	findingRatios map[string]float64
 }
 
 // finishRows ends the direct rows of every streamed sheet.

@@ -234,15 +234,15 @@ func TestWorkbookRejectedFindingsStations(t *testing.T) {
 		}
 	}
 	st := rowsOf(t, f, SheetStations)
-	if st[1][1] != "S1" || st[3][1] != "S3" || st[3][10] != "n/a" {
+	if st[1][1] != "S1" || st[3][1] != "S3" || st[3][10] != NoAtmosphereText {
 		t.Errorf("Stations rows %v", st)
 	}
 	if c := st[0][10]; c != "Worst ratio E/MIE [–]" {
 		t.Errorf("Stations column K = %q", c)
 	}
-	// The chart's data: every station with its verdict (S3 has no ratio: n/a).
+	// The chart's data: every station with its verdict (S3 has no atmosphere).
 	label := colIndex(t, st[0], chartLabelHeader)
-	if got := st[3][label]; got != "S3 marginal (n/a)" {
+	if got := st[3][label]; got != "S3 marginal ("+NoAtmosphereText+")" {
 		t.Errorf("S3 chart label %q", got)
 	}
 }
