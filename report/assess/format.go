@@ -78,17 +78,18 @@ func nC(c float64) string {
 	}
 	return unit(sig(c*1e9), "nC")
 }
-func cm2(a float64) string       { return unit(sig(a*1e4), "cm²") }
-func ohm(r float64) string       { return unit(sci(r), "Ω") }
-func uA(a float64) string        { return unit(sig(a*1e6), "µA") }
-func pSm(k float64) string       { return unit(sig(k*1e12), "pS/m") }
-func mps(v float64) string       { return unit(sig(v), "m/s") }
-func m2ps(v float64) string      { return unit(sig(v), "m²/s") }
-func seconds(t float64) string   { return unit(sig(t), "s") }
-func percent(rh float64) string  { return unit(sig(rh), "%") }
-func celsius(k float64) string   { return unit(sig(k-273.15), "°C") }
-func uCm2(s float64) string      { return unit(sig(s*1e6), "µC/m²") }
-func plain(v float64) string     { return sig(v) }
+func cm2(a float64) string      { return unit(sig(a*1e4), "cm²") }
+func ohm(r float64) string      { return unit(sci(r), "Ω") }
+func uA(a float64) string       { return unit(sig(a*1e6), "µA") }
+func pSm(k float64) string      { return unit(sig(k*1e12), "pS/m") }
+func mps(v float64) string      { return unit(sig(v), "m/s") }
+func m2ps(v float64) string     { return unit(sig(v), "m²/s") }
+func seconds(t float64) string  { return unit(sig(t), "s") }
+func percent(rh float64) string { return unit(sig(rh), "%") }
+func celsius(k float64) string  { return unit(sig(k-273.15), "°C") }
+func uCm2(s float64) string     { return unit(sig(s*1e6), "µC/m²") }
+func plain(v float64) string    { return sig(v) }
+
 // ratioText is a ratio of energy to MIE in running text, rounded by the one
 // formatter every output uses for ratios (book.FormatSigTrim, three
 // significant digits), so that a finding and a table never round one ratio
