@@ -18,8 +18,9 @@ type SummaryOptions struct {
 	// Top > 0 prints only the Top worst-ranked stations, then a line saying
 	// how many more the workbook's Stations sheet holds.
 	Top int
-	// Quiet prints no station table, no Monte Carlo line and no blank line
-	// before the counts; the counts and the survey-rows line are always printed.
+	// Quiet prints no station table and no blank line before the counts; the
+	// counts lines (objects, Monte Carlo and borderline counts when sampled)
+	// and the survey-rows line are always printed.
 	// Top and Quiet do not go together (assess refuses both).
 	Quiet bool
 }
@@ -160,7 +161,7 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 	if a.Survey != nil && !a.Survey.Site.RelativeHumidity.Known {
 		fmt.Fprintf(w, "Warning: the Site sheet gives no relative humidity (an error for check): stations without their own were assessed at the dry-day %g %%RH, shown on the Summary sheet\n", assess.DryDayHumidity)
 	}
-	if sampled && !quiet {
+	if sampled { // counts lines: kept under --quiet
 		fmt.Fprintf(w, "Monte Carlo: %d samples per object, seed %d (uncertainties on the Method sheet)\n", a.Options.Samples, a.Options.Seed)
 		if n := len(a.Borderline); n > 0 {
 			fmt.Fprintf(w, "Borderline: %d object(s) whose sampled verdicts differ from the point verdict or reach a more severe one above %.0f %%: what to measure next on the Summary sheet\n", n, 100*assess.BorderlineThreshold)

@@ -153,3 +153,20 @@ func TestWriteSummaryTrimmed(t *testing.T) {
 		})
 	}
 }
+
+// Review N10: --quiet keeps the counts lines, and the Monte Carlo and
+// borderline lines are counts (samples per object, borderline objects).
+func TestQuietKeepsSamplingCounts(t *testing.T) {
+	a := testAudit()
+	a.Options.Samples, a.Options.Seed = 300, 7
+	a.Borderline = []assess.BorderlineObject{{ObjectID: "O3", StationID: "S1"}}
+	var b bytes.Buffer
+	if err := WriteSummaryWith(&b, a, SummaryOptions{Quiet: true}); err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range []string{"Monte Carlo: 300 samples per object, seed 7", "Borderline: 1 object(s)"} {
+		if !strings.Contains(b.String(), w) {
+			t.Errorf("quiet summary lacks %q:\n%s", w, b.String())
+		}
+	}
+}
