@@ -55,6 +55,6 @@ func (r *Run) printActions(workbook string) {
 	w := r.out()
 	fmt.Fprintf(w, "%s\n", pl.Counts)
 	if pl.Legacy {
-		fmt.Fprintf(w, "(the previous audit was written by an earlier version of the tool, without the audit mark; its actions were read all the same)\n")
+		fmt.Fprintf(w, "(the previous audit's mark was not found: saved by another program, or written by an earlier version of the tool; its actions were read all the same)\n")
 	}
 }

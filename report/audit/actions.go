@@ -96,8 +96,8 @@ type priorFinding struct {
 // PreviousAudit is the Findings sheet of the audit a run is about to replace.
 type PreviousAudit struct {
 	Path string
-	// Legacy: the file carries no audit mark but was written by an earlier
-	// version of this tool (its creator property and Findings headers).
+	// Legacy: the file carries no audit mark (saved by another program, which
+	// may drop it, or written by an earlier version) but has our Findings headers.
 	Legacy bool
 	rows   []priorFinding
 }
@@ -251,6 +251,7 @@ type ActionCounts struct {
 	Closed        int // findings open in the previous audit that this run no longer raises
 	ClosedActions int // of those, how many had an action typed
 	New           int // findings not open in the previous audit
+	NoAction      int // open findings with nothing typed against them (new ones included)
 }
 
 // ActionPlan is the action of every finding of the new audit and the
@@ -305,6 +306,11 @@ func PlanActions(prev *PreviousAudit, findings []assess.Finding) *ActionPlan {
 			pl.Counts.Carried++
 		}
 	}
+	for i := range pl.Open {
+		if pl.Open[i].Empty() {
+			pl.Counts.NoAction++
+		}
+	}
 	for i := range rows {
 		r := &rows[i]
 		if r.used {
@@ -342,8 +348,8 @@ func verdictNamed(s string) assess.Verdict {
 
 // String is the terminal line of the counts.
 func (c ActionCounts) String() string {
-	return fmt.Sprintf("Actions: %d carried over from the previous audit; %d finding(s) closed since (%d with an action), listed at the foot of the Findings sheet; %d new finding(s) to act on.",
-		c.Carried, c.Closed, c.ClosedActions, c.New)
+	return fmt.Sprintf("Actions: %d carried over from the previous audit; %d finding(s) closed since (%d with an action), listed at the foot of the Findings sheet; %d new finding(s); %d open finding(s) with no action typed (owner, due, status).",
+		c.Carried, c.Closed, c.ClosedActions, c.New, c.NoAction)
 }
 
 // dueCell is the Due cell of an action: a date when one was typed as a date,
