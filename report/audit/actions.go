@@ -97,7 +97,7 @@ type priorFinding struct {
 type PreviousAudit struct {
 	Path string
 	// Legacy: the file carries no audit mark (saved by another program, which
-	// may drop it, or written by an earlier version) but has our Findings headers.
+	// may drop it, or written by an earlier version) but our creator property.
 	Legacy bool
 	rows   []priorFinding
 }
