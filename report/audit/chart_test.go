@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"github.com/sparkmargin/sparkmargin/report/assess"
+	"github.com/xuri/excelize/v2"
 )
 
 // TestChartShowsAssumedStation: a station whose worst ratio rests on an assumed
@@ -39,6 +40,32 @@ func TestChartShowsAssumedStation(t *testing.T) {
 		w, err := f.GetColWidth(s, name)
 		if err != nil || w < float64(len(assess.RatioAssumedText)) {
 			t.Errorf("%s ratio column %s width %v (%v), want at least %d", s, name, w, err, len(assess.RatioAssumedText))
+		}
+	}
+}
+
+// Review N12: the Stations sheet's chart helper columns are hidden (no figure
+// to read; the chart reads hidden columns: plotVisOnly off) and the sheet
+// prints landscape two pages wide with rank and station repeated.
+func TestStationsHelperColumnsHiddenAndPrintable(t *testing.T) {
+	f := openWorkbook(t, testWorkbook(t))
+	hdr := rowsOf(t, f, SheetStations)[0]
+	for _, h := range []string{chartLabelHeader, chartValueHeader} {
+		col, _ := excelize.ColumnNumberToName(colIndex(t, hdr, h) + 1)
+		if vis, err := f.GetColVisible(SheetStations, col); err != nil || vis {
+			t.Errorf("column %s (%s) visible %v (%v), want hidden", col, h, vis, err)
+		}
+	}
+	if vis, _ := f.GetColVisible(SheetStations, "B"); !vis {
+		t.Error("station column hidden")
+	}
+	pl, err := f.GetPageLayout(SheetStations)
+	if err != nil || pl.Orientation == nil || *pl.Orientation != "landscape" || pl.FitToWidth == nil || *pl.FitToWidth != 2 {
+		t.Errorf("Stations page layout %+v (%v): want landscape, two pages wide", pl, err)
+	}
+	for _, d := range f.GetDefinedName() {
+		if d.Scope == SheetStations && d.Name == "_xlnm.Print_Titles" && d.RefersTo != "'Stations'!$A:$B,'Stations'!$1:$1" {
+			t.Errorf("Stations print titles %q", d.RefersTo)
 		}
 	}
 }

@@ -267,6 +267,12 @@ func (wb *workbook) printSetup(sheet string, pagesWide int, titleRows, titleCols
 // tableSheetNormal writes a whole normal-mode table: header row 1, rows from 2,
 // frozen header, autofilter and print setup.
 func tableSheetNormal[T any](wb *workbook, sheet string, cols []book.Column[T], rows []T) error {
+	return tableSheetPrinted(wb, sheet, cols, rows, 1, "")
+}
+
+// tableSheetPrinted is tableSheetNormal printed pagesWide pages across with
+// titleCols ("" none) repeated on each page.
+func tableSheetPrinted[T any](wb *workbook, sheet string, cols []book.Column[T], rows []T, pagesWide int, titleCols string) error {
 	sink := book.NormalSink{F: wb.f, Sheet: sheet, St: wb.st}
 	if err := book.SetWidths(wb.f, sheet, book.WidthsOf(cols)); err != nil {
 		return err
@@ -291,7 +297,7 @@ func tableSheetNormal[T any](wb *workbook, sheet string, cols []book.Column[T], 
 	if err := wb.f.AutoFilter(sheet, fmt.Sprintf("A1:%s%d", book.LastCol(len(cols)), last), nil); err != nil {
 		return err
 	}
-	return wb.printSetup(sheet, 1, "$1:$1", "")
+	return wb.printSetup(sheet, pagesWide, "$1:$1", titleCols)
 }
 
 // tableSheetStream writes a table through a StreamWriter; the autofilter and
@@ -527,7 +533,20 @@ func (wb *workbook) stations() error {
 	wb.stationRows = len(rows) + 1
 	cols := stationColumns(wb.a.Survey.Site, anyProbability(wb.a))
 	wb.chartLabelCol, wb.chartValueCol = columnLetter(cols, chartLabelHeader), columnLetter(cols, chartValueHeader)
-	return tableSheetNormal(wb, SheetStations, cols, rows)
+	if err := tableSheetPrinted(wb, SheetStations, cols, rows, 2, "$A:$B"); err != nil {
+		return err
+	}
+	// The chart's helper columns are hidden: they are no figures to read
+	// ("Chart ratio 1" for an assumed station) and need no paper; the Summary
+	// chart still reads them (excelize writes plotVisOnly off). The sheet's
+	// 20-odd columns print landscape on two pages wide, rank and station
+	// repeated on each, instead of one unreadable page.
+	for _, c := range []string{wb.chartLabelCol, wb.chartValueCol} {
+		if err := wb.f.SetColVisible(SheetStations, c, false); err != nil {
+			return err
+		}
+	}
+	return nil
 }
 
 // ---- Objects ----
