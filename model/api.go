@@ -245,7 +245,7 @@ type Evaluation struct {
 
 	InsulatingArea     float64 // m^2 of insulating surface (sheets, belts, bags), NaN otherwise
 	SurfaceResistivity float64 // ohm per square at the environment's RH, NaN when unknown
-	Dissipative        bool    // the surface is dissipative at this RH and can leak its charge
+	Dissipative        bool    // the surface leaks its charge at this RH: resistivity below Limits.DissipativeSurface (the area exemption's bound)
 	DecayTime          float64 // s, tau = R C, or strip or liquid relaxation time
 	TimeTo100V         float64 // s after charging stops, conductors; NaN otherwise
 
@@ -289,6 +289,10 @@ type Evaluation struct {
 	// resistivity at this RH, or of dissipative class) and is not earthed: it is
 	// assessed for a spark as an isolated conductor.
 	IsolatedConductor bool
+	// ConductingSurface: the spark rule counts the surface as a conductor,
+	// earthed or not (conductive or dissipative material class, or resistivity
+	// at this RH below Limits.SparkSurface); conductingSurface.
+	ConductingSurface bool
 	// Liquid transfer (appended with the operation-by-operation liquid rules).
 	RuleClass         ConductivityClass // class the filling rules use: low also for a second phase below Limits.SecondPhaseConductivity
 	LiquidBreaches    LiquidClause      // filling clauses not met, or not shown met for want of an input

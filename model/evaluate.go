@@ -222,7 +222,8 @@ func surfaceCharge(ev *Evaluation, in *Input, env *Environment, lim *Limits) flo
 	ev.Dissipative = dissipative
 	backed := in.EarthedBacking
 	ev.Earthed = backed || (given(in.Resistance) && in.Resistance <= lim.ConductorEarthing)
-	ev.IsolatedConductor = conductingSurface(in, ev, lim) && !ev.Earthed
+	ev.ConductingSurface = conductingSurface(in, ev, lim)
+	ev.IsolatedConductor = ev.ConductingSurface && !ev.Earthed
 
 	epsr := in.Material.Permittivity
 	if backed && !positive(epsr) {

@@ -159,6 +159,28 @@ func ratioText(r *float64) book.Cell {
 	return ratioCell(r)
 }
 
+// surfaceRuleText says what the two surface rules made of the surface at the
+// station's RH, so that the column agrees with the spark rule: the spark rule
+// counts a surface as a conductor below the spark bound (model
+// Limits.SparkSurface, 1e12 Ω/sq) or by its conductive or dissipative class;
+// the insulating-area exemption needs the stricter leak bound
+// (Limits.DissipativeSurface, 1e9 Ω/sq). "" for an object with no surface
+// resistivity and no conducting class.
+func surfaceRuleText(in *model.Input, ev *model.Evaluation) string {
+	byClass := in.Material.Conductive || in.Material.Dissipative
+	switch {
+	case ev.Dissipative:
+		return "leaks (below the area-exemption bound); a conductor for the spark rule"
+	case ev.ConductingSurface && byClass:
+		return "a conductor for the spark rule (conductive or dissipative class); does not leak enough for the area exemption"
+	case ev.ConductingSurface:
+		return "a conductor for the spark rule (below the spark bound); does not leak enough for the area exemption"
+	case math.IsNaN(ev.SurfaceResistivity):
+		return ""
+	}
+	return "insulating (at or above the spark bound)"
+}
+
 func boolText(b bool) string {
 	if b {
 		return "yes"
@@ -371,11 +393,11 @@ func objectColumns(withProbability bool) []book.Column[objRow] {
 		{Header: "Possible discharges", Width: 22, Value: func(o objRow) book.Cell { return book.WrapText(possibleDischarges(&o.Eval)) }},
 		{Header: book.UnitCM2.Header("Insulating area"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.InsulatingArea }, book.UnitCM2)},
 		{Header: book.UnitOhmSq.Header("Surface resistivity at RH"), Width: 11, Value: ev(func(e *model.Evaluation) float64 { return e.SurfaceResistivity }, book.UnitOhmSq)},
-		{Header: "Dissipative at RH", Width: 9, Value: func(o objRow) book.Cell {
-			if math.IsNaN(o.Eval.SurfaceResistivity) {
-				return book.Cell{}
+		{Header: "Surface at RH (rules used)", Width: 22, Value: func(o objRow) book.Cell {
+			if t := surfaceRuleText(&o.Input, &o.Eval); t != "" {
+				return book.WrapText(t)
 			}
-			return book.Text(boolText(o.Eval.Dissipative))
+			return book.Cell{}
 		}},
 		{Header: book.UnitSecond.Header("Decay time"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.DecayTime }, book.UnitSecond)},
 		{Header: book.UnitSecond.Header("Time to 100 V"), Width: 10, Value: ev(func(e *model.Evaluation) float64 { return e.TimeTo100V }, book.UnitSecond)},
