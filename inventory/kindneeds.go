@@ -69,7 +69,9 @@ var sheetNeeds = cols(
 	surfaceExtras,
 )
 
-var kindNeedTable = []KindNeed{
+// kindNeedTable: every kind needs Station (the station gives the RH and the
+// atmosphere every rule uses); withStation adds it in one place.
+var kindNeedTable = withStation([]KindNeed{
 	{KindSheet, sheetNeeds,
 		"Length and Width, and a reading (Field with Field distance, or Surface potential) or, for a conductive or dissipative material, Resistance to earth; Thickness when Backing is earthed; a Surface potential alone also needs Backing earthed or Distance to earth (a warning)"},
 	{KindBelt, cols(sheetNeeds, []ColumnNeed{{"Speed", Optional}}),
@@ -88,8 +90,16 @@ var kindNeedTable = []KindNeed{
 		{"Filling", Optional}, {"Vessel material", Optional}, {"Vessel class", Optional}, {"Vessel diameter", Conditional},
 		{"Filter", Optional}, {"Residence time", Conditional}, {"Second phase", Optional}, {"Inlet velocity", Conditional}},
 		"Speed (flow velocity) and Diameter (line inner diameter); Conductivity blank is a warning (assessed as the stricter case: low for the filling clauses, conductive for a spark of the liquid); a blank transfer input (Vessel material, Vessel class, Filling, Filter, Second phase) is assessed as the stricter case with a warning; Resistance to earth and Capacitance are the receiving vessel's (blank: not earthed, the Vessel class's typical capacitance), Relative permittivity the liquid's (blank: the substance list's, else 2, marked), Charging current used when measured"},
-	{KindBag, []ColumnNeed{{"Station", Conditional}, {"Bag type", Optional}},
+	{KindBag, []ColumnNeed{{"Bag type", Optional}},
 		"a station with an Atmosphere (the product's MIE decides the bag types allowed); Bag type optional (blank: the most restrictive case)"},
+})
+
+// withStation puts Station, required, first in every kind's columns.
+func withStation(ks []KindNeed) []KindNeed {
+	for i := range ks {
+		ks[i].Columns = append([]ColumnNeed{{"Station", Required}}, ks[i].Columns...)
+	}
+	return ks
 }
 
 var containerNeeds = []ColumnNeed{{"Surface potential", Optional}, {"Mass flow", Optional}, {"Charge-to-mass", Optional}, {"Charging current", Optional}, {"Charging time", Optional}, {"Resistance to earth", Optional}, {"Capacitance", Optional}}
@@ -129,7 +139,9 @@ func kindRequiredColumns(kind string) []string {
 	for _, k := range kindNeedTable {
 		if k.Kind == kind {
 			for _, c := range k.Columns {
-				if c.Need == Required {
+				// Station has its own check on every row (with its own
+				// words: "needs a Station; enter the ID..."): not twice.
+				if c.Need == Required && c.Column != "Station" {
 					out = append(out, c.Column)
 				}
 			}
