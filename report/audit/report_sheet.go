@@ -172,6 +172,29 @@ func objectsText(ids []string) string {
 	return strings.Join(ids[:most], ", ") + fmt.Sprintf(" and %d more", len(ids)-most)
 }
 
+// reportHumidityText is the survey's relative humidity as the Report's survey
+// block gives it: the site's (or, none given, the dry-day value the
+// assessment took, said so) and how many stations carry their own.
+func reportHumidityText(a *assess.Audit) string {
+	site := a.Survey.Site
+	t := ""
+	if site.RelativeHumidity.Known {
+		t = book.FormatSigTrim(site.RelativeHumidity.Value, 3) + " % at the site (entered)"
+	} else {
+		t = fmt.Sprintf("not given on the Site sheet: %s %% taken (dry day, the stricter case)", book.FormatSigTrim(assess.DryDayHumidity, 3))
+	}
+	own := 0
+	for _, st := range a.Survey.Stations {
+		if st.RelativeHumidity.Known {
+			own++
+		}
+	}
+	if own > 0 {
+		t += fmt.Sprintf("; %d station(s) with their own (Stations sheet, RH used)", own)
+	}
+	return t
+}
+
 // reportReason is the reason a station's verdict reads as it does: the
 // station's main reason (the one the Stations sheet shows), else the words of
 // the first finding at the station whose severity is the verdict, else a
@@ -266,6 +289,7 @@ func (wb *workbook) report() error {
 		{"Surveyed by", site.SurveyedBy},
 		{"Scope", site.SignOff.Scope},
 		{"Revision", site.SignOff.Revision},
+		{"Relative humidity", reportHumidityText(a)},
 		{"Objects by verdict", strings.Join(counts, ", ")},
 		{"Findings", fmt.Sprintf("%d, grouped below by station and check (each one, with its basis, on the Findings sheet)", len(a.Findings))},
 		{"Rows rejected", fmt.Sprintf("%d (see the Rejected sheet: a rejected object is a hazard this audit does not cover)", rejected)},

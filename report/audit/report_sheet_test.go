@@ -82,3 +82,18 @@ func TestGroupFindingsWorstLeads(t *testing.T) {
 		t.Errorf("actions %q, want %q (the drum's action under its name, none for the liner)", g.actions, want)
 	}
 }
+
+// Review N14: the Report's survey block gives the relative humidity: the
+// fixture's Site row enters 40 %RH and station S1 its own 35 %RH (fixture_test.go).
+func TestReportSurveyBlockHumidity(t *testing.T) {
+	f := openWorkbook(t, testWorkbook(t))
+	for _, r := range rowsOf(t, f, SheetReport) {
+		if len(r) > 2 && r[0] == "Relative humidity" { // label in A:B, value in C:F
+			if !strings.HasPrefix(r[2], "40 % at the site") || !strings.Contains(r[2], "1 station(s) with their own") {
+				t.Errorf("survey block RH %q", r[2])
+			}
+			return
+		}
+	}
+	t.Error("the Report's survey block has no relative humidity")
+}
