@@ -77,7 +77,9 @@ func verifyRows(a *assess.Audit, used map[string]bool) []verifyRow {
 		if s.SiteItem != "" {
 			over = "Site sheet item \"" + s.SiteItem + "\""
 		}
-		out = append(out, verifyRow{what: "limit", key: s.Key, name: s.Label, value: s.Value(a.Options.Limits), unit: displayUnit(s.Display),
+		// In the unit of its Site item, as the Limits table shows it (limitUnit):
+		// the large-tank diameter in m, not mm.
+		out = append(out, verifyRow{what: "limit", key: s.Key, name: s.Label, value: s.Value(a.Options.Limits), unit: limitUnit(s),
 			unitSI: s.Unit, override: over, source: s.Source()})
 	}
 	if a.Survey == nil {
