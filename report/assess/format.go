@@ -4,8 +4,6 @@ import (
 	"math"
 	"strconv"
 	"strings"
-
-	"github.com/sparkmargin/sparkmargin/report/book"
 )
 
 // The formatters below write SI values in the engineering units people read in
@@ -90,13 +88,25 @@ func celsius(k float64) string  { return unit(sig(k-273.15), "°C") }
 func uCm2(s float64) string     { return unit(sig(s*1e6), "µC/m²") }
 func plain(v float64) string    { return sig(v) }
 
-// ratioText is a ratio of energy to MIE in running text, rounded by the one
-// formatter every output uses for ratios (book.FormatSigTrim, three
-// significant digits), so that a finding and a table never round one ratio
-// two ways (1.125: "1.12" in both).
+// ratioText is a ratio of energy to MIE in running text, rounded as every
+// table writes a ratio (report/book.FormatSigTrim, three significant digits:
+// the decimal nearest the binary value, strconv's rounding), so that a finding
+// and a table never round one ratio two ways (1.125: "1.12" in both). The
+// judging engine does not import the output packages: the rule is repeated
+// here and TestRatioTextRoundsAsTheTables (report/audit) holds them together.
 func ratioText(r float64) string {
-	if math.IsNaN(r) || math.IsInf(r, 0) {
+	a := math.Abs(r)
+	if math.IsNaN(r) || math.IsInf(r, 0) || r == 0 || a < 1e-3 || a >= 1e6 {
 		return sig(r)
 	}
-	return book.FormatSigTrim(r, 3)
+	mag := int(math.Floor(math.Log10(a)))
+	dec := max(2-mag, 0)
+	t := strconv.FormatFloat(r, 'f', dec, 64)
+	if v, err := strconv.ParseFloat(t, 64); err == nil && dec > 0 && int(math.Floor(math.Log10(math.Abs(v)))) > mag {
+		t = strconv.FormatFloat(r, 'f', dec-1, 64) // 9.995 -> 10.0, not 10.00
+	}
+	if strings.Contains(t, ".") {
+		t = strings.TrimRight(strings.TrimRight(t, "0"), ".")
+	}
+	return t
 }
