@@ -86,6 +86,18 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 			fmt.Fprint(w, wrapText("  ", t, terminalWidth, "    "))
 		}
 	}
+	var held []string
+	for _, o := range x.Objects {
+		if o.Held != "" {
+			held = append(held, o.ID+": "+o.Held)
+		}
+	}
+	if len(held) > 0 {
+		fmt.Fprintln(w, "\nHeld by a reading the change cannot undo:")
+		for _, t := range held {
+			fmt.Fprint(w, wrapText("  ", t, terminalWidth, "    "))
+		}
+	}
 	fmt.Fprintf(w, "\nObjects: %d cleared, %d stayed, %d appeared, %d without hazard before and after",
 		x.Moved[Cleared], x.Moved[Stayed], x.Moved[Appeared], x.Moved[NoHazard])
 	if n := x.Moved[Unjudged]; n > 0 {

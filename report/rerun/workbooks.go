@@ -120,12 +120,12 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		}
 		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio, o.Before.RatioAssumed())}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio, o.After.RatioAssumed()), ct(string(o.Outcome)), wr(o.Worse), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio, o.After.RatioAssumed()), ct(string(o.Outcome)), wr(o.Worse), wr(o.Held), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
-	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "Why worse", "What changed and why", "Reason after"},
-		[]float64{12, 10, 10, 14, 14, 16, 14, 16, 11, 40, 55, 55}, rows)
+	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "Why worse", "Held by a reading", "What changed and why", "Reason after"},
+		[]float64{12, 10, 10, 14, 14, 16, 14, 16, 11, 40, 36, 55, 55}, rows)
 	b.PrintSetup(SheetObjects, "$1:$1")
 
 	// Stations.
