@@ -432,8 +432,14 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		}
 		rows = append(rows, []audit.Cell{tx(where), tx(ch.Field), valueCell(ch.Before), valueCell(ch.After), ct(unitOf(ch.Before, ch.After))})
 	}
-	if len(rows) == 0 {
+	switch {
+	case len(rows) == 0 && len(c.NotCompared) > 0:
+		rows = append(rows, []audit.Cell{tx("none"), tx("no compared setting changed")})
+	case len(rows) == 0:
 		rows = append(rows, []audit.Cell{tx("none"), tx("no Site item or station setting changed")})
+	}
+	if t := c.NotComparedText(); t != "" {
+		rows = append(rows, []audit.Cell{tx("note"), wr(t)})
 	}
 	b.Table(SheetSettings, 1, []string{"Where", "Setting", "Old value", "New value", "Unit"}, []float64{12, 26, 16, 16, 8}, rows)
 	b.PrintSetup(SheetSettings, "$1:$1")
