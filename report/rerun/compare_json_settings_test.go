@@ -6,6 +6,8 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/xuri/excelize/v2"
+
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
 )
@@ -54,5 +56,48 @@ func TestCompareJSONSideSettings(t *testing.T) {
 	}
 	if !strings.Contains(term.String(), "not compared (audit JSON side)") || strings.Contains(term.String(), "no Site item or station setting changed") {
 		t.Errorf("terminal:\n%s", term.String())
+	}
+}
+
+// Review item N13: on the compare workbook's Stations sheet the ratio columns
+// sit between the ranks and the verdicts, never beside the Move text (a
+// right-aligned number ran into it), and the Method's note on the assumed
+// ratio names the charging current as well as the resistance to earth (the
+// two assumed inputs of assess.AssumedInputDominates). Drums invented for the
+// demo: earthing D1 through 1e6 Ω moves its station.
+func TestCompareStationsSheetLayout(t *testing.T) {
+	old := surveyOf(atmToluene, 30, drumAt("D1", "", 1e11, 100e-12), drumAt("D2", "", 1e5, 100e-12))
+	newer := surveyOf(atmToluene, 30, drumAt("D1", "", 1e6, 100e-12), drumAt("D2", "", 1e5, 100e-12))
+	c := Compare(SideFromAudit("old.xlsx", assess.Assess(old, assess.Options{Limits: Limits(old)})),
+		SideFromAudit("new.xlsx", assess.Assess(newer, assess.Options{Limits: Limits(newer)})))
+	var x bytes.Buffer
+	if err := WriteCompareWorkbook(&x, c, newer, RunInfo{}); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows(SheetStations)
+	hdr := rows[0]
+	move := slices.Index(hdr, "Move")
+	if move < 1 || strings.HasPrefix(hdr[move-1], "Worst ratio") {
+		t.Errorf("Stations header %q: a ratio column beside Move", hdr)
+	}
+	if w, _ := f.GetColWidth(SheetStations, "I"); hdr[8] != "Move" || w < 50 {
+		t.Errorf("Move column %q width %g, want column I at least 50", hdr[8], w)
+	}
+	method, _ := f.GetRows(SheetMethod)
+	found := false
+	for _, r := range method {
+		for _, v := range r {
+			if strings.Contains(v, "or charging current") {
+				found = true
+			}
+		}
+	}
+	if !found {
+		t.Error("the Method's assumed-ratio note does not name the charging current")
 	}
 }
