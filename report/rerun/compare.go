@@ -307,8 +307,8 @@ type Comparison struct {
 	// holds the site RH, air temperature and margin and each station's
 	// atmosphere, zone, MIE and group, not a station's own RH nor the limit
 	// overrides): "not compared (audit JSON side)", never "no change".
-	NotCompared []string
-	Added, Removed []string      // object IDs, in the order of their side
+	NotCompared    []string
+	Added, Removed []string // object IDs, in the order of their side
 	// RejectedOld and RejectedNew are the Objects rows rejected on each side:
 	// not assessed there, so neither added nor removed.
 	RejectedOld, RejectedNew []RejectedObject

@@ -347,8 +347,9 @@ type jsonCompare struct {
 	Warnings       []jsonCaution       `json:"warnings"`
 	SiteChanges    []jsonFieldChange   `json:"site_changes"`
 	StationChanges []jsonStationChange `json:"station_changes"`
-	// SettingsNotCompared: the settings an audit JSON side does not hold.
-	SettingsNotCompared []string          `json:"settings_not_compared,omitempty"`
+	// SettingsNotCompared: the settings an audit JSON side does not hold
+	// ([] when both sides are surveys).
+	SettingsNotCompared []string          `json:"settings_not_compared"`
 	Added               []string          `json:"added"`
 	Removed             []string          `json:"removed"`
 	RejectedOld         []jsonRejected    `json:"rejected_old"`
@@ -407,7 +408,7 @@ func WriteCompareJSON(w io.Writer, c *Comparison) error {
 	for _, k := range c.Cautions {
 		d.Warnings = append(d.Warnings, jsonCaution{string(k.Kind), k.Text})
 	}
-	d.SettingsNotCompared = c.NotCompared
+	d.SettingsNotCompared = append([]string{}, c.NotCompared...)
 	for _, ch := range c.SiteChanges {
 		d.SiteChanges = append(d.SiteChanges, jsonFieldChange{ch.Field, jvalue(ch.Before), jvalue(ch.After)})
 	}
