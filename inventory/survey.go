@@ -334,6 +334,40 @@ type SheetCount struct {
 	Rejected int
 }
 
+// NotUsedByAssess reports whether the sheet is the optional Changes sheet:
+// only whatif reads it (and stops on a rejected row of it), so for the other
+// commands its rows are neither assessed nor rejected: a row with a problem
+// there is a note, counted apart ("not used by this command").
+func (c SheetCount) NotUsedByAssess() bool { return c.Sheet == SheetChanges }
+
+// RowCounts sums the rows read, accepted and rejected on the sheets the
+// assessment uses, and counts apart the Changes rows with a problem
+// (SheetCount.NotUsedByAssess): those are notes, not rejected rows.
+func (s *Survey) RowCounts() (read, accepted, rejected, changesWithProblem int) {
+	for _, c := range s.Counts {
+		if c.NotUsedByAssess() {
+			changesWithProblem += c.Rejected
+			continue
+		}
+		read += c.Read
+		accepted += c.Accepted
+		rejected += c.Rejected
+	}
+	return read, accepted, rejected, changesWithProblem
+}
+
+// RejectedUsed counts the rejected rows of the sheets the assessment uses
+// (the Changes sheet's left out: see SheetCount.NotUsedByAssess).
+func (s *Survey) RejectedUsed() int {
+	n := 0
+	for _, r := range s.Rejected {
+		if r.Sheet != SheetChanges {
+			n++
+		}
+	}
+	return n
+}
+
 // Change is one planned change from the survey's optional Changes sheet
 // (used by whatif; the same syntax as its flags).
 type Change struct {

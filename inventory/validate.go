@@ -252,7 +252,9 @@ func quantityFix(qe *QuantityError, m HeaderMatch, sheet string) string {
 		}
 		return "write a bare number"
 	case errors.Is(qe, ErrAmbiguousUnit):
-		return fmt.Sprintf("write the unit in full: %s, or %s", qe.Readings[0], qe.Readings[1])
+		// The message gives both readings (QuantityError.Describe): the fix
+		// does not repeat them.
+		return "write the unit in full, as one of the two readings says"
 	case errors.Is(qe, ErrNotFinite):
 		return "enter the measured value, or leave the cell blank if it was not measured"
 	case errors.Is(qe, ErrUncertainty):

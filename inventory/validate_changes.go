@@ -301,7 +301,10 @@ func changeKindHint() string {
 func (v *validator) changes(t *table, stations, objs map[string]refState) {
 	seen := map[int]bool{}
 	for _, rr := range t.Rows {
-		f := v.beginRow(t, rr, "Change", seen)
+		// The row is named by its target (the object or station it changes),
+		// as the Rejected sheet's ID column names a row: the kind is in its
+		// own column.
+		f := v.beginRow(t, rr, "Target", seen)
 		c := Change{Row: rr.Row, Target: f.text("Target"), Value: f.text("Value"), Note: f.text("Notes")}
 		if f.text("Change") == "" {
 			f.errorf("Change", ErrRequired, "use one of: "+strings.Join(ChangeKinds(), ", "), "Change is blank")

@@ -284,15 +284,17 @@ func (r *Run) AssessOne(survey string, out Outputs, pf PortfolioFiles) error {
 // shortfall says why an assessed survey still fails the run (class
 // Problems), or nil: nothing could be assessed; an object row was rejected
 // (an object not assessed is a hazard the audit does not cover); under
-// Strict, any row was rejected. The audit is written in every case.
+// Strict, any row of a sheet the assessment uses was rejected. The audit is written in every case.
 func (r *Run) shortfall(a *assess.Audit, survey string) error {
 	switch {
 	case ObjectCount(a) == 0:
 		return fmt.Errorf("no object could be assessed: run 'sparkmargin check %s' for the problems", survey)
 	case RejectedObjects(a.Survey) > 0:
 		return fmt.Errorf("%d object row(s) were rejected: the audit is written, but the stations marked incomplete are ranked without them; see the Rejected sheet", RejectedObjects(a.Survey))
-	case r.Strict && len(a.Survey.Rejected) > 0:
-		return fmt.Errorf("--strict: %d row(s) were rejected; see the Rejected sheet", len(a.Survey.Rejected))
+	case r.Strict && a.Survey.RejectedUsed() > 0:
+		// A Changes row with a problem is a note, not a rejected row: the
+		// sheet is not used by this command (inventory.SheetCount.NotUsedByAssess).
+		return fmt.Errorf("--strict: %d row(s) were rejected; see the Rejected sheet", a.Survey.RejectedUsed())
 	}
 	return nil
 }

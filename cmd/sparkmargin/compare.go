@@ -97,6 +97,10 @@ func compareSide(ws *outfile.Workspace, path string, asJSON bool) (*rerun.Side, 
 	// The survey's own identity (its checksum, date and Site ID), compared on results.
 	side.Identity = rerun.SurveyIdentity(path, s)
 	side.Identity.Results = true
+	// The survey's settings as the survey gives them: those the other side's
+	// JSON holds are compared, the rest named as not compared.
+	full := rerun.SideFromAudit(label, a)
+	side.Site, side.StationFields = full.Site, full.StationFields
 	return side, s, nil
 }
 

@@ -245,7 +245,7 @@ func TestCompareCommand(t *testing.T) {
 			t.Fatalf("compare %v: exit %d: %s", pair, code, errOut)
 		}
 		data, _ := os.ReadFile(js)
-		top := wantKeys(t, "compare", data, "old", "new", "warnings", "site_changes", "station_changes", "added", "removed", "rejected_old", "rejected_new",
+		top := wantKeys(t, "compare", data, "old", "new", "warnings", "site_changes", "station_changes", "settings_not_compared", "added", "removed", "rejected_old", "rejected_new",
 			"changed", "stations", "station_counts", "different_sites", "cautions")
 		// the same survey on both sides (an audit JSON is known by its survey's checksum): "same file", not "same survey date"
 		if !strings.Contains(string(top["warnings"]), `"same file"`) || strings.Contains(string(top["warnings"]), `"same survey date"`) || !strings.Contains(string(top["old"]), `"survey_date": "2026-02-10"`) {

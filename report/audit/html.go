@@ -321,7 +321,7 @@ func (h *HTMLWriter) page(a *assess.Audit, info RunInfo, hum *HumidityGrid) html
 		SurveyFile:  info.file(a), SHA: info.sha(a), Tool: info.tool() + " " + info.ToolVersion, Command: info.CommandLine,
 		CautionLine: templates.CautionLine, Cautions: templates.Cautions(),
 		Principles: templates.Principles(), Formulas: templates.MethodNotes(), Defaults: a.MethodDefaults,
-		Rejected: len(a.Survey.Rejected), BorderlinePct: plainNumber(100*assess.BorderlineThreshold) + " %",
+		Rejected: a.Survey.RejectedUsed(), BorderlinePct: plainNumber(100*assess.BorderlineThreshold) + " %",
 	}
 	if site.Defaulted(inventory.SiteItemRequiredMargin) || !(site.RequiredMargin.Known && site.RequiredMargin.Value > 0) {
 		p.Margin += " (default: not given on the Site sheet)"

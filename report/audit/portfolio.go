@@ -71,7 +71,7 @@ type Portfolio struct {
 func PortfolioEntry(a *assess.Audit, file, audit string) PortfolioSurvey {
 	p := PortfolioSurvey{File: file, Audit: audit, Counts: map[assess.Verdict]int{}, Findings: len(a.Findings)}
 	if s := a.Survey; s != nil {
-		p.SHA256, p.Site, p.SiteID, p.SurveyDate, p.Rejected = s.SHA256, s.Site.Name, s.Site.ID, s.Site.SurveyDate, len(s.Rejected)
+		p.SHA256, p.Site, p.SiteID, p.SurveyDate, p.Rejected = s.SHA256, s.Site.Name, s.Site.ID, s.Site.SurveyDate, s.RejectedUsed()
 		for _, st := range s.Stations {
 			if l := strings.TrimSpace(st.Line); l != "" && !slices.Contains(p.Lines, l) {
 				p.Lines = append(p.Lines, l)

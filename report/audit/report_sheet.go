@@ -278,10 +278,9 @@ func (wb *workbook) report() error {
 	for _, v := range verdictOrder() {
 		counts = append(counts, fmt.Sprintf("%d %s", a.Counts[v], v))
 	}
-	rejected := 0
-	for _, c := range a.Survey.Counts {
-		rejected += c.Rejected
-	}
+	// A Changes row with a problem is a note, not a rejected row
+	// (inventory.SheetCount.NotUsedByAssess).
+	_, _, rejected, _ := a.Survey.RowCounts()
 	ident := [][2]string{
 		{"Site", siteName(a)},
 		{"Site ID", site.ID},

@@ -137,7 +137,14 @@ func (wb *workbook) summary() error {
 	}
 	r++
 	for _, c := range a.Survey.Counts {
-		if err := sink.Row(r, []book.Cell{book.Text(c.Sheet), book.Integer(c.Read), book.Integer(c.Accepted), book.Integer(c.Rejected)}, 0); err != nil {
+		cells := []book.Cell{book.Text(c.Sheet), book.Integer(c.Read), book.Integer(c.Accepted), book.Integer(c.Rejected)}
+		if c.NotUsedByAssess() {
+			// Not used by this command: its rows are neither accepted nor
+			// rejected; a row with a problem is a note on the Rejected sheet.
+			cells = []book.Cell{book.Text(c.Sheet), book.Integer(c.Read), book.Text("not used by this command"),
+				book.Text(fmt.Sprintf("none (%d row(s) with a problem: notes)", c.Rejected))}
+		}
+		if err := sink.Row(r, cells, 0); err != nil {
 			return err
 		}
 		r++

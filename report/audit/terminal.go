@@ -168,13 +168,10 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 		}
 	}
 	if a.Survey != nil {
-		read, acc, rej := 0, 0, 0
+		read, acc, rej, notUsed := a.Survey.RowCounts()
 		var where []string
 		for _, c := range a.Survey.Counts {
-			read += c.Read
-			acc += c.Accepted
-			rej += c.Rejected
-			if c.Rejected > 0 {
+			if c.Rejected > 0 && !c.NotUsedByAssess() {
 				where = append(where, fmt.Sprintf("%s %d", c.Sheet, c.Rejected))
 			}
 		}
@@ -185,7 +182,10 @@ func writeSummaryTail(w io.Writer, a *assess.Audit, quiet bool) error {
 		if n := len(a.Survey.Warnings()); n > 0 {
 			line += fmt.Sprintf("; %d warning(s)", n)
 		}
-		if rej > 0 || len(a.Survey.Warnings()) > 0 {
+		if notUsed > 0 {
+			line += fmt.Sprintf("; %s: %d row(s) with a problem, listed as notes", ChangesNotUsed, notUsed)
+		}
+		if rej > 0 || notUsed > 0 || len(a.Survey.Warnings()) > 0 {
 			line += " (see the Rejected sheet)"
 		}
 		fmt.Fprintln(w, line)

@@ -303,7 +303,12 @@ type Comparison struct {
 	Cautions       []Caution
 	SiteChanges    []FieldChange // Site items, in the order of the new side then removed ones
 	StationChanges []FieldChange // station settings of stations on both sides
-	Added, Removed []string      // object IDs, in the order of their side
+	// NotCompared names the settings one side does not hold (an audit JSON
+	// holds the site RH, air temperature and margin and each station's
+	// atmosphere, zone, MIE and group, not a station's own RH nor the limit
+	// overrides): "not compared (audit JSON side)", never "no change".
+	NotCompared    []string
+	Added, Removed []string // object IDs, in the order of their side
 	// RejectedOld and RejectedNew are the Objects rows rejected on each side:
 	// not assessed there, so neither added nor removed.
 	RejectedOld, RejectedNew []RejectedObject
@@ -644,7 +649,7 @@ func cautions(old, new Identity) []Caution {
 		add(CautionSameFile, "The two files are identical (same SHA-256 checksum): the same survey, nothing can have changed.")
 	}
 	if old.Results || new.Results {
-		add(CautionResultsOnly, "At least one side is an audit JSON, which holds results and no readings: both sides are compared on the audit's results (potential, energy, verdict), and Site items, limit overrides and readings are not compared.")
+		add(CautionResultsOnly, "At least one side is an audit JSON, which holds results and no readings: both sides are compared on the audit's results (potential, energy, verdict) and on the settings the JSON holds (site RH, air temperature, margin; each station's atmosphere, zone, MIE and group); a station's own RH, the limit overrides and the readings are not compared.")
 	}
 	return out
 }
@@ -683,23 +688,80 @@ func fieldChanges(station string, before, after []Field) []FieldChange {
 	return out
 }
 
+// commonFields keeps the fields of a that other holds too and adds the names
+// of the others to skipped, after where ("station relative humidity"; the
+// limit overrides as one "limit overrides").
+func commonFields(where string, a, other []Field, skipped map[string]bool) []Field {
+	has := map[string]bool{}
+	for _, f := range other {
+		has[f.Name] = true
+	}
+	var out []Field
+	for _, f := range a {
+		if has[f.Name] {
+			out = append(out, f)
+			continue
+		}
+		if f.Value.Text == "" && f.Value.SI == nil && !strings.HasPrefix(f.Name, "Limit: ") {
+			continue // not given on this side either: nothing left out
+		}
+		switch {
+		case strings.HasPrefix(f.Name, "Limit: "):
+			skipped["limit overrides"] = true
+		default:
+			n := strings.ToLower(f.Name[:1]) + f.Name[1:]
+			if !strings.HasPrefix(n, where) {
+				n = where + " " + n
+			}
+			skipped[n] = true
+		}
+	}
+	return out
+}
+
+// NotComparedText says which settings were not compared, or "".
+func (c *Comparison) NotComparedText() string {
+	if len(c.NotCompared) == 0 {
+		return ""
+	}
+	return "not compared (audit JSON side): " + strings.Join(c.NotCompared, ", ")
+}
+
 // Compare finds the cautions, the Site and station settings changed, the
 // objects added, removed and changed between two sides, and the stations whose
 // rank moved or verdict changed.
 func Compare(old, new *Side) *Comparison {
 	c := &Comparison{Old: old, New: new, Cautions: cautions(old.Identity, new.Identity)}
-	if !old.Identity.Results && !new.Identity.Results {
-		c.SiteChanges = fieldChanges("", old.Site, new.Site)
+	// An audit JSON side holds some of the settings only: those both sides
+	// hold are compared, the others named as not compared.
+	results := old.Identity.Results || new.Identity.Results
+	notCompared := map[string]bool{}
+	if results {
+		// An audit JSON never holds these (audit.WriteJSON).
+		notCompared["station relative humidity"], notCompared["limit overrides"] = true, true
 	}
+	both := func(where string, a, b []Field) ([]Field, []Field) {
+		if !results {
+			return a, b
+		}
+		return commonFields(where, a, b, notCompared), commonFields(where, b, a, notCompared)
+	}
+	oSite, nSite := both("site", old.Site, new.Site)
+	c.SiteChanges = fieldChanges("", oSite, nSite)
 	oldSF := map[string][]Field{}
 	for _, s := range old.StationFields {
 		oldSF[s.ID] = s.Fields
 	}
 	for _, s := range new.StationFields {
 		if b, ok := oldSF[s.ID]; ok {
-			c.StationChanges = append(c.StationChanges, fieldChanges(s.ID, b, s.Fields)...)
+			ob, nb := both("station", b, s.Fields)
+			c.StationChanges = append(c.StationChanges, fieldChanges(s.ID, ob, nb)...)
 		}
 	}
+	for n := range notCompared {
+		c.NotCompared = append(c.NotCompared, n)
+	}
+	slices.Sort(c.NotCompared)
 	c.RejectedOld, c.RejectedNew = old.Rejected, new.Rejected
 	rejOld, rejNew := rejectedIDs(old.Rejected), rejectedIDs(new.Rejected)
 	// stationOf finds an object's station on either side (rejected rows give theirs when readable).

@@ -347,15 +347,18 @@ type jsonCompare struct {
 	Warnings       []jsonCaution       `json:"warnings"`
 	SiteChanges    []jsonFieldChange   `json:"site_changes"`
 	StationChanges []jsonStationChange `json:"station_changes"`
-	Added          []string            `json:"added"`
-	Removed        []string            `json:"removed"`
-	RejectedOld    []jsonRejected      `json:"rejected_old"`
-	RejectedNew    []jsonRejected      `json:"rejected_new"`
-	Changed        []jsonChanged       `json:"changed"`
-	Stations       []jsonRankMove      `json:"stations"`
-	StationCounts  jsonStationCounts   `json:"station_counts"`
-	DifferentSites bool                `json:"different_sites"`
-	Cautions       []string            `json:"cautions"`
+	// SettingsNotCompared: the settings an audit JSON side does not hold
+	// ([] when both sides are surveys).
+	SettingsNotCompared []string          `json:"settings_not_compared"`
+	Added               []string          `json:"added"`
+	Removed             []string          `json:"removed"`
+	RejectedOld         []jsonRejected    `json:"rejected_old"`
+	RejectedNew         []jsonRejected    `json:"rejected_new"`
+	Changed             []jsonChanged     `json:"changed"`
+	Stations            []jsonRankMove    `json:"stations"`
+	StationCounts       jsonStationCounts `json:"station_counts"`
+	DifferentSites      bool              `json:"different_sites"`
+	Cautions            []string          `json:"cautions"`
 }
 
 func jrejected(rs []RejectedObject) []jsonRejected {
@@ -405,6 +408,7 @@ func WriteCompareJSON(w io.Writer, c *Comparison) error {
 	for _, k := range c.Cautions {
 		d.Warnings = append(d.Warnings, jsonCaution{string(k.Kind), k.Text})
 	}
+	d.SettingsNotCompared = append([]string{}, c.NotCompared...)
 	for _, ch := range c.SiteChanges {
 		d.SiteChanges = append(d.SiteChanges, jsonFieldChange{ch.Field, jvalue(ch.Before), jvalue(ch.After)})
 	}

@@ -382,7 +382,7 @@ func (c stationCause) Missing() []string {
 // highest step). The cause is the setter's, the object with the station's
 // worst verdict and, among those, the highest ratio (first in survey order on
 // a tie): NeverMissingInput when its verdict rests on a missing input or an
-// assumed (unmeasured) resistance to earth, NeverReading when its reading
+// assumed (unmeasured) resistance to earth or charging current, NeverReading when its reading
 // holds the hazard, else NeverHumidity. The other rows' missing inputs are
 // listed as also missing.
 func stationCauses(a *assess.Audit, station string) stationCause {
@@ -488,6 +488,10 @@ func rowCause(r *assess.ObjectResult) ([]string, ClearanceCause) {
 			miss = append(miss, id+": "+strings.TrimSuffix(r.Reason, "."))
 		}
 		return miss, NeverMissingInput
+	case r.RatioAssumed() && assess.AssumedCurrentDominates(&r.Eval, r.Eval.Effective):
+		// The resistance may be measured: what was assumed is the charging
+		// current (model.FlagAssumedCurrent), so that is what to measure.
+		return append([]string{id + ": charging current / potential in operation not measured (assumed the worst-case charging current, the stricter case)"}, miss...), NeverMissingInput
 	case r.RatioAssumed():
 		return append([]string{id + ": resistance to earth not measured (assumed no leakage, the stricter case)"}, miss...), NeverMissingInput
 	case r.Eval.IsolatedConductor && math.IsNaN(r.Input.Resistance):

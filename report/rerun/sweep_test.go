@@ -356,3 +356,26 @@ func TestLowRHWarns(t *testing.T) {
 		}
 	}
 }
+
+// A roller whose resistance to earth is measured (1e9 Ω, above the 1e6 Ω
+// earthing limit, TRGS 727 cl. 8.3) but whose charging current and potential
+// are not: the model takes the worst-case current (100 µA, JNIOSH-TR, the
+// stricter case), so V = I R = 100 kV, capped at the conductor maximum, and the
+// spark is at least the MIE (model.FlagAssumedCurrent). What is missing is the
+// charging current or the potential in operation, not the resistance that was
+// measured. Invented for the demo, after the review's dryer idler.
+func TestSweepNamesAssumedCurrent(t *testing.T) {
+	idler := inventory.Object{ID: "IDL", Kind: "roller", Resistance: known(1e9), Capacitance: known(50e-12)}
+	s := surveyOf(atmToluene, 30, idler)
+	rh, _ := ParseRange("10:90:20")
+	c := RunSweep(s, rh, SweepOptions{}).Clearances[0]
+	if c.Cause != NeverMissingInput || !strings.Contains(c.Text, "charging current / potential in operation not measured") {
+		t.Errorf("cause %q, text %q", c.Cause.Code(), c.Text)
+	}
+	if strings.Contains(c.Text, "resistance to earth not measured") {
+		t.Errorf("the resistance was measured, the text asks for it: %s", c.Text)
+	}
+	if len(c.Missing) != 1 || !strings.HasPrefix(c.Missing[0], "IDL: charging current") {
+		t.Errorf("missing %v", c.Missing)
+	}
+}

@@ -86,6 +86,18 @@ func WriteWhatifSummary(w io.Writer, x *Whatif) error {
 			fmt.Fprint(w, wrapText("  ", t, terminalWidth, "    "))
 		}
 	}
+	var held []string
+	for _, o := range x.Objects {
+		if o.Held != "" {
+			held = append(held, o.ID+": "+o.Held)
+		}
+	}
+	if len(held) > 0 {
+		fmt.Fprintln(w, "\nHeld by a reading the change cannot undo:")
+		for _, t := range held {
+			fmt.Fprint(w, wrapText("  ", t, terminalWidth, "    "))
+		}
+	}
 	fmt.Fprintf(w, "\nObjects: %d cleared, %d stayed, %d appeared, %d without hazard before and after",
 		x.Moved[Cleared], x.Moved[Stayed], x.Moved[Appeared], x.Moved[NoHazard])
 	if n := x.Moved[Unjudged]; n > 0 {
@@ -285,10 +297,16 @@ func WriteCompareSummary(w io.Writer, c *Comparison) error {
 		}
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", ch.Field, where, dash(ch.Before.Text), dash(ch.After.Text))
 	}
-	if len(c.SiteChanges)+len(c.StationChanges) == 0 {
+	switch none := len(c.SiteChanges)+len(c.StationChanges) == 0; {
+	case none && len(c.NotCompared) > 0:
+		fmt.Fprintln(tw, "(no compared setting changed)")
+	case none:
 		fmt.Fprintln(tw, "(no Site item or station setting changed)")
 	}
 	tw.Flush()
+	if t := c.NotComparedText(); t != "" {
+		fmt.Fprint(w, wrapText("", t, terminalWidth, "  "))
+	}
 	fmt.Fprintln(w)
 	fmt.Fprintf(w, "Added (%d):   %s\n", len(c.Added), listOrNone(c.Added))
 	fmt.Fprintf(w, "Removed (%d): %s\n", len(c.Removed), listOrNone(c.Removed))

@@ -57,6 +57,13 @@ type ObjectDelta struct {
 	// ("REW-BELT: now dissipative at 55 % RH and not earthed: judged as an
 	// isolated conductor; earth it"); "" when it is not worse.
 	Worse string
+	// Held says, for an object a change reached that is still a hazard after
+	// it, that its result is held by a reading on its row which the change
+	// cannot undo (the reading contradicts the model after the change:
+	// model.FlagHumidityContradiction or model.FlagEarthingContradiction;
+	// principle 1, a measurement beats a model): "held by its field reading of
+	// 120 kV/m: re-measure after the change"; "" otherwise.
+	Held string
 }
 
 // StationDelta is one station before and after the changes.
@@ -152,6 +159,7 @@ func Diff(before, after *assess.Audit, applied []Applied) *Whatif {
 			d.Why = why(b, d.After, d.Changed)
 			if d.Changed {
 				d.Worse = worse(b, d.After)
+				d.Held = heldByReading(b, d.After)
 			}
 		}
 		w.Moved[d.Outcome]++
@@ -170,6 +178,35 @@ func Diff(before, after *assess.Audit, applied []Applied) *Whatif {
 		w.Stations = append(w.Stations, d)
 	}
 	return w
+}
+
+// heldByReading says that a hazard after the changes is held by the reading
+// on the row, which the change leaves in place (a field reading, or a surface
+// potential the change did not drop), from typed results: the reading
+// contradicts what the model gives after the change (the surface now leaks at
+// the RH, or the earthing now drains it: model.FlagHumidityContradiction,
+// model.FlagEarthingContradiction), or the change moved neither the verdict
+// nor the ratio. The reading is kept (principle 1, a measurement beats a
+// model), so only a new reading taken after the change can clear it. ""
+// when the row is no hazard or holds no reading.
+func heldByReading(b, a *assess.ObjectResult) string {
+	if a == nil || !IsHazard(a.Verdict) {
+		return ""
+	}
+	o := a.Object
+	if !o.Field.Known && !o.SurfacePotential.Known {
+		return ""
+	}
+	contradicts := a.Eval.Flags&(model.FlagHumidityContradiction|model.FlagEarthingContradiction) != 0
+	unmoved := b != nil && b.Verdict == a.Verdict && ratioEq(b.Ratio, a.Ratio)
+	if !contradicts && !unmoved {
+		return ""
+	}
+	what := fmt.Sprintf("surface potential reading of %s kV", fmtSig(o.SurfacePotential.Value/1e3))
+	if o.Field.Known {
+		what = fmt.Sprintf("field reading of %s kV/m", fmtSig(o.Field.Value/1e3))
+	}
+	return fmt.Sprintf("held by its %s: re-measure after the change", what)
 }
 
 // why explains an object's before/after difference with the model's physics:

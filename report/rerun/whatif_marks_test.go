@@ -3,8 +3,11 @@ package rerun
 import (
 	"bytes"
 	"encoding/json"
+	"slices"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
 	"github.com/sparkmargin/sparkmargin/report/assess"
@@ -93,5 +96,62 @@ func TestWhatifCarriesIncompleteAndAssumedMarks(t *testing.T) {
 		if !strings.Contains(sj.String(), want) {
 			t.Errorf("sweep JSON lacks %s", want)
 		}
+	}
+}
+
+// Review item N3: a PET web whose field meter reads 400 kV/m at 5 cm (after
+// the demo's coater web, invented for the demo) stays a hazard when its
+// material is swapped to an antistatic grade and it is earthed: the reading,
+// sigma = eps0 E = 8.85e-12 x 4e5 = 3.5 µC/m² (Gauss's law, hand
+// calculation), is above the brush screen, and a reading beats a model
+// (principle 1). The change cannot undo the reading, so the object is named
+// as held by it, on the terminal and the workbook's Objects sheet. A drum
+// with no reading on its row, reached by the same kind of change, is not.
+func TestWhatifNamesObjectsHeldByAReading(t *testing.T) {
+	web := inventory.Object{ID: "WEB", Kind: "sheet", Material: "PET", Length: known(1.5), Width: known(1.32),
+		Thickness: known(23e-6), Backing: "none", Field: known(400e3), FieldDistance: known(0.05), Speed: known(3.5)}
+	drum := drumAt("DRUM", "", -1, 100e-12)
+	s := surveyOf(atmToluene, 30, web, drum)
+	w := run(t, s, [2]string{"material", "WEB=antistatic PE"}, [2]string{"earth", "WEB=1e6"}, [2]string{"earth", "DRUM=1e11"})
+	d := delta(t, w, "WEB")
+	if !IsHazard(d.After.Verdict) {
+		t.Fatalf("WEB after: %s, want still a hazard on its reading", d.After.Verdict)
+	}
+	want := "held by its field reading of 400 kV/m: re-measure after the change"
+	if d.Held != want {
+		t.Errorf("WEB held %q, want %q", d.Held, want)
+	}
+	if h := delta(t, w, "DRUM").Held; h != "" {
+		t.Errorf("DRUM has no reading, held %q", h)
+	}
+	var term bytes.Buffer
+	if err := WriteWhatifSummary(&term, w); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(term.String(), "Held by a reading the change cannot undo:\n  WEB: "+want) {
+		t.Errorf("terminal does not name WEB as held:\n%s", term.String())
+	}
+	var x bytes.Buffer
+	if err := WriteWhatifWorkbook(&x, w, RunInfo{}); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows(SheetObjects)
+	col := slices.Index(rows[0], "Held by a reading")
+	if col < 0 {
+		t.Fatalf("Objects sheet has no Held column: %q", rows[0])
+	}
+	found := false
+	for _, r := range rows[1:] {
+		if r[0] == "WEB" && len(r) > col && r[col] == want {
+			found = true
+		}
+	}
+	if !found {
+		t.Errorf("Objects sheet does not hold WEB's held text")
 	}
 }

@@ -120,12 +120,12 @@ func WriteWhatifWorkbook(w io.Writer, x *Whatif, info RunInfo) error {
 		}
 		row := []audit.Cell{tx(o.ID), tx(o.Station), tx(o.Kind), tx(mat), vd(o.Before.Verdict.String()), ratioCell(o.Before.Ratio, o.Before.RatioAssumed())}
 		if o.After != nil {
-			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio, o.After.RatioAssumed()), ct(string(o.Outcome)), wr(o.Worse), wr(o.Why), wr(o.After.Reason))
+			row = append(row, vd(o.After.Verdict.String()), ratioCell(o.After.Ratio, o.After.RatioAssumed()), ct(string(o.Outcome)), wr(o.Worse), wr(o.Held), wr(o.Why), wr(o.After.Reason))
 		}
 		rows = append(rows, row)
 	}
-	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "Why worse", "What changed and why", "Reason after"},
-		[]float64{12, 10, 10, 14, 14, 16, 14, 16, 11, 40, 55, 55}, rows)
+	b.Table(SheetObjects, 1, []string{"ID", "Station", "Kind", "Material after", "Verdict before", "Ratio E/MIE before [–]", "Verdict after", "Ratio E/MIE after [–]", "Outcome", "Why worse", "Held by a reading", "What changed and why", "Reason after"},
+		[]float64{12, 10, 10, 14, 14, 16, 14, 16, 11, 40, 36, 55, 55}, rows)
 	b.PrintSetup(SheetObjects, "$1:$1")
 
 	// Stations.
@@ -362,7 +362,7 @@ func compareNotes() [][2]string {
 		{"Date order", "OLD should be the earlier survey. When OLD is dated after NEW, or a date is missing, a warning says so: 'added', 'removed', 'before' and 'after' then read backwards or cannot be ordered."},
 		{"What compare does not say", "It does not say why a value changed (a new reading, a process change, a typing error), nor that a change is an improvement: a verdict that went from incendive to non-incendive rests on the new survey's readings and inputs, which a competent person should check. A rank is relative to the other stations of the same survey, so a rank can move while nothing changed at the station. When objects were added, removed or rejected at a station, its move is not called better or worse: the Move column says which objects differ (a station that lost an object is not improved by it). When either side is an audit JSON, the sides are compared on results only (no readings, no Site items)."},
 		{"Rejected rows", "An Objects row rejected on either side (a typing error, a missing required reading) is not assessed on that side, so it is listed on the Rejected objects sheet, never as added or removed, and its station's rank leaves it out. compare then warns and exits with status 1, as assess does: see that side's audit and its Rejected sheet, or run 'sparkmargin check'."},
-		{"Assumed resistance", "A worst ratio or ratio shown as '" + assess.RatioAssumedText + "' is a spark energy set by an unmeasured resistance to earth taken as no leakage: at least the MIE, its size no figure to read or compare; measure the resistance to earth."},
+		{"Assumed resistance", "A worst ratio or ratio shown as '" + assess.RatioAssumedText + "' is a spark energy set by an assumed input, an unmeasured resistance to earth (taken as no leakage) or charging current (taken as the worst-case current): at least the MIE, its size no figure to read or compare; measure the resistance to earth or the charging current / potential in operation, as the object's reason says."},
 		{"Screening", "Both audits are screening estimates: defer to local codes, the site's hazardous-area classification and a competent person (see the Cautions sheet)."},
 	}
 }
@@ -432,8 +432,14 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 		}
 		rows = append(rows, []audit.Cell{tx(where), tx(ch.Field), valueCell(ch.Before), valueCell(ch.After), ct(unitOf(ch.Before, ch.After))})
 	}
-	if len(rows) == 0 {
+	switch {
+	case len(rows) == 0 && len(c.NotCompared) > 0:
+		rows = append(rows, []audit.Cell{tx("none"), tx("no compared setting changed")})
+	case len(rows) == 0:
 		rows = append(rows, []audit.Cell{tx("none"), tx("no Site item or station setting changed")})
+	}
+	if t := c.NotComparedText(); t != "" {
+		rows = append(rows, []audit.Cell{tx("note"), wr(t)})
 	}
 	b.Table(SheetSettings, 1, []string{"Where", "Setting", "Old value", "New value", "Unit"}, []float64{12, 26, 16, 16, 8}, rows)
 	b.PrintSetup(SheetSettings, "$1:$1")
@@ -486,8 +492,11 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 
 	rows = nil
 	for _, m := range c.Stations {
-		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(), vd(m.VerdictBefore), vd(m.VerdictAfter),
-			ratioCell(m.WorstRatioBefore, m.WorstRatioAssumedBefore), ratioCell(m.WorstRatioAfter, m.WorstRatioAssumedAfter), wr(m.Move())}
+		// The ratios sit between the ranks and the verdicts: a right-aligned
+		// number beside the Move text ran into it ("8.70 down 1").
+		row := []audit.Cell{tx(m.ID), tx(m.Name), audit.EmptyCell(), audit.EmptyCell(),
+			ratioCell(m.WorstRatioBefore, m.WorstRatioAssumedBefore), ratioCell(m.WorstRatioAfter, m.WorstRatioAssumedAfter),
+			vd(m.VerdictBefore), vd(m.VerdictAfter), wr(m.Move())}
 		if m.RankBefore > 0 {
 			row[2] = in(m.RankBefore)
 		}
@@ -499,7 +508,7 @@ func WriteCompareWorkbook(w io.Writer, c *Comparison, newSurvey *inventory.Surve
 	if len(rows) == 0 {
 		rows = append(rows, []audit.Cell{tx("none"), tx("no station's rank or verdict moved")})
 	}
-	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Verdict old", "Verdict new", "Worst ratio old [–]", "Worst ratio new [–]", "Move"}, []float64{10, 28, 9, 9, 14, 14, 16, 16, 40}, rows)
+	b.Table(SheetStations, 1, []string{"Station", "Name", "Rank old", "Rank new", "Worst ratio old [–]", "Worst ratio new [–]", "Verdict old", "Verdict new", "Move"}, []float64{10, 28, 9, 9, 17, 17, 15, 15, 56}, rows)
 	b.PrintSetup(SheetStations, "$1:$1")
 
 	// Method: both identities, the warnings, what compare does and does not say.
