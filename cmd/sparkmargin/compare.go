@@ -94,11 +94,10 @@ func compareSide(ws *outfile.Workspace, path string, asJSON bool) (*rerun.Side, 
 	if err != nil {
 		return nil, nil, err
 	}
-	// The survey's own identity (its checksum, date and Site ID), compared on results.
+	// Its own identity (checksum, date, Site ID) and settings: those the
+	// other side's JSON holds are compared, the rest named as not compared.
 	side.Identity = rerun.SurveyIdentity(path, s)
 	side.Identity.Results = true
-	// The survey's settings as the survey gives them: those the other side's
-	// JSON holds are compared, the rest named as not compared.
 	full := rerun.SideFromAudit(label, a)
 	side.Site, side.StationFields = full.Site, full.StationFields
 	return side, s, nil
@@ -136,19 +135,4 @@ func runCompare(out io.Writer, o compareOptions) error {
 		fmt.Fprintf(out, "Compare JSON:     %s\n", outfile.ShownPath(o.json))
 	}
 	return compareShortfall(c)
-}
-
-// compareShortfall is the exit rule of compare, after its outputs are
-// written: an Objects row rejected on either side fails the run as it fails
-// assess (an object not assessed is a hazard the comparison does not cover),
-// and so does a comparison of two different sites (not a repeat survey).
-func compareShortfall(c *rerun.Comparison) error {
-	switch {
-	case c.Rejected() > 0:
-		return withCode(exitProblems, fmt.Errorf("%d object row(s) were rejected (OLD %d, NEW %d): they are listed apart, not as added or removed, and their stations are compared without them; see each side's audit / Rejected sheet",
-			c.Rejected(), len(c.RejectedOld), len(c.RejectedNew)))
-	case c.HasCaution(rerun.CautionDifferentSites):
-		return withCode(exitProblems, fmt.Errorf("the two sides are different sites: the comparison is written, but it is of two places, not a repeat survey"))
-	}
-	return nil
 }

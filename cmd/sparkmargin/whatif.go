@@ -8,7 +8,6 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sparkmargin/sparkmargin/inventory"
-	"github.com/sparkmargin/sparkmargin/report"
 	"github.com/sparkmargin/sparkmargin/report/outfile"
 	"github.com/sparkmargin/sparkmargin/report/rerun"
 )
@@ -110,16 +109,6 @@ func runWhatif(out io.Writer, o whatifOptions) error {
 		return withCode(exitProblems, fmt.Errorf("no object of %s could be assessed: run 'sparkmargin check %s' for the problems", o.survey, o.survey))
 	}
 	return rejectedShortfall(s)
-}
-
-// rejectedShortfall is assess's exit rule for a rerun, after its outputs are
-// written: an Objects row rejected fails the run (status 1), since the
-// stations marked incomplete are ranked without that object.
-func rejectedShortfall(s *inventory.Survey) error {
-	if n := report.RejectedObjects(s); n > 0 {
-		return withCode(exitProblems, fmt.Errorf("%d object row(s) were rejected: the outputs are written, but the stations marked incomplete are ranked without them; see the Rejected sheet", n))
-	}
-	return nil
 }
 
 // whatifCommandLine rebuilds the command for the Method sheet with the changes

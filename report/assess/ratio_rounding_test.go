@@ -7,6 +7,7 @@ import "testing"
 // dropped in running text). 1.125 is exact in binary: the tie goes to even,
 // "1.12"; 8.695 is stored a little above, "8.7"; 9.996 rounds up a digit
 // to "10". Derived by hand (python3: format(x, '.2f') gives the same digits).
+// The ratios are invented for the test.
 // report/audit's TestRatioTablesRoundAsFindings checks book's formatter
 // against the same list.
 var ratioRounding = []struct {

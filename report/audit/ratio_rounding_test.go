@@ -8,7 +8,8 @@ import (
 
 // Review N8: the tables' ratio text (book.FormatSigTrim, three significant
 // digits) gives the digits report/assess's ratioText gives in a finding, on
-// the same hand-derived list (report/assess ratio_rounding_test.go).
+// the same hand-derived list (report/assess ratio_rounding_test.go; the ratios
+// are invented for the test).
 func TestRatioTablesRoundAsFindings(t *testing.T) {
 	for _, c := range []struct {
 		r    float64

@@ -8,8 +8,9 @@ import (
 )
 
 // Review N7: the Objects sheet's surface column agrees with the spark rule.
-// DRX-PAP at 1.6e11 Ω/sq (survey row) is below the spark bound (1e12 Ω/sq,
-// reference section 6) but above the area-exemption bound (1e9 Ω/sq): the
+// DRX-PAP at 1.6e11 Ω/sq (survey row, invented for the review) is below the
+// spark bound (1e12 Ω/sq; Source: IEC TS 60079-32-1, dissipative range, as the reference
+// file gives it) but above the area-exemption bound (1e9 Ω/sq): the
 // column must not read "not dissipative" beside "unearthed conducting
 // surface: yes"; it says the spark rule counts it as a conductor.
 func TestSurfaceColumnAgreesWithSparkRule(t *testing.T) {
