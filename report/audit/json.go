@@ -231,8 +231,8 @@ type jsonObject struct {
 	// relative_humidity, mie, group, zone, material, capacitance,
 	// resistance_to_earth, potential, charging_current, ...; assess.Item.Key).
 	Provenance map[string]string `json:"provenance"`
-	// RatioText says why ratio is no number to read: "n/a" (null ratio) or
-	// "no discharge" (ratio 0); absent for a ratio to read.
+	// RatioText says why ratio is no number to read: "n/a" (null ratio),
+	// "no discharge" (ratio 0) or ">= 1 (assumed)"; absent for a ratio to read.
 	RatioText   string           `json:"ratio_text,omitempty"`
 	Probability *jsonProbability `json:"probability,omitempty"`
 	EnergyJP05  *float64         `json:"energy_J_p05,omitempty"`
@@ -242,7 +242,7 @@ type jsonObject struct {
 	// stands: EnergyAtLeastMIE ("at least the MIE", an assumed resistance or current dominating).
 	EnergyNote string `json:"energy_note,omitempty"`
 	// RatioAssumedResistance: ratio is an artefact of an assumed resistance to
-	// earth (read it as at least 1, with energy_note).
+	// earth or charging current (read it as at least 1, with energy_note).
 	RatioAssumedResistance bool `json:"ratio_assumed_resistance,omitempty"`
 }
 
